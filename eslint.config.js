@@ -1,0 +1,50 @@
+import js from '@eslint/js';
+import importX from 'eslint-plugin-import-x';
+import globals from 'globals';
+import tseslint from 'typescript-eslint';
+
+/** Import boundaries of DEVELOPERS.md ("Imports that must never exist"). */
+const boundaries = {
+  shared: { target: './packages/shared', from: ['./packages/client', './packages/server', './seed', './test'] },
+  client: { target: './packages/client', from: ['./packages/server'] },
+  server: { target: './packages/server', from: ['./packages/client'] },
+};
+
+export default tseslint.config(
+  { ignores: ['**/node_modules/**', '**/dist/**', '.data/**', 'scripts/**'] },
+  js.configs.recommended,
+  ...tseslint.configs.recommended,
+  {
+    files: ['**/*.{ts,tsx}'],
+    plugins: { 'import-x': importX },
+    languageOptions: { globals: { ...globals.node, ...globals.browser } },
+    settings: { 'import-x/resolver-next': [importX.createNodeResolver({ extensions: ['.ts', '.tsx', '.js'] })] },
+    rules: {
+      '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_', destructuredArrayIgnorePattern: '^_' }],
+      'import-x/no-cycle': ['error', { ignoreExternal: true }],
+      'import-x/no-restricted-paths': ['error', { zones: Object.values(boundaries) }],
+      'no-restricted-imports': [
+        'error',
+        { patterns: [{ group: ['@burrowline/server', '@burrowline/client'], message: 'Packages talk over HTTP, not imports' }] },
+      ],
+    },
+  },
+  {
+    // A server module reaches another domain through its service, never its model.
+    files: ['packages/server/src/modules/**/*.ts'],
+    rules: {
+      'import-x/no-restricted-paths': [
+        'error',
+        {
+          zones: [
+            boundaries.server,
+            ...['auth', 'farms', 'users', 'coops', 'audit'].map((domain) => ({
+              target: `./packages/server/src/modules/!(${domain})/**`,
+              from: `./packages/server/src/modules/${domain}/*.routes.ts`,
+            })),
+          ],
+        },
+      ],
+    },
+  },
+);

@@ -1,0 +1,77 @@
+import { LogOut, Tent, Warehouse } from 'lucide-react';
+import type { ReactNode } from 'react';
+import { Link, NavLink } from 'react-router-dom';
+import { BrandMark } from '../ui/brand-mark';
+import { Button } from '../ui/button';
+
+function NavItem({ to, end, icon, children }: { to: string; end?: boolean; icon: ReactNode; children: string }) {
+  return (
+    <li>
+      <NavLink
+        to={to}
+        end={end}
+        className={({ isActive }) =>
+          [
+            'inline-flex min-h-11 items-center gap-2 rounded-lg px-2.5 font-medium whitespace-nowrap focus-visible:outline-straw sm:px-3',
+            isActive ? 'bg-straw text-bark' : 'text-oat hover:bg-moss-deep',
+          ].join(' ')
+        }
+      >
+        {icon}
+        {children}
+      </NavLink>
+    </li>
+  );
+}
+
+interface TopBarProps {
+  coopName: string;
+  personName: string;
+  roleLabel: string;
+  /** Absent for someone not attached to a farm: then there is no "My farm" to link to. */
+  farmId: string | null;
+  onSignOut: () => void;
+  isSigningOut: boolean;
+}
+
+/** Wraps to two rows on a phone (co-op and account, then the areas) so nothing scrolls sideways. */
+export function TopBar({ coopName, personName, roleLabel, farmId, onSignOut, isSigningOut }: TopBarProps) {
+  return (
+    <header className="bg-moss text-oat">
+      <a
+        href="#main"
+        className="sr-only focus:not-sr-only focus:absolute focus:top-2 focus:left-2 focus:z-10 focus:rounded-lg focus:bg-straw focus:px-4 focus:py-3 focus:text-bark"
+      >
+        Skip to content
+      </a>
+      {/* Phone: co-op and sign-out on one row, areas and person on the next. Wide: all on one row. */}
+      <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-3 gap-y-1 px-4 py-2 sm:gap-x-6">
+        <Link to="/" className="order-1 flex min-h-11 min-w-0 grow items-center gap-2.5 rounded-lg focus-visible:outline-straw sm:grow-0">
+          <BrandMark withName={false} onMoss />
+          <span className="min-w-0 text-lg leading-tight font-bold">{coopName}</span>
+        </Link>
+        <nav aria-label="Main" className="order-3 sm:order-2">
+          <ul className="flex gap-1">
+            <NavItem to="/" end icon={<Tent className="hidden size-5 sm:block" aria-hidden="true" />}>
+              Commons
+            </NavItem>
+            {farmId && (
+              <NavItem to={`/farms/${farmId}`} icon={<Warehouse className="hidden size-5 sm:block" aria-hidden="true" />}>
+                My farm
+              </NavItem>
+            )}
+          </ul>
+        </nav>
+        <p className="order-4 ml-auto min-w-0 text-right leading-tight sm:order-3">
+          <span className="block max-w-28 truncate font-medium sm:max-w-56">{personName}</span>
+          <span className="block text-sm text-oat/85">{roleLabel}</span>
+        </p>
+        {/* Icon-only on a phone, but always named "Sign out" for assistive tech. */}
+        <Button variant="on-moss" className="order-2 min-w-11 px-3 sm:order-4 sm:px-4" onClick={onSignOut} isBusy={isSigningOut}>
+          {!isSigningOut && <LogOut className="size-5" aria-hidden="true" />}
+          <span className="sr-only sm:not-sr-only">Sign out</span>
+        </Button>
+      </div>
+    </header>
+  );
+}

@@ -1,0 +1,27 @@
+import { PageHeader } from '../../components/ui/page-header';
+import { PageTitle } from '../../components/ui/page-title';
+import { queryClient } from '../../app/query-client';
+import { farmsListQueryOptions, useFarms } from '../../features/farms/api/get-farms';
+import { MembersDirectory } from '../../features/farms/components/members-directory';
+import { NoFarmCard, YourFarmCard } from '../../features/farms/components/your-farm-card';
+import { useSession } from '../../lib/session';
+
+export async function loader() {
+  await queryClient.ensureQueryData(farmsListQueryOptions());
+  return null;
+}
+
+export function CommonsPage() {
+  const me = useSession();
+  const { data: farms } = useFarms();
+  const ownFarm = farms.find((farm) => farm.id === me.user.farmId);
+
+  return (
+    <div className="space-y-8">
+      <PageTitle>Commons</PageTitle>
+      <PageHeader title="Commons" lead={`What's going on across ${me.coop.name}.`} />
+      {ownFarm ? <YourFarmCard farm={ownFarm} /> : <NoFarmCard />}
+      <MembersDirectory farms={farms} ownFarmId={me.user.farmId} />
+    </div>
+  );
+}

@@ -1,0 +1,45 @@
+import { useMemo } from 'react';
+import { Outlet, useLoaderData } from 'react-router-dom';
+import { Alert } from '../../components/ui/alert';
+import { NavigationProgress } from '../../components/layout/navigation-progress';
+import { TopBar } from '../../components/layout/top-bar';
+import type { requireMe } from '../../app/route-guards';
+import { useMe } from '../../features/auth/api/get-me';
+import { useSignOut } from '../../features/auth/api/sign-out';
+import { useRealtimeSync } from '../../features/realtime/hooks/use-realtime-sync';
+import { AbilityContext, buildAbility } from '../../lib/ability';
+import { roleLabels } from '../../lib/role-labels';
+import { SessionContext } from '../../lib/session';
+
+export function SignedInLayout() {
+  const loadedMe = useLoaderData<typeof requireMe>();
+  // While signing out the cache already says null; keep rendering the last known person until we leave.
+  const me = useMe().data ?? loadedMe;
+  const ability = useMemo(() => buildAbility(me.rules), [me.rules]);
+  const signOut = useSignOut();
+  useRealtimeSync();
+
+  return (
+    <SessionContext value={me}>
+      <AbilityContext value={ability}>
+        <NavigationProgress />
+        <TopBar
+          coopName={me.coop.name}
+          personName={me.user.name}
+          roleLabel={roleLabels[me.user.role]}
+          farmId={me.user.farmId}
+          onSignOut={() => signOut.mutate()}
+          isSigningOut={signOut.isPending}
+        />
+        <main id="main" tabIndex={-1} className="mx-auto max-w-6xl px-4 py-6 focus:outline-none sm:py-8">
+          {signOut.isError && (
+            <Alert tone="error" title="Not signed out" className="mb-6">
+              {signOut.error.message}
+            </Alert>
+          )}
+          <Outlet />
+        </main>
+      </AbilityContext>
+    </SessionContext>
+  );
+}

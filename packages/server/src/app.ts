@@ -1,0 +1,99 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import express, { type Express, type RequestHandler } from 'express';
+import helmet from 'helmet';
+import { loadConfig, type Config } from './config/env';
+import { connectDatabase, database } from './db/sequelize';
+import { attachAbility } from './http/ability';
+import { csrfGuard } from './http/csrf';
+import { apiNotFound, errorHandler } from './http/error-handler';
+import { configurePassport } from './http/passport';
+import { createSessionMiddleware, enforceAbsoluteLifetime } from './http/session';
+import { configureMailer } from './lib/mailer';
+import { setLogLevel } from './lib/logger';
+import { authRoutes } from './modules/auth/auth.routes';
+import { farmRoutes } from './modules/farms/farms.routes';
+
+const defaultClientDist = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../client/dist');
+
+export interface AppHandle {
+  app: Express;
+  config: Config;
+  /** The middleware Socket.IO runs on its handshake, so sockets share the HTTP session. */
+  handshake: RequestHandler[];
+  close: () => Promise<void>;
+}
+
+/** Builds the Express app without listening (tests import this; server.ts listens). */
+export function createApp(overrides: Partial<Config> = {}): AppHandle {
+  const config = { ...loadConfig(), ...overrides };
+  setLogLevel(config.logLevel);
+  connectDatabase(config.databaseUrl, config.databasePoolMax);
+  configureMailer(config.smtp);
+  const passport = configurePassport();
+  const session = createSessionMiddleware(config);
+
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', config.trustProxyHops);
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          defaultSrc: ["'self'"],
+          scriptSrc: ["'self'"],
+          styleSrc: ["'self'"],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          fontSrc: ["'self'"],
+          connectSrc: ["'self'"],
+          objectSrc: ["'none'"],
+          baseUri: ["'self'"],
+          formAction: ["'self'"],
+          frameAncestors: ["'none'"],
+          upgradeInsecureRequests: config.env === 'production' ? [] : null,
+        },
+      },
+      strictTransportSecurity: config.env === 'production',
+    }),
+  );
+
+  app.get('/api/health', async (_req, res) => {
+    try {
+      await database().query('SELECT 1');
+      res.json({ status: 'ok', database: 'up' });
+    } catch {
+      res.status(503).json({ status: 'unavailable', database: 'down' });
+    }
+  });
+
+  const api = express.Router();
+  api.use(express.json({ limit: '100kb' }));
+  api.use(session.middleware, enforceAbsoluteLifetime(config), passport.session(), attachAbility);
+  api.use(csrfGuard(config.appUrl));
+  api.use(authRoutes(config, passport));
+  api.use('/farms', farmRoutes());
+  api.use(apiNotFound);
+  app.use('/api', api);
+
+  const clientDist = config.clientDist ?? defaultClientDist;
+  if (fs.existsSync(path.join(clientDist, 'index.html'))) {
+    app.use(express.static(clientDist, { index: false, maxAge: '1h', setHeaders: immutableAssets }));
+    // Client-side routes: every other GET gets the app shell.
+    app.get(/^(?!\/api\/|\/socket\.io\/).*/, (_req, res) => res.sendFile(path.join(clientDist, 'index.html')));
+  }
+  app.use(errorHandler);
+
+  return {
+    app,
+    config,
+    handshake: [session.middleware, enforceAbsoluteLifetime(config), passport.session()],
+    close: async () => {
+      await session.pool.end();
+    },
+  };
+}
+
+function immutableAssets(res: express.Response, filePath: string) {
+  if (filePath.includes(`${path.sep}assets${path.sep}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+}

@@ -1,0 +1,32 @@
+import { Sequelize } from 'sequelize';
+import { initModels } from './models';
+
+let instance: { url: string; sequelize: Sequelize } | null = null;
+
+/** One connection pool per process, as the app role (never the owner). */
+export function connectDatabase(url: string, poolMax = 10): Sequelize {
+  if (instance?.url === url) return instance.sequelize;
+  if (instance) throw new Error('connectDatabase was called with a second database URL');
+  const sequelize = new Sequelize(url, {
+    dialect: 'postgres',
+    logging: false,
+    pool: { max: poolMax, min: 0, idle: 10_000, acquire: 30_000 },
+    define: { underscored: true },
+    retry: { max: 3 },
+  });
+  initModels(sequelize);
+  instance = { url, sequelize };
+  return sequelize;
+}
+
+export function database(): Sequelize {
+  if (!instance) throw new Error('The database is not connected yet');
+  return instance.sequelize;
+}
+
+export async function closeDatabase(): Promise<void> {
+  if (!instance) return;
+  const { sequelize } = instance;
+  instance = null;
+  await sequelize.close();
+}

@@ -1,0 +1,98 @@
+import passport from 'passport';
+import { Strategy as LocalStrategy } from 'passport-local';
+import { QueryTypes } from 'sequelize';
+import type { Role } from '@burrowline/shared';
+import { database } from '../db/sequelize';
+import { verifyPassword } from '../lib/passwords';
+
+/** What a request knows about its signed-in person (loaded per request by id). */
+export interface SessionUser {
+  id: string;
+  coopId: string;
+  farmId: string | null;
+  mentorId: string | null;
+  email: string;
+  name: string;
+  role: Role;
+}
+
+declare global {
+  // eslint-disable-next-line @typescript-eslint/no-namespace
+  namespace Express {
+    // eslint-disable-next-line @typescript-eslint/no-empty-object-type
+    interface User extends SessionUser {}
+  }
+}
+
+declare module 'express-session' {
+  interface SessionData {
+    createdAt: number;
+  }
+}
+
+interface IdentityRow {
+  id: string;
+  coop_id: string;
+  farm_id: string | null;
+  mentor_id: string | null;
+  email: string;
+  name: string;
+  role: Role;
+  disabled_at: Date | null;
+  sessions_valid_after: Date;
+}
+
+/** Identity look-ups run before the tenant is known: SECURITY DEFINER functions (see migration 0002). */
+export async function findIdentityByEmail(email: string) {
+  const [row] = await database().query<{ id: string; coop_id: string; password_hash: string | null; disabled_at: Date | null }>(
+    'SELECT * FROM auth_user_by_email($1)',
+    { bind: [email], type: QueryTypes.SELECT },
+  );
+  return row ?? null;
+}
+
+export async function findIdentityById(id: string): Promise<IdentityRow | null> {
+  const [row] = await database().query<IdentityRow>('SELECT * FROM auth_user_by_id($1)', { bind: [id], type: QueryTypes.SELECT });
+  return row ?? null;
+}
+
+export function configurePassport(): passport.PassportStatic {
+  passport.use(
+    new LocalStrategy({ usernameField: 'email', passwordField: 'password' }, async (email, password, done) => {
+      try {
+        const identity = await findIdentityByEmail(email);
+        const valid = await verifyPassword(identity?.password_hash ?? null, password);
+        if (!identity || !valid || identity.disabled_at) return done(null, false);
+        const full = await findIdentityById(identity.id);
+        return done(null, full ? toSessionUser(full) : false);
+      } catch (error) {
+        return done(error);
+      }
+    }),
+  );
+  passport.serializeUser((user, done) => done(null, user.id));
+  passport.deserializeUser(async (req: import('express').Request, id: string, done: (err: unknown, user?: SessionUser | false) => void) => {
+    try {
+      const row = await findIdentityById(id);
+      const createdAt = req.session?.createdAt ?? 0;
+      // A disabled account, or sessions revoked after this one began, end here (ASVS 7.4.2).
+      if (!row || row.disabled_at || row.sessions_valid_after.getTime() > createdAt) return done(null, false);
+      return done(null, toSessionUser(row));
+    } catch (error) {
+      return done(error);
+    }
+  });
+  return passport;
+}
+
+function toSessionUser(row: IdentityRow): SessionUser {
+  return {
+    id: row.id,
+    coopId: row.coop_id,
+    farmId: row.farm_id,
+    mentorId: row.mentor_id,
+    email: row.email,
+    name: row.name,
+    role: row.role,
+  };
+}

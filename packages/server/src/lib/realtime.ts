@@ -1,0 +1,80 @@
+import type { Server as HttpServer, IncomingMessage } from 'node:http';
+import type { RequestHandler } from 'express';
+import { Server, type Socket } from 'socket.io';
+import { defineAbilityFor, rooms, RealtimeEvent, subjectOf, type ClientToServerEvents, type ServerToClientEvents } from '@burrowline/shared';
+import type { SessionUser } from '../http/passport';
+import { logger } from './logger';
+
+type RealtimeServer = Server<ClientToServerEvents, ServerToClientEvents>;
+let io: RealtimeServer | null = null;
+
+type HandshakeRequest = IncomingMessage & { user?: SessionUser; sessionID?: string; _query?: Record<string, string> };
+
+/** Socket.IO's passport recipe: the session and passport run on the handshake request only. */
+function onlyForHandshake(middleware: RequestHandler) {
+  return (req: HandshakeRequest, res: unknown, next: (err?: unknown) => void) => {
+    if (req._query?.sid === undefined) (middleware as unknown as (a: unknown, b: unknown, c: unknown) => void)(req, res, next);
+    else next();
+  };
+}
+
+export function roomsFor(user: SessionUser, sessionId: string): string[] {
+  const ability = defineAbilityFor(user);
+  const joined = [rooms.user(user.id), `session:${sessionId}`];
+  if (ability.can('read', subjectOf('Coop', { id: user.coopId }))) joined.push(rooms.coop(user.coopId));
+  if (user.farmId) joined.push(rooms.farm(user.farmId));
+  if (ability.can('manage', subjectOf('Application', { coopId: user.coopId }))) joined.push(rooms.coopAdmins(user.coopId));
+  return joined;
+}
+
+/** Attaches Socket.IO to the HTTP server, reusing the app's session and passport middleware. */
+export function attachRealtime(httpServer: HttpServer, opts: { handshake: RequestHandler[]; appUrl: string }): RealtimeServer {
+  const allowedOrigin = new URL(opts.appUrl).origin;
+  const server: RealtimeServer = new Server(httpServer, {
+    path: '/socket.io',
+    maxHttpBufferSize: 16 * 1024,
+    serveClient: false,
+    // A browser always sends Origin for a WebSocket; it must be ours.
+    allowRequest: (req, callback) => {
+      const origin = req.headers.origin;
+      callback(null, !origin || origin === allowedOrigin);
+    },
+  });
+  for (const middleware of opts.handshake) server.engine.use(onlyForHandshake(middleware));
+  server.engine.use(
+    onlyForHandshake(((req: HandshakeRequest, res: import('node:http').ServerResponse, next: () => void) => {
+      if (req.user) return next();
+      res.writeHead(401, { 'content-type': 'application/json' });
+      res.end(JSON.stringify({ error: { code: 'unauthenticated', message: 'Sign in first' } }));
+    }) as unknown as RequestHandler),
+  );
+  server.on('connection', (socket: Socket) => {
+    const req = socket.request as HandshakeRequest;
+    const user = req.user;
+    if (!user || !req.sessionID) return socket.disconnect(true);
+    for (const room of roomsFor(user, req.sessionID)) void socket.join(room);
+    logger.debug('socket connected', { userId: user.id, coopId: user.coopId });
+  });
+  io = server;
+  return server;
+}
+
+export function publish<E extends keyof ServerToClientEvents>(room: string, event: E, ...payload: Parameters<ServerToClientEvents[E]>) {
+  io?.to(room).emit(event, ...payload);
+}
+
+/** Ends live connections at once: on sign-out (one session), disable or role change (every session). */
+export function disconnectRoom(room: string, reason: string) {
+  if (!io) return;
+  io.to(room).emit(RealtimeEvent.sessionEnded, { reason });
+  io.in(room).disconnectSockets(true);
+}
+
+export function sessionRoom(sessionId: string) {
+  return `session:${sessionId}`;
+}
+
+export async function closeRealtime() {
+  if (io) await io.close();
+  io = null;
+}

@@ -1,0 +1,72 @@
+import { packRules } from '@casl/ability/extra';
+import { defineAbilityFor, ErrorCode, rooms, type MeDto } from '@burrowline/shared';
+import { withTenant } from '../../db/tenant';
+import { AppError } from '../../lib/app-error';
+import { sendMail } from '../../lib/mailer';
+import { assertPasswordAllowed, hashPassword } from '../../lib/passwords';
+import { disconnectRoom } from '../../lib/realtime';
+import { findIdentityByEmail } from '../../http/passport';
+import type { SessionUser } from '../../http/passport';
+import { recordAudit } from '../audit/audit.service';
+import { Cooperative } from '../coops/coop.model';
+import { User } from '../users/user.model';
+import { passwordResetMail } from './auth.mail';
+import { consumeToken, issueToken, peekToken } from './tokens';
+
+/** The signed-in person and their co-op, as `/api/me` and sign-in answer. */
+export async function describeMe(actor: SessionUser): Promise<MeDto> {
+  const coop = await withTenant(actor, (tx) => Cooperative.findByPk(actor.coopId, { transaction: tx }));
+  if (!coop) throw AppError.notFound('Your co-op');
+  return {
+    user: { id: actor.id, email: actor.email, name: actor.name, role: actor.role, farmId: actor.farmId, mentorId: actor.mentorId },
+    coop: { id: coop.id, name: coop.name, slug: coop.slug, currency: coop.currency, quarantineDays: coop.quarantineDays },
+    rules: packRules(defineAbilityFor(actor).rules),
+  };
+}
+
+/**
+ * Sends a reset link when the e-mail belongs to an active account. The caller answers the same
+ * either way, so the form does not tell who has an account.
+ */
+export async function requestPasswordReset(input: { email: string; ip: string | null }, opts: { appUrl: string; ttlMinutes: number }) {
+  const identity = await findIdentityByEmail(input.email);
+  if (!identity || identity.disabled_at) {
+    await recordAudit({ coopId: null, actorUserId: null, action: 'password_reset.unknown_email', ip: input.ip });
+    return;
+  }
+  await withTenant({ coopId: identity.coop_id }, async (tx) => {
+    const user = await User.findByPk(identity.id, { transaction: tx });
+    if (!user) return;
+    const token = await issueToken({ userId: user.id, coopId: user.coopId, purpose: 'reset_password', ttlMinutes: opts.ttlMinutes }, tx);
+    await recordAudit({ coopId: user.coopId, actorUserId: user.id, action: 'password_reset.requested', ip: input.ip }, tx);
+    const mail = passwordResetMail({ to: user.email, name: user.name, url: `${opts.appUrl}/set-password?token=${token}`, ttlMinutes: opts.ttlMinutes });
+    tx.afterCommit(() => void sendMail(mail));
+  });
+}
+
+/**
+ * Sets a password from a single-use link (reset, or a new member's first password). Every other
+ * session of the account ends.
+ */
+export async function setPasswordWithToken(input: { token: string; password: string; ip: string | null }): Promise<{ email: string }> {
+  const invalid = new AppError(ErrorCode.invalidToken, 400, 'This link has expired or was already used. Ask for a new one.');
+  const peeked = await peekToken(input.token);
+  if (!peeked) throw invalid;
+  const passwordHash = await (async () => {
+    const user = await withTenant({ coopId: peeked.coopId }, (tx) => User.findByPk(peeked.userId, { transaction: tx }));
+    if (!user) throw invalid;
+    assertPasswordAllowed(input.password, [user.email.split('@')[0] ?? '', user.name]);
+    return hashPassword(input.password);
+  })();
+  return withTenant({ coopId: peeked.coopId }, async (tx) => {
+    if (!(await consumeToken(input.token, tx))) throw invalid;
+    const user = await User.findByPk(peeked.userId, { transaction: tx, lock: tx.LOCK.UPDATE });
+    if (!user || user.disabledAt) throw invalid;
+    user.passwordHash = passwordHash;
+    user.sessionsValidAfter = new Date();
+    await user.save({ transaction: tx });
+    await recordAudit({ coopId: user.coopId, actorUserId: user.id, action: 'password.set', details: { via: peeked.purpose }, ip: input.ip }, tx);
+    tx.afterCommit(() => disconnectRoom(rooms.user(user.id), 'password_changed'));
+    return { email: user.email };
+  });
+}

@@ -1,0 +1,41 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
+import type { TemperatureUnit, WeightUnit } from '@burrowline/shared';
+import type { User } from '../users/user.model';
+
+export class Farm extends Model<InferAttributes<Farm>, InferCreationAttributes<Farm>> {
+  declare id: CreationOptional<string>;
+  declare coopId: string;
+  declare name: string;
+  declare location: CreationOptional<string>;
+  declare timeZone: CreationOptional<string>;
+  declare weightUnit: CreationOptional<WeightUnit>;
+  declare temperatureUnit: CreationOptional<TemperatureUnit>;
+  declare breedsKept: CreationOptional<string[]>;
+  declare description: CreationOptional<string>;
+  declare version: CreationOptional<number>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+  declare deletedAt: CreationOptional<Date | null>;
+  declare members?: NonAttribute<User[]>;
+
+  static initModel(sequelize: Sequelize) {
+    Farm.init(
+      {
+        id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+        coopId: { type: DataTypes.UUID, allowNull: false },
+        name: { type: DataTypes.TEXT, allowNull: false },
+        location: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
+        timeZone: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'America/Chicago' },
+        weightUnit: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'lb_oz' },
+        temperatureUnit: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'F' },
+        breedsKept: { type: DataTypes.ARRAY(DataTypes.TEXT), allowNull: false, defaultValue: [] },
+        description: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
+        version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+        createdAt: DataTypes.DATE,
+        updatedAt: DataTypes.DATE,
+        deletedAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'farms', underscored: true, version: true, paranoid: true },
+    );
+  }
+}

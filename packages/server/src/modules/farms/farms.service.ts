@@ -1,0 +1,74 @@
+import { ForbiddenError } from '@casl/ability';
+import type { Transaction } from 'sequelize';
+import { defineAbilityFor, RealtimeEvent, rooms, subjectOf, type FarmDto, type FarmProfileInput, type FarmProfileUpdateInput } from '@burrowline/shared';
+import { accessibleWhere } from '../../db/scope';
+import { withTenant } from '../../db/tenant';
+import { AppError } from '../../lib/app-error';
+import { publish } from '../../lib/realtime';
+import type { SessionUser } from '../../http/passport';
+import { RecordChange } from '../audit/record-change.model';
+import { User } from '../users/user.model';
+import { Farm } from './farm.model';
+import { presentFarm } from './farms.presenter';
+
+const withMembers = { model: User, as: 'members', attributes: ['id', 'name', 'role', 'disabledAt'] };
+
+/** The co-op's directory: every farm profile of the actor's co-op. */
+export async function listFarms(actor: SessionUser): Promise<FarmDto[]> {
+  const ability = defineAbilityFor(actor);
+  return withTenant(actor, async (tx) => {
+    const farms = await Farm.findAll({
+      where: accessibleWhere(ability, 'read', 'Farm'),
+      include: [withMembers],
+      order: [['name', 'ASC']],
+      transaction: tx,
+    });
+    return farms.map(presentFarm);
+  });
+}
+
+/** One farm profile; another co-op's farm answers 404 (its existence does not leak). */
+export async function getFarm(actor: SessionUser, farmId: string): Promise<FarmDto> {
+  return withTenant(actor, async (tx) => {
+    const farm = await Farm.findOne({ where: { id: farmId, coopId: actor.coopId }, include: [withMembers], transaction: tx });
+    if (!farm || !defineAbilityFor(actor).can('read', subjectOf('Farm', { id: farm.id, coopId: farm.coopId }))) {
+      throw AppError.notFound('That farm');
+    }
+    return presentFarm(farm);
+  });
+}
+
+/**
+ * Edits a farm's profile. Only the farm's own members may; the edit must be made from the current
+ * version (else 409), is kept in the record's history and is announced live to the co-op.
+ */
+export async function updateFarmProfile(actor: SessionUser, farmId: string, input: FarmProfileUpdateInput): Promise<FarmDto> {
+  return withTenant(actor, async (tx) => {
+    const farm = await Farm.findOne({ where: { id: farmId, coopId: actor.coopId }, include: [withMembers], transaction: tx, lock: tx.LOCK.UPDATE });
+    if (!farm) throw AppError.notFound('That farm');
+    ForbiddenError.from(defineAbilityFor(actor)).throwUnlessCan('update', subjectOf('Farm', { id: farm.id, coopId: farm.coopId }));
+    if (farm.version !== input.version) throw AppError.staleVersion();
+
+    const { version: _version, ...fields } = input;
+    const changes: Record<string, [unknown, unknown]> = {};
+    for (const [key, value] of Object.entries(fields) as [keyof typeof fields, unknown][]) {
+      const before = farm.get(key);
+      if (JSON.stringify(before) !== JSON.stringify(value)) changes[key] = [before, value];
+    }
+    if (Object.keys(changes).length === 0) return presentFarm(farm);
+
+    farm.set(fields);
+    await farm.save({ transaction: tx });
+    await RecordChange.create(
+      { coopId: actor.coopId, tableName: 'farms', recordId: farm.id, actorUserId: actor.id, changes },
+      { transaction: tx, returning: false },
+    );
+    tx.afterCommit(() => publish(rooms.coop(actor.coopId), RealtimeEvent.farmUpdated, { farmId: farm.id }));
+    return presentFarm(farm);
+  });
+}
+
+/** Creates a farm inside the caller's tenant transaction (co-op set-up, admission of a member). */
+export async function createFarm(coopId: string, profile: FarmProfileInput, tx: Transaction): Promise<Farm> {
+  return Farm.create({ coopId, ...profile }, { transaction: tx });
+}

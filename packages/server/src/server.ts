@@ -1,0 +1,32 @@
+import http from 'node:http';
+import { createApp } from './app';
+import { closeDatabase } from './db/sequelize';
+import { logger } from './lib/logger';
+import { attachRealtime, closeRealtime } from './lib/realtime';
+
+/** HTTP + Socket.IO on one port, with a graceful shutdown that lets requests in flight finish. */
+export async function startServer() {
+  const handle = createApp();
+  const server = http.createServer(handle.app);
+  attachRealtime(server, { handshake: handle.handshake, appUrl: handle.config.appUrl });
+  await new Promise<void>((resolve) => server.listen(handle.config.port, handle.config.host, resolve));
+  logger.info('listening', { url: handle.config.appUrl, port: handle.config.port });
+
+  let closing = false;
+  const shutdown = async (signal: string) => {
+    if (closing) return;
+    closing = true;
+    logger.info('shutting down', { signal });
+    setTimeout(() => process.exit(1), 10_000).unref();
+    await closeRealtime();
+    await new Promise<void>((resolve) => server.close(() => resolve()));
+    await handle.close();
+    await closeDatabase();
+    process.exit(0);
+  };
+  process.on('SIGINT', () => void shutdown('SIGINT'));
+  process.on('SIGTERM', () => void shutdown('SIGTERM'));
+  return server;
+}
+
+await startServer();

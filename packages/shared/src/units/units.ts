@@ -1,0 +1,44 @@
+/** NIST Handbook 44, App. C: the international avoirdupois pound is exactly 0.45359237 kg. */
+export const GRAMS_PER_POUND = 453.59237;
+/** NIST Handbook 44: 1 oz = 1/16 lb = 28.349523125 g. */
+export const GRAMS_PER_OUNCE = GRAMS_PER_POUND / 16;
+
+export type WeightUnit = 'lb_oz' | 'kg_g';
+export type TemperatureUnit = 'F' | 'C';
+
+export function poundsToGrams(pounds: number): number {
+  return pounds * GRAMS_PER_POUND;
+}
+
+export function gramsToPounds(grams: number): number {
+  return grams / GRAMS_PER_POUND;
+}
+
+/** Splits grams into whole pounds and ounces (rounded to a tenth of an ounce). */
+export function gramsToPoundsOunces(grams: number): { pounds: number; ounces: number } {
+  const totalOunces = Math.round((grams / GRAMS_PER_OUNCE) * 10) / 10;
+  const pounds = Math.floor(totalOunces / 16);
+  const ounces = Math.round((totalOunces - pounds * 16) * 10) / 10;
+  return { pounds, ounces };
+}
+
+export function fahrenheitToCelsius(f: number): number {
+  return ((f - 32) * 5) / 9;
+}
+
+export function celsiusToFahrenheit(c: number): number {
+  return (c * 9) / 5 + 32;
+}
+
+/** Formats a stored weight in the farm's chosen units, e.g. "5 lb 2.3 oz" or "2.32 kg". */
+export function formatWeight(grams: number, unit: WeightUnit): string {
+  if (unit === 'kg_g') {
+    return grams >= 1000 ? `${(grams / 1000).toFixed(2)} kg` : `${Math.round(grams)} g`;
+  }
+  const { pounds, ounces } = gramsToPoundsOunces(grams);
+  return pounds > 0 ? `${pounds} lb ${ounces} oz` : `${ounces} oz`;
+}
+
+export function formatTemperature(celsius: number, unit: TemperatureUnit): string {
+  return unit === 'C' ? `${celsius.toFixed(1)} °C` : `${celsiusToFahrenheit(celsius).toFixed(1)} °F`;
+}
