@@ -46,31 +46,33 @@ export function TopBar({ coopName, personName, roleLabel, farmId, onSignOut, isS
       </a>
       {/* Phone: co-op and sign-out on one row, areas and person on the next. Wide: all on one row. */}
       <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-3 gap-y-1 px-4 py-2 sm:gap-x-6">
-        <Link to="/" className="order-1 flex min-h-11 min-w-0 grow items-center gap-2.5 rounded-lg focus-visible:outline-straw sm:grow-0">
+        <Link to="/" className="order-1 flex min-h-11 min-w-0 flex-1 items-center gap-2.5 rounded-lg focus-visible:outline-straw sm:flex-none">
           <BrandMark withName={false} onMoss />
           <span className="min-w-0 text-lg leading-tight font-bold">{coopName}</span>
         </Link>
-        <nav aria-label="Main" className="order-3 sm:order-2">
-          <ul className="flex gap-1">
-            <NavItem to="/" end icon={<Tent className="hidden size-5 sm:block" aria-hidden="true" />}>
-              Commons
-            </NavItem>
-            {farmId && (
-              <NavItem to={`/farms/${farmId}`} icon={<Warehouse className="hidden size-5 sm:block" aria-hidden="true" />}>
-                My farm
-              </NavItem>
-            )}
-          </ul>
-        </nav>
-        <p className="order-4 ml-auto min-w-0 text-right leading-tight sm:order-3">
-          <span className="block max-w-28 truncate font-medium sm:max-w-56">{personName}</span>
-          <span className="block text-sm text-oat/85">{roleLabel}</span>
-        </p>
         {/* Icon-only on a phone, but always named "Sign out" for assistive tech. */}
         <Button variant="on-moss" className="order-2 min-w-11 px-3 sm:order-4 sm:px-4" onClick={onSignOut} isBusy={isSigningOut}>
           {!isSigningOut && <LogOut className="size-5" aria-hidden="true" />}
           <span className="sr-only sm:not-sr-only">Sign out</span>
         </Button>
+        <div className="order-3 flex w-full items-center justify-between gap-3 sm:contents">
+          <nav aria-label="Main" className="sm:order-2">
+            <ul className="flex gap-1">
+              <NavItem to="/" end icon={<Tent className="hidden size-5 sm:block" aria-hidden="true" />}>
+                Commons
+              </NavItem>
+              {farmId && (
+                <NavItem to={`/farms/${farmId}`} icon={<Warehouse className="hidden size-5 sm:block" aria-hidden="true" />}>
+                  My farm
+                </NavItem>
+              )}
+            </ul>
+          </nav>
+          <p className="min-w-0 text-right leading-tight sm:order-3 sm:ml-auto">
+            <span className="block max-w-32 truncate font-medium sm:max-w-56">{personName}</span>
+            <span className="block text-sm text-oat/85">{roleLabel}</span>
+          </p>
+        </div>
       </div>
     </header>
   );

@@ -19,7 +19,7 @@ export function FarmProfile({ farm }: { farm: FarmDto }) {
           )}
         </section>
       </Card>
-      <Card className="space-y-3">
+      <Card className="space-y-3 self-start">
         <h2 className="text-lg font-semibold">Members</h2>
         <MemberList members={farm.members} />
       </Card>

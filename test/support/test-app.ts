@@ -1,0 +1,58 @@
+import http from 'node:http';
+import type { AddressInfo } from 'node:net';
+import supertest from 'supertest';
+import { CSRF_HEADER } from '@burrowline/shared';
+import { createApp, type AppHandle } from '../../packages/server/src/app';
+import type { Config } from '../../packages/server/src/config/env';
+import { attachRealtime } from '../../packages/server/src/lib/realtime';
+
+let shared: AppHandle | null = null;
+
+/** The app as `createApp()` builds it, against the test run's real PostgreSQL and maildev. */
+export function testApp(overrides: Partial<Config> = {}): AppHandle {
+  if (Object.keys(overrides).length > 0) return createApp(overrides);
+  shared ??= createApp();
+  return shared;
+}
+
+export type Agent = ReturnType<typeof supertest.agent>;
+
+/** A cookie-keeping client that sends the CSRF header like our web client does. */
+export function agentFor(handle: AppHandle = testApp()): Agent {
+  return supertest.agent(handle.app).set(CSRF_HEADER, '1');
+}
+
+export async function signedInAgent(email: string, password: string, handle: AppHandle = testApp()): Promise<Agent> {
+  const agent = agentFor(handle);
+  const res = await agent.post('/api/session').send({ email, password });
+  if (res.status !== 200) throw new Error(`sign-in of ${email} failed: ${res.status} ${JSON.stringify(res.body)}`);
+  return agent;
+}
+
+/** A listening HTTP + Socket.IO server on a free loopback port, as server.ts builds it. */
+export async function listeningServer(overrides: Partial<Config> = {}) {
+  const server = http.createServer();
+  await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
+  const { port } = server.address() as AddressInfo;
+  const url = `http://127.0.0.1:${port}`;
+  const handle = createApp({ appUrl: url, ...overrides });
+  server.on('request', handle.app);
+  attachRealtime(server, { handshake: handle.handshake, appUrl: url });
+  return {
+    url,
+    handle,
+    close: async () => {
+      server.closeAllConnections();
+      await new Promise<void>((resolve) => server.close(() => resolve()));
+      await handle.close();
+    },
+  };
+}
+
+/** The session cookie from a sign-in response, for clients that are not supertest (sockets, browsers). */
+export function sessionCookieOf(res: supertest.Response): string {
+  const cookies = ([] as string[]).concat(res.headers['set-cookie'] ?? []);
+  const cookie = cookies.find((c) => c.startsWith('burrowline.sid='));
+  if (!cookie) throw new Error('no session cookie in the response');
+  return cookie.split(';')[0]!;
+}
