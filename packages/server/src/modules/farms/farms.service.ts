@@ -44,7 +44,8 @@ export async function getFarm(actor: SessionUser, farmId: string): Promise<FarmD
  */
 export async function updateFarmProfile(actor: SessionUser, farmId: string, input: FarmProfileUpdateInput): Promise<FarmDto> {
   return withTenant(actor, async (tx) => {
-    const farm = await Farm.findOne({ where: { id: farmId, coopId: actor.coopId }, include: [withMembers], transaction: tx, lock: tx.LOCK.UPDATE });
+    // Row lock first (FOR UPDATE cannot cover the outer join), members after.
+    const farm = await Farm.findOne({ where: { id: farmId, coopId: actor.coopId }, transaction: tx, lock: tx.LOCK.UPDATE });
     if (!farm) throw AppError.notFound('That farm');
     ForbiddenError.from(defineAbilityFor(actor)).throwUnlessCan('update', subjectOf('Farm', { id: farm.id, coopId: farm.coopId }));
     if (farm.version !== input.version) throw AppError.staleVersion();
@@ -55,15 +56,16 @@ export async function updateFarmProfile(actor: SessionUser, farmId: string, inpu
       const before = farm.get(key);
       if (JSON.stringify(before) !== JSON.stringify(value)) changes[key] = [before, value];
     }
-    if (Object.keys(changes).length === 0) return presentFarm(farm);
-
-    farm.set(fields);
-    await farm.save({ transaction: tx });
-    await RecordChange.create(
-      { coopId: actor.coopId, tableName: 'farms', recordId: farm.id, actorUserId: actor.id, changes },
-      { transaction: tx, returning: false },
-    );
-    tx.afterCommit(() => publish(rooms.coop(actor.coopId), RealtimeEvent.farmUpdated, { farmId: farm.id }));
+    if (Object.keys(changes).length > 0) {
+      farm.set(fields);
+      await farm.save({ transaction: tx });
+      await RecordChange.create(
+        { coopId: actor.coopId, tableName: 'farms', recordId: farm.id, actorUserId: actor.id, changes },
+        { transaction: tx, returning: false },
+      );
+      tx.afterCommit(() => publish(rooms.coop(actor.coopId), RealtimeEvent.farmUpdated, { farmId: farm.id }));
+    }
+    farm.members = await User.findAll({ where: { farmId: farm.id }, attributes: withMembers.attributes, transaction: tx });
     return presentFarm(farm);
   });
 }

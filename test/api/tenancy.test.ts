@@ -1,0 +1,72 @@
+import { describe, expect, it } from 'vitest';
+import { createTestCoop, TEST_PASSWORD } from '../support/factories';
+import { appDb, asTenant, ownerDb } from '../support/db';
+import { signedInAgent } from '../support/test-app';
+
+describe('co-op tenancy', () => {
+  it('when a person asks for another co-op\'s farm, then it answers 404 as if it did not exist', async () => {
+    const ours = await createTestCoop();
+    const theirs = await createTestCoop();
+    const agent = await signedInAgent(ours.admin.email, TEST_PASSWORD);
+    const foreignFarm = theirs.farms[0]!.id;
+    const read = await agent.get(`/api/farms/${foreignFarm}`);
+    expect(read.status).toBe(404);
+    const missing = await agent.get(`/api/farms/00000000-0000-4000-8000-000000000000`);
+    expect(read.body).toEqual({ error: { ...missing.body.error, message: missing.body.error.message } });
+    const write = await agent.patch(`/api/farms/${foreignFarm}`).send({
+      name: 'Mine now', location: 'Elsewhere', timeZone: 'UTC', weightUnit: 'kg_g', temperatureUnit: 'C', breedsKept: [], description: '', version: 0,
+    });
+    expect(write.status).toBe(404);
+    const name = await asTenant(theirs.id, (c) => c.query('SELECT name FROM farms WHERE id = $1', [foreignFarm]));
+    expect(name.rows[0].name).not.toBe('Mine now');
+  });
+});
+
+describe('row-level security (the second wall)', () => {
+  it('when the app role queries without a tenant, then it sees no tenant rows at all', async () => {
+    await createTestCoop();
+    const counts = await appDb(async (c) => ({
+      farms: (await c.query('SELECT count(*)::int AS n FROM farms')).rows[0].n,
+      users: (await c.query('SELECT count(*)::int AS n FROM users')).rows[0].n,
+      coops: (await c.query('SELECT count(*)::int AS n FROM cooperatives')).rows[0].n,
+      audit: (await c.query('SELECT count(*)::int AS n FROM audit_events WHERE coop_id IS NOT NULL')).rows[0].n,
+    }));
+    expect(counts).toEqual({ farms: 0, users: 0, coops: 0, audit: 0 });
+  });
+
+  it('when the tenant is set, then only that co-op\'s rows are visible and writes into another co-op fail', async () => {
+    const a = await createTestCoop();
+    const b = await createTestCoop();
+    const seen = await asTenant(a.id, (c) => c.query('SELECT DISTINCT coop_id FROM farms'));
+    expect(seen.rows).toEqual([{ coop_id: a.id }]);
+    await expect(
+      asTenant(a.id, (c) => c.query(`INSERT INTO farms (coop_id, name) VALUES ($1, 'Smuggled')`, [b.id])),
+    ).rejects.toThrow(/row-level security/);
+    const updated = await asTenant(a.id, (c) => c.query(`UPDATE farms SET name = 'Renamed' WHERE coop_id = $1`, [b.id]));
+    expect(updated.rowCount).toBe(0);
+  });
+
+  it('when a pooled connection is reused after a tenant transaction, then the setting is gone and nothing matches', async () => {
+    const a = await createTestCoop();
+    const rows = await appDb(async (c) => {
+      await c.query('BEGIN');
+      await c.query(`SELECT set_config('app.coop_id', $1, true)`, [a.id]);
+      await c.query('COMMIT');
+      return (await c.query('SELECT count(*)::int AS n FROM farms')).rows[0].n;
+    });
+    expect(rows).toBe(0);
+  });
+
+  it('when we look at the roles, then the app role is neither superuser nor able to bypass RLS, and every tenant table forces RLS', async () => {
+    const role = await appDb((c) => c.query('SELECT rolsuper, rolbypassrls FROM pg_roles WHERE rolname = current_user'));
+    expect(role.rows[0]).toEqual({ rolsuper: false, rolbypassrls: false });
+    const tables = await ownerDb((c) =>
+      c.query(`SELECT relname, relrowsecurity, relforcerowsecurity FROM pg_class
+               WHERE relname IN ('cooperatives','farms','users','audit_events','record_changes') ORDER BY relname`),
+    );
+    expect(tables.rows).toHaveLength(5);
+    for (const t of tables.rows) expect([t.relname, t.relrowsecurity, t.relforcerowsecurity]).toEqual([t.relname, true, true]);
+    const owns = await appDb((c) => c.query(`SELECT count(*)::int AS n FROM pg_tables WHERE tableowner = current_user`));
+    expect(owns.rows[0].n).toBe(0);
+  });
+});
