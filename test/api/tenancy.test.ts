@@ -70,3 +70,24 @@ describe('row-level security (the second wall)', () => {
     expect(owns.rows[0].n).toBe(0);
   });
 });
+
+describe('list scoping agrees with the ability', () => {
+  it('when farms are listed, then the SQL scope returns exactly the rows ability.can allows, for every role', async () => {
+    const { accessibleWhere } = await import('../../packages/server/src/db/scope');
+    const { withTenant } = await import('../../packages/server/src/db/tenant');
+    const { Farm } = await import('../../packages/server/src/modules/farms/farm.model');
+    const { defineAbilityFor, subjectOf } = await import('@burrowline/shared');
+    const coop = await createTestCoop();
+    for (const person of [coop.admin, coop.member, coop.otherFarmMember, coop.apprentice]) {
+      const ability = defineAbilityFor({ ...person, mentorId: null });
+      for (const action of ['read', 'update'] as const) {
+        const { scoped, all } = await withTenant({ coopId: coop.id }, async (tx) => ({
+          scoped: (await Farm.findAll({ where: accessibleWhere(ability, action, 'Farm'), transaction: tx })).map((f) => f.id).sort(),
+          all: await Farm.findAll({ transaction: tx }),
+        }));
+        const allowed = all.filter((f) => ability.can(action, subjectOf('Farm', { id: f.id, coopId: f.coopId }))).map((f) => f.id).sort();
+        expect(scoped).toEqual(allowed);
+      }
+    }
+  });
+});

@@ -1,6 +1,5 @@
-import { Op, type WhereOptions } from 'sequelize';
+import { literal, Op, type WhereOptions } from 'sequelize';
 import type { Action, AppAbility, SubjectName } from '@burrowline/shared';
-import { AppError } from '../lib/app-error';
 
 type Conditions = Record<string, unknown>;
 
@@ -22,7 +21,7 @@ export function accessibleWhere(ability: AppAbility, action: Action, subjectName
     (rule.inverted ? denied : allowed).push(conditions);
     if (!rule.inverted && !rule.conditions) break; // unconditional permission: later rules cannot narrow further
   }
-  if (allowed.length === 0) throw AppError.notFound();
+  if (allowed.length === 0) return { [Op.and]: [literal('FALSE')] }; // no permission: no rows
   const allow = allowed.some((c) => Object.keys(c).length === 0) ? {} : { [Op.or]: allowed };
   if (denied.length === 0) return allow;
   return { [Op.and]: [allow, ...denied.map((c) => ({ [Op.not]: c }))] };

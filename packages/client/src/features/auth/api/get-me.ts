@@ -20,6 +20,8 @@ export function meQueryOptions() {
     queryFn: ({ signal }) => getMe(signal),
     // Changes only on sign-in, sign-out or a `session:ended` event, each of which updates the cache.
     staleTime: Infinity,
+    // One quick retry for patchy barn Wi-Fi; the sign-in screen should not wait through a long backoff.
+    retry: 1,
   });
 }
 
