@@ -39,8 +39,9 @@ export default tseslint.config(
           zones: [
             boundaries.server,
             ...['auth', 'farms', 'users', 'coops', 'audit'].map((domain) => ({
-              target: `./packages/server/src/modules/!(${domain})/**`,
-              from: `./packages/server/src/modules/${domain}/*.routes.ts`,
+              target: `./packages/server/src/modules/!(${domain})/**/!(*.model).ts`,
+              from: `./packages/server/src/modules/${domain}/**/*.model.ts`,
+              message: `Reach the ${domain} domain through its service, not its model`,
             })),
           ],
         },

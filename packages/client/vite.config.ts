@@ -22,9 +22,6 @@ export default defineConfig({
     target: 'es2022',
     sourcemap: true,
     rolldownOptions: {
-      // Shared is pure code but its package does not say so; without this, importing one constant from
-      // it would pull zod and every schema into the first load.
-      treeshake: { moduleSideEffects: [{ test: /[\\/]packages[\\/]shared[\\/]src[\\/]/, sideEffects: false }] },
       output: {
         codeSplitting: {
           groups: [

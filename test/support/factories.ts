@@ -40,7 +40,7 @@ export async function createTestCoop(opts: { name?: string } = {}): Promise<Test
   const passwordHash = inject('passwordHash');
   const slug = unique('coop');
   return createCooperative({ name: opts.name ?? `Test Co-op ${slug}`, slug }, async (coop, tx) => {
-    const farms = [];
+    const farms: { id: string; name: string }[] = [];
     for (const name of [unique('Farm A'), unique('Farm B')]) {
       const farm = await createFarm(
         coop.id,

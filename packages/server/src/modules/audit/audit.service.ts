@@ -1,6 +1,7 @@
 import type { Transaction } from 'sequelize';
 import { withTenant } from '../../db/tenant';
 import { AuditEvent } from './audit-event.model';
+import { RecordChange } from './record-change.model';
 
 export interface AuditInput {
   coopId: string | null;
@@ -26,4 +27,12 @@ export async function recordAudit(event: AuditInput, tx?: Transaction): Promise<
     // No tenant yet (an unknown e-mail at sign-in): RLS lets only co-op-less rows through here.
     await AuditEvent.create(row, { returning: false });
   }
+}
+
+/** Keeps who changed which fields of a record others refer to (old → new). */
+export async function recordChanges(
+  entry: { coopId: string; tableName: string; recordId: string; actorUserId: string | null; changes: Record<string, [unknown, unknown]> },
+  tx: Transaction,
+): Promise<void> {
+  await RecordChange.create(entry, { transaction: tx, returning: false });
 }

@@ -8,14 +8,14 @@ import { disconnectRoom } from '../../lib/realtime';
 import { findIdentityByEmail } from '../../http/passport';
 import type { SessionUser } from '../../http/passport';
 import { recordAudit } from '../audit/audit.service';
-import { Cooperative } from '../coops/coop.model';
-import { User } from '../users/user.model';
+import { getCoop } from '../coops/coops.service';
+import { findUser, replacePassword } from '../users/users.service';
 import { passwordResetMail } from './auth.mail';
 import { consumeToken, issueToken, peekToken } from './tokens';
 
 /** The signed-in person and their co-op, as `/api/me` and sign-in answer. */
 export async function describeMe(actor: SessionUser): Promise<MeDto> {
-  const coop = await withTenant(actor, (tx) => Cooperative.findByPk(actor.coopId, { transaction: tx }));
+  const coop = await withTenant(actor, (tx) => getCoop(actor.coopId, tx));
   if (!coop) throw AppError.notFound('Your co-op');
   return {
     user: { id: actor.id, email: actor.email, name: actor.name, role: actor.role, farmId: actor.farmId, mentorId: actor.mentorId },
@@ -35,7 +35,7 @@ export async function requestPasswordReset(input: { email: string; ip: string | 
     return;
   }
   await withTenant({ coopId: identity.coop_id }, async (tx) => {
-    const user = await User.findByPk(identity.id, { transaction: tx });
+    const user = await findUser(identity.id, tx);
     if (!user) return;
     const token = await issueToken({ userId: user.id, coopId: user.coopId, purpose: 'reset_password', ttlMinutes: opts.ttlMinutes }, tx);
     await recordAudit({ coopId: user.coopId, actorUserId: user.id, action: 'password_reset.requested', ip: input.ip }, tx);
@@ -53,18 +53,16 @@ export async function setPasswordWithToken(input: { token: string; password: str
   const peeked = await peekToken(input.token);
   if (!peeked) throw invalid;
   const passwordHash = await (async () => {
-    const user = await withTenant({ coopId: peeked.coopId }, (tx) => User.findByPk(peeked.userId, { transaction: tx }));
+    const user = await withTenant({ coopId: peeked.coopId }, (tx) => findUser(peeked.userId, tx));
     if (!user) throw invalid;
     assertPasswordAllowed(input.password, [user.email.split('@')[0] ?? '', user.name]);
     return hashPassword(input.password);
   })();
   return withTenant({ coopId: peeked.coopId }, async (tx) => {
     if (!(await consumeToken(input.token, tx))) throw invalid;
-    const user = await User.findByPk(peeked.userId, { transaction: tx, lock: tx.LOCK.UPDATE });
+    const user = await findUser(peeked.userId, tx, { lock: true });
     if (!user || user.disabledAt) throw invalid;
-    user.passwordHash = passwordHash;
-    user.sessionsValidAfter = new Date();
-    await user.save({ transaction: tx });
+    await replacePassword(user, passwordHash, tx);
     await recordAudit({ coopId: user.coopId, actorUserId: user.id, action: 'password.set', details: { via: peeked.purpose }, ip: input.ip }, tx);
     tx.afterCommit(() => disconnectRoom(rooms.user(user.id), 'password_changed'));
     return { email: user.email };

@@ -32,3 +32,8 @@ export async function findPublicCoop(slug: string): Promise<{ id: string; name: 
   );
   return row ? { id: row.id, name: row.name, slug: row.slug, rulesText: row.rules_text } : null;
 }
+
+/** The actor's own co-op, read inside their tenant transaction. */
+export async function getCoop(coopId: string, tx: Transaction): Promise<Cooperative | null> {
+  return Cooperative.findByPk(coopId, { transaction: tx });
+}

@@ -6,12 +6,11 @@ import { withTenant } from '../../db/tenant';
 import { AppError } from '../../lib/app-error';
 import { publish } from '../../lib/realtime';
 import type { SessionUser } from '../../http/passport';
-import { RecordChange } from '../audit/record-change.model';
-import { User } from '../users/user.model';
+import { recordChanges } from '../audit/audit.service';
 import { Farm } from './farm.model';
 import { presentFarm } from './farms.presenter';
 
-const withMembers = { model: User, as: 'members', attributes: ['id', 'name', 'role', 'disabledAt'] };
+const withMembers = { association: 'members', attributes: ['id', 'name', 'role', 'disabledAt'] };
 
 /** The co-op's directory: every farm profile of the actor's co-op. */
 export async function listFarms(actor: SessionUser): Promise<FarmDto[]> {
@@ -59,13 +58,10 @@ export async function updateFarmProfile(actor: SessionUser, farmId: string, inpu
     if (Object.keys(changes).length > 0) {
       farm.set(fields);
       await farm.save({ transaction: tx });
-      await RecordChange.create(
-        { coopId: actor.coopId, tableName: 'farms', recordId: farm.id, actorUserId: actor.id, changes },
-        { transaction: tx, returning: false },
-      );
+      await recordChanges({ coopId: actor.coopId, tableName: 'farms', recordId: farm.id, actorUserId: actor.id, changes }, tx);
       tx.afterCommit(() => publish(rooms.coop(actor.coopId), RealtimeEvent.farmUpdated, { farmId: farm.id }));
     }
-    farm.members = await User.findAll({ where: { farmId: farm.id }, attributes: withMembers.attributes, transaction: tx });
+    await farm.reload({ include: [withMembers], transaction: tx });
     return presentFarm(farm);
   });
 }

@@ -18,7 +18,7 @@ function DirectoryEntry({ farm, isOwn }: { farm: FarmDto; isOwn: boolean }) {
         <MapPin className="size-4 shrink-0" aria-hidden="true" />
         {farm.location}
       </p>
-      <BreedTags breeds={farm.breedsKept} limit={4} />
+      <BreedTags breeds={farm.breedsKept} limit={4} announceLabel />
       <p className="text-sm text-grey-600">
         {farm.members.length === 0 ? 'No members yet' : farm.members.map((member) => member.name).join(', ')}
       </p>
