@@ -1,7 +1,10 @@
+import fs from 'node:fs';
 import js from '@eslint/js';
 import importX from 'eslint-plugin-import-x';
 import globals from 'globals';
 import tseslint from 'typescript-eslint';
+
+const serverDomains = fs.readdirSync(new URL('./packages/server/src/modules', import.meta.url));
 
 /** Import boundaries of DEVELOPERS.md ("Imports that must never exist"). */
 const boundaries = {
@@ -38,7 +41,7 @@ export default tseslint.config(
         {
           zones: [
             boundaries.server,
-            ...['auth', 'farms', 'users', 'coops', 'audit'].map((domain) => ({
+            ...serverDomains.map((domain) => ({
               target: `./packages/server/src/modules/!(${domain})/**/!(*.model).ts`,
               from: `./packages/server/src/modules/${domain}/**/*.model.ts`,
               message: `Reach the ${domain} domain through its service, not its model`,

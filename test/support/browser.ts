@@ -1,0 +1,36 @@
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { chromium, type BrowserContext, type Page } from 'playwright-core';
+
+const CHROMIUM_ARGS = [
+  '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
+  '--disable-background-networking', '--disable-component-update', '--disable-sync',
+];
+
+/** One Debian Chromium context per person (its own profile folder, so cookies never mix). */
+export async function openBrowser(opts: { width?: number; height?: number } = {}): Promise<{ context: BrowserContext; page: Page; close: () => Promise<void> }> {
+  const profile = fs.mkdtempSync(path.join(os.tmpdir(), 'burrowline-e2e-'));
+  const context = await chromium.launchPersistentContext(profile, {
+    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+    headless: true,
+    args: CHROMIUM_ARGS,
+    viewport: { width: opts.width ?? 1280, height: opts.height ?? 900 },
+  });
+  const page = context.pages()[0] ?? (await context.newPage());
+  return {
+    context,
+    page,
+    close: async () => {
+      await context.close();
+      fs.rmSync(profile, { recursive: true, force: true });
+    },
+  };
+}
+
+/** Page errors a person would see as a broken screen (network 401s while signed out are expected). */
+export function collectPageErrors(page: Page): string[] {
+  const errors: string[] = [];
+  page.on('pageerror', (error) => errors.push(String(error)));
+  return errors;
+}
