@@ -17,6 +17,7 @@ export default tseslint.config(
   { ignores: ['**/node_modules/**', '**/dist/**', '.data/**', 'scripts/**'] },
   js.configs.recommended,
   ...tseslint.configs.recommended,
+  { files: ['*.js'], languageOptions: { globals: globals.node } },
   {
     files: ['**/*.{ts,tsx}'],
     plugins: { 'import-x': importX },
