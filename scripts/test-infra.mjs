@@ -8,7 +8,7 @@ const [name = 'pg-work', pg = '54331', smtp = '1036', web = '1091'] = process.ar
 const cluster = await startCluster({ name, port: Number(pg), fresh: true, fast: true });
 await startMaildev({ smtpPort: Number(smtp), webPort: Number(web) });
 const env = {
-  NODE_ENV: 'test', DATABASE_URL: cluster.appUrl, DATABASE_OWNER_URL: cluster.ownerUrl,
+  NODE_ENV: 'test', PG_CLUSTER_NAME: name, DATABASE_URL: cluster.appUrl, DATABASE_OWNER_URL: cluster.ownerUrl,
   SESSION_SECRET: 'test-secret-test-secret-test-secret-0123', SMTP_HOST: '127.0.0.1', SMTP_PORT: smtp,
   MAILDEV_API: `http://127.0.0.1:${web}`, CHROMIUM_PATH: '/usr/bin/chromium', LOG_LEVEL: 'silent',
 };

@@ -25,6 +25,7 @@ await startMaildev({ smtpPort: PORTS.smtp, webPort: PORTS.mailWeb });
 const env = {
   ...process.env,
   NODE_ENV: 'test',
+  PG_CLUSTER_NAME: 'pg-test',
   DATABASE_URL: cluster.appUrl,
   DATABASE_OWNER_URL: cluster.ownerUrl,
   SESSION_SECRET: 'test-secret-test-secret-test-secret-0123',
