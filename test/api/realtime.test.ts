@@ -4,12 +4,13 @@ import { io as connect, type Socket } from 'socket.io-client';
 import { CSRF_HEADER, RealtimeEvent } from '@burrowline/shared';
 import { createTestCoop, TEST_PASSWORD } from '../support/factories';
 import { listeningServer, sessionCookieOf } from '../support/test-app';
+import { asTenant, ownerDb } from '../support/db';
 
 let server: Awaited<ReturnType<typeof listeningServer>>;
 const sockets: Socket[] = [];
 
 beforeAll(async () => {
-  server = await listeningServer();
+  server = await listeningServer({ socketSessionCheckSeconds: 0.2 });
 });
 afterAll(async () => {
   for (const s of sockets) s.close();
@@ -95,5 +96,22 @@ describe('live updates over Socket.IO', () => {
     expect(await disconnected).toBe('io server disconnect');
     // The old cookie cannot open a new one.
     expect(await refused(openSocket(cookie))).toBeInstanceOf(Error);
+  });
+
+  it('when a session ends on its own (expired, removed) or the account is disabled, then its socket is dropped', async () => {
+    const coop = await createTestCoop();
+    const cookie = await signIn(coop.member.email);
+    const socket = openSocket(cookie);
+    await connected(socket);
+    const ended = new Promise<{ reason: string }>((resolve) => socket.once(RealtimeEvent.sessionEnded, resolve));
+    const sid = decodeURIComponent(cookie.split('=')[1]!).slice(2).split('.')[0]!;
+    await ownerDb((c) => c.query('DELETE FROM user_sessions WHERE sid = $1', [sid]));
+    expect((await ended).reason).toBe('session_expired');
+
+    const other = openSocket(await signIn(coop.otherFarmMember.email));
+    await connected(other);
+    const dropped = new Promise<string>((resolve) => other.once('disconnect', resolve));
+    await asTenant(coop.id, (c) => c.query('UPDATE users SET disabled_at = now() WHERE id = $1', [coop.otherFarmMember.id]), { commit: true });
+    expect(await dropped).toBe('io server disconnect');
   });
 });

@@ -4,7 +4,7 @@ import supertest from 'supertest';
 import { CSRF_HEADER } from '@burrowline/shared';
 import { createApp, type AppHandle } from '../../packages/server/src/app';
 import type { Config } from '../../packages/server/src/config/env';
-import { attachRealtime } from '../../packages/server/src/lib/realtime';
+import { attachRealtime, closeRealtime } from '../../packages/server/src/lib/realtime';
 
 let shared: AppHandle | null = null;
 
@@ -37,11 +37,12 @@ export async function listeningServer(overrides: Partial<Config> = {}) {
   const url = `http://127.0.0.1:${port}`;
   const handle = createApp({ appUrl: url, ...overrides });
   server.on('request', handle.app);
-  attachRealtime(server, { handshake: handle.handshake, appUrl: url });
+  attachRealtime(server, handle.realtime);
   return {
     url,
     handle,
     close: async () => {
+      await closeRealtime();
       server.closeAllConnections();
       await new Promise<void>((resolve) => server.close(() => resolve()));
       await handle.close();

@@ -1,7 +1,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import express, { type Express, type RequestHandler } from 'express';
+import express, { type Express } from 'express';
 import helmet from 'helmet';
 import { loadConfig, type Config } from './config/env';
 import { connectDatabase, database } from './db/sequelize';
@@ -9,9 +9,10 @@ import { attachAbility } from './http/ability';
 import { csrfGuard } from './http/csrf';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { configurePassport } from './http/passport';
-import { createSessionMiddleware, enforceAbsoluteLifetime } from './http/session';
+import { createSessionMiddleware, enforceAbsoluteLifetime, sessionChecker } from './http/session';
 import { configureMailer } from './lib/mailer';
 import { setLogLevel } from './lib/logger';
+import type { RealtimeOptions } from './lib/realtime';
 import { authRoutes } from './modules/auth/auth.routes';
 import { farmRoutes } from './modules/farms/farms.routes';
 
@@ -20,8 +21,8 @@ const defaultClientDist = path.resolve(path.dirname(fileURLToPath(import.meta.ur
 export interface AppHandle {
   app: Express;
   config: Config;
-  /** The middleware Socket.IO runs on its handshake, so sockets share the HTTP session. */
-  handshake: RequestHandler[];
+  /** What Socket.IO needs to share the HTTP session and drop sockets whose session has ended. */
+  realtime: RealtimeOptions;
   close: () => Promise<void>;
 }
 
@@ -87,7 +88,12 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
   return {
     app,
     config,
-    handshake: [session.middleware, enforceAbsoluteLifetime(config), passport.session()],
+    realtime: {
+      handshake: [session.middleware, enforceAbsoluteLifetime(config), passport.session()],
+      appUrl: config.appUrl,
+      isSessionCurrent: sessionChecker(session.store, config),
+      sessionCheckSeconds: config.socketSessionCheckSeconds,
+    },
     close: async () => {
       await session.pool.end();
     },

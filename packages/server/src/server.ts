@@ -8,7 +8,7 @@ import { attachRealtime, closeRealtime } from './lib/realtime';
 export async function startServer() {
   const handle = createApp();
   const server = http.createServer(handle.app);
-  attachRealtime(server, { handshake: handle.handshake, appUrl: handle.config.appUrl });
+  attachRealtime(server, handle.realtime);
   await new Promise<void>((resolve) => server.listen(handle.config.port, handle.config.host, resolve));
   logger.info('listening', { url: handle.config.appUrl, port: handle.config.port });
 

@@ -13,6 +13,7 @@ const envSchema = z.object({
   SESSION_SECRET: z.string().min(32, 'SESSION_SECRET must have at least 32 characters'),
   SESSION_IDLE_SECONDS: z.coerce.number().int().min(1).default(60 * 60 * 8),
   SESSION_ABSOLUTE_SECONDS: z.coerce.number().int().min(1).default(60 * 60 * 24 * 7),
+  SOCKET_SESSION_CHECK_SECONDS: z.coerce.number().min(0.1).default(60),
   TRUST_PROXY_HOPS: z.coerce.number().int().min(0).default(0),
   SIGNIN_WINDOW_SECONDS: z.coerce.number().int().min(1).default(15 * 60),
   SIGNIN_MAX_PER_IP: z.coerce.number().int().min(1).default(50),
@@ -43,6 +44,7 @@ export interface Config {
   sessionIdleSeconds: number;
   sessionAbsoluteSeconds: number;
   trustProxyHops: number;
+  socketSessionCheckSeconds: number;
   signIn: { windowSeconds: number; maxPerIp: number; maxFailuresPerAccount: number; maxResetsPerIp: number };
   resetTokenTtlMinutes: number;
   smtp: { host: string; port: number; secure: boolean; user?: string; pass?: string; from: string };
@@ -70,6 +72,7 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
     sessionIdleSeconds: e.SESSION_IDLE_SECONDS,
     sessionAbsoluteSeconds: e.SESSION_ABSOLUTE_SECONDS,
     trustProxyHops: e.TRUST_PROXY_HOPS,
+    socketSessionCheckSeconds: e.SOCKET_SESSION_CHECK_SECONDS,
     signIn: {
       windowSeconds: e.SIGNIN_WINDOW_SECONDS,
       maxPerIp: e.SIGNIN_MAX_PER_IP,

@@ -27,8 +27,17 @@ export function roomsFor(user: SessionUser, sessionId: string): string[] {
   return joined;
 }
 
+export interface RealtimeOptions {
+  handshake: RequestHandler[];
+  appUrl: string;
+  isSessionCurrent: (sessionId: string) => Promise<boolean>;
+  sessionCheckSeconds: number;
+}
+
+let sweeper: NodeJS.Timeout | null = null;
+
 /** Attaches Socket.IO to the HTTP server, reusing the app's session and passport middleware. */
-export function attachRealtime(httpServer: HttpServer, opts: { handshake: RequestHandler[]; appUrl: string }): RealtimeServer {
+export function attachRealtime(httpServer: HttpServer, opts: RealtimeOptions): RealtimeServer {
   const allowedOrigin = new URL(opts.appUrl).origin;
   const server: RealtimeServer = new Server(httpServer, {
     path: '/socket.io',
@@ -52,9 +61,17 @@ export function attachRealtime(httpServer: HttpServer, opts: { handshake: Reques
     const req = socket.request as HandshakeRequest;
     const user = req.user;
     if (!user || !req.sessionID) return socket.disconnect(true);
+    socket.data.sessionId = req.sessionID;
     for (const room of roomsFor(user, req.sessionID)) void socket.join(room);
+    // Every message a client sends is checked against a still-valid session first.
+    socket.use((_packet, next) => {
+      opts.isSessionCurrent(req.sessionID!).then((ok) => (ok ? next() : socket.disconnect(true)), () => socket.disconnect(true));
+    });
     logger.debug('socket connected', { userId: user.id, coopId: user.coopId });
   });
+  // Sessions also end silently (idle or absolute timeout): sweep open sockets and drop those.
+  sweeper = setInterval(() => void dropEndedSessions(server, opts), opts.sessionCheckSeconds * 1000);
+  sweeper.unref();
   io = server;
   return server;
 }
@@ -74,7 +91,17 @@ export function sessionRoom(sessionId: string) {
   return `session:${sessionId}`;
 }
 
+async function dropEndedSessions(server: RealtimeServer, opts: RealtimeOptions) {
+  const sockets = await server.local.fetchSockets();
+  const sessionIds = new Set(sockets.map((s) => s.data.sessionId as string));
+  for (const sessionId of sessionIds) {
+    if (!(await opts.isSessionCurrent(sessionId).catch(() => true))) disconnectRoom(sessionRoom(sessionId), 'session_expired');
+  }
+}
+
 export async function closeRealtime() {
+  if (sweeper) clearInterval(sweeper);
+  sweeper = null;
   if (io) await io.close();
   io = null;
 }
