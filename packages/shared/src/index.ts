@@ -2,6 +2,7 @@ export * from './errors';
 export * from './realtime';
 export * from './dto';
 export * from './units/units';
+export * from './pedigree';
 export * from './schemas/auth.schema';
 export * from './schemas/farm.schema';
 export * from './permissions/define-ability';

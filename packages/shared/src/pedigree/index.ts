@@ -1,0 +1,9 @@
+export { PedigreeCycleError, PedigreeDuplicateError, findPedigreeCycle, type PedigreeAnimal } from './pedigree-index';
+export {
+  inbreedingCoefficients, kinship, offspringInbreeding, offspringInbreedingMany, recomputeInbreeding, type InbreedingById,
+} from './inbreeding';
+export { pedigreeCompleteness, pedigreeCompletenessAll } from './completeness';
+export {
+  asDyadicFraction, breedMakeup, breedMakeupAll, combineBreedMakeup, offspringBreedMakeup, offspringBreedMakeupMany,
+  type BreedAnimal, type BreedMakeup, type BreedPurity,
+} from './breed-makeup';
