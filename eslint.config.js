@@ -14,10 +14,10 @@ const boundaries = {
 };
 
 export default tseslint.config(
-  { ignores: ['**/node_modules/**', '**/dist/**', '.data/**', 'scripts/**'] },
+  { ignores: ['**/node_modules/**', '**/dist/**', '.data/**'] },
   js.configs.recommended,
   ...tseslint.configs.recommended,
-  { files: ['*.js'], languageOptions: { globals: globals.node } },
+  { files: ['**/*.{js,mjs}'], languageOptions: { globals: globals.node } },
   {
     files: ['**/*.{ts,tsx}'],
     plugins: { 'import-x': importX },
