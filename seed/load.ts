@@ -5,9 +5,35 @@ import { createCooperative, findPublicCoop } from '../packages/server/src/module
 import { createFarm } from '../packages/server/src/modules/farms/farms.service';
 import { createUser } from '../packages/server/src/modules/users/users.service';
 import { DEMO_PASSWORD, demoApprentice, demoCoop, demoFarms } from './demo-coop';
+import { withTenant } from '../packages/server/src/db/tenant';
+import { coopHasAnimals } from '../packages/server/src/modules/animals/herd-import.service';
+import { farmDirectoryOf } from '../packages/server/src/modules/farms/farms.service';
+import { findUserByEmail } from '../packages/server/src/modules/users/users.service';
+import { loadDemoHerds } from './demo-herds';
 
 export async function loadDemoCoop(): Promise<'loaded' | 'already-present'> {
-  if (await findPublicCoop(demoCoop.slug)) return 'already-present';
+  const present = await findPublicCoop(demoCoop.slug);
+  if (present) {
+    // A demo co-op loaded before the Herd existed gets its herds once.
+    await withTenant({ coopId: present.id }, async (tx) => {
+      if (await coopHasAnimals(present.id, tx)) return;
+      const directory = await farmDirectoryOf(present.id, tx);
+      const farms = new Map<string, string>();
+      const keepers = new Map<string, string>();
+      for (const farm of demoFarms) {
+        const found = [...directory.values()].find((f) => f.name === farm.profile.name);
+        const keeper = await findUserByEmail(farm.people[0]!.email, tx);
+        if (found && keeper) {
+          farms.set(farm.key, found.id);
+          keepers.set(farm.key, keeper.id);
+        }
+      }
+      if (farms.size !== demoFarms.length) return;
+      const apprentice = await findUserByEmail(demoApprentice.email, tx);
+      await loadDemoHerds({ coopId: present.id, farms, keepers, apprenticeId: apprentice?.id ?? null }, tx);
+    });
+    return 'already-present';
+  }
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   await createCooperative(demoCoop, async (coop, tx) => {
     const userIds = new Map<string, { id: string; farmId: string }>();
@@ -19,10 +45,18 @@ export async function loadDemoCoop(): Promise<'loaded' | 'already-present'> {
       }
     }
     const mentor = userIds.get(demoApprentice.mentorEmail)!;
-    await createUser(
+    const apprentice = await createUser(
       { coopId: coop.id, farmId: mentor.farmId, mentorId: mentor.id, email: demoApprentice.email, name: demoApprentice.name, role: 'apprentice', passwordHash },
       tx,
     );
+    const farms = new Map<string, string>();
+    const keepers = new Map<string, string>();
+    for (const farm of demoFarms) {
+      const keeper = userIds.get(farm.people[0]!.email)!;
+      farms.set(farm.key, keeper.farmId);
+      keepers.set(farm.key, keeper.id);
+    }
+    await loadDemoHerds({ coopId: coop.id, farms, keepers, apprenticeId: apprentice.id }, tx);
   });
   return 'loaded';
 }

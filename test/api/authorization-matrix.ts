@@ -4,13 +4,93 @@
  * farm A; `otherFarmMember` to farm B of the same co-op; `otherCoop` is an admin of another co-op.
  */
 export type Persona = 'anonymous' | 'apprentice' | 'member' | 'otherFarmMember' | 'admin' | 'otherCoop';
-export type Target = 'none' | 'farmA' | 'farmB';
+/**
+ * Objects a row acts on. Membership targets are made fresh for every cell (a pending application,
+ * a member of farm B, a turned-off member, one without a password yet, a pending invitee), so a
+ * change that one persona may make never alters what the next persona is tested against.
+ */
+export type Target =
+  | 'none'
+  | 'farmA'
+  | 'farmB'
+  | 'application'
+  | 'freshMember'
+  | 'disabledMember'
+  | 'awaitingMember'
+  | 'invitee'
+  | 'coopAdmin'
+  // The Herd: a fresh doe of farm A (with a buck of farm B for trial matings), a doe of farm B, an apprentice's
+  // pending weigh-in and note on farm A, an outside duplicate to merge.
+  | 'animalA'
+  | 'animalB'
+  | 'weighInA'
+  | 'noteA'
+  | 'outsideDuplicate'
+  // The Almanac and litters (issue 6), all on farm A: a doe and buck, an open service 31 days old (with its
+  // palpation task), a task an apprentice ticked, a nursing litter (with a second one to foster into), an
+  // apprentice's pending loss, a hutch, a placement, the farm's calendar feed.
+  | 'breedingPairA'
+  | 'serviceA'
+  | 'pendingTaskA'
+  | 'litterA'
+  | 'litterEventA'
+  | 'housingA'
+  | 'placementA'
+  | 'feedA'
+  // Herd files (issue 5): a photo of a fresh farm-A animal, a spreadsheet staged by farm A's member.
+  | 'photoA'
+  | 'importA';
+export type Body =
+  | 'farmProfile'
+  | 'application'
+  | 'approval'
+  | 'rejection'
+  | 'withdrawal'
+  | 'roleChange'
+  | 'disable'
+  | 'enable'
+  | 'invitation'
+  | 'rules'
+  | 'animal'
+  | 'animalEdit'
+  | 'statusEvent'
+  | 'custodyMove'
+  | 'weighIn'
+  | 'note'
+  | 'review'
+  | 'trialMating'
+  | 'outsideAnimal'
+  | 'merge'
+  | 'breed'
+  | 'cycleSettings'
+  | 'service'
+  | 'palpation'
+  | 'closure'
+  | 'taskDone'
+  | 'taskSkip'
+  | 'taskBulk'
+  | 'taskReview'
+  | 'treatment'
+  | 'morningEmail'
+  | 'kindling'
+  | 'litterLoss'
+  | 'fostering'
+  | 'keeper'
+  | 'litterReview'
+  | 'housingUnit'
+  | 'placement'
+  | 'placementEnd'
+  | 'photoUpload'
+  | 'farmPhotoUpload'
+  | 'photoCaption'
+  | 'csvUpload'
+  | 'importConfirmation';
 
 export interface MatrixRow {
-  method: 'GET' | 'PATCH' | 'DELETE' | 'POST';
+  method: 'GET' | 'PATCH' | 'DELETE' | 'POST' | 'PUT';
   path: string;
   target: Target;
-  body?: 'farmProfile';
+  body?: Body;
   expect: Record<Persona, number>;
 }
 
@@ -20,5 +100,111 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'GET', path: '/api/farms/:farmId', target: 'farmA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
   { method: 'PATCH', path: '/api/farms/:farmId', target: 'farmA', body: 'farmProfile', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
   { method: 'PATCH', path: '/api/farms/:farmId', target: 'farmB', body: 'farmProfile', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 200, admin: 403, otherCoop: 404 } },
+  // Membership: the public form answers everyone; the queue, roster, invitations and audit log are the admin's.
+  { method: 'GET', path: '/api/apply/:coopSlug', target: 'none', expect: { anonymous: 200, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'POST', path: '/api/apply/:coopSlug', target: 'none', body: 'application', expect: { anonymous: 201, apprentice: 201, member: 201, otherFarmMember: 201, admin: 201, otherCoop: 201 } },
+  { method: 'GET', path: '/api/applications', target: 'none', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/applications/unread-count', target: 'none', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/applications/:applicationId', target: 'application', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/applications/:applicationId/views', target: 'application', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 204, otherCoop: 404 } },
+  { method: 'POST', path: '/api/applications/:applicationId/approval', target: 'application', body: 'approval', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/applications/:applicationId/rejection', target: 'application', body: 'rejection', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/applications/:applicationId/withdrawal', target: 'application', body: 'withdrawal', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/members', target: 'none', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/members/:userId', target: 'freshMember', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'PATCH', path: '/api/members/:userId/role', target: 'freshMember', body: 'roleChange', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'PATCH', path: '/api/members/:userId/role', target: 'coopAdmin', body: 'roleChange', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 403, otherCoop: 404 } },
+  { method: 'POST', path: '/api/members/:userId/disable', target: 'freshMember', body: 'disable', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/members/:userId/disable', target: 'coopAdmin', body: 'disable', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 403, otherCoop: 404 } },
+  { method: 'POST', path: '/api/members/:userId/enable', target: 'disabledMember', body: 'enable', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/members/:userId/set-password-link', target: 'awaitingMember', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'DELETE', path: '/api/members/:userId/invitation', target: 'invitee', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/invitations', target: 'none', body: 'invitation', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 201, otherCoop: 201 } },
+  { method: 'GET', path: '/api/audit-events', target: 'none', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/coop', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  // The co-op is the session's own: the other co-op's admin edits their own co-op's rules, never ours.
+  { method: 'PATCH', path: '/api/coop', target: 'none', body: 'rules', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 200 } },
+  // The Herd (issue 4): full rights on one's own farm's animals, pedigree cards for everyone in the co-op,
+  // apprentices read and add entries that wait for review, admins add breeds and merge outside duplicates
+  // but edit no other farm's herd; another co-op sees nothing.
+  { method: 'GET', path: '/api/breeds', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'POST', path: '/api/breeds', target: 'none', body: 'breed', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 201, otherCoop: 201 } },
+  { method: 'GET', path: '/api/animals', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'POST', path: '/api/animals', target: 'none', body: 'animal', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 201, admin: 201, otherCoop: 201 } },
+  { method: 'GET', path: '/api/animals/:animalId', target: 'animalA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/animals/:animalId', target: 'animalB', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 200, admin: 403, otherCoop: 404 } },
+  { method: 'PATCH', path: '/api/animals/:animalId', target: 'animalA', body: 'animalEdit', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'PATCH', path: '/api/animals/:animalId', target: 'animalB', body: 'animalEdit', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 200, admin: 403, otherCoop: 404 } },
+  { method: 'GET', path: '/api/animals/:animalId/pedigree', target: 'animalB', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/animals/:animalId/weigh-ins', target: 'animalB', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 200, admin: 403, otherCoop: 404 } },
+  { method: 'POST', path: '/api/animals/:animalId/status-events', target: 'animalA', body: 'statusEvent', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 403, admin: 201, otherCoop: 404 } },
+  { method: 'POST', path: '/api/animals/:animalId/custody-events', target: 'animalA', body: 'custodyMove', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 403, admin: 201, otherCoop: 404 } },
+  { method: 'POST', path: '/api/animals/:animalId/notes', target: 'animalA', body: 'note', expect: { anonymous: 401, apprentice: 201, member: 201, otherFarmMember: 403, admin: 201, otherCoop: 404 } },
+  { method: 'POST', path: '/api/weigh-ins', target: 'animalA', body: 'weighIn', expect: { anonymous: 401, apprentice: 201, member: 201, otherFarmMember: 403, admin: 201, otherCoop: 404 } },
+  { method: 'POST', path: '/api/weigh-ins/:weighInId/review', target: 'weighInA', body: 'review', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/animal-notes/:noteId/review', target: 'noteA', body: 'review', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/pedigree-cards', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/pedigree-cards/:animalId', target: 'animalB', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
+  // Another co-op's ids are not there, so its trial names no doe: a field error, like any unknown id.
+  { method: 'POST', path: '/api/trial-matings', target: 'animalA', body: 'trialMating', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 400 } },
+  { method: 'GET', path: '/api/outside-animals', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'POST', path: '/api/outside-animals', target: 'none', body: 'outsideAnimal', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 201, admin: 201, otherCoop: 201 } },
+  { method: 'POST', path: '/api/outside-animals/:animalId/merge', target: 'outsideDuplicate', body: 'merge', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  // The Almanac and litters (issue 6): members plan and record for their own farm; apprentices read the
+  // mentor's, tick tasks and record litter counts (pending review), never plan; another farm's records are
+  // not there (404); another co-op sees nothing. Ids of other farms' animals in a body are field errors (400).
+  // The calendar feed is public at its secret address (a phone calendar has no session).
+  { method: 'GET', path: '/api/almanac/tasks', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/almanac/summary', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/almanac/settings', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'PATCH', path: '/api/almanac/settings', target: 'none', body: 'cycleSettings', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/almanac/breeding-stock', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/almanac/calendar-feed', target: 'none', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'POST', path: '/api/almanac/calendar-feed', target: 'none', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 201, admin: 201, otherCoop: 201 } },
+  { method: 'DELETE', path: '/api/almanac/calendar-feed', target: 'none', expect: { anonymous: 401, apprentice: 403, member: 204, otherFarmMember: 204, admin: 204, otherCoop: 204 } },
+  { method: 'GET', path: '/api/calendar-feeds/:feedToken.ics', target: 'feedA', expect: { anonymous: 200, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/almanac/morning-email', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'PUT', path: '/api/almanac/morning-email', target: 'none', body: 'morningEmail', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'PATCH', path: '/api/almanac/tasks/:taskId', target: 'serviceA', body: 'taskDone', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'PATCH', path: '/api/almanac/tasks/:taskId', target: 'serviceA', body: 'taskSkip', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/almanac/tasks/bulk', target: 'serviceA', body: 'taskBulk', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/almanac/tasks/:taskId/review', target: 'pendingTaskA', body: 'taskReview', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/services', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'POST', path: '/api/services', target: 'breedingPairA', body: 'service', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 400, admin: 201, otherCoop: 400 } },
+  { method: 'GET', path: '/api/services/:serviceId', target: 'serviceA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/services/:serviceId/palpations', target: 'serviceA', body: 'palpation', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 404, admin: 201, otherCoop: 404 } },
+  { method: 'POST', path: '/api/services/:serviceId/closure', target: 'serviceA', body: 'closure', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/treatments', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'POST', path: '/api/treatments', target: 'breedingPairA', body: 'treatment', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 400, admin: 201, otherCoop: 400 } },
+  { method: 'GET', path: '/api/litters', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'POST', path: '/api/litters', target: 'serviceA', body: 'kindling', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 400, admin: 201, otherCoop: 400 } },
+  { method: 'GET', path: '/api/litters/:litterId', target: 'litterA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/litters/:litterId/events', target: 'litterA', body: 'litterLoss', expect: { anonymous: 401, apprentice: 201, member: 201, otherFarmMember: 404, admin: 201, otherCoop: 404 } },
+  { method: 'GET', path: '/api/litters/:litterId/foster-candidates', target: 'litterA', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/litters/:litterId/fosterings', target: 'litterA', body: 'fostering', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 404, admin: 201, otherCoop: 404 } },
+  { method: 'POST', path: '/api/litters/:litterId/keepers', target: 'litterA', body: 'keeper', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 404, admin: 201, otherCoop: 404 } },
+  { method: 'POST', path: '/api/litter-events/:eventId/review', target: 'litterEventA', body: 'litterReview', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/housing-units', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'POST', path: '/api/housing-units', target: 'none', body: 'housingUnit', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 201, admin: 201, otherCoop: 201 } },
+  { method: 'POST', path: '/api/housing-units/:unitId/placements', target: 'housingA', body: 'placement', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 404, admin: 201, otherCoop: 404 } },
+  { method: 'POST', path: '/api/housing-placements/:placementId/end', target: 'placementA', body: 'placementEnd', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  // Herd files (issue 5): an animal's photos and papers are its own farm's (its apprentices see, do not change;
+  // another farm of the co-op, which sees only the pedigree card, finds nothing: 404); farm profile photos are
+  // seen by the co-op, changed by the farm; spreadsheets are imported by a farm's members into their own herd.
+  { method: 'GET', path: '/api/animals/:animalId/photos', target: 'animalA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/animals/:animalId/photos', target: 'animalA', body: 'photoUpload', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 404, admin: 201, otherCoop: 404 } },
+  { method: 'GET', path: '/api/photos/:photoId', target: 'photoA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/photos/:photoId/thumbnail', target: 'photoA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'PATCH', path: '/api/photos/:photoId', target: 'photoA', body: 'photoCaption', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'DELETE', path: '/api/photos/:photoId', target: 'photoA', expect: { anonymous: 401, apprentice: 403, member: 204, otherFarmMember: 404, admin: 204, otherCoop: 404 } },
+  { method: 'GET', path: '/api/farms/:farmId/photo', target: 'farmA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
+  { method: 'PUT', path: '/api/farms/:farmId/photo', target: 'farmA', body: 'farmPhotoUpload', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'DELETE', path: '/api/farms/:farmId/photo', target: 'farmA', expect: { anonymous: 401, apprentice: 403, member: 204, otherFarmMember: 403, admin: 204, otherCoop: 404 } },
+  { method: 'POST', path: '/api/herd-imports', target: 'none', body: 'csvUpload', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 201, admin: 201, otherCoop: 201 } },
+  { method: 'GET', path: '/api/herd-imports/:importId', target: 'importA', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/herd-imports/:importId/confirmation', target: 'importA', body: 'importConfirmation', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/herd-export', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/pedigree-certificates/:animalId', target: 'animalA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/pedigree-certificates/:animalId', target: 'animalB', expect: { anonymous: 401, apprentice: 404, member: 404, otherFarmMember: 200, admin: 404, otherCoop: 404 } },
   { method: 'DELETE', path: '/api/session', target: 'none', expect: { anonymous: 204, apprentice: 204, member: 204, otherFarmMember: 204, admin: 204, otherCoop: 204 } },
 ];

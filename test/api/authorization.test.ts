@@ -1,8 +1,27 @@
-import { beforeAll, describe, expect, it } from 'vitest';
-import { createTestCoop, TEST_PASSWORD, type TestCoop } from '../support/factories';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { randomUUID } from 'node:crypto';
+import {
+  applicationBody,
+  createAwaitingMember,
+  createTestApplication,
+  createTestCoop,
+  createTestInvitee,
+  createTestMember,
+  TEST_PASSWORD,
+  type TestCoop,
+} from '../support/factories';
 import { asTenant } from '../support/db';
-import { agentFor, signedInAgent, type Agent } from '../support/test-app';
-import { authorizationMatrix, type Persona } from './authorization-matrix';
+import { agentFor, signedInAgent, testApp, type Agent } from '../support/test-app';
+
+// Every cell signs in afresh and some send applications: rate limits stay out of the way here.
+const handle = testApp({
+  signIn: { windowSeconds: 60, maxPerIp: 100_000, maxFailuresPerAccount: 100_000, maxResetsPerIp: 100_000 },
+  membership: { linkTtlHours: 72, applyWindowSeconds: 60, applyMaxPerIp: 100_000, applyMaxPerEmail: 100_000 },
+});
+import { authorizationMatrix, type Body, type Persona, type Target } from './authorization-matrix';
+import { herdBody, herdStateOf, herdTarget } from '../support/herd-matrix';
+import { almanacBody, almanacPath, almanacStateOf, almanacTarget } from '../support/almanac-matrix';
+import { herdFilesPath, herdFilesSend, herdFilesStateOf, herdFilesTarget } from '../support/herd-files-matrix';
 
 let coop: TestCoop;
 let foreign: TestCoop;
@@ -10,11 +29,14 @@ let foreign: TestCoop;
 beforeAll(async () => {
   [coop, foreign] = await Promise.all([createTestCoop(), createTestCoop()]);
 });
+afterAll(async () => {
+  await handle.close();
+});
 
 async function agentOf(persona: Persona): Promise<Agent> {
-  if (persona === 'anonymous') return agentFor();
+  if (persona === 'anonymous') return agentFor(handle);
   const person = persona === 'otherCoop' ? foreign.admin : coop[persona];
-  return signedInAgent(person.email, TEST_PASSWORD);
+  return signedInAgent(person.email, TEST_PASSWORD, handle);
 }
 
 async function farmProfileBody(farmId: string) {
@@ -26,21 +48,110 @@ async function farmProfileBody(farmId: string) {
   };
 }
 
+/** A fresh object for membership targets, so one persona's allowed change never alters the next cell. */
+async function membershipTarget(target: Target): Promise<{ applicationId?: string; userId?: string }> {
+  switch (target) {
+    case 'application':
+      return { applicationId: (await createTestApplication(coop)).id };
+    case 'freshMember':
+      return { userId: (await createTestMember(coop)).id };
+    case 'disabledMember': {
+      const person = await createTestMember(coop);
+      await asTenant(coop.id, (c) => c.query(`UPDATE users SET disabled_at = now(), disabled_reason = 'Matrix' WHERE id = $1`, [person.id]), { commit: true });
+      return { userId: person.id };
+    }
+    case 'awaitingMember':
+      return { userId: (await createAwaitingMember(coop)).id };
+    case 'invitee':
+      return { userId: (await createTestInvitee(coop)).id };
+    case 'coopAdmin':
+      return { userId: coop.admin.id };
+    default:
+      return {};
+  }
+}
+
+/** What a refused call must leave exactly as it was. */
+async function stateOf(ids: { farmId: string; applicationId?: string; userId?: string }, persona: Persona) {
+  const ownCoop = persona === 'otherCoop' ? foreign.id : coop.id;
+  return {
+    farmVersion: ids.farmId ? (await farmProfileBody(ids.farmId)).version : null,
+    application: ids.applicationId
+      ? (await asTenant(coop.id, (c) => c.query('SELECT status, version FROM applications WHERE id = $1', [ids.applicationId]))).rows[0]
+      : null,
+    user: ids.userId
+      ? (await asTenant(coop.id, (c) => c.query('SELECT role, disabled_at, version FROM users WHERE id = $1', [ids.userId]))).rows[0]
+      : null,
+    coopVersion: (await asTenant(ownCoop, (c) => c.query('SELECT version FROM cooperatives WHERE id = $1', [ownCoop]))).rows[0].version,
+  };
+}
+
+async function bodyFor(body: Body | undefined, ids: { farmId: string; userId?: string }, persona: Persona): Promise<object | undefined> {
+  const userVersion = async () =>
+    ids.userId ? (await asTenant(coop.id, (c) => c.query('SELECT version FROM users WHERE id = $1', [ids.userId]))).rows[0].version : 0;
+  switch (body) {
+    case 'farmProfile':
+      return farmProfileBody(ids.farmId);
+    case 'application':
+      return applicationBody();
+    case 'approval':
+      return {};
+    case 'rejection':
+      return { reason: 'Checked by the authorization matrix.' };
+    case 'withdrawal':
+      return { note: 'Checked by the authorization matrix.' };
+    case 'roleChange':
+      return { role: 'admin', version: await userVersion() };
+    case 'disable':
+      return { reason: 'Checked by the authorization matrix.', version: await userVersion() };
+    case 'enable':
+      return { version: await userVersion() };
+    case 'invitation': {
+      const tag = randomUUID().slice(0, 8);
+      return { name: `Matrix ${tag}`, email: `matrix-${tag}@example.test`, role: 'member', farm: { kind: 'existing', farmId: persona === 'otherCoop' ? foreign.farms[0]!.id : coop.farms[1]!.id } };
+    }
+    case 'rules': {
+      const ownCoop = persona === 'otherCoop' ? foreign.id : coop.id;
+      const version = (await asTenant(ownCoop, (c) => c.query('SELECT version FROM cooperatives WHERE id = $1', [ownCoop]))).rows[0].version;
+      return { rulesText: `Rules checked by the authorization matrix at ${Date.now()}.`, version };
+    }
+    default:
+      return undefined;
+  }
+}
+
 describe('authorization matrix', () => {
   for (const row of authorizationMatrix) {
     for (const [persona, status] of Object.entries(row.expect) as [Persona, number][]) {
       it(`when ${persona} calls ${row.method} ${row.path} on ${row.target}, then it answers ${status}`, async () => {
         const agent = await agentOf(persona);
         const farmId = row.target === 'farmA' ? coop.farms[0]!.id : row.target === 'farmB' ? coop.farms[1]!.id : '';
-        const url = row.path.replace(':farmId', farmId);
-        const body = row.body === 'farmProfile' ? await farmProfileBody(farmId) : undefined;
-        const before = farmId ? await farmProfileBody(farmId) : null;
-        const method = row.method.toLowerCase() as 'get' | 'patch' | 'delete' | 'post';
-        const res = await agent[method](url).send(body);
+        const ids = { farmId, ...(await membershipTarget(row.target)), ...(await herdTarget(coop, row.target)), ...(await almanacTarget(coop, row.target)), ...(await herdFilesTarget(coop, row.target)) };
+        const url = row.path
+          .replace(':farmId', farmId)
+          .replace(':coopSlug', coop.slug)
+          .replace(':applicationId', ids.applicationId ?? '')
+          .replace(':userId', ids.userId ?? '')
+          .replace(':animalId', ids.animalId ?? '')
+          .replace(':weighInId', ids.weighInId ?? '')
+          .replace(':noteId', ids.noteId ?? '');
+        const path = herdFilesPath(almanacPath(url, ids), ids);
+        const personaOf = persona === 'otherCoop' ? foreign.admin : persona === 'anonymous' ? null : coop[persona];
+        const body = (await bodyFor(row.body, ids, persona)) ?? (await herdBody(coop, row.body, ids))
+          ?? (await almanacBody(coop, row.body, ids, personaOf?.coopId ?? coop.id, personaOf?.farmId ?? null));
+        const before = await stateOf(ids, persona);
+        const herdBefore = await herdStateOf(coop.id, ids);
+        const almanacBefore = await almanacStateOf(coop.id);
+        const filesBefore = await herdFilesStateOf(coop.id, ids);
+        const method = row.method.toLowerCase() as 'get' | 'patch' | 'delete' | 'post' | 'put';
+        const res = await herdFilesSend(agent[method](path), row.body, body);
         expect(res.status).toBe(status);
         if (status >= 400) {
           expect(res.body.error.code).toBeTypeOf('string');
-          if (before) expect((await farmProfileBody(farmId)).version).toBe(before.version); // a refusal changes nothing
+          expect(await stateOf(ids, persona)).toEqual(before); // a refusal changes nothing
+          expect(await herdStateOf(coop.id, ids)).toEqual(herdBefore);
+          expect(await almanacStateOf(coop.id)).toEqual(almanacBefore);
+          expect(await herdFilesStateOf(coop.id, ids)).toEqual(filesBefore);
         }
       });
     }

@@ -11,10 +11,23 @@ import { apiNotFound, errorHandler } from './http/error-handler';
 import { configurePassport } from './http/passport';
 import { createSessionMiddleware, enforceAbsoluteLifetime, sessionChecker } from './http/session';
 import { configureMailer } from './lib/mailer';
+import { configureStorage } from './lib/storage';
 import { setLogLevel } from './lib/logger';
 import type { RealtimeOptions } from './lib/realtime';
+import { applicationRoutes, publicApplicationRoutes } from './modules/applications/applications.routes';
+import { auditRoutes } from './modules/audit/audit.routes';
 import { authRoutes } from './modules/auth/auth.routes';
+import { coopRoutes } from './modules/coops/coops.routes';
+import { invitationRoutes, memberRoutes } from './modules/members/members.routes';
 import { farmRoutes } from './modules/farms/farms.routes';
+import {
+  animalNoteRoutes, animalRoutes, outsideAnimalRoutes, pedigreeCardRoutes, trialMatingRoutes, weighInRoutes,
+} from './modules/animals/animals.routes';
+import { breedRoutes } from './modules/breeds/breeds.routes';
+import { herdExportRoutes, herdImportRoutes, pedigreeCertificateRoutes } from './modules/herd-files/herd-files.routes';
+import { animalPhotoRoutes, farmPhotoRoutes, photoRoutes } from './modules/photos/photos.routes';
+import { almanacRoutes, calendarFeedRoutes, serviceRoutes, treatmentRoutes } from './modules/almanac/almanac.routes';
+import { housingPlacementRoutes, housingRoutes, litterEventRoutes, litterRoutes } from './modules/litters/litters.routes';
 
 const defaultClientDist = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../client/dist');
 
@@ -32,6 +45,7 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
   setLogLevel(config.logLevel);
   connectDatabase(config.databaseUrl, config.databasePoolMax);
   configureMailer(config.smtp);
+  configureStorage({ dir: config.uploads.dir });
   const passport = configurePassport();
   const session = createSessionMiddleware(config);
 
@@ -73,7 +87,38 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
   api.use(session.middleware, enforceAbsoluteLifetime(config), passport.session(), attachAbility);
   api.use(csrfGuard(config.appUrl));
   api.use(authRoutes(config, passport));
+  api.use('/farms/:farmId/photo', farmPhotoRoutes(config));
   api.use('/farms', farmRoutes());
+  // Membership: the public application form, the admin's queue, roster, invitations, audit log, rules.
+  api.use('/apply', publicApplicationRoutes(config));
+  api.use('/applications', applicationRoutes(config));
+  api.use('/members', memberRoutes(config));
+  api.use('/invitations', invitationRoutes(config));
+  api.use('/audit-events', auditRoutes());
+  api.use('/coop', coopRoutes());
+  // The Herd (issue 4)
+  api.use('/breeds', breedRoutes());
+  // Herd records in and out (issue 5): photos, spreadsheet import and export, pedigree papers.
+  api.use('/animals/:animalId/photos', animalPhotoRoutes(config));
+  api.use('/photos', photoRoutes());
+  api.use('/herd-imports', herdImportRoutes(config));
+  api.use('/herd-export', herdExportRoutes());
+  api.use('/pedigree-certificates', pedigreeCertificateRoutes());
+  api.use('/animals', animalRoutes());
+  api.use('/pedigree-cards', pedigreeCardRoutes());
+  api.use('/trial-matings', trialMatingRoutes());
+  api.use('/weigh-ins', weighInRoutes());
+  api.use('/animal-notes', animalNoteRoutes());
+  api.use('/outside-animals', outsideAnimalRoutes());
+  // The Almanac and litters (issue 6). The calendar feed answers a phone calendar with no session (secret address).
+  api.use('/almanac', almanacRoutes(config));
+  api.use('/services', serviceRoutes());
+  api.use('/treatments', treatmentRoutes());
+  api.use('/calendar-feeds', calendarFeedRoutes(config));
+  api.use('/litters', litterRoutes());
+  api.use('/litter-events', litterEventRoutes());
+  api.use('/housing-units', housingRoutes());
+  api.use('/housing-placements', housingPlacementRoutes());
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -3,6 +3,7 @@ import { createApp } from './app';
 import { closeDatabase } from './db/sequelize';
 import { logger } from './lib/logger';
 import { attachRealtime, closeRealtime } from './lib/realtime';
+import { startDigestScheduler, type DigestScheduler } from './modules/almanac/digest-scheduler';
 
 /** HTTP + Socket.IO on one port, with a graceful shutdown that lets requests in flight finish. */
 export async function startServer() {
@@ -11,6 +12,13 @@ export async function startServer() {
   attachRealtime(server, handle.realtime);
   await new Promise<void>((resolve) => server.listen(handle.config.port, handle.config.host, resolve));
   logger.info('listening', { url: handle.config.appUrl, port: handle.config.port });
+  // The Almanac's morning e-mail: a PostgreSQL job queue, so a run survives a restart and goes once across instances.
+  const digest: DigestScheduler | null = handle.config.morningEmailJobs
+    ? await startDigestScheduler({ connectionString: handle.config.databaseUrl, appUrl: handle.config.appUrl }).catch((error: unknown) => {
+        logger.error('morning e-mail jobs not started', { error: String(error) });
+        return null;
+      })
+    : null;
 
   let closing = false;
   const shutdown = async (signal: string) => {
@@ -19,6 +27,7 @@ export async function startServer() {
     logger.info('shutting down', { signal });
     setTimeout(() => process.exit(1), 10_000).unref();
     await closeRealtime();
+    await digest?.stop().catch(() => undefined);
     await new Promise<void>((resolve) => server.close(() => resolve()));
     await handle.close();
     await closeDatabase();

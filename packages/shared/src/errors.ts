@@ -5,6 +5,8 @@ export const ErrorCode = {
   forbidden: 'forbidden',
   notFound: 'not_found',
   conflict: 'conflict',
+  /** A warning the person may override: resubmit with `confirm: true` (e.g. a parent younger than its breed's first-breeding age). */
+  confirmationRequired: 'confirmation_required',
   staleVersion: 'stale_version',
   rateLimited: 'rate_limited',
   csrf: 'csrf_rejected',
@@ -12,6 +14,8 @@ export const ErrorCode = {
   invalidToken: 'invalid_token',
   weakPassword: 'weak_password',
   payloadTooLarge: 'payload_too_large',
+  /** An upload whose content (checked by its signature, not its name) is not a kind we accept. */
+  unsupportedFile: 'unsupported_file',
   internal: 'internal_error',
 } as const;
 

@@ -1,12 +1,38 @@
+import type { ApplicationStatus } from './schemas/application.schema';
+
 /** Socket.IO event names and payloads; the client maps each to TanStack Query invalidations. */
 export const RealtimeEvent = {
   farmUpdated: 'farm:updated',
   sessionEnded: 'session:ended',
+  /** An animal of the farm was added or changed (record, status, move, weigh-in); to the farm's room. */
+  herdChanged: 'herd:changed',
+  /** Pedigree figures (COI, breed make-up) were recomputed; to the co-op room, since pedigree cards are co-op-wide. */
+  pedigreeChanged: 'pedigree:changed',
+  /** A new farm joined the co-op (an approved application or an accepted invitation); to the co-op room. */
+  farmCreated: 'farm:created',
+  /** A new application arrived; to the co-op's admin room only. */
+  applicationCreated: 'application:created',
+  /** An application was approved, rejected or withdrawn; to the co-op's admin room only. */
+  applicationUpdated: 'application:updated',
+  /** A member's role, status or invitation changed; to the co-op's admin room only. */
+  memberUpdated: 'member:updated',
+  /** The farm's Almanac changed (a task planned, done, moved, skipped or re-planned; a service or setting); to the farm's room. */
+  almanacChanged: 'almanac:changed',
+  /** A litter of the farm changed (kindling, a kit-count event, a fostering, a keeper, a review); to the farm's room. */
+  litterChanged: 'litter:changed',
 } as const;
 
 export interface ServerToClientEvents {
   [RealtimeEvent.farmUpdated]: (payload: { farmId: string }) => void;
   [RealtimeEvent.sessionEnded]: (payload: { reason: string }) => void;
+  [RealtimeEvent.herdChanged]: (payload: { farmId: string; animalId: string | null }) => void;
+  [RealtimeEvent.pedigreeChanged]: (payload: { changedCount: number }) => void;
+  [RealtimeEvent.farmCreated]: (payload: { farmId: string }) => void;
+  [RealtimeEvent.applicationCreated]: (payload: { applicationId: string }) => void;
+  [RealtimeEvent.applicationUpdated]: (payload: { applicationId: string; status: ApplicationStatus }) => void;
+  [RealtimeEvent.memberUpdated]: (payload: { userId: string }) => void;
+  [RealtimeEvent.almanacChanged]: (payload: { farmId: string }) => void;
+  [RealtimeEvent.litterChanged]: (payload: { farmId: string; litterId: string }) => void;
 }
 
 // eslint-disable-next-line @typescript-eslint/no-empty-object-type

@@ -1,4 +1,4 @@
-import { createBrowserRouter, type RouteObject } from 'react-router-dom';
+import { createBrowserRouter, redirect, type RouteObject } from 'react-router-dom';
 import { PageSpinner } from '../components/ui/spinner';
 import { meKey } from '../features/auth/api/get-me';
 import { leaveSignedInArea } from '../features/auth/leave-signed-in-area';
@@ -10,6 +10,59 @@ import { onSessionLost, queryClient } from './query-client';
 import { requireMe } from './route-guards';
 
 // The shell (layout, guards, errors) ships in the first load; each screen is fetched when first visited.
+const adminRoutes: RouteObject[] = [
+  { index: true, loader: () => redirect('/admin/applications') },
+  {
+    path: 'applications',
+    lazy: async () => {
+      const { loader, ApplicationsPage } = await import('../routes/admin/applications');
+      return { loader, Component: ApplicationsPage };
+    },
+  },
+  {
+    path: 'applications/:applicationId',
+    lazy: async () => {
+      const { loader, ApplicationDetailPage } = await import('../routes/admin/application-detail');
+      return { loader, Component: ApplicationDetailPage };
+    },
+  },
+  {
+    path: 'members',
+    lazy: async () => {
+      const { loader, MembersPage } = await import('../routes/admin/members');
+      return { loader, Component: MembersPage };
+    },
+  },
+  {
+    path: 'members/invite',
+    lazy: async () => {
+      const { loader, InviteMemberPage } = await import('../routes/admin/invite-member');
+      return { loader, Component: InviteMemberPage };
+    },
+  },
+  {
+    path: 'members/:userId',
+    lazy: async () => {
+      const { loader, MemberDetailPage } = await import('../routes/admin/member-detail');
+      return { loader, Component: MemberDetailPage };
+    },
+  },
+  {
+    path: 'audit',
+    lazy: async () => {
+      const { loader, AuditPage } = await import('../routes/admin/audit');
+      return { loader, Component: AuditPage };
+    },
+  },
+  {
+    path: 'rules',
+    lazy: async () => {
+      const { loader, RulesPage } = await import('../routes/admin/rules');
+      return { loader, Component: RulesPage };
+    },
+  },
+];
+
 const routes: RouteObject[] = [
   {
     Component: RootLayout,
@@ -33,6 +86,14 @@ const routes: RouteObject[] = [
       {
         path: 'set-password',
         lazy: async () => ({ Component: (await import('../routes/auth/set-password')).SetPasswordPage }),
+      },
+      {
+        // The public application form: the one screen where the co-op comes from the address.
+        path: 'apply/:coopSlug',
+        lazy: async () => {
+          const { loader, ApplyPage } = await import('../routes/apply/apply');
+          return { loader, Component: ApplyPage };
+        },
       },
       {
         id: 'signed-in',
@@ -63,6 +124,100 @@ const routes: RouteObject[] = [
                   const { loader, FarmEditPage } = await import('../routes/farms/farm-edit');
                   return { loader, Component: FarmEditPage };
                 },
+              },
+              // The Herd: the farm's animals, one animal's page (full record or pedigree card), forms, trial matings.
+              {
+                path: 'herd',
+                lazy: async () => {
+                  const { loader, HerdPage } = await import('../routes/herd/herd');
+                  return { loader, Component: HerdPage };
+                },
+              },
+              {
+                // Herd records in (issue 5): a spreadsheet staged, checked row by row, then confirmed.
+                path: 'herd/import',
+                lazy: async () => {
+                  const { loader, HerdImportPage } = await import('../routes/herd/herd-import');
+                  return { loader, Component: HerdImportPage };
+                },
+              },
+              {
+                path: 'herd/new',
+                lazy: async () => {
+                  const { loader, AnimalNewPage } = await import('../routes/herd/animal-new');
+                  return { loader, Component: AnimalNewPage };
+                },
+              },
+              {
+                path: 'herd/:animalId',
+                lazy: async () => {
+                  const { loader, AnimalPage } = await import('../routes/herd/animal');
+                  return { loader, Component: AnimalPage };
+                },
+              },
+              {
+                path: 'herd/:animalId/edit',
+                lazy: async () => {
+                  const { loader, AnimalEditPage } = await import('../routes/herd/animal-edit');
+                  return { loader, Component: AnimalEditPage };
+                },
+              },
+              {
+                path: 'herd/:animalId/trial-mating',
+                lazy: async () => {
+                  const { loader, TrialMatingPage } = await import('../routes/herd/trial-mating');
+                  return { loader, Component: TrialMatingPage };
+                },
+              },
+              {
+                // The Almanac (issue 6): agenda and month, services, settings; litters and their kit counts.
+                path: 'almanac',
+                lazy: async () => ({ Component: (await import('../routes/almanac/almanac')).AlmanacPage }),
+              },
+              {
+                path: 'almanac/services/new',
+                lazy: async () => {
+                  const { loader, ServiceNewPage } = await import('../routes/almanac/service-new');
+                  return { loader, Component: ServiceNewPage };
+                },
+              },
+              {
+                path: 'almanac/services/:serviceId',
+                lazy: async () => {
+                  const { loader, ServiceDetailPage } = await import('../routes/almanac/service-detail');
+                  return { loader, Component: ServiceDetailPage };
+                },
+              },
+              {
+                path: 'almanac/settings',
+                lazy: async () => {
+                  const { loader, AlmanacSettingsPage } = await import('../routes/almanac/settings');
+                  return { loader, Component: AlmanacSettingsPage };
+                },
+              },
+              {
+                path: 'litters',
+                lazy: async () => {
+                  const { loader, LittersPage } = await import('../routes/litters/litters');
+                  return { loader, Component: LittersPage };
+                },
+              },
+              {
+                path: 'litters/:litterId',
+                lazy: async () => {
+                  const { loader, LitterDetailPage } = await import('../routes/litters/litter-detail');
+                  return { loader, Component: LitterDetailPage };
+                },
+              },
+              {
+                // The co-op admin's area: applications, members, audit log, rules. Its loader turns non-admins away.
+                path: 'admin',
+                lazy: async () => {
+                  const { loader, AdminLayout } = await import('../routes/admin/admin-layout');
+                  const { AdminRouteError } = await import('../routes/admin/admin-error');
+                  return { loader, Component: AdminLayout, ErrorBoundary: AdminRouteError };
+                },
+                children: adminRoutes,
               },
             ],
           },

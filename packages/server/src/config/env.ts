@@ -1,4 +1,8 @@
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
 import { z } from 'zod';
+
+const repositoryRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../../..');
 
 const bool = z.enum(['true', 'false']).transform((v) => v === 'true');
 
@@ -20,6 +24,10 @@ const envSchema = z.object({
   SIGNIN_MAX_FAILURES_PER_ACCOUNT: z.coerce.number().int().min(1).default(10),
   PASSWORD_RESET_MAX_PER_IP: z.coerce.number().int().min(1).default(20),
   RESET_TOKEN_TTL_MINUTES: z.coerce.number().int().min(1).default(60),
+  MEMBER_LINK_TTL_HOURS: z.coerce.number().int().min(1).default(72),
+  APPLY_WINDOW_SECONDS: z.coerce.number().int().min(1).default(60 * 60),
+  APPLY_MAX_PER_IP: z.coerce.number().int().min(1).default(10),
+  APPLY_MAX_PER_EMAIL: z.coerce.number().int().min(1).default(3),
   SMTP_HOST: z.string().default('127.0.0.1'),
   SMTP_PORT: z.coerce.number().int().default(1025),
   SMTP_SECURE: bool.default(false),
@@ -27,6 +35,14 @@ const envSchema = z.object({
   SMTP_PASS: z.string().optional(),
   MAIL_FROM: z.string().default('Burrowline <no-reply@burrowline.test>'),
   CLIENT_DIST: z.string().optional(),
+  UPLOADS_DIR: z.string().min(1).optional(),
+  PHOTO_MAX_BYTES: z.coerce.number().int().min(1024).default(8 * 1024 * 1024),
+  PHOTOS_PER_ANIMAL: z.coerce.number().int().min(1).max(100).default(12),
+  PHOTOS_PER_UPLOAD: z.coerce.number().int().min(1).max(20).default(6),
+  HERD_IMPORT_MAX_BYTES: z.coerce.number().int().min(1024).default(5 * 1024 * 1024),
+  HERD_IMPORT_MAX_ROWS: z.coerce.number().int().min(1).default(20_000),
+  /** The Almanac's morning e-mail job (pg-boss) in this process: off for a process that only serves requests. */
+  MORNING_EMAIL_JOBS: bool.default(true),
   LOG_LEVEL: z.enum(['debug', 'info', 'warn', 'error', 'silent']).default('info'),
 });
 
@@ -47,8 +63,21 @@ export interface Config {
   socketSessionCheckSeconds: number;
   signIn: { windowSeconds: number; maxPerIp: number; maxFailuresPerAccount: number; maxResetsPerIp: number };
   resetTokenTtlMinutes: number;
+  /**
+   * Welcome links (approved applicants, invitations) live longer than reset links: people open them
+   * days later. The public application form is limited per address and per e-mail.
+   */
+  membership: { linkTtlHours: number; applyWindowSeconds: number; applyMaxPerIp: number; applyMaxPerEmail: number };
   smtp: { host: string; port: number; secure: boolean; user?: string; pass?: string; from: string };
   clientDist: string | undefined;
+  /**
+   * Uploaded files (photos) are kept here, outside the web root; the default is the gitignored
+   * `.data/uploads` of the repository. Limits: bytes per photo, photos per animal and per upload,
+   * bytes and rows per herd spreadsheet.
+   */
+  uploads: { dir: string; photoMaxBytes: number; photosPerAnimal: number; photosPerUpload: number; importMaxBytes: number; importMaxRows: number };
+  /** Run the Almanac's morning e-mail schedule and worker in this process (server.ts). */
+  morningEmailJobs: boolean;
   logLevel: Env['LOG_LEVEL'];
 }
 
@@ -80,8 +109,23 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
       maxResetsPerIp: e.PASSWORD_RESET_MAX_PER_IP,
     },
     resetTokenTtlMinutes: e.RESET_TOKEN_TTL_MINUTES,
+    membership: {
+      linkTtlHours: e.MEMBER_LINK_TTL_HOURS,
+      applyWindowSeconds: e.APPLY_WINDOW_SECONDS,
+      applyMaxPerIp: e.APPLY_MAX_PER_IP,
+      applyMaxPerEmail: e.APPLY_MAX_PER_EMAIL,
+    },
     smtp: { host: e.SMTP_HOST, port: e.SMTP_PORT, secure: e.SMTP_SECURE, user: e.SMTP_USER, pass: e.SMTP_PASS, from: e.MAIL_FROM },
     clientDist: e.CLIENT_DIST,
+    uploads: {
+      dir: path.resolve(repositoryRoot, e.UPLOADS_DIR ?? '.data/uploads'),
+      photoMaxBytes: e.PHOTO_MAX_BYTES,
+      photosPerAnimal: e.PHOTOS_PER_ANIMAL,
+      photosPerUpload: e.PHOTOS_PER_UPLOAD,
+      importMaxBytes: e.HERD_IMPORT_MAX_BYTES,
+      importMaxRows: e.HERD_IMPORT_MAX_ROWS,
+    },
+    morningEmailJobs: e.MORNING_EMAIL_JOBS,
     logLevel: e.LOG_LEVEL,
   };
 }

@@ -1,4 +1,4 @@
-import type { ErrorRequestHandler, RequestHandler } from 'express';
+import type { ErrorRequestHandler, Request, RequestHandler } from 'express';
 import { ForbiddenError } from '@casl/ability';
 import { OptimisticLockError, UniqueConstraintError } from 'sequelize';
 import { ZodError } from 'zod';
@@ -30,17 +30,22 @@ function toAppError(error: unknown): AppError {
   return new AppError(ErrorCode.internal, 500, 'Something went wrong on our side; try again in a moment');
 }
 
-/** The one error handler: shared body shape, no stack traces or SQL to the client (ASVS 16.5.1). */
-export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
+/** The status and body the error handler would send for `error` (logged the same way). */
+export function errorBodyOf(error: unknown, req: Pick<Request, 'method' | 'path' | 'user'>): { status: number; body: ErrorBody } {
   const appError = toAppError(error);
   if (appError.status >= 500) {
     logger.error('request failed', { method: req.method, path: req.path, error: error instanceof Error ? error.stack : String(error) });
   } else if (appError.status === 403) {
     logger.warn('refused', { path: req.path, userId: req.user?.id, coopId: req.user?.coopId });
   }
-  const body: ErrorBody = { error: { code: appError.code, message: appError.message, details: appError.details } };
+  return { status: appError.status, body: { error: { code: appError.code, message: appError.message, details: appError.details } } };
+}
+
+/** The one error handler: shared body shape, no stack traces or SQL to the client (ASVS 16.5.1). */
+export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
+  const { status, body } = errorBodyOf(error, req);
   if (res.headersSent) return;
-  res.status(appError.status).json(body);
+  res.status(status).json(body);
 };
 
 export const apiNotFound: RequestHandler = (req, _res, next) => {

@@ -42,3 +42,25 @@ export function passwordResetLimiter(config: Config): RequestHandler {
     message: 'Too many reset requests from this address; wait a while and try again',
   });
 }
+
+/**
+ * The public application form: limited per address (a flood from one machine) and per e-mail (one
+ * person re-sending under many addresses). Counted on every try, accepted or refused.
+ */
+export function applicationLimiters(config: Config): RequestHandler[] {
+  const { applyWindowSeconds: windowSeconds, applyMaxPerIp, applyMaxPerEmail } = config.membership;
+  const wait = windowSeconds >= 120 ? `${Math.ceil(windowSeconds / 60)} minutes` : `${windowSeconds} seconds`;
+  return [
+    limiter({
+      windowSeconds,
+      limit: applyMaxPerIp,
+      message: `Too many applications from this address; wait ${wait} and try again, or write to the co-op's coordinator`,
+    }),
+    limiter({
+      windowSeconds,
+      limit: applyMaxPerEmail,
+      key: (req) => `apply-email:${String((req.body as { email?: unknown })?.email ?? '').trim().toLowerCase()}`,
+      message: `Too many applications for this e-mail address; wait ${wait} and try again`,
+    }),
+  ];
+}

@@ -16,6 +16,11 @@ export class AppError extends Error {
     return new AppError(ErrorCode.notFound, 404, `${what} was not found`);
   }
 
+  /** The request clashes with the record's current state (already decided, already taken); the message says how. */
+  static conflict(message: string, details?: Record<string, string[]>) {
+    return new AppError(ErrorCode.conflict, 409, message, details);
+  }
+
   static staleVersion() {
     return new AppError(
       ErrorCode.staleVersion,

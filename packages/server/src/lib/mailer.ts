@@ -34,7 +34,11 @@ export function escapeHtml(value: string): string {
 
 /** Sends one message; a failed send is logged, never thrown into a committed request. */
 export async function sendMail(message: MailMessage): Promise<void> {
-  if (!transport) throw new Error('The mailer is not configured');
+  if (!transport) {
+    // Scripts that run services without a mail server (e.g. a seed) must not crash after commit.
+    logger.warn('mail not sent: no mail server configured', { to: message.to, subject: message.subject });
+    return;
+  }
   try {
     await transport.sendMail({ from, to: headerSafe(message.to), subject: headerSafe(message.subject), text: message.text, html: message.html });
   } catch (error) {

@@ -9,6 +9,8 @@ const apprentice: AbilityUser = { id: 'u-app', coopId, role: 'apprentice', farmI
 
 const own = (type: Parameters<typeof subjectOf>[0], extra: Record<string, unknown> = {}) => subjectOf(type, { coopId, farmId, ...extra });
 const otherFarm = (type: Parameters<typeof subjectOf>[0]) => subjectOf(type, { coopId, farmId: 'farm-2' });
+/** Animal subjects name the owning and the keeping farm (they differ while an animal is lent). */
+const animal = (owningFarmId: string, keepingFarmId = owningFarmId, inCoop = coopId) => subjectOf('Animal', { coopId: inCoop, owningFarmId, keepingFarmId });
 const otherCoop = (type: Parameters<typeof subjectOf>[0]) => subjectOf(type, { coopId: 'coop-2', farmId: 'farm-9', id: 'coop-2' });
 
 describe('defineAbilityFor (the brief\'s role table)', () => {
@@ -23,8 +25,8 @@ describe('defineAbilityFor (the brief\'s role table)', () => {
     expect(a.can('update', subjectOf('Farm', { id: farmId, coopId }))).toBe(true);
     expect(a.can('update', subjectOf('Farm', { id: 'farm-2', coopId }))).toBe(false);
     for (const action of ['create', 'read', 'update', 'delete', 'lend', 'trade'] as const) {
-      expect(a.can(action, own('Animal'))).toBe(true);
-      expect(a.can(action, otherFarm('Animal'))).toBe(false);
+      expect(a.can(action, animal(farmId))).toBe(true);
+      expect(a.can(action, animal('farm-2'))).toBe(false);
     }
     expect(a.can('read', own('PedigreeCard'))).toBe(true);
     expect(a.can('read', otherFarm('PedigreeCard'))).toBe(true);
@@ -34,6 +36,12 @@ describe('defineAbilityFor (the brief\'s role table)', () => {
     expect(a.can('review', own('ChoreLog'))).toBe(true);
     expect(a.can('read', own('Money'))).toBe(true);
     expect(a.can('manage', subjectOf('Application', { coopId }))).toBe(false);
+    expect(a.can('manage', subjectOf('Membership', { coopId }))).toBe(false);
+    expect(a.can('read', subjectOf('AuditEvent', { coopId }))).toBe(false);
+    expect(a.can('update', subjectOf('User', { id: 'u-other', coopId }), 'role')).toBe(false);
+    expect(a.can('update', subjectOf('User', { id: 'u-other', coopId }), 'disabled')).toBe(false);
+    expect(a.can('create', subjectOf('User', { coopId }))).toBe(false);
+    expect(a.can('update', subjectOf('Coop', { id: coopId }))).toBe(false);
     expect(a.can('read', subjectOf('Ledger', { coopId }))).toBe(false);
     expect(a.can('moderate', subjectOf('ChatMessage', { coopId }))).toBe(false);
     expect(a.can('create', subjectOf('ChatMessage', { coopId }))).toBe(true);
@@ -41,15 +49,16 @@ describe('defineAbilityFor (the brief\'s role table)', () => {
 
   it('when an apprentice, then they read the mentor\'s herd and log chores, but never sell, lend, book, approve or see money', () => {
     const a = defineAbilityFor(apprentice);
-    expect(a.can('read', own('Animal'))).toBe(true);
-    expect(a.can('update', own('Animal'))).toBe(false);
-    expect(a.can('read', otherFarm('Animal'))).toBe(false);
+    expect(a.can('read', animal(farmId))).toBe(true);
+    expect(a.can('update', animal(farmId))).toBe(false);
+    expect(a.can('read', animal('farm-2'))).toBe(false);
     expect(a.can('create', own('ChoreLog', { authorId: apprentice.id }))).toBe(true);
     expect(a.can('create', own('ChoreLog', { authorId: 'someone-else' }))).toBe(false);
     expect(a.can('review', own('ChoreLog', { authorId: apprentice.id }))).toBe(false);
     for (const [action, type] of [
       ['trade', 'Animal'], ['lend', 'Animal'], ['create', 'Trade'], ['create', 'Loan'], ['book', 'ProcessingDay'],
-      ['manage', 'Application'], ['read', 'Money'], ['read', 'Ledger'], ['update', 'Farm'],
+      ['manage', 'Application'], ['manage', 'Membership'], ['read', 'AuditEvent'], ['create', 'User'],
+      ['read', 'Money'], ['read', 'Ledger'], ['update', 'Farm'],
     ] as const) {
       expect(a.can(action, own(type, { id: farmId }))).toBe(false);
     }
@@ -63,13 +72,19 @@ describe('defineAbilityFor (the brief\'s role table)', () => {
     expect(a.can('update', subjectOf('Coop', { id: coopId }))).toBe(true);
     expect(a.can('update', subjectOf('User', { id: 'u-member', coopId }), 'role')).toBe(true);
     expect(a.can('update', subjectOf('User', { id: admin.id, coopId }), 'role')).toBe(false);
+    expect(a.can('update', subjectOf('User', { id: admin.id, coopId }), 'disabled')).toBe(false);
+    expect(a.can('update', subjectOf('User', { id: 'u-member', coopId: 'coop-2' }), 'role')).toBe(false);
+    expect(a.can('manage', subjectOf('Membership', { coopId }))).toBe(true);
+    expect(a.can('manage', subjectOf('Membership', { coopId: 'coop-2' }))).toBe(false);
+    expect(a.can('create', subjectOf('User', { coopId }))).toBe(true);
     expect(a.can('read', subjectOf('Ledger', { coopId }))).toBe(true);
     expect(a.can('read', subjectOf('AuditEvent', { coopId }))).toBe(true);
     expect(a.can('moderate', subjectOf('ChatMessage', { coopId }))).toBe(true);
     expect(a.can('manage', subjectOf('ProcessingDay', { coopId }))).toBe(true);
-    expect(a.can('update', otherFarm('Animal'))).toBe(false);
+    expect(a.can('update', animal('farm-2'))).toBe(false);
+    expect(a.can('read', animal('farm-2'))).toBe(false);
     expect(a.can('update', subjectOf('Farm', { id: 'farm-2', coopId }))).toBe(false);
-    expect(a.can('manage', subjectOf('Animal', { coopId, farmId: 'farm-admin' }))).toBe(true);
+    expect(a.can('manage', animal('farm-admin'))).toBe(true);
   });
 
   it('when anyone of another co-op, then nothing of this co-op is readable', () => {
@@ -79,5 +94,125 @@ describe('defineAbilityFor (the brief\'s role table)', () => {
       expect(a.can('read', subjectOf('Coop', { id: coopId }))).toBe(false);
       expect(a.can('read', subjectOf('User', { coopId }))).toBe(false);
     }
+  });
+});
+
+describe('defineAbilityFor: the Herd (issue 4)', () => {
+  const weighIn = (farm: string, enteredBy: string) => subjectOf('WeighIn', { coopId, farmId: farm, enteredBy });
+  const note = (farm: string, enteredBy: string) => subjectOf('AnimalNote', { coopId, farmId: farm, enteredBy });
+
+  it('when a member, then their farm\'s animals are theirs to edit, a lent-in animal is readable but not editable', () => {
+    const a = defineAbilityFor(member);
+    expect(a.can('update', animal(farmId))).toBe(true);
+    expect(a.can('update', animal(farmId, 'farm-2'))).toBe(true); // theirs, lent out
+    expect(a.can('read', animal('farm-2', farmId))).toBe(true); // on loan here
+    expect(a.can('update', animal('farm-2', farmId))).toBe(false);
+    expect(a.can('read', animal('farm-2'))).toBe(false); // others' herds: pedigree cards only
+    expect(a.can('read', subjectOf('PedigreeCard', { coopId }))).toBe(true);
+    expect(a.can('create', weighIn(farmId, member.id))).toBe(true);
+    expect(a.can('review', weighIn(farmId, apprentice.id))).toBe(true);
+    expect(a.can('review', weighIn('farm-2', 'x'))).toBe(false);
+    expect(a.can('create', subjectOf('OutsideAnimal', { coopId }))).toBe(true);
+    expect(a.can('merge', subjectOf('OutsideAnimal', { coopId }))).toBe(false);
+    expect(a.can('create', subjectOf('Breed', { coopId }))).toBe(false);
+    expect(a.can('read', subjectOf('Breed', { coopId: null }))).toBe(true);
+  });
+
+  it('when an apprentice, then they read the mentor\'s herd and add only their own weigh-ins and notes, never review them', () => {
+    const a = defineAbilityFor(apprentice);
+    expect(a.can('read', animal(farmId))).toBe(true);
+    expect(a.can('create', animal(farmId))).toBe(false);
+    expect(a.can('create', weighIn(farmId, apprentice.id))).toBe(true);
+    expect(a.can('create', weighIn(farmId, member.id))).toBe(false);
+    expect(a.can('create', note(farmId, apprentice.id))).toBe(true);
+    expect(a.can('create', weighIn('farm-2', apprentice.id))).toBe(false);
+    expect(a.can('review', weighIn(farmId, apprentice.id))).toBe(false);
+    expect(a.can('create', subjectOf('OutsideAnimal', { coopId }))).toBe(false);
+  });
+
+  it('when an admin, then they add breeds and merge outside duplicates for their co-op, but edit no other farm\'s animals', () => {
+    const a = defineAbilityFor(admin);
+    expect(a.can('create', subjectOf('Breed', { coopId }))).toBe(true);
+    expect(a.can('create', subjectOf('Breed', { coopId: 'coop-2' }))).toBe(false);
+    expect(a.can('merge', subjectOf('OutsideAnimal', { coopId }))).toBe(true);
+    expect(a.can('merge', subjectOf('OutsideAnimal', { coopId: 'coop-2' }))).toBe(false);
+    expect(a.can('update', animal(farmId))).toBe(false);
+    expect(a.can('create', weighIn(farmId, admin.id))).toBe(false);
+  });
+
+  it('when of another co-op, then no animal, card or registry entry of this co-op is reachable', () => {
+    const a = defineAbilityFor({ ...member, coopId: 'coop-2' });
+    expect(a.can('read', subjectOf('PedigreeCard', { coopId }))).toBe(false);
+    expect(a.can('read', subjectOf('OutsideAnimal', { coopId }))).toBe(false);
+    expect(a.can('create', subjectOf('OutsideAnimal', { coopId }))).toBe(false);
+  });
+});
+
+describe('defineAbilityFor: the Almanac and litters (issue 6)', () => {
+  const almanacSubjects = ['CycleSettings', 'Service', 'Treatment', 'AlmanacTask', 'CalendarFeed', 'Litter', 'LitterEvent', 'HousingUnit'] as const;
+
+  it('when a member, then they plan and record everything for their own farm, and nothing of another farm', () => {
+    const a = defineAbilityFor(member);
+    for (const type of almanacSubjects) {
+      for (const action of ['create', 'read', 'update', 'review'] as const) {
+        expect(a.can(action, own(type))).toBe(true);
+        expect(a.can(action, otherFarm(type))).toBe(false);
+      }
+    }
+    expect(a.can('complete', own('AlmanacTask'))).toBe(true);
+    expect(a.can('complete', otherFarm('AlmanacTask'))).toBe(false);
+    expect(a.can('manage', subjectOf('DigestSubscription', { userId: member.id }))).toBe(true);
+    expect(a.can('manage', subjectOf('DigestSubscription', { userId: 'u-other' }))).toBe(false);
+  });
+
+  it('when an apprentice, then they read the mentor\'s Almanac, tick tasks and record litter counts of their own, but plan nothing', () => {
+    const a = defineAbilityFor(apprentice);
+    for (const type of ['CycleSettings', 'Service', 'Treatment', 'AlmanacTask', 'Litter', 'LitterEvent', 'HousingUnit'] as const) {
+      expect(a.can('read', own(type))).toBe(true);
+      expect(a.can('read', otherFarm(type))).toBe(false);
+    }
+    expect(a.can('complete', own('AlmanacTask'))).toBe(true);
+    expect(a.can('update', own('AlmanacTask'))).toBe(false);
+    expect(a.can('review', own('AlmanacTask'))).toBe(false);
+    expect(a.can('create', own('LitterEvent', { enteredBy: apprentice.id }))).toBe(true);
+    expect(a.can('create', own('LitterEvent', { enteredBy: 'u-member' }))).toBe(false);
+    expect(a.can('review', own('LitterEvent', { enteredBy: 'u-member' }))).toBe(false);
+    for (const type of ['Service', 'Litter', 'CycleSettings', 'Treatment', 'HousingUnit'] as const) {
+      expect(a.can('create', own(type))).toBe(false);
+      expect(a.can('update', own(type))).toBe(false);
+    }
+    expect(a.can('read', own('CalendarFeed'))).toBe(false);
+    expect(a.can('create', own('CalendarFeed'))).toBe(false);
+    expect(a.can('manage', subjectOf('DigestSubscription', { userId: apprentice.id }))).toBe(true);
+  });
+
+  it('when an admin, then co-op powers give no rights on another farm\'s Almanac', () => {
+    const a = defineAbilityFor(admin);
+    for (const type of almanacSubjects) {
+      expect(a.can('read', subjectOf(type, { coopId, farmId: 'farm-admin' }))).toBe(true);
+      expect(a.can('read', otherFarm(type))).toBe(false);
+      expect(a.can('update', otherFarm(type))).toBe(false);
+    }
+  });
+});
+
+describe('defineAbilityFor: herd files (issue 5)', () => {
+  it('when a member, then they stage and confirm imports for their own farm only', () => {
+    const a = defineAbilityFor(member);
+    for (const action of ['create', 'read', 'update'] as const) {
+      expect(a.can(action, own('HerdImport'))).toBe(true);
+      expect(a.can(action, otherFarm('HerdImport'))).toBe(false);
+    }
+  });
+
+  it('when an apprentice, then they import nothing (they read the herd, they add no animals)', () => {
+    const a = defineAbilityFor(apprentice);
+    for (const action of ['create', 'read', 'update'] as const) expect(a.can(action, own('HerdImport'))).toBe(false);
+  });
+
+  it('when an admin, then imports stay with their own farm', () => {
+    const a = defineAbilityFor(admin);
+    expect(a.can('create', subjectOf('HerdImport', { coopId, farmId: 'farm-admin' }))).toBe(true);
+    expect(a.can('read', own('HerdImport'))).toBe(false);
   });
 });

@@ -13,20 +13,40 @@ export type Action =
   | 'moderate'
   | 'book'
   | 'lend'
-  | 'trade';
+  | 'trade'
+  | 'merge'
+  /** Ticking an Almanac task off (an apprentice's tick waits for the mentor's review). */
+  | 'complete';
 
 /**
  * Subjects of the brief's role table. `Money` stands for prices, costs, fees and balances;
- * apprentices never get it.
+ * apprentices never get it. `Membership` is the co-op's roster as its admin manages it (e-mails,
+ * statuses, invitations, set-password links), beyond the directory everyone reads.
  */
 export type SubjectName =
   | 'Coop'
   | 'Farm'
   | 'User'
   | 'Application'
+  | 'Membership'
   | 'AuditEvent'
   | 'Animal'
   | 'PedigreeCard'
+  | 'Breed'
+  | 'OutsideAnimal'
+  | 'WeighIn'
+  | 'AnimalNote'
+  | 'HerdImport'
+  // The Almanac and litters (issue 6): farm-private, subjects carry { farmId }.
+  | 'CycleSettings'
+  | 'Service'
+  | 'Treatment'
+  | 'AlmanacTask'
+  | 'CalendarFeed'
+  | 'DigestSubscription'
+  | 'Litter'
+  | 'LitterEvent'
+  | 'HousingUnit'
   | 'ChoreLog'
   | 'StudListing'
   | 'Loan'
@@ -69,6 +89,9 @@ export function defineAbilityFor(user: AbilityUser | null): AppAbility {
   can('read', 'User', { coopId });
   can('update', 'User', ['name'], { id: user.id });
   can('read', 'PedigreeCard', { coopId });
+  // The catalogue has no co-op; row-level security shows a co-op only its own added breeds.
+  can('read', 'Breed');
+  can('read', 'OutsideAnimal', { coopId });
   can('read', 'ProcessingDay', { coopId });
   can('read', 'StudListing', { coopId });
   can('read', 'Trade', { coopId });
@@ -78,10 +101,21 @@ export function defineAbilityFor(user: AbilityUser | null): AppAbility {
   if (user.role === 'apprentice') {
     // An apprentice works on the mentor's farm: reads it, logs chores that wait for review.
     if (farmId) {
-      can('read', 'Animal', { farmId });
+      // Animal subjects: { owningFarmId, keepingFarmId } (a lent animal is kept by another farm).
+      can('read', 'Animal', { owningFarmId: farmId });
+      can('read', 'Animal', { keepingFarmId: farmId });
+      // Weigh-ins and notes of their own that wait for the mentor's review.
+      can('create', ['WeighIn', 'AnimalNote'], { farmId, enteredBy: user.id });
+      can('read', ['WeighIn', 'AnimalNote'], { farmId });
       can('create', 'ChoreLog', { farmId, authorId: user.id });
       can('read', 'ChoreLog', { farmId, authorId: user.id });
+      // The mentor's Almanac and litters: read all of it; tick tasks off and record litter counts, which
+      // wait for the mentor's review. No planning (services, settings), no calendar feed, no fostering.
+      can('read', ['CycleSettings', 'Service', 'Treatment', 'AlmanacTask', 'Litter', 'LitterEvent', 'HousingUnit'], { farmId });
+      can('complete', 'AlmanacTask', { farmId });
+      can('create', 'LitterEvent', { farmId, enteredBy: user.id });
     }
+    can('manage', 'DigestSubscription', { userId: user.id });
     cannot('read', 'Money');
     cannot('read', 'Ledger');
     return build();
@@ -90,13 +124,23 @@ export function defineAbilityFor(user: AbilityUser | null): AppAbility {
   // Members (and admins, who are members of their own farm with co-op powers on top)
   if (farmId) {
     can('update', 'Farm', { id: farmId });
-    can('manage', 'Animal', { farmId });
+    // The owning farm has every right on its animals; a farm keeping a lent animal reads it and weighs it.
+    can('manage', 'Animal', { owningFarmId: farmId });
+    can('read', 'Animal', { keepingFarmId: farmId });
+    can(['create', 'read', 'update', 'review'], ['WeighIn', 'AnimalNote'], { farmId });
     can(['read', 'review'], 'ChoreLog', { farmId });
     can('manage', 'StudListing', { farmId });
-    can('lend', 'Animal', { farmId });
-    can('trade', 'Animal', { farmId });
+    can('lend', 'Animal', { owningFarmId: farmId });
+    can('trade', 'Animal', { owningFarmId: farmId });
     can('read', 'Money', { farmId });
+    // Spreadsheets staged for import into the farm's herd (apprentices read the herd but add no animals).
+    can('manage', 'HerdImport', { farmId });
+    // The farm's Almanac: cycle settings, services and palpations, treatments, tasks, the calendar feed,
+    // litters and their kit-count events, housing. Other farms see none of it.
+    can('manage', ['CycleSettings', 'Service', 'Treatment', 'AlmanacTask', 'CalendarFeed', 'Litter', 'LitterEvent', 'HousingUnit'], { farmId });
   }
+  can('manage', 'DigestSubscription', { userId: user.id });
+  can('create', 'OutsideAnimal', { coopId });
   can('create', 'Loan', { coopId });
   can('create', 'Trade', { coopId });
   can('book', 'ProcessingDay', { coopId });
@@ -104,6 +148,7 @@ export function defineAbilityFor(user: AbilityUser | null): AppAbility {
 
   if (user.role === 'admin') {
     can('manage', 'Application', { coopId });
+    can('manage', 'Membership', { coopId });
     can('update', 'Coop', { id: coopId });
     can('update', 'User', ['role', 'disabled'], { coopId });
     cannot('update', 'User', ['role', 'disabled'], { id: user.id }).because(
@@ -115,6 +160,8 @@ export function defineAbilityFor(user: AbilityUser | null): AppAbility {
     can('read', 'Money', { coopId });
     can('moderate', 'ChatMessage', { coopId });
     can('manage', 'ProcessingDay', { coopId });
+    can('create', 'Breed', { coopId });
+    can('merge', 'OutsideAnimal', { coopId });
   }
 
   return build();

@@ -1,10 +1,11 @@
-import { LogOut, Tent, Warehouse } from 'lucide-react';
+import { CalendarDays, LogOut, Rabbit, ShieldCheck, Tent, Warehouse } from 'lucide-react';
 import type { ReactNode } from 'react';
 import { Link, NavLink } from 'react-router-dom';
+import { CountBadge } from '../ui/badge';
 import { BrandMark } from '../ui/brand-mark';
 import { Button } from '../ui/button';
 
-function NavItem({ to, end, icon, children }: { to: string; end?: boolean; icon: ReactNode; children: string }) {
+function NavItem({ to, end, icon, children, badge }: { to: string; end?: boolean; icon: ReactNode; children: string; badge?: ReactNode }) {
   return (
     <li>
       <NavLink
@@ -19,6 +20,7 @@ function NavItem({ to, end, icon, children }: { to: string; end?: boolean; icon:
       >
         {icon}
         {children}
+        {badge}
       </NavLink>
     </li>
   );
@@ -32,10 +34,12 @@ interface TopBarProps {
   farmId: string | null;
   onSignOut: () => void;
   isSigningOut: boolean;
+  /** Only for the co-op's admins: their area, with the count of applications they have not opened. */
+  admin?: { unreadApplications: number };
 }
 
 /** Wraps to two rows on a phone (co-op and account, then the areas) so nothing scrolls sideways. */
-export function TopBar({ coopName, personName, roleLabel, farmId, onSignOut, isSigningOut }: TopBarProps) {
+export function TopBar({ coopName, personName, roleLabel, farmId, onSignOut, isSigningOut, admin }: TopBarProps) {
   return (
     <header className="bg-moss text-oat">
       <a
@@ -56,14 +60,34 @@ export function TopBar({ coopName, personName, roleLabel, farmId, onSignOut, isS
           <span className="sr-only sm:not-sr-only">Sign out</span>
         </Button>
         <div className="order-3 flex w-full items-center justify-between gap-3 sm:contents">
-          <nav aria-label="Main" className="sm:order-2">
-            <ul className="flex gap-1">
+          {/* The areas wrap onto a second line on a narrow phone rather than push the page sideways. */}
+          <nav aria-label="Main" className="min-w-0 sm:order-2">
+            <ul className="flex flex-wrap gap-1">
               <NavItem to="/" end icon={<Tent className="hidden size-5 sm:block" aria-hidden="true" />}>
                 Commons
               </NavItem>
               {farmId && (
                 <NavItem to={`/farms/${farmId}`} icon={<Warehouse className="hidden size-5 sm:block" aria-hidden="true" />}>
                   My farm
+                </NavItem>
+              )}
+              {farmId && (
+                <NavItem to="/herd" icon={<Rabbit className="hidden size-5 sm:block" aria-hidden="true" />}>
+                  Herd
+                </NavItem>
+              )}
+              {farmId && (
+                <NavItem to="/almanac" icon={<CalendarDays className="hidden size-5 sm:block" aria-hidden="true" />}>
+                  Almanac
+                </NavItem>
+              )}
+              {admin && (
+                <NavItem
+                  to="/admin"
+                  icon={<ShieldCheck className="hidden size-5 sm:block" aria-hidden="true" />}
+                  badge={<CountBadge count={admin.unreadApplications} label="new applications" />}
+                >
+                  Admin
                 </NavItem>
               )}
             </ul>

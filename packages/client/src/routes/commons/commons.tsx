@@ -2,6 +2,7 @@ import { PageHeader } from '../../components/ui/page-header';
 import { PageTitle } from '../../components/ui/page-title';
 import { queryClient } from '../../app/query-client';
 import { farmsListQueryOptions, useFarms } from '../../features/farms/api/get-farms';
+import { TodayCards } from '../../features/almanac/components/today-cards';
 import { MembersDirectory } from '../../features/farms/components/members-directory';
 import { NoFarmCard, YourFarmCard } from '../../features/farms/components/your-farm-card';
 import { useSession } from '../../lib/session';
@@ -20,6 +21,7 @@ export function CommonsPage() {
     <div className="space-y-8">
       <PageTitle>Commons</PageTitle>
       <PageHeader title="Commons" lead={`What's going on across ${me.coop.name}.`} />
+      <TodayCards enabled={Boolean(me.user.farmId)} />
       {ownFarm ? <YourFarmCard farm={ownFarm} /> : <NoFarmCard />}
       <MembersDirectory farms={farms} ownFarmId={me.user.farmId} />
     </div>

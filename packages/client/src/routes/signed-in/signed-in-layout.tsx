@@ -1,9 +1,11 @@
 import { useMemo } from 'react';
+import { subjectOf } from '@burrowline/shared';
 import { Outlet, useLoaderData } from 'react-router-dom';
 import { Alert } from '../../components/ui/alert';
 import { NavigationProgress } from '../../components/layout/navigation-progress';
 import { TopBar } from '../../components/layout/top-bar';
 import type { requireMe } from '../../app/route-guards';
+import { useUnreadApplications } from '../../features/applications/api/get-unread-applications';
 import { useMe } from '../../features/auth/api/get-me';
 import { useSignOut } from '../../features/auth/api/sign-out';
 import { useRealtimeSync } from '../../features/realtime/hooks/use-realtime-sync';
@@ -17,6 +19,8 @@ export function SignedInLayout() {
   const me = useMe().data ?? loadedMe;
   const ability = useMemo(() => buildAbility(me.rules), [me.rules]);
   const signOut = useSignOut();
+  const isAdmin = ability.can('manage', subjectOf('Application', { coopId: me.coop.id }));
+  const unread = useUnreadApplications(isAdmin);
   useRealtimeSync();
 
   return (
@@ -30,6 +34,7 @@ export function SignedInLayout() {
           farmId={me.user.farmId}
           onSignOut={() => signOut.mutate()}
           isSigningOut={signOut.isPending}
+          admin={isAdmin ? { unreadApplications: unread.data ?? 0 } : undefined}
         />
         <main id="main" tabIndex={-1} className="mx-auto max-w-6xl px-4 py-6 focus:outline-none sm:py-8">
           {signOut.isError && (

@@ -7,7 +7,9 @@ import type { MigrationFn } from '../migrator';
  *
  * Outside RLS on purpose (what runs before the tenant is known): user_sessions, one_time_tokens
  * (hashed), and the two identity look-ups and the public co-op directory below, which are
- * SECURITY DEFINER functions owned by the owner role.
+ * SECURITY DEFINER functions owned by the owner role. Added later, for the same reason:
+ * calendar_feed_tokens (hashed; a phone calendar fetches the feed with no session, 0018), and for the
+ * morning e-mail job (0019) the pg-boss schema and the SECURITY DEFINER almanac_digest_recipients().
  */
 const tenantTables = ['farms', 'users', 'audit_events', 'record_changes'];
 const TENANT = `NULLIF(current_setting('app.coop_id', true), '')::uuid`;

@@ -9,6 +9,7 @@ import { findIdentityByEmail } from '../../http/passport';
 import type { SessionUser } from '../../http/passport';
 import { recordAudit } from '../audit/audit.service';
 import { getCoop } from '../coops/coops.service';
+import { acceptPendingInvitation } from '../members/members.service';
 import { findUser, replacePassword } from '../users/users.service';
 import { passwordResetMail } from './auth.mail';
 import { consumeToken, issueToken, peekToken } from './tokens';
@@ -63,6 +64,8 @@ export async function setPasswordWithToken(input: { token: string; password: str
     const user = await findUser(peeked.userId, tx, { lock: true });
     if (!user || user.disabledAt) throw invalid;
     await replacePassword(user, passwordHash, tx);
+    // An invitee's farm is created (or joined) the moment they accept by setting a password.
+    await acceptPendingInvitation(user, tx, { ip: input.ip });
     await recordAudit({ coopId: user.coopId, actorUserId: user.id, action: 'password.set', details: { via: peeked.purpose }, ip: input.ip }, tx);
     tx.afterCommit(() => disconnectRoom(rooms.user(user.id), 'password_changed'));
     return { email: user.email };

@@ -1,5 +1,5 @@
 import { ForbiddenError } from '@casl/ability';
-import type { Transaction } from 'sequelize';
+import { col, fn, Op, where, type Transaction } from 'sequelize';
 import { defineAbilityFor, RealtimeEvent, rooms, subjectOf, type FarmDto, type FarmProfileInput, type FarmProfileUpdateInput } from '@burrowline/shared';
 import { accessibleWhere } from '../../db/scope';
 import { withTenant } from '../../db/tenant';
@@ -69,4 +69,31 @@ export async function updateFarmProfile(actor: SessionUser, farmId: string, inpu
 /** Creates a farm inside the caller's tenant transaction (co-op set-up, admission of a member). */
 export async function createFarm(coopId: string, profile: FarmProfileInput, tx: Transaction): Promise<Farm> {
   return Farm.create({ coopId, ...profile }, { transaction: tx });
+}
+
+/** Whether the co-op already has a farm of that name (names are unique per co-op, ignoring case). */
+export async function isFarmNameTaken(coopId: string, name: string, tx: Transaction): Promise<boolean> {
+  const count = await Farm.count({ where: { coopId, [Op.and]: [where(fn('lower', col('name')), name.trim().toLowerCase())] }, transaction: tx });
+  return count > 0;
+}
+
+/** Farms of the co-op by id, as `{ id, name }`; another co-op's farm is simply not in the answer. */
+export async function findFarmRefs(coopId: string, farmIds: string[], tx: Transaction): Promise<Map<string, { id: string; name: string }>> {
+  if (farmIds.length === 0) return new Map();
+  const farms = await Farm.findAll({ where: { id: { [Op.in]: farmIds }, coopId }, attributes: ['id', 'name'], transaction: tx });
+  return new Map(farms.map((farm) => [farm.id, { id: farm.id, name: farm.name }]));
+}
+
+/** One farm of the actor's co-op by id, as `{ id, name }`, or null. */
+export async function findFarmRef(coopId: string, farmId: string, tx: Transaction): Promise<{ id: string; name: string } | null> {
+  return (await findFarmRefs(coopId, [farmId], tx)).get(farmId) ?? null;
+}
+
+/** Every farm of the co-op with what the Herd needs to present them (name, clock, units), inside the caller's transaction. */
+export async function farmDirectoryOf(
+  coopId: string,
+  tx: Transaction,
+): Promise<Map<string, { id: string; name: string; timeZone: string; weightUnit: Farm['weightUnit'] }>> {
+  const farms = await Farm.findAll({ where: { coopId }, attributes: ['id', 'name', 'timeZone', 'weightUnit'], transaction: tx });
+  return new Map(farms.map((f) => [f.id, { id: f.id, name: f.name, timeZone: f.timeZone, weightUnit: f.weightUnit }]));
 }

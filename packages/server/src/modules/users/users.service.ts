@@ -1,4 +1,5 @@
-import type { Transaction } from 'sequelize';
+import { col, fn, Op, QueryTypes, where, type Transaction } from 'sequelize';
+import { database } from '../../db/sequelize';
 import type { Role } from '@burrowline/shared';
 import { User } from './user.model';
 
@@ -27,3 +28,82 @@ export async function replacePassword(user: User, passwordHash: string, tx: Tran
   user.sessionsValidAfter = new Date();
   await user.save({ transaction: tx });
 }
+
+/**
+ * Whether an e-mail already belongs to an account anywhere on the platform (e-mail is unique across
+ * co-ops). Runs before the tenant is known, through the identity look-up outside row-level security.
+ */
+export async function isEmailRegistered(email: string, tx?: Transaction): Promise<boolean> {
+  const rows = await database().query('SELECT id FROM auth_user_by_email($1)', { bind: [email], type: QueryTypes.SELECT, transaction: tx });
+  return rows.length > 0;
+}
+
+/** Someone of the actor's co-op by e-mail, inside the tenant transaction. */
+export async function findUserByEmail(email: string, tx: Transaction): Promise<User | null> {
+  return User.findOne({ where: where(fn('lower', col('email')), email.trim().toLowerCase()), transaction: tx });
+}
+
+/** Everyone of the co-op (the admin's roster). */
+export async function listCoopUsers(coopId: string, tx: Transaction): Promise<User[]> {
+  return User.findAll({ where: { coopId }, order: [['name', 'ASC'], ['id', 'ASC']], transaction: tx });
+}
+
+/** Names by id, for presenting who did what. */
+export async function namesOf(userIds: (string | null | undefined)[], tx: Transaction): Promise<Map<string, string>> {
+  const ids = [...new Set(userIds.filter((id): id is string => Boolean(id)))];
+  if (ids.length === 0) return new Map();
+  const users = await User.findAll({ where: { id: { [Op.in]: ids } }, attributes: ['id', 'name'], transaction: tx });
+  return new Map(users.map((u) => [u.id, u.name]));
+}
+
+/** The admins who can act on mail today: enabled and with a password set. */
+export async function listAdminContacts(coopId: string, tx: Transaction): Promise<{ id: string; email: string; name: string }[]> {
+  const admins = await User.findAll({
+    where: { coopId, role: 'admin', disabledAt: { [Op.is]: null }, passwordHash: { [Op.not]: null } },
+    attributes: ['id', 'email', 'name'],
+    transaction: tx,
+  });
+  return admins.map((a) => ({ id: a.id, email: a.email, name: a.name }));
+}
+
+/**
+ * Changes a role and ends every session that began before now, so the person's next request and
+ * socket carry the new permissions. An apprentice who becomes a member keeps the mentor's farm and
+ * leaves the mentor.
+ */
+export async function setRole(user: User, role: Role, tx: Transaction): Promise<void> {
+  user.role = role;
+  if (role !== 'apprentice') user.mentorId = null;
+  user.sessionsValidAfter = new Date();
+  await user.save({ transaction: tx });
+}
+
+/** Turns an account off: it cannot sign in, and every session it has ends at once (ASVS 7.4.2). */
+export async function disableUser(user: User, reason: string, tx: Transaction): Promise<void> {
+  const now = new Date();
+  user.disabledAt = now;
+  user.disabledReason = reason;
+  user.sessionsValidAfter = now;
+  await user.save({ transaction: tx });
+}
+
+export async function enableUser(user: User, tx: Transaction): Promise<void> {
+  user.disabledAt = null;
+  user.disabledReason = null;
+  await user.save({ transaction: tx });
+}
+
+/** Attaches a person to a farm (an accepted invitation). */
+export async function attachToFarm(user: User, farmId: string, tx: Transaction): Promise<void> {
+  user.farmId = farmId;
+  await user.save({ transaction: tx });
+}
+
+/** A revoked invitee invited again: the same account, renamed and given the new role, turned back on. */
+export async function reviveInvitee(user: User, input: { name: string; role: Role }, tx: Transaction): Promise<void> {
+  user.set({ name: input.name, role: input.role, mentorId: null, farmId: null, disabledAt: null, disabledReason: null });
+  await user.save({ transaction: tx });
+}
+
+/** The account record as other modules handle it (they reach it through this service, not the model). */
+export type UserRecord = User;

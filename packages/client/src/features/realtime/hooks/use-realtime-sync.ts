@@ -3,7 +3,12 @@ import { useEffect } from 'react';
 import { useNavigate } from 'react-router-dom';
 import { RealtimeEvent } from '@burrowline/shared';
 import { leaveSignedInArea } from '../../auth/leave-signed-in-area';
+import { almanacKeys } from '../../almanac/api/almanac-keys';
+import { applicationKeys } from '../../applications/api/application-keys';
 import { farmKeys } from '../../farms/api/farm-keys';
+import { herdKeys } from '../../herd/api/herd-keys';
+import { litterKeys } from '../../litters/api/litter-keys';
+import { auditKeys, memberKeys } from '../../members/api/member-keys';
 
 /**
  * The one place where server events become cache updates. Mounted by the signed-in layout, so the
@@ -22,6 +27,30 @@ export function useRealtimeSync(): void {
       if (unmounted) return;
       const socket = connectRealtime();
       const refreshFarms = () => void queryClient.invalidateQueries({ queryKey: farmKeys.all });
+      // Admins only (the server sends these to the co-op's admin room): the queue, its badge, the roster, the log.
+      const refreshApplications = () => {
+        void queryClient.invalidateQueries({ queryKey: applicationKeys.all });
+        void queryClient.invalidateQueries({ queryKey: auditKeys.all });
+      };
+      const refreshMembers = () => {
+        void queryClient.invalidateQueries({ queryKey: memberKeys.all });
+        void queryClient.invalidateQueries({ queryKey: auditKeys.all });
+      };
+      // A herd change (own farm) or recomputed pedigree figures (anywhere in the co-op): the Herd's queries.
+      const refreshHerd = () => void queryClient.invalidateQueries({ queryKey: herdKeys.all });
+      // The farm's Almanac (tasks, services, settings) or a litter changed; a litter's tasks live in the Almanac too.
+      const refreshAlmanac = () => void queryClient.invalidateQueries({ queryKey: almanacKeys.all });
+      const refreshLitters = () => {
+        void queryClient.invalidateQueries({ queryKey: litterKeys.all });
+        refreshAlmanac();
+      };
+      const refreshAll = () => {
+        refreshFarms();
+        refreshLitters();
+        refreshHerd();
+        refreshApplications();
+        refreshMembers();
+      };
       const endSession = ({ reason }: { reason: string }) =>
         void leaveSignedInArea(
           queryClient,
@@ -30,13 +59,29 @@ export function useRealtimeSync(): void {
         );
 
       socket.on(RealtimeEvent.farmUpdated, refreshFarms);
+      socket.on(RealtimeEvent.farmCreated, refreshFarms);
+      socket.on(RealtimeEvent.applicationCreated, refreshApplications);
+      socket.on(RealtimeEvent.applicationUpdated, refreshApplications);
+      socket.on(RealtimeEvent.memberUpdated, refreshMembers);
+      socket.on(RealtimeEvent.herdChanged, refreshHerd);
+      socket.on(RealtimeEvent.pedigreeChanged, refreshHerd);
+      socket.on(RealtimeEvent.almanacChanged, refreshAlmanac);
+      socket.on(RealtimeEvent.litterChanged, refreshLitters);
       socket.on(RealtimeEvent.sessionEnded, endSession);
       // Events sent while the connection was down are lost; refetch what they would have refreshed.
-      socket.io.on('reconnect', refreshFarms);
+      socket.io.on('reconnect', refreshAll);
       stop = () => {
         socket.off(RealtimeEvent.farmUpdated, refreshFarms);
+        socket.off(RealtimeEvent.farmCreated, refreshFarms);
+        socket.off(RealtimeEvent.applicationCreated, refreshApplications);
+        socket.off(RealtimeEvent.applicationUpdated, refreshApplications);
+        socket.off(RealtimeEvent.memberUpdated, refreshMembers);
+        socket.off(RealtimeEvent.herdChanged, refreshHerd);
+        socket.off(RealtimeEvent.pedigreeChanged, refreshHerd);
+        socket.off(RealtimeEvent.almanacChanged, refreshAlmanac);
+        socket.off(RealtimeEvent.litterChanged, refreshLitters);
         socket.off(RealtimeEvent.sessionEnded, endSession);
-        socket.io.off('reconnect', refreshFarms);
+        socket.io.off('reconnect', refreshAll);
         disconnectRealtime();
       };
     });

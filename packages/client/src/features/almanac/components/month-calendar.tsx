@@ -1,0 +1,109 @@
+import { useState } from 'react';
+import { ChevronLeft, ChevronRight } from 'lucide-react';
+import type { AgendaDto, AlmanacTaskDto } from '@burrowline/shared';
+import { Button } from '../../../components/ui/button';
+import { cn } from '../../../lib/cn';
+import { formatLongDay, formatMonth, monthGrid, weekdayNames } from '../almanac-dates';
+import { TaskItem } from './task-item';
+
+const chipTone: Record<string, string> = {
+  overdue: 'bg-clay-wash text-clay-deep',
+  due_today: 'bg-straw-wash text-bark',
+  upcoming: 'bg-moss-wash text-moss-deep',
+  done: 'bg-grey-100 text-grey-600',
+  skipped: 'bg-grey-100 text-grey-500 line-through',
+};
+
+interface MonthCalendarProps {
+  agenda: AgendaDto;
+  month: string;
+  onMonth: (first: string) => void;
+  previous: string;
+  next: string;
+}
+
+/** A month of the Almanac: each day with its tasks; choosing a day lists them below to tick off. */
+export function MonthCalendar({ agenda, month, onMonth, previous, next }: MonthCalendarProps) {
+  const [chosen, setChosen] = useState<string | null>(null);
+  const byDay = new Map<string, AlmanacTaskDto[]>();
+  for (const t of agenda.tasks) byDay.set(t.dueOn, [...(byDay.get(t.dueOn) ?? []), t]);
+  const weeks = monthGrid(month);
+  const day = chosen && chosen.startsWith(month.slice(0, 7)) ? chosen : null;
+
+  return (
+    <div className="space-y-4">
+      <div className="flex items-center justify-between gap-3">
+        <Button variant="secondary" onClick={() => onMonth(previous)} aria-label="Previous month">
+          <ChevronLeft className="size-5" aria-hidden="true" />
+        </Button>
+        <h2 className="text-xl font-bold" aria-live="polite">
+          {formatMonth(month)}
+        </h2>
+        <Button variant="secondary" onClick={() => onMonth(next)} aria-label="Next month">
+          <ChevronRight className="size-5" aria-hidden="true" />
+        </Button>
+      </div>
+      <table className="w-full table-fixed border-collapse overflow-hidden rounded-2xl bg-white text-left shadow-sm">
+        <caption className="sr-only">Almanac for {formatMonth(month)}</caption>
+        <thead>
+          <tr>
+            {weekdayNames.map((name) => (
+              <th key={name} scope="col" className="border-b border-grey-200 px-2 py-2 text-sm font-semibold text-grey-600">
+                {name}
+              </th>
+            ))}
+          </tr>
+        </thead>
+        <tbody>
+          {weeks.map((week) => (
+            <tr key={week[0]}>
+              {week.map((d) => {
+                const tasks = byDay.get(d) ?? [];
+                const inMonth = d.startsWith(month.slice(0, 7));
+                const isToday = d === agenda.today;
+                return (
+                  <td key={d} className={cn('h-28 border border-grey-200 align-top', !inMonth && 'bg-grey-50 text-grey-400')}>
+                    <button
+                      type="button"
+                      onClick={() => setChosen(d)}
+                      aria-pressed={day === d}
+                      aria-label={`${formatLongDay(d)}: ${tasks.length === 1 ? '1 task' : `${tasks.length} tasks`}`}
+                      className={cn('flex h-full min-h-28 w-full flex-col gap-1 p-1.5 text-left hover:bg-moss-wash/50', day === d && 'ring-3 ring-moss ring-inset')}
+                    >
+                      <span className={cn('inline-flex size-7 items-center justify-center rounded-full text-sm font-semibold', isToday && 'bg-moss text-white')}>
+                        {Number(d.slice(8))}
+                      </span>
+                      {tasks.slice(0, 3).map((t) => (
+                        <span key={t.id} className={cn('truncate rounded px-1.5 py-0.5 text-xs font-medium', chipTone[t.timing] ?? chipTone.upcoming)}>
+                          {t.title}
+                          {t.animal?.name ? ` · ${t.animal.name}` : ''}
+                        </span>
+                      ))}
+                      {tasks.length > 3 && <span className="text-xs font-medium text-grey-600">+{tasks.length - 3} more</span>}
+                    </button>
+                  </td>
+                );
+              })}
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      {day && (
+        <section aria-labelledby="month-day" className="space-y-2">
+          <h2 id="month-day" className="text-lg font-bold">
+            {formatLongDay(day)}
+          </h2>
+          {(byDay.get(day) ?? []).length === 0 ? (
+            <p className="text-grey-600">Nothing planned that day.</p>
+          ) : (
+            <ul className="space-y-2">
+              {(byDay.get(day) ?? []).map((t) => (
+                <TaskItem key={t.id} task={t} />
+              ))}
+            </ul>
+          )}
+        </section>
+      )}
+    </div>
+  );
+}

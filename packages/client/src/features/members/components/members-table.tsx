@@ -1,0 +1,128 @@
+import {
+  getCoreRowModel,
+  getFilteredRowModel,
+  getPaginationRowModel,
+  getSortedRowModel,
+  useReactTable,
+  type ColumnDef,
+  type ColumnFiltersState,
+  type FilterFn,
+  type SortingState,
+  type Updater,
+} from '@tanstack/react-table';
+import { useMemo } from 'react';
+import type { MemberDto, MemberListView, MemberSortKey } from '@burrowline/shared';
+import { DataTable, Pagination, RowLink } from '../../../components/ui/data-table';
+import { formatDay, formatInstant } from '../../../lib/dates';
+import { roleLabels } from '../../../lib/role-labels';
+import { MemberStatusBadge } from './member-status-badge';
+
+function MemberLink({ member, cover = false }: { member: MemberDto; cover?: boolean }) {
+  return (
+    <RowLink to={`/admin/members/${member.id}`} cover={cover}>
+      {member.name}
+    </RowLink>
+  );
+}
+
+const equals: FilterFn<MemberDto> = (row, columnId, value) => row.getValue(columnId) === value;
+
+const matchesSearch: FilterFn<MemberDto> = (row, _columnId, value: string) => {
+  const needle = value.toLowerCase();
+  const m = row.original;
+  return [m.name, m.email, m.farm?.name ?? ''].some((text) => text.toLowerCase().includes(needle));
+};
+
+const columns: ColumnDef<MemberDto>[] = [
+  {
+    id: 'name',
+    accessorFn: (m) => m.name.toLowerCase(),
+    header: 'Name',
+    cell: ({ row }) => (
+      <div>
+        <MemberLink member={row.original} />
+        <div className="text-sm break-all text-grey-600">{row.original.email}</div>
+      </div>
+    ),
+  },
+  { id: 'role', accessorFn: (m) => m.role, header: 'Role', filterFn: equals, cell: ({ row }) => roleLabels[row.original.role] },
+  {
+    id: 'farm',
+    accessorFn: (m) => (m.farm?.name ?? m.invitation?.farmName ?? '').toLowerCase(),
+    header: 'Farm',
+    cell: ({ row }) => row.original.farm?.name ?? (row.original.invitation ? <span className="text-grey-600">{row.original.invitation.farmName} (on accepting)</span> : <span className="text-grey-600">None</span>),
+  },
+  { id: 'status', accessorFn: (m) => m.status, header: 'Status', filterFn: equals, cell: ({ row }) => <MemberStatusBadge status={row.original.status} /> },
+  {
+    id: 'lastSignInAt',
+    accessorFn: (m) => m.lastSignInAt ?? '',
+    header: 'Last sign-in',
+    cell: ({ row }) => (row.original.lastSignInAt ? formatInstant(row.original.lastSignInAt) : <span className="text-grey-600">Never</span>),
+  },
+  { id: 'joinedAt', accessorFn: (m) => m.joinedAt, header: 'Joined', cell: ({ row }) => formatDay(row.original.joinedAt) },
+];
+
+interface MembersTableProps {
+  members: MemberDto[];
+  view: MemberListView;
+  onView: (patch: Partial<MemberListView>) => void;
+}
+
+/** The roster: sorted, filtered, searched and paged in the browser, with the view kept in the address. */
+export function MembersTable({ members, view, onView }: MembersTableProps) {
+  const sorting = useMemo<SortingState>(() => [{ id: view.sort, desc: view.dir === 'desc' }], [view.sort, view.dir]);
+  const columnFilters = useMemo<ColumnFiltersState>(
+    () => [
+      ...(view.role !== 'all' ? [{ id: 'role', value: view.role }] : []),
+      ...(view.status !== 'all' ? [{ id: 'status', value: view.status }] : []),
+    ],
+    [view.role, view.status],
+  );
+  const table = useReactTable({
+    data: members,
+    columns,
+    getRowId: (row) => row.id,
+    getCoreRowModel: getCoreRowModel(),
+    getSortedRowModel: getSortedRowModel(),
+    getFilteredRowModel: getFilteredRowModel(),
+    getPaginationRowModel: getPaginationRowModel(),
+    globalFilterFn: matchesSearch,
+    enableSortingRemoval: false,
+    autoResetPageIndex: false,
+    state: { sorting, columnFilters, globalFilter: view.q, pagination: { pageIndex: view.page - 1, pageSize: view.pageSize } },
+    onSortingChange: (updater: Updater<SortingState>) => {
+      const first = (typeof updater === 'function' ? updater(sorting) : updater)[0];
+      if (first) onView({ sort: first.id as MemberSortKey, dir: first.desc ? 'desc' : 'asc', page: 1 });
+    },
+  });
+  const total = table.getFilteredRowModel().rows.length;
+
+  return (
+    <div className="space-y-4">
+      <DataTable
+        table={table}
+        caption="Members"
+        empty={view.q ? `Nobody matches "${view.q}".` : 'Nobody here with these filters.'}
+        renderCard={(row) => {
+          const m = row.original;
+          return (
+            <div className="space-y-1.5">
+              <div className="flex flex-wrap items-center justify-between gap-2">
+                <h3>
+                  <MemberLink member={m} cover />
+                </h3>
+                <MemberStatusBadge status={m.status} />
+              </div>
+              <p className="text-sm break-all text-grey-600">{m.email}</p>
+              <p>
+                {roleLabels[m.role]} · {m.farm?.name ?? m.invitation?.farmName ?? 'No farm'}
+              </p>
+              <p className="text-sm text-grey-600">Last sign-in: {m.lastSignInAt ? formatInstant(m.lastSignInAt) : 'never'}</p>
+            </div>
+          );
+        }}
+      />
+      <Pagination page={view.page} pageSize={view.pageSize} total={total} noun="people" onPage={(page) => onView({ page })} />
+    </div>
+  );
+}

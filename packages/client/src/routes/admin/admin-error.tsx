@@ -1,0 +1,18 @@
+import { isRouteErrorResponse, useRouteError } from 'react-router-dom';
+import { LinkButton } from '../../components/ui/link-button';
+import { isApiError } from '../../lib/api-client';
+import { ProblemPage } from '../errors/problem-page';
+import { RouteError } from '../errors/route-error';
+
+/** A missing application or member names what is missing; anything else is the usual error screen. */
+export function AdminRouteError() {
+  const error = useRouteError();
+  const notFound = (isRouteErrorResponse(error) && error.status === 404) || (isApiError(error) && error.status === 404);
+  if (!notFound) return <RouteError />;
+  const what = isRouteErrorResponse(error) && typeof error.data === 'string' ? error.data : isApiError(error) ? error.message : 'Not found';
+  return (
+    <ProblemPage title={what} actions={<LinkButton to="/admin/applications" variant="primary">Go to the admin pages</LinkButton>}>
+      <p>There is nothing at this address. The link may be mistyped, or it belongs to another co-op.</p>
+    </ProblemPage>
+  );
+}

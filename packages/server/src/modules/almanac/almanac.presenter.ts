@@ -1,0 +1,130 @@
+import {
+  daysBetween, TASK_KIND_LABELS, taskTiming, type AlmanacTaskDto, type AnimalRefDto, type BreedingCheck, type FarmRefDto,
+  type PalpationDto, type ServiceDto, type ServiceListItemDto, type TreatmentDto,
+} from '@burrowline/shared';
+import type { AnimalFacts } from '../animals/animals.service';
+import type { Palpation } from './palpation.model';
+import type { ServiceRecord } from './service-record.model';
+import type { AlmanacTask } from './task.model';
+import type { Treatment } from './treatment.model';
+
+/** What presenting needs besides the rows: animals, farm names, people's names, the farm's today. */
+export interface AlmanacPresentContext {
+  animals: Map<string, AnimalFacts>;
+  farms: Map<string, { id: string; name: string }>;
+  names: Map<string, string>;
+  today: string;
+}
+
+export function animalLabel(animal: Pick<AnimalFacts, 'name' | 'tattoo'> | undefined): string {
+  if (!animal) return 'An animal';
+  if (animal.name && animal.tattoo) return `${animal.name} (${animal.tattoo})`;
+  return animal.name || animal.tattoo || 'An animal';
+}
+
+export function presentAnimalRef(id: string, ctx: Pick<AlmanacPresentContext, 'animals' | 'farms'>): AnimalRefDto {
+  const a = ctx.animals.get(id);
+  const farm: FarmRefDto | null = a?.keepingFarmId ? { id: a.keepingFarmId, name: ctx.farms.get(a.keepingFarmId)?.name ?? 'A former member farm' } : null;
+  return { id, name: a?.name ?? '', tattoo: a?.tattoo ?? null, sex: a?.sex ?? 'doe', farm };
+}
+
+const person = (id: string | null, names: Map<string, string>) => (id ? { id, name: names.get(id) ?? 'Someone' } : null);
+
+export function presentTask(task: AlmanacTask, ctx: AlmanacPresentContext): AlmanacTaskDto {
+  const { timing, daysLate } = taskTiming(task, ctx.today);
+  const animal = task.animalId ? ctx.animals.get(task.animalId) : undefined;
+  return {
+    id: task.id,
+    farmId: task.farmId,
+    kind: task.kind,
+    key: task.key,
+    title: TASK_KIND_LABELS[task.kind],
+    subject: task.animalId ? animalLabel(animal) : '',
+    dueOn: task.dueOn,
+    windowStart: task.windowStart,
+    windowEnd: task.windowEnd,
+    anchor: task.anchor,
+    anchorDate: task.anchorDate,
+    ageDays: task.ageDays,
+    state: task.state,
+    stateReason: task.stateReason,
+    movedFrom: task.movedFrom,
+    doneOn: task.doneOn,
+    doneBy: person(task.doneBy, ctx.names),
+    completionReview: task.completionReview,
+    reviewComment: task.reviewComment,
+    timing,
+    daysLate,
+    serviceId: task.serviceId,
+    litterId: task.litterId,
+    animal: task.animalId ? presentAnimalRef(task.animalId, ctx) : null,
+    version: task.version,
+  };
+}
+
+export function presentPalpation(p: Palpation, servicedOn: string, names: Map<string, string>): PalpationDto {
+  return {
+    id: p.id,
+    palpatedOn: p.palpatedOn,
+    result: p.result,
+    notes: p.notes,
+    dayAfterService: daysBetween(servicedOn, p.palpatedOn),
+    recordedBy: person(p.recordedBy, names),
+  };
+}
+
+export function presentServiceListItem(
+  s: ServiceRecord,
+  ctx: AlmanacPresentContext & { kindlingStatus: ServiceDto['kindlingStatus']; lastPalpation: ServiceListItemDto['lastPalpation'] },
+): ServiceListItemDto {
+  return {
+    id: s.id,
+    doe: presentAnimalRef(s.doeId, ctx),
+    buck: presentAnimalRef(s.buckId, ctx),
+    servicedOn: s.servicedOn,
+    status: s.status,
+    closedOn: s.closedOn,
+    kindlingStatus: ctx.kindlingStatus,
+    litterId: s.litterId,
+    lastPalpation: ctx.lastPalpation,
+  };
+}
+
+export function presentService(
+  s: ServiceRecord,
+  extra: { palpations: Palpation[]; tasks: AlmanacTask[]; kindlingStatus: ServiceDto['kindlingStatus'] },
+  ctx: AlmanacPresentContext,
+): ServiceDto {
+  return {
+    id: s.id,
+    farmId: s.farmId,
+    doe: presentAnimalRef(s.doeId, ctx),
+    buck: presentAnimalRef(s.buckId, ctx),
+    servicedOn: s.servicedOn,
+    status: s.status,
+    closedOn: s.closedOn,
+    closeReason: s.closeReason,
+    notes: s.notes,
+    warnings: s.warnings as BreedingCheck[],
+    palpations: extra.palpations.map((p) => presentPalpation(p, s.servicedOn, ctx.names)),
+    litterId: s.litterId,
+    kindlingStatus: extra.kindlingStatus,
+    dayToday: daysBetween(s.servicedOn, ctx.today),
+    tasks: extra.tasks.map((t) => presentTask(t, ctx)),
+    recordedBy: person(s.recordedBy, ctx.names),
+    version: s.version,
+  };
+}
+
+export function presentTreatment(t: Treatment, ctx: AlmanacPresentContext): TreatmentDto {
+  return {
+    id: t.id,
+    animal: presentAnimalRef(t.animalId, ctx),
+    startedOn: t.startedOn,
+    endsOn: t.endsOn,
+    treatment: t.treatment,
+    veterinarian: t.veterinarian,
+    notes: t.notes,
+    recordedBy: person(t.recordedBy, ctx.names),
+  };
+}

@@ -1,0 +1,125 @@
+import { randomBytes } from 'node:crypto';
+import ical, { ICalCalendarMethod } from 'ical-generator';
+import { Op } from 'sequelize';
+import { addDays, ErrorCode, TASK_KIND_LABELS, type CalendarFeedDto } from '@burrowline/shared';
+import { withTenant } from '../../db/tenant';
+import type { SessionUser } from '../../http/passport';
+import { AppError } from '../../lib/app-error';
+import { recordAudit } from '../audit/audit.service';
+import { hashToken } from '../auth/tokens';
+import { ensureCan, farmOf } from './almanac-access';
+import { farmClockOf } from './almanac-context';
+import { animalLabel } from './almanac.presenter';
+import { CalendarFeedToken } from './calendar-feed-token.model';
+import { AlmanacTask } from './task.model';
+import { presentContextOf } from './tasks.service';
+
+/** How far back and ahead the feed reaches (a phone calendar keeps what it has already seen). */
+const FEED_DAYS_BACK = 60;
+const FEED_DAYS_AHEAD = 400;
+
+function feedUrl(appUrl: string, token: string): string {
+  return `${appUrl}/api/calendar-feeds/${token}.ics`;
+}
+
+/** Whether the actor's farm has a live feed (its address is shown only once, when it is made). */
+export async function calendarFeedStatus(actor: SessionUser): Promise<CalendarFeedDto> {
+  const farmId = farmOf(actor);
+  ensureCan(actor, 'read', 'CalendarFeed', { farmId }, 'That calendar feed', 'Only members of the farm manage its calendar feed');
+  return withTenant(actor, async (tx) => {
+    const live = await CalendarFeedToken.findOne({ where: { farmId, revokedAt: { [Op.is]: null } }, transaction: tx });
+    return { active: Boolean(live), createdAt: live?.createdAt.toISOString() ?? null, url: null };
+  });
+}
+
+/**
+ * Makes the farm's secret feed address, or renews it: the old address stops working at once. Only the
+ * token's SHA-256 is kept; the address is in this answer and nowhere else.
+ */
+export async function renewCalendarFeed(actor: SessionUser, appUrl: string): Promise<CalendarFeedDto> {
+  const farmId = farmOf(actor);
+  ensureCan(actor, 'create', 'CalendarFeed', { farmId }, 'That calendar feed', 'Only members of the farm manage its calendar feed');
+  return withTenant(actor, async (tx) => {
+    const renewed = await CalendarFeedToken.update({ revokedAt: new Date() }, { where: { farmId, revokedAt: { [Op.is]: null } }, transaction: tx });
+    const token = randomBytes(32).toString('base64url');
+    const row = await CalendarFeedToken.create({ coopId: actor.coopId, farmId, createdBy: actor.id, tokenHash: hashToken(token) }, { transaction: tx });
+    await recordAudit({ coopId: actor.coopId, actorUserId: actor.id, action: renewed[0] > 0 ? 'calendar_feed.renewed' : 'calendar_feed.created', subjectType: 'farm', subjectId: farmId }, tx);
+    return { active: true, createdAt: row.createdAt.toISOString(), url: feedUrl(appUrl, token) };
+  });
+}
+
+/** Turns the feed off: its address stops working. */
+export async function revokeCalendarFeed(actor: SessionUser): Promise<void> {
+  const farmId = farmOf(actor);
+  ensureCan(actor, 'delete', 'CalendarFeed', { farmId }, 'That calendar feed', 'Only members of the farm manage its calendar feed');
+  await withTenant(actor, async (tx) => {
+    await CalendarFeedToken.update({ revokedAt: new Date() }, { where: { farmId, revokedAt: { [Op.is]: null } }, transaction: tx });
+    await recordAudit({ coopId: actor.coopId, actorUserId: actor.id, action: 'calendar_feed.revoked', subjectType: 'farm', subjectId: farmId }, tx);
+  });
+}
+
+/**
+ * The farm's Almanac as an iCalendar (RFC 5545) feed, for the token in its secret address; null for an
+ * unknown or revoked token. Each task is an all-day event whose UID is the task's id, so a calendar
+ * updates it in place when it is moved, done or re-planned (SEQUENCE follows the task's version).
+ */
+export async function calendarFeedFor(token: string, opts: { appUrl: string; now?: Date }): Promise<string | null> {
+  if (!/^[A-Za-z0-9_-]{20,100}$/.test(token)) return null;
+  // Before the tenant is known: the token table is outside row-level security, looked up by hash only.
+  const row = await CalendarFeedToken.findOne({ where: { tokenHash: hashToken(token), revokedAt: { [Op.is]: null } } });
+  if (!row) return null;
+  const now = opts.now ?? new Date();
+  await CalendarFeedToken.update({ lastUsedAt: now }, { where: { id: row.id } });
+  return withTenant({ coopId: row.coopId }, async (tx) => {
+    const clock = await farmClockOf(tx, row.coopId, row.farmId, now);
+    const tasks = await AlmanacTask.findAll({
+      where: {
+        farmId: row.farmId,
+        state: { [Op.in]: ['open', 'moved', 'done'] },
+        dueOn: { [Op.between]: [addDays(clock.today, -FEED_DAYS_BACK), addDays(clock.today, FEED_DAYS_AHEAD)] },
+      },
+      order: [['dueOn', 'ASC'], ['id', 'ASC']],
+      transaction: tx,
+    });
+    const ctx = await presentContextOf(tx, row.coopId, clock.today, { animalIds: tasks.map((t) => t.animalId) });
+    const calendar = ical({
+      name: `Almanac · ${clock.name}`,
+      description: `Burrowline Almanac of ${clock.name}: services, palpations, nest boxes, kindlings, weanings and quarantines.`,
+      prodId: { company: 'Burrowline', product: 'Almanac', language: 'EN' },
+      method: ICalCalendarMethod.PUBLISH,
+      timezone: clock.timeZone,
+      ttl: 60 * 60,
+    });
+    for (const task of tasks) {
+      const subject = task.animalId ? animalLabel(ctx.animals.get(task.animalId)) : '';
+      const title = TASK_KIND_LABELS[task.kind];
+      const lines = [
+        task.windowStart && task.kind === 'kindling_due' ? `Kindling window ${task.windowStart} to ${task.windowEnd}.` : null,
+        task.kind === 'quarantine_end' && task.windowStart ? `In quarantine from ${task.windowStart}; isolated from the herd until this day.` : null,
+        task.ageDays ? `Litter age ${task.ageDays} days.` : null,
+        `Planned from the ${task.anchor === 'palpation' ? 'empty palpation' : task.anchor} of ${task.anchorDate}.`,
+        task.state === 'moved' ? `Moved from ${task.movedFrom}.` : null,
+        task.state === 'done' ? `Done on ${task.doneOn}.` : null,
+      ].filter(Boolean);
+      const link = task.litterId ? `/litters/${task.litterId}` : task.serviceId ? `/almanac/services/${task.serviceId}` : '/almanac';
+      calendar.createEvent({
+        id: task.id,
+        sequence: task.version,
+        start: task.dueOn,
+        end: addDays(task.dueOn, 1),
+        allDay: true,
+        stamp: now,
+        lastModified: task.updatedAt,
+        summary: `${task.state === 'done' ? '✓ ' : ''}${title}${subject ? `: ${subject}` : ''}`,
+        description: lines.join('\n'),
+        url: `${opts.appUrl}${link}`,
+      });
+    }
+    return calendar.toString();
+  });
+}
+
+/** The feed's address errors carry no detail: a wrong or revoked token is simply not there. */
+export function feedNotFound(): AppError {
+  return new AppError(ErrorCode.notFound, 404, 'No such calendar feed; renew the address in the Almanac settings');
+}

@@ -1,0 +1,31 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+
+/** A palpation of a serviced doe: kits felt (positive) or not (negative). */
+export class Palpation extends Model<InferAttributes<Palpation>, InferCreationAttributes<Palpation>> {
+  declare id: CreationOptional<string>;
+  declare coopId: string;
+  declare farmId: string;
+  declare serviceId: string;
+  declare palpatedOn: string;
+  declare result: 'positive' | 'negative';
+  declare notes: CreationOptional<string>;
+  declare recordedBy: string | null;
+  declare createdAt: CreationOptional<Date>;
+
+  static initModel(sequelize: Sequelize) {
+    Palpation.init(
+      {
+        id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+        coopId: { type: DataTypes.UUID, allowNull: false },
+        farmId: { type: DataTypes.UUID, allowNull: false },
+        serviceId: { type: DataTypes.UUID, allowNull: false },
+        palpatedOn: { type: DataTypes.DATEONLY, allowNull: false },
+        result: { type: DataTypes.TEXT, allowNull: false },
+        notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
+        recordedBy: { type: DataTypes.UUID, allowNull: true },
+        createdAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'palpations', underscored: true, updatedAt: false },
+    );
+  }
+}

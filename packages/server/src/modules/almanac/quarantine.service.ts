@@ -1,0 +1,29 @@
+import type { Transaction } from 'sequelize';
+import { planQuarantine } from '@burrowline/shared';
+import { getCoop } from '../coops/coops.service';
+import { announceAlmanac } from './almanac-context';
+import { insertPlannedTasks } from './task-writer';
+
+export interface Arrival {
+  coopId: string;
+  /** The farm the animal arrives at (bought, traded, lent to it, or back home from a loan). */
+  farmId: string;
+  animalId: string;
+  arrivedOn: string;
+}
+
+/**
+ * Plans an arriving animal's quarantine under the co-op's rule (`quarantine_days`; isolating new or
+ * returning rabbits for 30 days is a common recommendation for RHDV2, Minnesota Board of Animal Health):
+ * a task on the day it may join the herd, spanning the isolation. Call it inside the transaction that
+ * records the arrival (the Herd does, for arrivals, transfers, loans and returns); planning the same
+ * arrival twice adds nothing. A co-op with no quarantine rule (0 days) gets no task.
+ */
+export async function planArrivalQuarantine(tx: Transaction, arrival: Arrival): Promise<void> {
+  const coop = await getCoop(arrival.coopId, tx);
+  const days = coop?.quarantineDays ?? 0;
+  const planned = planQuarantine(arrival.arrivedOn, days).map((task) => ({ ...task, windowStart: arrival.arrivedOn, windowEnd: task.dueOn }));
+  if (planned.length === 0) return;
+  await insertPlannedTasks(tx, { coopId: arrival.coopId, farmId: arrival.farmId, sourceId: arrival.animalId, animalId: arrival.animalId }, planned);
+  announceAlmanac(tx, [arrival.farmId]);
+}

@@ -1,0 +1,280 @@
+import { Op, type Transaction, type WhereOptions } from 'sequelize';
+import {
+  addDays, defineAbilityFor, ErrorCode, needsAttention, subjectOf, plannedTaskKinds, type AgendaDto, type AgendaQuery, type AlmanacSummaryDto,
+  type AlmanacTaskDto, type EntryReviewInput, type TaskBulkInput, type TaskUpdateInput,
+} from '@burrowline/shared';
+import { accessibleWhere } from '../../db/scope';
+import { withTenant } from '../../db/tenant';
+import type { SessionUser } from '../../http/passport';
+import { AppError } from '../../lib/app-error';
+import { recordChanges } from '../audit/audit.service';
+import { animalFactsOf } from '../animals/animals.service';
+import { farmDirectoryOf } from '../farms/farms.service';
+import { namesOf } from '../users/users.service';
+import { ensureCan, farmOf } from './almanac-access';
+import { announceAlmanac, farmClockOf, type FarmClock } from './almanac-context';
+import { presentTask, type AlmanacPresentContext } from './almanac.presenter';
+import { settingsOf } from './cycle-settings.service';
+import { AlmanacTask } from './task.model';
+import { toTaskRecord } from './task-writer';
+
+const kindOrder = new Map<string, number>(plannedTaskKinds.map((kind, index) => [kind, index]));
+
+function byDue(a: AlmanacTask, b: AlmanacTask): number {
+  return a.dueOn.localeCompare(b.dueOn) || (kindOrder.get(a.kind) ?? 0) - (kindOrder.get(b.kind) ?? 0) || a.id.localeCompare(b.id);
+}
+
+/** Animals, farms and people of these rows, loaded once, for presenting them on the farm's today. */
+export async function presentContextOf(
+  tx: Transaction,
+  coopId: string,
+  today: string,
+  refs: { animalIds?: (string | null | undefined)[]; userIds?: (string | null | undefined)[] },
+): Promise<AlmanacPresentContext> {
+  const animalIds = (refs.animalIds ?? []).filter((id): id is string => Boolean(id));
+  return {
+    animals: await animalFactsOf(tx, coopId, animalIds),
+    farms: await farmDirectoryOf(coopId, tx),
+    names: await namesOf(refs.userIds ?? [], tx),
+    today,
+  };
+}
+
+/** Tasks as the API shows them, on the farm's today. */
+export async function presentTasks(tx: Transaction, coopId: string, tasks: AlmanacTask[], today: string): Promise<AlmanacTaskDto[]> {
+  const ctx = await presentContextOf(tx, coopId, today, { animalIds: tasks.map((t) => t.animalId), userIds: tasks.map((t) => t.doneBy) });
+  return [...tasks].sort(byDue).map((t) => presentTask(t, ctx));
+}
+
+/** The tasks of some services, litters or arrivals (for their own pages), inside the caller's transaction. */
+export async function tasksOf(tx: Transaction, where: { serviceId?: string; litterId?: string; sourceIds?: string[] }): Promise<AlmanacTask[]> {
+  const conditions: WhereOptions<AlmanacTask> = {};
+  if (where.serviceId) Object.assign(conditions, { serviceId: where.serviceId });
+  if (where.litterId) Object.assign(conditions, { litterId: where.litterId });
+  if (where.sourceIds) Object.assign(conditions, { sourceId: { [Op.in]: where.sourceIds } });
+  const tasks = await AlmanacTask.findAll({ where: conditions, transaction: tx, lock: tx.LOCK.UPDATE });
+  return tasks.sort(byDue);
+}
+
+/** Open (or moved) tasks of a doe of these kinds: what a new service settles (her rebreed, her breed-back). */
+export async function openTasksOfAnimal(tx: Transaction, animalId: string, kinds: string[]): Promise<AlmanacTask[]> {
+  return AlmanacTask.findAll({
+    where: { animalId, kind: { [Op.in]: kinds }, state: { [Op.in]: ['open', 'moved'] } },
+    transaction: tx,
+    lock: tx.LOCK.UPDATE,
+  });
+}
+
+async function openAndRange(tx: Transaction, actor: SessionUser, farmId: string, from: string, to: string, include: 'open' | 'all') {
+  const scope = accessibleWhere(defineAbilityFor(actor), 'read', 'AlmanacTask');
+  const states = include === 'open' ? ['open', 'moved'] : ['open', 'moved', 'done', 'skipped'];
+  const inRange = await AlmanacTask.findAll({
+    where: { [Op.and]: [scope, { farmId, dueOn: { [Op.between]: [from, to] }, state: { [Op.in]: states } }] },
+    transaction: tx,
+  });
+  const overdue = await AlmanacTask.findAll({
+    where: { [Op.and]: [scope, { farmId, dueOn: { [Op.lt]: from }, state: { [Op.in]: ['open', 'moved'] } }] },
+    transaction: tx,
+  });
+  return { inRange, overdue };
+}
+
+async function attentionOf(tx: Transaction, farmId: string, today: string) {
+  const open = await AlmanacTask.findAll({ where: { farmId, state: { [Op.in]: ['open', 'moved'] }, dueOn: { [Op.lte]: today } }, transaction: tx });
+  const { settings } = await settingsOf(tx, farmId);
+  return needsAttention(open.map(toTaskRecord), today, settings);
+}
+
+async function pendingReviewOf(tx: Transaction, farmId: string): Promise<number> {
+  return AlmanacTask.count({ where: { farmId, completionReview: 'pending' }, transaction: tx });
+}
+
+/**
+ * The farm's agenda (an apprentice's: the mentor's) between two dates on the farm's clock, with the
+ * open tasks already late and what must surface by itself. Default: today and the next 13 days
+ * (`days` for more).
+ */
+export async function listAgenda(actor: SessionUser, q: AgendaQuery): Promise<AgendaDto> {
+  const farmId = farmOf(actor);
+  ensureCan(actor, 'read', 'AlmanacTask', { farmId }, 'That Almanac');
+  return withTenant(actor, async (tx) => {
+    const clock = await farmClockOf(tx, actor.coopId, farmId);
+    const from = q.from ?? clock.today;
+    const to = q.to ?? addDays(from, (q.days ?? 14) - 1);
+    const { inRange, overdue } = await openAndRange(tx, actor, farmId, from, to, q.include);
+    return {
+      farm: { id: farmId, name: clock.name },
+      timeZone: clock.timeZone,
+      today: clock.today,
+      from,
+      to,
+      tasks: await presentTasks(tx, actor.coopId, inRange, clock.today),
+      overdue: await presentTasks(tx, actor.coopId, overdue, clock.today),
+      attention: await attentionOf(tx, farmId, clock.today),
+      pendingReview: await pendingReviewOf(tx, farmId),
+    };
+  });
+}
+
+/** Commons' cards: what is due today, in the rest of this week (to today + 6), and late. */
+export async function almanacSummary(actor: SessionUser): Promise<AlmanacSummaryDto> {
+  const farmId = farmOf(actor);
+  ensureCan(actor, 'read', 'AlmanacTask', { farmId }, 'That Almanac');
+  return withTenant(actor, async (tx) => {
+    const clock = await farmClockOf(tx, actor.coopId, farmId);
+    const weekEnd = addDays(clock.today, 6);
+    const { inRange, overdue } = await openAndRange(tx, actor, farmId, clock.today, weekEnd, 'open');
+    const presented = await presentTasks(tx, actor.coopId, inRange, clock.today);
+    return {
+      farm: { id: farmId, name: clock.name },
+      today: clock.today,
+      weekEnd,
+      dueToday: presented.filter((t) => t.dueOn === clock.today),
+      thisWeek: presented.filter((t) => t.dueOn > clock.today),
+      overdue: await presentTasks(tx, actor.coopId, overdue, clock.today),
+      attention: await attentionOf(tx, farmId, clock.today),
+      pendingReview: await pendingReviewOf(tx, farmId),
+    };
+  });
+}
+
+type TaskChange = Record<string, [unknown, unknown]>;
+type DistributiveOmit<T, K extends PropertyKey> = T extends unknown ? Omit<T, K> : never;
+type ActionFields = DistributiveOmit<TaskUpdateInput, 'version'>;
+
+/** Applies one action to one task already loaded and locked; returns what changed (for the history). */
+function applyAction(actor: SessionUser, task: AlmanacTask, input: ActionFields, clock: FarmClock): TaskChange {
+  const apprentice = actor.role === 'apprentice';
+  const before = { state: task.state, dueOn: task.dueOn, doneOn: task.doneOn, stateReason: task.stateReason, completionReview: task.completionReview };
+  const isOpen = task.state === 'open' || task.state === 'moved';
+  switch (input.action) {
+    case 'done': {
+      if (!isOpen) throw new AppError(ErrorCode.conflict, 409, task.state === 'done' ? 'That task is already done' : 'That task was skipped; open it again first');
+      const doneOn = input.doneOn ?? clock.today;
+      if (doneOn > clock.today) throw AppError.validation({ doneOn: [`A task cannot be done on ${doneOn}, a date in the future (today is ${clock.today})`] });
+      if (doneOn < task.anchorDate) throw AppError.validation({ doneOn: [`That is before the ${task.anchor} it follows (${task.anchorDate})`] });
+      task.set({
+        state: 'done', doneOn, doneBy: actor.id, note: input.note ?? task.note,
+        completionReview: apprentice ? 'pending' : 'accepted', reviewedBy: null, reviewedAt: null, reviewComment: null,
+      });
+      break;
+    }
+    case 'move': {
+      if (!isOpen) throw new AppError(ErrorCode.conflict, 409, 'Only an open task can be moved');
+      if (input.dueOn === task.dueOn) throw AppError.validation({ dueOn: ['That is the day it is already on'] });
+      if (input.dueOn < task.anchorDate) throw AppError.validation({ dueOn: [`That is before the ${task.anchor} it follows (${task.anchorDate})`] });
+      task.set({ state: 'moved', movedFrom: task.movedFrom ?? task.dueOn, dueOn: input.dueOn, stateReason: input.reason || null });
+      break;
+    }
+    case 'skip':
+      if (!isOpen) throw new AppError(ErrorCode.conflict, 409, 'Only an open task can be skipped');
+      task.set({ state: 'skipped', stateReason: input.reason });
+      break;
+    case 'reopen':
+      if (isOpen) throw new AppError(ErrorCode.conflict, 409, 'That task is open already');
+      task.set({
+        state: task.movedFrom ? 'moved' : 'open', doneOn: null, doneBy: null, stateReason: null,
+        completionReview: 'accepted', reviewedBy: null, reviewedAt: null, reviewComment: null,
+      });
+      break;
+  }
+  const changes: TaskChange = {};
+  for (const [key, value] of Object.entries(before)) {
+    const now = task.get(key as keyof typeof before);
+    if (now !== value) changes[key] = [value, now];
+  }
+  return changes;
+}
+
+function checkActionAllowed(actor: SessionUser, farmId: string, action: TaskUpdateInput['action']): void {
+  if (action === 'done') {
+    ensureCan(actor, 'complete', 'AlmanacTask', { farmId }, 'That task');
+  } else {
+    ensureCan(actor, 'update', 'AlmanacTask', { farmId }, 'That task', 'Apprentices tick tasks off; members move, skip or reopen them');
+  }
+}
+
+async function loadForChange(tx: Transaction, actor: SessionUser, ids: string[]): Promise<AlmanacTask[]> {
+  const tasks = await AlmanacTask.findAll({ where: { id: { [Op.in]: ids }, coopId: actor.coopId }, transaction: tx, lock: tx.LOCK.UPDATE, order: [['id', 'ASC']] });
+  const ability = defineAbilityFor(actor);
+  // Another farm's tasks do not exist for the actor.
+  const visible = tasks.filter((t) => t.farmId === actor.farmId && ability.can('read', subjectOfTask(t)));
+  if (visible.length !== ids.length) throw AppError.notFound(ids.length === 1 ? 'That task' : 'One of those tasks');
+  return visible;
+}
+
+function subjectOfTask(task: AlmanacTask) {
+  return subjectOf('AlmanacTask', { coopId: task.coopId, farmId: task.farmId });
+}
+
+async function saveChanges(tx: Transaction, actor: SessionUser, task: AlmanacTask, changes: TaskChange): Promise<void> {
+  await task.save({ transaction: tx });
+  if (Object.keys(changes).length > 0) {
+    await recordChanges({ coopId: actor.coopId, tableName: 'almanac_tasks', recordId: task.id, actorUserId: actor.id, changes }, tx);
+  }
+}
+
+/**
+ * One task done (on a date, not in the future), moved to another day, skipped with a reason, or opened
+ * again, from the version it was seen at (else 409). An apprentice may only tick tasks off, and the tick
+ * waits for the mentor's review.
+ */
+export async function updateTask(actor: SessionUser, taskId: string, input: TaskUpdateInput): Promise<AlmanacTaskDto> {
+  const farmId = farmOf(actor);
+  return withTenant(actor, async (tx) => {
+    const [task] = await loadForChange(tx, actor, [taskId]);
+    checkActionAllowed(actor, farmId, input.action);
+    if (task!.version !== input.version) throw AppError.staleVersion();
+    const clock = await farmClockOf(tx, actor.coopId, farmId);
+    const changes = applyAction(actor, task!, input, clock);
+    await saveChanges(tx, actor, task!, changes);
+    announceAlmanac(tx, [farmId]);
+    const [presented] = await presentTasks(tx, actor.coopId, [task!], clock.today);
+    return presented!;
+  });
+}
+
+/** The same action on several tasks at once, all or none (one stale or refused task refuses them all). */
+export async function bulkUpdateTasks(actor: SessionUser, input: TaskBulkInput): Promise<{ tasks: AlmanacTaskDto[] }> {
+  const farmId = farmOf(actor);
+  return withTenant(actor, async (tx) => {
+    const tasks = await loadForChange(tx, actor, input.tasks.map((t) => t.id));
+    checkActionAllowed(actor, farmId, input.action);
+    const versions = new Map(input.tasks.map((t) => [t.id, t.version]));
+    if (tasks.some((t) => t.version !== versions.get(t.id))) throw AppError.staleVersion();
+    const clock = await farmClockOf(tx, actor.coopId, farmId);
+    const { tasks: _ids, ...rest } = input;
+    const action = rest as ActionFields;
+    for (const task of tasks) {
+      const changes = applyAction(actor, task, action, clock);
+      await saveChanges(tx, actor, task, changes);
+    }
+    announceAlmanac(tx, [farmId]);
+    return { tasks: await presentTasks(tx, actor.coopId, tasks, clock.today) };
+  });
+}
+
+/** A member accepts an apprentice's tick, or returns it with a comment (the task is open again). */
+export async function reviewTask(actor: SessionUser, taskId: string, input: EntryReviewInput): Promise<AlmanacTaskDto> {
+  const farmId = farmOf(actor);
+  return withTenant(actor, async (tx) => {
+    const [task] = await loadForChange(tx, actor, [taskId]);
+    ensureCan(actor, 'review', 'AlmanacTask', { farmId }, 'That task', 'The mentor reviews an apprentice\'s ticks');
+    if (task!.version !== input.version) throw AppError.staleVersion();
+    if (task!.completionReview !== 'pending') throw new AppError(ErrorCode.conflict, 409, 'That tick was already reviewed');
+    if (task!.doneBy === actor.id) throw new AppError(ErrorCode.forbidden, 403, 'Someone else reviews your own ticks');
+    const returned = input.decision === 'returned';
+    task!.set({
+      completionReview: input.decision,
+      reviewedBy: actor.id,
+      reviewedAt: new Date(),
+      reviewComment: input.comment ?? null,
+      ...(returned ? { state: task!.movedFrom ? 'moved' : 'open', doneOn: null } : {}),
+    });
+    await saveChanges(tx, actor, task!, { completionReview: ['pending', input.decision] });
+    announceAlmanac(tx, [farmId]);
+    const clock = await farmClockOf(tx, actor.coopId, farmId);
+    const [presented] = await presentTasks(tx, actor.coopId, [task!], clock.today);
+    return presented!;
+  });
+}

@@ -1,0 +1,109 @@
+import { QueryTypes, type Transaction } from 'sequelize';
+import type { Disposition, Lifecycle, Purity, ReviewState, Sex } from '@burrowline/shared';
+import { database } from '../../db/sequelize';
+
+/** An animal with its pedigree figures (and, for full records, its latest weight), as SQL returns it. */
+export interface AnimalRow {
+  id: string;
+  coop_id: string;
+  is_outside: boolean;
+  breeding_farm_id: string | null;
+  breeder_name: string;
+  owning_farm_id: string | null;
+  keeping_farm_id: string | null;
+  tattoo: string | null;
+  name: string;
+  sex: Sex;
+  breed_id: string | null;
+  colour: string;
+  birth_date: string | null;
+  sire_id: string | null;
+  dam_id: string | null;
+  registration_number: string | null;
+  notes: string;
+  hutch: string;
+  lifecycle: Lifecycle;
+  disposition: Disposition;
+  disposition_cause: string | null;
+  version: number;
+  created_at: Date;
+  updated_at: Date;
+  coi: number | null;
+  makeup_breeds: Record<string, number> | null;
+  makeup_unknown: number | null;
+  purity: Purity | null;
+  latest_grams: number | null;
+  latest_weighed_on: string | null;
+  latest_review_state: ReviewState | null;
+}
+
+const columns = `
+  a.id, a.coop_id, a.is_outside, a.breeding_farm_id, a.breeder_name, a.owning_farm_id, a.keeping_farm_id,
+  a.tattoo, a.name, a.sex, a.breed_id, a.colour, a.birth_date::text AS birth_date, a.sire_id, a.dam_id,
+  a.registration_number, a.notes, a.hutch, a.lifecycle, a.disposition, a.disposition_cause, a.version,
+  a.created_at, a.updated_at, i.coi, m.breeds AS makeup_breeds, m.unknown AS makeup_unknown, m.purity`;
+
+const figures = `
+  LEFT JOIN animal_inbreeding i ON i.animal_id = a.id
+  LEFT JOIN animal_breed_makeups m ON m.animal_id = a.id`;
+
+// Returned entries do not count; a pending one shows (as unverified) until it is reviewed.
+const latestWeight = `
+  LEFT JOIN LATERAL (
+    SELECT wi.total_grams, wi.weighed_on, wi.review_state FROM weigh_ins wi
+    WHERE wi.animal_id = a.id AND wi.deleted_at IS NULL AND wi.review_state <> 'returned'
+    ORDER BY wi.weighed_on DESC, wi.created_at DESC LIMIT 1
+  ) w ON true`;
+
+/**
+ * Animals of the current co-op matching `where` (SQL over alias `a`, with `$1` = the co-op id and
+ * further positional parameters in `bind`). `withWeights` adds the latest weigh-in (farm-private:
+ * only for full records, never for pedigree cards).
+ */
+export async function selectAnimals(
+  tx: Transaction,
+  coopId: string,
+  where: string,
+  bind: unknown[] = [],
+  opts: { withWeights?: boolean; orderBy?: string; limit?: number; offset?: number } = {},
+): Promise<AnimalRow[]> {
+  const weightColumns = opts.withWeights
+    ? ', w.total_grams AS latest_grams, w.weighed_on::text AS latest_weighed_on, w.review_state AS latest_review_state'
+    : ', NULL::integer AS latest_grams, NULL::text AS latest_weighed_on, NULL::text AS latest_review_state';
+  const sql = `SELECT ${columns}${weightColumns} FROM animals a ${figures} ${opts.withWeights ? latestWeight : ''}
+    WHERE a.coop_id = $1 AND a.deleted_at IS NULL AND (${where})
+    ${opts.orderBy ? `ORDER BY ${opts.orderBy}` : ''} ${opts.limit ? `LIMIT ${Math.floor(opts.limit)}` : ''}
+    ${opts.offset ? `OFFSET ${Math.floor(opts.offset)}` : ''}`;
+  return database().query<AnimalRow>(sql, { bind: [coopId, ...bind], type: QueryTypes.SELECT, transaction: tx });
+}
+
+export async function selectAnimalById(tx: Transaction, coopId: string, id: string, opts: { withWeights?: boolean } = {}) {
+  const [row] = await selectAnimals(tx, coopId, 'a.id = $2', [id], opts);
+  return row ?? null;
+}
+
+export async function selectAnimalsByIds(tx: Transaction, coopId: string, ids: string[], opts: { withWeights?: boolean } = {}) {
+  if (ids.length === 0) return [];
+  return selectAnimals(tx, coopId, 'a.id = ANY($2::uuid[])', [ids], opts);
+}
+
+/** The animal and its ancestors up to `generations` back (ids with their parents), for pictures and completeness. */
+export async function selectAncestorIds(tx: Transaction, coopId: string, id: string, generations: number): Promise<string[]> {
+  const rows = await database().query<{ id: string }>(
+    `WITH RECURSIVE anc(id, depth) AS (
+       SELECT $2::uuid, 0
+       UNION
+       SELECT p.parent_id, anc.depth + 1
+       FROM anc JOIN animals a ON a.id = anc.id AND a.coop_id = $1
+       CROSS JOIN LATERAL (VALUES (a.sire_id), (a.dam_id)) AS p(parent_id)
+       WHERE p.parent_id IS NOT NULL AND anc.depth < $3
+     )
+     SELECT DISTINCT id FROM anc`,
+    { bind: [coopId, id, generations], type: QueryTypes.SELECT, transaction: tx },
+  );
+  return rows.map((r) => r.id);
+}
+
+export async function query<T extends object>(tx: Transaction, sql: string, bind: unknown[] = []): Promise<T[]> {
+  return database().query<T>(sql, { bind, type: QueryTypes.SELECT, transaction: tx });
+}

@@ -1,0 +1,124 @@
+import {
+  ageClassOf, daysBetween, seniorRangeFor, weightAgainstStandard, type AnimalDto, type BreedDto, type BreedMakeupDto,
+  type CustodyStatus, type FarmRefDto, type PedigreeCardDto, type WeightUnit,
+} from '@burrowline/shared';
+import type { AnimalRow } from './animal-queries';
+
+export interface FarmInfo {
+  id: string;
+  name: string;
+  timeZone: string;
+  weightUnit: WeightUnit;
+}
+
+/** What presenting needs besides the row: the breeds and farms of the co-op, who is looking, and their today. */
+export interface PresentContext {
+  breeds: Map<string, BreedDto>;
+  farms: Map<string, FarmInfo>;
+  viewerFarmId: string | null;
+  today: string;
+}
+
+function farmRef(ctx: PresentContext, farmId: string | null): FarmRefDto | null {
+  if (!farmId) return null;
+  const farm = ctx.farms.get(farmId);
+  return { id: farmId, name: farm?.name ?? 'A former member farm' };
+}
+
+export function presentMakeup(row: Pick<AnimalRow, 'makeup_breeds' | 'makeup_unknown' | 'purity'>, ctx: Pick<PresentContext, 'breeds'>): BreedMakeupDto {
+  if (!row.makeup_breeds || row.purity === null) return { breeds: [], unknown: 1, purity: 'unknown' };
+  const breeds = Object.entries(row.makeup_breeds)
+    .map(([breedId, fraction]) => ({ breedId, name: ctx.breeds.get(breedId)?.name ?? 'A removed breed', fraction }))
+    .sort((a, b) => b.fraction - a.fraction || a.name.localeCompare(b.name));
+  return { breeds, unknown: row.makeup_unknown ?? 0, purity: row.purity };
+}
+
+/** The breed whose class rule and standard apply: the breed of a purebred, else the declared one. */
+export function standardBreedOf(row: AnimalRow, ctx: PresentContext): BreedDto | null {
+  if (row.purity === 'purebred' && row.makeup_breeds) {
+    const [only] = Object.keys(row.makeup_breeds);
+    if (only) return ctx.breeds.get(only) ?? null;
+  }
+  return row.breed_id ? (ctx.breeds.get(row.breed_id) ?? null) : null;
+}
+
+/** The class rule of a cross follows its largest share; unknown ancestry uses four classes. */
+function classRuleOf(row: AnimalRow, ctx: PresentContext): 4 | 6 {
+  const standard = standardBreedOf(row, ctx);
+  if (standard) return standard.showClassCount;
+  const largest = Object.entries(row.makeup_breeds ?? {}).sort((a, b) => b[1] - a[1])[0];
+  return (largest && ctx.breeds.get(largest[0])?.showClassCount) || 4;
+}
+
+export function ageClassOfRow(row: AnimalRow, ctx: PresentContext) {
+  return row.birth_date ? ageClassOf(row.birth_date, ctx.today, classRuleOf(row, ctx)) : null;
+}
+
+export function isOnFarm(row: Pick<AnimalRow, 'is_outside' | 'disposition'>): boolean {
+  return !row.is_outside && row.disposition === 'on_farm';
+}
+
+/** The pedigree card: what every member of the co-op sees. Nothing farm-private goes in here. */
+export function presentCard(row: AnimalRow, ctx: PresentContext): PedigreeCardDto {
+  const onFarm = isOnFarm(row);
+  return {
+    id: row.id,
+    isOutside: row.is_outside,
+    name: row.name,
+    tattoo: row.tattoo,
+    sex: row.sex,
+    birthDate: row.birth_date,
+    colour: row.colour,
+    registrationNumber: row.registration_number,
+    breedMakeup: presentMakeup(row, ctx),
+    breedingFarm: farmRef(ctx, row.breeding_farm_id),
+    breederName: row.breeder_name,
+    currentFarm: onFarm ? farmRef(ctx, row.keeping_farm_id) : null,
+    onFarm,
+    coi: Math.min(1, Math.max(0, row.coi ?? 0)),
+    sireId: row.sire_id,
+    damId: row.dam_id,
+  };
+}
+
+function custodyFor(row: AnimalRow, viewerFarmId: string | null): CustodyStatus {
+  if (row.owning_farm_id === row.keeping_farm_id) return 'at_home';
+  return viewerFarmId !== null && viewerFarmId === row.keeping_farm_id ? 'on_loan_here' : 'lent_out';
+}
+
+/** The full record, for the farm that owns or keeps the animal. */
+export function presentAnimal(row: AnimalRow, ctx: PresentContext): AnimalDto {
+  const ageClass = ageClassOfRow(row, ctx);
+  const standard = standardBreedOf(row, ctx);
+  const latestWeight =
+    row.latest_grams !== null && row.latest_weighed_on && row.latest_review_state
+      ? { grams: row.latest_grams, weighedOn: row.latest_weighed_on, reviewState: row.latest_review_state }
+      : null;
+  const judged = latestWeight && latestWeight.reviewState === 'accepted' && ageClass === 'senior';
+  return {
+    ...presentCard(row, ctx),
+    owningFarm: farmRef(ctx, row.owning_farm_id),
+    keepingFarm: farmRef(ctx, row.keeping_farm_id),
+    custody: custodyFor(row, ctx.viewerFarmId),
+    breedId: row.breed_id,
+    breedName: row.breed_id ? (ctx.breeds.get(row.breed_id)?.name ?? null) : null,
+    hutch: row.hutch,
+    notes: row.notes,
+    lifecycle: row.lifecycle,
+    disposition: row.disposition,
+    dispositionCause: row.disposition_cause,
+    ageClass,
+    ageDays: row.birth_date ? daysBetween(row.birth_date, ctx.today) : null,
+    latestWeight,
+    weightAgainstStandard: judged ? weightAgainstStandard(latestWeight.grams, seniorRangeFor(row.sex, standard)) : null,
+    version: row.version,
+    createdAt: new Date(row.created_at).toISOString(),
+    updatedAt: new Date(row.updated_at).toISOString(),
+  };
+}
+
+/** "Thistle (HR-14)", or the tattoo alone, for messages that name an animal. */
+export function labelOf(row: Pick<AnimalRow, 'name' | 'tattoo'>): string {
+  if (row.name && row.tattoo) return `${row.name} (${row.tattoo})`;
+  return row.name || row.tattoo || 'That animal';
+}

@@ -1,0 +1,167 @@
+import { ForbiddenError } from '@casl/ability';
+import {
+  defineAbilityFor, offspringBreedMakeupMany, offspringInbreedingMany, pedigreeCompleteness, subjectOf, type PedigreeCardDto,
+  type PedigreeCardListDto, type PedigreeCardQuery, type PedigreeTreeDto, type TrialMatingDto, type TrialMatingInput,
+} from '@burrowline/shared';
+import { withTenant } from '../../db/tenant';
+import type { SessionUser } from '../../http/passport';
+import { AppError } from '../../lib/app-error';
+import { presentContextFor } from './animal-context';
+import { query, selectAncestorIds, selectAnimalById, selectAnimals, selectAnimalsByIds } from './animal-queries';
+import type { FieldMessages } from './animal-validation';
+import { labelOf, presentCard, presentMakeup } from './animals.presenter';
+import { loadPedigreeRows, type PedigreeRow } from './pedigree-figures';
+
+/** Pedigree cards are open to every member of the co-op (brief); another co-op's are simply not there. */
+function assertCanReadCards(actor: SessionUser) {
+  ForbiddenError.from(defineAbilityFor(actor)).throwUnlessCan('read', subjectOf('PedigreeCard', { coopId: actor.coopId }));
+}
+
+/** One animal's pedigree card, whichever farm keeps it. */
+export async function getPedigreeCard(actor: SessionUser, animalId: string): Promise<PedigreeCardDto> {
+  assertCanReadCards(actor);
+  return withTenant(actor, async (tx) => {
+    const row = await selectAnimalById(tx, actor.coopId, animalId);
+    if (!row) throw AppError.notFound('That animal');
+    return presentCard(row, await presentContextFor(actor, tx));
+  });
+}
+
+/** Cards across the co-op, for choosing a sire, a dam or bucks to try (search by name, tattoo, registration). */
+export async function listPedigreeCards(actor: SessionUser, q: PedigreeCardQuery): Promise<PedigreeCardListDto> {
+  assertCanReadCards(actor);
+  return withTenant(actor, async (tx) => {
+    const ctx = await presentContextFor(actor, tx);
+    const bind: unknown[] = [];
+    const where = ['true'];
+    const param = (value: unknown) => {
+      bind.push(value);
+      return `$${bind.length + 1}`;
+    };
+    if (q.search) {
+      const p = param(`%${q.search.replace(/[\\%_]/g, '\\$&')}%`);
+      where.push(`(a.name ILIKE ${p} OR a.tattoo ILIKE ${p} OR a.registration_number ILIKE ${p})`);
+    }
+    if (q.sex) where.push(`a.sex = ${param(q.sex)}`);
+    if (q.farmId) where.push(`a.keeping_farm_id = ${param(q.farmId)} AND a.disposition = 'on_farm'`);
+    if (q.onFarm) where.push(`NOT a.is_outside AND a.disposition = 'on_farm'`);
+    if (q.breeding) where.push(`a.lifecycle = 'breeding'`);
+    const clause = where.join(' AND ');
+    const [{ count }] = (await query<{ count: string }>(
+      tx,
+      `SELECT count(*) FROM animals a LEFT JOIN animal_breed_makeups m ON m.animal_id = a.id
+       WHERE a.coop_id = $1 AND a.deleted_at IS NULL AND (${clause})`,
+      [actor.coopId, ...bind],
+    )) as [{ count: string }];
+    const rows = await selectAnimals(tx, actor.coopId, clause, bind, {
+      orderBy: `a.is_outside, (a.name = ''), lower(a.name), a.tattoo, a.id`,
+      limit: q.pageSize,
+      offset: (q.page - 1) * q.pageSize,
+    });
+    return { items: rows.map((row) => presentCard(row, ctx)), total: Number(count), page: q.page, pageSize: q.pageSize };
+  });
+}
+
+/** The pedigree picture of any animal of the co-op: its ancestors as cards, `generations` back. */
+export async function getPedigreeTree(actor: SessionUser, animalId: string, generations: number): Promise<PedigreeTreeDto> {
+  assertCanReadCards(actor);
+  return withTenant(actor, async (tx) => {
+    const ctx = await presentContextFor(actor, tx);
+    const ids = await selectAncestorIds(tx, actor.coopId, animalId, generations);
+    const rows = await selectAnimalsByIds(tx, actor.coopId, ids);
+    if (!rows.some((r) => r.id === animalId)) throw AppError.notFound('That animal');
+    const cards: Record<string, PedigreeCardDto> = {};
+    for (const row of rows) cards[row.id] = presentCard(row, ctx);
+    const slots: (string | null)[] = new Array(2 ** (generations + 1)).fill(null);
+    slots[1] = animalId;
+    for (let k = 1; k < 2 ** generations; k++) {
+      const card = slots[k] ? cards[slots[k]!] : undefined;
+      slots[2 * k] = card?.sireId ?? null;
+      slots[2 * k + 1] = card?.damId ?? null;
+    }
+    const completeness = pedigreeCompleteness(
+      rows.map((r) => ({ id: r.id, sireId: r.sire_id, damId: r.dam_id })),
+      animalId,
+      generations,
+    );
+    return { rootId: animalId, generations, slots, cards, completeness };
+  });
+}
+
+/** Ancestors of `id` up to `depth` generations, each with the generation it is first met in. */
+function ancestorDepths(byId: Map<string, PedigreeRow>, id: string, depth: number): Map<string, number> {
+  const found = new Map<string, number>();
+  let frontier = [id];
+  for (let g = 1; g <= depth && frontier.length > 0; g++) {
+    const next: string[] = [];
+    for (const current of frontier) {
+      const row = byId.get(current);
+      for (const parent of [row?.sireId, row?.damId]) {
+        if (parent && !found.has(parent)) {
+          found.set(parent, g);
+          next.push(parent);
+        }
+      }
+    }
+    frontier = next;
+  }
+  return found;
+}
+
+/**
+ * Trial matings: this doe with each of these bucks (own or other farms'). For each litter, its COI
+ * (the kinship of the parents, over the whole co-op's pedigree), its breed make-up, and the nearest
+ * ancestors the two parents share.
+ */
+export async function trialMatings(actor: SessionUser, input: TrialMatingInput): Promise<TrialMatingDto> {
+  assertCanReadCards(actor);
+  return withTenant(actor, async (tx) => {
+    const ctx = await presentContextFor(actor, tx);
+    const sireIds = [...new Set(input.sireIds)];
+    const rows = new Map((await selectAnimalsByIds(tx, actor.coopId, [input.damId, ...sireIds])).map((r) => [r.id, r]));
+    const errors: FieldMessages = {};
+    const dam = rows.get(input.damId);
+    if (!dam) errors.damId = ['No such doe in the co-op'];
+    else if (dam.sex !== 'doe') errors.damId = [`${labelOf(dam)} is a buck; choose a doe`];
+    input.sireIds.forEach((id, i) => {
+      const sire = rows.get(id);
+      if (!sire) errors[`sireIds.${i}`] = ['No such buck in the co-op'];
+      else if (sire.sex !== 'buck') errors[`sireIds.${i}`] = [`${labelOf(sire)} is a doe; choose a buck`];
+    });
+    if (Object.keys(errors).length > 0 || !dam) throw AppError.validation(errors);
+
+    const pedigree = await loadPedigreeRows(actor.coopId, tx);
+    const byId = new Map(pedigree.map((r) => [r.id, r]));
+    // One pass each over the co-op's pedigree for all candidate bucks, not one per buck.
+    const coi = offspringInbreedingMany(pedigree, dam.id, sireIds);
+    const makeups = offspringBreedMakeupMany(pedigree, dam.id, sireIds);
+    const damAncestors = ancestorDepths(byId, dam.id, 5);
+    damAncestors.set(dam.id, 0);
+    const names = new Map<string, { name: string; tattoo: string | null }>();
+    const commonOf = (sireId: string) => {
+      const sireAncestors = ancestorDepths(byId, sireId, 5);
+      sireAncestors.set(sireId, 0);
+      const common = [...sireAncestors.keys()].filter((id) => damAncestors.has(id));
+      // Keep the nearest: drop an ancestor that is a parent of another shared one (it is behind it).
+      const isParentOf = (parent: string, child: string) => byId.get(child)?.sireId === parent || byId.get(child)?.damId === parent;
+      const nearest = common.filter((id) => !common.some((other) => other !== id && isParentOf(id, other)));
+      return nearest.sort((a, b) => sireAncestors.get(a)! + damAncestors.get(a)! - (sireAncestors.get(b)! + damAncestors.get(b)!)).slice(0, 6);
+    };
+    const litters = sireIds.map((sireId) => ({ sireId, common: commonOf(sireId) }));
+    const commonIds = [...new Set(litters.flatMap((l) => l.common))];
+    for (const row of await selectAnimalsByIds(tx, actor.coopId, commonIds)) names.set(row.id, { name: row.name, tattoo: row.tattoo });
+
+    return {
+      dam: presentCard(dam, ctx),
+      litters: litters.map(({ sireId, common }) => {
+        const makeup = makeups.get(sireId)!;
+        return {
+          sire: presentCard(rows.get(sireId)!, ctx),
+          coi: Math.min(1, Math.max(0, coi.get(sireId) ?? 0)),
+          breedMakeup: presentMakeup({ makeup_breeds: makeup.breeds, makeup_unknown: makeup.unknown, purity: makeup.purity }, ctx),
+          commonAncestors: common.map((id) => ({ id, name: names.get(id)?.name ?? '', tattoo: names.get(id)?.tattoo ?? null })),
+        };
+      }),
+    };
+  });
+}

@@ -1,0 +1,52 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import type { ReviewState } from '@burrowline/shared';
+
+/** The weight of one animal or of a group (total over head count); farm-private. */
+export class WeighIn extends Model<InferAttributes<WeighIn>, InferCreationAttributes<WeighIn>> {
+  declare id: CreationOptional<string>;
+  declare coopId: string;
+  declare farmId: string;
+  declare animalId: string | null;
+  declare groupId: CreationOptional<string | null>;
+  declare groupLabel: string | null;
+  declare totalGrams: number;
+  declare headCount: number;
+  declare weighedOn: string;
+  declare note: CreationOptional<string>;
+  declare enteredBy: string;
+  declare reviewState: ReviewState;
+  declare reviewedBy: CreationOptional<string | null>;
+  declare reviewedAt: CreationOptional<Date | null>;
+  declare reviewComment: CreationOptional<string | null>;
+  declare version: CreationOptional<number>;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+  declare deletedAt: CreationOptional<Date | null>;
+
+  static initModel(sequelize: Sequelize) {
+    WeighIn.init(
+      {
+        id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+        coopId: { type: DataTypes.UUID, allowNull: false },
+        farmId: { type: DataTypes.UUID, allowNull: false },
+        animalId: { type: DataTypes.UUID, allowNull: true },
+        groupId: { type: DataTypes.UUID, allowNull: true },
+        groupLabel: { type: DataTypes.TEXT, allowNull: true },
+        totalGrams: { type: DataTypes.INTEGER, allowNull: false },
+        headCount: { type: DataTypes.INTEGER, allowNull: false },
+        weighedOn: { type: DataTypes.DATEONLY, allowNull: false },
+        note: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
+        enteredBy: { type: DataTypes.UUID, allowNull: false },
+        reviewState: { type: DataTypes.TEXT, allowNull: false },
+        reviewedBy: { type: DataTypes.UUID, allowNull: true },
+        reviewedAt: { type: DataTypes.DATE, allowNull: true },
+        reviewComment: { type: DataTypes.TEXT, allowNull: true },
+        version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+        createdAt: DataTypes.DATE,
+        updatedAt: DataTypes.DATE,
+        deletedAt: DataTypes.DATE,
+      },
+      { sequelize, tableName: 'weigh_ins', underscored: true, version: true, paranoid: true },
+    );
+  }
+}

@@ -1,0 +1,184 @@
+import { ForbiddenError } from '@casl/ability';
+import type { Transaction } from 'sequelize';
+import {
+  defineAbilityFor, ErrorCode, subjectOf, type AnimalNoteCreateInput, type AnimalNoteDto, type EntryReviewInput,
+  type ReviewState, type WeighInCreateInput, type WeighInDto,
+} from '@burrowline/shared';
+import { withTenant } from '../../db/tenant';
+import type { SessionUser } from '../../http/passport';
+import { AppError } from '../../lib/app-error';
+import { recordChanges } from '../audit/audit.service';
+import { namesOf } from '../users/users.service';
+import { announceAfterCommit, presentContextFor } from './animal-context';
+import { AnimalNote } from './animal-note.model';
+import { Animal } from './animal.model';
+import { animalSubject } from './animals.service';
+import { WeighIn } from './weigh-in.model';
+
+/** An apprentice's entry waits for the mentor's review; a member's stands as entered. */
+function initialReviewState(actor: SessionUser): ReviewState {
+  return actor.role === 'apprentice' ? 'pending' : 'accepted';
+}
+
+function presentWeighIn(w: WeighIn, names: Map<string, string>): WeighInDto {
+  return {
+    id: w.id,
+    farmId: w.farmId,
+    animalId: w.animalId,
+    groupLabel: w.groupLabel,
+    totalGrams: w.totalGrams,
+    headCount: w.headCount,
+    gramsPerHead: Math.round(w.totalGrams / w.headCount),
+    weighedOn: w.weighedOn,
+    note: w.note,
+    enteredBy: { id: w.enteredBy, name: names.get(w.enteredBy) ?? 'Someone' },
+    reviewState: w.reviewState,
+    reviewComment: w.reviewComment,
+    version: w.version,
+  };
+}
+
+function presentNote(n: AnimalNote, names: Map<string, string>): AnimalNoteDto {
+  return {
+    id: n.id,
+    animalId: n.animalId,
+    body: n.body,
+    notedOn: n.notedOn,
+    enteredBy: { id: n.enteredBy, name: names.get(n.enteredBy) ?? 'Someone' },
+    reviewState: n.reviewState,
+    reviewComment: n.reviewComment,
+    version: n.version,
+  };
+}
+
+/**
+ * The animal an entry is about, readable by the actor and kept on their farm (the farm where it is
+ * weighed or watched). Another co-op's is 404; another farm's 403.
+ */
+async function animalOnActorsFarm(actor: SessionUser, animalId: string, tx: Transaction): Promise<Animal> {
+  const animal = await Animal.findOne({ where: { id: animalId, coopId: actor.coopId, isOutside: false }, transaction: tx });
+  if (!animal) throw AppError.notFound('That animal');
+  const ability = defineAbilityFor(actor);
+  ForbiddenError.from(ability).throwUnlessCan('read', animalSubject(animal));
+  if (animal.keepingFarmId !== actor.farmId) {
+    throw new AppError(ErrorCode.forbidden, 403, 'Only the farm keeping the animal can record this');
+  }
+  return animal;
+}
+
+/** Records a weigh-in of an animal or a group on the actor's farm. */
+export async function createWeighIn(actor: SessionUser, input: WeighInCreateInput): Promise<WeighInDto> {
+  return withTenant(actor, async (tx) => {
+    if (input.id) {
+      const existing = await WeighIn.findOne({ where: { id: input.id }, paranoid: false, transaction: tx });
+      if (existing && existing.farmId === actor.farmId && existing.enteredBy === actor.id) {
+        return presentWeighIn(existing, await namesOf([existing.enteredBy], tx));
+      }
+      if (existing) throw new AppError(ErrorCode.conflict, 409, 'That id is already taken; reload and try again');
+    }
+    const animal = input.animalId ? await animalOnActorsFarm(actor, input.animalId, tx) : null;
+    const farmId = animal?.keepingFarmId ?? actor.farmId;
+    if (!farmId) throw new AppError(ErrorCode.forbidden, 403, 'Only a member of a farm can record weights');
+    ForbiddenError.from(defineAbilityFor(actor)).throwUnlessCan('create', subjectOf('WeighIn', { coopId: actor.coopId, farmId, enteredBy: actor.id }));
+
+    const ctx = await presentContextFor(actor, tx);
+    if (input.weighedOn > ctx.today) throw AppError.validation({ weighedOn: ['A weigh-in cannot be dated in the future'] });
+    if (animal?.birthDate && input.weighedOn < animal.birthDate) throw AppError.validation({ weighedOn: ['That is before the animal was born'] });
+
+    const weighIn = await WeighIn.create(
+      {
+        ...(input.id ? { id: input.id } : {}),
+        coopId: actor.coopId,
+        farmId,
+        animalId: input.animalId ?? null,
+        groupLabel: input.groupLabel ?? null,
+        totalGrams: input.totalGrams,
+        headCount: input.headCount,
+        weighedOn: input.weighedOn,
+        note: input.note,
+        enteredBy: actor.id,
+        reviewState: initialReviewState(actor),
+      },
+      { transaction: tx },
+    );
+    announceAfterCommit(tx, actor.coopId, { farmIds: [farmId], animalId: weighIn.animalId, figuresChanged: 0 });
+    return presentWeighIn(weighIn, await namesOf([actor.id], tx));
+  });
+}
+
+/** Every weigh-in of an animal, oldest first (pending ones included, marked as such). */
+export async function listAnimalWeighIns(actor: SessionUser, animalId: string): Promise<WeighInDto[]> {
+  return withTenant(actor, async (tx) => {
+    const animal = await Animal.findOne({ where: { id: animalId, coopId: actor.coopId, isOutside: false }, transaction: tx });
+    if (!animal) throw AppError.notFound('That animal');
+    ForbiddenError.from(defineAbilityFor(actor)).throwUnlessCan('read', animalSubject(animal));
+    const rows = await WeighIn.findAll({ where: { animalId }, order: [['weighedOn', 'ASC'], ['createdAt', 'ASC']], transaction: tx });
+    const names = await namesOf(rows.map((r) => r.enteredBy), tx);
+    return rows.map((r) => presentWeighIn(r, names));
+  });
+}
+
+async function review<T extends WeighIn | AnimalNote>(
+  actor: SessionUser,
+  tx: Transaction,
+  entry: T | null,
+  subjectName: 'WeighIn' | 'AnimalNote',
+  input: EntryReviewInput,
+): Promise<T> {
+  if (!entry) throw AppError.notFound('That entry');
+  ForbiddenError.from(defineAbilityFor(actor)).throwUnlessCan('review', subjectOf(subjectName, { coopId: entry.coopId, farmId: entry.farmId, enteredBy: entry.enteredBy }));
+  if (entry.version !== input.version) throw AppError.staleVersion();
+  if (entry.reviewState !== 'pending') throw new AppError(ErrorCode.conflict, 409, 'That entry was already reviewed');
+  if (entry.enteredBy === actor.id) throw new AppError(ErrorCode.forbidden, 403, 'Someone else reviews your own entries');
+  entry.reviewState = input.decision;
+  entry.reviewedBy = actor.id;
+  entry.reviewedAt = new Date();
+  entry.reviewComment = input.comment ?? null;
+  await entry.save({ transaction: tx });
+  await recordChanges(
+    {
+      coopId: actor.coopId,
+      tableName: subjectName === 'WeighIn' ? 'weigh_ins' : 'animal_notes',
+      recordId: entry.id,
+      actorUserId: actor.id,
+      changes: { reviewState: ['pending', input.decision] },
+    },
+    tx,
+  );
+  announceAfterCommit(tx, actor.coopId, { farmIds: [entry.farmId], animalId: entry.animalId, figuresChanged: 0 });
+  return entry;
+}
+
+/** The mentor (a member of the farm) accepts or returns an apprentice's weigh-in. */
+export async function reviewWeighIn(actor: SessionUser, weighInId: string, input: EntryReviewInput): Promise<WeighInDto> {
+  return withTenant(actor, async (tx) => {
+    const entry = await WeighIn.findOne({ where: { id: weighInId, coopId: actor.coopId }, transaction: tx, lock: tx.LOCK.UPDATE });
+    const reviewed = await review(actor, tx, entry, 'WeighIn', input);
+    return presentWeighIn(reviewed, await namesOf([reviewed.enteredBy], tx));
+  });
+}
+
+/** A dated note about an animal on the actor's farm; an apprentice's waits for review. */
+export async function createAnimalNote(actor: SessionUser, animalId: string, input: AnimalNoteCreateInput): Promise<AnimalNoteDto> {
+  return withTenant(actor, async (tx) => {
+    const animal = await animalOnActorsFarm(actor, animalId, tx);
+    const farmId = animal.keepingFarmId!;
+    ForbiddenError.from(defineAbilityFor(actor)).throwUnlessCan('create', subjectOf('AnimalNote', { coopId: actor.coopId, farmId, enteredBy: actor.id }));
+    const ctx = await presentContextFor(actor, tx);
+    if (input.notedOn > ctx.today) throw AppError.validation({ notedOn: ['A note cannot be dated in the future'] });
+    const note = await AnimalNote.create(
+      { coopId: actor.coopId, farmId, animalId, body: input.body, notedOn: input.notedOn, enteredBy: actor.id, reviewState: initialReviewState(actor) },
+      { transaction: tx },
+    );
+    announceAfterCommit(tx, actor.coopId, { farmIds: [farmId], animalId, figuresChanged: 0 });
+    return presentNote(note, await namesOf([actor.id], tx));
+  });
+}
+
+export async function reviewAnimalNote(actor: SessionUser, noteId: string, input: EntryReviewInput): Promise<AnimalNoteDto> {
+  return withTenant(actor, async (tx) => {
+    const entry = await AnimalNote.findOne({ where: { id: noteId, coopId: actor.coopId }, transaction: tx, lock: tx.LOCK.UPDATE });
+    const reviewed = await review(actor, tx, entry, 'AnimalNote', input);
+    return presentNote(reviewed, await namesOf([reviewed.enteredBy], tx));
+  });
+}

@@ -1,0 +1,90 @@
+import { createHash } from 'node:crypto';
+import { parse, CsvError } from 'csv-parse/sync';
+import { fileTypeFromBuffer } from 'file-type';
+import { ErrorCode, type ImportRecord } from '@burrowline/shared';
+import { AppError } from '../../lib/app-error';
+
+export interface ReadCsv {
+  checksum: string;
+  hadByteOrderMark: boolean;
+  header: string[];
+  records: ImportRecord[];
+}
+
+const UTF8_BOM = [0xef, 0xbb, 0xbf];
+
+function refuse(message: string, status = 400, code: (typeof ErrorCode)[keyof typeof ErrorCode] = ErrorCode.validation): AppError {
+  return new AppError(code, status, message, { file: [message] });
+}
+
+function startsWith(buffer: Buffer, bytes: number[]): boolean {
+  return bytes.every((byte, i) => buffer[i] === byte);
+}
+
+/**
+ * Turns an uploaded file into the header and the data rows of a CSV, or refuses it with a message
+ * that says what it is instead: empty, a spreadsheet or other binary file (told by its signature),
+ * UTF-16, not UTF-8, not valid CSV (an unclosed quote, with its line), or too many rows. UTF-8 with
+ * or without a byte-order mark reads the same. Semicolon-separated files (a spreadsheet's export in
+ * some locales) are read too.
+ */
+export async function readHerdCsv(buffer: Buffer, opts: { maxRows: number }): Promise<ReadCsv> {
+  const checksum = createHash('sha256').update(buffer).digest('hex');
+  if (buffer.length === 0) throw refuse('The file is empty');
+  if (startsWith(buffer, [0xff, 0xfe]) || startsWith(buffer, [0xfe, 0xff])) {
+    throw refuse('The file is saved as UTF-16 text; save it as CSV (UTF-8) and upload it again.', 415, ErrorCode.unsupportedFile);
+  }
+  const detected = await fileTypeFromBuffer(buffer);
+  if (detected) {
+    const spreadsheet = ['xlsx', 'xls', 'ods', 'cfb', 'zip'].includes(detected.ext);
+    throw refuse(
+      spreadsheet
+        ? `This is a spreadsheet workbook (${detected.ext.toUpperCase()}), not a CSV file. In your spreadsheet choose "Save as" or "Download" → CSV (UTF-8), then upload that.`
+        : `This is a ${detected.ext.toUpperCase()} file, not a CSV file. Upload the herd as CSV (UTF-8) text.`,
+      415,
+      ErrorCode.unsupportedFile,
+    );
+  }
+  if (buffer.includes(0)) throw refuse('This is not a text file, so not a CSV file. Upload the herd as CSV (UTF-8) text.', 415, ErrorCode.unsupportedFile);
+  const hadByteOrderMark = startsWith(buffer, UTF8_BOM);
+  let text: string;
+  try {
+    text = new TextDecoder('utf-8', { fatal: true, ignoreBOM: false }).decode(buffer);
+  } catch {
+    throw refuse('The file is not UTF-8 text (perhaps Windows-1252 or Latin-1). In your spreadsheet save it as "CSV UTF-8" and upload it again.', 415, ErrorCode.unsupportedFile);
+  }
+  const firstLine = text.slice(0, text.search(/\r?\n|$/));
+  const delimiter = !firstLine.includes(',') && firstLine.includes(';') ? ';' : firstLine.includes(',') ? ',' : firstLine.includes('\t') ? '\t' : ',';
+
+  let parsed: { record: string[]; info: { lines: number; raw?: string } }[];
+  try {
+    parsed = parse(text, {
+      bom: true,
+      delimiter,
+      info: true,
+      raw: true,
+      relax_column_count: true,
+      skip_empty_lines: true,
+      trim: true,
+    }) as unknown as typeof parsed;
+  } catch (error) {
+    if (error instanceof CsvError) {
+      const line = (error as CsvError & { lines?: number }).lines;
+      const where = line ? ` near line ${line}` : '';
+      const what = error.code === 'CSV_QUOTE_NOT_CLOSED' ? 'a quoted cell is never closed' : 'a quote is misplaced';
+      throw refuse(`The file is not valid CSV${where}: ${what}. Check the quotes (") in that line, or save the file again from your spreadsheet as CSV.`);
+    }
+    throw error;
+  }
+  const [first, ...rest] = parsed;
+  if (!first) throw refuse('The file has no lines; its first line must name the columns tattoo,name,sex,breed,born,sire,dam');
+  if (rest.length > opts.maxRows) {
+    throw refuse(`The file has ${rest.length.toLocaleString('en-US')} rows; import at most ${opts.maxRows.toLocaleString('en-US')} at a time (split the file).`, 413, ErrorCode.payloadTooLarge);
+  }
+  // `info.lines` is where a record ends; a quoted cell may span lines, so count back to where it starts.
+  const records = rest.map(({ record, info }) => ({
+    line: info.lines - ((info.raw ?? '').replace(/\r?\n$/, '').match(/\n/g)?.length ?? 0),
+    cells: record,
+  }));
+  return { checksum, hadByteOrderMark, header: first.record, records };
+}

@@ -1,0 +1,151 @@
+import { col, fn, Op, where, type Transaction } from 'sequelize';
+import {
+  ErrorCode, RealtimeEvent, rooms, type HousingPlacementDto, type HousingUnitCreateInput, type HousingUnitDto,
+  type PlacementCreateInput, type PlacementEndInput,
+} from '@burrowline/shared';
+import { withTenant } from '../../db/tenant';
+import type { SessionUser } from '../../http/passport';
+import { AppError } from '../../lib/app-error';
+import { publish } from '../../lib/realtime';
+import { addMessage, ensureCan, farmOf, type FieldMessages } from '../almanac/almanac-access';
+import { farmClockOf } from '../almanac/almanac-context';
+import { presentAnimalRef } from '../almanac/almanac.presenter';
+import { presentContextOf } from '../almanac/tasks.service';
+import { HousingPlacement } from './housing-placement.model';
+import { HousingUnit } from './housing-unit.model';
+import { Litter } from './litter.model';
+
+function announceHousing(tx: Transaction, farmId: string) {
+  tx.afterCommit(() => publish(rooms.farm(farmId), RealtimeEvent.almanacChanged, { farmId }));
+}
+
+async function present(tx: Transaction, coopId: string, today: string, units: HousingUnit[]): Promise<HousingUnitDto[]> {
+  const placements = await HousingPlacement.findAll({
+    where: { unitId: { [Op.in]: units.map((u) => u.id) }, endedOn: { [Op.is]: null } },
+    order: [['placedOn', 'ASC']],
+    transaction: tx,
+  });
+  const litters = await Litter.findAll({ where: { id: { [Op.in]: placements.map((p) => p.litterId).filter((id): id is string => Boolean(id)) } }, transaction: tx });
+  const ctx = await presentContextOf(tx, coopId, today, { animalIds: [...placements.map((p) => p.animalId), ...litters.map((l) => l.damId)] });
+  const placementDto = (p: HousingPlacement): HousingPlacementDto => {
+    const litter = litters.find((l) => l.id === p.litterId);
+    return {
+      id: p.id,
+      unitId: p.unitId,
+      animal: p.animalId ? presentAnimalRef(p.animalId, ctx) : null,
+      litter: litter ? { id: litter.id, dam: presentAnimalRef(litter.damId, ctx), kindledOn: litter.kindledOn } : null,
+      placedOn: p.placedOn,
+      endedOn: p.endedOn,
+      note: p.note,
+    };
+  };
+  return units.map((u) => ({
+    id: u.id,
+    farmId: u.farmId,
+    name: u.name,
+    kind: u.kind,
+    capacity: u.capacity,
+    notes: u.notes,
+    current: placements.filter((p) => p.unitId === u.id).map(placementDto),
+    version: u.version,
+  }));
+}
+
+/** The farm's hutches and pens with who is in each now. */
+export async function listHousingUnits(actor: SessionUser): Promise<HousingUnitDto[]> {
+  const farmId = farmOf(actor);
+  ensureCan(actor, 'read', 'HousingUnit', { farmId }, 'That housing');
+  return withTenant(actor, async (tx) => {
+    const clock = await farmClockOf(tx, actor.coopId, farmId);
+    const units = await HousingUnit.findAll({ where: { farmId }, order: [['name', 'ASC']], transaction: tx });
+    return present(tx, actor.coopId, clock.today, units);
+  });
+}
+
+export async function createHousingUnit(actor: SessionUser, input: HousingUnitCreateInput): Promise<HousingUnitDto> {
+  const farmId = farmOf(actor);
+  ensureCan(actor, 'create', 'HousingUnit', { farmId }, 'That housing', 'Only members of the farm set up its hutches and pens');
+  return withTenant(actor, async (tx) => {
+    const clock = await farmClockOf(tx, actor.coopId, farmId);
+    const taken = await HousingUnit.count({ where: { farmId, [Op.and]: [where(fn('lower', col('name')), input.name.toLowerCase())] }, transaction: tx });
+    if (taken > 0) throw AppError.validation({ name: [`The farm already has a ${input.name}`] });
+    const unit = await HousingUnit.create({ coopId: actor.coopId, farmId, ...input }, { transaction: tx });
+    announceHousing(tx, farmId);
+    return (await present(tx, actor.coopId, clock.today, [unit]))[0]!;
+  });
+}
+
+/**
+ * Puts an animal the farm keeps, or one of its litters, into a hutch or pen from a date; its previous
+ * placement ends that day (one current place each).
+ */
+export async function placeInUnit(actor: SessionUser, unitId: string, input: PlacementCreateInput): Promise<HousingUnitDto> {
+  const farmId = farmOf(actor);
+  return withTenant(actor, async (tx) => {
+    const unit = await HousingUnit.findOne({ where: { id: unitId, coopId: actor.coopId }, transaction: tx, lock: tx.LOCK.UPDATE });
+    if (!unit || unit.farmId !== farmId) throw AppError.notFound('That hutch or pen');
+    ensureCan(actor, 'update', 'HousingUnit', { farmId }, 'That hutch or pen', 'Only members of the farm move animals between hutches');
+    const clock = await farmClockOf(tx, actor.coopId, farmId);
+    const errors: FieldMessages = {};
+    if (input.placedOn > clock.today) addMessage(errors, 'placedOn', `${input.placedOn} is in the future (today is ${clock.today})`);
+    if (input.animalId) {
+      const ctx = await presentContextOf(tx, actor.coopId, clock.today, { animalIds: [input.animalId] });
+      const animal = ctx.animals.get(input.animalId);
+      if (!animal || animal.isOutside || animal.keepingFarmId !== farmId || animal.disposition !== 'on_farm') addMessage(errors, 'animalId', 'Choose an animal your farm keeps');
+    }
+    if (input.litterId) {
+      const litter = await Litter.findOne({ where: { id: input.litterId, farmId }, transaction: tx });
+      if (!litter) addMessage(errors, 'litterId', 'Choose a litter of your farm');
+      else if (input.placedOn < litter.kindledOn) addMessage(errors, 'placedOn', 'That is before the litter was born');
+    }
+    const previous = await HousingPlacement.findOne({
+      where: { endedOn: { [Op.is]: null }, ...(input.animalId ? { animalId: input.animalId } : { litterId: input.litterId! }) },
+      transaction: tx,
+      lock: tx.LOCK.UPDATE,
+    });
+    if (previous?.unitId === unitId) addMessage(errors, input.animalId ? 'animalId' : 'litterId', `Already in ${unit.name}`);
+    if (previous && input.placedOn < previous.placedOn) addMessage(errors, 'placedOn', `It moved into its current place on ${previous.placedOn}; a new move comes after that`);
+    if (Object.keys(errors).length > 0) throw AppError.validation(errors);
+    if (unit.capacity !== null) {
+      const occupied = await HousingPlacement.count({ where: { unitId, endedOn: { [Op.is]: null } }, transaction: tx });
+      if (occupied >= unit.capacity) throw new AppError(ErrorCode.conflict, 409, `${unit.name} is full (${unit.capacity} places)`);
+    }
+    if (previous) {
+      previous.endedOn = input.placedOn;
+      await previous.save({ transaction: tx });
+    }
+    await HousingPlacement.create(
+      { coopId: actor.coopId, farmId, unitId, animalId: input.animalId ?? null, litterId: input.litterId ?? null, placedOn: input.placedOn, note: input.note, recordedBy: actor.id },
+      { transaction: tx },
+    );
+    announceHousing(tx, farmId);
+    return (await present(tx, actor.coopId, clock.today, [unit]))[0]!;
+  });
+}
+
+/** Ends a placement (the animal left the hutch: sold, processed, or moved out of any unit). */
+export async function endPlacement(actor: SessionUser, placementId: string, input: PlacementEndInput): Promise<HousingUnitDto> {
+  const farmId = farmOf(actor);
+  return withTenant(actor, async (tx) => {
+    const placement = await HousingPlacement.findOne({ where: { id: placementId, coopId: actor.coopId }, transaction: tx, lock: tx.LOCK.UPDATE });
+    if (!placement || placement.farmId !== farmId) throw AppError.notFound('That placement');
+    ensureCan(actor, 'update', 'HousingUnit', { farmId }, 'That placement', 'Only members of the farm move animals between hutches');
+    if (placement.endedOn) throw new AppError(ErrorCode.conflict, 409, 'That placement has ended already');
+    const clock = await farmClockOf(tx, actor.coopId, farmId);
+    if (input.endedOn > clock.today) throw AppError.validation({ endedOn: [`${input.endedOn} is in the future (today is ${clock.today})`] });
+    if (input.endedOn < placement.placedOn) throw AppError.validation({ endedOn: [`It was placed there on ${placement.placedOn}`] });
+    placement.endedOn = input.endedOn;
+    await placement.save({ transaction: tx });
+    announceHousing(tx, farmId);
+    const unit = await HousingUnit.findByPk(placement.unitId, { transaction: tx });
+    return (await present(tx, actor.coopId, clock.today, [unit!]))[0]!;
+  });
+}
+
+/** Where a litter is housed now (for its page). */
+export async function currentHousingOfLitter(tx: Transaction, litterId: string): Promise<{ unitId: string; unitName: string; placedOn: string } | null> {
+  const placement = await HousingPlacement.findOne({ where: { litterId, endedOn: { [Op.is]: null } }, transaction: tx });
+  if (!placement) return null;
+  const unit = await HousingUnit.findByPk(placement.unitId, { transaction: tx });
+  return { unitId: placement.unitId, unitName: unit?.name ?? '', placedOn: placement.placedOn };
+}

@@ -1,0 +1,4 @@
+export * from './cycle-settings';
+export * from './plan';
+export * from './litter-count';
+export * from './validate';

@@ -1,0 +1,5 @@
+export * from './adg';
+export * from './gompertz';
+export * from './projection';
+export * from './plausibility';
+export { studentTQuantile, studentTCdf } from './stats';

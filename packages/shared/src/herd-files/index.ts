@@ -1,0 +1,3 @@
+export * from './csv-columns';
+export * from './import-check';
+export * from './herd-files-dto';

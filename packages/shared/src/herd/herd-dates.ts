@@ -1,0 +1,49 @@
+/**
+ * Calendar dates as the trade uses them: plain `YYYY-MM-DD` strings in the farm's own time zone, so a
+ * kindling at 11 pm is never moved to the next day by a server clock elsewhere.
+ */
+
+const isoDate = /^(\d{4})-(\d{2})-(\d{2})$/;
+
+function parts(date: string): [number, number, number] {
+  const match = isoDate.exec(date);
+  if (!match) throw new RangeError(`Not a YYYY-MM-DD date: ${date}`);
+  return [Number(match[1]), Number(match[2]), Number(match[3])];
+}
+
+function toUtcMs(date: string): number {
+  const [y, m, d] = parts(date);
+  return Date.UTC(y, m - 1, d);
+}
+
+function fromUtcMs(ms: number): string {
+  return new Date(ms).toISOString().slice(0, 10);
+}
+
+/** Today in an IANA time zone, e.g. `todayIn('America/Chicago')` → "2025-04-30". */
+export function todayIn(timeZone: string, now: Date = new Date()): string {
+  const formatted = new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(now);
+  return formatted;
+}
+
+/** Whole days from `from` to `to` (negative when `to` is earlier). */
+export function daysBetween(from: string, to: string): number {
+  return Math.round((toUtcMs(to) - toUtcMs(from)) / 86_400_000);
+}
+
+export function addDays(date: string, days: number): string {
+  return fromUtcMs(toUtcMs(date) + days * 86_400_000);
+}
+
+/** Calendar months later; the 31st of a short month falls on its last day (Jan 31 + 1 → Feb 28/29). */
+export function addMonths(date: string, months: number): string {
+  const [y, m, d] = parts(date);
+  const firstOfTarget = new Date(Date.UTC(y, m - 1 + months, 1));
+  const lastDay = new Date(Date.UTC(firstOfTarget.getUTCFullYear(), firstOfTarget.getUTCMonth() + 1, 0)).getUTCDate();
+  return fromUtcMs(Date.UTC(firstOfTarget.getUTCFullYear(), firstOfTarget.getUTCMonth(), Math.min(d, lastDay)));
+}
+
+export function isIsoDate(value: string): boolean {
+  if (!isoDate.test(value)) return false;
+  return fromUtcMs(toUtcMs(value)) === value;
+}

@@ -1,0 +1,110 @@
+import { z } from 'zod';
+import { sexes } from '../herd/herd-enums';
+import { calendarDateSchema, tattooSchema } from './animal.schema';
+
+/**
+ * Inputs for litters (issue 6). A litter's kit count is never typed in: the kindling gives born alive and
+ * born dead, and every later change is a dated event (lost with a cause, culled, weaned, fostered in or
+ * out naming the other litter). Counts are whole numbers, 0 or more for the kindling, at least 1 for an
+ * event; the checks that need the litter's history (more kits leaving than were with the doe, a date
+ * before the kindling or in the farm's future) run on the server with the shared litter-count rules.
+ */
+
+const idSchema = (what: string) => z.uuid({ message: `${what} is not a valid id` });
+const noteText = (max: number) => z.string().trim().max(max, `Keep it under ${max.toLocaleString('en-US')} characters`);
+
+const kitCount = (what: string, min: number) =>
+  z
+    .number({ message: `${what}: enter a number of kits` })
+    .int(`${what}: whole kits only`)
+    .min(min, min === 0 ? `${what} cannot be negative` : `${what}: at least ${min} kit`)
+    .max(30, `${what}: more than 30 kits is not a rabbit litter; check the number`);
+
+/** The kindling: which service it came from (so sire and dam are fixed), the date, born alive and dead. */
+export const kindlingCreateSchema = z.strictObject({
+  id: idSchema('The litter').optional(),
+  serviceId: idSchema('The service'),
+  kindledOn: calendarDateSchema,
+  bornAlive: kitCount('Born alive', 0),
+  bornDead: kitCount('Born dead', 0),
+  notes: noteText(1000).default(''),
+  /** Set on a resubmit after a warning (outside the kindling window), to save anyway. */
+  confirm: z.boolean().optional(),
+});
+export type KindlingCreateInput = z.infer<typeof kindlingCreateSchema>;
+export type KindlingCreateBody = z.input<typeof kindlingCreateSchema>;
+
+/** Kits leaving the doe without another litter: lost (with a cause), culled, weaned. */
+export const litterEventCreateSchema = z
+  .strictObject({
+    id: idSchema('The event').optional(),
+    kind: z.enum(['lost', 'culled', 'weaned'], { message: 'Choose lost, culled or weaned' }),
+    on: calendarDateSchema,
+    count: kitCount('Kits', 1),
+    cause: noteText(200).optional(),
+  })
+  .superRefine((v, ctx) => {
+    if (v.kind === 'lost' && !v.cause?.trim()) {
+      ctx.addIssue({ code: 'custom', path: ['cause'], message: 'Say what happened (cause unknown is a cause)' });
+    }
+  });
+export type LitterEventCreateInput = z.infer<typeof litterEventCreateSchema>;
+
+/**
+ * Kits moved to another doe's litter, or taken in from one. The other litter may be on another farm of
+ * the co-op; then only the giving farm records it ("out"), and the other farm sees the kits arrive.
+ * Fostering never changes parentage: the kits stay the offspring of the litter they were born in.
+ */
+export const fosteringCreateSchema = z.strictObject({
+  id: idSchema('The fostering').optional(),
+  direction: z.enum(['out', 'in'], { message: 'Fostered out of this litter, or in from the other?' }),
+  otherLitterId: idSchema('The other litter'),
+  on: calendarDateSchema,
+  count: kitCount('Kits', 1),
+});
+export type FosteringCreateInput = z.infer<typeof fosteringCreateSchema>;
+
+/** A kit picked to keep: its own animal record with its tattoo; sire, dam and birth date come from the litter it was born in. */
+export const keeperCreateSchema = z.strictObject({
+  id: idSchema('The animal').optional(),
+  tattoo: tattooSchema,
+  name: z.string().trim().max(60, 'Keep the name under 60 characters').default(''),
+  sex: z.enum(sexes, { message: 'Choose buck or doe' }),
+  colour: z.string().trim().max(60, 'Keep the colour under 60 characters').default(''),
+  /** When the kit was fostered in: the litter it was born in (its parentage). Default: this litter. */
+  bornInLitterId: idSchema('The litter it was born in').optional(),
+});
+export type KeeperCreateInput = z.infer<typeof keeperCreateSchema>;
+
+export const litterListQuerySchema = z.strictObject({
+  status: z.enum(['nursing', 'weaned', 'all']).default('all'),
+  limit: z.coerce.number().int().min(1).max(500).default(100),
+});
+export type LitterListQuery = z.infer<typeof litterListQuerySchema>;
+
+/** Hutches and pens: where animals and litters are housed (later issues allocate feed by pen). */
+export const housingKinds = ['hutch', 'pen', 'colony', 'grow_out'] as const;
+export type HousingKind = (typeof housingKinds)[number];
+
+export const housingUnitCreateSchema = z.strictObject({
+  name: z.string().trim().min(1, 'Name the hutch or pen').max(40, 'Keep the name under 40 characters'),
+  kind: z.enum(housingKinds, { message: 'Choose hutch, pen, colony or grow-out pen' }),
+  capacity: z.number().int().min(1, 'At least one place').max(200).nullable().default(null),
+  notes: noteText(500).default(''),
+});
+export type HousingUnitCreateInput = z.infer<typeof housingUnitCreateSchema>;
+
+export const placementCreateSchema = z
+  .strictObject({
+    animalId: idSchema('The animal').optional(),
+    litterId: idSchema('The litter').optional(),
+    placedOn: calendarDateSchema,
+    note: noteText(200).default(''),
+  })
+  .superRefine((v, ctx) => {
+    if (!v.animalId === !v.litterId) ctx.addIssue({ code: 'custom', path: ['animalId'], message: 'Place one animal or one litter' });
+  });
+export type PlacementCreateInput = z.infer<typeof placementCreateSchema>;
+
+export const placementEndSchema = z.strictObject({ endedOn: calendarDateSchema });
+export type PlacementEndInput = z.infer<typeof placementEndSchema>;

@@ -1,0 +1,38 @@
+import { z } from 'zod';
+import { calendarDateSchema } from './animal.schema';
+
+/** A weigh-in of one animal (head count 1) or of a group (a litter, a pen) as a total over a head count. */
+export const weighInCreateSchema = z
+  .strictObject({
+    id: z.uuid({ message: 'Not a valid id' }).optional(),
+    animalId: z.uuid({ message: 'The animal is not a valid id' }).optional(),
+    groupLabel: z.string().trim().min(1, 'Name the group').max(60, 'Keep the group name under 60 characters').optional(),
+    totalGrams: z
+      .number({ message: 'Enter the weight' })
+      .int('Weights are whole grams')
+      .min(1, 'Enter a weight above zero')
+      .max(1_000_000, 'That is more than a tonne; check the weight'),
+    headCount: z.number().int().min(1, 'At least one head').max(500).default(1),
+    weighedOn: calendarDateSchema,
+    note: z.string().trim().max(500).default(''),
+  })
+  .superRefine((v, ctx) => {
+    if (!v.animalId && !v.groupLabel) ctx.addIssue({ code: 'custom', path: ['animalId'], message: 'Weigh an animal or name a group' });
+    if (v.animalId && v.groupLabel) ctx.addIssue({ code: 'custom', path: ['groupLabel'], message: 'An animal or a group, not both' });
+    if (v.animalId && v.headCount !== 1) ctx.addIssue({ code: 'custom', path: ['headCount'], message: 'One animal is one head' });
+  });
+export type WeighInCreateInput = z.infer<typeof weighInCreateSchema>;
+
+/** The mentor's decision on an apprentice's entry. */
+export const entryReviewSchema = z.strictObject({
+  decision: z.enum(['accepted', 'returned'], { message: 'Accept or return it' }),
+  comment: z.string().trim().max(500).optional(),
+  version: z.number().int().min(0),
+});
+export type EntryReviewInput = z.infer<typeof entryReviewSchema>;
+
+export const animalNoteCreateSchema = z.strictObject({
+  body: z.string().trim().min(1, 'Write the note').max(2000, 'Keep the note under 2,000 characters'),
+  notedOn: calendarDateSchema,
+});
+export type AnimalNoteCreateInput = z.infer<typeof animalNoteCreateSchema>;
