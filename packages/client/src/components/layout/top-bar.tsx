@@ -1,36 +1,22 @@
-import { CalendarDays, LogOut, Rabbit, ShieldCheck, Tent, Warehouse } from 'lucide-react';
-import type { ReactNode } from 'react';
+import { CalendarDays, LogOut, Rabbit, ShieldCheck, Tent, Warehouse, type LucideIcon } from 'lucide-react';
 import { Link, NavLink } from 'react-router-dom';
 import { CountBadge } from '../ui/badge';
 import { BrandMark } from '../ui/brand-mark';
 import { Button } from '../ui/button';
 
-function NavItem({ to, end, icon, children, badge }: { to: string; end?: boolean; icon: ReactNode; children: string; badge?: ReactNode }) {
-  return (
-    <li>
-      <NavLink
-        to={to}
-        end={end}
-        className={({ isActive }) =>
-          [
-            'inline-flex min-h-11 items-center gap-2 rounded-lg px-2.5 font-medium whitespace-nowrap focus-visible:outline-straw sm:px-3',
-            isActive ? 'bg-straw text-bark' : 'text-oat hover:bg-moss-deep',
-          ].join(' ')
-        }
-      >
-        {icon}
-        {children}
-        {badge}
-      </NavLink>
-    </li>
-  );
+interface Area {
+  to: string;
+  label: string;
+  icon: LucideIcon;
+  end?: boolean;
+  badge?: { count: number; label: string };
 }
 
 interface TopBarProps {
   coopName: string;
   personName: string;
   roleLabel: string;
-  /** Absent for someone not attached to a farm: then there is no "My farm" to link to. */
+  /** Absent for someone not attached to a farm: then there is no farm, herd or Almanac to link to. */
   farmId: string | null;
   onSignOut: () => void;
   isSigningOut: boolean;
@@ -38,66 +24,100 @@ interface TopBarProps {
   admin?: { unreadApplications: number };
 }
 
-/** Wraps to two rows on a phone (co-op and account, then the areas) so nothing scrolls sideways. */
+// Whole class names, so Tailwind sees them when it scans this file.
+const columns: Record<number, string> = { 1: 'grid-cols-1', 2: 'grid-cols-2', 3: 'grid-cols-3', 4: 'grid-cols-4', 5: 'grid-cols-5' };
+
+function areasFor({ farmId, admin }: Pick<TopBarProps, 'farmId' | 'admin'>): Area[] {
+  const areas: Area[] = [{ to: '/', label: 'Commons', icon: Tent, end: true }];
+  if (farmId) {
+    areas.push({ to: '/herd', label: 'Herd', icon: Rabbit });
+    areas.push({ to: '/almanac', label: 'Almanac', icon: CalendarDays });
+    areas.push({ to: `/farms/${farmId}`, label: 'My farm', icon: Warehouse });
+  }
+  if (admin) areas.push({ to: '/admin', label: 'Admin', icon: ShieldCheck, badge: { count: admin.unreadApplications, label: 'new applications' } });
+  return areas;
+}
+
+/**
+ * Wide screens: one bar with the areas in it. Phones and tablets: the co-op and sign-out on top and
+ * the areas in a tab bar at the bottom, where a thumb reaches them with gloves on.
+ */
 export function TopBar({ coopName, personName, roleLabel, farmId, onSignOut, isSigningOut, admin }: TopBarProps) {
+  const areas = areasFor({ farmId, admin });
   return (
-    <header className="bg-moss text-oat">
-      <a
-        href="#main"
-        className="sr-only focus:not-sr-only focus:absolute focus:top-2 focus:left-2 focus:z-10 focus:rounded-lg focus:bg-straw focus:px-4 focus:py-3 focus:text-bark"
-      >
-        Skip to content
-      </a>
-      {/* Phone: co-op and sign-out on one row, areas and person on the next. Wide: all on one row. */}
-      <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-3 gap-y-1 px-4 py-2 sm:gap-x-6">
-        <Link to="/" className="order-1 flex min-h-11 min-w-0 flex-1 items-center gap-2.5 rounded-lg focus-visible:outline-straw sm:flex-none">
-          <BrandMark withName={false} onMoss />
-          <span className="min-w-0 text-lg leading-tight font-bold">{coopName}</span>
-        </Link>
-        {/* Icon-only on a phone, but always named "Sign out" for assistive tech. */}
-        <Button variant="on-moss" className="order-2 min-w-11 px-3 sm:order-4 sm:px-4" onClick={onSignOut} isBusy={isSigningOut}>
-          {!isSigningOut && <LogOut className="size-5" aria-hidden="true" />}
-          <span className="sr-only sm:not-sr-only">Sign out</span>
-        </Button>
-        <div className="order-3 flex w-full items-center justify-between gap-3 sm:contents">
-          {/* The areas wrap onto a second line on a narrow phone rather than push the page sideways. */}
-          <nav aria-label="Main" className="min-w-0 sm:order-2">
-            <ul className="flex flex-wrap gap-1">
-              <NavItem to="/" end icon={<Tent className="hidden size-5 sm:block" aria-hidden="true" />}>
-                Commons
-              </NavItem>
-              {farmId && (
-                <NavItem to={`/farms/${farmId}`} icon={<Warehouse className="hidden size-5 sm:block" aria-hidden="true" />}>
-                  My farm
-                </NavItem>
-              )}
-              {farmId && (
-                <NavItem to="/herd" icon={<Rabbit className="hidden size-5 sm:block" aria-hidden="true" />}>
-                  Herd
-                </NavItem>
-              )}
-              {farmId && (
-                <NavItem to="/almanac" icon={<CalendarDays className="hidden size-5 sm:block" aria-hidden="true" />}>
-                  Almanac
-                </NavItem>
-              )}
-              {admin && (
-                <NavItem
-                  to="/admin"
-                  icon={<ShieldCheck className="hidden size-5 sm:block" aria-hidden="true" />}
-                  badge={<CountBadge count={admin.unreadApplications} label="new applications" />}
-                >
-                  Admin
-                </NavItem>
-              )}
+    <>
+      <header className="bg-moss text-oat">
+        <a
+          href="#main"
+          className="sr-only focus:not-sr-only focus:absolute focus:top-2 focus:left-2 focus:z-10 focus:rounded-lg focus:bg-straw focus:px-4 focus:py-3 focus:text-bark"
+        >
+          Skip to content
+        </a>
+        <div className="mx-auto flex max-w-6xl items-center gap-3 px-4 py-2 lg:gap-6">
+          <Link to="/" className="flex min-h-11 min-w-0 flex-1 items-center gap-2.5 rounded-lg focus-visible:outline-straw lg:flex-none">
+            <BrandMark withName={false} onMoss />
+            <span className="min-w-0 truncate text-lg leading-tight font-bold lg:max-w-56">{coopName}</span>
+          </Link>
+          <nav aria-label="Main" className="hidden min-w-0 lg:block">
+            <ul className="flex gap-1">
+              {areas.map((area) => (
+                <li key={area.to}>
+                  <NavLink
+                    to={area.to}
+                    end={area.end}
+                    className={({ isActive }) =>
+                      [
+                        'inline-flex min-h-11 items-center gap-2 rounded-lg px-3 font-medium whitespace-nowrap focus-visible:outline-straw',
+                        isActive ? 'bg-straw text-bark' : 'text-oat hover:bg-moss-deep',
+                      ].join(' ')
+                    }
+                  >
+                    <area.icon className="size-5" aria-hidden="true" />
+                    {area.label}
+                    {area.badge && <CountBadge count={area.badge.count} label={area.badge.label} />}
+                  </NavLink>
+                </li>
+              ))}
             </ul>
           </nav>
-          <p className="min-w-0 text-right leading-tight sm:order-3 sm:ml-auto">
-            <span className="block max-w-32 truncate font-medium sm:max-w-56">{personName}</span>
+          {/* The areas need the room on a laptop; the name comes back on a wide screen. */}
+          <p className="hidden min-w-0 text-right leading-tight sm:block lg:hidden 2xl:ml-auto 2xl:block">
+            <span className="block max-w-48 truncate font-medium">{personName}</span>
             <span className="block text-sm text-oat/85">{roleLabel}</span>
           </p>
+          {/* Icon-only on a phone, but always named "Sign out" for assistive tech. */}
+          <Button variant="on-moss" className="min-w-11 shrink-0 px-3 sm:px-4 lg:ml-auto 2xl:ml-0" onClick={onSignOut} isBusy={isSigningOut} title={`Signed in as ${personName} (${roleLabel})`}>
+            {!isSigningOut && <LogOut className="size-5" aria-hidden="true" />}
+            <span className="sr-only sm:not-sr-only">Sign out</span>
+          </Button>
         </div>
-      </div>
-    </header>
+      </header>
+      <nav aria-label="Main" className="fixed inset-x-0 bottom-0 z-20 border-t border-moss-deep bg-moss pb-[env(safe-area-inset-bottom)] text-oat lg:hidden">
+        <ul className={`mx-auto grid max-w-xl ${columns[areas.length] ?? 'grid-cols-5'}`}>
+          {areas.map((area) => (
+            <li key={area.to}>
+              <NavLink
+                to={area.to}
+                end={area.end}
+                className={({ isActive }) =>
+                  [
+                    'relative flex min-h-14 flex-col items-center justify-center gap-0.5 px-1 text-xs font-medium focus-visible:outline-straw',
+                    isActive ? 'bg-straw text-bark' : 'text-oat hover:bg-moss-deep',
+                  ].join(' ')
+                }
+              >
+                <area.icon className="size-6" aria-hidden="true" />
+                <span className="max-w-full truncate">{area.label}</span>
+                {area.badge && (
+                  <span className="absolute top-1 right-1/2 translate-x-6">
+                    <CountBadge count={area.badge.count} label={area.badge.label} />
+                  </span>
+                )}
+              </NavLink>
+            </li>
+          ))}
+        </ul>
+      </nav>
+    </>
   );
 }

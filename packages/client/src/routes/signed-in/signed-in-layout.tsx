@@ -36,7 +36,7 @@ export function SignedInLayout() {
           isSigningOut={signOut.isPending}
           admin={isAdmin ? { unreadApplications: unread.data ?? 0 } : undefined}
         />
-        <main id="main" tabIndex={-1} className="mx-auto max-w-6xl px-4 py-6 focus:outline-none sm:py-8">
+        <main id="main" tabIndex={-1} className="mx-auto max-w-6xl px-4 pt-6 pb-24 focus:outline-none sm:pt-8 lg:pb-8">
           {signOut.isError && (
             <Alert tone="error" title="Not signed out" className="mb-6">
               {signOut.error.message}
