@@ -9,14 +9,17 @@ import { withTenant } from '../packages/server/src/db/tenant';
 import { coopHasAnimals } from '../packages/server/src/modules/animals/herd-import.service';
 import { farmDirectoryOf } from '../packages/server/src/modules/farms/farms.service';
 import { findUserByEmail } from '../packages/server/src/modules/users/users.service';
+import { loadDemoAlmanac } from './demo-almanac';
 import { loadDemoHerds } from './demo-herds';
+
+/** The farm the demo apprentice works on: their mentor's. */
+const apprenticeFarmKey = demoFarms.find((f) => f.people.some((p) => p.email === demoApprentice.mentorEmail))?.key;
 
 export async function loadDemoCoop(): Promise<'loaded' | 'already-present'> {
   const present = await findPublicCoop(demoCoop.slug);
   if (present) {
-    // A demo co-op loaded before the Herd existed gets its herds once.
+    // A demo co-op loaded before the Herd (or the Almanac) existed gets its herds (and breeding history) once.
     await withTenant({ coopId: present.id }, async (tx) => {
-      if (await coopHasAnimals(present.id, tx)) return;
       const directory = await farmDirectoryOf(present.id, tx);
       const farms = new Map<string, string>();
       const keepers = new Map<string, string>();
@@ -30,7 +33,8 @@ export async function loadDemoCoop(): Promise<'loaded' | 'already-present'> {
       }
       if (farms.size !== demoFarms.length) return;
       const apprentice = await findUserByEmail(demoApprentice.email, tx);
-      await loadDemoHerds({ coopId: present.id, farms, keepers, apprenticeId: apprentice?.id ?? null }, tx);
+      if (!(await coopHasAnimals(present.id, tx))) await loadDemoHerds({ coopId: present.id, farms, keepers, apprenticeId: apprentice?.id ?? null }, tx);
+      await loadDemoAlmanac({ coopId: present.id, farms, keepers, apprenticeId: apprentice?.id ?? null, apprenticeFarmKey }, tx);
     });
     return 'already-present';
   }
@@ -57,6 +61,7 @@ export async function loadDemoCoop(): Promise<'loaded' | 'already-present'> {
       keepers.set(farm.key, keeper.id);
     }
     await loadDemoHerds({ coopId: coop.id, farms, keepers, apprenticeId: apprentice.id }, tx);
+    await loadDemoAlmanac({ coopId: coop.id, farms, keepers, apprenticeId: apprentice.id, apprenticeFarmKey }, tx);
   });
   return 'loaded';
 }

@@ -112,6 +112,14 @@ describe('herd import: a good file', () => {
     expect(withBom.checksum).not.toBe(without.checksum);
   });
 
+  it('when a quoted cell spans lines and blank lines separate rows, then each row is named by the line it starts on', async () => {
+    const { agent } = await freshMember();
+    const file = `${HEADER},notes\r\nML1,Aster,doe,Satin,2023-01-01,,,"Calm doe.\r\nGood mother."\r\n\r\nML2,Basil,buck,Satin,2023-01-01,,ZZ,\r\n`;
+    const preview = await stagedPreview(agent, file);
+    expect(preview.rows.items.map((r) => [r.line, r.tattoo])).toEqual([[2, 'ML1'], [5, 'ML2']]);
+    expect(row(preview, 5).errors[0]!.message).toMatch(/No animal with tattoo ZZ/);
+  });
+
   it('when extra columns are present, then colour, registration and a weight in the file\'s unit are mapped (in grams) and unknown columns listed as ignored', async () => {
     const { coop: own, agent } = await freshMember();
     const preview = await stagedPreview(

@@ -136,6 +136,20 @@ describe('kit counts: derived from dated events, never typed in', () => {
     ]);
   });
 
+  it('when every kit is lost, then the litter\'s nest box out, weigh-ins and weaning are skipped with the reason and her breed-back stays', async () => {
+    const coop = await createTestCoop();
+    const { litter } = await litterAs(coop.member, { servicedDaysAgo: 34, kindledDaysAgo: 3, bornAlive: 2 });
+    const agent = await agentOf(coop.member.email);
+    const res = await agent.post(`/api/litters/${litter.id}/events`).send({ kind: 'lost', on: daysAgo(1), count: 2, cause: 'Doe scattered the kits' });
+    expect(res.status).toBe(201);
+    expect(res.body).toMatchObject({ onDoe: 0, status: 'weaned', summary: { survivalToWeaning: 0 } });
+    const rows = Object.fromEntries((await taskRows(coop.id, { litterId: litter.id })).map((r) => [r.key, r]));
+    for (const key of ['nest_box_out', 'weigh_in:28', 'weaning']) {
+      expect(rows[key]).toMatchObject({ state: 'skipped', state_reason: `No kits left with the doe from ${daysAgo(1)}` });
+    }
+    expect(rows.breed_back).toMatchObject({ state: 'open' });
+  });
+
   it('when kits are fostered between two litters of the farm, then both counts follow and parentage stays with the birth litter', async () => {
     const coop = await createTestCoop();
     const big = await litterAs(coop.member, { servicedDaysAgo: 33, kindledDaysAgo: 2, bornAlive: 12, doe: 'Big litter' });

@@ -58,7 +58,7 @@ describe('herd files: a member brings a herd in from a spreadsheet and takes it 
       fs.writeFileSync(bad, herdFile(tag, `${tag}-X`));
       await page.getByLabel('Spreadsheet (CSV file)').setInputFiles(bad);
       await page.getByRole('button', { name: 'Upload and check' }).click();
-      await page.getByText('1 row need fixing').waitFor();
+      await page.getByText('1 row needs fixing').waitFor();
       const table = page.getByRole('table', { name: 'Rows of the file, with what importing would do' });
       await expect.poll(() => table.getByRole('row').count()).toBe(4);
       const badRow = table.getByRole('row').filter({ hasText: `${tag}-K` });

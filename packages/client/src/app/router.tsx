@@ -196,6 +196,13 @@ const routes: RouteObject[] = [
                 },
               },
               {
+                path: 'almanac/housing',
+                lazy: async () => {
+                  const { loader, HousingPage } = await import('../routes/litters/housing');
+                  return { loader, Component: HousingPage };
+                },
+              },
+              {
                 path: 'litters',
                 lazy: async () => {
                   const { loader, LittersPage } = await import('../routes/litters/litters');

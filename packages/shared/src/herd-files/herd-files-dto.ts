@@ -46,6 +46,8 @@ export interface HerdImportSummaryDto {
   /** Rows with at least one error (nothing can be imported while there are any). */
   withErrors: number;
   withWarnings: number;
+  /** Rows with an error or a warning (or both). */
+  withProblems: number;
   weighIns: number;
   columns: { mapped: ImportField[]; ignored: string[]; computed: string[] };
   weightColumn: WeightColumn | null;

@@ -684,6 +684,7 @@ export function createImportChecker(records: readonly ImportRecord[], mapping: H
           unchanged: count('unchanged'),
           withErrors: presented.filter((r) => r.errors.length > 0).length,
           withWarnings: presented.filter((r) => r.warnings.length > 0).length,
+          withProblems: presented.filter((r) => r.errors.length > 0 || r.warnings.length > 0).length,
           weighIns: planned.weighIns.length,
         },
       };

@@ -1,4 +1,4 @@
-import { Baby, CalendarPlus, Settings } from 'lucide-react';
+import { Baby, CalendarPlus, Settings, Warehouse } from 'lucide-react';
 import { useSearchParams } from 'react-router-dom';
 import { addDays } from '@burrowline/shared';
 import { Alert } from '../../components/ui/alert';
@@ -81,6 +81,10 @@ export function AlmanacPage() {
             <LinkButton to="/litters">
               <Baby className="size-5" aria-hidden="true" />
               Litters
+            </LinkButton>
+            <LinkButton to="/almanac/housing" variant="quiet">
+              <Warehouse className="size-5" aria-hidden="true" />
+              Hutches
             </LinkButton>
             <LinkButton to="/almanac/settings" variant="quiet">
               <Settings className="size-5" aria-hidden="true" />

@@ -8,6 +8,7 @@ import { PageHeader } from '../../components/ui/page-header';
 import { PageTitle } from '../../components/ui/page-title';
 import { breedingStockQueryOptions } from '../../features/almanac/api/get-breeding-stock';
 import { ServiceForm } from '../../features/almanac/components/service-form';
+import { TreatmentsCard } from '../../features/almanac/components/treatments-card';
 import { useAlmanacRights } from '../../features/almanac/hooks/use-almanac-rights';
 
 export async function loader() {
@@ -27,9 +28,12 @@ export function ServiceNewPage() {
       </LinkButton>
       <PageHeader title="Record a service" lead="The Almanac plans the palpation, the nest box and the kindling from this date." />
       {rights.canPlan ? (
-        <Card>
-          <ServiceForm initialDoeId={params.get('doeId') ?? undefined} />
-        </Card>
+        <>
+          <Card>
+            <ServiceForm initialDoeId={params.get('doeId') ?? undefined} />
+          </Card>
+          <TreatmentsCard />
+        </>
       ) : (
         <Alert tone="info">Services are recorded by the members of the farm.</Alert>
       )}

@@ -39,12 +39,14 @@ export function HerdImportPage() {
         Back to Herd
       </LinkButton>
       <PageHeader title="Import a herd spreadsheet" lead="Bring years of records in from a spreadsheet. You see every row checked before anything is added." />
+      {/* Once imported, the outcome comes first; before that, the file. */}
+      {done && importId && <ImportPreview key={importId} importId={importId} />}
       <Card className="space-y-4">
         <h2 className="text-xl font-bold tracking-tight">{needsFixing ? 'Upload the fixed file' : done ? 'Import another file' : 'Choose the file'}</h2>
         <ImportUpload again={needsFixing} onStaged={(preview) => setParams({ import: preview.id })} />
         <ImportFormatHelp />
       </Card>
-      {importId && <ImportPreview key={importId} importId={importId} />}
+      {!done && importId && <ImportPreview key={importId} importId={importId} />}
     </div>
   );
 }

@@ -98,7 +98,9 @@ export function LittersPage() {
                   by {animalName(l.sire)} · kindled {formatDate(l.kindledOn)} · {l.ageDays} days
                 </p>
                 <p className="mt-1 flex flex-wrap items-center gap-2">
-                  <strong>{l.onDoe}</strong> with the doe · {l.bornAlive} born alive · {l.weaned} weaned
+                  <span>
+                    <strong>{l.onDoe}</strong> with the doe · {l.bornAlive} born alive · {l.weaned} weaned
+                  </span>
                   <Badge tone={l.status === 'nursing' ? 'straw' : 'neutral'}>{l.status === 'nursing' ? 'With the doe' : 'Weaned'}</Badge>
                 </p>
               </li>

@@ -53,10 +53,12 @@ export async function readHerdCsv(buffer: Buffer, opts: { maxRows: number }): Pr
   } catch {
     throw refuse('The file is not UTF-8 text (perhaps Windows-1252 or Latin-1). In your spreadsheet save it as "CSV UTF-8" and upload it again.', 415, ErrorCode.unsupportedFile);
   }
-  const firstLine = text.slice(0, text.search(/\r?\n|$/));
+  // One kind of line end, so line numbers count the same for files from any system.
+  text = text.replace(/\r\n?/g, '\n');
+  const firstLine = text.slice(0, text.search(/\n|$/));
   const delimiter = !firstLine.includes(',') && firstLine.includes(';') ? ';' : firstLine.includes(',') ? ',' : firstLine.includes('\t') ? '\t' : ',';
 
-  let parsed: { record: string[]; info: { lines: number; raw?: string } }[];
+  let parsed: { record: string[]; raw: string; info: { lines: number } }[];
   try {
     parsed = parse(text, {
       bom: true,
@@ -81,9 +83,10 @@ export async function readHerdCsv(buffer: Buffer, opts: { maxRows: number }): Pr
   if (rest.length > opts.maxRows) {
     throw refuse(`The file has ${rest.length.toLocaleString('en-US')} rows; import at most ${opts.maxRows.toLocaleString('en-US')} at a time (split the file).`, 413, ErrorCode.payloadTooLarge);
   }
-  // `info.lines` is where a record ends; a quoted cell may span lines, so count back to where it starts.
-  const records = rest.map(({ record, info }) => ({
-    line: info.lines - ((info.raw ?? '').replace(/\r?\n$/, '').match(/\n/g)?.length ?? 0),
+  // `info.lines` is where a record ends; a quoted cell may span lines, so count back to where it starts
+  // (the raw text begins with any blank lines skipped before it and ends with its own line end).
+  const records = rest.map(({ record, raw, info }) => ({
+    line: info.lines - (raw.replace(/^\n+/, '').replace(/\n$/, '').match(/\n/g)?.length ?? 0),
     cells: record,
   }));
   return { checksum, hadByteOrderMark, header: first.record, records };

@@ -1,8 +1,12 @@
 import type { TaskAttention } from '@burrowline/shared';
 import { Alert } from '../../../components/ui/alert';
 
+/** The late jobs that matter most, surfaced by themselves (other late tasks show in the lists as late). */
+const surfaced = new Set<TaskAttention['kind']>(['missed_palpation', 'kindling_overdue', 'kindling_missed', 'late_weaning']);
+
 /** What surfaces by itself: missed palpations, kindlings overdue or past their window, late weanings. */
-export function AttentionList({ items }: { items: TaskAttention[] }) {
+export function AttentionList({ items: all }: { items: TaskAttention[] }) {
+  const items = all.filter((i) => surfaced.has(i.kind));
   if (items.length === 0) return null;
   const kindling = items.some((i) => i.kind === 'kindling_overdue' || i.kind === 'kindling_missed');
   return (

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { ErrorCode, outsidePublishedRange, type CycleSettings, type CycleSettingsDto } from '@burrowline/shared';
+import { ErrorCode, formatWeight, outsidePublishedRange, type CycleSettings, type CycleSettingsDto, type CycleSettingSource } from '@burrowline/shared';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/text-field';
@@ -8,6 +8,13 @@ import { useUpdateCycleSettings } from '../api/update-cycle-settings';
 import { fieldErrors } from '../error-text';
 
 type NumberKey = Exclude<keyof CycleSettings, 'weighInAgesDays'>;
+
+/** The source as a sentence, marking a fact of the trade with no published source as common practice. */
+function sourceText(source: CycleSettingSource): string {
+  const text = source.source.replace(/\.$/, '');
+  const marked = source.confidence === 'common_practice' && !/common practice/i.test(text) ? `${text} (common practice)` : text;
+  return `${marked}.`;
+}
 
 const fields: { key: NumberKey; label: string; unit: string }[] = [
   { key: 'palpationDays', label: 'Palpation', unit: 'days after service' },
@@ -72,8 +79,8 @@ export function CycleSettingsForm({ current, canEdit }: { current: CycleSettings
               error={errors[f.key]}
               hint={
                 <>
-                  Published: {source.publishedText}. Source: {source.source}
-                  {source.confidence === 'common_practice' ? ' (common practice)' : ''}.
+                  Published: {source.publishedText}. Source: {sourceText(source)}
+                  {f.key === 'targetLiveWeightGrams' && Number.isFinite(value) ? ` ${formatWeight(value, 'lb_oz')} (${formatWeight(value, 'kg_g')}).` : ''}
                   {range === 'below' || range === 'above' ? <strong className="block text-clay-deep">Outside the published range: fine if you know your herd.</strong> : null}
                 </>
               }
@@ -86,7 +93,7 @@ export function CycleSettingsForm({ current, canEdit }: { current: CycleSettings
           value={values.weighInAgesDays}
           onChange={(e) => setValues({ ...values, weighInAgesDays: e.target.value })}
           error={errors.weighInAgesDays}
-          hint={`Source: ${current.sources.weighInAgesDays.source}.`}
+          hint={`Source: ${sourceText(current.sources.weighInAgesDays)}`}
         />
       </div>
       {canEdit && (

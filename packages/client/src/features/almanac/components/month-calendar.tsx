@@ -6,6 +6,14 @@ import { cn } from '../../../lib/cn';
 import { formatLongDay, formatMonth, monthGrid, weekdayNames } from '../almanac-dates';
 import { TaskItem } from './task-item';
 
+const dotTone: Record<string, string> = {
+  overdue: 'bg-clay',
+  due_today: 'bg-straw',
+  upcoming: 'bg-moss',
+  done: 'bg-grey-400',
+  skipped: 'bg-grey-300',
+};
+
 const chipTone: Record<string, string> = {
   overdue: 'bg-clay-wash text-clay-deep',
   due_today: 'bg-straw-wash text-bark',
@@ -62,24 +70,30 @@ export function MonthCalendar({ agenda, month, onMonth, previous, next }: MonthC
                 const inMonth = d.startsWith(month.slice(0, 7));
                 const isToday = d === agenda.today;
                 return (
-                  <td key={d} className={cn('h-28 border border-grey-200 align-top', !inMonth && 'bg-grey-50 text-grey-400')}>
+                  <td key={d} className={cn('h-16 border border-grey-200 align-top sm:h-28', !inMonth && 'bg-grey-50 text-grey-400')}>
                     <button
                       type="button"
                       onClick={() => setChosen(d)}
                       aria-pressed={day === d}
                       aria-label={`${formatLongDay(d)}: ${tasks.length === 1 ? '1 task' : `${tasks.length} tasks`}`}
-                      className={cn('flex h-full min-h-28 w-full flex-col gap-1 p-1.5 text-left hover:bg-moss-wash/50', day === d && 'ring-3 ring-moss ring-inset')}
+                      className={cn('flex h-full min-h-16 w-full flex-col gap-1 p-1 text-left hover:bg-moss-wash/50 sm:min-h-28 sm:p-1.5', day === d && 'ring-3 ring-moss ring-inset')}
                     >
                       <span className={cn('inline-flex size-7 items-center justify-center rounded-full text-sm font-semibold', isToday && 'bg-moss text-white')}>
                         {Number(d.slice(8))}
                       </span>
+                      {/* A phone's day is too narrow for words: a dot per task; the chosen day lists them below. */}
+                      <span className="flex flex-wrap gap-1 sm:hidden" aria-hidden="true">
+                        {tasks.map((t) => (
+                          <span key={t.id} className={cn('size-2.5 rounded-full', dotTone[t.timing] ?? dotTone.upcoming)} />
+                        ))}
+                      </span>
                       {tasks.slice(0, 3).map((t) => (
-                        <span key={t.id} className={cn('truncate rounded px-1.5 py-0.5 text-xs font-medium', chipTone[t.timing] ?? chipTone.upcoming)}>
+                        <span key={t.id} className={cn('hidden truncate rounded px-1.5 py-0.5 text-xs font-medium sm:block', chipTone[t.timing] ?? chipTone.upcoming)}>
                           {t.title}
                           {t.animal?.name ? ` · ${t.animal.name}` : ''}
                         </span>
                       ))}
-                      {tasks.length > 3 && <span className="text-xs font-medium text-grey-600">+{tasks.length - 3} more</span>}
+                      {tasks.length > 3 && <span className="hidden text-xs font-medium text-grey-600 sm:block">+{tasks.length - 3} more</span>}
                     </button>
                   </td>
                 );

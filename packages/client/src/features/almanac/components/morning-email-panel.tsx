@@ -17,7 +17,7 @@ export function MorningEmailPanel() {
       <h2 className="text-lg font-bold">Morning e-mail</h2>
       <p className="text-grey-700">The day's tasks and anything overdue, in your inbox each morning (only on days with something in them).</p>
       {data && (
-        <div className="grid gap-4 sm:grid-cols-2">
+        <div className="space-y-3">
           <CheckboxField
             label="Send me the morning e-mail"
             checked={data.enabled}

@@ -1,5 +1,6 @@
 import type { FarmDto } from '@burrowline/shared';
 import { Card } from '../../../components/ui/card';
+import { FarmPhoto } from '../../photos/components/farm-photo';
 import { FarmFacts } from './farm-facts';
 import { MemberList } from './member-list';
 
@@ -19,10 +20,13 @@ export function FarmProfile({ farm }: { farm: FarmDto }) {
           )}
         </section>
       </Card>
-      <Card className="space-y-3 self-start">
-        <h2 className="text-lg font-semibold">Members</h2>
-        <MemberList members={farm.members} />
-      </Card>
+      <div className="space-y-6 self-start">
+        <FarmPhoto farmId={farm.id} farmName={farm.name} />
+        <Card className="space-y-3">
+          <h2 className="text-lg font-semibold">Members</h2>
+          <MemberList members={farm.members} />
+        </Card>
+      </div>
     </div>
   );
 }

@@ -70,7 +70,7 @@ function RowsTable({ rows }: { rows: HerdImportRowDto[] }) {
                 <td className="px-3 py-2">
                   <RowStatus row={row} />
                 </td>
-                <td className="px-3 py-2 font-semibold">{row.tattoo || '—'}</td>
+                <td className="px-3 py-2 font-semibold whitespace-nowrap">{row.tattoo || '—'}</td>
                 <td className="px-3 py-2">{row.name}</td>
                 <td className="px-3 py-2">{row.sex}</td>
                 <td className="px-3 py-2">{row.breed}</td>
@@ -97,7 +97,7 @@ function RowsTable({ rows }: { rows: HerdImportRowDto[] }) {
             <p className="text-sm text-grey-700">
               {[row.sex, row.breed, row.born && `born ${row.born}`, row.sire && `sire ${row.sire}`, row.dam && `dam ${row.dam}`].filter(Boolean).join(' · ')}
             </p>
-            <Issues row={row} />
+            {row.errors.length + row.warnings.length + row.changes.length > 0 && <Issues row={row} />}
           </li>
         ))}
       </ul>
@@ -160,7 +160,7 @@ export function ImportPreview({ importId }: { importId: string }) {
 
   const filters: { value: ImportRowFilter; label: string; count: number }[] = [
     { value: 'all', label: 'All rows', count: s.rows },
-    { value: 'problems', label: 'With problems', count: s.withErrors + s.withWarnings },
+    { value: 'problems', label: 'With problems', count: s.withProblems },
     { value: 'create', label: 'To add', count: s.create },
     { value: 'update', label: 'To update', count: s.update },
     { value: 'unchanged', label: 'No change', count: s.unchanged },
@@ -177,7 +177,7 @@ export function ImportPreview({ importId }: { importId: string }) {
       </div>
       <Summary preview={data} />
       {s.withErrors > 0 ? (
-        <Alert tone="error" title={`${plural(s.withErrors, 'row')} need fixing`}>
+        <Alert tone="error" title={`${plural(s.withErrors, 'row')} ${s.withErrors === 1 ? 'needs' : 'need'} fixing`}>
           Nothing has been added. Correct those lines in your spreadsheet (the line numbers match the file), save it as CSV and upload it again above.
         </Alert>
       ) : s.withWarnings > 0 ? (

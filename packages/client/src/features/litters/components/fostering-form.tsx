@@ -34,7 +34,7 @@ export function FosteringForm({ litter, today }: { litter: LitterDto; today: str
     >
       <div className="grid gap-4 sm:grid-cols-2">
         <SelectField
-          label="Kits"
+          label="Which way"
           value={direction}
           onChange={(e) => setDirection(e.target.value as 'out' | 'in')}
           options={[

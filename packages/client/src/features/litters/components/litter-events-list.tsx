@@ -45,7 +45,7 @@ export function LitterEventsList({ litter, canReview }: { litter: LitterDto; can
                 {e.cause ? ` — ${e.cause}` : ''}
                 {e.enteredBy ? <span className="text-sm text-grey-600"> · {e.fromOtherFarm ? `recorded at the other farm by ${e.enteredBy.name}` : e.enteredBy.name}</span> : null}
               </span>
-              <span className="flex items-center gap-2">
+              <span className="flex flex-wrap items-center gap-2">
                 {e.reviewState === 'pending' && <Badge tone="straw">Unverified · waiting for review</Badge>}
                 {e.reviewState === 'returned' && <Badge tone="clay">Returned{e.reviewComment ? `: ${e.reviewComment}` : ''}</Badge>}
                 {e.reviewState === 'pending' && canReview && (

@@ -117,9 +117,9 @@ export function AnimalPhotos({ animalId, name }: { animalId: string; name: strin
                     </Button>
                   </div>
                 ) : (
-                  <Button variant="quiet" className="-ml-2" onClick={() => setConfirming(photo.id)}>
-                    <Trash2 className="size-4" aria-hidden="true" />
-                    Remove photo {i + 1}
+                  <Button variant="quiet" className="-ml-2 px-2 whitespace-nowrap" onClick={() => setConfirming(photo.id)}>
+                    <Trash2 className="size-4 shrink-0" aria-hidden="true" />
+                    Remove<span className="sr-only"> photo {i + 1}</span>
                   </Button>
                 ))}
             </li>
@@ -146,8 +146,8 @@ export function AnimalPhotos({ animalId, name }: { animalId: string; name: strin
               />
             </div>
           </div>
-          <p className="flex items-center gap-2 text-sm text-grey-600">
-            <ImagePlus className="size-4" aria-hidden="true" />
+          <p className="flex items-start gap-2 text-sm text-grey-600">
+            <ImagePlus className="mt-0.5 size-4 shrink-0" aria-hidden="true" />
             JPEG, PNG or WebP, up to {megabytes(limits.maxBytes)} each, {limits.perUpload} at a time; {list.length} of {limits.maxPhotos} used. Location data in
             phone photos is removed.
           </p>
