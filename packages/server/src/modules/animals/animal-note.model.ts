@@ -1,5 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 import type { ReviewState } from '@burrowline/shared';
+import { reviewColumns } from '../../db/review-columns';
 
 /** A dated observation about an animal; an apprentice's waits for review. */
 export class AnimalNote extends Model<InferAttributes<AnimalNote>, InferCreationAttributes<AnimalNote>> {
@@ -29,10 +30,7 @@ export class AnimalNote extends Model<InferAttributes<AnimalNote>, InferCreation
         body: { type: DataTypes.TEXT, allowNull: false },
         notedOn: { type: DataTypes.DATEONLY, allowNull: false },
         enteredBy: { type: DataTypes.UUID, allowNull: false },
-        reviewState: { type: DataTypes.TEXT, allowNull: false },
-        reviewedBy: { type: DataTypes.UUID, allowNull: true },
-        reviewedAt: { type: DataTypes.DATE, allowNull: true },
-        reviewComment: { type: DataTypes.TEXT, allowNull: true },
+        ...reviewColumns(),
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,

@@ -1,5 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 import type { ReviewState } from '@burrowline/shared';
+import { reviewColumns } from '../../db/review-columns';
 
 /** The weight of one animal or of a group (total over head count); farm-private. */
 export class WeighIn extends Model<InferAttributes<WeighIn>, InferCreationAttributes<WeighIn>> {
@@ -37,10 +38,7 @@ export class WeighIn extends Model<InferAttributes<WeighIn>, InferCreationAttrib
         weighedOn: { type: DataTypes.DATEONLY, allowNull: false },
         note: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
         enteredBy: { type: DataTypes.UUID, allowNull: false },
-        reviewState: { type: DataTypes.TEXT, allowNull: false },
-        reviewedBy: { type: DataTypes.UUID, allowNull: true },
-        reviewedAt: { type: DataTypes.DATE, allowNull: true },
-        reviewComment: { type: DataTypes.TEXT, allowNull: true },
+        ...reviewColumns(),
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,

@@ -1,5 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 import type { LitterEventKind, ReviewState } from '@burrowline/shared';
+import { reviewColumns } from '../../db/review-columns';
 
 /** A dated change of a litter's kit count; a fostering is two of these sharing a pair id. */
 export class LitterEvent extends Model<InferAttributes<LitterEvent>, InferCreationAttributes<LitterEvent>> {
@@ -37,10 +38,7 @@ export class LitterEvent extends Model<InferAttributes<LitterEvent>, InferCreati
         otherLitterId: { type: DataTypes.UUID, allowNull: true },
         pairId: { type: DataTypes.UUID, allowNull: true },
         enteredBy: { type: DataTypes.UUID, allowNull: true },
-        reviewState: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'accepted' },
-        reviewedBy: { type: DataTypes.UUID, allowNull: true },
-        reviewedAt: { type: DataTypes.DATE, allowNull: true },
-        reviewComment: { type: DataTypes.TEXT, allowNull: true },
+        ...reviewColumns({ defaultState: 'accepted' }),
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
