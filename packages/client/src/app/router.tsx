@@ -10,6 +10,9 @@ import { onSessionLost, queryClient } from './query-client';
 import { requireMe } from './route-guards';
 
 // The shell (layout, guards, errors) ships in the first load; each screen is fetched when first visited.
+/** The grow-out area's tabs (issue 7), each its own lazy route. */
+const growOutRoutes: RouteObject[] = [];
+
 const adminRoutes: RouteObject[] = [
   { index: true, loader: () => redirect('/admin/applications') },
   {
@@ -215,6 +218,12 @@ const routes: RouteObject[] = [
                   const { loader, LitterDetailPage } = await import('../routes/litters/litter-detail');
                   return { loader, Component: LitterDetailPage };
                 },
+              },
+              {
+                // Grow-out, feed, health, processing and performance (issue 7). Each tab is its own lazy route.
+                path: 'grow-out',
+                lazy: async () => ({ Component: (await import('../routes/grow-out/grow-out-layout')).GrowOutLayout }),
+                children: growOutRoutes,
               },
               {
                 // The co-op admin's area: applications, members, audit log, rules. Its loader turns non-admins away.

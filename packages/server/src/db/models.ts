@@ -21,6 +21,7 @@ import { Cooperative } from '../modules/coops/coop.model';
 import { Farm } from '../modules/farms/farm.model';
 import { HousingPlacement } from '../modules/litters/housing-placement.model';
 import { HousingUnit } from '../modules/litters/housing-unit.model';
+import { GrowOutGroup, GrowOutGroupLitter } from '../modules/growout/grow-out-group.model';
 import { LitterEvent } from '../modules/litters/litter-event.model';
 import { Litter } from '../modules/litters/litter.model';
 import { HerdImport } from '../modules/herd-files/herd-import.model';
@@ -38,6 +39,8 @@ export function initModels(sequelize: Sequelize): void {
   // The Almanac and litters: cycle settings, services, palpations, treatments, tasks, the feed, the morning e-mail.
   for (const model of [FarmCycleSettings, ServiceRecord, Palpation, Treatment, AlmanacTask, CalendarFeedToken, DigestSubscription]) model.initModel(sequelize);
   for (const model of [Litter, LitterEvent, HousingUnit, HousingPlacement]) model.initModel(sequelize);
+  // Grow-out, feed, health and yield (issue 7).
+  for (const model of [GrowOutGroup, GrowOutGroupLitter]) model.initModel(sequelize);
   // Herd records in and out: photos, staged spreadsheets.
   for (const model of [Photo, HerdImport]) model.initModel(sequelize);
   Farm.hasMany(User, { as: 'members', foreignKey: 'farmId' });

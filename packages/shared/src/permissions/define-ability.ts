@@ -47,6 +47,13 @@ export type SubjectName =
   | 'Litter'
   | 'LitterEvent'
   | 'HousingUnit'
+  // Grow-out, feed, health and yield (issue 7): farm-private, subjects carry { farmId }. Money in them
+  // (prices, costs) is shown only to who can read 'Money'.
+  | 'GrowOutGroup'
+  | 'FeedRecord'
+  | 'TemperatureReading'
+  | 'ProcessingRecord'
+  | 'Performance'
   | 'ChoreLog'
   | 'StudListing'
   | 'Loan'
@@ -114,6 +121,9 @@ export function defineAbilityFor(user: AbilityUser | null): AppAbility {
       can('read', ['CycleSettings', 'Service', 'Treatment', 'AlmanacTask', 'Litter', 'LitterEvent', 'HousingUnit'], { farmId });
       can('complete', 'AlmanacTask', { farmId });
       can('create', 'LitterEvent', { farmId, enteredBy: user.id });
+      // Grow-out and results: read them (without money); weigh groups (pending review) and log the barn's temperature.
+      can('read', ['GrowOutGroup', 'FeedRecord', 'TemperatureReading', 'ProcessingRecord', 'Performance'], { farmId });
+      can('create', 'TemperatureReading', { farmId });
     }
     can('manage', 'DigestSubscription', { userId: user.id });
     cannot('read', 'Money');
@@ -138,6 +148,8 @@ export function defineAbilityFor(user: AbilityUser | null): AppAbility {
     // The farm's Almanac: cycle settings, services and palpations, treatments, tasks, the calendar feed,
     // litters and their kit-count events, housing. Other farms see none of it.
     can('manage', ['CycleSettings', 'Service', 'Treatment', 'AlmanacTask', 'CalendarFeed', 'Litter', 'LitterEvent', 'HousingUnit'], { farmId });
+    // Grow-out groups, feed bought and given, temperature readings, processing records, performance tables.
+    can('manage', ['GrowOutGroup', 'FeedRecord', 'TemperatureReading', 'ProcessingRecord', 'Performance'], { farmId });
   }
   can('manage', 'DigestSubscription', { userId: user.id });
   can('create', 'OutsideAnimal', { coopId });

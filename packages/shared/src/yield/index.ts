@@ -6,3 +6,4 @@ export * from './usda-class';
 export * from './performance';
 export * from './suggestions';
 export * from './comparison';
+export * from './cross-label';

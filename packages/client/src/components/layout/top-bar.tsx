@@ -1,4 +1,4 @@
-import { CalendarDays, LogOut, Rabbit, ShieldCheck, Tent, Warehouse, type LucideIcon } from 'lucide-react';
+import { CalendarDays, LogOut, Rabbit, ShieldCheck, Sprout, Tent, Warehouse, type LucideIcon } from 'lucide-react';
 import { Link, NavLink } from 'react-router-dom';
 import { CountBadge } from '../ui/badge';
 import { BrandMark } from '../ui/brand-mark';
@@ -25,13 +25,14 @@ interface TopBarProps {
 }
 
 // Whole class names, so Tailwind sees them when it scans this file.
-const columns: Record<number, string> = { 1: 'grid-cols-1', 2: 'grid-cols-2', 3: 'grid-cols-3', 4: 'grid-cols-4', 5: 'grid-cols-5' };
+const columns: Record<number, string> = { 1: 'grid-cols-1', 2: 'grid-cols-2', 3: 'grid-cols-3', 4: 'grid-cols-4', 5: 'grid-cols-5', 6: 'grid-cols-6' };
 
 function areasFor({ farmId, admin }: Pick<TopBarProps, 'farmId' | 'admin'>): Area[] {
   const areas: Area[] = [{ to: '/', label: 'Commons', icon: Tent, end: true }];
   if (farmId) {
     areas.push({ to: '/herd', label: 'Herd', icon: Rabbit });
     areas.push({ to: '/almanac', label: 'Almanac', icon: CalendarDays });
+    areas.push({ to: '/grow-out', label: 'Grow-out', icon: Sprout });
     areas.push({ to: `/farms/${farmId}`, label: 'My farm', icon: Warehouse });
   }
   if (admin) areas.push({ to: '/admin', label: 'Admin', icon: ShieldCheck, badge: { count: admin.unreadApplications, label: 'new applications' } });
