@@ -140,4 +140,14 @@ describe('the opt-in morning e-mail (pg-boss job, injectable clock)', () => {
     const claimed = await asTenant(quiet.id, async (c) => (await c.query('SELECT task_count FROM almanac_digest_deliveries WHERE user_id = $1', [quiet.otherFarmMember.id])).rows);
     expect(claimed).toEqual([{ task_count: 0 }]);
   });
+
+  it('when the scheduler starts with its quarter-hour schedule as the app role, then the schedule is kept and its cron can hand a due run to the queue', async () => {
+    const s = await startDigestScheduler({ connectionString: process.env.DATABASE_URL!, appUrl: 'http://127.0.0.1:3000', schedule: true, work: false });
+    running.push(s);
+    expect((await s.boss.getSchedules()).map((x) => [x.name, x.cron])).toContainEqual(['almanac-morning-digest', '*/15 * * * *']);
+    // The cron's hand-off goes through pg-boss's own queue, which the app role cannot create itself.
+    expect(await s.boss.getQueue('__pgboss__send-it')).toMatchObject({ name: '__pgboss__send-it' });
+    const handedOff = await s.boss.send('__pgboss__send-it', { name: 'almanac-morning-digest', data: {}, options: {} });
+    expect(handedOff).toEqual(expect.any(String));
+  });
 });

@@ -3,6 +3,7 @@ import type { RequestHandler } from 'express';
 import session from 'express-session';
 import pg from 'pg';
 import type { Config } from '../config/env';
+import { logger } from '../lib/logger';
 import { findIdentityById } from './passport';
 
 export const SESSION_COOKIE = 'burrowline.sid';
@@ -11,6 +12,9 @@ export const SESSION_COOKIE = 'burrowline.sid';
 export function createSessionMiddleware(config: Config): { middleware: RequestHandler; pool: pg.Pool; store: session.Store } {
   const PgStore = connectPgSimple(session);
   const pool = new pg.Pool({ connectionString: config.databaseUrl, max: 4 });
+  // An idle connection dropped by the database (a restart, a failover) must not crash the process:
+  // the pool discards it and opens a new one on the next request.
+  pool.on('error', (error) => logger.warn('session store connection lost', { error: error.message }));
   const store = new PgStore({ pool, tableName: 'user_sessions', createTableIfMissing: false, pruneSessionInterval: 15 * 60 });
   const middleware = session({
     name: SESSION_COOKIE,
