@@ -195,7 +195,13 @@ export async function loadDemoAlmanac(ctx: DemoAlmanacContext, tx: Transaction):
     // Litters six to seven weeks old are left unweaned: the Almanac shows their weaning as late.
     if (age < 48) continue;
     const on = addDays(l.kindledOn, settings.weaningDays + int(-2, 3));
-    events.push({ id: randomUUID(), litterId: l.id, kind: 'weaned', on, count: onDoe.get(l.id)!, enteredBy: l.recordedBy });
+    // Most weanings are weighed, the litter together: about 22–27 g a kit per day of age, near the
+    // reference curve's 1,050 g at six weeks (growth/gompertz.ts; Rao et al. 1977: 28.8 g/d to 8 weeks).
+    // Derived from the litter's id, so the rest of the demo's random draws stay as they were.
+    const spread = parseInt(l.id.slice(0, 4), 16);
+    const kits = onDoe.get(l.id)!;
+    const weaningWeightGrams = kits > 0 && spread % 7 !== 0 ? Math.round(kits * daysBetween(l.kindledOn, on) * (22 + (spread % 6))) : null;
+    events.push({ id: randomUUID(), litterId: l.id, kind: 'weaned', on, count: kits, enteredBy: l.recordedBy, weaningWeightGrams });
     weanedOn.set(l.id, on);
     onDoe.set(l.id, 0);
   }

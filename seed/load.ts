@@ -10,10 +10,13 @@ import { coopHasAnimals } from '../packages/server/src/modules/animals/herd-impo
 import { farmDirectoryOf } from '../packages/server/src/modules/farms/farms.service';
 import { findUserByEmail } from '../packages/server/src/modules/users/users.service';
 import { loadDemoAlmanac } from './demo-almanac';
+import { loadDemoGrowOut } from './demo-growout';
+import { loadDemoHealthYield } from './demo-health-yield';
 import { loadDemoHerds } from './demo-herds';
 
 /** The farm the demo apprentice works on: their mentor's. */
 const apprenticeFarmKey = demoFarms.find((f) => f.people.some((p) => p.email === demoApprentice.mentorEmail))?.key;
+const temperatureUnits = new Map(demoFarms.map((f) => [f.key, f.profile.temperatureUnit] as const));
 
 export async function loadDemoCoop(): Promise<'loaded' | 'already-present'> {
   const present = await findPublicCoop(demoCoop.slug);
@@ -35,6 +38,8 @@ export async function loadDemoCoop(): Promise<'loaded' | 'already-present'> {
       const apprentice = await findUserByEmail(demoApprentice.email, tx);
       if (!(await coopHasAnimals(present.id, tx))) await loadDemoHerds({ coopId: present.id, farms, keepers, apprenticeId: apprentice?.id ?? null }, tx);
       await loadDemoAlmanac({ coopId: present.id, farms, keepers, apprenticeId: apprentice?.id ?? null, apprenticeFarmKey }, tx);
+      await loadDemoGrowOut({ coopId: present.id, farms, keepers, apprenticeId: apprentice?.id ?? null, apprenticeFarmKey }, tx);
+      await loadDemoHealthYield({ coopId: present.id, farms, keepers, apprenticeId: apprentice?.id ?? null, apprenticeFarmKey, temperatureUnits }, tx);
     });
     return 'already-present';
   }
@@ -62,6 +67,8 @@ export async function loadDemoCoop(): Promise<'loaded' | 'already-present'> {
     }
     await loadDemoHerds({ coopId: coop.id, farms, keepers, apprenticeId: apprentice.id }, tx);
     await loadDemoAlmanac({ coopId: coop.id, farms, keepers, apprenticeId: apprentice.id, apprenticeFarmKey }, tx);
+    await loadDemoGrowOut({ coopId: coop.id, farms, keepers, apprenticeId: apprentice.id, apprenticeFarmKey }, tx);
+    await loadDemoHealthYield({ coopId: coop.id, farms, keepers, apprenticeId: apprentice.id, apprenticeFarmKey, temperatureUnits }, tx);
   });
   return 'loaded';
 }

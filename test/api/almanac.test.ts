@@ -111,7 +111,7 @@ describe('services and the tasks they plan', () => {
 
     const treated = await addAnimalAs(coop.member, { sex: 'doe', name: 'Tansy', birthDate: '2023-02-01' });
     const treatment = await agent.post('/api/treatments').send({
-      animalId: treated.id, startedOn: daysAgo(3), endsOn: addDays(farmToday(), 10), treatment: 'Ear mites, as the vet prescribed', veterinarian: 'Dr. Quill',
+      animalId: treated.id, startedOn: daysAgo(3), lastDoseOn: daysAgo(1), withdrawalEndsOn: addDays(farmToday(), 10), treatment: 'Ear mites, as the vet prescribed', dose: '0.1 ml', route: 'topical', veterinarian: 'Dr. Quill',
     });
     expect(treatment.status).toBe(201);
     const warned = await agent.post('/api/services').send({ doeId: treated.id, buckId: buck.id, servicedOn: farmToday() });

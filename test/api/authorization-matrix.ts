@@ -37,6 +37,8 @@ export type Target =
   | 'housingA'
   | 'placementA'
   | 'feedA'
+  // Grow-out and feed (issue 7): a growing group of farm A (with a litter that has free kits) and a feed purchase.
+  | 'groupA'
   // Herd files (issue 5): a photo of a fresh farm-A animal, a spreadsheet staged by farm A's member.
   | 'photoA'
   | 'importA';
@@ -84,7 +86,16 @@ export type Body =
   | 'farmPhotoUpload'
   | 'photoCaption'
   | 'csvUpload'
-  | 'importConfirmation';
+  | 'importConfirmation'
+  // Health and yield (issue 7).
+  | 'temperatureReading'
+  | 'processingRecord'
+  | 'processingMark'
+  | 'growOutGroup'
+  | 'groupWeighIn'
+  | 'groupClose'
+  | 'feedPurchase'
+  | 'feedUse';
 
 export interface MatrixRow {
   method: 'GET' | 'PATCH' | 'DELETE' | 'POST' | 'PUT';
@@ -176,6 +187,15 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'POST', path: '/api/services/:serviceId/closure', target: 'serviceA', body: 'closure', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
   { method: 'GET', path: '/api/treatments', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'POST', path: '/api/treatments', target: 'breedingPairA', body: 'treatment', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 400, admin: 201, otherCoop: 400 } },
+  // Health and yield (issue 7): the farm's own withdrawals, temperatures and processing; apprentices read and log
+  // temperatures only; an animal of another farm (or co-op) in a body is a field error (400).
+  { method: 'GET', path: '/api/withdrawals', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/temperature-readings', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'POST', path: '/api/temperature-readings', target: 'none', body: 'temperatureReading', expect: { anonymous: 401, apprentice: 201, member: 201, otherFarmMember: 201, admin: 201, otherCoop: 201 } },
+  { method: 'GET', path: '/api/heat-caution', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/processing-records', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'POST', path: '/api/processing-records', target: 'breedingPairA', body: 'processingRecord', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 400, admin: 201, otherCoop: 400 } },
+  { method: 'POST', path: '/api/processing-marks', target: 'breedingPairA', body: 'processingMark', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 400, admin: 201, otherCoop: 400 } },
   { method: 'GET', path: '/api/litters', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'POST', path: '/api/litters', target: 'serviceA', body: 'kindling', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 400, admin: 201, otherCoop: 400 } },
   { method: 'GET', path: '/api/litters/:litterId', target: 'litterA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
@@ -206,5 +226,19 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'GET', path: '/api/herd-export', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'GET', path: '/api/pedigree-certificates/:animalId', target: 'animalA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
   { method: 'GET', path: '/api/pedigree-certificates/:animalId', target: 'animalB', expect: { anonymous: 401, apprentice: 404, member: 404, otherFarmMember: 200, admin: 404, otherCoop: 404 } },
+  // Grow-out groups and the feed book (issue 7): farm-private; apprentices read and weigh (pending review) but form,
+  // close and record feed never; another farm's or co-op's group does not exist (404), their litters and groups are not ours (400).
+  { method: 'GET', path: '/api/grow-out/groups', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/grow-out/litter-choices', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'POST', path: '/api/grow-out/groups', target: 'groupA', body: 'growOutGroup', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 400, admin: 201, otherCoop: 400 } },
+  { method: 'GET', path: '/api/grow-out/groups/:groupId', target: 'groupA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/grow-out/groups/:groupId/weigh-ins', target: 'groupA', body: 'groupWeighIn', expect: { anonymous: 401, apprentice: 201, member: 201, otherFarmMember: 404, admin: 201, otherCoop: 404 } },
+  { method: 'POST', path: '/api/grow-out/groups/:groupId/close', target: 'groupA', body: 'groupClose', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/feed', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'POST', path: '/api/feed/purchases', target: 'none', body: 'feedPurchase', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 201, admin: 201, otherCoop: 201 } },
+  { method: 'POST', path: '/api/feed/uses', target: 'groupA', body: 'feedUse', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 400, admin: 201, otherCoop: 400 } },
+  // Performance (issue 7): read-only, the signed-in person's farm; another farm's or co-op's tables do not exist (404).
+  { method: 'GET', path: '/api/performance', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/performance?period=all&farmId=:farmId', target: 'farmA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
   { method: 'DELETE', path: '/api/session', target: 'none', expect: { anonymous: 204, apprentice: 204, member: 204, otherFarmMember: 204, admin: 204, otherCoop: 204 } },
 ];

@@ -326,3 +326,56 @@ describe('cycle settings and litters', () => {
     expect(rows['weigh_in:42']).toMatchObject({ state: 'open', due_on: addDays(daysAgo(9), 42) });
   });
 });
+
+describe('litter weight at weaning', () => {
+  it('when a weaning carries the litter weight, then it is stored on the weaning and shown on the litter', async () => {
+    const coop = await createTestCoop();
+    const { litter } = await litterAs(coop.member, { servicedDaysAgo: 66, kindledDaysAgo: 35, bornAlive: 8 });
+    const agent = await agentOf(coop.member.email);
+    // 6,000 g for 8 kits = 750 g a kit at 35 days: about the usual 780 g of the reference curve (growth/gompertz.ts, Rao et al. 1977).
+    const res = await agent.post(`/api/litters/${litter.id}/events`).send({ kind: 'weaned', on: farmToday(), count: 8, weaningWeightGrams: 6000 });
+    expect(res.status).toBe(201);
+    const body = res.body as LitterDto;
+    expect(body.events.find((e) => e.kind === 'weaned')).toMatchObject({ count: 8, weaningWeightGrams: 6000 });
+    const row = await asTenant(coop.id, async (c) => (await c.query(`SELECT kit_count, weaning_weight_grams FROM litter_events WHERE litter_id = $1 AND kind = 'weaned'`, [litter.id])).rows);
+    expect(row).toEqual([{ kit_count: 8, weaning_weight_grams: 6000 }]);
+  });
+
+  it('when the litter weight is negative, absurd for the kits\' age, or on a loss, then clear errors and nothing written', async () => {
+    const coop = await createTestCoop();
+    const { litter } = await litterAs(coop.member, { servicedDaysAgo: 66, kindledDaysAgo: 35, bornAlive: 8 });
+    const agent = await agentOf(coop.member.email);
+    const before = await almanacCounts(coop.id);
+    const negative = await agent.post(`/api/litters/${litter.id}/events`).send({ kind: 'weaned', on: farmToday(), count: 8, weaningWeightGrams: -500 });
+    expect(negative.status).toBe(400);
+    expect(negative.body.error.details.weaningWeightGrams).toEqual(['The litter weight must be above zero']);
+    // 30,000 g for 8 kits = 3,750 g a kit at 35 days: over three times the usual 780 g (growth/plausibility.ts).
+    const absurd = await agent.post(`/api/litters/${litter.id}/events`).send({ kind: 'weaned', on: farmToday(), count: 8, weaningWeightGrams: 30000 });
+    expect(absurd.status).toBe(400);
+    expect(absurd.body.error.details.weaningWeightGrams).toEqual([
+      '3750 g a head is not possible at 35 days (about 780 g is usual); check the weight, the head count and the date (30000 g for 8 kits)',
+    ]);
+    const tooLight = await agent.post(`/api/litters/${litter.id}/events`).send({ kind: 'weaned', on: farmToday(), count: 8, weaningWeightGrams: 800 });
+    expect(tooLight.status).toBe(400);
+    expect(tooLight.body.error.details.weaningWeightGrams[0]).toMatch(/^100 g a head is not possible at 35 days/);
+    const onALoss = await agent.post(`/api/litters/${litter.id}/events`).send({ kind: 'lost', on: farmToday(), count: 1, cause: 'Crushed', weaningWeightGrams: 700 });
+    expect(onALoss.status).toBe(400);
+    expect(onALoss.body.error.details.weaningWeightGrams).toEqual(['A litter weight goes with a weaning only']);
+    expect(await almanacCounts(coop.id)).toEqual(before);
+  });
+
+  it('when the litter weight is unusual for the age, then it asks for confirmation, and saves when confirmed', async () => {
+    const coop = await createTestCoop();
+    const { litter } = await litterAs(coop.member, { servicedDaysAgo: 66, kindledDaysAgo: 35, bornAlive: 8 });
+    const agent = await agentOf(coop.member.email);
+    // 14,000 g for 8 kits = 1,750 g a kit: over 1.6 times the usual 780 g, under 3 times → a warning.
+    const body = { kind: 'weaned', on: farmToday(), count: 8, weaningWeightGrams: 14000 };
+    const asked = await agent.post(`/api/litters/${litter.id}/events`).send(body);
+    expect(asked.status).toBe(422);
+    expect(asked.body.error.details.weaningWeightGrams).toEqual(['1750 g a head is heavy at 35 days (about 780 g is usual) (14000 g for 8 kits)']);
+    expect(await asTenant(coop.id, async (c) => (await c.query('SELECT count(*)::int AS n FROM litter_events WHERE litter_id = $1', [litter.id])).rows[0].n)).toBe(0);
+    const saved = await agent.post(`/api/litters/${litter.id}/events`).send({ ...body, confirm: true });
+    expect(saved.status).toBe(201);
+    expect((saved.body as LitterDto).events[0]).toMatchObject({ kind: 'weaned', weaningWeightGrams: 14000 });
+  });
+});

@@ -6,6 +6,7 @@ import { createHousingUnit, placeInUnit } from '../../packages/server/src/module
 import { recordLitterEvent } from '../../packages/server/src/modules/litters/litters.service';
 import { almanacCounts, breedingPair, daysAgo, farmToday, litterAs, serviceAs } from './almanac';
 import { asTenant } from './db';
+import { grownLitterAs, groupAs, purchaseAs } from './growout';
 import type { TestCoop } from './factories';
 import { actorOf, nextTattoo } from './herd';
 
@@ -21,6 +22,8 @@ export interface AlmanacIds {
   unitId?: string;
   placementId?: string;
   feedToken?: string;
+  /** Grow-out (issue 7): a growing group of farm A with a litter that still has free kits, and a feed purchase. */
+  groupId?: string;
 }
 
 export async function almanacTarget(coop: TestCoop, target: string): Promise<AlmanacIds> {
@@ -63,6 +66,12 @@ export async function almanacTarget(coop: TestCoop, target: string): Promise<Alm
       const placed = await placeInUnit(actorOf(coop.member), unit.id, { animalId: doe.id, placedOn: daysAgo(3), note: '' });
       return { unitId: unit.id, placementId: placed.current[0]!.id };
     }
+    case 'groupA': {
+      const { litter } = await grownLitterAs(coop.member, 45, 6);
+      const group = await groupAs(coop.member, { name: `G-${randomUUID().slice(0, 6)}`, formedOn: daysAgo(3), targetGrams: 2270, litters: [{ litterId: litter.id, heads: 3 }] });
+      await purchaseAs(coop.member, { boughtOn: daysAgo(5), productName: 'Matrix feed', bagGrams: 20_000, bags: 1, priceCents: 1500 });
+      return { groupId: group.id, litterId: litter.id };
+    }
     case 'feedA': {
       const feed = await renewCalendarFeed(actorOf(coop.member), 'http://127.0.0.1:3000');
       return { feedToken: /calendar-feeds\/(.+)\.ics$/.exec(feed.url!)![1] };
@@ -80,7 +89,8 @@ export function almanacPath(path: string, ids: AlmanacIds): string {
     .replace(':eventId', ids.eventId ?? '')
     .replace(':unitId', ids.unitId ?? '')
     .replace(':placementId', ids.placementId ?? '')
-    .replace(':feedToken', ids.feedToken ?? '');
+    .replace(':feedToken', ids.feedToken ?? '')
+    .replace(':groupId', ids.groupId ?? '');
 }
 
 /** Request bodies of the Almanac's rows; undefined for bodies that are not the Almanac's. */
@@ -88,6 +98,16 @@ export async function almanacBody(coop: TestCoop, body: string | undefined, ids:
   const version = async (table: string, id: string | undefined) =>
     id ? ((await asTenant(coop.id, (c) => c.query(`SELECT version FROM ${table} WHERE id = $1`, [id]))).rows[0]?.version ?? 0) : 0;
   switch (body) {
+    case 'growOutGroup':
+      return { name: 'Matrix group', formedOn: farmToday(), targetGrams: 2270, litters: [{ litterId: ids.litterId, heads: 1 }] };
+    case 'groupWeighIn':
+      return { weighedOn: farmToday(), totalGrams: 3 * 1250, headCount: 3 };
+    case 'groupClose':
+      return { closedOn: farmToday(), version: await version('grow_out_groups', ids.groupId) };
+    case 'feedPurchase':
+      return { boughtOn: farmToday(), productName: 'Matrix pellets', bagGrams: 22_680, bags: 1, priceCents: 1999 };
+    case 'feedUse':
+      return { givenOn: farmToday(), grams: 500, productName: 'Matrix feed', target: 'group', groupId: ids.groupId };
     case 'cycleSettings': {
       const row = ownFarmId ? (await asTenant(ownCoopId, (c) => c.query('SELECT version FROM farm_cycle_settings WHERE farm_id = $1', [ownFarmId]))).rows[0] : null;
       return { palpationDays: 13, version: row?.version ?? 0 };
@@ -107,7 +127,13 @@ export async function almanacBody(coop: TestCoop, body: string | undefined, ids:
     case 'taskReview':
       return { decision: 'accepted', version: await version('almanac_tasks', ids.taskId) };
     case 'treatment':
-      return { animalId: ids.doeId, startedOn: farmToday(), endsOn: farmToday(), treatment: 'Matrix treatment' };
+      return { animalId: ids.doeId, startedOn: farmToday(), lastDoseOn: farmToday(), withdrawalDays: 0, treatment: 'Matrix treatment', dose: '1 ml', route: 'oral', veterinarian: 'Dr. Matrix' };
+    case 'temperatureReading':
+      return { value: 72, unit: 'F', place: 'Matrix barn' };
+    case 'processingRecord':
+      return { animalId: ids.doeId, processedOn: farmToday(), liveGrams: 4200, hotCarcassGrams: 2300 };
+    case 'processingMark':
+      return { animalId: ids.doeId, plannedOn: farmToday() };
     case 'morningEmail':
       return { enabled: false, hour: 6 };
     case 'kindling':

@@ -26,8 +26,13 @@ import {
 import { breedRoutes } from './modules/breeds/breeds.routes';
 import { herdExportRoutes, herdImportRoutes, pedigreeCertificateRoutes } from './modules/herd-files/herd-files.routes';
 import { animalPhotoRoutes, farmPhotoRoutes, photoRoutes } from './modules/photos/photos.routes';
-import { almanacRoutes, calendarFeedRoutes, serviceRoutes, treatmentRoutes } from './modules/almanac/almanac.routes';
+import { almanacRoutes, calendarFeedRoutes, serviceRoutes, treatmentRoutes, withdrawalRoutes } from './modules/almanac/almanac.routes';
+import { heatCautionRoutes, temperatureRoutes } from './modules/health/health.routes';
+import { processingMarkRoutes, processingRecordRoutes } from './modules/processing/processing.routes';
 import { housingPlacementRoutes, housingRoutes, litterEventRoutes, litterRoutes } from './modules/litters/litters.routes';
+import { growOutRoutes } from './modules/growout/growout.routes';
+import { feedRoutes } from './modules/feed/feed.routes';
+import { performanceRoutes } from './modules/performance/performance.routes';
 
 const defaultClientDist = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../client/dist');
 
@@ -118,7 +123,17 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
   api.use('/litters', litterRoutes());
   api.use('/litter-events', litterEventRoutes());
   api.use('/housing-units', housingRoutes());
+  // Grow-out groups and the feed book (issue 7).
+  api.use('/grow-out', growOutRoutes());
+  api.use('/feed', feedRoutes());
   api.use('/housing-placements', housingPlacementRoutes());
+  // Health and yield (issue 7): treatments' withdrawals, the barn's temperature, processing records and marks.
+  api.use('/withdrawals', withdrawalRoutes());
+  api.use('/temperature-readings', temperatureRoutes());
+  api.use('/heat-caution', heatCautionRoutes());
+  api.use('/processing-records', processingRecordRoutes());
+  api.use('/processing-marks', processingMarkRoutes());
+  api.use('/performance', performanceRoutes());
   api.use(apiNotFound);
   app.use('/api', api);
 

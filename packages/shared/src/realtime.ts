@@ -20,6 +20,14 @@ export const RealtimeEvent = {
   almanacChanged: 'almanac:changed',
   /** A litter of the farm changed (kindling, a kit-count event, a fostering, a keeper, a review); to the farm's room. */
   litterChanged: 'litter:changed',
+  /** The farm's grow-out groups, their weigh-ins or its feed purchases and feed given changed; to the farm's room. */
+  growOutChanged: 'growout:changed',
+  /** A temperature reading was logged on the farm (the heat caution may change); to the farm's room. */
+  temperatureRecorded: 'temperature:recorded',
+  /** The farm's treatments and withdrawals changed; to the farm's room. */
+  healthChanged: 'health:changed',
+  /** A processing record or a mark for processing of the farm changed; to the farm's room. */
+  processingChanged: 'processing:changed',
 } as const;
 
 export interface ServerToClientEvents {
@@ -33,6 +41,10 @@ export interface ServerToClientEvents {
   [RealtimeEvent.memberUpdated]: (payload: { userId: string }) => void;
   [RealtimeEvent.almanacChanged]: (payload: { farmId: string }) => void;
   [RealtimeEvent.litterChanged]: (payload: { farmId: string; litterId: string }) => void;
+  [RealtimeEvent.temperatureRecorded]: (payload: { farmId: string; readingId: string; celsius: number; hot: boolean }) => void;
+  [RealtimeEvent.healthChanged]: (payload: { farmId: string }) => void;
+  [RealtimeEvent.processingChanged]: (payload: { farmId: string }) => void;
+  [RealtimeEvent.growOutChanged]: (payload: { farmId: string; groupId: string | null }) => void;
 }
 
 // eslint-disable-next-line @typescript-eslint/no-empty-object-type

@@ -11,7 +11,59 @@ import { requireMe } from './route-guards';
 
 // The shell (layout, guards, errors) ships in the first load; each screen is fetched when first visited.
 /** The grow-out area's tabs (issue 7), each its own lazy route. */
-const growOutRoutes: RouteObject[] = [];
+const growOutRoutes: RouteObject[] = [
+  // Groups (index), forming one, a group's detail; the Feed tab.
+  {
+    index: true,
+    lazy: async () => {
+      const { loader, GroupsPage } = await import('../routes/grow-out/groups');
+      return { loader, Component: GroupsPage };
+    },
+  },
+  {
+    path: 'groups/new',
+    lazy: async () => {
+      const { loader, GroupNewPage } = await import('../routes/grow-out/group-new');
+      return { loader, Component: GroupNewPage };
+    },
+  },
+  {
+    path: 'groups/:groupId',
+    lazy: async () => {
+      const { loader, GroupDetailPage } = await import('../routes/grow-out/group-detail');
+      return { loader, Component: GroupDetailPage };
+    },
+  },
+  {
+    path: 'feed',
+    lazy: async () => {
+      const { loader, FeedPage } = await import('../routes/grow-out/feed');
+      return { loader, Component: FeedPage };
+    },
+  },
+  // Health (treatments, withdrawals, temperature) and Processing (records, yields, marks).
+  {
+    path: 'health',
+    lazy: async () => {
+      const { loader, HealthPage } = await import('../routes/grow-out/health');
+      return { loader, Component: HealthPage };
+    },
+  },
+  {
+    path: 'processing',
+    lazy: async () => {
+      const { loader, ProcessingPage } = await import('../routes/grow-out/processing');
+      return { loader, Component: ProcessingPage };
+    },
+  },
+  {
+    path: 'performance',
+    lazy: async () => {
+      const { loader, PerformancePage } = await import('../routes/grow-out/performance');
+      return { loader, Component: PerformancePage };
+    },
+  },
+];
 
 const adminRoutes: RouteObject[] = [
   { index: true, loader: () => redirect('/admin/applications') },

@@ -22,6 +22,9 @@ import { Farm } from '../modules/farms/farm.model';
 import { HousingPlacement } from '../modules/litters/housing-placement.model';
 import { HousingUnit } from '../modules/litters/housing-unit.model';
 import { GrowOutGroup, GrowOutGroupLitter } from '../modules/growout/grow-out-group.model';
+import { FeedPurchase, FeedUse, FeedUseShare } from '../modules/feed/feed.model';
+import { TemperatureReading } from '../modules/health/temperature-reading.model';
+import { ProcessingMark, ProcessingRecord } from '../modules/processing/processing-record.model';
 import { LitterEvent } from '../modules/litters/litter-event.model';
 import { Litter } from '../modules/litters/litter.model';
 import { HerdImport } from '../modules/herd-files/herd-import.model';
@@ -41,6 +44,8 @@ export function initModels(sequelize: Sequelize): void {
   for (const model of [Litter, LitterEvent, HousingUnit, HousingPlacement]) model.initModel(sequelize);
   // Grow-out, feed, health and yield (issue 7).
   for (const model of [GrowOutGroup, GrowOutGroupLitter]) model.initModel(sequelize);
+  for (const model of [FeedPurchase, FeedUse, FeedUseShare]) model.initModel(sequelize);
+  for (const model of [TemperatureReading, ProcessingRecord, ProcessingMark]) model.initModel(sequelize);
   // Herd records in and out: photos, staged spreadsheets.
   for (const model of [Photo, HerdImport]) model.initModel(sequelize);
   Farm.hasMany(User, { as: 'members', foreignKey: 'farmId' });

@@ -171,16 +171,7 @@ export interface BreedingStockListDto {
   bucks: BreedingStockDto[];
 }
 
-export interface TreatmentDto {
-  id: string;
-  animal: AnimalRefDto;
-  startedOn: string;
-  endsOn: string;
-  treatment: string;
-  veterinarian: string;
-  notes: string;
-  recordedBy: PersonRefDto | null;
-}
+/** TreatmentDto: see health/health-dto.ts (issue 7). */
 
 export interface LitterEventDto {
   id: string;
@@ -188,6 +179,8 @@ export interface LitterEventDto {
   on: string;
   count: number;
   cause: string | null;
+  /** A weaning: the total live weight of the kits weaned, when weighed (grams). */
+  weaningWeightGrams: number | null;
   /** For a fostering: the other litter, with its farm (the other litter's details are that farm's). */
   otherLitter: { id: string; farm: FarmRefDto; dam: AnimalRefDto | null; kindledOn: string | null; isOwnFarm: boolean } | null;
   enteredBy: PersonRefDto | null;

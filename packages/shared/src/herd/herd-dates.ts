@@ -43,7 +43,15 @@ export function addMonths(date: string, months: number): string {
   return fromUtcMs(Date.UTC(firstOfTarget.getUTCFullYear(), firstOfTarget.getUTCMonth(), Math.min(d, lastDay)));
 }
 
+const daysInMonth = (y: number, m: number) => (m === 2 ? ((y % 4 === 0 && y % 100 !== 0) || y % 400 === 0 ? 29 : 28) : [4, 6, 9, 11].includes(m) ? 30 : 31);
+
+/** A real calendar date as YYYY-MM-DD (checked by arithmetic: it runs for every record a table reads). */
 export function isIsoDate(value: string): boolean {
-  if (!isoDate.test(value)) return false;
-  return fromUtcMs(toUtcMs(value)) === value;
+  const match = isoDate.exec(value);
+  if (!match) return false;
+  const y = Number(match[1]);
+  const m = Number(match[2]);
+  const d = Number(match[3]);
+  // Years under 100 were never valid here (Date.UTC reads them as 19xx).
+  return y >= 100 && m >= 1 && m <= 12 && d >= 1 && d <= daysInMonth(y, m);
 }

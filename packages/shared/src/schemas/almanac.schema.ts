@@ -51,26 +51,7 @@ export const serviceListQuerySchema = z.strictObject({
 });
 export type ServiceListQuery = z.infer<typeof serviceListQuerySchema>;
 
-/**
- * A treatment of an animal. No drugs are approved for rabbits in the US: treatment is extralabel and
- * needs a veterinarian, who sets the withdrawal time before slaughter (Sundlof et al., JAVMA 1991; FARAD).
- */
-export const treatmentCreateSchema = z
-  .strictObject({
-    animalId: idSchema('The animal'),
-    startedOn: calendarDateSchema,
-    /** The last day of treatment and withdrawal the veterinarian set. */
-    endsOn: calendarDateSchema,
-    treatment: z.string().trim().min(1, 'Say what the treatment is').max(200, 'Keep it under 200 characters'),
-    veterinarian: noteText(120).default(''),
-    notes: noteText(1000).default(''),
-  })
-  .superRefine((v, ctx) => {
-    if (isIsoDate(v.startedOn) && isIsoDate(v.endsOn) && v.endsOn < v.startedOn) {
-      ctx.addIssue({ code: 'custom', path: ['endsOn'], message: 'The end of the withdrawal cannot come before the treatment starts' });
-    }
-  });
-export type TreatmentCreateInput = z.infer<typeof treatmentCreateSchema>;
+/** Treatments moved to schemas/health.schema.ts (issue 7: dose, route, withdrawal, groups). */
 
 /** GET /api/almanac/tasks: a window of the agenda or of a month, on the farm's clock. */
 export const agendaQuerySchema = z

@@ -42,10 +42,26 @@ export const litterEventCreateSchema = z
     on: calendarDateSchema,
     count: kitCount('Kits', 1),
     cause: noteText(200).optional(),
+    /**
+     * A weaning only: the total live weight of the kits weaned, in grams (optional). Its weight a kit
+     * for their age is checked on the server (growth/plausibility.ts).
+     */
+    weaningWeightGrams: z
+      .number({ message: 'The litter weight: enter a weight' })
+      .int('The litter weight: whole grams only')
+      .min(1, 'The litter weight must be above zero')
+      .max(600_000, 'The litter weight is more than any litter weighs; check the weight')
+      .nullable()
+      .optional(),
+    /** Set on a resubmit after a warning (a litter weight unusual for the age), to save anyway. */
+    confirm: z.boolean().optional(),
   })
   .superRefine((v, ctx) => {
     if (v.kind === 'lost' && !v.cause?.trim()) {
       ctx.addIssue({ code: 'custom', path: ['cause'], message: 'Say what happened (cause unknown is a cause)' });
+    }
+    if (v.kind !== 'weaned' && v.weaningWeightGrams != null) {
+      ctx.addIssue({ code: 'custom', path: ['weaningWeightGrams'], message: 'A litter weight goes with a weaning only' });
     }
   });
 export type LitterEventCreateInput = z.infer<typeof litterEventCreateSchema>;

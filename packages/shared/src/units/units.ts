@@ -42,3 +42,16 @@ export function formatWeight(grams: number, unit: WeightUnit): string {
 export function formatTemperature(celsius: number, unit: TemperatureUnit): string {
   return unit === 'C' ? `${celsius.toFixed(1)} °C` : `${celsiusToFahrenheit(celsius).toFixed(1)} °F`;
 }
+
+/**
+ * A weight typed in the farm's units to whole grams: pounds and ounces, or kilograms and grams (either
+ * part may be blank). null when nothing usable was typed or a part is negative.
+ */
+export function weightInputToGrams(major: string, minor: string, unit: WeightUnit): number | null {
+  const read = (text: string) => (text.trim() === '' ? 0 : Number(text.trim().replace(',', '.')));
+  const a = read(major);
+  const b = read(minor);
+  if (!Number.isFinite(a) || !Number.isFinite(b) || a < 0 || b < 0) return null;
+  const grams = unit === 'lb_oz' ? a * GRAMS_PER_POUND + b * GRAMS_PER_OUNCE : a * 1000 + b;
+  return grams > 0 ? Math.round(grams) : null;
+}

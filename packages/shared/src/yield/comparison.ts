@@ -32,7 +32,11 @@ export function compareByKey<M extends string>(
   metrics: ReadonlyArray<M>,
 ): ComparisonRow<M>[] {
   const byKey = new Map<string, { key: string; values: Partial<Record<M, number | null>> }[]>();
-  for (const u of units) byKey.set(u.key, [...(byKey.get(u.key) ?? []), u]);
+  for (const u of units) {
+    const rows = byKey.get(u.key);
+    if (rows) rows.push(u);
+    else byKey.set(u.key, [u]);
+  }
   return [...byKey.entries()]
     .map(([key, rows]) => ({
       key,

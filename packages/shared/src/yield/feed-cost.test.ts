@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { centsPerKg, checkFeedUses, costFeedUses, feedCostPerWeight, purchaseGrams, type FeedPurchase, type FeedUse } from './feed-cost';
+import { centsPerKg, checkFeedUses, costFeedUses, feedCostPerWeight, purchaseGrams, stockLeftByPurchase, type FeedPurchase, type FeedUse } from './feed-cost';
 import { doeLitterFeedConversion, feedConversion, groupFeedConversion } from './feed-conversion';
 import { dressOut, dressOutPercent } from './dress-out';
 import { usdaClass } from './usda-class';
@@ -72,5 +72,22 @@ describe('feed conversion, dress-out and class edge cases', () => {
     expect(usdaClass({ birthDate: null, processedOn: '2026-05-01', carcassGrams: 1200 })).toMatchObject({ usdaClass: 'unclassed', ageDays: null });
     expect(() => usdaClass({ birthDate: '2026-05-02', processedOn: '2026-05-01', carcassGrams: 1200 })).toThrow(RangeError);
     expect(() => usdaClass({ birthDate: '2026-03-01', processedOn: '2026-05-01', carcassGrams: 0 })).toThrow(RangeError);
+  });
+});
+
+describe('stock left in each purchase', () => {
+  it('when two bags of one feed are drawn first bought first used, then the older empties first (worked by hand)', () => {
+    const purchases: FeedPurchase[] = [
+      { id: 'a', feedId: 'grower', boughtOn: '2026-01-01', grams: 22_680, priceCents: 1800 },
+      { id: 'b', feedId: 'grower', boughtOn: '2026-01-20', grams: 22_680, priceCents: 2000 },
+      { id: 'c', feedId: 'hay', boughtOn: '2026-01-01', grams: 10_000, priceCents: 900 },
+    ];
+    const uses: FeedUse[] = [
+      { id: 'u1', feedId: 'grower', givenOn: '2026-01-10', grams: 20_000 },
+      { id: 'u2', feedId: 'grower', givenOn: '2026-01-25', grams: 5_000 },
+    ];
+    const left = stockLeftByPurchase(purchases, uses);
+    // 22,680 − 20,000 = 2,680 left in a; u2 takes those 2,680 then 2,320 of b → 20,360 left in b.
+    expect(Object.fromEntries(left)).toEqual({ a: 0, b: 20_360, c: 10_000 });
   });
 });

@@ -134,6 +134,29 @@ export function costFeedUses(purchases: ReadonlyArray<FeedPurchase>, uses: Reado
   return result;
 }
 
+/**
+ * Grams left in each purchase after the uses, drawn first bought first used within each feed (the same
+ * order costFeedUses charges them in). Uses that fail checkFeedUses draw what there is.
+ */
+export function stockLeftByPurchase(purchases: ReadonlyArray<FeedPurchase>, uses: ReadonlyArray<FeedUse>): Map<string, number> {
+  const left = new Map(purchases.map((p) => [p.id, p.grams]));
+  const feeds = new Set(purchases.map((p) => p.feedId));
+  for (const feedId of feeds) {
+    const lots = purchases.filter((p) => p.feedId === feedId).sort(byDateThenId((p) => p.boughtOn));
+    for (const use of uses.filter((u) => u.feedId === feedId && u.grams > 0).sort(byDateThenId((u) => u.givenOn))) {
+      let need = use.grams;
+      for (const lot of lots) {
+        if (need <= 0) break;
+        if (lot.boughtOn > use.givenOn) break;
+        const take = Math.min(need, left.get(lot.id)!);
+        left.set(lot.id, left.get(lot.id)! - take);
+        need -= take;
+      }
+    }
+  }
+  return left;
+}
+
 export interface FeedCostPerWeight {
   feedCostCents: number;
   perKgLive: number | null;

@@ -7,3 +7,4 @@ export * from './performance';
 export * from './suggestions';
 export * from './comparison';
 export * from './cross-label';
+export * from './performance-tables';

@@ -90,9 +90,13 @@ export function missedInARow(services: ReadonlyArray<ServiceRecord>): { count: n
   return { count: dates.length, dates };
 }
 
+/** Litter summaries already worked out (the farm's tables summarize each litter once for its doe and its buck). */
+export type SummaryOf = (litter: LitterRecord) => LitterSummary;
+
 export function doePerformance(
   records: { services: ReadonlyArray<ServiceRecord>; litters: ReadonlyArray<PerformanceLitter>; carcasses?: ReadonlyArray<{ processedOn: string; carcassGrams: number }> },
   period: PerformancePeriod,
+  summaryOf: SummaryOf = litterSummary,
 ): DoePerformance {
   if (period.to < period.from) throw new RangeError('The period ends before it starts');
   const starts = [...records.services.map((s) => s.servicedOn), ...records.litters.map((l) => l.kindledOn)].sort();
@@ -107,7 +111,7 @@ export function doePerformance(
 
   const allLitters = [...records.litters].sort(byDate((l) => l.kindledOn));
   const litters = allLitters.filter((l) => inPeriod(l.kindledOn, period));
-  const summaries = litters.map((l) => ({ ...litterSummary(l), kindledOn: l.kindledOn, weaningWeightGrams: l.weaningWeightGrams ?? null }));
+  const summaries = litters.map((l) => ({ ...summaryOf(l), kindledOn: l.kindledOn, weaningWeightGrams: l.weaningWeightGrams ?? null }));
   const intervals: number[] = [];
   for (let i = 1; i < allLitters.length; i++) {
     if (inPeriod(allLitters[i]!.kindledOn, period)) intervals.push(daysBetween(allLitters[i - 1]!.kindledOn, allLitters[i]!.kindledOn));
@@ -154,11 +158,12 @@ export interface BuckPerformance {
 export function buckPerformance(
   records: { services: ReadonlyArray<ServiceRecord>; litters: ReadonlyArray<LitterRecord> },
   period: PerformancePeriod,
+  summaryOf: SummaryOf = litterSummary,
 ): BuckPerformance {
   const services = records.services.filter((s) => inPeriod(s.servicedOn, period));
   const kindled = services.filter((s) => s.outcome === 'kindled').length;
   const missed = services.filter((s) => s.outcome === 'missed').length;
-  const summaries = records.litters.filter((l) => inPeriod(l.kindledOn, period)).map(litterSummary);
+  const summaries = records.litters.filter((l) => inPeriod(l.kindledOn, period)).map((l) => summaryOf(l));
   const weaned = summaries.filter((s) => s.onDoe === 0 && s.raised > 0);
   const raised = weaned.reduce((n, s) => n + s.raised, 0);
   return {

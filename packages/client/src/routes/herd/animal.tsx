@@ -25,6 +25,7 @@ import { sexLabels } from '../../features/herd/herd-labels';
 import { useAbility } from '../../lib/ability';
 import { useSession } from '../../lib/session';
 import { animalIdFrom, useAnimalIdParam } from './animal-id-param';
+import { ProcessingActions } from '../../features/processing/components/processing-actions';
 
 export async function loader({ params }: LoaderFunctionArgs) {
   const animalId = animalIdFrom(params);
@@ -135,6 +136,11 @@ function FullRecord({ animal }: { animal: AnimalDetailDto }) {
         )}
         {canWeigh && <WeighInForm animalId={animal.id} unit={unit} isApprentice={isApprentice} />}
       </Section>
+      {keptHere && animal.owningFarm?.id === me.user.farmId && (
+        <Section title="Withdrawal and processing">
+          <ProcessingActions animalId={animal.id} canMark={canEdit} />
+        </Section>
+      )}
       <PedigreeSection animalId={animal.id} />
       <Section title={`Offspring (${animal.offspring.length})`}>
         <CardList cards={animal.offspring} empty="No offspring recorded." />

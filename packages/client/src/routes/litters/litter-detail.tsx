@@ -18,6 +18,7 @@ import { KeeperForm } from '../../features/litters/components/keeper-form';
 import { KitCountChart } from '../../features/litters/components/kit-count-chart';
 import { LitterEventForm } from '../../features/litters/components/litter-event-form';
 import { LitterEventsList } from '../../features/litters/components/litter-events-list';
+import { useWeightUnit } from '../../features/herd/hooks/use-weight-unit';
 import { idFrom, useIdParam } from '../almanac/id-param';
 
 export async function loader({ params }: LoaderFunctionArgs) {
@@ -37,6 +38,7 @@ function Figure({ label, value, strong = false }: { label: string; value: number
 export function LitterDetailPage() {
   const { data: litter } = useLitter(useIdParam('litterId'));
   const rights = useAlmanacRights();
+  const unit = useWeightUnit();
   const kindled = (useLocation().state as { kindled?: boolean } | null)?.kindled === true;
   const today = addDays(litter.kindledOn, litter.ageDays);
   const s = litter.summary;
@@ -88,12 +90,12 @@ export function LitterDetailPage() {
       </section>
       <Card className="space-y-3">
         <h2 className="text-xl font-bold">Changes of the kit count</h2>
-        <LitterEventsList litter={litter} canReview={rights.canPlan} />
+        <LitterEventsList litter={litter} canReview={rights.canPlan} unit={unit} />
       </Card>
       {rights.canRecordCounts && litter.onDoe > 0 && (
         <Card className="space-y-4">
           <h2 className="text-xl font-bold">Weaned, lost or culled</h2>
-          <LitterEventForm litter={litter} today={today} isApprentice={rights.isApprentice} />
+          <LitterEventForm litter={litter} today={today} isApprentice={rights.isApprentice} unit={unit} />
         </Card>
       )}
       {rights.canRecordLitters && (

@@ -1,6 +1,6 @@
 import {
   daysBetween, TASK_KIND_LABELS, taskTiming, type AlmanacTaskDto, type AnimalRefDto, type BreedingCheck, type FarmRefDto,
-  type PalpationDto, type ServiceDto, type ServiceListItemDto, type TreatmentDto,
+  type PalpationDto, type ServiceDto, type ServiceListItemDto, type TreatmentDto, type TreatmentRoute,
 } from '@burrowline/shared';
 import type { AnimalFacts } from '../animals/animals.service';
 import type { Palpation } from './palpation.model';
@@ -116,14 +116,22 @@ export function presentService(
   };
 }
 
-export function presentTreatment(t: Treatment, ctx: AlmanacPresentContext): TreatmentDto {
+/** A treatment as the Health tab shows it; `groupNames` names the farm's grow-out groups. */
+export function presentTreatment(t: Treatment, ctx: AlmanacPresentContext, groupNames: Map<string, string>): TreatmentDto {
   return {
     id: t.id,
-    animal: presentAnimalRef(t.animalId, ctx),
-    startedOn: t.startedOn,
-    endsOn: t.endsOn,
+    animal: t.animalId ? presentAnimalRef(t.animalId, ctx) : null,
+    group: t.groupId ? { id: t.groupId, name: groupNames.get(t.groupId) ?? 'A grow-out group' } : null,
     treatment: t.treatment,
+    dose: t.dose,
+    route: (t.route as TreatmentRoute | null) ?? null,
     veterinarian: t.veterinarian,
+    startedOn: t.startedOn,
+    lastDoseOn: t.lastDoseOn,
+    withdrawalEndsOn: t.endsOn,
+    endsOn: t.endsOn,
+    withdrawalDays: t.withdrawalDays,
+    underWithdrawal: t.startedOn <= ctx.today && t.endsOn >= ctx.today,
     notes: t.notes,
     recordedBy: person(t.recordedBy, ctx.names),
   };

@@ -1,8 +1,7 @@
 import { Router } from 'express';
-import { z } from 'zod';
 import {
   agendaQuerySchema, cycleSettingsPatchSchema, digestPreferenceSchema, entryReviewSchema, palpationCreateSchema,
-  serviceClosureSchema, serviceCreateSchema, serviceListQuerySchema, taskBulkSchema, taskUpdateSchema, treatmentCreateSchema,
+  serviceClosureSchema, serviceCreateSchema, serviceListQuerySchema, taskBulkSchema, taskUpdateSchema, treatmentCreateSchema, treatmentListQuerySchema, withdrawalQuerySchema,
   uuidParamSchema,
 } from '@burrowline/shared';
 import type { Config } from '../../config/env';
@@ -12,7 +11,7 @@ import { calendarFeedFor, calendarFeedStatus, feedNotFound, renewCalendarFeed, r
 import { getCycleSettings, updateCycleSettings } from './cycle-settings.service';
 import { getDigestPreference, setDigestPreference } from './morning-digest.service';
 import { almanacSummary, bulkUpdateTasks, listAgenda, reviewTask, updateTask } from './tasks.service';
-import { listTreatments, recordTreatment } from './treatments.service';
+import { listTreatments, listWithdrawals, recordTreatment } from './treatments.service';
 
 const id = (value: unknown) => uuidParamSchema.parse(value);
 
@@ -90,11 +89,20 @@ export function treatmentRoutes(): Router {
   const router = Router();
   router.use(requireUser);
   router.get('/', async (req, res) => {
-    const { animalId } = z.strictObject({ animalId: z.uuid().optional() }).parse(req.query);
-    res.json({ treatments: await listTreatments(actorOf(req), animalId) });
+    res.json({ treatments: await listTreatments(actorOf(req), treatmentListQuerySchema.parse(req.query)) });
   });
   router.post('/', async (req, res) => {
     res.status(201).json(await recordTreatment(actorOf(req), treatmentCreateSchema.parse(req.body)));
+  });
+  return router;
+}
+
+/** /api/withdrawals: what is under a veterinarian's withdrawal today (of one animal or group, or the farm's). */
+export function withdrawalRoutes(): Router {
+  const router = Router();
+  router.use(requireUser);
+  router.get('/', async (req, res) => {
+    res.json(await listWithdrawals(actorOf(req), withdrawalQuerySchema.parse(req.query)));
   });
   return router;
 }

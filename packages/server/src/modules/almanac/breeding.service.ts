@@ -1,7 +1,7 @@
 import { Op, type Transaction } from 'sequelize';
 import {
   checkPalpationDate, checkService, daysBetween, ErrorCode, kindlingStatus, MEDIUM_BREED_FIRST_BREEDING_DAYS,
-  planAfterPalpation, planFromService, settleServiceTasksOnKindling, type BreedingCheck, type BreedingStockDto,
+  planAfterPalpation, planFromService, serviceOutcome, settleServiceTasksOnKindling, type ServiceOutcome, type BreedingCheck, type BreedingStockDto,
   type BreedingStockListDto, type CycleSettings, type PalpationCreateInput, type ServiceClosureInput,
   type ServiceCreateInput, type ServiceDto, type ServiceListItemDto, type ServiceListQuery,
 } from '@burrowline/shared';
@@ -317,4 +317,40 @@ export async function settleServiceOnKindling(tx: Transaction, actor: SessionUse
   await service.save({ transaction: tx });
   await recordChanges({ coopId: actor.coopId, tableName: 'services', recordId: service.id, actorUserId: actor.id, changes: { status: [before, 'kindled'] } }, tx);
   announceAlmanac(tx, [service.farmId]);
+}
+
+// ---------------------------------------------------------------------------------------------
+// For performance (issue 7), inside the caller's transaction
+// ---------------------------------------------------------------------------------------------
+
+/** A service with how it turned out (shared serviceOutcome), for conception rates and misses in a row. */
+export interface ServiceOutcomeFacts {
+  id: string;
+  doeId: string;
+  buckId: string;
+  servicedOn: string;
+  status: ServiceRecord['status'];
+  litterId: string | null;
+  outcome: ServiceOutcome;
+}
+
+/**
+ * Every service of a farm with its outcome on the farm's today: kindled, missed (palpated empty, closed
+ * as missed, or the kindling window passed) or still open. One query for the services.
+ */
+export async function serviceOutcomesOfFarm(tx: Transaction, coopId: string, farmId: string, today: string): Promise<ServiceOutcomeFacts[]> {
+  const { settings } = await settingsOf(tx, farmId);
+  const rows = await ServiceRecord.findAll({ where: { coopId, farmId }, order: [['servicedOn', 'ASC'], ['createdAt', 'ASC']], raw: true, transaction: tx });
+  return rows.map((r) => ({
+    id: r.id,
+    doeId: r.doeId,
+    buckId: r.buckId,
+    servicedOn: r.servicedOn,
+    status: r.status,
+    litterId: r.litterId,
+    outcome: serviceOutcome(
+      { servicedOn: r.servicedOn, kindledOn: r.status === 'kindled' ? r.closedOn ?? r.servicedOn : null, palpation: r.status === 'empty' ? 'negative' : null, closedAsMissed: r.status === 'missed' },
+      today, settings,
+    ),
+  }));
 }

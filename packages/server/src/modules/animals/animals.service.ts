@@ -426,6 +426,17 @@ export async function updateAnimal(actor: SessionUser, animalId: string, input: 
 /** Records a dated lifecycle or disposition change (with a cause for a cull) on the owning farm. */
 export async function recordStatus(actor: SessionUser, animalId: string, input: StatusEventInput): Promise<AnimalDetailDto> {
   return withTenant(actor, async (tx) => {
+    const ctx = await applyStatusEvent(tx, actor, animalId, input);
+    return detailOf(tx, actor, ctx, animalId);
+  });
+}
+
+/**
+ * A lifecycle or disposition change inside the caller's transaction (a processing record sets
+ * 'processed', issue 7): the same checks and history as recordStatus; throws AppError when refused.
+ */
+export async function applyStatusEvent(tx: Transaction, actor: SessionUser, animalId: string, input: StatusEventInput) {
+  {
     const animal = await animalForChange(actor, animalId, 'update', tx);
     const ctx = await presentContextFor(actor, tx);
     const errors: FieldMessages = {};
@@ -481,8 +492,8 @@ export async function recordStatus(actor: SessionUser, animalId: string, input: 
       animalId,
       figuresChanged: input.kind === 'disposition' ? 1 : 0,
     });
-    return detailOf(tx, actor, ctx, animalId);
-  });
+    return ctx;
+  }
 }
 
 /**

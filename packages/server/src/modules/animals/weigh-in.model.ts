@@ -13,6 +13,8 @@ export class WeighIn extends Model<InferAttributes<WeighIn>, InferCreationAttrib
   declare totalGrams: number;
   declare headCount: number;
   declare weighedOn: string;
+  /** A group weighed kit by kit: each kit's weight, with its label when given. */
+  declare kitWeights: CreationOptional<{ label: string | null; grams: number }[] | null>;
   declare note: CreationOptional<string>;
   declare enteredBy: string;
   declare reviewState: ReviewState;
@@ -36,6 +38,7 @@ export class WeighIn extends Model<InferAttributes<WeighIn>, InferCreationAttrib
         totalGrams: { type: DataTypes.INTEGER, allowNull: false },
         headCount: { type: DataTypes.INTEGER, allowNull: false },
         weighedOn: { type: DataTypes.DATEONLY, allowNull: false },
+        kitWeights: { type: DataTypes.JSONB, allowNull: true },
         note: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
         enteredBy: { type: DataTypes.UUID, allowNull: false },
         ...reviewColumns(),

@@ -14,6 +14,8 @@ export class LitterEvent extends Model<InferAttributes<LitterEvent>, InferCreati
   declare cause: string | null;
   declare otherLitterId: string | null;
   declare pairId: string | null;
+  /** Total live weight of the kits weaned (a 'weaned' event only), when weighed. */
+  declare weaningWeightGrams: CreationOptional<number | null>;
   declare enteredBy: string | null;
   declare reviewState: CreationOptional<ReviewState>;
   declare reviewedBy: CreationOptional<string | null>;
@@ -37,6 +39,7 @@ export class LitterEvent extends Model<InferAttributes<LitterEvent>, InferCreati
         cause: { type: DataTypes.TEXT, allowNull: true },
         otherLitterId: { type: DataTypes.UUID, allowNull: true },
         pairId: { type: DataTypes.UUID, allowNull: true },
+        weaningWeightGrams: { type: DataTypes.INTEGER, allowNull: true },
         enteredBy: { type: DataTypes.UUID, allowNull: true },
         ...reviewColumns({ defaultState: 'accepted' }),
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },

@@ -1,5 +1,5 @@
 import type { Transaction } from 'sequelize';
-import { checkFosterPairs, checkKindlingDate, hasBreedingErrors, validateLitter, type LitterEventKind } from '@burrowline/shared';
+import { checkFosterPairs, checkKindlingDate, checkWeightForAge, daysBetween, hasBreedingErrors, validateLitter, type LitterEventKind } from '@burrowline/shared';
 import { ImportRefused, markServicesKindled } from '../almanac/almanac-import.service';
 import { LitterEvent } from './litter-event.model';
 import { Litter } from './litter.model';
@@ -36,6 +36,8 @@ export interface ImportedLitterEvent {
   pairId?: string | null;
   enteredBy: string | null;
   reviewState?: 'accepted' | 'pending';
+  /** A weaning: the total live weight of the kits weaned (grams), when weighed. */
+  weaningWeightGrams?: number | null;
 }
 
 export async function importLitters(tx: Transaction, coopId: string, today: string, litters: ImportedLitter[], events: ImportedLitterEvent[]): Promise<void> {
@@ -44,6 +46,7 @@ export async function importLitters(tx: Transaction, coopId: string, today: stri
     LitterEvent.build({
       id: e.id, coopId, farmId, litterId: e.litterId, kind: e.kind, occurredOn: e.on, kitCount: e.count, cause: e.cause ?? null,
       otherLitterId: e.otherLitterId ?? null, pairId: e.pairId ?? null, enteredBy: e.enteredBy, reviewState: e.reviewState ?? 'accepted',
+      weaningWeightGrams: e.kind === 'weaned' ? e.weaningWeightGrams ?? null : null,
     });
   const farmOf = new Map(litters.map((l) => [l.id, l.farmId]));
   const models = events.map((e) => toModel(e, farmOf.get(e.litterId)!));
@@ -56,6 +59,13 @@ export async function importLitters(tx: Transaction, coopId: string, today: stri
     for (const issue of validateLitter(record, today)) problems.push(`litter ${record.id}: ${issue.message}`);
   }
   for (const issue of checkFosterPairs(records)) problems.push(issue.message);
+  const kindledOn = new Map(litters.map((l) => [l.id, l.kindledOn]));
+  for (const e of events) {
+    if (!e.weaningWeightGrams) continue;
+    const check = e.kind === 'weaned' ? checkWeightForAge(e.weaningWeightGrams / e.count, daysBetween(kindledOn.get(e.litterId)!, e.on)) : null;
+    if (e.kind !== 'weaned') problems.push(`litter ${e.litterId}: a litter weight goes with a weaning only`);
+    else if (check?.level === 'error') problems.push(`litter ${e.litterId}: ${check.message}`);
+  }
   if (problems.length > 0) throw new ImportRefused(problems);
 
   await Litter.bulkCreate(

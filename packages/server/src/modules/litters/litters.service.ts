@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { Op, type Transaction } from 'sequelize';
 import {
-  addDays, animalCreateSchema, checkKindlingDate, ErrorCode, planFromKindling, RealtimeEvent, rooms, validateLitter,
+  addDays, animalCreateSchema, checkKindlingDate, checkWeightForAge, daysBetween, ErrorCode, planFromKindling, RealtimeEvent, rooms, validateLitter,
   type EntryReviewInput, type FosterCandidateDto, type FosteringCreateInput, type KeeperCreateInput, type KindlingCreateInput,
   type LitterDto, type LitterEventCreateInput, type LitterIssue, type LitterListItemDto, type LitterListQuery, type LitterRecord,
 } from '@burrowline/shared';
@@ -16,7 +16,8 @@ import { serviceDatesOf, serviceForKindling, settleServiceOnKindling } from '../
 import { settingsOf } from '../almanac/cycle-settings.service';
 import { presentContextOf, presentTasks, tasksOf } from '../almanac/tasks.service';
 import { insertPlannedTasks, markTasksDone, skipTasks } from '../almanac/task-writer';
-import { animalsBornOf, createAnimal } from '../animals/animals.service';
+import { animalFactsOf, animalsBornOf, createAnimal } from '../animals/animals.service';
+import { breedMapOf } from '../breeds/breeds.service';
 import { recordChanges } from '../audit/audit.service';
 import { currentHousingOfLitter } from './housing.service';
 import { LitterEvent } from './litter-event.model';
@@ -176,6 +177,24 @@ export async function recordKindling(actor: SessionUser, input: KindlingCreateIn
 }
 
 /**
+ * A litter weight at weaning, per kit, against the usual weight for the kits' age and the dam's breed
+ * size (growth/plausibility.ts): impossible weights are refused, unusual ones ask for confirmation.
+ */
+async function checkWeaningWeight(
+  tx: Transaction, actor: SessionUser, litter: Litter, on: string, kits: number, grams: number, confirm: boolean | undefined,
+): Promise<void> {
+  const dam = (await animalFactsOf(tx, actor.coopId, [litter.damId])).get(litter.damId);
+  const breed = dam?.breedId ? (await breedMapOf(actor.coopId, tx)).get(dam.breedId) : undefined;
+  const ageDays = daysBetween(litter.kindledOn, on);
+  const check = checkWeightForAge(grams / kits, ageDays, breed?.sizeClass ?? 'medium');
+  if (!check) return;
+  const message = `${check.message} (${grams} g for ${kits === 1 ? '1 kit' : `${kits} kits`})`;
+  const errors: FieldMessages = check.level === 'error' ? { weaningWeightGrams: [message] } : {};
+  const warnings: FieldMessages = check.level === 'warning' ? { weaningWeightGrams: [message] } : {};
+  refuseOrConfirm(errors, warnings, confirm);
+}
+
+/**
  * A dated change of the kit count with no other litter: lost (with a cause), culled, weaned. Refused,
  * nothing written, when more kits would leave than were with the doe on that date (born alive + fostered
  * in − fostered out − lost − culled − weaned), or for a date before the kindling or in the future. An
@@ -193,14 +212,16 @@ export async function recordLitterEvent(actor: SessionUser, litterId: string, in
     }
     const clock = await farmClockOf(tx, actor.coopId, litter.farmId);
     const events = await eventsOf(tx, [litter.id]);
+    const weaningWeightGrams = input.kind === 'weaned' ? input.weaningWeightGrams ?? null : null;
     const pending = LitterEvent.build({
       id: input.id ?? randomUUID(), coopId: actor.coopId, farmId: litter.farmId, litterId: litter.id, kind: input.kind, occurredOn: input.on,
       kitCount: input.count, cause: input.cause?.trim() || null, otherLitterId: null, pairId: null, enteredBy: actor.id,
-      reviewState: actor.role === 'apprentice' ? 'pending' : 'accepted',
+      weaningWeightGrams, reviewState: actor.role === 'apprentice' ? 'pending' : 'accepted',
     });
     const record = recordOf(litter, [...events, pending]);
     const issues = validateLitter(record, clock.today);
     if (issues.length > 0) throw AppError.validation(issuesToMessages(issues, (i) => (i.field === 'on' ? 'on' : i.field === 'cause' ? 'cause' : 'count')));
+    if (weaningWeightGrams !== null) await checkWeaningWeight(tx, actor, litter, input.on, input.count, weaningWeightGrams, input.confirm);
     await pending.save({ transaction: tx });
     if (pending.reviewState === 'accepted') await settleEmptiedLitter(tx, litter, record, input.on, input.kind === 'weaned', actor.id);
     announceLitter(tx, [{ farmId: litter.farmId, litterId: litter.id }]);
@@ -377,5 +398,56 @@ export async function addKeeper(actor: SessionUser, litterId: string, input: Kee
     const litter = await litterFor(tx, actor, litterId);
     announceLitter(tx, [{ farmId: litter.farmId, litterId: litter.id }]);
     return litterDetail(tx, actor, litter);
+  });
+}
+
+// ---------------------------------------------------------------------------------------------
+// For performance (issue 7), inside the caller's transaction
+// ---------------------------------------------------------------------------------------------
+
+/** A litter as the performance tables read it: its parents, its kit-count record and its weaning weight. */
+export interface LitterPerformanceFacts {
+  id: string;
+  farmId: string;
+  serviceId: string;
+  damId: string;
+  sireId: string;
+  kindledOn: string;
+  record: LitterRecord;
+  /**
+   * Total live weight of the kits weaned: the sum over its weanings, when every weaning was weighed;
+   * null when none (or only some) were.
+   */
+  weaningWeightGrams: number | null;
+  /** The date of the last weaning, null before any. */
+  weanedOn: string | null;
+}
+
+/** Every litter of a farm with its counting events: two queries, whatever the number of litters. */
+export async function litterFactsOfFarm(tx: Transaction, coopId: string, farmId: string): Promise<LitterPerformanceFacts[]> {
+  // Plain rows (raw): a farm's five years are thousands of rows, and nothing here is saved back.
+  const litters = await Litter.findAll({ where: { coopId, farmId }, order: [['kindledOn', 'ASC'], ['createdAt', 'ASC']], raw: true, transaction: tx });
+  const events = litters.length === 0 ? [] : await LitterEvent.findAll({ where: { coopId, farmId }, order: [['occurredOn', 'ASC'], ['createdAt', 'ASC']], raw: true, transaction: tx });
+  const byLitter = new Map<string, LitterEvent[]>();
+  for (const e of events) {
+    const list = byLitter.get(e.litterId);
+    if (list) list.push(e);
+    else byLitter.set(e.litterId, [e]);
+  }
+  return litters.map((litter) => {
+    const own = byLitter.get(litter.id) ?? [];
+    const weanings = countingEvents(own).filter((e) => e.kind === 'weaned');
+    const weighed = weanings.length > 0 && weanings.every((e) => e.weaningWeightGrams !== null && e.weaningWeightGrams !== undefined);
+    return {
+      id: litter.id,
+      farmId: litter.farmId,
+      serviceId: litter.serviceId,
+      damId: litter.damId,
+      sireId: litter.sireId,
+      kindledOn: litter.kindledOn,
+      record: recordOf(litter, own),
+      weaningWeightGrams: weighed ? weanings.reduce((n, e) => n + e.weaningWeightGrams!, 0) : null,
+      weanedOn: weanings.at(-1)?.occurredOn ?? null,
+    };
   });
 }

@@ -1,5 +1,5 @@
 import { Link } from 'react-router-dom';
-import type { LitterDto, LitterEventDto } from '@burrowline/shared';
+import { formatWeight, type LitterDto, type LitterEventDto, type WeightUnit } from '@burrowline/shared';
 import { Badge } from '../../../components/ui/badge';
 import { Button } from '../../../components/ui/button';
 import { animalName } from '../../almanac/components/open-services';
@@ -22,7 +22,7 @@ function other(e: LitterEventDto): string | null {
 }
 
 /** Every dated change of the kit count, with who entered it and (an apprentice's) its review. */
-export function LitterEventsList({ litter, canReview }: { litter: LitterDto; canReview: boolean }) {
+export function LitterEventsList({ litter, canReview, unit }: { litter: LitterDto; canReview: boolean; unit: WeightUnit }) {
   const review = useReviewLitterEvent();
   if (litter.events.length === 0) return <p className="text-grey-600">No changes since the kindling.</p>;
   return (
@@ -43,6 +43,7 @@ export function LitterEventsList({ litter, canReview }: { litter: LitterDto; can
                   </>
                 ) : target ? ` ${target}` : ''}
                 {e.cause ? ` — ${e.cause}` : ''}
+                {e.weaningWeightGrams ? ` · ${formatWeight(e.weaningWeightGrams, unit)} together (${formatWeight(e.weaningWeightGrams / e.count, unit)} a kit)` : ''}
                 {e.enteredBy ? <span className="text-sm text-grey-600"> · {e.fromOtherFarm ? `recorded at the other farm by ${e.enteredBy.name}` : e.enteredBy.name}</span> : null}
               </span>
               <span className="flex flex-wrap items-center gap-2">

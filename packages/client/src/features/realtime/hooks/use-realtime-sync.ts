@@ -6,9 +6,14 @@ import { leaveSignedInArea } from '../../auth/leave-signed-in-area';
 import { almanacKeys } from '../../almanac/api/almanac-keys';
 import { applicationKeys } from '../../applications/api/application-keys';
 import { farmKeys } from '../../farms/api/farm-keys';
+import { feedKeys } from '../../feed/api/feed-keys';
+import { growOutKeys } from '../../growout/api/growout-keys';
+import { healthKeys } from '../../health/api/keys';
+import { processingKeys } from '../../processing/api/keys';
 import { herdKeys } from '../../herd/api/herd-keys';
 import { litterKeys } from '../../litters/api/litter-keys';
 import { auditKeys, memberKeys } from '../../members/api/member-keys';
+import { performanceKeys } from '../../performance/api/performance-keys';
 
 /**
  * The one place where server events become cache updates. Mounted by the signed-in layout, so the
@@ -39,10 +44,36 @@ export function useRealtimeSync(): void {
       // A herd change (own farm) or recomputed pedigree figures (anywhere in the co-op): the Herd's queries.
       const refreshHerd = () => void queryClient.invalidateQueries({ queryKey: herdKeys.all });
       // The farm's Almanac (tasks, services, settings) or a litter changed; a litter's tasks live in the Almanac too.
-      const refreshAlmanac = () => void queryClient.invalidateQueries({ queryKey: almanacKeys.all });
+      // The performance tables are computed from services, litters, groups, feed and processing.
+      const refreshPerformance = () => void queryClient.invalidateQueries({ queryKey: performanceKeys.all });
+      const refreshAlmanac = () => {
+        void queryClient.invalidateQueries({ queryKey: almanacKeys.all });
+        refreshPerformance();
+      };
       const refreshLitters = () => {
         void queryClient.invalidateQueries({ queryKey: litterKeys.all });
         refreshAlmanac();
+      };
+      // The farm's grow-out groups, their weigh-ins, or its feed book changed (a group's feed conversion follows the feed).
+      const refreshGrowOut = () => {
+        void queryClient.invalidateQueries({ queryKey: growOutKeys.all });
+        void queryClient.invalidateQueries({ queryKey: feedKeys.all });
+        refreshPerformance();
+      };
+      // Treatments and withdrawals (which also gate marks for processing), the barn's temperature (the heat caution),
+      // processing records and marks (the performance tables read the yields).
+      const refreshHealth = () => {
+        void queryClient.invalidateQueries({ queryKey: healthKeys.all });
+        void queryClient.invalidateQueries({ queryKey: processingKeys.all });
+      };
+      const refreshTemperature = () => void queryClient.invalidateQueries({ queryKey: healthKeys.all });
+      const refreshProcessing = () => {
+        void queryClient.invalidateQueries({ queryKey: processingKeys.all });
+        refreshPerformance();
+      };
+      // A reviewed group weigh-in is announced as a herd change with no animal: the group's projection moves.
+      const refreshGroupWeighIns = ({ animalId }: { animalId: string | null }) => {
+        if (animalId === null) refreshGrowOut();
       };
       const refreshAll = () => {
         refreshFarms();
@@ -50,6 +81,9 @@ export function useRealtimeSync(): void {
         refreshHerd();
         refreshApplications();
         refreshMembers();
+        refreshGrowOut();
+        refreshHealth();
+        refreshProcessing();
       };
       const endSession = ({ reason }: { reason: string }) =>
         void leaveSignedInArea(
@@ -67,6 +101,11 @@ export function useRealtimeSync(): void {
       socket.on(RealtimeEvent.pedigreeChanged, refreshHerd);
       socket.on(RealtimeEvent.almanacChanged, refreshAlmanac);
       socket.on(RealtimeEvent.litterChanged, refreshLitters);
+      socket.on(RealtimeEvent.growOutChanged, refreshGrowOut);
+      socket.on(RealtimeEvent.herdChanged, refreshGroupWeighIns);
+      socket.on(RealtimeEvent.healthChanged, refreshHealth);
+      socket.on(RealtimeEvent.temperatureRecorded, refreshTemperature);
+      socket.on(RealtimeEvent.processingChanged, refreshProcessing);
       socket.on(RealtimeEvent.sessionEnded, endSession);
       // Events sent while the connection was down are lost; refetch what they would have refreshed.
       socket.io.on('reconnect', refreshAll);
@@ -80,6 +119,11 @@ export function useRealtimeSync(): void {
         socket.off(RealtimeEvent.pedigreeChanged, refreshHerd);
         socket.off(RealtimeEvent.almanacChanged, refreshAlmanac);
         socket.off(RealtimeEvent.litterChanged, refreshLitters);
+        socket.off(RealtimeEvent.growOutChanged, refreshGrowOut);
+        socket.off(RealtimeEvent.herdChanged, refreshGroupWeighIns);
+        socket.off(RealtimeEvent.healthChanged, refreshHealth);
+        socket.off(RealtimeEvent.temperatureRecorded, refreshTemperature);
+        socket.off(RealtimeEvent.processingChanged, refreshProcessing);
         socket.off(RealtimeEvent.sessionEnded, endSession);
         socket.io.off('reconnect', refreshAll);
         disconnectRealtime();

@@ -1,0 +1,5 @@
+/** The feed book lives under ['feed'] (refreshed on `growout:changed`). */
+export const feedKeys = {
+  all: ['feed'] as const,
+  book: () => [...feedKeys.all, 'book'] as const,
+};

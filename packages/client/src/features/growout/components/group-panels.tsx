@@ -1,0 +1,234 @@
+import { useState, type FormEvent } from 'react';
+import { ErrorCode, todayIn, weightInputToGrams, type GrowOutGroupDto, type WeightUnit } from '@burrowline/shared';
+import { Alert } from '../../../components/ui/alert';
+import { Badge } from '../../../components/ui/badge';
+import { Button } from '../../../components/ui/button';
+import { SegmentedFilter } from '../../../components/ui/segmented-filter';
+import { TextField } from '../../../components/ui/text-field';
+import { isApiError } from '../../../lib/api-client';
+import { formatDate } from '../../almanac/almanac-dates';
+import { useCloseGroup, useReviewGroupWeighIn, useWeighGroup } from '../api/group-mutations';
+import { gainPerDay, useMoney, weight } from '../growout-format';
+import { WeightInput } from './weight-input';
+
+const fieldError = (error: unknown, field: string) => (isApiError(error) ? error.details[field]?.[0] : undefined);
+const localToday = () => todayIn(Intl.DateTimeFormat().resolvedOptions().timeZone);
+
+/** The projected day at target, the model used and why, and its uncertainty. */
+export function ProjectionCard({ group, unit }: { group: GrowOutGroupDto; unit: WeightUnit }) {
+  const p = group.projection;
+  return (
+    <section aria-labelledby="projection-heading" className="space-y-2">
+      <h2 id="projection-heading" className="text-lg font-semibold">Projected at {weight(group.targetGrams, unit)}</h2>
+      {p.status === 'projected' && p.projectedOn ? (
+        <p className="text-2xl font-semibold text-moss-deep" data-testid="projected-date">{formatDate(p.projectedOn)}</p>
+      ) : p.status === 'reached' && p.reachedOn ? (
+        <p className="text-2xl font-semibold text-moss-deep" data-testid="projected-date">At target since {formatDate(p.reachedOn)}</p>
+      ) : (
+        <p className="text-lg text-grey-700" data-testid="projected-date">{p.message}</p>
+      )}
+      {p.interval && (
+        <p>
+          {Math.round(p.interval.level * 100)} % interval: <strong>{formatDate(p.interval.from)}</strong> to <strong>{formatDate(p.interval.to)}</strong>
+        </p>
+      )}
+      <p>
+        <span className="font-semibold">Model: {p.modelName}.</span> {p.why}
+      </p>
+      <p className="text-sm text-grey-600">{p.model.description}</p>
+    </section>
+  );
+}
+
+/** A group weigh-in: the total on the scale and the head count, or each kit with an optional label. */
+export function GroupWeighInForm({ group, unit, isApprentice }: { group: GrowOutGroupDto; unit: WeightUnit; isApprentice: boolean }) {
+  const save = useWeighGroup();
+  const [mode, setMode] = useState<'total' | 'each'>('total');
+  const [on, setOn] = useState(localToday);
+  const [major, setMajor] = useState('');
+  const [minor, setMinor] = useState('');
+  const [count, setCount] = useState(String(group.currentHeads));
+  const [kits, setKits] = useState<{ label: string; major: string; minor: string }[]>(() => Array.from({ length: group.currentHeads }, () => ({ label: '', major: '', minor: '' })));
+  const [problem, setProblem] = useState<string | null>(null);
+
+  const submit = (event: FormEvent) => {
+    event.preventDefault();
+    if (mode === 'total') {
+      const totalGrams = weightInputToGrams(major, minor, unit);
+      if (!totalGrams) return setProblem('Enter the total weight');
+      setProblem(null);
+      save.mutate({ groupId: group.id, body: { weighedOn: on, totalGrams, headCount: Number(count) } }, { onSuccess: () => { setMajor(''); setMinor(''); } });
+    } else {
+      const weighed = kits.map((k) => ({ label: k.label.trim() || undefined, grams: weightInputToGrams(k.major, k.minor, unit) })).filter((k) => k.grams !== null);
+      if (weighed.length === 0) return setProblem('Enter at least one kit\'s weight');
+      setProblem(null);
+      save.mutate({ groupId: group.id, body: { weighedOn: on, kits: weighed.map((k) => ({ label: k.label, grams: k.grams! })) } },
+        { onSuccess: () => setKits(kits.map((k) => ({ ...k, major: '', minor: '' }))) });
+    }
+  };
+  const small = unit === 'lb_oz' ? 'oz' : 'g';
+  const big = unit === 'lb_oz' ? 'lb' : 'kg';
+  return (
+    <form onSubmit={submit} noValidate className="space-y-4" aria-label="Weigh the group">
+      <SegmentedFilter
+        label="How was the group weighed?"
+        value={mode}
+        onChange={setMode}
+        options={[{ value: 'total', label: 'All together' }, { value: 'each', label: 'One by one' }]}
+      />
+      <div className="grid gap-4 sm:grid-cols-2">
+        <TextField label="Weighed on" type="date" value={on} onChange={(e) => setOn(e.target.value)} error={fieldError(save.error, 'weighedOn')} />
+        {mode === 'total' && (
+          <>
+            <WeightInput label="Total weight" unit={unit} major={major} minor={minor} onMajor={setMajor} onMinor={setMinor} error={problem ?? fieldError(save.error, 'totalGrams')} />
+            <TextField label="Head count" inputMode="numeric" value={count} onChange={(e) => setCount(e.target.value)} error={fieldError(save.error, 'headCount')} />
+          </>
+        )}
+      </div>
+      {mode === 'each' && (
+        <fieldset className="space-y-2">
+          <legend className="font-semibold">Each kit</legend>
+          <p className="text-sm text-grey-600">Give a kit a label (an ear mark or a tag) to follow its own gain from one weigh-in to the next.</p>
+          <ul className="space-y-2">
+            {kits.map((k, i) => (
+              <li key={i} className="grid grid-cols-3 gap-2">
+                <TextField label={`Kit ${i + 1} label`} value={k.label} onChange={(e) => setKits(kits.map((x, j) => (j === i ? { ...x, label: e.target.value } : x)))} />
+                <TextField label={`Kit ${i + 1} (${big})`} inputMode="decimal" value={k.major} onChange={(e) => setKits(kits.map((x, j) => (j === i ? { ...x, major: e.target.value } : x)))}
+                  error={fieldError(save.error, `kits.${i}.grams`)} />
+                <TextField label={`Kit ${i + 1} (${small})`} inputMode="decimal" value={k.minor} onChange={(e) => setKits(kits.map((x, j) => (j === i ? { ...x, minor: e.target.value } : x)))} />
+              </li>
+            ))}
+          </ul>
+          {problem && <p className="text-sm font-medium text-clay-deep">{problem}</p>}
+          {fieldError(save.error, 'kits') && <p className="text-sm font-medium text-clay-deep">{fieldError(save.error, 'kits')}</p>}
+        </fieldset>
+      )}
+      <Button type="submit" isBusy={save.isPending}>
+        Save weigh-in
+      </Button>
+      {save.isSuccess && <Alert tone="success">{isApprentice ? 'Saved. It counts once your mentor accepts it.' : 'Weigh-in saved; the projection is updated.'}</Alert>}
+      {save.isError && !isApiError(save.error, ErrorCode.validation) && <Alert tone="error">{save.error.message}</Alert>}
+    </form>
+  );
+}
+
+/** Every weigh-in of the group, newest first; a member reviews an apprentice's. */
+export function GroupWeighInsList({ group, unit }: { group: GrowOutGroupDto; unit: WeightUnit }) {
+  const review = useReviewGroupWeighIn(group.id);
+  if (group.weighIns.length === 0) return <p className="text-grey-600">No weigh-ins yet.</p>;
+  return (
+    <ul className="divide-y divide-grey-200" aria-label="Weigh-ins">
+      {[...group.weighIns].reverse().map((w) => (
+        <li key={w.id} className="space-y-1 py-3">
+          <p className="flex flex-wrap items-center gap-2">
+            <strong>{formatDate(w.weighedOn)}</strong>
+            <span>day {w.ageDays}</span>
+            <span>· {weight(w.gramsPerHead, unit)} a head × {w.headCount}</span>
+            <span className="text-grey-600">(total {weight(w.totalGrams, unit)})</span>
+            {w.reviewState === 'pending' && <Badge tone="straw">Waiting for review</Badge>}
+            {w.reviewState === 'returned' && <Badge tone="clay">Returned</Badge>}
+          </p>
+          {w.kits && (
+            <p className="text-sm text-grey-700">
+              One by one: {w.kits.map((k, i) => `${k.label ?? `kit ${i + 1}`} ${weight(k.grams, unit)}`).join(', ')}
+            </p>
+          )}
+          {w.caution && <p className="text-sm text-clay-deep">{w.caution}</p>}
+          <p className="text-sm text-grey-600">by {w.enteredBy.name}</p>
+          {w.reviewState === 'pending' && group.canEdit && (
+            <div className="flex gap-2">
+              <Button variant="secondary" isBusy={review.isPending} onClick={() => review.mutate({ weighInId: w.id, body: { decision: 'accepted', version: w.version } })}>
+                Accept
+              </Button>
+              <Button variant="quiet" onClick={() => review.mutate({ weighInId: w.id, body: { decision: 'returned', version: w.version } })}>
+                Return
+              </Button>
+            </div>
+          )}
+        </li>
+      ))}
+    </ul>
+  );
+}
+
+/** Gains between weigh-ins and overall, and each labelled kit's. */
+export function GainsPanel({ group, unit }: { group: GrowOutGroupDto; unit: WeightUnit }) {
+  return (
+    <section aria-labelledby="gain-heading" className="space-y-2">
+      <h2 id="gain-heading" className="text-lg font-semibold">Daily gain</h2>
+      <p>
+        Overall: <strong>{gainPerDay(group.gain.gramsPerDay, unit)}</strong>
+        {group.gain.fromOn && group.gain.toOn && group.gain.days > 0 && <span className="text-grey-600"> over {group.gain.days} days</span>}
+      </p>
+      {group.gain.periods.length > 0 && (
+        <ul className="text-sm">
+          {group.gain.periods.map((p) => (
+            <li key={p.fromOn}>
+              {formatDate(p.fromOn)} → {formatDate(p.toOn)}: {gainPerDay(p.gramsPerDay, unit)}
+            </li>
+          ))}
+        </ul>
+      )}
+      {group.kitGains.length > 0 && (
+        <div>
+          <h3 className="font-semibold">Each labelled kit</h3>
+          <ul className="text-sm">
+            {group.kitGains.map((k) => (
+              <li key={k.label}>
+                {k.label}: {weight(k.latestGrams, unit)} now, {gainPerDay(k.gramsPerDay, unit)} ({k.weighIns} weigh-ins)
+              </li>
+            ))}
+          </ul>
+        </div>
+      )}
+    </section>
+  );
+}
+
+/** Feed conversion and, for members, feed cost per pound or kilogram of live-weight gain. */
+export function FeedPanel({ group, unit }: { group: GrowOutGroupDto; unit: WeightUnit }) {
+  const money = useMoney();
+  const f = group.feed;
+  return (
+    <section aria-labelledby="feed-heading" className="space-y-2">
+      <h2 id="feed-heading" className="text-lg font-semibold">Feed conversion</h2>
+      <p>
+        Feed given: <strong>{f.feedGrams > 0 ? weight(f.feedGrams, unit) : 'none recorded yet'}</strong> (its own and its share of pen- and farm-wide feed)
+      </p>
+      <p>
+        Live-weight gain: <strong>{f.gainGrams === null ? '—' : weight(f.gainGrams, unit)}</strong> · Feed conversion:{' '}
+        <strong data-testid="feed-conversion">{f.conversion === null ? '—' : `${f.conversion.toFixed(2)} : 1`}</strong>
+      </p>
+      <p className="text-sm text-grey-600">Published for grow-out on pellets: {f.publishedConversion.ratio} : 1 ({f.publishedConversion.source}).</p>
+      {group.canSeeMoney && (
+        <p>
+          Feed cost: <strong>{money(f.feedCostCents)}</strong> ·{' '}
+          {unit === 'lb_oz' ? <>per lb of live-weight gain <strong>{money(f.costPerLbLiveCents)}</strong></> : <>per kg of live-weight gain <strong>{money(f.costPerKgLiveCents)}</strong></>}
+        </p>
+      )}
+    </section>
+  );
+}
+
+/** Closes the group on a date (kits processed, sold or kept); a second editor's change first is caught by the version. */
+export function CloseGroupForm({ group }: { group: GrowOutGroupDto }) {
+  const save = useCloseGroup();
+  const [on, setOn] = useState(localToday);
+  return (
+    <form
+      className="flex flex-wrap items-end gap-3"
+      aria-label="Close the group"
+      noValidate
+      onSubmit={(e) => {
+        e.preventDefault();
+        save.mutate({ groupId: group.id, body: { closedOn: on, version: group.version } });
+      }}
+    >
+      <TextField label="Closed on" type="date" value={on} onChange={(e) => setOn(e.target.value)} error={fieldError(save.error, 'closedOn')} />
+      <Button type="submit" variant="secondary" isBusy={save.isPending}>
+        Close group
+      </Button>
+      {save.isError && !fieldError(save.error, 'closedOn') && <Alert tone="error">{save.error.message}</Alert>}
+    </form>
+  );
+}

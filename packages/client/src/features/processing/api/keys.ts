@@ -1,0 +1,4 @@
+export const processingKeys = {
+  all: ['processing'] as const,
+  list: () => [...processingKeys.all, 'list'] as const,
+};

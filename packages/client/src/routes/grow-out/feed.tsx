@@ -1,0 +1,135 @@
+import { useState } from 'react';
+import { queryClient } from '../../app/query-client';
+import { Button } from '../../components/ui/button';
+import { Card } from '../../components/ui/card';
+import { PageHeader } from '../../components/ui/page-header';
+import { PageTitle } from '../../components/ui/page-title';
+import { formatDate } from '../../features/almanac/almanac-dates';
+import { feedQueryOptions, useFeed } from '../../features/feed/api/get-feed';
+import { FeedUseForm, PurchaseForm } from '../../features/feed/components/feed-forms';
+import { useMoney, weight } from '../../features/growout/growout-format';
+import { useWeightUnit } from '../../features/herd/hooks/use-weight-unit';
+
+export async function loader() {
+  await queryClient.ensureQueryData(feedQueryOptions());
+  return null;
+}
+
+const allocationWords = { head_days: 'split by head-days', live_weight: 'split by live weight' } as const;
+
+/** /grow-out/feed: feed bought and feed given, with the stock left in each purchase. */
+export function FeedPage() {
+  const { data: book } = useFeed();
+  const unit = useWeightUnit();
+  const money = useMoney();
+  const [allUses, setAllUses] = useState(false);
+  const uses = allUses ? book.uses : book.uses.slice(0, 25);
+  return (
+    <div className="space-y-6">
+      <PageTitle>Feed</PageTitle>
+      <PageHeader title="Feed" lead="What was bought and what was given, so each group's feed conversion and cost rest on the farm's own feed book." />
+      <section aria-label="Stock left" className="flex flex-wrap gap-3">
+        {book.products.length === 0 ? (
+          <p className="text-grey-600">No feed bought yet.</p>
+        ) : (
+          book.products.map((p) => (
+            <p key={p.name} className="rounded-xl border border-grey-200 bg-white px-4 py-2 shadow-sm">
+              <span className="font-semibold">{p.name}</span>: {weight(p.gramsLeft, unit)} left
+            </p>
+          ))
+        )}
+      </section>
+      {book.canEdit && (
+        <div className="grid gap-6 lg:grid-cols-2">
+          <Card>
+            <h2 className="mb-3 text-lg font-semibold">Feed bought</h2>
+            <PurchaseForm unit={unit} />
+          </Card>
+          <Card>
+            <h2 className="mb-3 text-lg font-semibold">Feed given</h2>
+            {book.products.length === 0 ? <p className="text-grey-600">Record a purchase first: feed cannot be given before it was bought.</p> : <FeedUseForm book={book} unit={unit} />}
+          </Card>
+        </div>
+      )}
+      <Card>
+        <h2 className="mb-3 text-lg font-semibold">Purchases</h2>
+        {book.purchases.length === 0 ? (
+          <p className="text-grey-600">None yet.</p>
+        ) : (
+          <>
+            <table className="hidden w-full text-left md:table">
+              <caption className="sr-only">Feed purchases</caption>
+              <thead className="text-sm text-grey-600">
+                <tr>
+                  <th className="py-2">Bought</th>
+                  <th>Feed</th>
+                  <th className="text-right">Bags</th>
+                  <th className="text-right">Bought</th>
+                  <th className="text-right">Left</th>
+                  <th className="text-right">Protein</th>
+                  {book.canSeeMoney && <th className="text-right">Price</th>}
+                  {book.canSeeMoney && <th className="text-right">Per kg</th>}
+                </tr>
+              </thead>
+              <tbody className="divide-y divide-grey-200">
+                {book.purchases.map((p) => (
+                  <tr key={p.id}>
+                    <td className="py-2">{formatDate(p.boughtOn)}</td>
+                    <td>{p.productName}</td>
+                    <td className="text-right">{p.bags} × {weight(p.bagGrams, unit)}</td>
+                    <td className="text-right">{weight(p.grams, unit)}</td>
+                    <td className="text-right font-semibold">{weight(p.gramsLeft, unit)}</td>
+                    <td className="text-right">{p.crudeProteinPercent === null ? '—' : `${p.crudeProteinPercent} %`}</td>
+                    {book.canSeeMoney && <td className="text-right">{money(p.priceCents)}</td>}
+                    {book.canSeeMoney && <td className="text-right">{money(p.centsPerKg)}</td>}
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+            <ul className="space-y-3 md:hidden" aria-label="Feed purchases">
+              {book.purchases.map((p) => (
+                <li key={p.id} className="rounded-xl border border-grey-200 p-3">
+                  <p className="font-semibold">{p.productName}</p>
+                  <p className="text-sm">
+                    {formatDate(p.boughtOn)} · {p.bags} × {weight(p.bagGrams, unit)}{p.crudeProteinPercent !== null ? ` · ${p.crudeProteinPercent} % protein` : ''}
+                  </p>
+                  <p>
+                    <strong>{weight(p.gramsLeft, unit)}</strong> left of {weight(p.grams, unit)}{book.canSeeMoney ? ` · ${money(p.priceCents)}` : ''}
+                  </p>
+                </li>
+              ))}
+            </ul>
+          </>
+        )}
+      </Card>
+      <Card>
+        <h2 className="mb-3 text-lg font-semibold">Feed given</h2>
+        {book.uses.length === 0 ? (
+          <p className="text-grey-600">None yet.</p>
+        ) : (
+          <ul className="divide-y divide-grey-200" aria-label="Feed given">
+            {uses.map((u) => (
+              <li key={u.id} className="py-3">
+                <p>
+                  <strong>{formatDate(u.givenOn)}</strong>
+                  {u.fromOn !== u.givenOn && <span className="text-grey-600"> (from {formatDate(u.fromOn)})</span>}: {weight(u.grams, unit)} of {u.productName} to {u.targetLabel}
+                  {u.allocation ? `, ${allocationWords[u.allocation]}` : ''}
+                  {book.canSeeMoney && u.costCents !== null ? ` · ${money(u.costCents)}` : ''}
+                </p>
+                {u.shares.length > 0 && (u.target === 'pen' || u.target === 'farm') && (
+                  <p className="text-sm text-grey-700">{u.shares.map((s) => `${s.label} ${weight(s.grams, unit)}`).join(' · ')}</p>
+                )}
+                {u.target === 'doe' && u.shares.length === 0 && <p className="text-sm text-grey-600">No litter with her then: counted as her own upkeep.</p>}
+              </li>
+            ))}
+          </ul>
+        )}
+        {!allUses && book.uses.length > uses.length && (
+          <Button variant="secondary" className="mt-3" onClick={() => setAllUses(true)}>
+            Show all {book.uses.length} entries
+          </Button>
+        )}
+      </Card>
+    </div>
+  );
+}

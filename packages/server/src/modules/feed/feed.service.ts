@@ -1,0 +1,269 @@
+import { randomUUID } from 'node:crypto';
+import type { Transaction } from 'sequelize';
+import {
+  addDays, allocateByHeadDays, allocateByLiveWeight, centsPerKg, checkFeedUses, daysBetween, defineAbilityFor, ErrorCode,
+  gompertzWeight, MATURE_WEIGHT_PRIORS, RealtimeEvent, referenceCurve, rooms, subjectOf, todayIn,
+  type FeedOverviewDto, type FeedPurchaseCreateInput, type FeedUseCreateInput, type FeedUseDto,
+} from '@burrowline/shared';
+import { withTenant } from '../../db/tenant';
+import type { SessionUser } from '../../http/passport';
+import { AppError } from '../../lib/app-error';
+import { publish } from '../../lib/realtime';
+import { animalFactsOf } from '../animals/animals.service';
+import { farmDirectoryOf } from '../farms/farms.service';
+import { canSeeMoney, groupOfFarm, groupsOfFarm, groupsPresentDuring, kitsInGroupsByLitter } from '../growout/growout.service';
+import { farmLitterFactsOf, housingUnitNamesOf, housingUnitOfFarm, placementsDuring, type LitterFacts } from '../litters/litter-facts.service';
+import { namesOf } from '../users/users.service';
+import { FeedPurchase, FeedUse, FeedUseShare } from './feed.model';
+import { feedKeyOf, feedLedgerOf, feedTotalsByLitter, purchaseFact, sharesWithCost, useFact } from './feed-totals.service';
+
+/** Feed given to a doe and her litter from kindling to weaning (doe-level and hutch/pen feed), by litter id. */
+export async function doeLitterFeedOfFarm(tx: Transaction, coopId: string, farmId: string): Promise<Map<string, { grams: number; costCents: number }>> {
+  return feedTotalsByLitter(tx, coopId, farmId);
+}
+
+function farmOf(actor: SessionUser): string {
+  if (!actor.farmId) throw new AppError(ErrorCode.forbidden, 403, 'Only a member of a farm keeps a feed book');
+  return actor.farmId;
+}
+
+function ensureCan(actor: SessionUser, action: 'read' | 'create', farmId: string): void {
+  if (defineAbilityFor(actor).can(action, subjectOf('FeedRecord', { coopId: actor.coopId, farmId }))) return;
+  throw new AppError(ErrorCode.forbidden, 403, action === 'read' ? 'You may not see the feed book' : 'Only members of the farm record feed');
+}
+
+async function farmToday(tx: Transaction, coopId: string, farmId: string): Promise<string> {
+  const farm = (await farmDirectoryOf(coopId, tx)).get(farmId);
+  return todayIn(farm?.timeZone || 'America/Chicago');
+}
+
+function announce(tx: Transaction, farmId: string): void {
+  tx.afterCommit(() => publish(rooms.farm(farmId), RealtimeEvent.growOutChanged, { farmId, groupId: null }));
+}
+
+async function lockFarm(tx: Transaction, farmId: string): Promise<void> {
+  await FeedPurchase.sequelize!.query(`SELECT pg_advisory_xact_lock(hashtext('feed:' || $1))`, { bind: [farmId], transaction: tx });
+}
+
+type KitsInGroups = Map<string, { on: string; heads: number }[]>;
+
+/** Kits still with the doe on a day: the litter's count less kits taken into grow-out groups by then. */
+function kitsOnDoe(l: LitterFacts, day: string, inGroups: KitsInGroups): number {
+  const taken = (inGroups.get(l.id) ?? []).filter((g) => g.on <= day).reduce((n, g) => n + g.heads, 0);
+  return Math.max(l.onDoeAt(day) - taken, 0);
+}
+
+/** A doe and her litter in a period: heads a day (the doe and the kits with her) and live weight at the end. */
+function litterShareBasis(l: LitterFacts, from: string, to: string, inGroups: KitsInGroups): { headDays: number; liveGrams: number } {
+  let headDays = 0;
+  for (let day = from > l.kindledOn ? from : l.kindledOn; day <= to; day = addDays(day, 1)) {
+    const kits = kitsOnDoe(l, day, inGroups);
+    if (kits > 0) headDays += 1 + kits;
+  }
+  // The doe's weight is the medium-breed mature prior (no doe weigh-in is assumed); kits by the reference curve.
+  const kitGrams = gompertzWeight(Math.max(daysBetween(l.kindledOn, to), 0), referenceCurve('medium'));
+  const liveGrams = headDays > 0 ? MATURE_WEIGHT_PRIORS.medium.grams + kitsOnDoe(l, to, inGroups) * kitGrams : 0;
+  return { headDays, liveGrams: Math.round(liveGrams) };
+}
+
+const nursingIn = (l: LitterFacts, from: string, to: string, inGroups: KitsInGroups) =>
+  l.kindledOn <= to && (l.weanedOn === null || l.weanedOn >= from) && litterShareBasis(l, from, to, inGroups).headDays > 0;
+
+async function presentOverview(tx: Transaction, actor: SessionUser, farmId: string): Promise<FeedOverviewDto> {
+  const ledger = await feedLedgerOf(tx, actor.coopId, farmId);
+  const money = canSeeMoney(actor, farmId);
+  const groups = new Map((await groupsOfFarm(tx, actor.coopId, farmId)).map((g) => [g.id, g.name]));
+  const litters = new Map((await farmLitterFactsOf(tx, actor.coopId, farmId)).map((l) => [l.id, l]));
+  const animals = await animalFactsOf(tx, actor.coopId, [...ledger.uses.map((u) => u.doeId), ...[...litters.values()].map((l) => l.damId)].filter((x): x is string => Boolean(x)));
+  const units = await housingUnitNamesOf(tx, actor.coopId, ledger.uses.map((u) => u.housingUnitId).filter((x): x is string => Boolean(x)));
+  const names = await namesOf(ledger.uses.map((u) => u.enteredBy), tx);
+  const productOf = new Map(ledger.purchases.map((p) => [feedKeyOf(p.productName), p.productName]));
+  const litterLabel = (id: string) => {
+    const l = litters.get(id);
+    return l ? `${animals.get(l.damId)?.name ?? 'A doe'} and litter (kindled ${l.kindledOn})` : 'A litter';
+  };
+  const uses: FeedUseDto[] = [...ledger.uses].reverse().map((u) => ({
+    id: u.id, givenOn: u.givenOn, fromOn: u.fromOn, grams: u.grams, productName: productOf.get(u.feedKey) ?? u.feedKey, purchaseId: u.purchaseId,
+    target: u.target, allocation: u.allocation,
+    targetLabel: u.target === 'group' ? groups.get(u.groupId!) ?? 'A group'
+      : u.target === 'pen' ? units.get(u.housingUnitId!) ?? 'A pen'
+        : u.target === 'doe' ? `${animals.get(u.doeId!)?.name ?? 'A doe'} with her litter`
+          : 'Whole farm',
+    shares: sharesWithCost(ledger, u.id).map((s) => ({ groupId: s.groupId, litterId: s.litterId, grams: s.grams, label: s.groupId ? groups.get(s.groupId) ?? 'A group' : litterLabel(s.litterId!) })),
+    costCents: money ? ledger.costByUse.get(u.id) ?? null : null,
+    enteredBy: { id: u.enteredBy, name: names.get(u.enteredBy) ?? 'Someone' },
+    note: u.note,
+  }));
+  const products = new Map<string, { name: string; gramsLeft: number }>();
+  for (const p of ledger.purchases) {
+    const key = feedKeyOf(p.productName);
+    const entry = products.get(key) ?? { name: p.productName, gramsLeft: 0 };
+    entry.gramsLeft += ledger.leftByPurchase.get(p.id) ?? 0;
+    products.set(key, entry);
+  }
+  return {
+    purchases: [...ledger.purchases].reverse().map((p) => ({
+      id: p.id, boughtOn: p.boughtOn, productName: p.productName, bagGrams: p.bagGrams, bags: p.bags, grams: p.bagGrams * p.bags,
+      gramsLeft: ledger.leftByPurchase.get(p.id) ?? 0, crudeProteinPercent: p.crudeProteinPercent,
+      priceCents: money ? p.priceCents : null, centsPerKg: money ? centsPerKg(p.priceCents, p.bagGrams * p.bags) : null, note: p.note,
+    })),
+    uses,
+    products: [...products.values()].sort((a, b) => a.name.localeCompare(b.name)),
+    canEdit: defineAbilityFor(actor).can('create', subjectOf('FeedRecord', { coopId: actor.coopId, farmId })),
+    canSeeMoney: money,
+  };
+}
+
+/** The farm's feed book: purchases with the stock left in each, and the feed given with its split (money for members only). */
+export async function listFeed(actor: SessionUser): Promise<FeedOverviewDto> {
+  const farmId = farmOf(actor);
+  ensureCan(actor, 'read', farmId);
+  return withTenant(actor, async (tx) => presentOverview(tx, actor, farmId));
+}
+
+/** Records feed bought in whole bags. Refused (400) in the farm's future. */
+export async function recordFeedPurchase(actor: SessionUser, input: FeedPurchaseCreateInput): Promise<FeedOverviewDto> {
+  const farmId = farmOf(actor);
+  ensureCan(actor, 'create', farmId);
+  return withTenant(actor, async (tx) => {
+    if (input.id && (await FeedPurchase.findOne({ where: { id: input.id }, paranoid: false, transaction: tx }))) return presentOverview(tx, actor, farmId);
+    await recordFeedPurchaseIn(tx, actor, input);
+    return presentOverview(tx, actor, farmId);
+  });
+}
+
+/** A feed purchase inside the caller's transaction (the demo loader); the same checks. */
+export async function recordFeedPurchaseIn(tx: Transaction, actor: SessionUser, input: FeedPurchaseCreateInput): Promise<void> {
+  const farmId = farmOf(actor);
+  ensureCan(actor, 'create', farmId);
+  {
+    await lockFarm(tx, farmId);
+    if (input.boughtOn > (await farmToday(tx, actor.coopId, farmId))) throw AppError.validation({ boughtOn: ['A purchase cannot be dated in the future'] });
+    await FeedPurchase.create(
+      {
+        ...(input.id ? { id: input.id } : {}),
+        coopId: actor.coopId, farmId, boughtOn: input.boughtOn, productName: input.productName, bagGrams: input.bagGrams, bags: input.bags,
+        priceCents: input.priceCents, crudeProteinPercent: input.crudeProteinPercent ?? null, note: input.note, enteredBy: actor.id,
+      },
+      { transaction: tx },
+    );
+    announce(tx, farmId);
+  }
+}
+
+/**
+ * Records feed given. Refused (400, nothing written) before the feed was bought, for more than is left
+ * (first bought, first used, also for later feed given that a back-dated entry would leave short), in the
+ * future, or to a group, pen or doe not of the farm. Feed to a pen or the whole farm is split over the
+ * groups and nursing litters present in the period by head-days or by live weight, and the split kept.
+ */
+export async function recordFeedUse(actor: SessionUser, input: FeedUseCreateInput): Promise<FeedOverviewDto> {
+  const farmId = farmOf(actor);
+  ensureCan(actor, 'create', farmId);
+  return withTenant(actor, async (tx) => {
+    if (input.id && (await FeedUse.findOne({ where: { id: input.id }, paranoid: false, transaction: tx }))) return presentOverview(tx, actor, farmId);
+    await recordFeedUseIn(tx, actor, input);
+    return presentOverview(tx, actor, farmId);
+  });
+}
+
+/** Feed given inside the caller's transaction (the demo loader); the same checks. */
+export async function recordFeedUseIn(tx: Transaction, actor: SessionUser, input: FeedUseCreateInput): Promise<void> {
+  const farmId = farmOf(actor);
+  ensureCan(actor, 'create', farmId);
+  {
+    await lockFarm(tx, farmId);
+    const today = await farmToday(tx, actor.coopId, farmId);
+    const fromOn = input.fromOn ?? input.givenOn;
+    const errors: Record<string, string[]> = {};
+    const add = (field: string, message: string) => (errors[field] ??= []).push(message);
+    if (input.givenOn > today) add('givenOn', 'Feed given cannot be dated in the future');
+
+    // Which feed: a named purchase, or the feed by name (first bought, first used).
+    const ledger = await feedLedgerOf(tx, actor.coopId, farmId);
+    const inGroups = await kitsInGroupsByLitter(tx, actor.coopId, farmId);
+    let feedKey: string | null = null;
+    if (input.purchaseId) {
+      const purchase = ledger.purchases.find((p) => p.id === input.purchaseId);
+      if (!purchase) add('purchaseId', "Choose one of your farm's purchases");
+      else {
+        feedKey = feedKeyOf(purchase.productName);
+        if (purchase.boughtOn > input.givenOn) add('givenOn', `Feed given on ${input.givenOn}, before that purchase was bought on ${purchase.boughtOn}`);
+      }
+    } else if (input.productName) {
+      feedKey = feedKeyOf(input.productName);
+      if (!ledger.purchases.some((p) => feedKeyOf(p.productName) === feedKey)) add('productName', 'No purchase of that feed is recorded: record the purchase first');
+    }
+
+    // Who it went to.
+    let shares: { groupId: string | null; litterId: string | null; grams: number }[] = [];
+    if (input.target === 'group') {
+      const group = await groupOfFarm(tx, actor.coopId, farmId, input.groupId!);
+      if (!group) add('groupId', "Choose one of your farm's grow-out groups");
+      else if (input.givenOn < group.formedOn || (group.closedOn && fromOn > group.closedOn)) add('givenOn', `The group was growing from ${group.formedOn}${group.closedOn ? ` to ${group.closedOn}` : ''}`);
+      else shares = [{ groupId: group.id, litterId: null, grams: input.grams }];
+    } else if (input.target === 'doe') {
+      const doe = (await animalFactsOf(tx, actor.coopId, [input.doeId!])).get(input.doeId!);
+      if (!doe || doe.keepingFarmId !== farmId || doe.sex !== 'doe') add('doeId', "Choose one of your farm's does");
+      else {
+        const litter = (await farmLitterFactsOf(tx, actor.coopId, farmId)).find((l) => l.damId === doe.id && nursingIn(l, fromOn, input.givenOn, inGroups));
+        // Between litters the feed is the doe's own (upkeep), not charged to a litter.
+        if (litter) shares = [{ groupId: null, litterId: litter.id, grams: input.grams }];
+      }
+    } else {
+      let unitId: string | undefined;
+      if (input.target === 'pen') {
+        const unit = await housingUnitOfFarm(tx, actor.coopId, farmId, input.housingUnitId!);
+        if (!unit) add('housingUnitId', "Choose one of your farm's hutches or pens");
+        unitId = unit?.id;
+      }
+      if (input.target === 'farm' || unitId) {
+        const groups = await groupsPresentDuring(tx, actor.coopId, farmId, fromOn, input.givenOn, unitId);
+        let litters = (await farmLitterFactsOf(tx, actor.coopId, farmId)).filter((l) => nursingIn(l, fromOn, input.givenOn, inGroups));
+        if (unitId) {
+          const placed = await placementsDuring(tx, actor.coopId, farmId, fromOn, input.givenOn, unitId);
+          const litterIds = new Set(placed.map((p) => p.litterId).filter(Boolean));
+          const doeIds = new Set(placed.map((p) => p.animalId).filter(Boolean));
+          litters = litters.filter((l) => litterIds.has(l.id) || doeIds.has(l.damId));
+        }
+        const recipients = [
+          ...groups.map((g) => ({ groupId: g.id, litterId: null, headDays: g.headDays, liveGrams: g.liveGrams })),
+          ...litters.map((l) => ({ groupId: null, litterId: l.id, ...litterShareBasis(l, fromOn, input.givenOn, inGroups) })),
+        ].filter((r) => r.headDays > 0);
+        if (recipients.length > 0) {
+          const keyed = recipients.map((r, i) => ({ ...r, id: String(i) }));
+          const split = input.allocation === 'live_weight' && keyed.some((r) => r.liveGrams > 0)
+            ? allocateByLiveWeight(input.grams, keyed)
+            : allocateByHeadDays(input.grams, keyed);
+          shares = split.map((s) => ({ groupId: keyed[Number(s.id)]!.groupId, litterId: keyed[Number(s.id)]!.litterId, grams: s.grams })).filter((s) => s.grams > 0);
+        }
+      }
+    }
+
+    // Stock: first bought, first used, counting this entry among the others.
+    const useId = input.id ?? randomUUID();
+    if (feedKey && !errors.givenOn && !errors.purchaseId) {
+      const uses = [...ledger.uses.map(useFact), { id: useId, feedId: feedKey, givenOn: input.givenOn, grams: input.grams }];
+      for (const issue of checkFeedUses(ledger.purchases.map(purchaseFact), uses)) {
+        if (issue.useId === useId) add(issue.code === 'before_purchase' ? 'givenOn' : 'grams', issue.message);
+        else {
+          const other = ledger.uses.find((u) => u.id === issue.useId);
+          add('grams', `That would leave the feed given on ${other?.givenOn ?? 'a later day'} short: ${issue.message}`);
+        }
+      }
+    }
+    if (Object.keys(errors).length > 0) throw AppError.validation(errors);
+
+    await FeedUse.create(
+      {
+        id: useId, coopId: actor.coopId, farmId, givenOn: input.givenOn, fromOn, grams: input.grams, feedKey: feedKey!,
+        purchaseId: input.purchaseId ?? null, target: input.target, groupId: input.target === 'group' ? input.groupId! : null,
+        housingUnitId: input.target === 'pen' ? input.housingUnitId! : null, doeId: input.target === 'doe' ? input.doeId! : null,
+        allocation: input.target === 'pen' || input.target === 'farm' ? input.allocation! : null, note: input.note, enteredBy: actor.id,
+      },
+      { transaction: tx },
+    );
+    if (shares.length > 0) await FeedUseShare.bulkCreate(shares.map((s) => ({ coopId: actor.coopId, feedUseId: useId, ...s })), { transaction: tx });
+    announce(tx, farmId);
+  }
+}

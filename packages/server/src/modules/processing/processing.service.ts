@@ -1,0 +1,276 @@
+import type { Transaction } from 'sequelize';
+import {
+  addDays, checkWeightForAge, daysBetween, dressOut, ErrorCode, groupBirthDate, RealtimeEvent, rooms, usdaClass,
+  type ProcessingListDto, type ProcessingMarkCreateInput, type ProcessingMarkDto, type ProcessingRecordCreateInput,
+  type ProcessingRecordDto, type YieldFlag,
+} from '@burrowline/shared';
+import { withTenant } from '../../db/tenant';
+import type { SessionUser } from '../../http/passport';
+import { AppError } from '../../lib/app-error';
+import { publish } from '../../lib/realtime';
+import { addMessage, ensureCan, farmOf, type FieldMessages } from '../almanac/almanac-access';
+import { farmClockOf } from '../almanac/almanac-context';
+import { presentAnimalRef } from '../almanac/almanac.presenter';
+import { presentContextOf } from '../almanac/tasks.service';
+import { withdrawalsCovering, type WithdrawalFacts } from '../almanac/treatments.service';
+import { recordChanges } from '../audit/audit.service';
+import { animalFactsOf, applyStatusEvent, type AnimalFacts } from '../animals/animals.service';
+import { closeEmptiedGroupIn, growOutFactsOfFarm, type GrowOutFacts } from '../growout/growout.service';
+import { namesOf } from '../users/users.service';
+import { presentProcessingMark, presentProcessingRecord, type ProcessingPresentContext } from './processing.presenter';
+import { ProcessingMark, ProcessingRecord } from './processing-record.model';
+
+// ---------------------------------------------------------------------------------------------
+// For performance (issue 7), inside the caller's transaction
+// ---------------------------------------------------------------------------------------------
+
+export interface ProcessingFacts {
+  id: string;
+  farmId: string;
+  processedOn: string;
+  animalId: string | null;
+  groupId: string | null;
+  headCount: number;
+  /** Total of the record's heads. */
+  liveGrams: number;
+  hotCarcassGrams: number;
+  chilledCarcassGrams: number | null;
+  ageDays: number | null;
+}
+
+/** Every processing record of a farm, oldest first: one query. */
+export async function processingFactsOfFarm(tx: Transaction, coopId: string, farmId: string): Promise<ProcessingFacts[]> {
+  const rows = await ProcessingRecord.findAll({ where: { coopId, farmId }, order: [['processedOn', 'ASC'], ['createdAt', 'ASC']], transaction: tx });
+  return rows.map((r) => ({
+    id: r.id, farmId: r.farmId, processedOn: r.processedOn, animalId: r.animalId, groupId: r.groupId, headCount: r.headCount,
+    liveGrams: r.liveGrams, hotCarcassGrams: r.hotCarcassGrams, chilledCarcassGrams: r.chilledCarcassGrams, ageDays: r.ageDays,
+  }));
+}
+
+// ---------------------------------------------------------------------------------------------
+
+/** A group's birth date: the head-weighted mean of its litters' kindlings (as the grow-out screens count its age). */
+function birthOfGroup(group: GrowOutFacts): string | null {
+  return group.litters.length > 0 ? groupBirthDate(group.litters) : null;
+}
+
+/**
+ * Heads a group has left on a date: the head count of its latest accepted weigh-in by then (or the
+ * heads it was formed with), less the heads processed since that weigh-in (on its day or after).
+ */
+function headsLeft(group: GrowOutFacts, processed: ProcessingFacts[], on: string): number {
+  const weighIn = [...group.weighIns].filter((w) => w.weighedOn <= on).at(-1);
+  const base = weighIn ? weighIn.headCount : group.litters.reduce((n, l) => n + l.heads, 0);
+  const since = processed.filter((p) => p.groupId === group.id && (!weighIn || p.processedOn >= weighIn.weighedOn));
+  return base - since.reduce((n, p) => n + p.headCount, 0);
+}
+
+function withdrawalMessage(w: WithdrawalFacts): string {
+  const by = w.veterinarian ? `, set by ${w.veterinarian}` : '';
+  return `Under withdrawal (${w.treatment}) through ${w.withdrawalEndsOn}${by}: it can be processed from ${addDays(w.withdrawalEndsOn, 1)}`;
+}
+
+interface Subject {
+  animal: AnimalFacts | null;
+  group: GrowOutFacts | null;
+  birthDate: string | null;
+}
+
+/** The animal (owned and kept by the farm, still on it) or the growing group a record or mark is for; field errors otherwise. */
+async function subjectOf(
+  tx: Transaction, actor: SessionUser, farmId: string, input: { animalId?: string; groupId?: string }, groups: GrowOutFacts[], errors: FieldMessages,
+  /** The processing date (a record): a closed group's heads may be recorded up to its closing day. None for a mark. */
+  processedOn?: string,
+): Promise<Subject> {
+  if (input.animalId) {
+    const animal = (await animalFactsOf(tx, actor.coopId, [input.animalId])).get(input.animalId) ?? null;
+    if (!animal || animal.isOutside || animal.keepingFarmId !== farmId || animal.owningFarmId !== farmId) {
+      addMessage(errors, 'animalId', 'Choose an animal your farm owns and keeps');
+      return { animal: null, group: null, birthDate: null };
+    }
+    if (animal.disposition !== 'on_farm') addMessage(errors, 'animalId', `${animal.name || animal.tattoo || 'That animal'} is no longer on the farm (${animal.disposition.replace('_', ' ')})`);
+    return { animal, group: null, birthDate: animal.birthDate };
+  }
+  const group = groups.find((g) => g.id === input.groupId) ?? null;
+  if (!group) {
+    addMessage(errors, 'groupId', 'Choose a grow-out group of your farm');
+    return { animal: null, group: null, birthDate: null };
+  }
+  if (group.status === 'closed' && (!processedOn || processedOn > group.closedOn!)) addMessage(errors, 'groupId', `${group.name} was closed on ${group.closedOn}`);
+  return { animal: null, group, birthDate: birthOfGroup(group) };
+}
+
+async function presentContext(tx: Transaction, coopId: string, today: string, groups: GrowOutFacts[], rows: { animalId: string | null; userId: string | null }[]): Promise<ProcessingPresentContext> {
+  const ctx = await presentContextOf(tx, coopId, today, { animalIds: rows.map((r) => r.animalId) });
+  return {
+    animalRef: (id) => presentAnimalRef(id, ctx),
+    groupNames: new Map(groups.map((g) => [g.id, g.name])),
+    names: await namesOf(rows.map((r) => r.userId), tx),
+  };
+}
+
+function announceProcessing(tx: Transaction, farmId: string): void {
+  tx.afterCommit(() => publish(rooms.farm(farmId), RealtimeEvent.processingChanged, { farmId }));
+}
+
+const rounded = (v: number | null) => (v === null ? null : Math.round(v * 100) / 100);
+
+/**
+ * Records one animal, or a batch of a grow-out group's heads, processed on a date: the live and carcass
+ * weights (totals), the age, the dress-out and the USDA class computed and kept with the record, with
+ * flags for figures outside the usual range. Refused with nothing written: a date in the future, an
+ * animal not the farm's or no longer on it, more heads than the group has left, an animal or group
+ * under withdrawal on that date, a weight impossible for the age. The animal's disposition becomes
+ * 'processed' (through the Herd, with its history); a planned mark for it is done.
+ */
+export async function recordProcessing(actor: SessionUser, input: ProcessingRecordCreateInput): Promise<ProcessingRecordDto> {
+  return withTenant(actor, (tx) => recordProcessingIn(tx, actor, input));
+}
+
+/** recordProcessing inside the caller's transaction (the demo loader; later, shared processing days). */
+export async function recordProcessingIn(tx: Transaction, actor: SessionUser, input: ProcessingRecordCreateInput): Promise<ProcessingRecordDto> {
+  const farmId = farmOf(actor);
+  ensureCan(actor, 'create', 'ProcessingRecord', { farmId }, 'That farm', 'Only members of the farm record processing');
+  const clock = await farmClockOf(tx, actor.coopId, farmId);
+  const groups = await growOutFactsOfFarm(tx, actor.coopId, farmId);
+  if (input.id) {
+    const existing = await ProcessingRecord.findOne({ where: { id: input.id }, transaction: tx });
+    if (existing) {
+      if (existing.farmId !== farmId) throw new AppError(ErrorCode.conflict, 409, 'That id is already used');
+      return presentProcessingRecord(existing, await presentContext(tx, actor.coopId, clock.today, groups, [{ animalId: existing.animalId, userId: existing.recordedBy }]));
+    }
+  }
+  const errors: FieldMessages = {};
+  if (input.processedOn > clock.today) addMessage(errors, 'processedOn', `${input.processedOn} is in the future (today is ${clock.today})`);
+  const subject = await subjectOf(tx, actor, farmId, input, groups, errors, input.processedOn);
+  const field = input.animalId ? 'animalId' : 'groupId';
+  if (subject.birthDate && input.processedOn < subject.birthDate) addMessage(errors, 'processedOn', `That is before it was born (${subject.birthDate})`);
+  const processed = await processingFactsOfFarm(tx, actor.coopId, farmId);
+  let headsLeftAfter: number | null = null;
+  if (subject.group) {
+    const left = headsLeft(subject.group, processed, input.processedOn);
+    headsLeftAfter = left - input.headCount;
+    if (input.headCount > left) addMessage(errors, 'headCount', `${subject.group.name} has ${left} head${left === 1 ? '' : 's'} left; ${input.headCount} cannot be processed from it`);
+  }
+  if (subject.animal || subject.group) {
+    const covering = await withdrawalsCovering(tx, actor.coopId, { animalIds: input.animalId ? [input.animalId] : [], groupIds: input.groupId ? [input.groupId] : [] }, input.processedOn);
+    const w = input.animalId ? covering.animals.get(input.animalId) : covering.groups.get(input.groupId!);
+    if (w) addMessage(errors, field, withdrawalMessage(w));
+  }
+  const ageDays = subject.birthDate && input.processedOn >= subject.birthDate ? daysBetween(subject.birthDate, input.processedOn) : null;
+  const perHead = input.liveGrams / input.headCount;
+  const weightCheck = checkWeightForAge(perHead, ageDays);
+  if (weightCheck?.level === 'error') addMessage(errors, 'liveGrams', weightCheck.message);
+  const yieldOf = dressOut({ liveGrams: input.liveGrams, hotCarcassGrams: input.hotCarcassGrams, chilledCarcassGrams: input.chilledCarcassGrams });
+  for (const flag of yieldOf.flags) if (flag.level === 'error') addMessage(errors, flag.field, flag.message);
+  if (Object.keys(errors).length > 0) throw AppError.validation(errors);
+
+  const classed = usdaClass({
+    birthDate: subject.birthDate, processedOn: input.processedOn,
+    carcassGrams: (input.chilledCarcassGrams ?? input.hotCarcassGrams) / input.headCount,
+  });
+  const flags: YieldFlag[] = yieldOf.flags.filter((f) => f.level === 'warning');
+  const row = await ProcessingRecord.create(
+    {
+      ...(input.id ? { id: input.id } : {}),
+      coopId: actor.coopId, farmId, processedOn: input.processedOn,
+      animalId: input.animalId ?? null, groupId: input.groupId ?? null, headCount: input.headCount, ageDays,
+      liveGrams: input.liveGrams, hotCarcassGrams: input.hotCarcassGrams, chilledCarcassGrams: input.chilledCarcassGrams,
+      hotDressOutPercent: rounded(yieldOf.hotPercent)!, chilledDressOutPercent: rounded(yieldOf.chilledPercent),
+      usdaClass: classed.usdaClass, usdaClassReason: classed.reason, usdaClassNote: classed.note,
+      flags, notes: input.notes, recordedBy: actor.id,
+    },
+    { transaction: tx },
+  );
+  await recordChanges({ coopId: actor.coopId, tableName: 'processing_records', recordId: row.id, actorUserId: actor.id, changes: { created: [null, `${input.headCount} head(s) on ${input.processedOn}`] } }, tx);
+  if (input.animalId) {
+    await applyStatusEvent(tx, actor, input.animalId, { kind: 'disposition', value: 'processed', effectiveOn: input.processedOn, cause: 'Processing record' });
+  }
+  // The group's last heads: it is done growing.
+  if (input.groupId && headsLeftAfter === 0) await closeEmptiedGroupIn(tx, actor, input.groupId, input.processedOn);
+  await ProcessingMark.update(
+    { status: 'done' },
+    { where: { farmId, status: 'planned', ...(input.animalId ? { animalId: input.animalId } : { groupId: input.groupId! }) }, transaction: tx },
+  );
+  announceProcessing(tx, farmId);
+  return presentProcessingRecord(row, await presentContext(tx, actor.coopId, clock.today, groups, [{ animalId: row.animalId, userId: actor.id }]));
+}
+
+/**
+ * Marks an animal or a growing group for processing on a planned date. Refused while a veterinarian's
+ * withdrawal covers today or the planned date (it can be marked once the withdrawal is over); breeding
+ * is not blocked by a withdrawal. One planned mark per animal and per group.
+ */
+export async function markForProcessing(actor: SessionUser, input: ProcessingMarkCreateInput): Promise<ProcessingMarkDto> {
+  const farmId = farmOf(actor);
+  ensureCan(actor, 'create', 'ProcessingRecord', { farmId }, 'That farm', 'Only members of the farm mark animals for processing');
+  return withTenant(actor, async (tx) => {
+    const clock = await farmClockOf(tx, actor.coopId, farmId);
+    const groups = await growOutFactsOfFarm(tx, actor.coopId, farmId);
+    const errors: FieldMessages = {};
+    if (input.plannedOn < clock.today) addMessage(errors, 'plannedOn', `Plan it for today (${clock.today}) or later`);
+    const subject = await subjectOf(tx, actor, farmId, input, groups, errors);
+    const field = input.animalId ? 'animalId' : 'groupId';
+    if (subject.animal || subject.group) {
+      const ids = { animalIds: input.animalId ? [input.animalId] : [], groupIds: input.groupId ? [input.groupId] : [] };
+      for (const date of new Set([clock.today, input.plannedOn])) {
+        const covering = await withdrawalsCovering(tx, actor.coopId, ids, date);
+        const w = input.animalId ? covering.animals.get(input.animalId) : covering.groups.get(input.groupId!);
+        if (w) {
+          addMessage(errors, field, withdrawalMessage(w).replace('it can be processed from', 'it can be marked for processing from'));
+          break;
+        }
+      }
+      const open = await ProcessingMark.findOne({ where: { farmId, status: 'planned', ...(input.animalId ? { animalId: input.animalId } : { groupId: input.groupId! }) }, transaction: tx });
+      if (open) throw new AppError(ErrorCode.conflict, 409, `Already marked for processing on ${open.plannedOn}`);
+    }
+    if (Object.keys(errors).length > 0) throw AppError.validation(errors);
+    const row = await ProcessingMark.create(
+      { ...(input.id ? { id: input.id } : {}), coopId: actor.coopId, farmId, animalId: input.animalId ?? null, groupId: input.groupId ?? null, plannedOn: input.plannedOn, notes: input.notes, markedBy: actor.id },
+      { transaction: tx },
+    );
+    announceProcessing(tx, farmId);
+    return presentProcessingMark(row, await presentContext(tx, actor.coopId, clock.today, groups, [{ animalId: row.animalId, userId: actor.id }]), null);
+  });
+}
+
+/** Cancels a planned mark (the version the member saw: two people cancelling at once get a 409). */
+export async function cancelMark(actor: SessionUser, markId: string, version: number): Promise<ProcessingMarkDto> {
+  return withTenant(actor, async (tx) => {
+    const mark = await ProcessingMark.findOne({ where: { id: markId }, transaction: tx, lock: tx.LOCK.UPDATE });
+    if (!mark) throw AppError.notFound('That mark');
+    ensureCan(actor, 'update', 'ProcessingRecord', { farmId: mark.farmId }, 'That mark', 'Only members of the farm cancel marks for processing');
+    if (mark.version !== version) throw new AppError(ErrorCode.conflict, 409, 'Someone changed this mark meanwhile; reload it');
+    if (mark.status !== 'planned') throw new AppError(ErrorCode.conflict, 409, `That mark is already ${mark.status}`);
+    mark.status = 'cancelled';
+    await mark.save({ transaction: tx });
+    announceProcessing(tx, mark.farmId);
+    const clock = await farmClockOf(tx, actor.coopId, mark.farmId);
+    const groups = await growOutFactsOfFarm(tx, actor.coopId, mark.farmId);
+    return presentProcessingMark(mark, await presentContext(tx, actor.coopId, clock.today, groups, [{ animalId: mark.animalId, userId: mark.markedBy }]), null);
+  });
+}
+
+/** The farm's processing records (latest first) and its planned marks (soonest first). Apprentices read them. */
+export async function listProcessing(actor: SessionUser): Promise<ProcessingListDto> {
+  const farmId = farmOf(actor);
+  ensureCan(actor, 'read', 'ProcessingRecord', { farmId }, 'That farm');
+  return withTenant(actor, async (tx) => {
+    const clock = await farmClockOf(tx, actor.coopId, farmId);
+    const groups = await growOutFactsOfFarm(tx, actor.coopId, farmId);
+    const records = await ProcessingRecord.findAll({ where: { farmId }, order: [['processedOn', 'DESC'], ['createdAt', 'DESC']], limit: 500, transaction: tx });
+    const marks = await ProcessingMark.findAll({ where: { farmId, status: 'planned' }, order: [['plannedOn', 'ASC'], ['createdAt', 'ASC']], transaction: tx });
+    const ctx = await presentContext(tx, actor.coopId, clock.today, groups, [
+      ...records.map((r) => ({ animalId: r.animalId, userId: r.recordedBy })),
+      ...marks.map((m) => ({ animalId: m.animalId, userId: m.markedBy })),
+    ]);
+    const covering = await withdrawalsCovering(tx, actor.coopId, {
+      animalIds: marks.flatMap((m) => (m.animalId ? [m.animalId] : [])), groupIds: marks.flatMap((m) => (m.groupId ? [m.groupId] : [])),
+    }, clock.today);
+    return {
+      today: clock.today,
+      records: records.map((r) => presentProcessingRecord(r, ctx)),
+      marks: marks.map((m) => presentProcessingMark(m, ctx, (m.animalId ? covering.animals.get(m.animalId) : covering.groups.get(m.groupId!))?.withdrawalEndsOn ?? null)),
+    };
+  });
+}

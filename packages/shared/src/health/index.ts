@@ -1,0 +1,2 @@
+export * from './heat';
+export type * from './health-dto';

@@ -1,0 +1,56 @@
+import { z } from 'zod';
+import { calendarDateSchema } from './animal.schema';
+import { singleLine } from './text';
+
+const id = (what: string) => z.uuid({ message: `${what} is not a valid id` });
+
+/** A purchase of feed in whole bags; the bag weight is entered in the farm's units and sent in grams. */
+export const feedPurchaseCreateSchema = z.strictObject({
+  id: id('The purchase').optional(),
+  boughtOn: calendarDateSchema,
+  productName: singleLine('The feed', 1, 80),
+  bagGrams: z.number({ message: 'Enter the bag weight' }).int('Weights are whole grams').min(100, 'A bag under 100 g is not a feed bag').max(100_000, 'A bag over 100 kg; check the weight'),
+  bags: z.number({ message: 'Enter how many bags' }).int('Whole bags').min(1, 'At least one bag').max(1000, 'More than 1,000 bags; check the count'),
+  priceCents: z.number({ message: 'Enter what was paid' }).int('Whole cents').min(0, 'A price cannot be negative').max(100_000_000, 'That price looks wrong; check it'),
+  crudeProteinPercent: z.number().min(0, 'Protein cannot be negative').max(60, 'No rabbit feed is over 60 % protein').nullable().optional(),
+  note: z.string().trim().max(500).default(''),
+});
+export type FeedPurchaseCreateInput = z.infer<typeof feedPurchaseCreateSchema>;
+export type FeedPurchaseCreateBody = z.input<typeof feedPurchaseCreateSchema>;
+
+export const feedTargets = ['group', 'pen', 'doe', 'farm'] as const;
+export type FeedTarget = (typeof feedTargets)[number];
+export const feedAllocationRules = ['head_days', 'live_weight'] as const;
+export type FeedAllocationRule = (typeof feedAllocationRules)[number];
+
+/**
+ * Feed given: grams from a purchase (or the oldest stock of the feed: first bought, first used) to a
+ * grow-out group, a pen, a doe with her litter, or the whole farm. Feed to a pen or the whole farm is
+ * split over the groups and does with litters there by head-days or by live weight; `fromOn` starts the
+ * period the feed covers (default: the day given).
+ */
+export const feedUseCreateSchema = z
+  .strictObject({
+    id: id('The entry').optional(),
+    givenOn: calendarDateSchema,
+    fromOn: calendarDateSchema.optional(),
+    grams: z.number({ message: 'Enter the amount' }).int('Weights are whole grams').min(1, 'Enter an amount above zero').max(10_000_000, 'More than 10 tonnes; check the amount'),
+    purchaseId: id('The purchase').nullable().optional(),
+    productName: singleLine('The feed', 1, 80).optional(),
+    target: z.enum(feedTargets, { message: 'Choose who the feed went to' }),
+    groupId: id('The group').optional(),
+    housingUnitId: id('The pen').optional(),
+    doeId: id('The doe').optional(),
+    allocation: z.enum(feedAllocationRules, { message: 'Choose how to split the feed' }).optional(),
+    note: z.string().trim().max(500).default(''),
+  })
+  .superRefine((v, ctx) => {
+    if (!v.purchaseId && !v.productName) ctx.addIssue({ code: 'custom', path: ['purchaseId'], message: 'Choose the purchase or the feed' });
+    if (v.target === 'group' && !v.groupId) ctx.addIssue({ code: 'custom', path: ['groupId'], message: 'Choose the group' });
+    if (v.target === 'pen' && !v.housingUnitId) ctx.addIssue({ code: 'custom', path: ['housingUnitId'], message: 'Choose the pen' });
+    if (v.target === 'doe' && !v.doeId) ctx.addIssue({ code: 'custom', path: ['doeId'], message: 'Choose the doe' });
+    if ((v.target === 'pen' || v.target === 'farm') && !v.allocation) ctx.addIssue({ code: 'custom', path: ['allocation'], message: 'Choose how to split the feed: by head-days or by live weight' });
+    if (v.fromOn && v.fromOn > v.givenOn) ctx.addIssue({ code: 'custom', path: ['fromOn'], message: 'The period starts after the day the feed was given' });
+  });
+export type FeedUseCreateInput = z.infer<typeof feedUseCreateSchema>;
+export type FeedUseCreateBody = z.input<typeof feedUseCreateSchema>;

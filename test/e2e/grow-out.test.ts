@@ -1,0 +1,112 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { daysAgo } from '../support/almanac';
+import { collectPageErrors, openBrowser } from '../support/browser';
+import { asTenant } from '../support/db';
+import { createTestCoop, TEST_PASSWORD } from '../support/factories';
+import { breedLitterAs, groupAs, weighGroupAs } from '../support/growout';
+import { catalogueBreeds } from '../support/herd';
+import { listeningServer } from '../support/test-app';
+
+let server: Awaited<ReturnType<typeof listeningServer>>;
+beforeAll(async () => {
+  server = await listeningServer();
+});
+afterAll(async () => {
+  await server.close();
+});
+
+async function signIn(page: Page, email: string) {
+  await page.goto(`${server.url}/sign-in`);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(TEST_PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByRole('heading', { name: 'Commons', level: 1 }).waitFor();
+}
+
+const sideways = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+
+describe('grow-out: a member weighs a group, records feed and reads the breed comparison', () => {
+  it('when a member weighs a growing group, then its projected ready date moves; the feed she records is in the feed book and the group; the breed comparison shows the cross', async () => {
+    const coop = await createTestCoop();
+    const breeds = await catalogueBreeds(coop.id);
+    // A Californian buck over a New Zealand doe: 8 kits, kindled 42 days ago, weaned into a group at 35 days.
+    const { litter } = await breedLitterAs(coop.member, {
+      kindledDaysAgo: 42, kits: 8, sireBreedId: breeds['Californian']!.id, damBreedId: breeds['New Zealand']!.id, doe: 'Juniper', buck: 'Cobalt',
+    });
+    const group = await groupAs(coop.member, { name: 'Juniper spring pen', formedOn: daysAgo(7), targetGrams: 2270, litters: [{ litterId: litter.id, heads: 8 }] });
+    // Two weigh-ins already: about 31 g a day per head.
+    await weighGroupAs(coop.member, group.id, { weighedOn: daysAgo(7), totalGrams: 8 * 760, headCount: 8 });
+    await weighGroupAs(coop.member, group.id, { weighedOn: daysAgo(3), totalGrams: 8 * 885, headCount: 8 });
+
+    const browser = await openBrowser();
+    const errors = collectPageErrors(browser.page);
+    const { page } = browser;
+    try {
+      await signIn(page, coop.member.email);
+      await page.getByRole('link', { name: 'Grow-out', exact: true }).click();
+      await page.getByRole('heading', { name: 'Grow-out groups', level: 1 }).waitFor();
+      await page.getByRole('link', { name: 'Juniper spring pen' }).first().click();
+      await page.getByRole('heading', { name: 'Juniper spring pen', level: 1 }).waitFor();
+
+      // 1. Weigh the group today: a fast few days bring the projected date forward.
+      const projected = page.getByTestId('projected-date');
+      await projected.waitFor();
+      const before = (await projected.textContent())!.trim();
+      const weighForm = page.getByRole('form', { name: 'Weigh the group' });
+      await weighForm.getByLabel('Total weight (lb)').fill('18');
+      await weighForm.getByLabel('Total weight (oz)').fill('0');
+      await weighForm.getByLabel('Head count').fill('8');
+      await weighForm.getByRole('button', { name: /save|record/i }).click();
+      await expect.poll(async () => (await projected.textContent())!.trim(), { timeout: 15_000 }).not.toBe(before);
+      await page.getByText(/Model: /).first().waitFor();
+      const stored = await asTenant(coop.id, async (c) => (await c.query(`SELECT total_grams, head_count FROM weigh_ins WHERE group_id = $1 ORDER BY weighed_on DESC, created_at DESC LIMIT 1`, [group.id])).rows);
+      expect(stored).toEqual([{ total_grams: 8165, head_count: 8 }]); // 18 lb = 8,164.66 g (NIST HB44: 1 lb = 453.59237 g)
+      await page.screenshot({ path: '.data/e2e-growout-group.png', fullPage: true });
+
+      // 2. Record feed: a purchase, then feed given to the group.
+      await page.getByRole('navigation', { name: 'Grow-out' }).getByRole('link', { name: 'Feed' }).click();
+      await page.getByRole('heading', { name: 'Feed', level: 1 }).waitFor();
+      const purchase = page.getByRole('form', { name: 'Record a feed purchase' });
+      await purchase.getByLabel('Bought on').fill(daysAgo(10));
+      await purchase.getByLabel('Feed', { exact: true }).fill('Grower pellets 16 %');
+      await purchase.getByLabel('Bag weight (lb)').fill('50');
+      await purchase.getByLabel('Bags').fill('2');
+      await purchase.getByLabel('Price paid').fill('38.50');
+      await purchase.getByLabel('Crude protein (%)').fill('16');
+      await purchase.getByRole('button', { name: /save|record/i }).click();
+      await page.getByText('Grower pellets 16 %').first().waitFor();
+
+      const given = page.getByRole('form', { name: 'Record feed given' });
+      await given.getByLabel('Given on').fill(daysAgo(1));
+      await given.getByLabel('Period from').fill(daysAgo(7));
+      await given.getByLabel('Amount (lb)').fill('30');
+      await given.getByLabel('Feed given to').selectOption('group');
+      await given.getByLabel('Group').selectOption(group.id);
+      await given.getByRole('button', { name: /save|record/i }).click();
+      await expect
+        .poll(async () => (await asTenant(coop.id, async (c) => (await c.query(`SELECT coalesce(sum(grams), 0)::int AS g FROM feed_uses WHERE coop_id = $1`, [coop.id])).rows[0].g)))
+        .toBe(13608); // 30 lb = 13,607.77 g
+      await page.screenshot({ path: '.data/e2e-growout-feed.png', fullPage: true });
+
+      // 3. The breed comparison: the cross is there, with its litter behind it.
+      await page.getByRole('navigation', { name: 'Grow-out' }).getByRole('link', { name: 'Performance' }).click();
+      await page.getByRole('heading', { name: 'Performance', level: 1 }).waitFor();
+      await page.getByRole('button', { name: 'Breeds & crosses' }).click();
+      const comparison = page.locator('section[aria-labelledby="breeds-heading"]');
+      await comparison.getByRole('heading', { name: 'Breeds and crosses' }).waitFor();
+      await comparison.getByText('Californian × New Zealand').first().waitFor();
+      await page.screenshot({ path: '.data/e2e-growout-breeds.png', fullPage: true });
+      expect(errors).toEqual([]);
+
+      // A phone: the group's page fits the width.
+      await page.setViewportSize({ width: 375, height: 800 });
+      await page.goto(`${server.url}/grow-out/groups/${group.id}`);
+      await page.getByRole('heading', { name: 'Juniper spring pen', level: 1 }).waitFor();
+      expect(await sideways(page)).toBeLessThanOrEqual(0);
+      await page.screenshot({ path: '.data/e2e-growout-group-phone.png', fullPage: true });
+    } finally {
+      await browser.close();
+    }
+  });
+});
