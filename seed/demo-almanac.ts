@@ -18,6 +18,7 @@ import {
 } from '../packages/server/src/modules/almanac/almanac-import.service';
 import { coopAnimalFactsOf } from '../packages/server/src/modules/animals/animals.service';
 import { importLitters, type ImportedLitter, type ImportedLitterEvent } from '../packages/server/src/modules/litters/litters-import.service';
+import { seededRandom } from '../packages/shared/src/pedigree/seeded-random';
 
 export interface DemoAlmanacContext {
   coopId: string;
@@ -28,18 +29,6 @@ export interface DemoAlmanacContext {
   apprenticeId: string | null;
   /** The Hazelrun apprentice's mentor's farm key. */
   apprenticeFarmKey?: string;
-}
-
-/** mulberry32, as the herd demo uses: the same demo on every load. */
-function seededRandom(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
 }
 
 const lossCauses = ['Chilled outside the nest', 'Crushed in the nest box', 'Found dead, cause unknown', 'Born weak, did not nurse'];

@@ -16,6 +16,7 @@ import type { SessionUser } from '../packages/server/src/http/passport';
 import { recordFeedPurchaseIn, recordFeedUseIn } from '../packages/server/src/modules/feed/feed.service';
 import { closeGroupIn, formGroupIn, groupsOfFarm, weighGroupIn } from '../packages/server/src/modules/growout/growout.service';
 import { farmLitterFactsOf, type LitterFacts } from '../packages/server/src/modules/litters/litter-facts.service';
+import { seededRandom } from '../packages/shared/src/pedigree/seeded-random';
 
 export interface DemoGrowOutContext {
   coopId: string;
@@ -23,18 +24,6 @@ export interface DemoGrowOutContext {
   keepers: Map<string, string>;
   apprenticeId: string | null;
   apprenticeFarmKey?: string;
-}
-
-/** mulberry32, as the other demo loaders use. */
-function seededRandom(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
 }
 
 const actorFor = (coopId: string, farmId: string, userId: string, role: 'member' | 'apprentice' = 'member'): SessionUser => ({

@@ -16,6 +16,7 @@ import { farmBreedingStockOf } from '../packages/server/src/modules/animals/anim
 import { growOutFactsOfFarm } from '../packages/server/src/modules/growout/growout.service';
 import { hasTemperatureReadings, recordTemperatureIn } from '../packages/server/src/modules/health/temperature.service';
 import { recordProcessingIn } from '../packages/server/src/modules/processing/processing.service';
+import { seededRandom } from '../packages/shared/src/pedigree/seeded-random';
 
 export interface DemoHealthYieldContext {
   coopId: string;
@@ -25,18 +26,6 @@ export interface DemoHealthYieldContext {
   apprenticeFarmKey?: string;
   /** Each farm's temperature unit, by farm key (readings are typed in it). */
   temperatureUnits: Map<string, 'F' | 'C'>;
-}
-
-/** mulberry32, as the other demo loaders use. */
-function seededRandom(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
 }
 
 const actorFor = (coopId: string, farmId: string, userId: string, role: 'member' | 'apprentice' = 'member'): SessionUser => ({

@@ -10,6 +10,7 @@ import type { Transaction } from 'sequelize';
 import { addDays, todayIn, type BreedDto, type Sex } from '@burrowline/shared';
 import { importHerd, importWeighIns, type ImportedAnimal, type ImportedWeighIn } from '../packages/server/src/modules/animals/herd-import.service';
 import { breedsOf } from '../packages/server/src/modules/breeds/breeds.service';
+import { seededRandom } from '../packages/shared/src/pedigree/seeded-random';
 
 export interface DemoHerdContext {
   coopId: string;
@@ -18,18 +19,6 @@ export interface DemoHerdContext {
   /** The member who keeps each farm's records, by farm key. */
   keepers: Map<string, string>;
   apprenticeId: string | null;
-}
-
-/** mulberry32: a small, well-known seeded generator, so the demo is the same on every load. */
-function seededRandom(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
 }
 
 const names = [

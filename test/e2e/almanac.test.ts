@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { addDays } from '@burrowline/shared';
 import { daysAgo, farmToday, litterAs, taskRows } from '../support/almanac';
-import { collectPageErrors, openBrowser } from '../support/browser';
+import { collectPageErrors, openBrowser, sidewaysScroll, signInAt } from '../support/browser';
 import { asTenant } from '../support/db';
 import { createTestCoop, TEST_PASSWORD } from '../support/factories';
 import { addAnimalAs } from '../support/herd';
@@ -17,14 +17,10 @@ afterAll(async () => {
 });
 
 async function signIn(page: Page, email: string) {
-  await page.goto(`${server.url}/sign-in`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill(TEST_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { name: 'Commons', level: 1 }).waitFor();
+  await signInAt(page, server.url, email, TEST_PASSWORD);
 }
 
-const sideways = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+const sideways = sidewaysScroll;
 
 describe('the Almanac: a member records a service and follows the plan to the litter', () => {
   it('when a member records a service, its palpation, the kindling and a fostering, then the Almanac plans each step and follows the real dates', async () => {

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { daysAgo } from '../support/almanac';
-import { collectPageErrors, openBrowser } from '../support/browser';
+import { collectPageErrors, openBrowser, sidewaysScroll, signInAt } from '../support/browser';
 import { asTenant } from '../support/db';
 import { createTestCoop, TEST_PASSWORD } from '../support/factories';
 import { breedLitterAs, groupAs, weighGroupAs } from '../support/growout';
@@ -17,14 +17,10 @@ afterAll(async () => {
 });
 
 async function signIn(page: Page, email: string) {
-  await page.goto(`${server.url}/sign-in`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill(TEST_PASSWORD);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { name: 'Commons', level: 1 }).waitFor();
+  await signInAt(page, server.url, email, TEST_PASSWORD);
 }
 
-const sideways = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+const sideways = sidewaysScroll;
 
 describe('grow-out: a member weighs a group, records feed and reads the breed comparison', () => {
   it('when a member weighs a growing group, then its projected ready date moves; the feed she records is in the feed book and the group; the breed comparison shows the cross', async () => {

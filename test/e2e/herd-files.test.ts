@@ -4,7 +4,7 @@ import path from 'node:path';
 import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { collectPageErrors, openBrowser } from '../support/browser';
+import { collectPageErrors, openBrowser, sidewaysScroll, signInAt } from '../support/browser';
 import { csv, HEADER, pdfText, testImage } from '../support/herd-files';
 import { listeningServer } from '../support/test-app';
 
@@ -22,14 +22,10 @@ afterAll(async () => {
 });
 
 async function signIn(page: Page) {
-  await page.goto(`${server.url}/sign-in`);
-  await page.getByLabel('E-mail').fill(DEMO.member);
-  await page.getByLabel('Password').fill(DEMO.password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { name: 'Commons', level: 1 }).waitFor();
+  await signInAt(page, server.url, DEMO.member, DEMO.password);
 }
 
-const sideways = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+const sideways = sidewaysScroll;
 
 function herdFile(tag: string, sireOfKit: string) {
   return csv(

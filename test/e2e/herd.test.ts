@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { collectPageErrors, openBrowser } from '../support/browser';
+import { collectPageErrors, openBrowser, signInAt } from '../support/browser';
 import { listeningServer } from '../support/test-app';
 
 // The demo co-op is loaded into the test cluster by `npm test`, as `npm start` loads it. Clementine is
@@ -16,11 +16,7 @@ afterAll(async () => {
 });
 
 async function signIn(page: Page) {
-  await page.goto(`${server.url}/sign-in`);
-  await page.getByLabel('E-mail').fill(DEMO.email);
-  await page.getByLabel('Password').fill(DEMO.password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { name: 'Commons', level: 1 }).waitFor();
+  await signInAt(page, server.url, DEMO.email, DEMO.password);
 }
 
 /** The API's own figures, read with the browser's session, to check what the screen shows. */

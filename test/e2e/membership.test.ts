@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { collectPageErrors, openBrowser } from '../support/browser';
+import { collectPageErrors, openBrowser, sidewaysScroll, signInAt } from '../support/browser';
 import { linkIn, waitForMail } from '../support/mail';
 import { listeningServer } from '../support/test-app';
 
@@ -17,14 +17,10 @@ afterAll(async () => {
 });
 
 async function signIn(page: Page, email: string, password = DEMO.password) {
-  await page.goto(`${server.url}/sign-in`);
-  await page.getByLabel('E-mail').fill(email);
-  await page.getByLabel('Password').fill(password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.getByRole('heading', { name: 'Commons', level: 1 }).waitFor();
+  await signInAt(page, server.url, email, password);
 }
 
-const sideways = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+const sideways = sidewaysScroll;
 
 async function fillApplication(page: Page, who: { name: string; email: string; farm: string }) {
   await page.getByLabel('Your name').fill(who.name);

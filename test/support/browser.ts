@@ -34,3 +34,15 @@ export function collectPageErrors(page: Page): string[] {
   page.on('pageerror', (error) => errors.push(String(error)));
   return errors;
 }
+
+/** Signs in through the sign-in screen as a person would, and waits for Commons. */
+export async function signInAt(page: Page, baseUrl: string, email: string, password: string): Promise<void> {
+  await page.goto(`${baseUrl}/sign-in`);
+  await page.getByLabel('E-mail').fill(email);
+  await page.getByLabel('Password').fill(password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.getByRole('heading', { name: 'Commons', level: 1 }).waitFor();
+}
+
+/** How many pixels the page scrolls sideways (0 when it fits the width, as on a phone it must). */
+export const sidewaysScroll = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);

@@ -1,4 +1,5 @@
 import type { MigrationFn } from '../migrator';
+import { tenantIsolation } from '../tenant-isolation-sql';
 
 /**
  * Grow-out groups (issue 7): kits of one or more litters raised together after weaning toward a target
@@ -48,13 +49,7 @@ export const up: MigrationFn = async ({ context: { sql, appRole } }) => {
     ALTER TABLE weigh_ins ADD CONSTRAINT weigh_ins_group FOREIGN KEY (coop_id, group_id) REFERENCES grow_out_groups (coop_id, id);
     CREATE INDEX weigh_ins_group_idx ON weigh_ins (group_id, weighed_on) WHERE deleted_at IS NULL AND group_id IS NOT NULL;
   `);
-  for (const table of ['grow_out_groups', 'grow_out_group_litters']) {
-    await sql(`
-      ALTER TABLE ${table} ENABLE ROW LEVEL SECURITY;
-      ALTER TABLE ${table} FORCE ROW LEVEL SECURITY;
-      CREATE POLICY ${table}_tenant ON ${table} USING (coop_id = current_coop_id()) WITH CHECK (coop_id = current_coop_id());
-    `);
-  }
+  await sql(['grow_out_groups', 'grow_out_group_litters'].map(tenantIsolation).join('\n'));
   await sql(`
     GRANT SELECT, INSERT, UPDATE ON grow_out_groups TO ${appRole};
     GRANT SELECT, INSERT ON grow_out_group_litters TO ${appRole};

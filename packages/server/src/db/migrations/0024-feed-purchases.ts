@@ -1,4 +1,5 @@
 import type { MigrationFn } from '../migrator';
+import { tenantIsolation } from '../tenant-isolation-sql';
 
 /**
  * Feed bought by a farm, in whole bags: grams and integer cents, the crude protein on the tag. Feed
@@ -26,9 +27,7 @@ export const up: MigrationFn = async ({ context: { sql, appRole } }) => {
       CONSTRAINT feed_purchases_coop_id_unique UNIQUE (coop_id, id)
     );
     CREATE INDEX feed_purchases_farm_idx ON feed_purchases (farm_id, bought_on) WHERE deleted_at IS NULL;
-    ALTER TABLE feed_purchases ENABLE ROW LEVEL SECURITY;
-    ALTER TABLE feed_purchases FORCE ROW LEVEL SECURITY;
-    CREATE POLICY feed_purchases_tenant ON feed_purchases USING (coop_id = current_coop_id()) WITH CHECK (coop_id = current_coop_id());
+    ${tenantIsolation('feed_purchases')}
     GRANT SELECT, INSERT, UPDATE ON feed_purchases TO ${appRole};
   `);
 };

@@ -1,4 +1,5 @@
 import type { MigrationFn } from '../migrator';
+import { tenantIsolation } from '../tenant-isolation-sql';
 
 /**
  * Feed given: grams of one feed on a day (or over a period ending that day) to a grow-out group, a pen,
@@ -59,13 +60,7 @@ export const up: MigrationFn = async ({ context: { sql, appRole } }) => {
     CREATE INDEX feed_use_shares_use_idx ON feed_use_shares (feed_use_id);
     CREATE INDEX feed_use_shares_group_idx ON feed_use_shares (group_id) WHERE group_id IS NOT NULL;
   `);
-  for (const table of ['feed_uses', 'feed_use_shares']) {
-    await sql(`
-      ALTER TABLE ${table} ENABLE ROW LEVEL SECURITY;
-      ALTER TABLE ${table} FORCE ROW LEVEL SECURITY;
-      CREATE POLICY ${table}_tenant ON ${table} USING (coop_id = current_coop_id()) WITH CHECK (coop_id = current_coop_id());
-    `);
-  }
+  await sql(['feed_uses', 'feed_use_shares'].map(tenantIsolation).join('\n'));
   await sql(`
     GRANT SELECT, INSERT, UPDATE ON feed_uses TO ${appRole};
     GRANT SELECT, INSERT ON feed_use_shares TO ${appRole};

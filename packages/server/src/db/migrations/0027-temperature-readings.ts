@@ -1,4 +1,5 @@
 import type { MigrationFn } from '../migrator';
+import { tenantIsolation } from '../tenant-isolation-sql';
 
 /**
  * The barn's temperature as a farm reads it (issue 7): stored in °C to one decimal, whichever unit the
@@ -21,9 +22,7 @@ export const up: MigrationFn = async ({ context: { sql, appRole } }) => {
       CONSTRAINT temperature_readings_coop_id_unique UNIQUE (coop_id, id)
     );
     CREATE INDEX temperature_readings_farm_idx ON temperature_readings (farm_id, taken_at DESC) WHERE deleted_at IS NULL;
-    ALTER TABLE temperature_readings ENABLE ROW LEVEL SECURITY;
-    ALTER TABLE temperature_readings FORCE ROW LEVEL SECURITY;
-    CREATE POLICY temperature_readings_tenant ON temperature_readings USING (coop_id = current_coop_id()) WITH CHECK (coop_id = current_coop_id());
+    ${tenantIsolation('temperature_readings')}
     GRANT SELECT, INSERT, UPDATE ON temperature_readings TO ${appRole};
   `);
 };

@@ -1,4 +1,5 @@
 import type { MigrationFn } from '../migrator';
+import { tenantIsolation } from '../tenant-isolation-sql';
 
 /**
  * Processing records (issue 7): one animal from the Herd, or a batch of a grow-out group's heads, with
@@ -44,9 +45,7 @@ export const up: MigrationFn = async ({ context: { sql, appRole } }) => {
     CREATE UNIQUE INDEX processing_records_one_per_animal ON processing_records (animal_id) WHERE deleted_at IS NULL AND animal_id IS NOT NULL;
     CREATE INDEX processing_records_farm_idx ON processing_records (farm_id, processed_on DESC) WHERE deleted_at IS NULL;
     CREATE INDEX processing_records_group_idx ON processing_records (group_id) WHERE deleted_at IS NULL AND group_id IS NOT NULL;
-    ALTER TABLE processing_records ENABLE ROW LEVEL SECURITY;
-    ALTER TABLE processing_records FORCE ROW LEVEL SECURITY;
-    CREATE POLICY processing_records_tenant ON processing_records USING (coop_id = current_coop_id()) WITH CHECK (coop_id = current_coop_id());
+    ${tenantIsolation('processing_records')}
     GRANT SELECT, INSERT, UPDATE ON processing_records TO ${appRole};
   `);
 };

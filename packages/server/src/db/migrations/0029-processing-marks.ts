@@ -1,4 +1,5 @@
 import type { MigrationFn } from '../migrator';
+import { tenantIsolation } from '../tenant-isolation-sql';
 
 /**
  * Marks for processing (issue 7): an animal or a grow-out group set aside for a planned processing
@@ -29,9 +30,7 @@ export const up: MigrationFn = async ({ context: { sql, appRole } }) => {
     CREATE UNIQUE INDEX processing_marks_one_per_animal ON processing_marks (animal_id) WHERE status = 'planned' AND deleted_at IS NULL AND animal_id IS NOT NULL;
     CREATE UNIQUE INDEX processing_marks_one_per_group ON processing_marks (group_id) WHERE status = 'planned' AND deleted_at IS NULL AND group_id IS NOT NULL;
     CREATE INDEX processing_marks_farm_idx ON processing_marks (farm_id, planned_on) WHERE deleted_at IS NULL;
-    ALTER TABLE processing_marks ENABLE ROW LEVEL SECURITY;
-    ALTER TABLE processing_marks FORCE ROW LEVEL SECURITY;
-    CREATE POLICY processing_marks_tenant ON processing_marks USING (coop_id = current_coop_id()) WITH CHECK (coop_id = current_coop_id());
+    ${tenantIsolation('processing_marks')}
     GRANT SELECT, INSERT, UPDATE ON processing_marks TO ${appRole};
   `);
 };
