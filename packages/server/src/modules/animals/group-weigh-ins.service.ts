@@ -32,6 +32,8 @@ export async function groupWeighInsOf(tx: Transaction, coopId: string, groupIds:
     },
     order: [['weighedOn', 'ASC'], ['createdAt', 'ASC']],
     transaction: tx,
+    // Plain rows: a farm's years of group weigh-ins, read-only here.
+    raw: true,
   });
   return rows.map(rowOf);
 }

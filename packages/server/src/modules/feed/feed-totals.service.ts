@@ -1,4 +1,4 @@
-import { Op, type Transaction } from 'sequelize';
+import { literal, Op, type Transaction } from 'sequelize';
 import { checkFeedUses, costFeedUses, largestRemainder, stockLeftByPurchase, type FeedPurchase as PurchaseFact, type FeedUse as UseFact } from '@burrowline/shared';
 import { FeedPurchase, FeedUse, FeedUseShare } from './feed.model';
 import { groupBy } from '../../lib/group-by';
@@ -38,8 +38,11 @@ export function costOfUses(purchases: PurchaseFact[], uses: UseFact[]): Map<stri
 
 export async function feedLedgerOf(tx: Transaction, coopId: string, farmId: string): Promise<FeedLedger> {
   const purchases = await FeedPurchase.findAll({ where: { coopId, farmId }, order: [['boughtOn', 'ASC'], ['createdAt', 'ASC']], transaction: tx });
-  const uses = await FeedUse.findAll({ where: { coopId, farmId }, order: [['givenOn', 'ASC'], ['createdAt', 'ASC']], transaction: tx });
-  const shares = uses.length === 0 ? [] : await FeedUseShare.findAll({ where: { coopId, feedUseId: { [Op.in]: uses.map((u) => u.id) } }, transaction: tx });
+  // Plain rows (raw) for uses and shares: years of feed are thousands of rows, read-only here, and model
+  // instances cost more than the query.
+  const uses = await FeedUse.findAll({ where: { coopId, farmId }, order: [['givenOn', 'ASC'], ['createdAt', 'ASC']], transaction: tx, raw: true });
+  const farmUses = literal(`(SELECT id FROM feed_uses WHERE farm_id = ${FeedUse.sequelize!.escape(farmId)})`);
+  const shares = uses.length === 0 ? [] : await FeedUseShare.findAll({ where: { coopId, feedUseId: { [Op.in]: farmUses } }, transaction: tx, raw: true });
   const pf = purchases.map(purchaseFact);
   const uf = uses.map(useFact);
   const sharesByUse = groupBy(shares, (s) => s.feedUseId);

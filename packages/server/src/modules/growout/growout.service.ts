@@ -156,7 +156,7 @@ function announce(tx: Transaction, farmId: string, groupId: string | null): void
 
 async function membersOf(tx: Transaction, groupIds: string[]): Promise<GrowOutGroupLitter[]> {
   if (groupIds.length === 0) return [];
-  return GrowOutGroupLitter.findAll({ where: { groupId: { [Op.in]: groupIds } }, transaction: tx });
+  return GrowOutGroupLitter.findAll({ where: { groupId: { [Op.in]: groupIds } }, transaction: tx, raw: true });
 }
 
 interface GroupInfo {

@@ -31,7 +31,8 @@ export interface LitterFacts {
 
 async function factsOf(tx: Transaction, litters: Litter[]): Promise<LitterFacts[]> {
   if (litters.length === 0) return [];
-  const events = await LitterEvent.findAll({ where: { litterId: { [Op.in]: litters.map((l) => l.id) } }, order: [['occurredOn', 'ASC'], ['createdAt', 'ASC']], transaction: tx });
+  // Plain rows: read-only facts over a farm's years of litters.
+  const events = await LitterEvent.findAll({ where: { litterId: { [Op.in]: litters.map((l) => l.id) } }, order: [['occurredOn', 'ASC'], ['createdAt', 'ASC']], transaction: tx, raw: true });
   const byLitter = groupBy(events, (e) => e.litterId);
   return litters.map((l) => {
     const record = recordOf(l, byLitter.get(l.id) ?? []);
@@ -53,13 +54,13 @@ async function factsOf(tx: Transaction, litters: Litter[]): Promise<LitterFacts[
 /** Facts of litters by id (another co-op's are simply absent). */
 export async function litterFactsOf(tx: Transaction, coopId: string, litterIds: string[]): Promise<Map<string, LitterFacts>> {
   if (litterIds.length === 0) return new Map();
-  const litters = await Litter.findAll({ where: { coopId, id: { [Op.in]: [...new Set(litterIds)] } }, transaction: tx });
+  const litters = await Litter.findAll({ where: { coopId, id: { [Op.in]: [...new Set(litterIds)] } }, transaction: tx, raw: true });
   return new Map((await factsOf(tx, litters)).map((f) => [f.id, f]));
 }
 
 /** Every litter of a farm, latest first. */
 export async function farmLitterFactsOf(tx: Transaction, coopId: string, farmId: string): Promise<LitterFacts[]> {
-  const litters = await Litter.findAll({ where: { coopId, farmId }, order: [['kindledOn', 'DESC']], transaction: tx });
+  const litters = await Litter.findAll({ where: { coopId, farmId }, order: [['kindledOn', 'DESC']], transaction: tx, raw: true });
   return factsOf(tx, litters);
 }
 
