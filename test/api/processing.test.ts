@@ -90,6 +90,17 @@ describe('processing records and their yields', () => {
     ]);
   });
 
+  it('when two batches that together take more heads than a group has are saved at the same moment, then one is kept and the other refused', async () => {
+    const coop = await createTestCoop();
+    const { group } = await growingGroupAs(coop.member, { kindledDaysAgo: 80, heads: 6, name: 'Oat pen' });
+    const [first, second] = await Promise.all([agentOf(coop.member.email), agentOf(coop.admin.email)]);
+    const batch = { groupId: group.id, processedOn: farmToday(), headCount: 4, liveGrams: 9600, hotCarcassGrams: 5280 };
+    const answers = await Promise.all([first.post('/api/processing-records').send(batch), second.post('/api/processing-records').send(batch)]);
+    expect(answers.map((a) => a.status).sort()).toEqual([201, 400]);
+    const kept = await withTenant({ coopId: coop.id }, (tx) => processingFactsOfFarm(tx, coop.id, coop.farms[0]!.id));
+    expect(kept.map((k) => k.headCount)).toEqual([4]);
+  });
+
   it('when a grow-out group was closed, then its heads may be recorded up to its closing day but not after, and it can no longer be marked', async () => {
     const coop = await createTestCoop();
     const { group } = await growingGroupAs(coop.member, { kindledDaysAgo: 90, heads: 5, name: 'Millet pen' });

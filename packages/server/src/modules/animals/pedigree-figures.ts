@@ -2,6 +2,7 @@ import type { Transaction } from 'sequelize';
 import { breedMakeupAll, inbreedingCoefficients, type BreedAnimal } from '@burrowline/shared';
 import { database } from '../../db/sequelize';
 import { query } from './animal-queries';
+import { lockUntilCommit } from '../../db/advisory-lock';
 
 /**
  * When COI and breed make-up are recomputed, and why it is correct:
@@ -21,7 +22,7 @@ import { query } from './animal-queries';
  * for 100,000 animals); a few milliseconds for a co-op of a few thousand animals.
  */
 export async function lockCoopPedigree(coopId: string, tx: Transaction): Promise<void> {
-  await database().query('SELECT pg_advisory_xact_lock(hashtextextended($1, 0))', { bind: [`pedigree:${coopId}`], transaction: tx });
+  await lockUntilCommit(tx, `pedigree:${coopId}`);
 }
 
 export interface PedigreeRow extends BreedAnimal {

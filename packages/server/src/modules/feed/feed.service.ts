@@ -16,6 +16,7 @@ import { farmLitterFactsOf, housingUnitNamesOf, housingUnitOfFarm, placementsDur
 import { namesOf } from '../users/users.service';
 import { FeedPurchase, FeedUse, FeedUseShare } from './feed.model';
 import { feedKeyOf, feedLedgerOf, feedTotalsByLitter, purchaseFact, sharesWithCost, useFact } from './feed-totals.service';
+import { lockUntilCommit } from '../../db/advisory-lock';
 
 /** Feed given to a doe and her litter from kindling to weaning (doe-level and hutch/pen feed), by litter id. */
 export async function doeLitterFeedOfFarm(tx: Transaction, coopId: string, farmId: string): Promise<Map<string, { grams: number; costCents: number }>> {
@@ -42,7 +43,7 @@ function announce(tx: Transaction, farmId: string): void {
 }
 
 async function lockFarm(tx: Transaction, farmId: string): Promise<void> {
-  await FeedPurchase.sequelize!.query(`SELECT pg_advisory_xact_lock(hashtext('feed:' || $1))`, { bind: [farmId], transaction: tx });
+  await lockUntilCommit(tx, `feed:${farmId}`);
 }
 
 type KitsInGroups = Map<string, { on: string; heads: number }[]>;

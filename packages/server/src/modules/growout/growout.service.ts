@@ -20,6 +20,7 @@ import { farmLitterFactsOf, housingUnitNamesOf, housingUnitOfFarm, litterFactsOf
 import { namesOf } from '../users/users.service';
 import { GrowOutGroup, GrowOutGroupLitter } from './grow-out-group.model';
 import { groupBy } from '../../lib/group-by';
+import { lockUntilCommit } from '../../db/advisory-lock';
 
 // ---------------------------------------------------------------------------------------------------
 // Contracts for feed, health, processing and performance (issue 7 plan).
@@ -137,7 +138,7 @@ async function farmToday(tx: Transaction, coopId: string, farmId: string): Promi
 
 /** Grow-out writes of one farm run one at a time, so two groups never take the same kits. */
 async function lockFarm(tx: Transaction, farmId: string): Promise<void> {
-  await GrowOutGroup.sequelize!.query(`SELECT pg_advisory_xact_lock(hashtext('growout:' || $1))`, { bind: [farmId], transaction: tx });
+  await lockUntilCommit(tx, `growout:${farmId}`);
 }
 
 async function groupFor(tx: Transaction, actor: SessionUser, groupId: string, lock = false): Promise<GrowOutGroup> {

@@ -5,7 +5,6 @@ import {
   defineAbilityFor, ErrorCode, RealtimeEvent, rooms, subjectOf, type AnimalPhotosDto, type FarmPhotoDto, type PhotoDto,
   type PhotoLimitsDto, type PhotoUpdateInput,
 } from '@burrowline/shared';
-import { database } from '../../db/sequelize';
 import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../http/passport';
 import { AppError } from '../../lib/app-error';
@@ -18,6 +17,7 @@ import { namesOf } from '../users/users.service';
 import { Photo } from './photo.model';
 import { photoTypes, preparePhoto, type PreparedPhoto } from './photo-images';
 import { presentPhoto } from './photos.presenter';
+import { lockUntilCommit } from '../../db/advisory-lock';
 
 export interface PhotoLimits {
   photoMaxBytes: number;
@@ -142,7 +142,7 @@ export async function addAnimalPhotos(
   return storeThen(actor.coopId, prepared, (ids) =>
     withTenant(actor, async (tx) => {
       const access = await animalFor(actor, animalId, tx, true);
-      await database().query('SELECT pg_advisory_xact_lock(hashtextextended($1, 0))', { bind: [`photos:${animalId}`], transaction: tx });
+      await lockUntilCommit(tx, `photos:${animalId}`);
       const count = await Photo.count({ where: { animalId, subject: 'animal' }, transaction: tx });
       if (count + prepared.length > limits.photosPerAnimal) {
         const room = Math.max(0, limits.photosPerAnimal - count);

@@ -4,6 +4,7 @@ import {
   type ProcessingListDto, type ProcessingMarkCreateInput, type ProcessingMarkDto, type ProcessingRecordCreateInput,
   type ProcessingRecordDto, type YieldFlag,
 } from '@burrowline/shared';
+import { lockUntilCommit } from '../../db/advisory-lock';
 import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../http/passport';
 import { AppError } from '../../lib/app-error';
@@ -131,6 +132,8 @@ export async function recordProcessing(actor: SessionUser, input: ProcessingReco
 export async function recordProcessingIn(tx: Transaction, actor: SessionUser, input: ProcessingRecordCreateInput): Promise<ProcessingRecordDto> {
   const farmId = farmOf(actor);
   ensureCan(actor, 'create', 'ProcessingRecord', { farmId }, 'That farm', 'Only members of the farm record processing');
+  // Two batches saved at once must not both take a group's last heads.
+  await lockUntilCommit(tx, `processing:${farmId}`);
   const clock = await farmClockOf(tx, actor.coopId, farmId);
   const groups = await growOutFactsOfFarm(tx, actor.coopId, farmId);
   if (input.id) {
