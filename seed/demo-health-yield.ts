@@ -77,7 +77,7 @@ export async function loadDemoHealthYield(
       const grown = stock.filter((a) => a.birthDate !== null && a.birthDate <= addDays(today, -200));
       const does = grown.filter((a) => a.sex === 'doe');
       const bucks = grown.filter((a) => a.sex === 'buck');
-      const groups = await growOutFactsOfFarm(tx, ctx.coopId, farmId);
+      const groups = await growOutFactsOfFarm(tx, ctx.coopId, farmId, { withFeed: false });
       const growing = groups.find((g) => g.status === 'growing');
       const plan: TreatmentCreateBody[] = [];
       if (does[0]) {
@@ -111,7 +111,7 @@ export async function loadDemoHealthYield(
     }
 
     // Processing: each farm's two most recent closed groups, every head left, on the day the group closed.
-    const closed = (await growOutFactsOfFarm(tx, ctx.coopId, farmId))
+    const closed = (await growOutFactsOfFarm(tx, ctx.coopId, farmId, { withFeed: false }))
       .filter((g) => g.status === 'closed' && g.closedOn && g.weighIns.length > 0)
       .sort((a, b) => b.closedOn!.localeCompare(a.closedOn!))
       .slice(0, 2);

@@ -35,13 +35,23 @@ export interface GrowOutFacts {
   feedGrams: number; feedCostCents: number;
 }
 
-/** Every grow-out group of a farm with its make-up, accepted weigh-ins and feed, oldest first. */
-export async function growOutFactsOfFarm(tx: Transaction, coopId: string, farmId: string): Promise<GrowOutFacts[]> {
-  const groups = await GrowOutGroup.findAll({ where: { coopId, farmId }, order: [['formedOn', 'ASC'], ['createdAt', 'ASC']], transaction: tx });
+/**
+ * Every grow-out group of a farm (or only the groups asked for) with its make-up, accepted weigh-ins and
+ * feed, oldest first. Working out the feed book is the costly part: callers that need no feed (saving a
+ * processing record) leave it out and get zeros.
+ */
+export async function growOutFactsOfFarm(
+  tx: Transaction, coopId: string, farmId: string, opts: { groupIds?: string[]; withFeed?: boolean } = {},
+): Promise<GrowOutFacts[]> {
+  const groups = await GrowOutGroup.findAll({
+    where: { coopId, farmId, ...(opts.groupIds ? { id: { [Op.in]: opts.groupIds } } : {}) },
+    order: [['formedOn', 'ASC'], ['createdAt', 'ASC']],
+    transaction: tx,
+  });
   const members = await membersOf(tx, groups.map((g) => g.id));
   const litters = await litterFactsOf(tx, coopId, members.map((m) => m.litterId));
   const weighIns = await groupWeighInsOf(tx, coopId, groups.map((g) => g.id), { acceptedOnly: true });
-  const feed = await feedTotalsByGroup(tx, coopId, farmId);
+  const feed = opts.withFeed === false ? new Map<string, { grams: number; costCents: number }>() : await feedTotalsByGroup(tx, coopId, farmId);
   const membersByGroup = groupBy(members, (m) => m.groupId);
   const weighInsByGroup = groupBy(weighIns, (w) => w.groupId);
   return groups.map((g) => ({

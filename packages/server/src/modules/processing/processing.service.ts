@@ -135,7 +135,7 @@ export async function recordProcessingIn(tx: Transaction, actor: SessionUser, in
   // Two batches saved at once must not both take a group's last heads.
   await lockUntilCommit(tx, `processing:${farmId}`);
   const clock = await farmClockOf(tx, actor.coopId, farmId);
-  const groups = await growOutFactsOfFarm(tx, actor.coopId, farmId);
+  const groups = await growOutFactsOfFarm(tx, actor.coopId, farmId, { groupIds: input.groupId ? [input.groupId] : [], withFeed: false });
   if (input.id) {
     const existing = await ProcessingRecord.findOne({ where: { id: input.id }, transaction: tx });
     if (existing) {
@@ -209,7 +209,7 @@ export async function markForProcessing(actor: SessionUser, input: ProcessingMar
   ensureCan(actor, 'create', 'ProcessingRecord', { farmId }, 'That farm', 'Only members of the farm mark animals for processing');
   return withTenant(actor, async (tx) => {
     const clock = await farmClockOf(tx, actor.coopId, farmId);
-    const groups = await growOutFactsOfFarm(tx, actor.coopId, farmId);
+    const groups = await growOutFactsOfFarm(tx, actor.coopId, farmId, { groupIds: input.groupId ? [input.groupId] : [], withFeed: false });
     const errors: FieldMessages = {};
     if (input.plannedOn < clock.today) addMessage(errors, 'plannedOn', `Plan it for today (${clock.today}) or later`);
     const subject = await subjectOf(tx, actor, farmId, input, groups, errors);
@@ -249,7 +249,7 @@ export async function cancelMark(actor: SessionUser, markId: string, version: nu
     await mark.save({ transaction: tx });
     announceProcessing(tx, mark.farmId);
     const clock = await farmClockOf(tx, actor.coopId, mark.farmId);
-    const groups = await growOutFactsOfFarm(tx, actor.coopId, mark.farmId);
+    const groups = await growOutFactsOfFarm(tx, actor.coopId, mark.farmId, { withFeed: false });
     return presentProcessingMark(mark, await presentContext(tx, actor.coopId, clock.today, groups, [{ animalId: mark.animalId, userId: mark.markedBy }]), null);
   });
 }
@@ -260,7 +260,7 @@ export async function listProcessing(actor: SessionUser): Promise<ProcessingList
   ensureCan(actor, 'read', 'ProcessingRecord', { farmId }, 'That farm');
   return withTenant(actor, async (tx) => {
     const clock = await farmClockOf(tx, actor.coopId, farmId);
-    const groups = await growOutFactsOfFarm(tx, actor.coopId, farmId);
+    const groups = await growOutFactsOfFarm(tx, actor.coopId, farmId, { withFeed: false });
     const records = await ProcessingRecord.findAll({ where: { farmId }, order: [['processedOn', 'DESC'], ['createdAt', 'DESC']], limit: 500, transaction: tx });
     const marks = await ProcessingMark.findAll({ where: { farmId, status: 'planned' }, order: [['plannedOn', 'ASC'], ['createdAt', 'ASC']], transaction: tx });
     const ctx = await presentContext(tx, actor.coopId, clock.today, groups, [
