@@ -65,27 +65,38 @@ export function sharesWithCost(ledger: FeedLedger, useId: string): { groupId: st
   return shares.map((s, i) => ({ groupId: s.groupId, litterId: s.litterId, grams: s.grams, costCents: cents[i]! }));
 }
 
-function totalsBy(ledger: FeedLedger, key: 'groupId' | 'litterId'): Map<string, { grams: number; costCents: number }> {
-  const totals = new Map<string, { grams: number; costCents: number }>();
+type Totals = Map<string, { grams: number; costCents: number }>;
+
+/** One pass over the feed book: each use's shares with their cents, added up by group and by nursing litter. */
+function totalsOf(ledger: FeedLedger): { byGroup: Totals; byLitter: Totals } {
+  const byGroup: Totals = new Map();
+  const byLitter: Totals = new Map();
+  const add = (totals: Totals, id: string, grams: number, costCents: number) => {
+    const t = totals.get(id) ?? { grams: 0, costCents: 0 };
+    t.grams += grams;
+    t.costCents += costCents;
+    totals.set(id, t);
+  };
   for (const use of ledger.uses) {
     for (const share of sharesWithCost(ledger, use.id)) {
-      const id = share[key];
-      if (!id) continue;
-      const t = totals.get(id) ?? { grams: 0, costCents: 0 };
-      t.grams += share.grams;
-      t.costCents += share.costCents;
-      totals.set(id, t);
+      if (share.groupId) add(byGroup, share.groupId, share.grams, share.costCents);
+      if (share.litterId) add(byLitter, share.litterId, share.grams, share.costCents);
     }
   }
-  return totals;
+  return { byGroup, byLitter };
+}
+
+/** Feed of each grow-out group and of each nursing litter (with its doe) of a farm, from one reading of its feed book. */
+export async function feedTotalsOfFarm(tx: Transaction, coopId: string, farmId: string): Promise<{ byGroup: Totals; byLitter: Totals }> {
+  return totalsOf(await feedLedgerOf(tx, coopId, farmId));
 }
 
 /** Feed of each grow-out group of a farm, its own and its share of pen- and farm-wide feed. */
-export async function feedTotalsByGroup(tx: Transaction, coopId: string, farmId: string): Promise<Map<string, { grams: number; costCents: number }>> {
-  return totalsBy(await feedLedgerOf(tx, coopId, farmId), 'groupId');
+export async function feedTotalsByGroup(tx: Transaction, coopId: string, farmId: string): Promise<Totals> {
+  return (await feedTotalsOfFarm(tx, coopId, farmId)).byGroup;
 }
 
 /** Feed of each nursing litter (with its doe) of a farm, its own and its share of pen- and farm-wide feed. */
-export async function feedTotalsByLitter(tx: Transaction, coopId: string, farmId: string): Promise<Map<string, { grams: number; costCents: number }>> {
-  return totalsBy(await feedLedgerOf(tx, coopId, farmId), 'litterId');
+export async function feedTotalsByLitter(tx: Transaction, coopId: string, farmId: string): Promise<Totals> {
+  return (await feedTotalsOfFarm(tx, coopId, farmId)).byLitter;
 }

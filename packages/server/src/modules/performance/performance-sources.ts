@@ -1,6 +1,6 @@
 import type { Transaction } from 'sequelize';
 import type { PerformanceGroupInput, PerformanceProcessingInput } from '@burrowline/shared';
-import { doeLitterFeedOfFarm } from '../feed/feed.service';
+import { feedTotalsOfFarm } from '../feed/feed-totals.service';
 import { growOutFactsOfFarm } from '../growout/growout.service';
 import { processingFactsOfFarm } from '../processing/processing.service';
 
@@ -16,8 +16,12 @@ export interface PerformanceSources {
 }
 
 export async function performanceSourcesOf(tx: Transaction, coopId: string, farmId: string): Promise<PerformanceSources> {
-  const groups = await growOutFactsOfFarm(tx, coopId, farmId);
-  const doeLitterFeed = await doeLitterFeedOfFarm(tx, coopId, farmId);
+  // The feed book is read and costed once for both the groups and the does with their litters.
+  const feed = await feedTotalsOfFarm(tx, coopId, farmId);
+  const groups = (await growOutFactsOfFarm(tx, coopId, farmId, { withFeed: false })).map((g) => ({
+    ...g, feedGrams: feed.byGroup.get(g.id)?.grams ?? 0, feedCostCents: feed.byGroup.get(g.id)?.costCents ?? 0,
+  }));
+  const doeLitterFeed = feed.byLitter;
   const processing = await processingFactsOfFarm(tx, coopId, farmId);
   return { groups, doeLitterFeed, processing };
 }
