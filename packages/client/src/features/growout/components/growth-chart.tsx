@@ -1,4 +1,4 @@
-import { CartesianGrid, ComposedChart, Legend, Line, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
+import { CartesianGrid, ComposedChart, Line, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
 import type { GrowthChartDto, WeightUnit } from '@burrowline/shared';
 import { chartUnit, chartValue } from '../growout-format';
 
@@ -16,15 +16,13 @@ export function GrowthChart({ chart, unit }: { chart: GrowthChartDto; unit: Weig
   const u = chartUnit(unit);
   return (
     <figure className="space-y-2">
-      <div className="h-96 w-full sm:h-80" role="img" aria-label={`Growth chart: the group's mean weight by age in ${u}, the co-op average for ${chart.coopLabel}, and the published gain line`}>
+      <div className="h-72 w-full sm:h-80" role="img" aria-label={`Growth chart: the group's mean weight by age in ${u}, the co-op average for ${chart.coopLabel}, and the published gain line`}>
         <ResponsiveContainer width="100%" height="100%">
           <ComposedChart margin={{ top: 8, right: 16, bottom: 24, left: 4 }}>
             <CartesianGrid stroke="#e5e2da" strokeDasharray="3 3" />
             <XAxis type="number" dataKey="ageDays" domain={[0, maxAge]} tickCount={8} label={{ value: 'Age (days)', position: 'insideBottom', offset: -12 }} />
             <YAxis type="number" width={48} label={{ value: u, angle: -90, position: 'insideLeft' }} />
             <Tooltip formatter={(value) => `${String(value)} ${u}`} labelFormatter={(age) => `Day ${String(age)}`} />
-            {/* Below the plot and sized by recharts, so a legend wrapping on a phone never covers the lines. */}
-            <Legend verticalAlign="bottom" wrapperStyle={{ paddingTop: 28, fontSize: 13 }} />
             <ReferenceLine y={v(chart.targetGrams)} stroke="#B5532F" strokeDasharray="6 4" label={{ value: 'Target', position: 'insideTopLeft' }} />
             <Line data={published} dataKey="published" name="Published 28.8 g/day (Rao 1977)" stroke="#8a7a5c" strokeDasharray="2 4" dot={false} isAnimationActive={false} />
             <Line data={coop} dataKey="coop" name={`Co-op average, ${chart.coopLabel}`} stroke="#c9a227" strokeWidth={2} strokeDasharray="6 3" dot={{ r: 3 }} isAnimationActive={false} />
@@ -33,6 +31,21 @@ export function GrowthChart({ chart, unit }: { chart: GrowthChartDto; unit: Weig
           </ComposedChart>
         </ResponsiveContainer>
       </div>
+      {/* Our own legend in the page's flow: it wraps on a phone instead of eating into the plot. */}
+      <ul className="flex flex-wrap gap-x-4 gap-y-1 text-sm" aria-label="Lines in the chart">
+        {[
+          { name: 'This group', colour: '#2F5D50', dash: '' },
+          { name: 'Projection', colour: '#7fa37a', dash: '' },
+          { name: `Co-op average, ${chart.coopLabel}`, colour: '#c9a227', dash: '6 3' },
+          { name: 'Published 28.8 g/day (Rao 1977)', colour: '#8a7a5c', dash: '2 4' },
+          { name: 'Target', colour: '#B5532F', dash: '6 4' },
+        ].map((line) => (
+          <li key={line.name} className="flex items-center gap-2">
+            <svg width="24" height="8" aria-hidden="true"><line x1="0" y1="4" x2="24" y2="4" stroke={line.colour} strokeWidth="3" strokeDasharray={line.dash} /></svg>
+            {line.name}
+          </li>
+        ))}
+      </ul>
       <figcaption className="text-sm text-grey-600">
         Dots: this group&apos;s mean weight at each accepted weigh-in. Co-op average: every farm&apos;s groups of {chart.coopLabel}, counted by heads (no farm is named).
         Published line: {chart.publishedSource}.
