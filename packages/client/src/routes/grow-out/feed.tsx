@@ -1,4 +1,5 @@
 import { useState } from 'react';
+import { centsPerLb } from '@burrowline/shared';
 import { queryClient } from '../../app/query-client';
 import { Button } from '../../components/ui/button';
 import { Card } from '../../components/ui/card';
@@ -68,7 +69,7 @@ export function FeedPage() {
                   <th className="text-right">Left</th>
                   <th className="text-right">Protein</th>
                   {book.canSeeMoney && <th className="text-right">Price</th>}
-                  {book.canSeeMoney && <th className="text-right">Per kg</th>}
+                  {book.canSeeMoney && <th className="text-right">{unit === 'lb_oz' ? 'Per lb' : 'Per kg'}</th>}
                 </tr>
               </thead>
               <tbody className="divide-y divide-grey-200">
@@ -81,7 +82,7 @@ export function FeedPage() {
                     <td className="text-right font-semibold">{weight(p.gramsLeft, unit)}</td>
                     <td className="text-right">{p.crudeProteinPercent === null ? '—' : `${p.crudeProteinPercent} %`}</td>
                     {book.canSeeMoney && <td className="text-right">{money(p.priceCents)}</td>}
-                    {book.canSeeMoney && <td className="text-right">{money(p.centsPerKg)}</td>}
+                    {book.canSeeMoney && <td className="text-right">{money(unit === 'lb_oz' && p.priceCents !== null ? Math.round(centsPerLb(p.priceCents, p.grams)) : p.centsPerKg)}</td>}
                   </tr>
                 ))}
               </tbody>
