@@ -5,9 +5,9 @@ import { breedingPair, daysAgo, FARM_TIME_ZONE, farmToday, serviceAs } from '../
 import { asTenant } from '../support/db';
 import { createTestCoop, TEST_PASSWORD } from '../support/factories';
 import { mailsTo, waitForMail } from '../support/mail';
-import { signedInAgent, testApp } from '../support/test-app';
+import { ROOMY_SIGN_IN, signedInAgent, testApp } from '../support/test-app';
 
-const handle = testApp({ signIn: { windowSeconds: 60, maxPerIp: 100_000, maxFailuresPerAccount: 100_000, maxResetsPerIp: 100_000 } });
+const handle = testApp({ signIn: ROOMY_SIGN_IN });
 const agentOf = (email: string) => signedInAgent(email, TEST_PASSWORD, handle);
 const running: DigestScheduler[] = [];
 /** Every worker takes jobs from the one queue: each test stops its instances, so no other clock works its runs. */

@@ -5,9 +5,9 @@ import { addDays } from '@burrowline/shared';
 import { breedingPair, daysAgo, serviceAs } from '../support/almanac';
 import { asTenant, ownerDb } from '../support/db';
 import { createTestCoop, TEST_PASSWORD } from '../support/factories';
-import { signedInAgent, testApp } from '../support/test-app';
+import { ROOMY_SIGN_IN, signedInAgent, testApp } from '../support/test-app';
 
-const handle = testApp({ signIn: { windowSeconds: 60, maxPerIp: 100_000, maxFailuresPerAccount: 100_000, maxResetsPerIp: 100_000 } });
+const handle = testApp({ signIn: ROOMY_SIGN_IN });
 const agentOf = (email: string) => signedInAgent(email, TEST_PASSWORD, handle);
 afterAll(async () => {
   await handle.close();

@@ -4,11 +4,11 @@ import { almanacCounts, breedingPair, daysAgo, farmToday, palpationAs, serviceAs
 import { asTenant } from '../support/db';
 import { createTestCoop, TEST_PASSWORD, type TestCoop } from '../support/factories';
 import { addAnimalAs } from '../support/herd';
-import { socketKit } from '../support/sockets';
-import { listeningServer, signedInAgent, testApp } from '../support/test-app';
+import { liveTestServer } from '../support/sockets';
+import { ROOMY_SIGN_IN, signedInAgent, testApp } from '../support/test-app';
 
 // Many sign-ins in one file: keep the sign-in limit out of the way.
-const handle = testApp({ signIn: { windowSeconds: 60, maxPerIp: 100_000, maxFailuresPerAccount: 100_000, maxResetsPerIp: 100_000 } });
+const handle = testApp({ signIn: ROOMY_SIGN_IN });
 const agentOf = (email: string) => signedInAgent(email, TEST_PASSWORD, handle);
 afterAll(async () => {
   await handle.close();
@@ -367,15 +367,8 @@ describe('who sees and does what in the Almanac', () => {
 });
 
 describe('live updates', () => {
-  let server: Awaited<ReturnType<typeof listeningServer>>;
-  const kit = socketKit(() => server.url);
-  beforeAll(async () => {
-    server = await listeningServer({ signIn: { windowSeconds: 60, maxPerIp: 100_000, maxFailuresPerAccount: 100_000, maxResetsPerIp: 100_000 } });
-  });
-  afterAll(async () => {
-    kit.closeAll();
-    await server.close();
-  });
+  const server = liveTestServer({ signIn: ROOMY_SIGN_IN });
+  const { kit } = server;
 
   it('when a service is recorded, then the farm\'s room hears the Almanac changed after commit; other farms hear nothing', async () => {
     const coop = await createTestCoop();

@@ -1,11 +1,11 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import supertest from 'supertest';
 import { CSRF_HEADER, poundsToGrams, RealtimeEvent, type BreedDto } from '@burrowline/shared';
 import { createTestCoop, TEST_PASSWORD } from '../support/factories';
 import { asTenant } from '../support/db';
 import { nextTattoo } from '../support/herd';
-import { socketKit } from '../support/sockets';
-import { listeningServer, signedInAgent } from '../support/test-app';
+import { liveTestServer } from '../support/sockets';
+import { signedInAgent } from '../support/test-app';
 
 describe('the breed catalogue', () => {
   it('when a member lists breeds, then the catalogue carries senior weights in grams, class counts, first-breeding ages and sources', async () => {
@@ -59,15 +59,8 @@ describe('the breed catalogue', () => {
 });
 
 describe('live herd updates', () => {
-  let server: Awaited<ReturnType<typeof listeningServer>>;
-  const kit = socketKit(() => server.url);
-  beforeAll(async () => {
-    server = await listeningServer();
-  });
-  afterAll(async () => {
-    kit.closeAll();
-    await server.close();
-  });
+  const server = liveTestServer();
+  const { kit } = server;
 
   it('when a member adds an animal, then her farm\'s sockets hear herd:changed, the co-op hears pedigree:changed, another co-op nothing', async () => {
     const coop = await createTestCoop();

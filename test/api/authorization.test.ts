@@ -11,11 +11,11 @@ import {
   type TestCoop,
 } from '../support/factories';
 import { asTenant } from '../support/db';
-import { agentFor, signedInAgent, testApp, type Agent } from '../support/test-app';
+import { agentFor, ROOMY_SIGN_IN, signedInAgent, testApp, type Agent } from '../support/test-app';
 
 // Every cell signs in afresh and some send applications: rate limits stay out of the way here.
 const handle = testApp({
-  signIn: { windowSeconds: 60, maxPerIp: 100_000, maxFailuresPerAccount: 100_000, maxResetsPerIp: 100_000 },
+  signIn: ROOMY_SIGN_IN,
   membership: { linkTtlHours: 72, applyWindowSeconds: 60, applyMaxPerIp: 100_000, applyMaxPerEmail: 100_000 },
 });
 import { authorizationMatrix, type Body, type Persona, type Target } from './authorization-matrix';

@@ -8,9 +8,9 @@ import { daysAgo, farmToday } from '../support/almanac';
 import { asTenant } from '../support/db';
 import { createTestCoop, TEST_PASSWORD, type TestCoop } from '../support/factories';
 import { feedAs, grownLitterAs, groupAs, growOutCounts, purchaseAs, weighGroupAs } from '../support/growout';
-import { agentFor, signedInAgent, testApp } from '../support/test-app';
+import { agentFor, ROOMY_SIGN_IN, signedInAgent, testApp } from '../support/test-app';
 
-const handle = testApp({ signIn: { windowSeconds: 60, maxPerIp: 100_000, maxFailuresPerAccount: 100_000, maxResetsPerIp: 100_000 } });
+const handle = testApp({ signIn: ROOMY_SIGN_IN });
 const agentOf = (email: string) => signedInAgent(email, TEST_PASSWORD, handle);
 afterAll(async () => {
   await handle.close();

@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, describe, expect, it } from 'vitest';
 import { addDays, RealtimeEvent, type GrowOutGroupDto, type GrowOutListDto, type LitterChoiceDto } from '@burrowline/shared';
 import { withTenant } from '../../packages/server/src/db/tenant';
 import { growOutFactsOfFarm, groupsOfFarm } from '../../packages/server/src/modules/growout/growout.service';
@@ -7,10 +7,10 @@ import { asTenant } from '../support/db';
 import { createTestCoop, TEST_PASSWORD } from '../support/factories';
 import { breedLitterAs, feedAs, grownLitterAs, groupAs, growOutCounts, purchaseAs, weighGroupAs } from '../support/growout';
 import { catalogueBreeds } from '../support/herd';
-import { socketKit } from '../support/sockets';
-import { agentFor, listeningServer, signedInAgent, testApp } from '../support/test-app';
+import { liveTestServer } from '../support/sockets';
+import { agentFor, ROOMY_SIGN_IN, signedInAgent, testApp } from '../support/test-app';
 
-const handle = testApp({ signIn: { windowSeconds: 60, maxPerIp: 100_000, maxFailuresPerAccount: 100_000, maxResetsPerIp: 100_000 } });
+const handle = testApp({ signIn: ROOMY_SIGN_IN });
 const agentOf = (email: string) => signedInAgent(email, TEST_PASSWORD, handle);
 afterAll(async () => {
   await handle.close();
@@ -316,15 +316,8 @@ describe('ready by a date, closing, and the facts for the other modules', () => 
 });
 
 describe('live updates of grow-out', () => {
-  let server: Awaited<ReturnType<typeof listeningServer>>;
-  const kit = socketKit(() => server.url);
-  beforeAll(async () => {
-    server = await listeningServer({ signIn: { windowSeconds: 60, maxPerIp: 100_000, maxFailuresPerAccount: 100_000, maxResetsPerIp: 100_000 } });
-  });
-  afterAll(async () => {
-    kit.closeAll();
-    await server.close();
-  });
+  const server = liveTestServer({ signIn: ROOMY_SIGN_IN });
+  const { kit } = server;
 
   it('when a group is formed and weighed, then the farm\'s room hears growout:changed and another farm hears nothing', async () => {
     const coop = await createTestCoop();

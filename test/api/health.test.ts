@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
 import { addDays, RealtimeEvent, WITHDRAWAL_MISSING_MESSAGE, type HeatCautionDto, type TreatmentDto, type WithdrawalStateDto } from '@burrowline/shared';
 import { breedingPair, daysAgo, farmToday, litterAs, serviceAs } from '../support/almanac';
@@ -6,10 +6,10 @@ import { asTenant } from '../support/db';
 import { createTestCoop, TEST_PASSWORD } from '../support/factories';
 import { growingGroupAs, healthYieldCounts, temperatureAs, treatmentAs, treatmentBody } from '../support/health-yield';
 import { addAnimalAs } from '../support/herd';
-import { socketKit } from '../support/sockets';
-import { agentFor, listeningServer, signedInAgent, testApp } from '../support/test-app';
+import { liveTestServer } from '../support/sockets';
+import { agentFor, ROOMY_SIGN_IN, signedInAgent, testApp } from '../support/test-app';
 
-const handle = testApp({ signIn: { windowSeconds: 60, maxPerIp: 100_000, maxFailuresPerAccount: 100_000, maxResetsPerIp: 100_000 } });
+const handle = testApp({ signIn: ROOMY_SIGN_IN });
 const agentOf = (email: string) => signedInAgent(email, TEST_PASSWORD, handle);
 afterAll(async () => {
   await handle.close();
@@ -233,15 +233,8 @@ describe('temperature readings and the heat caution', () => {
 });
 
 describe('live updates', () => {
-  let server: Awaited<ReturnType<typeof listeningServer>>;
-  const kit = socketKit(() => server.url);
-  beforeAll(async () => {
-    server = await listeningServer({ signIn: { windowSeconds: 60, maxPerIp: 100_000, maxFailuresPerAccount: 100_000, maxResetsPerIp: 100_000 } });
-  });
-  afterAll(async () => {
-    kit.closeAll();
-    await server.close();
-  });
+  const server = liveTestServer({ signIn: ROOMY_SIGN_IN });
+  const { kit } = server;
 
   it('when a hot reading is logged, then the farm\'s members hear it with the caution flag after commit; other farms hear nothing', async () => {
     const coop = await createTestCoop();

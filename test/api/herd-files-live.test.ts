@@ -1,22 +1,14 @@
 import { randomUUID } from 'node:crypto';
 import supertest from 'supertest';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { CSRF_HEADER, RealtimeEvent } from '@burrowline/shared';
 import { createTestCoop } from '../support/factories';
 import { csv, HEADER, testImage } from '../support/herd-files';
-import { socketKit } from '../support/sockets';
-import { listeningServer } from '../support/test-app';
+import { liveTestServer } from '../support/sockets';
 
 describe('herd files: live updates', () => {
-  let server: Awaited<ReturnType<typeof listeningServer>>;
-  const kit = socketKit(() => server.url);
-  beforeAll(async () => {
-    server = await listeningServer();
-  });
-  afterAll(async () => {
-    kit.closeAll();
-    await server.close();
-  });
+  const server = liveTestServer();
+  const { kit } = server;
 
   it('when an import is confirmed, then the farm\'s other sockets hear herd:changed once, the co-op hears pedigree:changed, another co-op nothing; staging alone says nothing', async () => {
     const coop = await createTestCoop();

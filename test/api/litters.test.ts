@@ -4,10 +4,10 @@ import { almanacCounts, breedingPair, daysAgo, farmToday, fosteringAs, kindlingA
 import { asTenant } from '../support/db';
 import { createTestCoop, TEST_PASSWORD, type TestCoop } from '../support/factories';
 import { nextTattoo } from '../support/herd';
-import { socketKit } from '../support/sockets';
-import { listeningServer, signedInAgent, testApp } from '../support/test-app';
+import { liveTestServer } from '../support/sockets';
+import { ROOMY_SIGN_IN, signedInAgent, testApp } from '../support/test-app';
 
-const handle = testApp({ signIn: { windowSeconds: 60, maxPerIp: 100_000, maxFailuresPerAccount: 100_000, maxResetsPerIp: 100_000 } });
+const handle = testApp({ signIn: ROOMY_SIGN_IN });
 const agentOf = (email: string) => signedInAgent(email, TEST_PASSWORD, handle);
 afterAll(async () => {
   await handle.close();
@@ -285,15 +285,8 @@ describe('housing: hutches and pens with dated placements', () => {
 });
 
 describe('live updates of litters', () => {
-  let server: Awaited<ReturnType<typeof listeningServer>>;
-  const kit = socketKit(() => server.url);
-  beforeAll(async () => {
-    server = await listeningServer({ signIn: { windowSeconds: 60, maxPerIp: 100_000, maxFailuresPerAccount: 100_000, maxResetsPerIp: 100_000 } });
-  });
-  afterAll(async () => {
-    kit.closeAll();
-    await server.close();
-  });
+  const server = liveTestServer({ signIn: ROOMY_SIGN_IN });
+  const { kit } = server;
 
   it('when kits are fostered to another farm, then both farms\' rooms hear their litter changed, and a third co-op hears nothing', async () => {
     const coop = await createTestCoop();

@@ -5,9 +5,9 @@ import { daysAgo, farmToday, kindlingAs, palpationAs, serviceAs } from '../suppo
 import { asTenant } from '../support/db';
 import { createTestCoop, TEST_PASSWORD, type TestCoop, type TestPerson } from '../support/factories';
 import { addAnimalAs, catalogueBreeds } from '../support/herd';
-import { agentFor, signedInAgent, testApp, type Agent } from '../support/test-app';
+import { agentFor, ROOMY_SIGN_IN, signedInAgent, testApp, type Agent } from '../support/test-app';
 
-const handle = testApp({ signIn: { windowSeconds: 60, maxPerIp: 100_000, maxFailuresPerAccount: 100_000, maxResetsPerIp: 100_000 } });
+const handle = testApp({ signIn: ROOMY_SIGN_IN });
 const agentOf = (email: string) => signedInAgent(email, TEST_PASSWORD, handle);
 afterAll(async () => {
   await handle.close();

@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, describe, expect, it } from 'vitest';
 import { addDays, RealtimeEvent, USDA_CLASS_LIMITS, type ProcessingListDto, type ProcessingRecordDto } from '@burrowline/shared';
 import { withTenant } from '../../packages/server/src/db/tenant';
 import { processingFactsOfFarm } from '../../packages/server/src/modules/processing/processing.service';
@@ -7,10 +7,10 @@ import { asTenant } from '../support/db';
 import { createTestCoop, TEST_PASSWORD } from '../support/factories';
 import { growingGroupAs, healthYieldCounts, markAs, processingAs, treatmentAs } from '../support/health-yield';
 import { addAnimalAs } from '../support/herd';
-import { socketKit } from '../support/sockets';
-import { agentFor, listeningServer, signedInAgent, testApp } from '../support/test-app';
+import { liveTestServer } from '../support/sockets';
+import { agentFor, ROOMY_SIGN_IN, signedInAgent, testApp } from '../support/test-app';
 
-const handle = testApp({ signIn: { windowSeconds: 60, maxPerIp: 100_000, maxFailuresPerAccount: 100_000, maxResetsPerIp: 100_000 } });
+const handle = testApp({ signIn: ROOMY_SIGN_IN });
 const agentOf = (email: string) => signedInAgent(email, TEST_PASSWORD, handle);
 afterAll(async () => {
   await handle.close();
@@ -262,15 +262,8 @@ describe('marks for processing', () => {
 });
 
 describe('live updates', () => {
-  let server: Awaited<ReturnType<typeof listeningServer>>;
-  const kit = socketKit(() => server.url);
-  beforeAll(async () => {
-    server = await listeningServer({ signIn: { windowSeconds: 60, maxPerIp: 100_000, maxFailuresPerAccount: 100_000, maxResetsPerIp: 100_000 } });
-  });
-  afterAll(async () => {
-    kit.closeAll();
-    await server.close();
-  });
+  const server = liveTestServer({ signIn: ROOMY_SIGN_IN });
+  const { kit } = server;
 
   it('when a processing record is saved, then the farm\'s room hears processing and the Herd changed; other farms hear nothing; a refused one announces nothing', async () => {
     const coop = await createTestCoop();

@@ -1,7 +1,9 @@
 import supertest from 'supertest';
+import { afterAll, beforeAll } from 'vitest';
 import { io as connect, type Socket } from 'socket.io-client';
 import { CSRF_HEADER } from '@burrowline/shared';
-import { sessionCookieOf } from './test-app';
+import type { Config } from '../../packages/server/src/config/env';
+import { listeningServer, sessionCookieOf } from './test-app';
 import { TEST_PASSWORD } from './global-setup';
 
 /** Sockets of one test file, signed in through a listening server, closed together at the end. */
@@ -36,4 +38,26 @@ export function socketKit(url: () => string) {
   };
 
   return { signInCookie, listen, closeAll };
+}
+
+/**
+ * A listening server and a socket kit for one describe block: started before its tests, sockets and
+ * server closed after. `url` is the server's address once it listens.
+ */
+export function liveTestServer(overrides: Partial<Config> = {}) {
+  let server: Awaited<ReturnType<typeof listeningServer>> | undefined;
+  const kit = socketKit(() => server!.url);
+  beforeAll(async () => {
+    server = await listeningServer(overrides);
+  });
+  afterAll(async () => {
+    kit.closeAll();
+    await server?.close();
+  });
+  return {
+    kit,
+    get url() {
+      return server!.url;
+    },
+  };
 }
