@@ -40,7 +40,7 @@ describe('the Almanac: a member records a service and follows the plan to the li
       await page.getByRole('link', { name: 'Almanac', exact: true }).click();
       await page.getByRole('heading', { name: 'Almanac', level: 1 }).waitFor();
       // Wide screen: the month calendar first.
-      expect(await page.getByRole('button', { name: 'Month' }).getAttribute('aria-pressed')).toBe('true');
+      expect(await page.getByRole('button', { name: 'Month', exact: true }).getAttribute('aria-pressed')).toBe('true');
 
       // 1. The service.
       await page.getByRole('link', { name: 'Record a service' }).click();
@@ -130,7 +130,7 @@ describe('the Almanac: a member records a service and follows the plan to the li
       await signIn(browser.page, coop.member.email);
       await browser.page.goto(`${server.url}/almanac`);
       await browser.page.getByRole('heading', { name: 'Almanac', level: 1 }).waitFor();
-      expect(await browser.page.getByRole('button', { name: 'Agenda' }).getAttribute('aria-pressed')).toBe('true');
+      expect(await browser.page.getByRole('button', { name: 'Agenda', exact: true }).getAttribute('aria-pressed')).toBe('true');
       await expect.poll(() => browser.page.getByText(/Nest box out · Clover/).isVisible()).toBe(true);
       expect(await sideways(browser.page)).toBe(0);
       await browser.page.screenshot({ path: '.data/e2e-almanac-phone.png', fullPage: true });
