@@ -39,6 +39,8 @@ export type Target =
   | 'feedA'
   // Grow-out and feed (issue 7): a growing group of farm A (with a litter that has free kits) and a feed purchase.
   | 'groupA'
+  // A purchase of farm A with feed given from it to a group of farm A.
+  | 'feedEntriesA'
   // Herd files (issue 5): a photo of a fresh farm-A animal, a spreadsheet staged by farm A's member.
   | 'photoA'
   | 'importA';
@@ -95,7 +97,9 @@ export type Body =
   | 'groupWeighIn'
   | 'groupClose'
   | 'feedPurchase'
-  | 'feedUse';
+  | 'feedUse'
+  | 'feedPurchaseCorrection'
+  | 'feedUseCorrection';
 
 export interface MatrixRow {
   method: 'GET' | 'PATCH' | 'DELETE' | 'POST' | 'PUT';
@@ -237,6 +241,12 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'GET', path: '/api/feed', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'POST', path: '/api/feed/purchases', target: 'none', body: 'feedPurchase', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 201, admin: 201, otherCoop: 201 } },
   { method: 'POST', path: '/api/feed/uses', target: 'groupA', body: 'feedUse', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 400, admin: 201, otherCoop: 400 } },
+  // Corrections reach only the farm's own entries: another farm's or co-op's member is told there is no such entry.
+  { method: 'PUT', path: '/api/feed/purchases/:purchaseId', target: 'feedEntriesA', body: 'feedPurchaseCorrection', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'DELETE', path: '/api/feed/uses/:useId?version=0', target: 'feedEntriesA', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'PUT', path: '/api/feed/uses/:useId', target: 'feedEntriesA', body: 'feedUseCorrection', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  // The purchase still feeds the group: taking it out is refused until that feed given goes.
+  { method: 'DELETE', path: '/api/feed/purchases/:purchaseId?version=0', target: 'feedEntriesA', expect: { anonymous: 401, apprentice: 403, member: 409, otherFarmMember: 404, admin: 409, otherCoop: 404 } },
   // Performance (issue 7): read-only, the signed-in person's farm; another farm's or co-op's tables do not exist (404).
   { method: 'GET', path: '/api/performance', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'GET', path: '/api/performance?period=all&farmId=:farmId', target: 'farmA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },

@@ -162,7 +162,8 @@ describe('feed given', () => {
     expect(early.body.error.details.givenOn).toEqual([`Feed given on ${daysAgo(11)}, before it was first bought on ${daysAgo(10)}`]);
     const tooMuch = await post({ givenOn: farmToday(), grams: 1500 });
     expect(tooMuch.status).toBe(400);
-    expect(tooMuch.body.error.details.grams).toEqual([`1500 g given on ${farmToday()}, but only 1000 g of that feed was left`]);
+    // The farm weighs in lb/oz: 1,500 g = 52.91 oz = 3 lb 4.9 oz, 1,000 g = 35.27 oz = 2 lb 3.3 oz (NIST HB44: 1 oz = 28.349523125 g).
+    expect(tooMuch.body.error.details.grams).toEqual([`3 lb 4.9 oz given on ${farmToday()}, but only 2 lb 3.3 oz of that feed was left`]);
     const backDated = await post({ givenOn: daysAgo(5), grams: 1500 });
     expect(backDated.status).toBe(400);
     expect(backDated.body.error.details.grams[0]).toMatch(new RegExp(`^That would leave the feed given on ${daysAgo(2)} short`));
@@ -204,5 +205,114 @@ describe('feed given', () => {
     expect((await anonymous.get('/api/feed')).status).toBe(401);
     expect((await anonymous.post('/api/feed/uses').send({})).status).toBe(401);
     expect(await growOutCounts(coop.id)).toEqual(before);
+  });
+});
+
+describe('correcting the feed book', () => {
+  async function bookWithOneUse(coop: TestCoop) {
+    const { big, small } = await twoGroups(coop);
+    const bought = await purchaseAs(coop.member, { boughtOn: daysAgo(10), productName: 'Grower', bagGrams: 10_000, bags: 1, priceCents: 1000 });
+    const given = await feedAs(coop.member, { givenOn: daysAgo(2), grams: 4000, purchaseId: bought.purchases[0]!.id, target: 'group', groupId: big.id });
+    return { big, small, purchase: given.purchases[0]!, use: given.uses[0]! };
+  }
+
+  it('when a purchase price is corrected, then the feed given from it is costed anew; a second edit from the old version is refused (409)', async () => {
+    const coop = await createTestCoop();
+    const { big, purchase, use } = await bookWithOneUse(coop);
+    expect(use.costCents).toBe(400); // 4,000 g of a 10,000 g bag at 1,000 ¢
+    const agent = await agentOf(coop.member.email);
+    const body = { boughtOn: purchase.boughtOn, productName: 'Grower', bagGrams: 10_000, bags: 1, priceCents: 2500, crudeProteinPercent: 16 };
+    const res = await agent.put(`/api/feed/purchases/${purchase.id}`).send({ ...body, version: purchase.version });
+    expect(res.status).toBe(200);
+    const book = res.body as FeedOverviewDto;
+    expect(book.purchases[0]).toMatchObject({ id: purchase.id, priceCents: 2500, crudeProteinPercent: 16, version: purchase.version + 1 });
+    expect(book.uses[0]!.costCents).toBe(1000); // 4,000 g × 2,500 ¢ ÷ 10,000 g
+    const group = (await agent.get(`/api/grow-out/groups/${big.id}`)).body as GrowOutGroupDto;
+    expect(group.feed).toMatchObject({ feedGrams: 4000, feedCostCents: 1000 });
+    const stale = await agent.put(`/api/feed/purchases/${purchase.id}`).send({ ...body, priceCents: 1, version: purchase.version });
+    expect(stale.status).toBe(409);
+    expect(stale.body.error.code).toBe('stale_version');
+    const after = (await agent.get('/api/feed')).body as FeedOverviewDto;
+    expect(after.purchases[0]!.priceCents).toBe(2500);
+  });
+
+  it('when a correction would leave feed already given uncovered (fewer bags, bought later, renamed), then 400 naming that feed and nothing changes', async () => {
+    const coop = await createTestCoop();
+    const { purchase } = await bookWithOneUse(coop);
+    const agent = await agentOf(coop.member.email);
+    const before = await growOutCounts(coop.id);
+    const base = { boughtOn: purchase.boughtOn, productName: 'Grower', bagGrams: 10_000, bags: 1, priceCents: 1000, version: purchase.version };
+    const less = await agent.put(`/api/feed/purchases/${purchase.id}`).send({ ...base, bagGrams: 3000 });
+    expect(less.status).toBe(400);
+    // In the farm's lb/oz: 4,000 g = 141.1 oz, 3,000 g = 105.8 oz (NIST HB44: 1 oz = 28.349523125 g).
+    expect(less.body.error.details.grams[0]).toBe(`That would leave the feed given on ${daysAgo(2)} short: 8 lb 13.1 oz given on ${daysAgo(2)}, but only 6 lb 9.8 oz of that feed was left`);
+    const later = await agent.put(`/api/feed/purchases/${purchase.id}`).send({ ...base, boughtOn: daysAgo(1) });
+    expect(later.status).toBe(400);
+    expect(later.body.error.details.grams).toContain(`The feed given on ${daysAgo(2)} was drawn from this purchase`);
+    const renamed = await agent.put(`/api/feed/purchases/${purchase.id}`).send({ ...base, productName: 'Finisher' });
+    expect(renamed.status).toBe(400);
+    const future = await agent.put(`/api/feed/purchases/${purchase.id}`).send({ ...base, boughtOn: addDays(farmToday(), 1) });
+    expect(future.status).toBe(400);
+    expect(future.body.error.details.boughtOn).toEqual(['A purchase cannot be dated in the future']);
+    expect(await growOutCounts(coop.id)).toEqual(before);
+    const book = (await agent.get('/api/feed')).body as FeedOverviewDto;
+    expect(book.purchases[0]).toMatchObject({ bagGrams: 10_000, boughtOn: purchase.boughtOn, productName: 'Grower', version: purchase.version });
+  });
+
+  it('when a purchase still feeds a group, then removing it is refused (409); once that feed given is removed, the purchase goes too and both rows are kept as deleted', async () => {
+    const coop = await createTestCoop();
+    const { big, purchase, use } = await bookWithOneUse(coop);
+    const agent = await agentOf(coop.member.email);
+    const refused = await agent.delete(`/api/feed/purchases/${purchase.id}?version=${purchase.version}`);
+    expect(refused.status).toBe(409);
+    expect(refused.body.error.details.purchase).toContain(`The feed given on ${daysAgo(2)} was drawn from this purchase`);
+    expect(((await agent.get('/api/feed')).body as FeedOverviewDto).purchases).toHaveLength(1);
+
+    const removedUse = await agent.delete(`/api/feed/uses/${use.id}?version=${use.version}`);
+    expect(removedUse.status).toBe(200);
+    expect((removedUse.body as FeedOverviewDto).uses).toEqual([]);
+    expect((removedUse.body as FeedOverviewDto).purchases[0]!.gramsLeft).toBe(10_000);
+    const group = (await agent.get(`/api/grow-out/groups/${big.id}`)).body as GrowOutGroupDto;
+    expect(group.feed.feedGrams).toBe(0);
+    const again = await agent.delete(`/api/feed/uses/${use.id}?version=${use.version}`);
+    expect(again.status).toBe(404);
+
+    const removed = await agent.delete(`/api/feed/purchases/${purchase.id}?version=${purchase.version}`);
+    expect(removed.status).toBe(200);
+    expect((removed.body as FeedOverviewDto).purchases).toEqual([]);
+    expect((removed.body as FeedOverviewDto).products).toEqual([]);
+    const rows = await asTenant(coop.id, async (c) => (await c.query(
+      `SELECT (SELECT count(*)::int FROM feed_purchases WHERE coop_id = $1 AND deleted_at IS NOT NULL) AS purchases,
+              (SELECT count(*)::int FROM feed_uses WHERE coop_id = $1 AND deleted_at IS NOT NULL) AS uses`, [coop.id])).rows[0]);
+    expect(rows).toEqual({ purchases: 1, uses: 1 });
+    const badVersion = await agent.delete(`/api/feed/uses/${use.id}?version=soon`);
+    expect(badVersion.status).toBe(400);
+  });
+
+  it('when feed given to one group is corrected to the whole farm, then it is split anew over both groups, the old entry is kept as deleted, and a correction past the stock changes nothing', async () => {
+    const coop = await createTestCoop();
+    const { big, small, use } = await bookWithOneUse(coop);
+    const agent = await agentOf(coop.member.email);
+    const res = await agent.put(`/api/feed/uses/${use.id}`).send({ givenOn: daysAgo(2), fromOn: daysAgo(2), grams: 3000, productName: 'Grower', target: 'farm', allocation: 'head_days', version: use.version });
+    expect(res.status).toBe(200);
+    const book = res.body as FeedOverviewDto;
+    expect(book.uses).toHaveLength(1);
+    const corrected = book.uses[0]!;
+    expect(corrected.id).not.toBe(use.id);
+    // One day, 8 heads and 4 heads: 3,000 g by head-days is 2,000 g and 1,000 g.
+    expect(Object.fromEntries(corrected.shares.map((s) => [s.groupId, s.grams]))).toEqual({ [big.id]: 2000, [small.id]: 1000 });
+    expect(corrected.costCents).toBe(300);
+    const bigAfter = (await agent.get(`/api/grow-out/groups/${big.id}`)).body as GrowOutGroupDto;
+    expect(bigAfter.feed.feedGrams).toBe(2000);
+    const kept = await asTenant(coop.id, async (c) => (await c.query('SELECT grams, target, deleted_at IS NOT NULL AS deleted FROM feed_uses WHERE id = $1', [use.id])).rows[0]);
+    expect(kept).toEqual({ grams: 4000, target: 'group', deleted: true });
+
+    const before = await growOutCounts(coop.id);
+    const tooMuch = await agent.put(`/api/feed/uses/${corrected.id}`).send({ givenOn: daysAgo(2), grams: 12_000, productName: 'Grower', target: 'group', groupId: big.id, version: corrected.version });
+    expect(tooMuch.status).toBe(400);
+    // 12,000 g = 423.3 oz and 10,000 g = 352.7 oz: over 10 lb, whole ounces (NIST HB44: 1 oz = 28.349523125 g).
+    expect(tooMuch.body.error.details.grams).toEqual([`26 lb 7 oz given on ${daysAgo(2)}, but only 22 lb 1 oz of that feed was left`]);
+    expect(await growOutCounts(coop.id)).toEqual(before);
+    expect(((await agent.get('/api/feed')).body as FeedOverviewDto).uses[0]!.id).toBe(corrected.id);
   });
 });

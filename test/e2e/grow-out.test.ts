@@ -23,7 +23,7 @@ async function signIn(page: Page, email: string) {
 const sideways = sidewaysScroll;
 
 describe('grow-out: a member weighs a group, records feed and reads the breed comparison', () => {
-  it('when a member weighs a growing group, then its projected ready date moves; the feed she records is in the feed book and the group; the breed comparison shows the cross', async () => {
+  it('when a member weighs a growing group, then its projected ready date moves; the feed she records and corrects is in the feed book and the group; the breed comparison shows the cross', async () => {
     const coop = await createTestCoop();
     const breeds = await catalogueBreeds(coop.id);
     // A Californian buck over a New Zealand doe: 8 kits, kindled 42 days ago, weaned into a group at 35 days.
@@ -83,6 +83,17 @@ describe('grow-out: a member weighs a group, records feed and reads the breed co
       await expect
         .poll(async () => (await asTenant(coop.id, async (c) => (await c.query(`SELECT coalesce(sum(grams), 0)::int AS g FROM feed_uses WHERE coop_id = $1`, [coop.id])).rows[0].g)))
         .toBe(13608); // 30 lb = 13,607.77 g
+
+      // She mistyped: 25 lb, not 30. The correction replaces the entry; the old one is kept as deleted.
+      await page.getByRole('list', { name: 'Feed given' }).getByRole('button', { name: /^Correct the feed given on/ }).first().click();
+      const correction = page.getByRole('form', { name: 'Correct feed given' });
+      await expect.poll(async () => correction.getByLabel('Amount (lb)').inputValue()).toBe('30');
+      await correction.getByLabel('Amount (lb)').fill('25');
+      await page.screenshot({ path: '.data/e2e-growout-feed-correction.png', fullPage: true });
+      await correction.getByRole('button', { name: 'Save correction' }).click();
+      await page.getByRole('form', { name: 'Record feed given' }).waitFor();
+      const feedRows = async () => (await asTenant(coop.id, async (c) => (await c.query(`SELECT grams, deleted_at IS NOT NULL AS deleted FROM feed_uses WHERE coop_id = $1 ORDER BY deleted_at NULLS LAST`, [coop.id])).rows));
+      await expect.poll(feedRows).toEqual([{ grams: 13608, deleted: true }, { grams: 11340, deleted: false }]); // 25 lb = 11,339.81 g
       await page.screenshot({ path: '.data/e2e-growout-feed.png', fullPage: true });
 
       // 3. The breed comparison: the cross is there, with its litter behind it.

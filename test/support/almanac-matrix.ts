@@ -6,7 +6,7 @@ import { createHousingUnit, placeInUnit } from '../../packages/server/src/module
 import { recordLitterEvent } from '../../packages/server/src/modules/litters/litters.service';
 import { almanacCounts, breedingPair, daysAgo, farmToday, litterAs, serviceAs } from './almanac';
 import { asTenant } from './db';
-import { grownLitterAs, groupAs, purchaseAs } from './growout';
+import { feedAs, grownLitterAs, groupAs, purchaseAs } from './growout';
 import type { TestCoop } from './factories';
 import { actorOf, nextTattoo } from './herd';
 
@@ -24,6 +24,10 @@ export interface AlmanacIds {
   feedToken?: string;
   /** Grow-out (issue 7): a growing group of farm A with a litter that still has free kits, and a feed purchase. */
   groupId?: string;
+  /** Feed corrections: a purchase of farm A and feed given from it to the group. */
+  purchaseId?: string;
+  useId?: string;
+  productName?: string;
 }
 
 export async function almanacTarget(coop: TestCoop, target: string): Promise<AlmanacIds> {
@@ -72,6 +76,15 @@ export async function almanacTarget(coop: TestCoop, target: string): Promise<Alm
       await purchaseAs(coop.member, { boughtOn: daysAgo(5), productName: 'Matrix feed', bagGrams: 20_000, bags: 1, priceCents: 1500 });
       return { groupId: group.id, litterId: litter.id };
     }
+    case 'feedEntriesA': {
+      const { litter } = await grownLitterAs(coop.member, 45, 6);
+      const group = await groupAs(coop.member, { name: `G-${randomUUID().slice(0, 6)}`, formedOn: daysAgo(3), targetGrams: 2270, litters: [{ litterId: litter.id, heads: 3 }] });
+      // A feed of its own, so the purchase and the entry are found among the other cells' feed.
+      const productName = `Matrix feed ${randomUUID().slice(0, 6)}`;
+      const bought = (await purchaseAs(coop.member, { boughtOn: daysAgo(5), productName, bagGrams: 20_000, bags: 1, priceCents: 1500 })).purchases.find((p) => p.productName === productName)!;
+      const given = (await feedAs(coop.member, { givenOn: daysAgo(1), grams: 900, purchaseId: bought.id, target: 'group', groupId: group.id })).uses.find((u) => u.productName === productName)!;
+      return { groupId: group.id, purchaseId: bought.id, useId: given.id, productName };
+    }
     case 'feedA': {
       const feed = await renewCalendarFeed(actorOf(coop.member), 'http://127.0.0.1:3000');
       return { feedToken: /calendar-feeds\/(.+)\.ics$/.exec(feed.url!)![1] };
@@ -90,7 +103,9 @@ export function almanacPath(path: string, ids: AlmanacIds): string {
     .replace(':unitId', ids.unitId ?? '')
     .replace(':placementId', ids.placementId ?? '')
     .replace(':feedToken', ids.feedToken ?? '')
-    .replace(':groupId', ids.groupId ?? '');
+    .replace(':groupId', ids.groupId ?? '')
+    .replace(':purchaseId', ids.purchaseId ?? '')
+    .replace(':useId', ids.useId ?? '');
 }
 
 /** Request bodies of the Almanac's rows; undefined for bodies that are not the Almanac's. */
@@ -108,6 +123,10 @@ export async function almanacBody(coop: TestCoop, body: string | undefined, ids:
       return { boughtOn: farmToday(), productName: 'Matrix pellets', bagGrams: 22_680, bags: 1, priceCents: 1999 };
     case 'feedUse':
       return { givenOn: farmToday(), grams: 500, productName: 'Matrix feed', target: 'group', groupId: ids.groupId };
+    case 'feedPurchaseCorrection':
+      return { boughtOn: daysAgo(5), productName: ids.productName, bagGrams: 20_000, bags: 2, priceCents: 2900, version: await version('feed_purchases', ids.purchaseId) };
+    case 'feedUseCorrection':
+      return { givenOn: daysAgo(1), grams: 800, purchaseId: ids.purchaseId, target: 'group', groupId: ids.groupId, version: await version('feed_uses', ids.useId) };
     case 'cycleSettings': {
       const row = ownFarmId ? (await asTenant(ownCoopId, (c) => c.query('SELECT version FROM farm_cycle_settings WHERE farm_id = $1', [ownFarmId]))).rows[0] : null;
       return { palpationDays: 13, version: row?.version ?? 0 };
@@ -159,5 +178,9 @@ export async function almanacBody(coop: TestCoop, body: string | undefined, ids:
 
 /** What a refused Almanac call must leave as it was: every Almanac table's rows of the co-op, task states and versions. */
 export async function almanacStateOf(coopId: string) {
-  return almanacCounts(coopId);
+  const feedBook = await asTenant(coopId, async (c) => ({
+    purchases: (await c.query(`SELECT string_agg(id || ':' || version || ':' || (deleted_at IS NULL), ',' ORDER BY id) AS s FROM feed_purchases WHERE coop_id = $1`, [coopId])).rows[0].s as string | null,
+    uses: (await c.query(`SELECT string_agg(id || ':' || version || ':' || (deleted_at IS NULL), ',' ORDER BY id) AS s FROM feed_uses WHERE coop_id = $1`, [coopId])).rows[0].s as string | null,
+  }));
+  return { ...(await almanacCounts(coopId)), feedBook };
 }

@@ -53,6 +53,7 @@ export async function growOutCounts(coopId: string) {
       groupWeighIns: await count('weigh_ins', 'AND group_id IS NOT NULL'),
       purchases: await count('feed_purchases'),
       uses: await count('feed_uses'),
+      liveFeedEntries: await count('feed_uses', 'AND deleted_at IS NULL') + await count('feed_purchases', 'AND deleted_at IS NULL'),
       shares: await count('feed_use_shares'),
       groupVersions: (await c.query(`SELECT string_agg(status || ':' || version, ',' ORDER BY id) AS s FROM grow_out_groups WHERE coop_id = $1`, [coopId])).rows[0].s as string | null,
     };

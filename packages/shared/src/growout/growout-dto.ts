@@ -144,6 +144,7 @@ export interface FeedPurchaseDto {
   priceCents: number | null;
   centsPerKg: number | null;
   note: string;
+  version: number;
 }
 
 export interface FeedUseShareDto {
@@ -161,6 +162,10 @@ export interface FeedUseDto {
   productName: string;
   purchaseId: string | null;
   target: FeedTarget;
+  /** The one of these the target names (for a correction form). */
+  groupId: string | null;
+  housingUnitId: string | null;
+  doeId: string | null;
   targetLabel: string;
   allocation: FeedAllocationRule | null;
   shares: FeedUseShareDto[];
@@ -168,6 +173,7 @@ export interface FeedUseDto {
   costCents: number | null;
   enteredBy: { id: string; name: string };
   note: string;
+  version: number;
 }
 
 export interface FeedOverviewDto {

@@ -18,6 +18,16 @@ export const feedPurchaseCreateSchema = z.strictObject({
 export type FeedPurchaseCreateInput = z.infer<typeof feedPurchaseCreateSchema>;
 export type FeedPurchaseCreateBody = z.input<typeof feedPurchaseCreateSchema>;
 
+const version = z.number({ message: 'Send the version you saw' }).int().min(0);
+
+/** A purchase corrected in place (a mistyped weight, date or price), from the version the editor saw. */
+export const feedPurchaseUpdateSchema = feedPurchaseCreateSchema.omit({ id: true }).extend({ version });
+export type FeedPurchaseUpdateInput = z.infer<typeof feedPurchaseUpdateSchema>;
+export type FeedPurchaseUpdateBody = z.input<typeof feedPurchaseUpdateSchema>;
+
+/** A purchase or an entry of feed given taken out of the book, from the version seen (`?version=`). */
+export const feedEntryRemovalSchema = z.strictObject({ version: z.coerce.number({ message: 'Send the version you saw' }).int().min(0) });
+
 export const feedTargets = ['group', 'pen', 'doe', 'farm'] as const;
 export type FeedTarget = (typeof feedTargets)[number];
 export const feedAllocationRules = ['head_days', 'live_weight'] as const;
@@ -29,8 +39,7 @@ export type FeedAllocationRule = (typeof feedAllocationRules)[number];
  * split over the groups and does with litters there by head-days or by live weight; `fromOn` starts the
  * period the feed covers (default: the day given).
  */
-export const feedUseCreateSchema = z
-  .strictObject({
+const feedUseFields = z.strictObject({
     id: id('The entry').optional(),
     givenOn: calendarDateSchema,
     fromOn: calendarDateSchema.optional(),
@@ -43,14 +52,24 @@ export const feedUseCreateSchema = z
     doeId: id('The doe').optional(),
     allocation: z.enum(feedAllocationRules, { message: 'Choose how to split the feed' }).optional(),
     note: z.string().trim().max(500).default(''),
-  })
-  .superRefine((v, ctx) => {
+  });
+
+type FeedUseFields = z.infer<typeof feedUseFields>;
+
+function checkFeedUse(v: Omit<FeedUseFields, 'id'>, ctx: z.RefinementCtx): void {
     if (!v.purchaseId && !v.productName) ctx.addIssue({ code: 'custom', path: ['purchaseId'], message: 'Choose the purchase or the feed' });
     if (v.target === 'group' && !v.groupId) ctx.addIssue({ code: 'custom', path: ['groupId'], message: 'Choose the group' });
     if (v.target === 'pen' && !v.housingUnitId) ctx.addIssue({ code: 'custom', path: ['housingUnitId'], message: 'Choose the pen' });
     if (v.target === 'doe' && !v.doeId) ctx.addIssue({ code: 'custom', path: ['doeId'], message: 'Choose the doe' });
     if ((v.target === 'pen' || v.target === 'farm') && !v.allocation) ctx.addIssue({ code: 'custom', path: ['allocation'], message: 'Choose how to split the feed: by head-days or by live weight' });
     if (v.fromOn && v.fromOn > v.givenOn) ctx.addIssue({ code: 'custom', path: ['fromOn'], message: 'The period starts after the day the feed was given' });
-  });
+}
+
+export const feedUseCreateSchema = feedUseFields.superRefine(checkFeedUse);
 export type FeedUseCreateInput = z.infer<typeof feedUseCreateSchema>;
 export type FeedUseCreateBody = z.input<typeof feedUseCreateSchema>;
+
+/** An entry of feed given corrected: the whole entry again, from the version seen; its split is worked anew. */
+export const feedUseUpdateSchema = feedUseFields.omit({ id: true }).extend({ version }).superRefine(checkFeedUse);
+export type FeedUseUpdateInput = z.infer<typeof feedUseUpdateSchema>;
+export type FeedUseUpdateBody = z.input<typeof feedUseUpdateSchema>;

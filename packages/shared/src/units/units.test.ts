@@ -1,11 +1,21 @@
 import { describe, expect, it } from 'vitest';
-import { formatTemperature, formatWeight, gramsToPoundsOunces, weightInputToGrams } from './units';
+import { formatTemperature, formatWeight, gramsToPoundsOunces, gramsToWeightInput, weightInputToGrams } from './units';
 
 describe('unit formatting', () => {
   it('when grams are shown in pounds and ounces, then the ounces carry over at 16', () => {
     expect(gramsToPoundsOunces(453.59237 * 5)).toEqual({ pounds: 5, ounces: 0 });
     expect(gramsToPoundsOunces(453.59237 * 4 + 28.349523125 * 15.96)).toEqual({ pounds: 5, ounces: 0 });
     expect(formatWeight(2270, 'lb_oz')).toBe('5 lb 0.1 oz');
+  });
+
+  it('when a weight is 10 lb or more, then ounces are whole (NIST HB44: 1 lb = 453.59237 g, 1 oz = 28.349523125 g)', () => {
+    // Nine 50 lb sacks stored as 9 × 22,680 g = 204,120 g = 7,200.1 oz.
+    expect(formatWeight(204_120, 'lb_oz')).toBe('450 lb 0 oz');
+    // 4,536 g = 160.003 oz, just over 10 lb; 4,535 g = 159.97 oz rounds to 9 lb 16.0 oz → carried to 10 lb 0 oz.
+    expect(formatWeight(4536, 'lb_oz')).toBe('10 lb 0 oz');
+    expect(formatWeight(4535, 'lb_oz')).toBe('10 lb 0 oz');
+    // 12 lb 7.6 oz = 5,658.6 g shows as 12 lb 8 oz.
+    expect(formatWeight(5659, 'lb_oz')).toBe('12 lb 8 oz');
   });
 
   it('when grams are shown metric, then small weights stay in grams', () => {
@@ -31,5 +41,23 @@ describe('typed weights to grams', () => {
     expect(weightInputToGrams('', '', 'lb_oz')).toBeNull();
     expect(weightInputToGrams('-1', '', 'kg_g')).toBeNull();
     expect(weightInputToGrams('abc', '', 'kg_g')).toBeNull();
+  });
+});
+
+describe('a stored weight back in a correction form', () => {
+  it('when any whole-gram weight up to 100 kg is put back in the form, then the form gives the same grams in both units', () => {
+    for (let grams = 1; grams <= 100_000; grams += 7) {
+      for (const unit of ['lb_oz', 'kg_g'] as const) {
+        const { major, minor } = gramsToWeightInput(grams, unit);
+        expect(weightInputToGrams(major, minor, unit)).toBe(grams);
+      }
+    }
+  });
+
+  it('when a 50 lb bag stored as 22,680 g is put back, then it reads 50 lb with the ounces empty (NIST HB44: 1 lb = 453.59237 g, 50 lb = 22,679.6 g)', () => {
+    expect(gramsToWeightInput(22_680, 'lb_oz')).toEqual({ major: '50', minor: '' });
+    expect(gramsToWeightInput(22_680, 'kg_g')).toEqual({ major: '22', minor: '680' });
+    // 5 lb 2.3 oz = 2,332.98 g; 2,333 g needs the tenth of an ounce to come back to the gram.
+    expect(gramsToWeightInput(2333, 'lb_oz')).toEqual({ major: '5', minor: '2.3' });
   });
 });

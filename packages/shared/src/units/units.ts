@@ -30,10 +30,17 @@ export function celsiusToFahrenheit(c: number): number {
   return (c * 9) / 5 + 32;
 }
 
-/** Formats a stored weight in the farm's chosen units, e.g. "5 lb 2.3 oz" or "2.32 kg". */
+/**
+ * Formats a stored weight in the farm's chosen units, e.g. "5 lb 2.3 oz" or "2.32 kg". From 10 lb up
+ * (feed sacks, stock, a batch) ounces are whole: a tenth of an ounce there is noise from the gram.
+ */
 export function formatWeight(grams: number, unit: WeightUnit): string {
   if (unit === 'kg_g') {
     return grams >= 1000 ? `${(grams / 1000).toFixed(2)} kg` : `${Math.round(grams)} g`;
+  }
+  if (grams >= 10 * GRAMS_PER_POUND) {
+    const wholeOunces = Math.round(grams / GRAMS_PER_OUNCE);
+    return `${Math.floor(wholeOunces / 16)} lb ${wholeOunces % 16} oz`;
   }
   const { pounds, ounces } = gramsToPoundsOunces(grams);
   return pounds > 0 ? `${pounds} lb ${ounces} oz` : `${ounces} oz`;
@@ -54,4 +61,21 @@ export function weightInputToGrams(major: string, minor: string, unit: WeightUni
   if (!Number.isFinite(a) || !Number.isFinite(b) || a < 0 || b < 0) return null;
   const grams = unit === 'lb_oz' ? a * GRAMS_PER_POUND + b * GRAMS_PER_OUNCE : a * 1000 + b;
   return grams > 0 ? Math.round(grams) : null;
+}
+
+/**
+ * Stored grams back into the two boxes of a weight field (to correct an entry): kilograms and grams, or
+ * pounds and the fewest decimals of ounces that give the same whole grams back (0.005 oz is 0.14 g, so two
+ * decimals always do). A zero second box is left empty.
+ */
+export function gramsToWeightInput(grams: number, unit: WeightUnit): { major: string; minor: string } {
+  const boxes = (major: number, minor: number) => ({ major: String(major), minor: minor === 0 ? '' : String(minor) });
+  if (unit === 'kg_g') return boxes(Math.floor(grams / 1000), Math.round(grams % 1000));
+  for (const decimals of [0, 1, 2]) {
+    const scale = 10 ** decimals;
+    const ounces = Math.round((grams / GRAMS_PER_OUNCE) * scale);
+    const form = boxes(Math.floor(ounces / (16 * scale)), (ounces % (16 * scale)) / scale);
+    if (decimals === 2 || weightInputToGrams(form.major, form.minor, unit) === grams) return form;
+  }
+  throw new Error('unreachable');
 }

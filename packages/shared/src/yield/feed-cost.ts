@@ -66,7 +66,12 @@ const byDateThenId = <T extends { id: string }>(date: (x: T) => string) => (a: T
  * Feed cannot be given before it was bought, nor more of it than was bought by that date. Purchases on
  * the day of a use count for it. One issue per bad use.
  */
-export function checkFeedUses(purchases: ReadonlyArray<FeedPurchase>, uses: ReadonlyArray<FeedUse>): FeedUseIssue[] {
+export function checkFeedUses(
+  purchases: ReadonlyArray<FeedPurchase>,
+  uses: ReadonlyArray<FeedUse>,
+  /** How the message shows a weight (the farm's units); grams by default. */
+  showWeight: (grams: number) => string = (grams) => `${Math.round(grams)} g`,
+): FeedUseIssue[] {
   const issues: FeedUseIssue[] = [];
   const feeds = new Set(uses.map((u) => u.feedId));
   for (const feedId of feeds) {
@@ -89,7 +94,7 @@ export function checkFeedUses(purchases: ReadonlyArray<FeedPurchase>, uses: Read
         continue;
       }
       if (use.grams > stock) {
-        issues.push({ useId: use.id, code: 'more_than_bought', message: `${use.grams} g given on ${use.givenOn}, but only ${Math.max(Math.round(stock), 0)} g of that feed was left` });
+        issues.push({ useId: use.id, code: 'more_than_bought', message: `${showWeight(use.grams)} given on ${use.givenOn}, but only ${showWeight(Math.max(stock, 0))} of that feed was left` });
         continue;
       }
       stock -= use.grams;

@@ -1,5 +1,5 @@
-import { useState } from 'react';
-import { centsPerLb } from '@burrowline/shared';
+import { useRef, useState } from 'react';
+import { centsPerLb, type FeedPurchaseDto, type FeedUseDto } from '@burrowline/shared';
 import { queryClient } from '../../app/query-client';
 import { Button } from '../../components/ui/button';
 import { Card } from '../../components/ui/card';
@@ -7,7 +7,8 @@ import { PageHeader } from '../../components/ui/page-header';
 import { PageTitle } from '../../components/ui/page-title';
 import { formatDate } from '../../features/almanac/almanac-dates';
 import { feedQueryOptions, useFeed } from '../../features/feed/api/get-feed';
-import { FeedUseForm, PurchaseForm } from '../../features/feed/components/feed-forms';
+import { BookProblems, FeedUseForm, PurchaseForm } from '../../features/feed/components/feed-forms';
+import { useRemoveFeedUse, useRemovePurchase } from '../../features/feed/api/record-feed';
 import { useMoney, weight } from '../../features/growout/growout-format';
 import { useWeightUnit } from '../../features/herd/hooks/use-weight-unit';
 
@@ -25,6 +26,38 @@ export function FeedPage() {
   const money = useMoney();
   const [allUses, setAllUses] = useState(false);
   const uses = allUses ? book.uses : book.uses.slice(0, 25);
+  const [correcting, setCorrecting] = useState<{ purchase: FeedPurchaseDto } | { use: FeedUseDto } | null>(null);
+  const [confirming, setConfirming] = useState<string | null>(null);
+  const removePurchase = useRemovePurchase();
+  const removeUse = useRemoveFeedUse();
+  const forms = useRef<HTMLDivElement>(null);
+  const startCorrecting = (entry: { purchase: FeedPurchaseDto } | { use: FeedUseDto }) => {
+    setCorrecting(entry);
+    forms.current?.scrollIntoView({ behavior: 'smooth', block: 'start' });
+  };
+  const editingPurchase = correcting && 'purchase' in correcting ? correcting.purchase : undefined;
+  const editingUse = correcting && 'use' in correcting ? correcting.use : undefined;
+  const entryActions = (entry: { purchase: FeedPurchaseDto } | { use: FeedUseDto }, what: string) => {
+    const { id, version } = 'purchase' in entry ? entry.purchase : entry.use;
+    const remove = 'purchase' in entry ? removePurchase : removeUse;
+    return confirming === id ? (
+      <span className="flex flex-wrap gap-2">
+        <Button variant="danger" isBusy={remove.isPending} onClick={() => remove.mutate({ id, version }, { onSettled: () => setConfirming(null) })}>
+          Remove<span className="sr-only"> {what}</span>
+        </Button>
+        <Button variant="quiet" onClick={() => setConfirming(null)}>Keep</Button>
+      </span>
+    ) : (
+      <span className="flex flex-wrap gap-1">
+        <Button variant="quiet" className="px-2" onClick={() => startCorrecting(entry)}>
+          Correct<span className="sr-only"> {what}</span>
+        </Button>
+        <Button variant="quiet" className="px-2" onClick={() => { removePurchase.reset(); removeUse.reset(); setConfirming(id); }}>
+          Remove<span className="sr-only"> {what}</span>
+        </Button>
+      </span>
+    );
+  };
   return (
     <div className="space-y-6">
       <PageTitle>Feed</PageTitle>
@@ -41,19 +74,24 @@ export function FeedPage() {
         )}
       </section>
       {book.canEdit && (
-        <div className="grid gap-6 lg:grid-cols-2">
-          <Card>
-            <h2 className="mb-3 text-lg font-semibold">Feed bought</h2>
-            <PurchaseForm unit={unit} />
+        <div ref={forms} className="grid scroll-mt-4 gap-6 lg:grid-cols-2">
+          <Card className={editingPurchase ? 'ring-2 ring-straw' : undefined}>
+            <h2 className="mb-3 text-lg font-semibold">{editingPurchase ? `Correct the purchase of ${formatDate(editingPurchase.boughtOn)}` : 'Feed bought'}</h2>
+            <PurchaseForm key={editingPurchase ? `${editingPurchase.id}:${editingPurchase.version}` : 'new'} unit={unit} editing={editingPurchase} onDone={() => setCorrecting(null)} />
           </Card>
-          <Card>
-            <h2 className="mb-3 text-lg font-semibold">Feed given</h2>
-            {book.products.length === 0 ? <p className="text-grey-600">Record a purchase first: feed cannot be given before it was bought.</p> : <FeedUseForm book={book} unit={unit} />}
+          <Card className={editingUse ? 'ring-2 ring-straw' : undefined}>
+            <h2 className="mb-3 text-lg font-semibold">{editingUse ? `Correct the feed given on ${formatDate(editingUse.givenOn)}` : 'Feed given'}</h2>
+            {book.products.length === 0 ? (
+              <p className="text-grey-600">Record a purchase first: feed cannot be given before it was bought.</p>
+            ) : (
+              <FeedUseForm key={editingUse ? `${editingUse.id}:${editingUse.version}` : 'new'} book={book} unit={unit} editing={editingUse} onDone={() => setCorrecting(null)} />
+            )}
           </Card>
         </div>
       )}
       <Card>
         <h2 className="mb-3 text-lg font-semibold">Purchases</h2>
+        <BookProblems error={removePurchase.error} />
         {book.purchases.length === 0 ? (
           <p className="text-grey-600">None yet.</p>
         ) : (
@@ -70,6 +108,7 @@ export function FeedPage() {
                   <th className="text-right">Protein</th>
                   {book.canSeeMoney && <th className="text-right">Price</th>}
                   {book.canSeeMoney && <th className="text-right">{unit === 'lb_oz' ? 'Per lb' : 'Per kg'}</th>}
+                  {book.canEdit && <th><span className="sr-only">Corrections</span></th>}
                 </tr>
               </thead>
               <tbody className="divide-y divide-grey-200">
@@ -83,6 +122,7 @@ export function FeedPage() {
                     <td className="text-right">{p.crudeProteinPercent === null ? '—' : `${p.crudeProteinPercent} %`}</td>
                     {book.canSeeMoney && <td className="text-right">{money(p.priceCents)}</td>}
                     {book.canSeeMoney && <td className="text-right">{money(unit === 'lb_oz' && p.priceCents !== null ? Math.round(centsPerLb(p.priceCents, p.grams)) : p.centsPerKg)}</td>}
+                    {book.canEdit && <td className="pl-2 text-right">{entryActions({ purchase: p }, `the purchase of ${formatDate(p.boughtOn)}`)}</td>}
                   </tr>
                 ))}
               </tbody>
@@ -97,6 +137,7 @@ export function FeedPage() {
                   <p>
                     <strong>{weight(p.gramsLeft, unit)}</strong> left of {weight(p.grams, unit)}{book.canSeeMoney ? ` · ${money(p.priceCents)}` : ''}
                   </p>
+                  {book.canEdit && <div className="-ml-2 mt-1">{entryActions({ purchase: p }, `the purchase of ${formatDate(p.boughtOn)}`)}</div>}
                 </li>
               ))}
             </ul>
@@ -105,6 +146,7 @@ export function FeedPage() {
       </Card>
       <Card>
         <h2 className="mb-3 text-lg font-semibold">Feed given</h2>
+        <BookProblems error={removeUse.error} />
         {book.uses.length === 0 ? (
           <p className="text-grey-600">None yet.</p>
         ) : (
@@ -121,6 +163,7 @@ export function FeedPage() {
                   <p className="text-sm text-grey-700">{u.shares.map((s) => `${s.label} ${weight(s.grams, unit)}`).join(' · ')}</p>
                 )}
                 {u.target === 'doe' && u.shares.length === 0 && <p className="text-sm text-grey-600">No litter with her then: counted as her own upkeep.</p>}
+                {book.canEdit && <div className="-ml-2 mt-1">{entryActions({ use: u }, `the feed given on ${formatDate(u.givenOn)}`)}</div>}
               </li>
             ))}
           </ul>

@@ -1,9 +1,10 @@
 import { randomUUID } from 'node:crypto';
 import type { Transaction } from 'sequelize';
 import {
-  addDays, allocateByHeadDays, allocateByLiveWeight, centsPerKg, checkFeedUses, daysBetween, defineAbilityFor, ErrorCode,
+  addDays, allocateByHeadDays, formatWeight, allocateByLiveWeight, centsPerKg, checkFeedUses, daysBetween, defineAbilityFor, ErrorCode,
   gompertzWeight, MATURE_WEIGHT_PRIORS, RealtimeEvent, referenceCurve, rooms, subjectOf, todayIn,
-  type FeedOverviewDto, type FeedPurchaseCreateInput, type FeedUseCreateInput, type FeedUseDto,
+  type FeedOverviewDto, type FeedPurchaseCreateInput, type FeedPurchaseUpdateInput, type FeedUseCreateInput, type FeedUseDto,
+  type FeedUseUpdateInput,
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../http/passport';
@@ -28,7 +29,7 @@ function farmOf(actor: SessionUser): string {
   return actor.farmId;
 }
 
-function ensureCan(actor: SessionUser, action: 'read' | 'create', farmId: string): void {
+function ensureCan(actor: SessionUser, action: 'read' | 'create' | 'update' | 'delete', farmId: string): void {
   if (defineAbilityFor(actor).can(action, subjectOf('FeedRecord', { coopId: actor.coopId, farmId }))) return;
   throw new AppError(ErrorCode.forbidden, 403, action === 'read' ? 'You may not see the feed book' : 'Only members of the farm record feed');
 }
@@ -36,6 +37,12 @@ function ensureCan(actor: SessionUser, action: 'read' | 'create', farmId: string
 async function farmToday(tx: Transaction, coopId: string, farmId: string): Promise<string> {
   const farm = (await farmDirectoryOf(coopId, tx)).get(farmId);
   return todayIn(farm?.timeZone || 'America/Chicago');
+}
+
+/** Weights in refusals read in the farm's units. */
+async function farmWeightShown(tx: Transaction, coopId: string, farmId: string): Promise<(grams: number) => string> {
+  const unit = (await farmDirectoryOf(coopId, tx)).get(farmId)?.weightUnit ?? 'lb_oz';
+  return (grams) => formatWeight(grams, unit);
 }
 
 function announce(tx: Transaction, farmId: string): void {
@@ -85,7 +92,7 @@ async function presentOverview(tx: Transaction, actor: SessionUser, farmId: stri
   };
   const uses: FeedUseDto[] = [...ledger.uses].reverse().map((u) => ({
     id: u.id, givenOn: u.givenOn, fromOn: u.fromOn, grams: u.grams, productName: productOf.get(u.feedKey) ?? u.feedKey, purchaseId: u.purchaseId,
-    target: u.target, allocation: u.allocation,
+    target: u.target, groupId: u.groupId, housingUnitId: u.housingUnitId, doeId: u.doeId, allocation: u.allocation, version: u.version,
     targetLabel: u.target === 'group' ? groups.get(u.groupId!) ?? 'A group'
       : u.target === 'pen' ? units.get(u.housingUnitId!) ?? 'A pen'
         : u.target === 'doe' ? `${animals.get(u.doeId!)?.name ?? 'A doe'} with her litter`
@@ -107,6 +114,7 @@ async function presentOverview(tx: Transaction, actor: SessionUser, farmId: stri
       id: p.id, boughtOn: p.boughtOn, productName: p.productName, bagGrams: p.bagGrams, bags: p.bags, grams: p.bagGrams * p.bags,
       gramsLeft: ledger.leftByPurchase.get(p.id) ?? 0, crudeProteinPercent: p.crudeProteinPercent,
       priceCents: money ? p.priceCents : null, centsPerKg: money ? centsPerKg(p.priceCents, p.bagGrams * p.bags) : null, note: p.note,
+      version: p.version,
     })),
     uses,
     products: [...products.values()].sort((a, b) => a.name.localeCompare(b.name)),
@@ -245,7 +253,7 @@ export async function recordFeedUseIn(tx: Transaction, actor: SessionUser, input
     const useId = input.id ?? randomUUID();
     if (feedKey && !errors.givenOn && !errors.purchaseId) {
       const uses = [...ledger.uses.map(useFact), { id: useId, feedId: feedKey, givenOn: input.givenOn, grams: input.grams }];
-      for (const issue of checkFeedUses(ledger.purchases.map(purchaseFact), uses)) {
+      for (const issue of checkFeedUses(ledger.purchases.map(purchaseFact), uses, await farmWeightShown(tx, actor.coopId, farmId))) {
         if (issue.useId === useId) add(issue.code === 'before_purchase' ? 'givenOn' : 'grams', issue.message);
         else {
           const other = ledger.uses.find((u) => u.id === issue.useId);
@@ -267,4 +275,92 @@ export async function recordFeedUseIn(tx: Transaction, actor: SessionUser, input
     if (shares.length > 0) await FeedUseShare.bulkCreate(shares.map((s) => ({ coopId: actor.coopId, feedUseId: useId, ...s })), { transaction: tx });
     announce(tx, farmId);
   }
+}
+
+/** The feed given that the book as it now stands cannot cover (before its feed was bought, or more than was left). */
+async function uncoveredFeedGiven(tx: Transaction, coopId: string, farmId: string): Promise<string[]> {
+  const ledger = await feedLedgerOf(tx, coopId, farmId);
+  const bought = new Map(ledger.purchases.map((p) => [p.id, p]));
+  const problems = ledger.uses
+    .filter((u) => u.purchaseId && (!bought.has(u.purchaseId) || bought.get(u.purchaseId)!.boughtOn > u.givenOn))
+    .map((u) => `The feed given on ${u.givenOn} was drawn from this purchase`);
+  const issues = checkFeedUses(ledger.purchases.map(purchaseFact), ledger.uses.map(useFact), await farmWeightShown(tx, coopId, farmId));
+  return [...problems, ...issues.map((i) => `That would leave the feed given on ${ledger.useById.get(i.useId)?.givenOn ?? 'a later day'} short: ${i.message}`)];
+}
+
+async function purchaseToChange(tx: Transaction, actor: SessionUser, farmId: string, purchaseId: string, version: number): Promise<FeedPurchase> {
+  await lockFarm(tx, farmId);
+  const purchase = await FeedPurchase.findOne({ where: { id: purchaseId, coopId: actor.coopId, farmId }, transaction: tx });
+  if (!purchase) throw AppError.notFound('That purchase');
+  if (purchase.version !== version) throw AppError.staleVersion();
+  return purchase;
+}
+
+async function useToChange(tx: Transaction, actor: SessionUser, farmId: string, useId: string, version: number): Promise<FeedUse> {
+  await lockFarm(tx, farmId);
+  const use = await FeedUse.findOne({ where: { id: useId, coopId: actor.coopId, farmId }, transaction: tx });
+  if (!use) throw AppError.notFound('That entry of feed given');
+  if (use.version !== version) throw AppError.staleVersion();
+  return use;
+}
+
+/**
+ * Corrects a purchase in place. Refused (400, nothing changed) in the future, or when the book would no
+ * longer cover the feed already given (less bought, bought later, or the feed renamed away from it).
+ */
+export async function correctFeedPurchase(actor: SessionUser, purchaseId: string, input: FeedPurchaseUpdateInput): Promise<FeedOverviewDto> {
+  const farmId = farmOf(actor);
+  ensureCan(actor, 'update', farmId);
+  return withTenant(actor, async (tx) => {
+    const purchase = await purchaseToChange(tx, actor, farmId, purchaseId, input.version);
+    if (input.boughtOn > (await farmToday(tx, actor.coopId, farmId))) throw AppError.validation({ boughtOn: ['A purchase cannot be dated in the future'] });
+    const { version: _seen, ...fields } = input;
+    await purchase.update({ ...fields, crudeProteinPercent: fields.crudeProteinPercent ?? null }, { transaction: tx });
+    const problems = await uncoveredFeedGiven(tx, actor.coopId, farmId);
+    if (problems.length > 0) throw AppError.validation({ grams: problems });
+    announce(tx, farmId);
+    return presentOverview(tx, actor, farmId);
+  });
+}
+
+/** Takes a purchase out of the book (kept, marked deleted). Refused (409) while feed given still draws on it. */
+export async function removeFeedPurchase(actor: SessionUser, purchaseId: string, version: number): Promise<FeedOverviewDto> {
+  const farmId = farmOf(actor);
+  ensureCan(actor, 'delete', farmId);
+  return withTenant(actor, async (tx) => {
+    const purchase = await purchaseToChange(tx, actor, farmId, purchaseId, version);
+    await purchase.destroy({ transaction: tx });
+    const problems = await uncoveredFeedGiven(tx, actor.coopId, farmId);
+    if (problems.length > 0) throw AppError.conflict('Feed given draws on this purchase: correct or remove that feed given first', { purchase: problems });
+    announce(tx, farmId);
+    return presentOverview(tx, actor, farmId);
+  });
+}
+
+/**
+ * Corrects feed given: the old entry is kept, marked deleted, and the corrected one recorded in its place
+ * with the same checks as a new one and its split worked anew.
+ */
+export async function correctFeedUse(actor: SessionUser, useId: string, input: FeedUseUpdateInput): Promise<FeedOverviewDto> {
+  const farmId = farmOf(actor);
+  ensureCan(actor, 'update', farmId);
+  return withTenant(actor, async (tx) => {
+    const use = await useToChange(tx, actor, farmId, useId, input.version);
+    await use.destroy({ transaction: tx });
+    const { version: _seen, ...entry } = input;
+    await recordFeedUseIn(tx, actor, entry);
+    return presentOverview(tx, actor, farmId);
+  });
+}
+
+/** Takes feed given out of the book (kept, marked deleted); its share leaves the groups' and litters' figures. */
+export async function removeFeedUse(actor: SessionUser, useId: string, version: number): Promise<FeedOverviewDto> {
+  const farmId = farmOf(actor);
+  ensureCan(actor, 'delete', farmId);
+  return withTenant(actor, async (tx) => {
+    const use = await useToChange(tx, actor, farmId, useId, version);
+    await use.destroy({ transaction: tx });
+    announce(tx, farmId);
+    return presentOverview(tx, actor, farmId);
+  });
 }

@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { FeedOverviewDto, FeedPurchaseCreateBody, FeedUseCreateBody } from '@burrowline/shared';
+import type { FeedOverviewDto, FeedPurchaseCreateBody, FeedPurchaseUpdateBody, FeedUseCreateBody, FeedUseUpdateBody } from '@burrowline/shared';
 import { apiFetch } from '../../../lib/api-client';
 import { growOutKeys } from '../../growout/api/growout-keys';
 import { feedKeys } from './feed-keys';
@@ -21,3 +21,19 @@ export const useRecordPurchase = () => useFeedMutation(recordPurchase);
 
 export const recordFeedUse = (body: FeedUseCreateBody) => apiFetch<FeedOverviewDto>('/api/feed/uses', { method: 'POST', body });
 export const useRecordFeedUse = () => useFeedMutation(recordFeedUse);
+
+export const correctPurchase = ({ id, body }: { id: string; body: FeedPurchaseUpdateBody }) =>
+  apiFetch<FeedOverviewDto>(`/api/feed/purchases/${id}`, { method: 'PUT', body });
+export const useCorrectPurchase = () => useFeedMutation(correctPurchase);
+
+export const removePurchase = ({ id, version }: { id: string; version: number }) =>
+  apiFetch<FeedOverviewDto>(`/api/feed/purchases/${id}?version=${version}`, { method: 'DELETE' });
+export const useRemovePurchase = () => useFeedMutation(removePurchase);
+
+export const correctFeedUse = ({ id, body }: { id: string; body: FeedUseUpdateBody }) =>
+  apiFetch<FeedOverviewDto>(`/api/feed/uses/${id}`, { method: 'PUT', body });
+export const useCorrectFeedUse = () => useFeedMutation(correctFeedUse);
+
+export const removeFeedUse = ({ id, version }: { id: string; version: number }) =>
+  apiFetch<FeedOverviewDto>(`/api/feed/uses/${id}?version=${version}`, { method: 'DELETE' });
+export const useRemoveFeedUse = () => useFeedMutation(removeFeedUse);

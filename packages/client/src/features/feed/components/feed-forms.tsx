@@ -1,6 +1,9 @@
 import { useQuery } from '@tanstack/react-query';
 import { useState, type FormEvent } from 'react';
-import { ErrorCode, todayIn, weightInputToGrams, type FeedAllocationRule, type FeedOverviewDto, type FeedTarget, type WeightUnit } from '@burrowline/shared';
+import {
+  ErrorCode, gramsToWeightInput, todayIn, weightInputToGrams,
+  type FeedAllocationRule, type FeedOverviewDto, type FeedPurchaseDto, type FeedTarget, type FeedUseDto, type WeightUnit,
+} from '@burrowline/shared';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { SelectField } from '../../../components/ui/select-field';
@@ -12,21 +15,51 @@ import { groupsQueryOptions } from '../../growout/api/get-groups';
 import { WeightInput } from '../../growout/components/weight-input';
 import { weight } from '../../growout/growout-format';
 import { housingUnitsQueryOptions } from '../../litters/api/housing';
-import { useRecordFeedUse, useRecordPurchase } from '../api/record-feed';
+import { useCorrectFeedUse, useCorrectPurchase, useRecordFeedUse, useRecordPurchase } from '../api/record-feed';
 
 const fieldError = (error: unknown, field: string) => (isApiError(error) ? error.details[field]?.[0] : undefined);
 const localToday = () => todayIn(Intl.DateTimeFormat().resolvedOptions().timeZone);
 
+/**
+ * A refusal that no field of the form shows: what a change would leave uncovered in the feed book (the
+ * server names each feed given, under `listed` fields), a stale version, a lost connection.
+ */
+export function BookProblems({ error, listed = [] }: { error: unknown; listed?: string[] }) {
+  if (!error) return null;
+  if (!isApiError(error)) return <Alert tone="error">{error instanceof Error ? error.message : 'That did not save; try again'}</Alert>;
+  const problems = [...listed, 'purchase'].flatMap((field) => error.details[field] ?? []);
+  if (error.code === ErrorCode.validation && problems.length === 0) return null;
+  return (
+    <Alert tone="error">
+      {error.code === ErrorCode.validation ? 'The feed book would not add up:' : error.message}
+      {problems.length > 0 && (
+        <ul className="mt-1 list-disc pl-5">
+          {problems.map((p) => <li key={p}>{p}</li>)}
+        </ul>
+      )}
+    </Alert>
+  );
+}
+
+interface CorrectionProps<T> {
+  /** The entry being corrected; without it the form records a new one. */
+  editing?: T;
+  onDone?: () => void;
+}
+
 /** Feed bought: the bag weight in the farm's units, stored in grams; the price in cents. */
-export function PurchaseForm({ unit }: { unit: WeightUnit }) {
-  const save = useRecordPurchase();
-  const [on, setOn] = useState(localToday);
-  const [product, setProduct] = useState('');
-  const [bagMajor, setBagMajor] = useState(unit === 'lb_oz' ? '50' : '25');
-  const [bagMinor, setBagMinor] = useState('');
-  const [bags, setBags] = useState('1');
-  const [price, setPrice] = useState('');
-  const [protein, setProtein] = useState('');
+export function PurchaseForm({ unit, editing, onDone }: { unit: WeightUnit } & CorrectionProps<FeedPurchaseDto>) {
+  const record = useRecordPurchase();
+  const correct = useCorrectPurchase();
+  const save = editing ? correct : record;
+  const bagStart = editing ? gramsToWeightInput(editing.bagGrams, unit) : { major: unit === 'lb_oz' ? '50' : '25', minor: '' };
+  const [on, setOn] = useState(() => editing?.boughtOn ?? localToday());
+  const [product, setProduct] = useState(editing?.productName ?? '');
+  const [bagMajor, setBagMajor] = useState(bagStart.major);
+  const [bagMinor, setBagMinor] = useState(bagStart.minor);
+  const [bags, setBags] = useState(String(editing?.bags ?? 1));
+  const [price, setPrice] = useState(editing?.priceCents != null ? (editing.priceCents / 100).toFixed(2) : '');
+  const [protein, setProtein] = useState(editing?.crudeProteinPercent != null ? String(editing.crudeProteinPercent) : '');
   const [problem, setProblem] = useState<string | null>(null);
   const submit = (event: FormEvent) => {
     event.preventDefault();
@@ -35,13 +68,12 @@ export function PurchaseForm({ unit }: { unit: WeightUnit }) {
     if (!bagGrams) return setProblem('Enter the bag weight');
     if (price.trim() === '' || !Number.isFinite(priceCents)) return setProblem('Enter what was paid');
     setProblem(null);
-    save.mutate(
-      { boughtOn: on, productName: product, bagGrams, bags: Number(bags), priceCents, crudeProteinPercent: protein.trim() === '' ? null : Number(protein) },
-      { onSuccess: () => { setPrice(''); setProduct(''); } },
-    );
+    const body = { boughtOn: on, productName: product, bagGrams, bags: Number(bags), priceCents, crudeProteinPercent: protein.trim() === '' ? null : Number(protein), note: editing?.note ?? '' };
+    if (editing) correct.mutate({ id: editing.id, body: { ...body, version: editing.version } }, { onSuccess: () => onDone?.() });
+    else record.mutate(body, { onSuccess: () => { setPrice(''); setProduct(''); } });
   };
   return (
-    <form onSubmit={submit} noValidate className="space-y-4" aria-label="Record a feed purchase">
+    <form onSubmit={submit} noValidate className="space-y-4" aria-label={editing ? 'Correct a feed purchase' : 'Record a feed purchase'}>
       <div className="grid gap-4 sm:grid-cols-2">
         <TextField label="Bought on" type="date" value={on} onChange={(e) => setOn(e.target.value)} error={fieldError(save.error, 'boughtOn')} />
         <TextField label="Feed" value={product} onChange={(e) => setProduct(e.target.value)} error={fieldError(save.error, 'productName')} hint="The product or mix, e.g. Grower pellets 16 %" />
@@ -51,11 +83,14 @@ export function PurchaseForm({ unit }: { unit: WeightUnit }) {
         <TextField label="Crude protein (%)" inputMode="decimal" value={protein} onChange={(e) => setProtein(e.target.value)} error={fieldError(save.error, 'crudeProteinPercent')}
           hint="From the tag. Growing rabbits need about 16 %, does in milk 17 % (NRC 1977)." />
       </div>
-      <Button type="submit" isBusy={save.isPending}>
-        Save purchase
-      </Button>
+      <div className="flex flex-wrap gap-3">
+        <Button type="submit" isBusy={save.isPending}>
+          {editing ? 'Save correction' : 'Save purchase'}
+        </Button>
+        {editing && <Button variant="secondary" onClick={onDone}>Cancel</Button>}
+      </div>
       {save.isSuccess && <Alert tone="success">Purchase saved.</Alert>}
-      {save.isError && !isApiError(save.error, ErrorCode.validation) && <Alert tone="error">{save.error.message}</Alert>}
+      <BookProblems error={save.error} listed={['grams']} />
     </form>
   );
 }
@@ -68,24 +103,29 @@ const targetOptions: { value: FeedTarget; label: string }[] = [
 ];
 
 /** Feed given from a purchase (or the oldest stock of a feed) to a group, a pen, a doe and litter or the farm. */
-export function FeedUseForm({ book, unit }: { book: FeedOverviewDto; unit: WeightUnit }) {
-  const save = useRecordFeedUse();
+export function FeedUseForm({ book, unit, editing, onDone }: { book: FeedOverviewDto; unit: WeightUnit } & CorrectionProps<FeedUseDto>) {
+  const record = useRecordFeedUse();
+  const correct = useCorrectFeedUse();
+  const save = editing ? correct : record;
   const groups = useQuery(groupsQueryOptions({ status: 'growing' }));
   const housing = useQuery(housingUnitsQueryOptions());
   const stock = useQuery(breedingStockQueryOptions());
-  const [on, setOn] = useState(localToday);
-  const [fromOn, setFromOn] = useState('');
-  const [major, setMajor] = useState('');
-  const [minor, setMinor] = useState('');
+  const amountStart = editing ? gramsToWeightInput(editing.grams, unit) : { major: '', minor: '' };
+  const [on, setOn] = useState(() => editing?.givenOn ?? localToday());
+  const [fromOn, setFromOn] = useState(editing && editing.fromOn !== editing.givenOn ? editing.fromOn : '');
+  const [major, setMajor] = useState(amountStart.major);
+  const [minor, setMinor] = useState(amountStart.minor);
   const inStock = book.products.filter((p) => p.gramsLeft > 0);
-  const [source, setSource] = useState(inStock[0] ? `product:${inStock[0].name}` : '');
-  const [target, setTarget] = useState<FeedTarget>('group');
-  const [groupId, setGroupId] = useState('');
-  const [unitId, setUnitId] = useState('');
-  const [doeId, setDoeId] = useState('');
-  const [allocation, setAllocation] = useState<FeedAllocationRule>('head_days');
+  const [source, setSource] = useState(editing ? editing.purchaseId ?? `product:${editing.productName}` : inStock[0] ? `product:${inStock[0].name}` : '');
+  const [target, setTarget] = useState<FeedTarget>(editing?.target ?? 'group');
+  const [groupId, setGroupId] = useState(editing?.groupId ?? '');
+  const [unitId, setUnitId] = useState(editing?.housingUnitId ?? '');
+  const [doeId, setDoeId] = useState(editing?.doeId ?? '');
+  const [allocation, setAllocation] = useState<FeedAllocationRule>(editing?.allocation ?? 'head_days');
   const [problem, setProblem] = useState<string | null>(null);
-  const groupOptions = (groups.data?.groups ?? []).map((g) => ({ value: g.id, label: g.name }));
+  const growing = (groups.data?.groups ?? []).map((g) => ({ value: g.id, label: g.name }));
+  // A correction may be for a group closed since: keep it choosable.
+  const groupOptions = editing?.groupId && !growing.some((g) => g.value === editing.groupId) ? [{ value: editing.groupId, label: editing.targetLabel }, ...growing] : growing;
   const unitOptions = (housing.data?.units ?? []).map((u) => ({ value: u.id, label: u.name }));
   const doeOptions = (stock.data?.does ?? []).map((d) => ({ value: d.id, label: d.tattoo ? `${d.name} (${d.tattoo})` : d.name }));
 
@@ -95,19 +135,18 @@ export function FeedUseForm({ book, unit }: { book: FeedOverviewDto; unit: Weigh
     if (!grams) return setProblem('Enter the amount');
     setProblem(null);
     const feed = source.startsWith('product:') ? { productName: source.slice('product:'.length) } : { purchaseId: source || undefined };
-    save.mutate(
-      {
-        givenOn: on, ...(fromOn ? { fromOn } : {}), grams, ...feed, target,
-        ...(target === 'group' ? { groupId: groupId || groupOptions[0]?.value } : {}),
-        ...(target === 'pen' ? { housingUnitId: unitId || unitOptions[0]?.value } : {}),
-        ...(target === 'doe' ? { doeId: doeId || doeOptions[0]?.value } : {}),
-        ...(target === 'pen' || target === 'farm' ? { allocation } : {}),
-      },
-      { onSuccess: () => { setMajor(''); setMinor(''); } },
-    );
+    const body = {
+      givenOn: on, ...(fromOn ? { fromOn } : {}), grams, ...feed, target, note: editing?.note ?? '',
+      ...(target === 'group' ? { groupId: groupId || groupOptions[0]?.value } : {}),
+      ...(target === 'pen' ? { housingUnitId: unitId || unitOptions[0]?.value } : {}),
+      ...(target === 'doe' ? { doeId: doeId || doeOptions[0]?.value } : {}),
+      ...(target === 'pen' || target === 'farm' ? { allocation } : {}),
+    };
+    if (editing) correct.mutate({ id: editing.id, body: { ...body, version: editing.version } }, { onSuccess: () => onDone?.() });
+    else record.mutate(body, { onSuccess: () => { setMajor(''); setMinor(''); } });
   };
   return (
-    <form onSubmit={submit} noValidate className="space-y-4" aria-label="Record feed given">
+    <form onSubmit={submit} noValidate className="space-y-4" aria-label={editing ? 'Correct feed given' : 'Record feed given'}>
       <div className="grid gap-4 sm:grid-cols-2">
         <TextField label="Given on" type="date" value={on} onChange={(e) => setOn(e.target.value)} error={fieldError(save.error, 'givenOn')} />
         <TextField label="Period from" type="date" value={fromOn} onChange={(e) => setFromOn(e.target.value)} error={fieldError(save.error, 'fromOn')}
@@ -121,7 +160,7 @@ export function FeedUseForm({ book, unit }: { book: FeedOverviewDto; unit: Weigh
           hint="Cost is worked first bought, first used across purchases of the same feed"
           options={[
             ...book.products.map((p) => ({ value: `product:${p.name}`, label: `${p.name}: oldest stock first (${weight(p.gramsLeft, unit)} left)` })),
-            ...book.purchases.filter((p) => p.gramsLeft > 0).map((p) => ({ value: p.id, label: `${p.productName} bought ${formatDate(p.boughtOn)} (${weight(p.gramsLeft, unit)} left)` })),
+            ...book.purchases.filter((p) => p.gramsLeft > 0 || p.id === editing?.purchaseId).map((p) => ({ value: p.id, label: `${p.productName} bought ${formatDate(p.boughtOn)} (${weight(p.gramsLeft, unit)} left)` })),
           ]}
         />
         <SelectField label="Feed given to" value={target} onChange={(e) => setTarget(e.target.value as FeedTarget)} options={targetOptions} />
@@ -139,11 +178,14 @@ export function FeedUseForm({ book, unit }: { book: FeedOverviewDto; unit: Weigh
           />
         )}
       </div>
-      <Button type="submit" isBusy={save.isPending}>
-        Save feed given
-      </Button>
+      <div className="flex flex-wrap gap-3">
+        <Button type="submit" isBusy={save.isPending}>
+          {editing ? 'Save correction' : 'Save feed given'}
+        </Button>
+        {editing && <Button variant="secondary" onClick={onDone}>Cancel</Button>}
+      </div>
       {save.isSuccess && <Alert tone="success">Feed given saved.</Alert>}
-      {save.isError && !isApiError(save.error, ErrorCode.validation) && <Alert tone="error">{save.error.message}</Alert>}
+      <BookProblems error={save.error} />
     </form>
   );
 }
