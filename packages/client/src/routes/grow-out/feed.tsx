@@ -1,4 +1,4 @@
-import { useRef, useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { centsPerLb, type FeedPurchaseDto, type FeedUseDto } from '@burrowline/shared';
 import { queryClient } from '../../app/query-client';
 import { Button } from '../../components/ui/button';
@@ -30,13 +30,15 @@ export function FeedPage() {
   const [confirming, setConfirming] = useState<string | null>(null);
   const removePurchase = useRemovePurchase();
   const removeUse = useRemoveFeedUse();
-  const forms = useRef<HTMLDivElement>(null);
-  const startCorrecting = (entry: { purchase: FeedPurchaseDto } | { use: FeedUseDto }) => {
-    setCorrecting(entry);
-    forms.current?.scrollIntoView({ behavior: 'smooth', block: 'start' });
-  };
+  const purchaseCard = useRef<HTMLDivElement>(null);
+  const useCard = useRef<HTMLDivElement>(null);
+  const startCorrecting = (entry: { purchase: FeedPurchaseDto } | { use: FeedUseDto }) => setCorrecting(entry);
   const editingPurchase = correcting && 'purchase' in correcting ? correcting.purchase : undefined;
   const editingUse = correcting && 'use' in correcting ? correcting.use : undefined;
+  // The form being corrected comes into view (on a phone the two forms are stacked far above the lists).
+  useEffect(() => {
+    if (correcting) ('purchase' in correcting ? purchaseCard : useCard).current?.scrollIntoView({ behavior: 'smooth', block: 'start' });
+  }, [correcting]);
   const entryActions = (entry: { purchase: FeedPurchaseDto } | { use: FeedUseDto }, what: string) => {
     const { id, version } = 'purchase' in entry ? entry.purchase : entry.use;
     const remove = 'purchase' in entry ? removePurchase : removeUse;
@@ -74,12 +76,12 @@ export function FeedPage() {
         )}
       </section>
       {book.canEdit && (
-        <div ref={forms} className="grid scroll-mt-4 gap-6 lg:grid-cols-2">
-          <Card className={editingPurchase ? 'ring-2 ring-straw' : undefined}>
+        <div className="grid gap-6 lg:grid-cols-2">
+          <Card ref={purchaseCard} className={editingPurchase ? 'scroll-mt-4 ring-2 ring-straw' : 'scroll-mt-4'}>
             <h2 className="mb-3 text-lg font-semibold">{editingPurchase ? `Correct the purchase of ${formatDate(editingPurchase.boughtOn)}` : 'Feed bought'}</h2>
             <PurchaseForm key={editingPurchase ? `${editingPurchase.id}:${editingPurchase.version}` : 'new'} unit={unit} editing={editingPurchase} onDone={() => setCorrecting(null)} />
           </Card>
-          <Card className={editingUse ? 'ring-2 ring-straw' : undefined}>
+          <Card ref={useCard} className={editingUse ? 'scroll-mt-4 ring-2 ring-straw' : 'scroll-mt-4'}>
             <h2 className="mb-3 text-lg font-semibold">{editingUse ? `Correct the feed given on ${formatDate(editingUse.givenOn)}` : 'Feed given'}</h2>
             {book.products.length === 0 ? (
               <p className="text-grey-600">Record a purchase first: feed cannot be given before it was bought.</p>
