@@ -254,6 +254,17 @@ describe('who may see and do what', () => {
 });
 
 describe('ready by a date, closing, and the facts for the other modules', () => {
+  it('when the farm sets its own target fryer weight in the Almanac settings, then a new group aims at it', async () => {
+    const coop = await createTestCoop();
+    const agent = await agentOf(coop.member.email);
+    const saved = await agent.patch('/api/almanac/settings').send({ targetLiveWeightGrams: 2500, version: 0 });
+    expect(saved.status).toBe(200);
+    expect(((await agent.get('/api/grow-out/groups')).body as GrowOutListDto).defaultTargetGrams).toBe(2500);
+    // Another farm of the co-op keeps the default.
+    const other = await agentOf(coop.otherFarmMember.email);
+    expect(((await other.get('/api/grow-out/groups')).body as GrowOutListDto).defaultTargetGrams).toBe(2270);
+  });
+
   it('when asked which groups are ready by a date, then each growing group has its readiness in words; closing needs the current version', async () => {
     const coop = await createTestCoop();
     const { group } = await weighedGroup(coop);
@@ -264,7 +275,7 @@ describe('ready by a date, closing, and the facts for the other modules', () => 
     expect(soon.status).toBe(200);
     const list = soon.body as GrowOutListDto;
     expect(list.groups.map((g) => g.name)).toEqual(expect.arrayContaining(['Spring fryers', 'Just weaned']));
-    expect(list.defaultTargetGrams).toBe(2270);
+    expect(list.defaultTargetGrams).toBe(2270); // the Almanac setting's default: 5 lb (common practice)
     expect(list.readyBy!.entries).toEqual([
       expect.objectContaining({ groupId: group.id, readiness: 'ready', words: 'Ready by then', headCount: 8 }),
       expect.objectContaining({ groupId: young.id, readiness: 'unknown', words: 'No projection yet', headCount: null }),

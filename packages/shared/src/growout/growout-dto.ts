@@ -1,10 +1,11 @@
+import { DEFAULT_CYCLE_SETTINGS } from '../breeding/cycle-settings';
 import type { GainSummary } from '../growth/adg';
 import type { GrowthProjection, Readiness } from '../growth/projection';
 import type { ReviewState } from '../herd/herd-enums';
 import type { FeedAllocationRule, FeedTarget } from '../schemas/feed.schema';
 
-/** The usual fryer target when a farm has set none: 2,270 g ≈ 5 lb live at 8–10 weeks (common practice; OSU Ext. Bulletin 745: 4–5 lb at 8 weeks). */
-export const DEFAULT_TARGET_GRAMS = 2270;
+/** The usual fryer target when a farm has set none (its Almanac setting's default; the source is given there). */
+export const DEFAULT_TARGET_GRAMS = DEFAULT_CYCLE_SETTINGS.targetLiveWeightGrams;
 
 /** Kits are put in a grow-out group at weaning or later: 4 weeks is the earliest usual weaning (Texas Extension; Rabbit Production). */
 export const EARLIEST_GROW_OUT_AGE_DAYS = 28;

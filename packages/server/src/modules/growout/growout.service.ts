@@ -1,6 +1,6 @@
 import { Op, type Transaction } from 'sequelize';
 import {
-  addDays, averageWeightByAge, checkWeightForAge, crossLabel, daysBetween, defineAbilityFor, DEFAULT_TARGET_GRAMS,
+  addDays, averageWeightByAge, checkWeightForAge, crossLabel, daysBetween, defineAbilityFor,
   EARLIEST_GROW_OUT_AGE_DAYS, ErrorCode, feedCostPerWeight, gainSummary, gompertzWeight, groupBirthDate, groupFeedConversion,
   projectionModelName, projectTargetDate, PUBLISHED_FEED_CONVERSION, PUBLISHED_GAIN, readinessWords, readyBy, RealtimeEvent,
   referenceCurve, rooms, subjectOf, todayIn, type Action, type GroupWeighInCreateInput, type GrowOutGroupCloseInput,
@@ -11,6 +11,7 @@ import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../http/passport';
 import { AppError } from '../../lib/app-error';
 import { publish } from '../../lib/realtime';
+import { settingsOf } from '../almanac/cycle-settings.service';
 import { animalFactsOf } from '../animals/animals.service';
 import { groupWeighInsOf, insertGroupWeighIn, weighInOwnerOf, type GroupWeighInRow } from '../animals/group-weigh-ins.service';
 import { breedMapOf } from '../breeds/breeds.service';
@@ -392,9 +393,10 @@ export async function listGroups(actor: SessionUser, q: GrowOutListQuery): Promi
         })),
       };
     }
-    const latest = await GrowOutGroup.findOne({ where: { coopId: actor.coopId, farmId }, order: [['createdAt', 'DESC']], transaction: tx });
+    // A new group aims at the farm's own target fryer weight (its Almanac settings; ≈ 5 lb until changed).
+    const { settings } = await settingsOf(tx, farmId);
     return {
-      groups: items, readyBy: ready, defaultTargetGrams: latest?.targetGrams ?? DEFAULT_TARGET_GRAMS,
+      groups: items, readyBy: ready, defaultTargetGrams: settings.targetLiveWeightGrams,
       canEdit: defineAbilityFor(actor).can('create', subjectOf('GrowOutGroup', { coopId: actor.coopId, farmId })),
     };
   });

@@ -1,6 +1,6 @@
 import { useState, type FormEvent } from 'react';
 import { useNavigate } from 'react-router-dom';
-import { ErrorCode, todayIn, weightInputToGrams, type WeightUnit } from '@burrowline/shared';
+import { ErrorCode, gramsToWeightInput, todayIn, weightInputToGrams, type WeightUnit } from '@burrowline/shared';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { SelectField } from '../../../components/ui/select-field';
@@ -10,7 +10,7 @@ import { formatDate } from '../../almanac/almanac-dates';
 import { useHousingUnits } from '../../litters/api/housing';
 import { useLitterChoices } from '../api/get-litter-choices';
 import { useFormGroup } from '../api/group-mutations';
-import { gramsToFields, WeightInput } from './weight-input';
+import { WeightInput } from './weight-input';
 
 const fieldError = (error: unknown, field: string) => (isApiError(error) ? error.details[field]?.[0] : undefined);
 const localToday = () => todayIn(Intl.DateTimeFormat().resolvedOptions().timeZone);
@@ -23,7 +23,7 @@ export function FormGroupForm({ unit, defaultTargetGrams }: { unit: WeightUnit; 
   const navigate = useNavigate();
   const [name, setName] = useState('');
   const [formedOn, setFormedOn] = useState(localToday);
-  const initial = gramsToFields(defaultTargetGrams, unit);
+  const initial = gramsToWeightInput(defaultTargetGrams, unit);
   const [targetMajor, setTargetMajor] = useState(initial.major);
   const [targetMinor, setTargetMinor] = useState(initial.minor);
   const [unitId, setUnitId] = useState('');

@@ -20,9 +20,3 @@ export function WeightInput({ label, unit, major, minor, onMajor, onMinor, error
   );
 }
 
-/** Grams split back into the two fields of a WeightInput. */
-export function gramsToFields(grams: number, unit: WeightUnit): { major: string; minor: string } {
-  if (unit === 'kg_g') return { major: String(Math.floor(grams / 1000)), minor: String(grams % 1000) };
-  const ounces = Math.round((grams / 28.349523125) * 10) / 10;
-  return { major: String(Math.floor(ounces / 16)), minor: String(Math.round((ounces % 16) * 10) / 10) };
-}
