@@ -2,7 +2,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { addDays, RealtimeEvent, type GrowOutGroupDto, type GrowOutListDto, type LitterChoiceDto } from '@burrowline/shared';
 import { withTenant } from '../../packages/server/src/db/tenant';
 import { growOutFactsOfFarm, groupsOfFarm } from '../../packages/server/src/modules/growout/growout.service';
-import { daysAgo, farmToday } from '../support/almanac';
+import { daysAgo, farmToday, taskRows } from '../support/almanac';
 import { asTenant } from '../support/db';
 import { createTestCoop, TEST_PASSWORD } from '../support/factories';
 import { breedLitterAs, feedAs, grownLitterAs, groupAs, growOutCounts, purchaseAs, weighGroupAs } from '../support/growout';
@@ -254,6 +254,38 @@ describe('who may see and do what', () => {
 });
 
 describe('ready by a date, closing, and the facts for the other modules', () => {
+  it("when a group is weighed, then its litters' weigh-in in the Almanac nearest that day is done on it; an apprentice's waits for review; ages far from it stay open", async () => {
+    const coop = await createTestCoop();
+    // Kindled 45 days ago: weigh-ins planned at the farm's ages 28, 42, 56 and 70 days (the defaults).
+    const one = await grownLitterAs(coop.member, 45, 4);
+    const two = await grownLitterAs(coop.member, 45, 4);
+    const group = await groupAs(coop.member, { name: 'Weighed pen', formedOn: daysAgo(3), targetGrams: 2270, litters: [{ litterId: one.litter.id, heads: 4 }, { litterId: two.litter.id, heads: 2 }] });
+    const weighIns = async (litterId: string) => (await taskRows(coop.id, { litterId })).filter((t) => t.kind === 'weigh_in').map((t) => [t.key, t.state, t.done_on, t.completion_review]);
+    await weighGroupAs(coop.member, group.id, { weighedOn: daysAgo(1), totalGrams: 6 * 1300, headCount: 6 });
+    // Day 44 is 2 days from the 42-day weigh-in; 28 (16 days off) and 56 (12 days off) stay open.
+    const expected = [['weigh_in:28', 'open', null, 'accepted'], ['weigh_in:42', 'done', daysAgo(1), 'accepted'], ['weigh_in:56', 'open', null, 'accepted'], ['weigh_in:70', 'open', null, 'accepted']];
+    expect(await weighIns(one.litter.id)).toEqual(expected);
+    expect(await weighIns(two.litter.id)).toEqual(expected);
+
+    // Another farm's litter of the same age is not touched.
+    const theirs = await grownLitterAs(coop.otherFarmMember, 45, 4);
+    expect((await weighIns(theirs.litter.id)).every((t) => t[1] === 'open')).toBe(true);
+
+    // The apprentice weighs the group a day later: the 42-day weigh-in is done already, so nothing more.
+    await weighGroupAs(coop.apprentice, group.id, { weighedOn: farmToday(), totalGrams: 6 * 1340, headCount: 6 });
+    expect(await weighIns(one.litter.id)).toEqual(expected);
+  });
+
+  it("when an apprentice's weighing is the one due, then the weigh-in is ticked for the mentor's review", async () => {
+    const coop = await createTestCoop();
+    const { litter } = await grownLitterAs(coop.member, 55, 5);
+    const group = await groupAs(coop.member, { name: 'Apprentice pen', formedOn: daysAgo(8), targetGrams: 2270, litters: [{ litterId: litter.id, heads: 5 }] });
+    await weighGroupAs(coop.apprentice, group.id, { weighedOn: farmToday(), totalGrams: 5 * 1600, headCount: 5 });
+    const rows = (await taskRows(coop.id, { litterId: litter.id })).filter((t) => t.kind === 'weigh_in');
+    expect(rows.find((t) => t.key === 'weigh_in:56')).toMatchObject({ state: 'done', done_on: farmToday(), completion_review: 'pending' });
+    expect(rows.filter((t) => t.state === 'done')).toHaveLength(1);
+  });
+
   it('when the farm sets its own target fryer weight in the Almanac settings, then a new group aims at it', async () => {
     const coop = await createTestCoop();
     const agent = await agentOf(coop.member.email);

@@ -1,6 +1,6 @@
 import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import {
-  addDays, defineAbilityFor, ErrorCode, needsAttention, subjectOf, plannedTaskKinds, type AgendaDto, type AgendaQuery, type AlmanacSummaryDto,
+  addDays, daysBetween, defineAbilityFor, ErrorCode, needsAttention, subjectOf, plannedTaskKinds, type AgendaDto, type AgendaQuery, type AlmanacSummaryDto,
   type AlmanacTaskDto, type EntryReviewInput, type TaskBulkInput, type TaskUpdateInput,
 } from '@burrowline/shared';
 import { accessibleWhere } from '../../db/scope';
@@ -232,6 +232,36 @@ export async function updateTask(actor: SessionUser, taskId: string, input: Task
     const [presented] = await presentTasks(tx, actor.coopId, [task!], clock.today);
     return presented!;
   });
+}
+
+/** Half the default two weeks between the farm's weigh-in ages: a weighing counts for the age it is nearest. */
+const WEIGH_IN_TASK_REACH_DAYS = 7;
+
+/**
+ * A weighing of a litter's kits (in a grow-out group) on a day ticks off that litter's weigh-in task due
+ * nearest to it within a week, done on the day weighed, in the weighing's transaction. An apprentice's
+ * weighing ticks it for the mentor's review, as her own tick would.
+ */
+export async function completeWeighInTasksOf(tx: Transaction, actor: SessionUser, farmId: string, litterIds: string[], weighedOn: string, note: string): Promise<void> {
+  if (litterIds.length === 0 || !defineAbilityFor(actor).can('complete', subjectOf('AlmanacTask', { coopId: actor.coopId, farmId }))) return;
+  const tasks = await AlmanacTask.findAll({
+    where: {
+      coopId: actor.coopId, farmId, litterId: { [Op.in]: litterIds }, kind: 'weigh_in', state: { [Op.in]: ['open', 'moved'] },
+      dueOn: { [Op.between]: [addDays(weighedOn, -WEIGH_IN_TASK_REACH_DAYS), addDays(weighedOn, WEIGH_IN_TASK_REACH_DAYS)] },
+      anchorDate: { [Op.lte]: weighedOn },
+    },
+    transaction: tx, lock: tx.LOCK.UPDATE, order: [['id', 'ASC']],
+  });
+  const distance = (t: AlmanacTask) => Math.abs(daysBetween(t.dueOn, weighedOn));
+  const nearest = new Map<string, AlmanacTask>();
+  for (const task of tasks) {
+    const held = nearest.get(task.litterId!);
+    if (!held || distance(task) < distance(held)) nearest.set(task.litterId!, task);
+  }
+  if (nearest.size === 0) return;
+  const clock = await farmClockOf(tx, actor.coopId, farmId);
+  for (const task of nearest.values()) await saveChanges(tx, actor, task, applyAction(actor, task, { action: 'done', doneOn: weighedOn, note }, clock));
+  announceAlmanac(tx, [farmId]);
 }
 
 /** The same action on several tasks at once, all or none (one stale or refused task refuses them all). */

@@ -12,6 +12,7 @@ import type { SessionUser } from '../../http/passport';
 import { AppError } from '../../lib/app-error';
 import { publish } from '../../lib/realtime';
 import { settingsOf } from '../almanac/cycle-settings.service';
+import { completeWeighInTasksOf } from '../almanac/tasks.service';
 import { animalFactsOf } from '../animals/animals.service';
 import { groupWeighInsOf, insertGroupWeighIn, weighInOwnerOf, type GroupWeighInRow } from '../animals/group-weigh-ins.service';
 import { breedMapOf } from '../breeds/breeds.service';
@@ -560,6 +561,8 @@ export async function weighGroupIn(tx: Transaction, actor: SessionUser, groupOrI
       id: input.id, coopId: actor.coopId, farmId: group.farmId, groupId: group.id, weighedOn: input.weighedOn, totalGrams, headCount,
       kitWeights: kits, note: input.note, enteredBy: actor.id, reviewState: actor.role === 'apprentice' ? 'pending' : 'accepted',
     });
+    // The litters' weigh-ins at the farm's ages in the Almanac: this weighing is the one due.
+    await completeWeighInTasksOf(tx, actor, group.farmId, info.members.map((m) => m.litterId), input.weighedOn, `Weighed with ${group.name}`);
     announce(tx, group.farmId, group.id);
   }
 }
