@@ -266,6 +266,13 @@ describe('ready by a date, closing, and the facts for the other modules', () => 
     const expected = [['weigh_in:28', 'open', null, 'accepted'], ['weigh_in:42', 'done', daysAgo(1), 'accepted'], ['weigh_in:56', 'open', null, 'accepted'], ['weigh_in:70', 'open', null, 'accepted']];
     expect(await weighIns(one.litter.id)).toEqual(expected);
     expect(await weighIns(two.litter.id)).toEqual(expected);
+    // The group's page shows the same ages from its forming on: 42 weighed, 56 and 70 still to come.
+    const detail = (await (await agentOf(coop.member.email)).get(`/api/grow-out/groups/${group.id}`)).body as GrowOutGroupDto;
+    expect(detail.weighInSchedule).toEqual([
+      { ageDays: 42, on: daysAgo(3), state: 'weighed', weighedOn: daysAgo(1) },
+      { ageDays: 56, on: addDays(farmToday(), 11), state: 'upcoming', weighedOn: null },
+      { ageDays: 70, on: addDays(farmToday(), 25), state: 'upcoming', weighedOn: null },
+    ]);
 
     // Another farm's litter of the same age is not touched.
     const theirs = await grownLitterAs(coop.otherFarmMember, 45, 4);

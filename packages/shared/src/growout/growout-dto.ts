@@ -1,6 +1,7 @@
 import { DEFAULT_CYCLE_SETTINGS } from '../breeding/cycle-settings';
 import type { GainSummary } from '../growth/adg';
 import type { GrowthProjection, Readiness } from '../growth/projection';
+import type { ScheduledWeighIn } from '../growth/weigh-in-schedule';
 import type { ReviewState } from '../herd/herd-enums';
 import type { FeedAllocationRule, FeedTarget } from '../schemas/feed.schema';
 
@@ -98,6 +99,8 @@ export interface GrowOutGroupDto extends Omit<GrowOutGroupListItemDto, 'projecti
   notes: string;
   litters: GrowOutLitterDto[];
   weighIns: GroupWeighInDto[];
+  /** The farm's weigh-in ages (its Almanac settings) over the group's life. */
+  weighInSchedule: ScheduledWeighIn[];
   gain: GainSummary;
   kitGains: KitGainDto[];
   projection: GrowthProjection & { modelName: string; why: string };

@@ -2,4 +2,5 @@ export * from './adg';
 export * from './gompertz';
 export * from './projection';
 export * from './plausibility';
+export * from './weigh-in-schedule';
 export { studentTQuantile, studentTCdf } from './stats';

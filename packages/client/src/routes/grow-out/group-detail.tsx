@@ -15,7 +15,7 @@ import { MarkForProcessing } from '../../features/processing/components/mark-for
 import { useWeightUnit } from '../../features/herd/hooks/use-weight-unit';
 import { groupQueryOptions, useGroup } from '../../features/growout/api/get-group';
 import { GrowthChart } from '../../features/growout/components/growth-chart';
-import { CloseGroupForm, FeedPanel, GainsPanel, GroupWeighInForm, GroupWeighInsList, ProjectionCard } from '../../features/growout/components/group-panels';
+import { CloseGroupForm, FeedPanel, GainsPanel, GroupWeighInForm, GroupWeighInsList, ProjectionCard, WeighInSchedule } from '../../features/growout/components/group-panels';
 import { weight } from '../../features/growout/growout-format';
 import { idFrom, useIdParam } from '../almanac/id-param';
 
@@ -66,6 +66,7 @@ export function GroupDetailPage() {
       <div className="grid gap-6 lg:grid-cols-2">
         <Card>
           <h2 className="mb-3 text-lg font-semibold">Weigh the group</h2>
+          <WeighInSchedule group={group} />
           {group.status === 'growing' ? <GroupWeighInForm group={group} unit={unit} isApprentice={isApprentice} /> : <p className="text-grey-600">The group is closed.</p>}
         </Card>
         <Card className="space-y-6">

@@ -1,6 +1,6 @@
 import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import {
-  addDays, daysBetween, defineAbilityFor, ErrorCode, needsAttention, subjectOf, plannedTaskKinds, type AgendaDto, type AgendaQuery, type AlmanacSummaryDto,
+  addDays, daysBetween, defineAbilityFor, ErrorCode, WEIGH_IN_REACH_DAYS, needsAttention, subjectOf, plannedTaskKinds, type AgendaDto, type AgendaQuery, type AlmanacSummaryDto,
   type AlmanacTaskDto, type EntryReviewInput, type TaskBulkInput, type TaskUpdateInput,
 } from '@burrowline/shared';
 import { accessibleWhere } from '../../db/scope';
@@ -234,9 +234,6 @@ export async function updateTask(actor: SessionUser, taskId: string, input: Task
   });
 }
 
-/** Half the default two weeks between the farm's weigh-in ages: a weighing counts for the age it is nearest. */
-const WEIGH_IN_TASK_REACH_DAYS = 7;
-
 /**
  * A weighing of a litter's kits (in a grow-out group) on a day ticks off that litter's weigh-in task due
  * nearest to it within a week, done on the day weighed, in the weighing's transaction. An apprentice's
@@ -247,7 +244,7 @@ export async function completeWeighInTasksOf(tx: Transaction, actor: SessionUser
   const tasks = await AlmanacTask.findAll({
     where: {
       coopId: actor.coopId, farmId, litterId: { [Op.in]: litterIds }, kind: 'weigh_in', state: { [Op.in]: ['open', 'moved'] },
-      dueOn: { [Op.between]: [addDays(weighedOn, -WEIGH_IN_TASK_REACH_DAYS), addDays(weighedOn, WEIGH_IN_TASK_REACH_DAYS)] },
+      dueOn: { [Op.between]: [addDays(weighedOn, -WEIGH_IN_REACH_DAYS), addDays(weighedOn, WEIGH_IN_REACH_DAYS)] },
       anchorDate: { [Op.lte]: weighedOn },
     },
     transaction: tx, lock: tx.LOCK.UPDATE, order: [['id', 'ASC']],

@@ -2,7 +2,7 @@ import { Op, type Transaction } from 'sequelize';
 import {
   addDays, averageWeightByAge, checkWeightForAge, crossLabel, daysBetween, defineAbilityFor,
   EARLIEST_GROW_OUT_AGE_DAYS, ErrorCode, feedCostPerWeight, gainSummary, gompertzWeight, groupBirthDate, groupFeedConversion,
-  projectionModelName, projectTargetDate, PUBLISHED_FEED_CONVERSION, PUBLISHED_GAIN, readinessWords, readyBy, RealtimeEvent,
+  projectionModelName, projectTargetDate, PUBLISHED_FEED_CONVERSION, PUBLISHED_GAIN, readinessWords, readyBy, RealtimeEvent, weighInSchedule,
   referenceCurve, rooms, subjectOf, todayIn, type Action, type GroupWeighInCreateInput, type GrowOutGroupCloseInput,
   type GrowOutGroupCreateInput, type GrowOutGroupDto, type GrowOutGroupListItemDto, type GrowOutListDto, type GrowOutListQuery,
   type GrowthProjection, type LitterChoiceDto, type SizeClass, type SubjectName, type WeighInPoint,
@@ -325,6 +325,10 @@ async function detailOf(tx: Transaction, actor: SessionUser, group: GrowOutGroup
   const money = canSeeMoney(actor, group.farmId);
   const cost = money && feed.grams > 0 ? feedCostPerWeight({ feedCostCents: feed.costCents, liveGrams: conversion && conversion.gainGrams > 0 ? conversion.gainGrams : null }) : null;
   const model = projectionModelName(projection);
+  const schedule = weighInSchedule({
+    birthDate: info.birthDate, agesDays: (await settingsOf(tx, group.farmId)).settings.weighInAgesDays, formedOn: group.formedOn,
+    closedOn: group.closedOn, weighedOn: info.all.map((w) => w.weighedOn), today,
+  });
 
   return {
     ...base,
@@ -341,6 +345,7 @@ async function detailOf(tx: Transaction, actor: SessionUser, group: GrowOutGroup
       gramsPerHead: Math.round(w.totalGrams / w.headCount), kits: w.kitWeights, note: w.note,
       enteredBy: { id: w.enteredBy, name: names.get(w.enteredBy) ?? 'Someone' }, reviewState: w.reviewState, caution: cautionOf(w, info), version: w.version,
     })),
+    weighInSchedule: schedule,
     gain: gainSummary(points(info.accepted)),
     kitGains,
     projection: { ...projection, modelName: model.name, why: model.why },

@@ -1,7 +1,7 @@
 import { useState, type FormEvent } from 'react';
-import { ErrorCode, todayIn, weightInputToGrams, type GrowOutGroupDto, type WeightUnit } from '@burrowline/shared';
+import { ErrorCode, todayIn, weightInputToGrams, type GrowOutGroupDto, type ScheduledWeighInState, type WeightUnit } from '@burrowline/shared';
 import { Alert } from '../../../components/ui/alert';
-import { Badge } from '../../../components/ui/badge';
+import { Badge, type BadgeTone } from '../../../components/ui/badge';
 import { Button } from '../../../components/ui/button';
 import { SegmentedFilter } from '../../../components/ui/segmented-filter';
 import { TextField } from '../../../components/ui/text-field';
@@ -13,6 +13,34 @@ import { WeightInput } from './weight-input';
 
 const fieldError = (error: unknown, field: string) => (isApiError(error) ? error.details[field]?.[0] : undefined);
 const localToday = () => todayIn(Intl.DateTimeFormat().resolvedOptions().timeZone);
+
+const scheduleWords: Record<ScheduledWeighInState, { word: string; tone: BadgeTone }> = {
+  weighed: { word: 'Weighed', tone: 'moss' },
+  due: { word: 'Due', tone: 'straw' },
+  upcoming: { word: 'Coming', tone: 'neutral' },
+  missed: { word: 'Missed', tone: 'clay' },
+};
+
+/** The farm's weigh-in ages (set in the Almanac settings) over the group's life, each weighed, due, coming or missed. */
+export function WeighInSchedule({ group }: { group: GrowOutGroupDto }) {
+  if (group.weighInSchedule.length === 0) return null;
+  return (
+    <div className="mb-4">
+      <h3 className="text-sm font-semibold text-grey-700">The farm&apos;s weigh-in ages</h3>
+      <ul className="mt-1 flex flex-wrap gap-2" aria-label="The farm's weigh-in ages">
+        {group.weighInSchedule.map((a) => (
+          <li key={a.ageDays} className="rounded-lg border border-grey-200 px-2 py-1 text-sm">
+            {a.ageDays} days · {formatDate(a.on)}{' '}
+            <Badge tone={scheduleWords[a.state].tone}>
+              {scheduleWords[a.state].word}
+              {a.weighedOn && a.weighedOn !== a.on ? ` ${formatDate(a.weighedOn)}` : ''}
+            </Badge>
+          </li>
+        ))}
+      </ul>
+    </div>
+  );
+}
 
 /** The projected day at target, the model used and why, and its uncertainty. */
 export function ProjectionCard({ group, unit }: { group: GrowOutGroupDto; unit: WeightUnit }) {
