@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { daysAgo } from '../support/almanac';
+import { daysAgo, farmToday } from '../support/almanac';
 import { collectPageErrors, openBrowser, sidewaysScroll, signInAt } from '../support/browser';
 import { asTenant } from '../support/db';
 import { createTestCoop, TEST_PASSWORD } from '../support/factories';
@@ -35,7 +35,9 @@ describe('grow-out: a member weighs a group, records feed and reads the breed co
     await weighGroupAs(coop.member, group.id, { weighedOn: daysAgo(7), totalGrams: 8 * 760, headCount: 8 });
     await weighGroupAs(coop.member, group.id, { weighedOn: daysAgo(3), totalGrams: 8 * 885, headCount: 8 });
 
-    const browser = await openBrowser();
+    // The phone's clock is set to UTC+14, a day ahead of the farm (America/Chicago) most hours: the forms must
+    // still default to the farm's today, which is the latest day the server accepts.
+    const browser = await openBrowser({ timezoneId: 'Pacific/Kiritimati' });
     const errors = collectPageErrors(browser.page);
     const { page } = browser;
     try {
@@ -50,6 +52,7 @@ describe('grow-out: a member weighs a group, records feed and reads the breed co
       await projected.waitFor();
       const before = (await projected.textContent())!.trim();
       const weighForm = page.getByRole('form', { name: 'Weigh the group' });
+      expect(await weighForm.getByLabel('Weighed on').inputValue()).toBe(farmToday());
       await weighForm.getByLabel('Total weight (lb)').fill('18');
       await weighForm.getByLabel('Total weight (oz)').fill('0');
       await weighForm.getByLabel('Head count').fill('8');

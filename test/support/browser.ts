@@ -9,13 +9,14 @@ const CHROMIUM_ARGS = [
 ];
 
 /** One Debian Chromium context per person (its own profile folder, so cookies never mix). */
-export async function openBrowser(opts: { width?: number; height?: number } = {}): Promise<{ context: BrowserContext; page: Page; close: () => Promise<void> }> {
+export async function openBrowser(opts: { width?: number; height?: number; timezoneId?: string } = {}): Promise<{ context: BrowserContext; page: Page; close: () => Promise<void> }> {
   const profile = fs.mkdtempSync(path.join(os.tmpdir(), 'burrowline-e2e-'));
   const context = await chromium.launchPersistentContext(profile, {
     executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
     headless: true,
     args: CHROMIUM_ARGS,
     viewport: { width: opts.width ?? 1280, height: opts.height ?? 900 },
+    ...(opts.timezoneId ? { timezoneId: opts.timezoneId } : {}),
   });
   const page = context.pages()[0] ?? (await context.newPage());
   return {

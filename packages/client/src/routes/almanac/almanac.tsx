@@ -16,6 +16,7 @@ import { MonthCalendar } from '../../features/almanac/components/month-calendar'
 import { OpenServices } from '../../features/almanac/components/open-services';
 import { useAlmanacRights } from '../../features/almanac/hooks/use-almanac-rights';
 import { useSession } from '../../lib/session';
+import { useFarmToday } from '../../features/farms/hooks/use-farm-today';
 
 type View = 'agenda' | 'month';
 
@@ -30,19 +31,14 @@ function rangeOf(view: View, month: string, days: number): AgendaRange {
   return { days, include: 'all' };
 }
 
-/** The reader's own date, only to choose which month to show first (the farm's today comes with the data). */
-function browserToday(): string {
-  const now = new Date();
-  return `${now.getFullYear()}-${String(now.getMonth() + 1).padStart(2, '0')}-${String(now.getDate()).padStart(2, '0')}`;
-}
-
 export function AlmanacPage() {
   const me = useSession();
   const rights = useAlmanacRights();
   const [params, setParams] = useSearchParams();
   const view: View = params.get('view') === 'month' ? 'month' : params.get('view') === 'agenda' ? 'agenda' : defaultView();
   const month = params.get('month');
-  const shownMonth = firstOfMonth(month && /^\d{4}-\d{2}-\d{2}$/.test(month) ? month : browserToday());
+  const farmToday = useFarmToday();
+  const shownMonth = firstOfMonth(month && /^\d{4}-\d{2}-\d{2}$/.test(month) ? month : farmToday);
   const days = Math.min(62, Math.max(14, Number(params.get('days')) || 14));
   const agenda = useAgenda(rangeOf(view, shownMonth, days));
 

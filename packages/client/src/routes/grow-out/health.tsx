@@ -18,6 +18,7 @@ import { useFarmSubjects } from '../../features/health/hooks/use-farm-subjects';
 import { useTemperatureUnit } from '../../features/health/hooks/use-temperature-unit';
 import { useAbility } from '../../lib/ability';
 import { useSession } from '../../lib/session';
+import { useFarmToday } from '../../features/farms/hooks/use-farm-today';
 
 export async function loader() {
   await Promise.all([
@@ -40,7 +41,8 @@ export function HealthPage() {
   const treatments = useHealthTreatments();
   const temperatures = useTemperatures();
   const subjects = useFarmSubjects();
-  const today = withdrawals.data?.today ?? new Date().toISOString().slice(0, 10);
+  const fallbackToday = useFarmToday();
+  const today = withdrawals.data?.today ?? fallbackToday;
   return (
     <div className="space-y-6">
       <PageTitle>Health</PageTitle>

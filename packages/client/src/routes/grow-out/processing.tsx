@@ -12,6 +12,7 @@ import { ProcessingForm } from '../../features/processing/components/processing-
 import { ProcessingTable } from '../../features/processing/components/processing-table';
 import { useAbility } from '../../lib/ability';
 import { useSession } from '../../lib/session';
+import { useFarmToday } from '../../features/farms/hooks/use-farm-today';
 
 export async function loader() {
   await queryClient.ensureQueryData(processingQueryOptions());
@@ -26,7 +27,8 @@ export function ProcessingPage() {
   const unit = useWeightUnit();
   const { data } = useProcessing();
   const subjects = useFarmSubjects();
-  const today = data?.today ?? new Date().toISOString().slice(0, 10);
+  const fallbackToday = useFarmToday();
+  const today = data?.today ?? fallbackToday;
   return (
     <div className="space-y-6">
       <PageTitle>Processing</PageTitle>

@@ -1,7 +1,7 @@
 import { useQuery } from '@tanstack/react-query';
 import { useState, type FormEvent } from 'react';
 import {
-  ErrorCode, gramsToWeightInput, todayIn, weightInputToGrams,
+  ErrorCode, gramsToWeightInput, weightInputToGrams,
   type FeedAllocationRule, type FeedOverviewDto, type FeedPurchaseDto, type FeedTarget, type FeedUseDto, type WeightUnit,
 } from '@burrowline/shared';
 import { Alert } from '../../../components/ui/alert';
@@ -10,6 +10,7 @@ import { SelectField } from '../../../components/ui/select-field';
 import { TextField } from '../../../components/ui/text-field';
 import { isApiError } from '../../../lib/api-client';
 import { formatDate } from '../../almanac/almanac-dates';
+import { useFarmToday } from '../../farms/hooks/use-farm-today';
 import { breedingStockQueryOptions } from '../../almanac/api/get-breeding-stock';
 import { groupsQueryOptions } from '../../growout/api/get-groups';
 import { WeightInput } from '../../growout/components/weight-input';
@@ -18,7 +19,6 @@ import { housingUnitsQueryOptions } from '../../litters/api/housing';
 import { useCorrectFeedUse, useCorrectPurchase, useRecordFeedUse, useRecordPurchase } from '../api/record-feed';
 
 const fieldError = (error: unknown, field: string) => (isApiError(error) ? error.details[field]?.[0] : undefined);
-const localToday = () => todayIn(Intl.DateTimeFormat().resolvedOptions().timeZone);
 
 /**
  * A refusal that no field of the form shows: what a change would leave uncovered in the feed book (the
@@ -53,7 +53,8 @@ export function PurchaseForm({ unit, editing, onDone }: { unit: WeightUnit } & C
   const correct = useCorrectPurchase();
   const save = editing ? correct : record;
   const bagStart = editing ? gramsToWeightInput(editing.bagGrams, unit) : { major: unit === 'lb_oz' ? '50' : '25', minor: '' };
-  const [on, setOn] = useState(() => editing?.boughtOn ?? localToday());
+  const today = useFarmToday();
+  const [on, setOn] = useState(editing?.boughtOn ?? today);
   const [product, setProduct] = useState(editing?.productName ?? '');
   const [bagMajor, setBagMajor] = useState(bagStart.major);
   const [bagMinor, setBagMinor] = useState(bagStart.minor);
@@ -111,7 +112,8 @@ export function FeedUseForm({ book, unit, editing, onDone }: { book: FeedOvervie
   const housing = useQuery(housingUnitsQueryOptions());
   const stock = useQuery(breedingStockQueryOptions());
   const amountStart = editing ? gramsToWeightInput(editing.grams, unit) : { major: '', minor: '' };
-  const [on, setOn] = useState(() => editing?.givenOn ?? localToday());
+  const today = useFarmToday();
+  const [on, setOn] = useState(editing?.givenOn ?? today);
   const [fromOn, setFromOn] = useState(editing && editing.fromOn !== editing.givenOn ? editing.fromOn : '');
   const [major, setMajor] = useState(amountStart.major);
   const [minor, setMinor] = useState(amountStart.minor);

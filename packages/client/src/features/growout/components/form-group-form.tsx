@@ -1,6 +1,7 @@
 import { useState, type FormEvent } from 'react';
 import { useNavigate } from 'react-router-dom';
-import { ErrorCode, gramsToWeightInput, todayIn, weightInputToGrams, type WeightUnit } from '@burrowline/shared';
+import { ErrorCode, gramsToWeightInput, weightInputToGrams, type WeightUnit } from '@burrowline/shared';
+import { useFarmToday } from '../../farms/hooks/use-farm-today';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { SelectField } from '../../../components/ui/select-field';
@@ -13,7 +14,6 @@ import { useFormGroup } from '../api/group-mutations';
 import { WeightInput } from './weight-input';
 
 const fieldError = (error: unknown, field: string) => (isApiError(error) ? error.details[field]?.[0] : undefined);
-const localToday = () => todayIn(Intl.DateTimeFormat().resolvedOptions().timeZone);
 
 /** Forms a group from kits of one or more weaned litters (or litters at weaning age). */
 export function FormGroupForm({ unit, defaultTargetGrams }: { unit: WeightUnit; defaultTargetGrams: number }) {
@@ -22,7 +22,7 @@ export function FormGroupForm({ unit, defaultTargetGrams }: { unit: WeightUnit; 
   const save = useFormGroup();
   const navigate = useNavigate();
   const [name, setName] = useState('');
-  const [formedOn, setFormedOn] = useState(localToday);
+  const [formedOn, setFormedOn] = useState(useFarmToday());
   const initial = gramsToWeightInput(defaultTargetGrams, unit);
   const [targetMajor, setTargetMajor] = useState(initial.major);
   const [targetMinor, setTargetMinor] = useState(initial.minor);

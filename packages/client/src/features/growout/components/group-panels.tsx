@@ -1,5 +1,5 @@
 import { useState, type FormEvent } from 'react';
-import { ErrorCode, todayIn, weightInputToGrams, type GrowOutGroupDto, type ScheduledWeighInState, type WeightUnit } from '@burrowline/shared';
+import { ErrorCode, weightInputToGrams, type GrowOutGroupDto, type ScheduledWeighInState, type WeightUnit } from '@burrowline/shared';
 import { Alert } from '../../../components/ui/alert';
 import { Badge, type BadgeTone } from '../../../components/ui/badge';
 import { Button } from '../../../components/ui/button';
@@ -7,12 +7,12 @@ import { SegmentedFilter } from '../../../components/ui/segmented-filter';
 import { TextField } from '../../../components/ui/text-field';
 import { isApiError } from '../../../lib/api-client';
 import { formatDate } from '../../almanac/almanac-dates';
+import { useFarmToday } from '../../farms/hooks/use-farm-today';
 import { useCloseGroup, useReviewGroupWeighIn, useWeighGroup } from '../api/group-mutations';
 import { gainPerDay, useMoney, weight } from '../growout-format';
 import { WeightInput } from './weight-input';
 
 const fieldError = (error: unknown, field: string) => (isApiError(error) ? error.details[field]?.[0] : undefined);
-const localToday = () => todayIn(Intl.DateTimeFormat().resolvedOptions().timeZone);
 
 const scheduleWords: Record<ScheduledWeighInState, { word: string; tone: BadgeTone }> = {
   weighed: { word: 'Weighed', tone: 'moss' },
@@ -72,7 +72,7 @@ export function ProjectionCard({ group, unit }: { group: GrowOutGroupDto; unit: 
 export function GroupWeighInForm({ group, unit, isApprentice }: { group: GrowOutGroupDto; unit: WeightUnit; isApprentice: boolean }) {
   const save = useWeighGroup();
   const [mode, setMode] = useState<'total' | 'each'>('total');
-  const [on, setOn] = useState(localToday);
+  const [on, setOn] = useState(useFarmToday());
   const [major, setMajor] = useState('');
   const [minor, setMinor] = useState('');
   const [count, setCount] = useState(String(group.currentHeads));
@@ -241,7 +241,7 @@ export function FeedPanel({ group, unit }: { group: GrowOutGroupDto; unit: Weigh
 /** Closes the group on a date (kits processed, sold or kept); a second editor's change first is caught by the version. */
 export function CloseGroupForm({ group }: { group: GrowOutGroupDto }) {
   const save = useCloseGroup();
-  const [on, setOn] = useState(localToday);
+  const [on, setOn] = useState(useFarmToday());
   return (
     <form
       className="flex flex-wrap items-end gap-3"

@@ -1,6 +1,6 @@
 import { useState, type FormEvent } from 'react';
 import { useNavigate } from 'react-router-dom';
-import { ErrorCode, todayIn, type AnimalCreateBody, type AnimalDetailDto, type AnimalUpdateBody, type BreedDto } from '@burrowline/shared';
+import { ErrorCode, type AnimalCreateBody, type AnimalDetailDto, type AnimalUpdateBody, type BreedDto } from '@burrowline/shared';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { LinkButton } from '../../../components/ui/link-button';
@@ -11,6 +11,7 @@ import { TextField } from '../../../components/ui/text-field';
 import { isApiError } from '../../../lib/api-client';
 import { useSaveAnimal } from '../api/save-animal';
 import { ParentPicker, type ParentChoice } from './parent-picker';
+import { useFarmToday } from '../../farms/hooks/use-farm-today';
 
 interface Fields {
   tattoo: string;
@@ -27,7 +28,7 @@ interface Fields {
   notes: string;
 }
 
-function initialFields(animal: AnimalDetailDto | null): Fields {
+function initialFields(animal: AnimalDetailDto | null, today: string): Fields {
   return {
     tattoo: animal?.tattoo ?? '',
     name: animal?.name ?? '',
@@ -36,7 +37,7 @@ function initialFields(animal: AnimalDetailDto | null): Fields {
     colour: animal?.colour ?? '',
     birthDate: animal?.birthDate ?? '',
     origin: 'born_here',
-    arrivedOn: todayIn(Intl.DateTimeFormat().resolvedOptions().timeZone),
+    arrivedOn: today,
     breederName: '',
     registrationNumber: animal?.registrationNumber ?? '',
     hutch: animal?.hutch ?? '',
@@ -65,7 +66,8 @@ function parentBody(role: 'sire' | 'dam', choice: ParentChoice) {
 export function AnimalForm({ animal, breeds }: { animal: AnimalDetailDto | null; breeds: BreedDto[] }) {
   const navigate = useNavigate();
   const save = useSaveAnimal(animal?.id ?? null);
-  const [fields, setFields] = useState<Fields>(() => initialFields(animal));
+  const today = useFarmToday();
+  const [fields, setFields] = useState<Fields>(() => initialFields(animal, today));
   const [sire, setSire] = useState<ParentChoice>(() => initialParent(animal?.sire));
   const [dam, setDam] = useState<ParentChoice>(() => initialParent(animal?.dam));
   const set = <K extends keyof Fields>(key: K, value: Fields[K]) => setFields((f) => ({ ...f, [key]: value }));

@@ -1,11 +1,12 @@
 import { useState, type FormEvent } from 'react';
-import { dispositions, lifecycles, poundsToGrams, todayIn, type StatusEventInput, type WeightUnit } from '@burrowline/shared';
+import { dispositions, lifecycles, poundsToGrams, type StatusEventInput, type WeightUnit } from '@burrowline/shared';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { SelectField } from '../../../components/ui/select-field';
 import { TextAreaField } from '../../../components/ui/text-area-field';
 import { TextField } from '../../../components/ui/text-field';
 import { isApiError } from '../../../lib/api-client';
+import { useFarmToday } from '../../farms/hooks/use-farm-today';
 import { useCreateWeighIn } from '../api/create-weigh-in';
 import { useAddAnimalNote, useRecordStatus } from '../api/record-entries';
 import { dispositionLabels, lifecycleLabels } from '../herd-labels';
@@ -14,16 +15,12 @@ function fieldError(error: unknown, field: string): string | undefined {
   return isApiError(error) ? error.details[field]?.[0] : undefined;
 }
 
-function localToday(): string {
-  return todayIn(Intl.DateTimeFormat().resolvedOptions().timeZone);
-}
-
 /** A weigh-in in the farm's own units; an apprentice's waits for the mentor's review. */
 export function WeighInForm({ animalId, unit, isApprentice }: { animalId: string; unit: WeightUnit; isApprentice: boolean }) {
   const save = useCreateWeighIn(animalId);
   const [major, setMajor] = useState('');
   const [minor, setMinor] = useState('');
-  const [on, setOn] = useState(localToday);
+  const [on, setOn] = useState(useFarmToday());
   const [problem, setProblem] = useState<string | null>(null);
 
   const submit = (event: FormEvent) => {
@@ -63,9 +60,10 @@ export function WeighInForm({ animalId, unit, isApprentice }: { animalId: string
 export function NoteForm({ animalId, isApprentice }: { animalId: string; isApprentice: boolean }) {
   const save = useAddAnimalNote(animalId);
   const [body, setBody] = useState('');
+  const today = useFarmToday();
   const submit = (event: FormEvent) => {
     event.preventDefault();
-    save.mutate({ body, notedOn: localToday() }, { onSuccess: () => setBody('') });
+    save.mutate({ body, notedOn: today }, { onSuccess: () => setBody('') });
   };
   return (
     <form onSubmit={submit} noValidate className="space-y-3" aria-label="Add a note">
@@ -84,7 +82,7 @@ export function StatusForm({ animalId }: { animalId: string }) {
   const [kind, setKind] = useState<StatusEventInput['kind']>('lifecycle');
   const [value, setValue] = useState<string>('breeding');
   const [cause, setCause] = useState('');
-  const [on, setOn] = useState(localToday);
+  const [on, setOn] = useState(useFarmToday());
   const options = kind === 'lifecycle'
     ? lifecycles.map((v) => ({ value: v, label: lifecycleLabels[v] }))
     : dispositions.filter((d) => d !== 'transferred').map((v) => ({ value: v, label: dispositionLabels[v] }));
