@@ -9,10 +9,11 @@
  */
 import type { Transaction } from 'sequelize';
 import {
-  addDays, daysBetween, feedPurchaseCreateSchema, feedUseCreateSchema, gompertzWeight, groupWeighInCreateSchema, growOutGroupCloseSchema,
+  addDays, crossLabel, daysBetween, feedPurchaseCreateSchema, feedUseCreateSchema, gompertzWeight, groupWeighInCreateSchema, growOutGroupCloseSchema,
   growOutGroupCreateSchema, referenceCurve, todayIn, type FeedUseCreateInput,
 } from '@burrowline/shared';
 import type { SessionUser } from '../packages/server/src/http/passport';
+import { animalFactsOf } from '../packages/server/src/modules/animals/animals.service';
 import { recordFeedPurchaseIn, recordFeedUseIn } from '../packages/server/src/modules/feed/feed.service';
 import { closeGroupIn, formGroupIn, groupsOfFarm, weighGroupIn } from '../packages/server/src/modules/growout/growout.service';
 import { farmLitterFactsOf, type LitterFacts } from '../packages/server/src/modules/litters/litter-facts.service';
@@ -65,11 +66,14 @@ export async function loadDemoGrowOut(ctx: DemoGrowOutContext, tx: Transaction):
       .filter((l) => l.weaned > 0 && l.weanedOn && l.kindledOn >= yearAgo && l.weanedOn <= today)
       .sort((a, b) => a.kindledOn.localeCompare(b.kindledOn));
 
-    // Litters kindled within a week of each other are grown out together.
+    // Litters of one breed or cross kindled within a week of each other are grown out together, so each
+    // group counts for its breed or cross in the comparison.
+    const parents = await animalFactsOf(tx, ctx.coopId, litters.flatMap((l) => [l.sireId, l.damId]));
+    const crossOf = (l: LitterFacts) => crossLabel(parents.get(l.sireId)?.lineBreedName, parents.get(l.damId)?.lineBreedName).key;
     const clusters: LitterFacts[][] = [];
     for (const l of litters) {
-      const last = clusters.at(-1);
-      if (last && daysBetween(last[0]!.kindledOn, l.kindledOn) <= 7 && last.length < 3) last.push(l);
+      const open = clusters.find((c) => crossOf(c[0]!) === crossOf(l) && daysBetween(c[0]!.kindledOn, l.kindledOn) <= 7 && c.length < 3);
+      if (open) open.push(l);
       else clusters.push([l]);
     }
 

@@ -2,11 +2,11 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { addDays, RealtimeEvent, type GrowOutGroupDto, type GrowOutListDto, type LitterChoiceDto } from '@burrowline/shared';
 import { withTenant } from '../../packages/server/src/db/tenant';
 import { growOutFactsOfFarm, groupsOfFarm } from '../../packages/server/src/modules/growout/growout.service';
-import { daysAgo, farmToday, taskRows } from '../support/almanac';
+import { daysAgo, farmToday, kindlingAs, serviceAs, taskRows } from '../support/almanac';
 import { asTenant } from '../support/db';
 import { createTestCoop, TEST_PASSWORD } from '../support/factories';
 import { breedLitterAs, feedAs, grownLitterAs, groupAs, growOutCounts, purchaseAs, weighGroupAs } from '../support/growout';
-import { catalogueBreeds } from '../support/herd';
+import { addAnimalAs, catalogueBreeds } from '../support/herd';
 import { liveTestServer } from '../support/sockets';
 import { agentFor, ROOMY_SIGN_IN, signedInAgent, testApp } from '../support/test-app';
 
@@ -38,6 +38,30 @@ async function weighedGroup(coop: Awaited<ReturnType<typeof createTestCoop>>, op
 }
 
 describe('forming grow-out groups', () => {
+  it('when a home-bred buck has no breed recorded but both his parents are Silver Fox, then his litter with a New Zealand doe is named a New Zealand-dam cross; a buck of unknown parents stays unknown', async () => {
+    const coop = await createTestCoop();
+    const breeds = await catalogueBreeds(coop.id);
+    const fox = breeds['Silver Fox']!.id;
+    const nz = breeds['New Zealand']!.id;
+    const sire = await addAnimalAs(coop.member, { sex: 'buck', name: 'Old Slate', birthDate: '2021-03-01', breedId: fox });
+    const dam = await addAnimalAs(coop.member, { sex: 'doe', name: 'Misty', birthDate: '2021-04-01', breedId: fox });
+    // The son: parents recorded, his own breed left blank (as home-bred stock often is).
+    const son = await addAnimalAs(coop.member, { sex: 'buck', name: 'Thistle', birthDate: '2023-02-01', breedId: null, sireId: sire.id, damId: dam.id });
+    const stray = await addAnimalAs(coop.member, { sex: 'buck', name: 'Auction buck', birthDate: '2023-02-01', breedId: null });
+    const doe = await addAnimalAs(coop.member, { sex: 'doe', name: 'Willow', birthDate: '2023-01-10', breedId: nz });
+    const doe2 = await addAnimalAs(coop.member, { sex: 'doe', name: 'Fern', birthDate: '2023-01-10', breedId: nz });
+    const litterOf = async (buckId: string, doeId: string) => {
+      const service = await serviceAs(coop.member, { doeId, buckId, servicedOn: daysAgo(71) });
+      return kindlingAs(coop.member, { serviceId: service.id, kindledOn: daysAgo(40), bornAlive: 6, bornDead: 0 });
+    };
+    const known = await litterOf(son.id, doe.id);
+    const unknown = await litterOf(stray.id, doe2.id);
+    const named = await groupAs(coop.member, { name: 'Fox cross', formedOn: farmToday(), targetGrams: 2270, litters: [{ litterId: known.id, heads: 6 }] });
+    const unnamed = await groupAs(coop.member, { name: 'Auction cross', formedOn: farmToday(), targetGrams: 2270, litters: [{ litterId: unknown.id, heads: 6 }] });
+    expect(named.crossLabel).toBe('Silver Fox × New Zealand');
+    expect(unnamed.crossLabel).toBe('Unknown ancestry');
+  });
+
   it('when a member forms a group from two litters at weaning age, then its make-up, cross, birth date and rows are stored', async () => {
     const coop = await createTestCoop();
     const breeds = await catalogueBreeds(coop.id);

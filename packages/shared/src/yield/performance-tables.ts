@@ -32,6 +32,7 @@ export interface PerformanceAnimal {
   name: string;
   tattoo: string | null;
   sex: 'buck' | 'doe';
+  /** The recorded breed, or the one breed its whole pedigree is of (crosses are named from it). */
   breedName: string | null;
   /** Still kept on the farm (suggestions are only for these). */
   onFarm: boolean;

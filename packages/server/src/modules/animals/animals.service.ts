@@ -600,6 +600,11 @@ export interface AnimalFacts {
   birthDate: string | null;
   breedId: string | null;
   breedName: string | null;
+  /**
+   * The breed as a cross is named by: the recorded breed, else the one breed its whole known pedigree is
+   * of (a home-bred kit of two recorded New Zealands is a New Zealand); null when neither says.
+   */
+  lineBreedName: string | null;
   /** The breed's earliest usual first-breeding ages, days (null: breed unknown). */
   firstBreedingMinDays: { doe: number; buck: number } | null;
   breedingFarmId: string | null;
@@ -609,6 +614,12 @@ export interface AnimalFacts {
   disposition: Disposition;
   sireId: string | null;
   damId: string | null;
+}
+
+function wholeBreedOf(row: AnimalRow, breeds: Map<string, { name: string }>): string | null {
+  if (row.purity !== 'purebred' || !row.makeup_breeds) return null;
+  const [only, ...others] = Object.keys(row.makeup_breeds);
+  return only && others.length === 0 ? breeds.get(only)?.name ?? null : null;
 }
 
 async function factsOfRows(tx: Transaction, coopId: string, rows: AnimalRow[]): Promise<AnimalFacts[]> {
@@ -626,6 +637,7 @@ async function factsOfRows(tx: Transaction, coopId: string, rows: AnimalRow[]): 
       birthDate: row.birth_date,
       breedId: row.breed_id,
       breedName: breed?.name ?? null,
+      lineBreedName: breed?.name ?? wholeBreedOf(row, breeds),
       firstBreedingMinDays: breed ? { doe: breed.firstBreedingDays.doe.min, buck: breed.firstBreedingDays.buck.min } : null,
       breedingFarmId: row.breeding_farm_id,
       owningFarmId: row.owning_farm_id,

@@ -197,7 +197,7 @@ async function contextOf(tx: Transaction, coopId: string, groups: GrowOutGroup[]
   const parents = await animalFactsOf(tx, coopId, [...litters.values()].flatMap((l) => [l.damId, l.sireId]));
   const breeds = await breedMapOf(coopId, tx);
   const weighIns = await groupWeighInsOf(tx, coopId, groups.map((g) => g.id));
-  const crossOf = (l: LitterFacts) => crossLabel(parents.get(l.sireId)?.breedName, parents.get(l.damId)?.breedName);
+  const crossOf = (l: LitterFacts) => crossLabel(parents.get(l.sireId)?.lineBreedName, parents.get(l.damId)?.lineBreedName);
   const cache = new Map<string, GroupInfo>();
   const info = (group: GrowOutGroup): GroupInfo => {
     const hit = cache.get(group.id);
@@ -437,7 +437,7 @@ export async function litterChoices(actor: SessionUser): Promise<{ litters: Litt
       return {
         litterId: l.id, kindledOn: l.kindledOn, ageDays: daysBetween(l.kindledOn, today),
         dam: { id: l.damId, name: parents.get(l.damId)?.name ?? 'Unknown doe' }, sire: { id: l.sireId, name: parents.get(l.sireId)?.name ?? 'Unknown buck' },
-        crossLabel: crossLabel(parents.get(l.sireId)?.breedName, parents.get(l.damId)?.breedName).label,
+        crossLabel: crossLabel(parents.get(l.sireId)?.lineBreedName, parents.get(l.damId)?.lineBreedName).label,
         alive: l.alive, inGroups, available: Math.max(l.alive - inGroups, 0), weaned: l.weaned > 0,
       };
     }).filter((c) => c.available > 0 && (c.weaned || c.ageDays >= EARLIEST_GROW_OUT_AGE_DAYS));

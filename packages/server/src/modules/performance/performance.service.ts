@@ -32,7 +32,7 @@ export async function farmPerformance(actor: SessionUser, q: PerformanceQuery): 
     const processedIds = (sources.processing ?? []).filter((r) => r.animalId && !r.groupId).map((r) => r.animalId!);
     const facts = await animalFactsOf(tx, actor.coopId, [...services.flatMap((s) => [s.doeId, s.buckId]), ...litters.flatMap((l) => [l.damId, l.sireId]), ...processedIds]);
     const animals: PerformanceAnimal[] = [...facts.values()].map((a) => ({
-      id: a.id, name: a.name, tattoo: a.tattoo, sex: a.sex, breedName: a.breedName,
+      id: a.id, name: a.name, tattoo: a.tattoo, sex: a.sex, breedName: a.lineBreedName,
       onFarm: a.keepingFarmId === farmId && a.disposition === 'on_farm',
     }));
     const tables = performanceTables({
