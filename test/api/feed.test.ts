@@ -229,6 +229,9 @@ describe('correcting the feed book', () => {
     expect(book.uses[0]!.costCents).toBe(1000); // 4,000 g × 2,500 ¢ ÷ 10,000 g
     const group = (await agent.get(`/api/grow-out/groups/${big.id}`)).body as GrowOutGroupDto;
     expect(group.feed).toMatchObject({ feedGrams: 4000, feedCostCents: 1000 });
+    // The price corrected away is kept in the record's history.
+    const history = await asTenant(coop.id, async (c) => (await c.query(`SELECT changes, actor_user_id FROM record_changes WHERE record_id = $1`, [purchase.id])).rows);
+    expect(history).toEqual([{ changes: { priceCents: [1000, 2500], crudeProteinPercent: [null, 16] }, actor_user_id: coop.member.id }]);
     const stale = await agent.put(`/api/feed/purchases/${purchase.id}`).send({ ...body, priceCents: 1, version: purchase.version });
     expect(stale.status).toBe(409);
     expect(stale.body.error.code).toBe('stale_version');

@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import type { Transaction } from 'sequelize';
 import {
-  addDays, allocateByHeadDays, formatWeight, allocateByLiveWeight, centsPerKg, checkFeedUses, daysBetween, defineAbilityFor, ErrorCode,
+  addDays, allocateByHeadDays, allocateByLiveWeight, centsPerKg, checkFeedUses, daysBetween, defineAbilityFor, ErrorCode, formatWeight,
   gompertzWeight, MATURE_WEIGHT_PRIORS, RealtimeEvent, referenceCurve, rooms, subjectOf, todayIn,
   type FeedOverviewDto, type FeedPurchaseCreateInput, type FeedPurchaseUpdateInput, type FeedUseCreateInput, type FeedUseDto,
   type FeedUseUpdateInput,
@@ -18,6 +18,7 @@ import { namesOf } from '../users/users.service';
 import { FeedPurchase, FeedUse, FeedUseShare } from './feed.model';
 import { feedKeyOf, feedLedgerOf, feedTotalsByLitter, purchaseFact, sharesWithCost, useFact } from './feed-totals.service';
 import { lockUntilCommit } from '../../db/advisory-lock';
+import { recordChanges } from '../audit/audit.service';
 
 /** Feed given to a doe and her litter from kindling to weaning (doe-level and hutch/pen feed), by litter id. */
 export async function doeLitterFeedOfFarm(tx: Transaction, coopId: string, farmId: string): Promise<Map<string, { grams: number; costCents: number }>> {
@@ -315,7 +316,13 @@ export async function correctFeedPurchase(actor: SessionUser, purchaseId: string
     const purchase = await purchaseToChange(tx, actor, farmId, purchaseId, input.version);
     if (input.boughtOn > (await farmToday(tx, actor.coopId, farmId))) throw AppError.validation({ boughtOn: ['A purchase cannot be dated in the future'] });
     const { version: _seen, ...fields } = input;
-    await purchase.update({ ...fields, crudeProteinPercent: fields.crudeProteinPercent ?? null }, { transaction: tx });
+    const corrected = { ...fields, crudeProteinPercent: fields.crudeProteinPercent ?? null };
+    // The values corrected away stay in the audit log: a price once entered is not lost.
+    const changes = Object.fromEntries(
+      (Object.keys(corrected) as (keyof typeof corrected)[]).filter((k) => purchase.get(k) !== corrected[k]).map((k): [string, [unknown, unknown]] => [k, [purchase.get(k), corrected[k]]]),
+    );
+    await purchase.update(corrected, { transaction: tx });
+    if (Object.keys(changes).length > 0) await recordChanges({ coopId: actor.coopId, tableName: 'feed_purchases', recordId: purchase.id, actorUserId: actor.id, changes }, tx);
     const problems = await uncoveredFeedGiven(tx, actor.coopId, farmId);
     if (problems.length > 0) throw AppError.validation({ grams: problems });
     announce(tx, farmId);
