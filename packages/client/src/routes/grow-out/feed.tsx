@@ -17,6 +17,9 @@ export async function loader() {
   return null;
 }
 
+/** A line of the feed book a member may correct or remove. */
+type BookEntry = { purchase: FeedPurchaseDto } | { use: FeedUseDto };
+
 const allocationWords = { head_days: 'split by head-days', live_weight: 'split by live weight' } as const;
 
 /** /grow-out/feed: feed bought and feed given, with the stock left in each purchase. */
@@ -26,20 +29,19 @@ export function FeedPage() {
   const money = useMoney();
   const [allUses, setAllUses] = useState(false);
   const uses = allUses ? book.uses : book.uses.slice(0, 25);
-  const [correcting, setCorrecting] = useState<{ purchase: FeedPurchaseDto } | { use: FeedUseDto } | null>(null);
+  const [correcting, setCorrecting] = useState<BookEntry | null>(null);
   const [confirming, setConfirming] = useState<string | null>(null);
   const removePurchase = useRemovePurchase();
   const removeUse = useRemoveFeedUse();
   const purchaseCard = useRef<HTMLDivElement>(null);
   const useCard = useRef<HTMLDivElement>(null);
-  const startCorrecting = (entry: { purchase: FeedPurchaseDto } | { use: FeedUseDto }) => setCorrecting(entry);
   const editingPurchase = correcting && 'purchase' in correcting ? correcting.purchase : undefined;
   const editingUse = correcting && 'use' in correcting ? correcting.use : undefined;
   // The form being corrected comes into view (on a phone the two forms are stacked far above the lists).
   useEffect(() => {
     if (correcting) ('purchase' in correcting ? purchaseCard : useCard).current?.scrollIntoView({ behavior: 'smooth', block: 'start' });
   }, [correcting]);
-  const entryActions = (entry: { purchase: FeedPurchaseDto } | { use: FeedUseDto }, what: string) => {
+  const entryActions = (entry: BookEntry, what: string) => {
     const { id, version } = 'purchase' in entry ? entry.purchase : entry.use;
     const remove = 'purchase' in entry ? removePurchase : removeUse;
     return confirming === id ? (
@@ -51,7 +53,7 @@ export function FeedPage() {
       </span>
     ) : (
       <span className="flex flex-wrap gap-1">
-        <Button variant="quiet" className="px-2" onClick={() => startCorrecting(entry)}>
+        <Button variant="quiet" className="px-2" onClick={() => setCorrecting(entry)}>
           Correct<span className="sr-only"> {what}</span>
         </Button>
         <Button variant="quiet" className="px-2" onClick={() => { removePurchase.reset(); removeUse.reset(); setConfirming(id); }}>
