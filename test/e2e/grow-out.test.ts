@@ -94,6 +94,7 @@ describe('grow-out: a member weighs a group, records feed and reads the breed co
       await correction.getByLabel('Amount (lb)').fill('25');
       await page.screenshot({ path: '.data/e2e-growout-feed-correction.png', fullPage: true });
       await correction.getByRole('button', { name: 'Save correction' }).click();
+      await page.getByText(/^Correction saved/).waitFor();
       await page.getByRole('form', { name: 'Record feed given' }).waitFor();
       const feedRows = async () => (await asTenant(coop.id, async (c) => (await c.query(`SELECT grams, deleted_at IS NOT NULL AS deleted FROM feed_uses WHERE coop_id = $1 ORDER BY deleted_at NULLS LAST`, [coop.id])).rows));
       await expect.poll(feedRows).toEqual([{ grams: 13608, deleted: true }, { grams: 11340, deleted: false }]); // 25 lb = 11,339.81 g

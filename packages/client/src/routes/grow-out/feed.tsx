@@ -1,6 +1,7 @@
 import { useEffect, useRef, useState } from 'react';
 import { centsPerLb, type FeedPurchaseDto, type FeedUseDto } from '@burrowline/shared';
 import { queryClient } from '../../app/query-client';
+import { Alert } from '../../components/ui/alert';
 import { Button } from '../../components/ui/button';
 import { Card } from '../../components/ui/card';
 import { PageHeader } from '../../components/ui/page-header';
@@ -31,6 +32,11 @@ export function FeedPage() {
   const uses = allUses ? book.uses : book.uses.slice(0, 25);
   const [correcting, setCorrecting] = useState<BookEntry | null>(null);
   const [confirming, setConfirming] = useState<string | null>(null);
+  const [corrected, setCorrected] = useState(false);
+  const doneCorrecting = (saved: boolean) => {
+    setCorrected(saved);
+    setCorrecting(null);
+  };
   const removePurchase = useRemovePurchase();
   const removeUse = useRemoveFeedUse();
   const purchaseCard = useRef<HTMLDivElement>(null);
@@ -53,7 +59,7 @@ export function FeedPage() {
       </span>
     ) : (
       <span className="flex flex-wrap gap-1">
-        <Button variant="quiet" className="px-2" onClick={() => setCorrecting(entry)}>
+        <Button variant="quiet" className="px-2" onClick={() => { setCorrected(false); setCorrecting(entry); }}>
           Correct<span className="sr-only"> {what}</span>
         </Button>
         <Button variant="quiet" className="px-2" onClick={() => { removePurchase.reset(); removeUse.reset(); setConfirming(id); }}>
@@ -77,18 +83,19 @@ export function FeedPage() {
           ))
         )}
       </section>
+      {corrected && <Alert tone="success">Correction saved: the stock, costs and the groups' feed follow it.</Alert>}
       {book.canEdit && (
         <div className="grid gap-6 lg:grid-cols-2">
           <Card ref={purchaseCard} className={editingPurchase ? 'scroll-mt-4 ring-2 ring-straw' : 'scroll-mt-4'}>
             <h2 className="mb-3 text-lg font-semibold">{editingPurchase ? `Correct the purchase of ${formatDate(editingPurchase.boughtOn)}` : 'Feed bought'}</h2>
-            <PurchaseForm key={editingPurchase ? `${editingPurchase.id}:${editingPurchase.version}` : 'new'} unit={unit} editing={editingPurchase} onDone={() => setCorrecting(null)} />
+            <PurchaseForm key={editingPurchase ? `${editingPurchase.id}:${editingPurchase.version}` : 'new'} unit={unit} editing={editingPurchase} onDone={doneCorrecting} />
           </Card>
           <Card ref={useCard} className={editingUse ? 'scroll-mt-4 ring-2 ring-straw' : 'scroll-mt-4'}>
             <h2 className="mb-3 text-lg font-semibold">{editingUse ? `Correct the feed given on ${formatDate(editingUse.givenOn)}` : 'Feed given'}</h2>
             {book.products.length === 0 ? (
               <p className="text-grey-600">Record a purchase first: feed cannot be given before it was bought.</p>
             ) : (
-              <FeedUseForm key={editingUse ? `${editingUse.id}:${editingUse.version}` : 'new'} book={book} unit={unit} editing={editingUse} onDone={() => setCorrecting(null)} />
+              <FeedUseForm key={editingUse ? `${editingUse.id}:${editingUse.version}` : 'new'} book={book} unit={unit} editing={editingUse} onDone={doneCorrecting} />
             )}
           </Card>
         </div>

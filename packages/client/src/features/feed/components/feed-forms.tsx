@@ -44,7 +44,8 @@ export function BookProblems({ error, listed = [] }: { error: unknown; listed?: 
 interface CorrectionProps<T> {
   /** The entry being corrected; without it the form records a new one. */
   editing?: T;
-  onDone?: () => void;
+  /** Called with true once the correction is saved, false when it is given up. */
+  onDone?: (saved: boolean) => void;
 }
 
 /** Feed bought: the bag weight in the farm's units, stored in grams; the price in cents. */
@@ -70,7 +71,7 @@ export function PurchaseForm({ unit, editing, onDone }: { unit: WeightUnit } & C
     if (price.trim() === '' || !Number.isFinite(priceCents)) return setProblem('Enter what was paid');
     setProblem(null);
     const body = { boughtOn: on, productName: product, bagGrams, bags: Number(bags), priceCents, crudeProteinPercent: protein.trim() === '' ? null : Number(protein), note: editing?.note ?? '' };
-    if (editing) correct.mutate({ id: editing.id, body: { ...body, version: editing.version } }, { onSuccess: () => onDone?.() });
+    if (editing) correct.mutate({ id: editing.id, body: { ...body, version: editing.version } }, { onSuccess: () => onDone?.(true) });
     else record.mutate(body, { onSuccess: () => { setPrice(''); setProduct(''); } });
   };
   return (
@@ -88,7 +89,7 @@ export function PurchaseForm({ unit, editing, onDone }: { unit: WeightUnit } & C
         <Button type="submit" isBusy={save.isPending}>
           {editing ? 'Save correction' : 'Save purchase'}
         </Button>
-        {editing && <Button variant="secondary" onClick={onDone}>Cancel</Button>}
+        {editing && <Button variant="secondary" onClick={() => onDone?.(false)}>Cancel</Button>}
       </div>
       {save.isSuccess && <Alert tone="success">Purchase saved.</Alert>}
       <BookProblems error={save.error} listed={['grams']} />
@@ -144,7 +145,7 @@ export function FeedUseForm({ book, unit, editing, onDone }: { book: FeedOvervie
       ...(target === 'doe' ? { doeId: doeId || doeOptions[0]?.value } : {}),
       ...(target === 'pen' || target === 'farm' ? { allocation } : {}),
     };
-    if (editing) correct.mutate({ id: editing.id, body: { ...body, version: editing.version } }, { onSuccess: () => onDone?.() });
+    if (editing) correct.mutate({ id: editing.id, body: { ...body, version: editing.version } }, { onSuccess: () => onDone?.(true) });
     else record.mutate(body, { onSuccess: () => { setMajor(''); setMinor(''); } });
   };
   return (
@@ -184,7 +185,7 @@ export function FeedUseForm({ book, unit, editing, onDone }: { book: FeedOvervie
         <Button type="submit" isBusy={save.isPending}>
           {editing ? 'Save correction' : 'Save feed given'}
         </Button>
-        {editing && <Button variant="secondary" onClick={onDone}>Cancel</Button>}
+        {editing && <Button variant="secondary" onClick={() => onDone?.(false)}>Cancel</Button>}
       </div>
       {save.isSuccess && <Alert tone="success">Feed given saved.</Alert>}
       <BookProblems error={save.error} />
