@@ -15,7 +15,7 @@ import { randomUUID } from 'node:crypto';
 import { performance } from 'node:perf_hooks';
 import {
   addDays, CSRF_HEADER, lastTwelveMonths, performanceTables, todayIn,
-  type LitterEvent, type PerformanceDto, type PerformanceInput, type ServiceOutcome,
+  type FeedOverviewDto, type LitterEvent, type PerformanceDto, type PerformanceInput, type ServiceOutcome,
 } from '@burrowline/shared';
 import { randomInt, seededRandom } from '../../packages/shared/src/pedigree/seeded-random';
 
@@ -313,6 +313,31 @@ try {
     await time('processing', () => processingFactsOfFarm(tx, coopId, farmId));
   });
   console.log(`  of which reading the sources (once each): ${parts.join(', ')}`);
+
+  // The feed book: reading it, and correcting a purchase's price (every use of that feed is costed anew and
+  // the whole book checked before the answer).
+  const feedTimes: number[] = [];
+  const correctTimes: number[] = [];
+  let book: FeedOverviewDto | null = null;
+  for (let i = 0; i < HTTP_RUNS + 1; i++) {
+    let t = performance.now();
+    const res = await fetch(`${url}/api/feed`, { headers: { cookie } });
+    if (!res.ok) throw new Error(`GET /api/feed failed: ${res.status}`);
+    book = (await res.json()) as FeedOverviewDto;
+    if (i > 0) feedTimes.push(performance.now() - t);
+    const p = book.purchases.at(-1)!;
+    t = performance.now();
+    const put = await fetch(`${url}/api/feed/purchases/${p.id}`, {
+      method: 'PUT', headers: { cookie, 'content-type': 'application/json', [CSRF_HEADER]: '1' },
+      body: JSON.stringify({ boughtOn: p.boughtOn, productName: p.productName, bagGrams: p.bagGrams, bags: p.bags, priceCents: p.priceCents! + 1, crudeProteinPercent: p.crudeProteinPercent, note: p.note, version: p.version }),
+    });
+    if (!put.ok) throw new Error(`PUT /api/feed/purchases failed: ${put.status} ${(await put.text()).slice(0, 300)}`);
+    if (i > 0) correctTimes.push(performance.now() - t);
+  }
+  console.log(
+    `  HTTP GET /api/feed (${book!.purchases.length} purchases, ${book!.uses.length} entries of feed given): median ${ms(median(feedTimes))}; `
+    + `PUT a purchase's price correction: median ${ms(median(correctTimes))} (${HTTP_RUNS} warm runs each)`,
+  );
 } finally {
   server.closeAllConnections();
   await new Promise<void>((resolve) => server.close(() => resolve()));

@@ -262,6 +262,25 @@ describe('correcting the feed book', () => {
     expect(book.purchases[0]).toMatchObject({ bagGrams: 10_000, boughtOn: purchase.boughtOn, productName: 'Grower', version: purchase.version });
   });
 
+  it('when the book already holds feed given beyond its stock (rows written around the service), then a correction or a new entry is judged only on what it changes', async () => {
+    const coop = await createTestCoop();
+    const { big, purchase } = await bookWithOneUse(coop);
+    // 20 kg given on one day from a 10 kg bag: short before any change (e.g. an old import).
+    await asTenant(coop.id, (c) => c.query(
+      `INSERT INTO feed_uses (coop_id, farm_id, given_on, from_on, grams, feed_key, target, group_id, entered_by) VALUES ($1, $2, $3, $3, 20000, 'grower', 'group', $4, $5)`,
+      [coop.id, coop.farms[0]!.id, daysAgo(1), big.id, coop.member.id],
+    ));
+    const agent = await agentOf(coop.member.email);
+    const price = await agent.put(`/api/feed/purchases/${purchase.id}`).send({ boughtOn: purchase.boughtOn, productName: 'Grower', bagGrams: 10_000, bags: 1, priceCents: 1200, version: purchase.version });
+    expect(price.status).toBe(200);
+    const given = await agent.post('/api/feed/uses').send({ givenOn: farmToday(), grams: 1000, productName: 'Grower', target: 'group', groupId: big.id });
+    expect(given.status).toBe(201);
+    // What the change itself leaves short is still refused.
+    const less = await agent.put(`/api/feed/purchases/${purchase.id}`).send({ boughtOn: purchase.boughtOn, productName: 'Grower', bagGrams: 3000, bags: 1, priceCents: 1200, version: purchase.version + 1 });
+    expect(less.status).toBe(400);
+    expect(less.body.error.details.grams.length).toBeGreaterThan(0);
+  });
+
   it('when a purchase still feeds a group, then removing it is refused (409); once that feed given is removed, the purchase goes too and both rows are kept as deleted', async () => {
     const coop = await createTestCoop();
     const { big, purchase, use } = await bookWithOneUse(coop);

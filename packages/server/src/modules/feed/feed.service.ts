@@ -253,8 +253,12 @@ export async function recordFeedUseIn(tx: Transaction, actor: SessionUser, input
     // Stock: first bought, first used, counting this entry among the others.
     const useId = input.id ?? randomUUID();
     if (feedKey && !errors.givenOn && !errors.purchaseId) {
+      const purchases = ledger.purchases.map(purchaseFact);
       const uses = [...ledger.uses.map(useFact), { id: useId, feedId: feedKey, givenOn: input.givenOn, grams: input.grams }];
-      for (const issue of checkFeedUses(ledger.purchases.map(purchaseFact), uses, await farmWeightShown(tx, actor.coopId, farmId))) {
+      // Feed given already short before this entry (rows written around the service) is not its fault.
+      const alreadyShort = new Set(checkFeedUses(purchases, ledger.uses.map(useFact)).map((i) => i.useId));
+      for (const issue of checkFeedUses(purchases, uses, await farmWeightShown(tx, actor.coopId, farmId))) {
+        if (alreadyShort.has(issue.useId)) continue;
         if (issue.useId === useId) add(issue.code === 'before_purchase' ? 'givenOn' : 'grams', issue.message);
         else {
           const other = ledger.uses.find((u) => u.id === issue.useId);
@@ -278,15 +282,28 @@ export async function recordFeedUseIn(tx: Transaction, actor: SessionUser, input
   }
 }
 
-/** The feed given that the book as it now stands cannot cover (before its feed was bought, or more than was left). */
-async function uncoveredFeedGiven(tx: Transaction, coopId: string, farmId: string): Promise<string[]> {
+/** The feed given that the book as it now stands cannot cover (before its feed was bought, or more than was left), by entry. */
+async function uncoveredFeedGiven(tx: Transaction, coopId: string, farmId: string): Promise<Map<string, string>> {
   const ledger = await feedLedgerOf(tx, coopId, farmId);
   const bought = new Map(ledger.purchases.map((p) => [p.id, p]));
-  const problems = ledger.uses
-    .filter((u) => u.purchaseId && (!bought.has(u.purchaseId) || bought.get(u.purchaseId)!.boughtOn > u.givenOn))
-    .map((u) => `The feed given on ${u.givenOn} was drawn from this purchase`);
-  const issues = checkFeedUses(ledger.purchases.map(purchaseFact), ledger.uses.map(useFact), await farmWeightShown(tx, coopId, farmId));
-  return [...problems, ...issues.map((i) => `That would leave the feed given on ${ledger.useById.get(i.useId)?.givenOn ?? 'a later day'} short: ${i.message}`)];
+  const problems = new Map<string, string>();
+  for (const u of ledger.uses) {
+    if (u.purchaseId && (!bought.has(u.purchaseId) || bought.get(u.purchaseId)!.boughtOn > u.givenOn)) problems.set(u.id, `The feed given on ${u.givenOn} was drawn from this purchase`);
+  }
+  for (const i of checkFeedUses(ledger.purchases.map(purchaseFact), ledger.uses.map(useFact), await farmWeightShown(tx, coopId, farmId))) {
+    if (!problems.has(i.useId)) problems.set(i.useId, `That would leave the feed given on ${ledger.useById.get(i.useId)?.givenOn ?? 'a later day'} short: ${i.message}`);
+  }
+  return problems;
+}
+
+/**
+ * Makes a change to the purchases and answers what it leaves uncovered that was covered before (feed
+ * given that was already short, e.g. rows written around the service, is not this change's fault).
+ */
+async function uncoveredBy(tx: Transaction, coopId: string, farmId: string, change: () => Promise<unknown>): Promise<string[]> {
+  const before = await uncoveredFeedGiven(tx, coopId, farmId);
+  await change();
+  return [...(await uncoveredFeedGiven(tx, coopId, farmId)).entries()].filter(([useId]) => !before.has(useId)).map(([, message]) => message);
 }
 
 async function purchaseToChange(tx: Transaction, actor: SessionUser, farmId: string, purchaseId: string, version: number): Promise<FeedPurchase> {
@@ -321,10 +338,9 @@ export async function correctFeedPurchase(actor: SessionUser, purchaseId: string
     const changes = Object.fromEntries(
       (Object.keys(corrected) as (keyof typeof corrected)[]).filter((k) => purchase.get(k) !== corrected[k]).map((k): [string, [unknown, unknown]] => [k, [purchase.get(k), corrected[k]]]),
     );
-    await purchase.update(corrected, { transaction: tx });
-    if (Object.keys(changes).length > 0) await recordChanges({ coopId: actor.coopId, tableName: 'feed_purchases', recordId: purchase.id, actorUserId: actor.id, changes }, tx);
-    const problems = await uncoveredFeedGiven(tx, actor.coopId, farmId);
+    const problems = await uncoveredBy(tx, actor.coopId, farmId, () => purchase.update(corrected, { transaction: tx }));
     if (problems.length > 0) throw AppError.validation({ grams: problems });
+    if (Object.keys(changes).length > 0) await recordChanges({ coopId: actor.coopId, tableName: 'feed_purchases', recordId: purchase.id, actorUserId: actor.id, changes }, tx);
     announce(tx, farmId);
     return presentOverview(tx, actor, farmId);
   });
@@ -336,8 +352,7 @@ export async function removeFeedPurchase(actor: SessionUser, purchaseId: string,
   ensureCan(actor, 'delete', farmId);
   return withTenant(actor, async (tx) => {
     const purchase = await purchaseToChange(tx, actor, farmId, purchaseId, version);
-    await purchase.destroy({ transaction: tx });
-    const problems = await uncoveredFeedGiven(tx, actor.coopId, farmId);
+    const problems = await uncoveredBy(tx, actor.coopId, farmId, () => purchase.destroy({ transaction: tx }));
     if (problems.length > 0) throw AppError.conflict('Feed given draws on this purchase: correct or remove that feed given first', { purchase: problems });
     announce(tx, farmId);
     return presentOverview(tx, actor, farmId);
