@@ -1,26 +1,12 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { addDays } from '@burrowline/shared';
 import { daysAgo, farmToday, litterAs, taskRows } from '../support/almanac';
-import { collectPageErrors, openBrowser, sidewaysScroll, signInAt } from '../support/browser';
+import { browserTestApp, collectPageErrors, openBrowser, sidewaysScroll } from '../support/browser';
 import { asTenant } from '../support/db';
 import { createTestCoop, TEST_PASSWORD } from '../support/factories';
 import { addAnimalAs } from '../support/herd';
-import { listeningServer } from '../support/test-app';
 
-let server: Awaited<ReturnType<typeof listeningServer>>;
-beforeAll(async () => {
-  server = await listeningServer();
-});
-afterAll(async () => {
-  await server.close();
-});
-
-async function signIn(page: Page, email: string) {
-  await signInAt(page, server.url, email, TEST_PASSWORD);
-}
-
-const sideways = sidewaysScroll;
+const app = browserTestApp(TEST_PASSWORD);
 
 describe('the Almanac: a member records a service and follows the plan to the litter', () => {
   it('when a member records a service, its palpation, the kindling and a fostering, then the Almanac plans each step and follows the real dates', async () => {
@@ -34,7 +20,7 @@ describe('the Almanac: a member records a service and follows the plan to the li
     const errors = collectPageErrors(browser.page);
     const { page } = browser;
     try {
-      await signIn(page, coop.member.email);
+      await app.signIn(page, coop.member.email);
       // Commons already shows the farm's week (the other doe's litter has its nest box out in three weeks; nothing today yet).
       await page.getByRole('heading', { name: 'Today', level: 2 }).waitFor();
       await page.getByRole('link', { name: 'Almanac', exact: true }).click();
@@ -55,7 +41,7 @@ describe('the Almanac: a member records a service and follows the plan to the li
       await page.screenshot({ path: '.data/e2e-almanac-service.png', fullPage: true });
 
       // 2. Its tasks in the Almanac's agenda: the palpation (day 12) is 19 days late, the kindling (day 31) due today.
-      await page.goto(`${server.url}/almanac?view=agenda`);
+      await page.goto(`${app.url}/almanac?view=agenda`);
       const overdue = page.locator('section[aria-labelledby="agenda-overdue"]');
       await expect.poll(() => overdue.getByText(/Palpate · Marigold/).isVisible()).toBe(true);
       await expect.poll(() => overdue.getByText('19 days late').isVisible()).toBe(true);
@@ -93,7 +79,7 @@ describe('the Almanac: a member records a service and follows the plan to the li
       const withDoe = page.locator('dt', { hasText: 'With the doe' }).locator('xpath=following-sibling::dd');
       await expect.poll(() => withDoe.innerText()).toBe('9');
       await page.screenshot({ path: '.data/e2e-almanac-litter.png', fullPage: true });
-      expect(await sideways(page)).toBe(0);
+      expect(await sidewaysScroll(page)).toBe(0);
 
       // 6. The plan followed: the service's palpation and kindling are done, the kindling alert skipped,
       //    and the litter's jobs count from the real kindling date.
@@ -109,10 +95,10 @@ describe('the Almanac: a member records a service and follows the plan to the li
       expect(counts).toEqual([{ ours: false, kind: 'fostered_in', kit_count: 2 }, { ours: true, kind: 'fostered_out', kit_count: 2 }]);
 
       // The agenda no longer lists the palpation as late; the nest box out shows in the month three weeks on.
-      await page.goto(`${server.url}/almanac?view=agenda`);
+      await page.goto(`${app.url}/almanac?view=agenda`);
       await page.getByRole('heading', { name: 'Almanac', level: 1 }).waitFor();
       await expect.poll(() => page.locator('section[aria-labelledby="agenda-overdue"]').getByText(/Palpate · Marigold/).count()).toBe(0);
-      await page.goto(`${server.url}/almanac?view=month&month=${addDays(farmToday(), 21).slice(0, 7)}-01`);
+      await page.goto(`${app.url}/almanac?view=month&month=${addDays(farmToday(), 21).slice(0, 7)}-01`);
       await expect.poll(() => page.getByRole('button', { name: /tasks?$/ }).filter({ hasText: 'Nest box out · Marigold' }).count()).toBe(1);
       await page.screenshot({ path: '.data/e2e-almanac-month.png', fullPage: true });
       expect(errors).toEqual([]);
@@ -127,12 +113,12 @@ describe('the Almanac: a member records a service and follows the plan to the li
     const browser = await openBrowser({ width: 375, height: 800 });
     const errors = collectPageErrors(browser.page);
     try {
-      await signIn(browser.page, coop.member.email);
-      await browser.page.goto(`${server.url}/almanac`);
+      await app.signIn(browser.page, coop.member.email);
+      await browser.page.goto(`${app.url}/almanac`);
       await browser.page.getByRole('heading', { name: 'Almanac', level: 1 }).waitFor();
       expect(await browser.page.getByRole('button', { name: 'Agenda', exact: true }).getAttribute('aria-pressed')).toBe('true');
       await expect.poll(() => browser.page.getByText(/Nest box out · Clover/).isVisible()).toBe(true);
-      expect(await sideways(browser.page)).toBe(0);
+      expect(await sidewaysScroll(browser.page)).toBe(0);
       await browser.page.screenshot({ path: '.data/e2e-almanac-phone.png', fullPage: true });
       expect(errors).toEqual([]);
     } finally {

@@ -1,26 +1,12 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
 import { daysAgo, farmToday } from '../support/almanac';
-import { collectPageErrors, openBrowser, sidewaysScroll, signInAt } from '../support/browser';
+import { browserTestApp, collectPageErrors, openBrowser, sidewaysScroll } from '../support/browser';
 import { asTenant } from '../support/db';
 import { createTestCoop, TEST_PASSWORD } from '../support/factories';
 import { breedLitterAs, groupAs, weighGroupAs } from '../support/growout';
 import { catalogueBreeds } from '../support/herd';
-import { listeningServer } from '../support/test-app';
 
-let server: Awaited<ReturnType<typeof listeningServer>>;
-beforeAll(async () => {
-  server = await listeningServer();
-});
-afterAll(async () => {
-  await server.close();
-});
-
-async function signIn(page: Page, email: string) {
-  await signInAt(page, server.url, email, TEST_PASSWORD);
-}
-
-const sideways = sidewaysScroll;
+const app = browserTestApp(TEST_PASSWORD);
 
 describe('grow-out: a member weighs a group, records feed and reads the breed comparison', () => {
   it('when a member weighs a growing group, then its projected ready date moves; the feed she records and corrects is in the feed book and the group; the breed comparison shows the cross', async () => {
@@ -41,7 +27,7 @@ describe('grow-out: a member weighs a group, records feed and reads the breed co
     const errors = collectPageErrors(browser.page);
     const { page } = browser;
     try {
-      await signIn(page, coop.member.email);
+      await app.signIn(page, coop.member.email);
       await page.getByRole('link', { name: 'Grow-out', exact: true }).click();
       await page.getByRole('heading', { name: 'Grow-out groups', level: 1 }).waitFor();
       await page.getByRole('link', { name: 'Juniper spring pen' }).first().click();
@@ -112,9 +98,9 @@ describe('grow-out: a member weighs a group, records feed and reads the breed co
 
       // A phone: the group's page fits the width.
       await page.setViewportSize({ width: 375, height: 800 });
-      await page.goto(`${server.url}/grow-out/groups/${group.id}`);
+      await page.goto(`${app.url}/grow-out/groups/${group.id}`);
       await page.getByRole('heading', { name: 'Juniper spring pen', level: 1 }).waitFor();
-      expect(await sideways(page)).toBeLessThanOrEqual(0);
+      expect(await sidewaysScroll(page)).toBeLessThanOrEqual(0);
       await page.screenshot({ path: '.data/e2e-growout-group-phone.png', fullPage: true });
     } finally {
       await browser.close();

@@ -2,30 +2,18 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { randomUUID } from 'node:crypto';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Page } from 'playwright-core';
-import { collectPageErrors, openBrowser, sidewaysScroll, signInAt } from '../support/browser';
+import { afterAll, describe, expect, it } from 'vitest';
+import { browserTestApp, collectPageErrors, openBrowser, sidewaysScroll } from '../support/browser';
 import { csv, HEADER, pdfText, testImage } from '../support/herd-files';
-import { listeningServer } from '../support/test-app';
 
 // The demo co-op is loaded into the test cluster; member@demo.test keeps Hazelrun Rabbitry.
 const DEMO = { member: 'member@demo.test', password: 'burrowline-demo' };
 
-let server: Awaited<ReturnType<typeof listeningServer>>;
+const app = browserTestApp(DEMO.password);
 const work = fs.mkdtempSync(path.join(os.tmpdir(), 'burrowline-herd-files-'));
-beforeAll(async () => {
-  server = await listeningServer();
-});
-afterAll(async () => {
-  await server.close();
+afterAll(() => {
   fs.rmSync(work, { recursive: true, force: true });
 });
-
-async function signIn(page: Page) {
-  await signInAt(page, server.url, DEMO.member, DEMO.password);
-}
-
-const sideways = sidewaysScroll;
 
 function herdFile(tag: string, sireOfKit: string) {
   return csv(
@@ -43,8 +31,8 @@ describe('herd files: a member brings a herd in from a spreadsheet and takes it 
     const errors = collectPageErrors(browser.page);
     const { page } = browser;
     try {
-      await signIn(page);
-      await page.goto(`${server.url}/herd`);
+      await app.signIn(page, DEMO.member);
+      await page.goto(`${app.url}/herd`);
       await page.getByRole('heading', { name: 'Herd', level: 1 }).waitFor();
       await page.getByRole('link', { name: 'Import' }).click();
       await page.getByRole('heading', { name: 'Import a herd spreadsheet', level: 1 }).waitFor();
@@ -66,7 +54,7 @@ describe('herd files: a member brings a herd in from a spreadsheet and takes it 
       // The same screen on a phone: cards, no sideways scrolling.
       await page.setViewportSize({ width: 375, height: 800 });
       await page.getByRole('list', { name: 'Rows of the file' }).waitFor();
-      expect(await sideways(page)).toBeLessThanOrEqual(0);
+      expect(await sidewaysScroll(page)).toBeLessThanOrEqual(0);
       await page.screenshot({ path: '.data/e2e-import-preview-375.png', fullPage: true });
       await page.setViewportSize({ width: 1280, height: 900 });
 
@@ -118,7 +106,7 @@ describe('herd files: a member brings a herd in from a spreadsheet and takes it 
 
       await page.setViewportSize({ width: 375, height: 800 });
       await page.getByRole('region', { name: 'Photos' }).scrollIntoViewIfNeeded();
-      expect(await sideways(page)).toBeLessThanOrEqual(0);
+      expect(await sidewaysScroll(page)).toBeLessThanOrEqual(0);
       await page.getByRole('region', { name: 'Photos' }).screenshot({ path: '.data/e2e-animal-photos-375.png' });
       await page.getByRole('button', { name: /Open full size/ }).first().click();
       await page.getByRole('dialog').waitFor();

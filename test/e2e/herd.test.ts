@@ -1,23 +1,12 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { collectPageErrors, openBrowser, signInAt } from '../support/browser';
-import { listeningServer } from '../support/test-app';
+import { browserTestApp, collectPageErrors, openBrowser } from '../support/browser';
 
 // The demo co-op is loaded into the test cluster by `npm test`, as `npm start` loads it. Clementine is
 // Hazelrun's New Zealand doe by Quillfeather's buck; Tobin is a New Zealand buck kept at Saltbush Meadow.
 const DEMO = { email: 'member@demo.test', password: 'burrowline-demo' };
 
-let server: Awaited<ReturnType<typeof listeningServer>>;
-beforeAll(async () => {
-  server = await listeningServer();
-});
-afterAll(async () => {
-  await server.close();
-});
-
-async function signIn(page: Page) {
-  await signInAt(page, server.url, DEMO.email, DEMO.password);
-}
+const app = browserTestApp(DEMO.password);
 
 /** The API's own figures, read with the browser's session, to check what the screen shows. */
 async function api<T>(page: Page, path: string, body?: unknown): Promise<T> {
@@ -45,7 +34,7 @@ describe.each([
     const errors = collectPageErrors(browser.page);
     const { page } = browser;
     try {
-      await signIn(page);
+      await app.signIn(page, DEMO.email);
       await page.getByRole('link', { name: 'Herd', exact: true }).click();
       await page.getByRole('heading', { name: 'Herd', level: 1 }).waitFor();
       await page.screenshot({ path: `.data/e2e-herd-${label}.png`, fullPage: false });

@@ -1,26 +1,13 @@
 import { randomUUID } from 'node:crypto';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { collectPageErrors, openBrowser, sidewaysScroll, signInAt } from '../support/browser';
+import { browserTestApp, collectPageErrors, openBrowser, sidewaysScroll } from '../support/browser';
 import { linkIn, waitForMail } from '../support/mail';
-import { listeningServer } from '../support/test-app';
 
 // The demo co-op is loaded into the test cluster by `npm test`, as `npm start` loads it.
 const DEMO = { slug: 'larkspur-hollow', coop: 'Larkspur Hollow Rabbit Cooperative', admin: 'admin@demo.test', adminName: 'Odalys Brenner', member: 'priya@demo.test', password: 'burrowline-demo' };
 
-let server: Awaited<ReturnType<typeof listeningServer>>;
-beforeAll(async () => {
-  server = await listeningServer();
-});
-afterAll(async () => {
-  await server.close();
-});
-
-async function signIn(page: Page, email: string, password = DEMO.password) {
-  await signInAt(page, server.url, email, password);
-}
-
-const sideways = sidewaysScroll;
+const app = browserTestApp(DEMO.password);
 
 async function fillApplication(page: Page, who: { name: string; email: string; farm: string }) {
   await page.getByLabel('Your name').fill(who.name);
@@ -51,13 +38,13 @@ describe('membership: a breeder applies, the admin approves, the new member sign
     const applicantErrors = collectPageErrors(applicant.page);
     try {
       // The admin has the queue open; a member has Commons open.
-      await signIn(admin.page, DEMO.admin);
+      await app.signIn(admin.page, DEMO.admin);
       await admin.page.getByRole('link', { name: /^Admin/ }).click();
       await admin.page.getByRole('heading', { name: 'Applications', level: 1 }).waitFor();
-      await signIn(neighbour.page, DEMO.member);
+      await app.signIn(neighbour.page, DEMO.member);
 
       // The applicant fills the public form.
-      await applicant.page.goto(`${server.url}/apply/${DEMO.slug}`);
+      await applicant.page.goto(`${app.url}/apply/${DEMO.slug}`);
       await applicant.page.getByRole('heading', { name: `Apply to join ${DEMO.coop}` }).waitFor();
       await expect.poll(() => applicant.page.getByRole('region', { name: `Rules of ${DEMO.coop}` }).innerText()).toMatch(/quarantine period/);
       await applicant.page.getByRole('button', { name: 'Send application' }).click();
@@ -118,25 +105,25 @@ describe('membership: a breeder applies, the admin approves, the new member sign
     const errors = collectPageErrors(phone.page);
     const { page } = phone;
     try {
-      await page.goto(`${server.url}/apply/${DEMO.slug}`);
+      await page.goto(`${app.url}/apply/${DEMO.slug}`);
       await page.getByRole('button', { name: 'Send application' }).waitFor();
-      expect(await sideways(page)).toBeLessThanOrEqual(0);
+      expect(await sidewaysScroll(page)).toBeLessThanOrEqual(0);
       await page.screenshot({ path: '.data/e2e-apply-form-phone.png', fullPage: true });
 
-      await signIn(page, DEMO.admin);
+      await app.signIn(page, DEMO.admin);
       for (const [path, heading, shot] of [
         ['/admin/applications?status=all', 'Applications', 'queue'],
         ['/admin/members', 'Members', 'members'],
         ['/admin/audit', 'Audit log', 'audit'],
         ['/admin/rules', 'Co-op rules', 'rules'],
       ] as const) {
-        await page.goto(`${server.url}${path}`);
+        await page.goto(`${app.url}${path}`);
         await page.getByRole('heading', { name: heading, level: 1 }).waitFor();
         await page.screenshot({ path: `.data/e2e-admin-${shot}-phone.png`, fullPage: true });
-        expect(await sideways(page), `${path} scrolls sideways`).toBeLessThanOrEqual(0);
+        expect(await sidewaysScroll(page), `${path} scrolls sideways`).toBeLessThanOrEqual(0);
       }
       // The roster on a phone is a list of cards, one per person.
-      await page.goto(`${server.url}/admin/members?q=Priya`);
+      await page.goto(`${app.url}/admin/members?q=Priya`);
       await expect.poll(() => page.getByRole('list', { name: 'Members' }).getByRole('listitem').count()).toBe(1);
       expect(errors).toEqual([]);
     } finally {
@@ -147,8 +134,8 @@ describe('membership: a breeder applies, the admin approves, the new member sign
   it('when a member opens the admin pages by address, then they are turned away', async () => {
     const browser = await openBrowser();
     try {
-      await signIn(browser.page, DEMO.member);
-      await browser.page.goto(`${server.url}/admin/applications`);
+      await app.signIn(browser.page, DEMO.member);
+      await browser.page.goto(`${app.url}/admin/applications`);
       await browser.page.getByRole('heading', { name: 'Not yours to see' }).waitFor();
     } finally {
       await browser.close();

@@ -2,6 +2,8 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { afterAll, beforeAll } from 'vitest';
+import { listeningServer } from './test-app';
 
 const CHROMIUM_ARGS = [
   '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
@@ -47,3 +49,27 @@ export async function signInAt(page: Page, baseUrl: string, email: string, passw
 
 /** How many pixels the page scrolls sideways (0 when it fits the width, as on a phone it must). */
 export const sidewaysScroll = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+
+/**
+ * The app a browser test file drives: started on a free port before its tests and closed after them.
+ * `signIn` signs in at it with the given password (the test coops' by default at the call site).
+ */
+export function browserTestApp(password: string) {
+  let server: Awaited<ReturnType<typeof listeningServer>> | null = null;
+  beforeAll(async () => {
+    server = await listeningServer();
+  });
+  afterAll(async () => {
+    await server?.close();
+  });
+  const live = () => {
+    if (!server) throw new Error('The app starts in beforeAll; use it inside a test');
+    return server;
+  };
+  return {
+    get url() {
+      return live().url;
+    },
+    signIn: (page: Page, email: string, withPassword = password) => signInAt(page, live().url, email, withPassword),
+  };
+}
