@@ -1,7 +1,8 @@
 import { formatTemperature, type HeatCautionDto, type TemperatureUnit } from '@burrowline/shared';
 import { ThermometerSun } from 'lucide-react';
 import { animalName } from '../../almanac/components/open-services';
-import { formatDay, formatInstant } from '../health-format';
+import { formatDate } from '../../almanac/almanac-dates';
+import { formatInstant } from '../health-format';
 
 /**
  * The heat caution (brief, "Where the work can hurt": rabbits suffer above about 85 °F / 29 °C, heavily
@@ -32,7 +33,7 @@ export function HeatCautionCard({ heat, unit }: { heat: HeatCautionDto; unit: Te
           <ul className="space-y-1">
             {heat.dueToKindle.map((d) => (
               <li key={d.doe.id}>
-                <strong>{animalName(d.doe)}</strong>: due to kindle {formatDay(d.dueOn)}
+                <strong>{animalName(d.doe)}</strong>: due to kindle {formatDate(d.dueOn)}
               </li>
             ))}
             {heat.youngLitters.map((l) => (

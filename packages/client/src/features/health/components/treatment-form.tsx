@@ -5,7 +5,7 @@ import { SelectField, type SelectOption } from '../../../components/ui/select-fi
 import { TextField } from '../../../components/ui/text-field';
 import { errorText, fieldErrors } from '../../almanac/error-text';
 import { useRecordTreatment } from '../api/record-treatment';
-import { formatDay } from '../health-format';
+import { formatDate } from '../../almanac/almanac-dates';
 
 interface TreatmentFormProps {
   today: string;
@@ -57,7 +57,7 @@ export function TreatmentForm({ today, animals, groups }: TreatmentFormProps) {
           },
           {
             onSuccess: (t) => {
-              setSaved(`Saved: ${t.treatment}, under withdrawal through ${formatDay(t.withdrawalEndsOn)}.`);
+              setSaved(`Saved: ${t.treatment}, under withdrawal through ${formatDate(t.withdrawalEndsOn)}.`);
               setTreatment('');
               setDose('');
               setNotes('');
@@ -136,7 +136,7 @@ export function TreatmentForm({ today, animals, groups }: TreatmentFormProps) {
         )}
         {endsOn && (
           <p className="text-sm text-bark">
-            Under withdrawal through <strong>{formatDay(endsOn)}</strong>; it may be processed from {formatDay(addDays(endsOn, 1))}.
+            Under withdrawal through <strong>{formatDate(endsOn)}</strong>; it may be processed from {formatDate(addDays(endsOn, 1))}.
           </p>
         )}
       </fieldset>

@@ -3,14 +3,14 @@ import { createColumnHelper, getCoreRowModel, useReactTable } from '@tanstack/re
 import { treatmentRouteLabels, type TreatmentDto } from '@burrowline/shared';
 import { Badge } from '../../../components/ui/badge';
 import { DataTable } from '../../../components/ui/data-table';
-import { formatDay } from '../health-format';
+import { formatDate } from '../../almanac/almanac-dates';
 import { subjectName } from './withdrawals-card';
 
 const column = createColumnHelper<TreatmentDto>();
 
 function withdrawalText(t: TreatmentDto): string {
   if (t.withdrawalDays === 0) return 'No withdrawal (0 days)';
-  return `through ${formatDay(t.withdrawalEndsOn)}${t.withdrawalDays !== null ? ` (${t.withdrawalDays} d)` : ''}`;
+  return `through ${formatDate(t.withdrawalEndsOn)}${t.withdrawalDays !== null ? ` (${t.withdrawalDays} d)` : ''}`;
 }
 
 /** Every treatment of the farm, latest first: a table on wide screens, cards on a phone. */
@@ -22,7 +22,7 @@ export function TreatmentsList({ treatments }: { treatments: TreatmentDto[] }) {
       column.accessor('dose', { header: 'Dose', cell: (c) => c.getValue() || '—' }),
       column.accessor('route', { header: 'Route', cell: (c) => (c.getValue() ? treatmentRouteLabels[c.getValue()!] : '—') }),
       column.accessor('veterinarian', { header: 'Prescribed by', cell: (c) => c.getValue() || '—' }),
-      column.accessor('startedOn', { header: 'Given', cell: (c) => `${formatDay(c.getValue())}${c.row.original.lastDoseOn ? ` – ${formatDay(c.row.original.lastDoseOn)}` : ''}` }),
+      column.accessor('startedOn', { header: 'Given', cell: (c) => `${formatDate(c.getValue())}${c.row.original.lastDoseOn ? ` – ${formatDate(c.row.original.lastDoseOn)}` : ''}` }),
       column.accessor('withdrawalEndsOn', {
         header: 'Withdrawal',
         cell: (c) => (
@@ -54,8 +54,8 @@ export function TreatmentsList({ treatments }: { treatments: TreatmentDto[] }) {
               {t.route ? ` · ${treatmentRouteLabels[t.route]}` : ''}
             </p>
             <p className="text-sm text-grey-600">
-              {formatDay(t.startedOn)}
-              {t.lastDoseOn ? ` – ${formatDay(t.lastDoseOn)}` : ''} · {t.veterinarian || 'no veterinarian recorded'}
+              {formatDate(t.startedOn)}
+              {t.lastDoseOn ? ` – ${formatDate(t.lastDoseOn)}` : ''} · {t.veterinarian || 'no veterinarian recorded'}
             </p>
             <p className="text-sm">Withdrawal {withdrawalText(t)}</p>
           </div>

@@ -1,7 +1,7 @@
 import type { WithdrawalDto } from '@burrowline/shared';
 import { Card } from '../../../components/ui/card';
 import { animalName } from '../../almanac/components/open-services';
-import { formatDay } from '../health-format';
+import { formatDate } from '../../almanac/almanac-dates';
 
 export function subjectName(w: { animal: { name: string; tattoo: string | null } | null; group: { name: string } | null }): string {
   if (w.animal) return animalName(w.animal);
@@ -24,7 +24,7 @@ export function WithdrawalsCard({ withdrawals }: { withdrawals: WithdrawalDto[] 
                 {w.veterinarian ? <span className="text-grey-600"> (set by {w.veterinarian})</span> : null}
               </span>
               <span className="font-semibold text-clay-deep">
-                until {formatDay(w.withdrawalEndsOn)} <span className="font-normal text-grey-600">· may be processed from {formatDay(w.clearFrom)}</span>
+                until {formatDate(w.withdrawalEndsOn)} <span className="font-normal text-grey-600">· may be processed from {formatDate(w.clearFrom)}</span>
               </span>
             </li>
           ))}
@@ -43,8 +43,8 @@ export function WithdrawalLine({ withdrawals }: { withdrawals: WithdrawalDto[] }
   if (!w) return null;
   return (
     <p role="status" className="rounded-xl border-2 border-clay/40 bg-clay-wash px-4 py-3 text-bark">
-      <strong className="text-clay-deep">Under withdrawal until {formatDay(w.withdrawalEndsOn)}</strong> ({w.treatment}
-      {w.veterinarian ? `, set by ${w.veterinarian}` : ''}): not to be marked for processing or processed before {formatDay(w.clearFrom)}.
+      <strong className="text-clay-deep">Under withdrawal until {formatDate(w.withdrawalEndsOn)}</strong> ({w.treatment}
+      {w.veterinarian ? `, set by ${w.veterinarian}` : ''}): not to be marked for processing or processed before {formatDate(w.clearFrom)}.
     </p>
   );
 }

@@ -5,7 +5,7 @@ import { Card } from '../../../components/ui/card';
 import { SelectField, type SelectOption } from '../../../components/ui/select-field';
 import { errorText } from '../../almanac/error-text';
 import { subjectName } from '../../health/components/withdrawals-card';
-import { formatDay } from '../../health/health-format';
+import { formatDate } from '../../almanac/almanac-dates';
 import { useCancelMark } from '../api/processing-mutations';
 import { MarkForProcessing } from './mark-for-processing';
 
@@ -24,10 +24,10 @@ export function MarksCard({ marks, today, canEdit, animals, groups }: { marks: P
           {marks.map((m) => (
             <li key={m.id} className="flex flex-wrap items-center justify-between gap-3 py-2">
               <span>
-                <strong>{subjectName(m)}</strong> · {formatDay(m.plannedOn)}
+                <strong>{subjectName(m)}</strong> · {formatDate(m.plannedOn)}
                 {m.notes ? <span className="text-grey-600"> · {m.notes}</span> : null}
                 {m.withdrawalEndsOn && (
-                  <span className="block text-sm font-medium text-clay-deep">Under withdrawal until {formatDay(m.withdrawalEndsOn)}: not before the day after</span>
+                  <span className="block text-sm font-medium text-clay-deep">Under withdrawal until {formatDate(m.withdrawalEndsOn)}: not before the day after</span>
                 )}
               </span>
               {canEdit && (

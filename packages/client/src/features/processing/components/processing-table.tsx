@@ -3,7 +3,7 @@ import { createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable, 
 import { formatWeight, type ProcessingRecordDto, type WeightUnit } from '@burrowline/shared';
 import { Badge } from '../../../components/ui/badge';
 import { DataTable } from '../../../components/ui/data-table';
-import { formatDay } from '../../health/health-format';
+import { formatDate } from '../../almanac/almanac-dates';
 import { subjectName } from '../../health/components/withdrawals-card';
 import { ageText, percent, usdaClassLabels, usdaClassTone } from '../processing-format';
 
@@ -28,7 +28,7 @@ export function ProcessingTable({ records, unit }: { records: ProcessingRecordDt
   const [sorting, setSorting] = useState<SortingState>([{ id: 'processedOn', desc: true }]);
   const columns = useMemo(
     () => [
-      column.accessor('processedOn', { header: 'Processed', cell: (c) => formatDay(c.getValue()) }),
+      column.accessor('processedOn', { header: 'Processed', cell: (c) => formatDate(c.getValue()) }),
       column.accessor((r) => subjectName(r), { id: 'subject', header: 'Animal or group', enableSorting: false }),
       column.accessor('headCount', { header: 'Heads' }),
       column.accessor('ageDays', { header: 'Age', cell: (c) => ageText(c.getValue()) }),
@@ -65,7 +65,7 @@ export function ProcessingTable({ records, unit }: { records: ProcessingRecordDt
               <Badge tone={usdaClassTone[r.usdaClass]}>{usdaClassLabels[r.usdaClass]}</Badge>
             </p>
             <p className="text-sm text-grey-600">
-              {formatDay(r.processedOn)} · {r.headCount} head{r.headCount === 1 ? '' : 's'} · {ageText(r.ageDays)}
+              {formatDate(r.processedOn)} · {r.headCount} head{r.headCount === 1 ? '' : 's'} · {ageText(r.ageDays)}
             </p>
             <p>
               Live {formatWeight(r.liveGrams, unit)}
