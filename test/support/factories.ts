@@ -94,7 +94,7 @@ export function applicationBody(overrides: Partial<ApplicationInput> = {}): Appl
   };
 }
 
-/** Services that e-mail after commit need the mailer, even before a test has built an app. */
+/** Services compose e-mail with the configured sender (its domain names the Message-ID), even before a test has built an app. */
 function connectServicesForFactories() {
   connectDatabase(process.env.DATABASE_URL!);
   configureMailer(loadConfig().smtp);

@@ -10,6 +10,7 @@ import { csrfGuard } from './http/csrf';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { configurePassport } from './http/passport';
 import { createSessionMiddleware, enforceAbsoluteLifetime, sessionChecker } from './http/session';
+import { configureMailOutbox, startMailWorker } from './lib/mail-outbox';
 import { configureMailer } from './lib/mailer';
 import { configureStorage } from './lib/storage';
 import { setLogLevel } from './lib/logger';
@@ -50,6 +51,9 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
   setLogLevel(config.logLevel);
   connectDatabase(config.databaseUrl, config.databasePoolMax);
   configureMailer(config.smtp);
+  configureMailOutbox({ retryDelaySeconds: config.mail.retryDelaySeconds });
+  // Queued e-mail goes out from every process that serves the app (several instances share the queue).
+  const stopMailWorker = config.mail.worker ? startMailWorker({ connectionString: config.databaseUrl, pollingIntervalSeconds: config.mail.pollingIntervalSeconds }) : null;
   configureStorage({ dir: config.uploads.dir });
   const passport = configurePassport();
   const session = createSessionMiddleware(config);
@@ -155,6 +159,7 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
       sessionCheckSeconds: config.socketSessionCheckSeconds,
     },
     close: async () => {
+      await stopMailWorker?.();
       await session.pool.end();
     },
   };

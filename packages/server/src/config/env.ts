@@ -34,6 +34,9 @@ const envSchema = z.object({
   SMTP_USER: z.string().optional(),
   SMTP_PASS: z.string().optional(),
   MAIL_FROM: z.string().default('Burrowline <no-reply@burrowline.test>'),
+  MAIL_WORKER: bool.default(true),
+  MAIL_POLL_SECONDS: z.coerce.number().min(0.5).default(2),
+  MAIL_RETRY_DELAY_SECONDS: z.coerce.number().int().min(1).default(5),
   CLIENT_DIST: z.string().optional(),
   UPLOADS_DIR: z.string().min(1).optional(),
   PHOTO_MAX_BYTES: z.coerce.number().int().min(1024).default(8 * 1024 * 1024),
@@ -69,6 +72,11 @@ export interface Config {
    */
   membership: { linkTtlHours: number; applyWindowSeconds: number; applyMaxPerIp: number; applyMaxPerEmail: number };
   smtp: { host: string; port: number; secure: boolean; user?: string; pass?: string; from: string };
+  /**
+   * Queued e-mail (the outbox): deliver it from this process, how often an idle worker looks for new
+   * mail, and the first retry delay after the mail server refused or was down (doubling each try).
+   */
+  mail: { worker: boolean; pollingIntervalSeconds: number; retryDelaySeconds: number };
   clientDist: string | undefined;
   /**
    * Uploaded files (photos) are kept here, outside the web root; the default is the gitignored
@@ -116,6 +124,7 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
       applyMaxPerEmail: e.APPLY_MAX_PER_EMAIL,
     },
     smtp: { host: e.SMTP_HOST, port: e.SMTP_PORT, secure: e.SMTP_SECURE, user: e.SMTP_USER, pass: e.SMTP_PASS, from: e.MAIL_FROM },
+    mail: { worker: e.MAIL_WORKER, pollingIntervalSeconds: e.MAIL_POLL_SECONDS, retryDelaySeconds: e.MAIL_RETRY_DELAY_SECONDS },
     clientDist: e.CLIENT_DIST,
     uploads: {
       dir: path.resolve(repositoryRoot, e.UPLOADS_DIR ?? '.data/uploads'),

@@ -8,8 +8,8 @@ export interface TenantActor {
 /**
  * The one way to read or write tenant data: opens a transaction, sets the co-op for row-level
  * security for this transaction only, and runs `work` with it. Pass `{ transaction: tx }` to every
- * query; queue realtime events and e-mails with `tx.afterCommit` so nothing is announced that was
- * rolled back.
+ * query; publish realtime events with `tx.afterCommit` so nothing is announced that was rolled back,
+ * and queue e-mails with `queueMail(tx, …)` so they are kept with the change.
  */
 export async function withTenant<T>(actor: TenantActor, work: (tx: Transaction) => Promise<T>): Promise<T> {
   return database().transaction(async (tx) => {

@@ -1,6 +1,6 @@
+import { createHash } from 'node:crypto';
 import nodemailer, { type Transporter } from 'nodemailer';
 import type { Config } from '../config/env';
-import { logger } from './logger';
 
 export interface MailMessage {
   to: string;
@@ -20,7 +20,17 @@ export function configureMailer(smtp: Config['smtp']) {
     secure: smtp.secure,
     ignoreTLS: !smtp.secure && (smtp.host === '127.0.0.1' || smtp.host === 'localhost'),
     auth: smtp.user ? { user: smtp.user, pass: smtp.pass } : undefined,
+    // The outbox worker holds the message's row locked while it talks to the server: do not hang for minutes.
+    connectionTimeout: 10_000,
+    greetingTimeout: 10_000,
+    socketTimeout: 30_000,
   });
+}
+
+/** A Message-ID that is the same on every try of one e-mail, so a receiver can drop a rare duplicate. */
+export function messageIdFor(key: string): string {
+  const domain = /@([^>\s]+)/.exec(from)?.[1] ?? 'burrowline.invalid';
+  return `<${createHash('sha256').update(key).digest('hex').slice(0, 40)}@${domain}>`;
 }
 
 /** ASVS 1.3.11: header values never carry CR/LF from user input. */
@@ -32,18 +42,20 @@ export function escapeHtml(value: string): string {
   return value.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 }
 
-/** Sends one message; a failed send is logged, never thrown into a committed request. */
-export async function sendMail(message: MailMessage): Promise<void> {
-  if (!transport) {
-    // Scripts that run services without a mail server (e.g. a seed) must not crash after commit.
-    logger.warn('mail not sent: no mail server configured', { to: message.to, subject: message.subject });
-    return;
-  }
-  try {
-    await transport.sendMail({ from, to: headerSafe(message.to), subject: headerSafe(message.subject), text: message.text, html: message.html });
-  } catch (error) {
-    logger.error('mail not sent', { to: message.to, subject: message.subject, error: String(error) });
-  }
+/**
+ * Hands one message to the mail server and throws when it is not accepted. Only the outbox worker
+ * calls this: product code queues mail with `queueMail` in its transaction.
+ */
+export async function transmitMail(message: MailMessage, opts: { messageId: string }): Promise<void> {
+  if (!transport) throw new Error('no mail server configured');
+  await transport.sendMail({
+    from,
+    to: headerSafe(message.to),
+    subject: headerSafe(message.subject),
+    text: message.text,
+    html: message.html,
+    messageId: opts.messageId,
+  });
 }
 
 /** The shared frame of every e-mail: plain text and HTML parts from the same content. */

@@ -6,7 +6,8 @@ import { database } from '../../db/sequelize';
 import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../http/passport';
 import { logger } from '../../lib/logger';
-import { composeMail, sendMail, type MailMessage } from '../../lib/mailer';
+import { queueMail } from '../../lib/mail-outbox';
+import { composeMail, type MailMessage } from '../../lib/mailer';
 import { ensureCan, farmOf } from './almanac-access';
 import { farmClockOf } from './almanac-context';
 import { settingsOf } from './cycle-settings.service';
@@ -93,7 +94,7 @@ function compose(recipient: Recipient, farmName: string, today: string, due: Alm
 /**
  * The morning e-mail run (called by the scheduled job with its clock): for everyone who opted in and
  * whose farm's clock has reached their hour (and not yet noon), claims the day's delivery (unique per
- * person and farm day, so several app instances or a repeated run send it once), and e-mails the day's
+ * person and farm day, so several app instances or a repeated run send it once), and queues the e-mail of the day's
  * tasks, anything overdue, and what needs attention. A day with nothing to say is claimed but not sent.
  */
 export async function sendMorningDigests(opts: { now: Date; appUrl: string }): Promise<{ sent: string[]; quiet: string[] }> {
@@ -106,7 +107,7 @@ export async function sendMorningDigests(opts: { now: Date; appUrl: string }): P
     if (hour < recipient.hour || hour >= LAST_HOUR) continue;
     const today = todayIn(recipient.time_zone, opts.now);
     try {
-      const message = await withTenant({ coopId: recipient.coop_id }, async (tx) => {
+      const outcome = await withTenant({ coopId: recipient.coop_id }, async (tx) => {
         const open = await AlmanacTask.findAll({
           where: { farmId: recipient.farm_id, state: { [Op.in]: ['open', 'moved'] }, dueOn: { [Op.lte]: today } },
           transaction: tx,
@@ -123,18 +124,18 @@ export async function sendMorningDigests(opts: { now: Date; appUrl: string }): P
         if (claimed.length === 0) return 'already';
         if (open.length === 0) return 'quiet';
         const clock = await farmClockOf(tx, recipient.coop_id, recipient.farm_id, opts.now);
-        return compose(
+        const message = compose(
           recipient, clock.name, today,
           await presentTasks(tx, recipient.coop_id, due, today),
           await presentTasks(tx, recipient.coop_id, overdue, today),
           attention, opts.appUrl,
         );
+        // Queued with the day's claim: the claim never commits without its e-mail.
+        await queueMail(tx, `morning-digest:${recipient.user_id}:${today}`, message);
+        return 'queued';
       });
-      if (message === 'quiet') quiet.push(recipient.email);
-      else if (message !== 'already') {
-        await sendMail(message);
-        sent.push(recipient.email);
-      }
+      if (outcome === 'quiet') quiet.push(recipient.email);
+      else if (outcome === 'queued') sent.push(recipient.email);
     } catch (error) {
       logger.error('morning e-mail failed', { userId: recipient.user_id, error: String(error) });
     }

@@ -22,7 +22,7 @@ import { database } from '../../db/sequelize';
 import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../http/passport';
 import { AppError } from '../../lib/app-error';
-import { sendMail } from '../../lib/mailer';
+import { queueMail } from '../../lib/mail-outbox';
 import { publish } from '../../lib/realtime';
 import { recordAudit } from '../audit/audit.service';
 import { issueToken } from '../auth/tokens';
@@ -137,8 +137,9 @@ export async function submitApplication(
     );
     const admins = await listAdminContacts(coop.id, tx);
     const received = applicationReceivedMail({ to: application.email, name: application.applicantName, coopName: coop.name, farmName: application.farmName });
-    const notices = admins.map((admin) =>
-      newApplicationMail({
+    const notices = admins.map((admin) => ({
+      adminId: admin.id,
+      mail: newApplicationMail({
         to: admin.email,
         adminName: admin.name,
         coopName: coop.name,
@@ -150,12 +151,10 @@ export async function submitApplication(
         sharing: application.sharing,
         url: `${ctx.appUrl}/admin/applications/${application.id}`,
       }),
-    );
-    tx.afterCommit(() => {
-      publish(rooms.coopAdmins(coop.id), RealtimeEvent.applicationCreated, { applicationId: application.id });
-      void sendMail(received);
-      for (const notice of notices) void sendMail(notice);
-    });
+    }));
+    await queueMail(tx, `application-received:${application.id}`, received);
+    for (const notice of notices) await queueMail(tx, `application-new-notice:${application.id}:${notice.adminId}`, notice.mail);
+    tx.afterCommit(() => publish(rooms.coopAdmins(coop.id), RealtimeEvent.applicationCreated, { applicationId: application.id }));
     return { receipt: presentReceipt(application, coop.name), replayed: false };
   });
 }
@@ -307,7 +306,7 @@ async function coopNameOf(coopId: string, tx: Transaction): Promise<string> {
 /**
  * Admits the applicant, in one transaction: their account (a member, no password yet) and their
  * farm (profile from the application), the application marked approved with who and when, and a
- * single-use set-password link e-mailed after commit. The new farm is announced to the co-op live.
+ * single-use set-password link e-mailed (queued in the same transaction). The new farm is announced to the co-op live.
  */
 export async function approveApplication(
   actor: SessionUser,
@@ -364,15 +363,15 @@ export async function approveApplication(
       url: `${ctx.appUrl}/set-password?token=${token}`,
       ttlHours: ctx.linkTtlHours,
     });
+    await queueMail(tx, `application-approved:${application.id}`, mail);
     tx.afterCommit(() => {
       publish(rooms.coop(actor.coopId), RealtimeEvent.farmCreated, { farmId: farm.id });
       publish(rooms.coopAdmins(actor.coopId), RealtimeEvent.memberUpdated, { userId: user.id });
-      void sendMail(mail);
     });
   });
 }
 
-/** Turns the application down; the reason is kept and e-mailed to the applicant after commit. */
+/** Turns the application down; the reason is kept and e-mailed to the applicant (queued in the same transaction). */
 export async function rejectApplication(
   actor: SessionUser,
   applicationId: string,
@@ -400,7 +399,7 @@ export async function rejectApplication(
       coopName: await coopNameOf(actor.coopId, tx),
       reason: input.reason,
     });
-    tx.afterCommit(() => void sendMail(mail));
+    await queueMail(tx, `application-rejected:${application.id}`, mail);
   });
 }
 

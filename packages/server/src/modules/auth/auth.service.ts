@@ -2,7 +2,7 @@ import { packRules } from '@casl/ability/extra';
 import { defineAbilityFor, ErrorCode, rooms, type MeDto } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
 import { AppError } from '../../lib/app-error';
-import { sendMail } from '../../lib/mailer';
+import { queueMail } from '../../lib/mail-outbox';
 import { assertPasswordAllowed, hashPassword } from '../../lib/passwords';
 import { disconnectRoom } from '../../lib/realtime';
 import { findIdentityByEmail } from '../../http/passport';
@@ -12,7 +12,7 @@ import { getCoop } from '../coops/coops.service';
 import { acceptPendingInvitation } from '../members/members.service';
 import { findUser, replacePassword } from '../users/users.service';
 import { passwordResetMail } from './auth.mail';
-import { consumeToken, issueToken, peekToken } from './tokens';
+import { consumeToken, hashToken, issueToken, peekToken } from './tokens';
 
 /** The signed-in person and their co-op, as `/api/me` and sign-in answer. */
 export async function describeMe(actor: SessionUser): Promise<MeDto> {
@@ -41,7 +41,7 @@ export async function requestPasswordReset(input: { email: string; ip: string | 
     const token = await issueToken({ userId: user.id, coopId: user.coopId, purpose: 'reset_password', ttlMinutes: opts.ttlMinutes }, tx);
     await recordAudit({ coopId: user.coopId, actorUserId: user.id, action: 'password_reset.requested', ip: input.ip }, tx);
     const mail = passwordResetMail({ to: user.email, name: user.name, url: `${opts.appUrl}/set-password?token=${token}`, ttlMinutes: opts.ttlMinutes });
-    tx.afterCommit(() => void sendMail(mail));
+    await queueMail(tx, `password-reset:${user.id}:${hashToken(token)}`, mail);
   });
 }
 

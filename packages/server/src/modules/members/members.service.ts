@@ -15,11 +15,11 @@ import {
 import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../http/passport';
 import { AppError } from '../../lib/app-error';
-import { sendMail } from '../../lib/mailer';
+import { queueMail } from '../../lib/mail-outbox';
 import { disconnectRoom, publish } from '../../lib/realtime';
 import { findPendingApplicationId } from '../applications/applications.service';
 import { lastSignIns, recordAudit } from '../audit/audit.service';
-import { issueToken } from '../auth/tokens';
+import { hashToken, issueToken } from '../auth/tokens';
 import { getCoop } from '../coops/coops.service';
 import { createFarm, findFarmRef, findFarmRefs, isFarmNameTaken } from '../farms/farms.service';
 import {
@@ -274,7 +274,7 @@ export async function inviteMember(actor: SessionUser, input: InvitationInput, c
       url: `${ctx.appUrl}/set-password?token=${token}`,
       ttlHours: ctx.linkTtlHours,
     });
-    tx.afterCommit(() => void sendMail(mail));
+    await queueMail(tx, `invitation:${user.id}:${hashToken(token)}`, mail);
     announce(actor, user, tx);
     return presentOne(actor.coopId, user, tx);
   });
@@ -313,7 +313,7 @@ export async function sendSetPasswordLink(actor: SessionUser, userId: string, ct
       { coopId: actor.coopId, actorUserId: actor.id, action: 'member.link_sent', subjectType: 'User', subjectId: user.id, details: { name: user.name }, ip: ctx.ip },
       tx,
     );
-    tx.afterCommit(() => void sendMail(mail));
+    await queueMail(tx, `set-password-link:${user.id}:${hashToken(token)}`, mail);
     announce(actor, user, tx);
     return presentOne(actor.coopId, user, tx);
   });
