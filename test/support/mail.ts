@@ -13,11 +13,14 @@ const api = () => {
   return url;
 };
 
-/** Waits for the mail to a unique recipient to reach maildev (never clears the shared inbox). */
-export async function waitForMail(to: string, opts: { subject?: RegExp; timeoutMs?: number } = {}): Promise<MaildevMessage> {
+/**
+ * Waits for the mail to a unique recipient to reach maildev (never clears the shared inbox). `inbox` is
+ * another maildev's web address, for a test that runs a mail server of its own.
+ */
+export async function waitForMail(to: string, opts: { subject?: RegExp; timeoutMs?: number; inbox?: string } = {}): Promise<MaildevMessage> {
   const deadline = Date.now() + (opts.timeoutMs ?? 10_000);
   while (Date.now() < deadline) {
-    const res = await fetch(`${api()}/api/email`);
+    const res = await fetch(`${opts.inbox ?? api()}/api/email`);
     const all = (await res.json()) as MaildevMessage[];
     const found = all.filter(
       (m) => m.to.some((r) => r.address.toLowerCase() === to.toLowerCase()) && (!opts.subject || opts.subject.test(m.subject)),
@@ -28,8 +31,8 @@ export async function waitForMail(to: string, opts: { subject?: RegExp; timeoutM
   throw new Error(`no e-mail to ${to}${opts.subject ? ` matching ${opts.subject}` : ''} arrived`);
 }
 
-export async function mailsTo(to: string): Promise<MaildevMessage[]> {
-  const res = await fetch(`${api()}/api/email`);
+export async function mailsTo(to: string, inbox = api()): Promise<MaildevMessage[]> {
+  const res = await fetch(`${inbox}/api/email`);
   const all = (await res.json()) as MaildevMessage[];
   return all.filter((m) => m.to.some((r) => r.address.toLowerCase() === to.toLowerCase()));
 }
