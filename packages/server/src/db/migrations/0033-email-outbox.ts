@@ -12,8 +12,8 @@ const MAIL_QUEUE = 'mail-outbox';
  * inside its co-op's transaction (the job carries only the row's id and co-op).
  *
  * The job queue that drains it is pg-boss's (schema of 0019), with its own queue created here by the
- * owner because the app role may not create the queue's table: 12 tries with doubling back-off from
- * 5 seconds cover a mail server that is down for several hours.
+ * owner because the app role may not create the queue's table: 16 tries with doubling back-off from
+ * 5 seconds cover a mail server that is down for about five days.
  */
 export const up: MigrationFn = async ({ context: { sql, appRole } }) => {
   await sql(`
@@ -37,7 +37,7 @@ export const up: MigrationFn = async ({ context: { sql, appRole } }) => {
     GRANT SELECT, INSERT, UPDATE ON email_outbox TO ${appRole};
   `);
   await sql(`
-    SELECT ${BOSS_SCHEMA}.create_queue('${MAIL_QUEUE}', '{"policy":"standard","retryLimit":12,"retryDelay":5,"retryBackoff":true,"expireInSeconds":300}'::json)
+    SELECT ${BOSS_SCHEMA}.create_queue('${MAIL_QUEUE}', '{"policy":"standard","retryLimit":16,"retryDelay":5,"retryBackoff":true,"expireInSeconds":300}'::json)
     WHERE NOT EXISTS (SELECT 1 FROM ${BOSS_SCHEMA}.queue WHERE name = '${MAIL_QUEUE}');
     GRANT SELECT, INSERT, UPDATE, DELETE ON ALL TABLES IN SCHEMA ${BOSS_SCHEMA} TO ${appRole};
   `);
