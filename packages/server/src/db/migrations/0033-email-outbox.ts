@@ -44,7 +44,10 @@ export const up: MigrationFn = async ({ context: { sql, appRole } }) => {
 };
 
 export const down: MigrationFn = async ({ context: { sql } }) => {
+  // The queue's table refers to the queue row, so its jobs go first.
   await sql(`
+    DELETE FROM ${BOSS_SCHEMA}.job WHERE name = '${MAIL_QUEUE}';
+    DELETE FROM ${BOSS_SCHEMA}.archive WHERE name = '${MAIL_QUEUE}';
     SELECT ${BOSS_SCHEMA}.delete_queue('${MAIL_QUEUE}') WHERE EXISTS (SELECT 1 FROM ${BOSS_SCHEMA}.queue WHERE name = '${MAIL_QUEUE}');
     DROP TABLE IF EXISTS email_outbox;
   `);
