@@ -94,8 +94,9 @@ function compose(recipient: Recipient, farmName: string, today: string, due: Alm
 /**
  * The morning e-mail run (called by the scheduled job with its clock): for everyone who opted in and
  * whose farm's clock has reached their hour (and not yet noon), claims the day's delivery (unique per
- * person and farm day, so several app instances or a repeated run send it once), and queues the e-mail of the day's
- * tasks, anything overdue, and what needs attention. A day with nothing to say is claimed but not sent.
+ * person and farm day, so several app instances or a repeated run send it once), and queues the
+ * e-mail of the day's tasks, anything overdue, and what needs attention. A day with nothing to say is
+ * claimed but not sent.
  */
 export async function sendMorningDigests(opts: { now: Date; appUrl: string }): Promise<{ sent: string[]; quiet: string[] }> {
   // Before any tenant is known: the SECURITY DEFINER look-up of migration 0019.

@@ -306,7 +306,8 @@ async function coopNameOf(coopId: string, tx: Transaction): Promise<string> {
 /**
  * Admits the applicant, in one transaction: their account (a member, no password yet) and their
  * farm (profile from the application), the application marked approved with who and when, and a
- * single-use set-password link e-mailed (queued in the same transaction). The new farm is announced to the co-op live.
+ * single-use set-password link e-mailed (queued in the same transaction). The new farm is announced
+ * to the co-op live.
  */
 export async function approveApplication(
   actor: SessionUser,
