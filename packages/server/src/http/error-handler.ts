@@ -15,16 +15,19 @@ function fieldMessages(error: ZodError): Record<string, string[]> {
   return details;
 }
 
-/** Seconds a client should wait before retrying while the database is out of reach (a restart takes a few). */
-export const DATABASE_RETRY_AFTER_SECONDS = 5;
+/** Seconds a client should wait before retrying a lost connection (a database restart takes a few). */
+export const RETRY_AFTER_SECONDS = 5;
 
 // PostgreSQL's connection exceptions (class 08) and shutdowns (57P01-57P03), and the socket errors of a lost server.
 const lostConnectionCodes = /^(08...|57P0[123]|ECONNREFUSED|ECONNRESET|ETIMEDOUT|EPIPE|ENOTFOUND|EHOSTUNREACH)$/;
 // What node-postgres says, without a code, when the server went away under a pooled connection.
 const lostConnectionMessages = /Connection terminated|not queryable|connection ended/i;
 
-/** A lost or refused database connection, as sequelize wraps it or as node-postgres throws it (the session store). */
-function isLostDatabase(error: unknown): boolean {
+/**
+ * A lost or refused database connection, as sequelize wraps it or as node-postgres throws it (the session
+ * store). A bare socket error cannot say which server it lost, so one from elsewhere is a 503 too: a retry is right.
+ */
+function isLostConnection(error: unknown): boolean {
   if (error instanceof ConnectionError) return true;
   const candidates = [error, (error as { parent?: unknown })?.parent, (error as { original?: unknown })?.original];
   return candidates.some((candidate) => {
@@ -58,8 +61,8 @@ function toAppError(error: unknown): AppError {
   if (clientStatus === 404) return new AppError(ErrorCode.notFound, 404, 'Nothing is at that address');
   if (clientStatus === 413) return new AppError(ErrorCode.payloadTooLarge, 413, 'The request is too large');
   if (clientStatus !== null) return new AppError(ErrorCode.validation, clientStatus, 'The request could not be read; check its address, headers and body');
-  if (isLostDatabase(error)) {
-    return new AppError(ErrorCode.unavailable, 503, 'Burrowline cannot reach its database for a moment; try again in a few seconds');
+  if (isLostConnection(error)) {
+    return new AppError(ErrorCode.unavailable, 503, 'Burrowline cannot reach a service it needs just now; try again in a few seconds');
   }
   return new AppError(ErrorCode.internal, 500, 'Something went wrong on our side; try again in a moment');
 }
@@ -75,7 +78,7 @@ export function errorBodyOf(
   } else if (appError.status === 403) {
     logger.warn('refused', { path: req.path, userId: req.user?.id, coopId: req.user?.coopId });
   }
-  const headers: Record<string, string> = appError.status === 503 ? { 'Retry-After': String(DATABASE_RETRY_AFTER_SECONDS) } : {};
+  const headers: Record<string, string> = appError.status === 503 ? { 'Retry-After': String(RETRY_AFTER_SECONDS) } : {};
   return { status: appError.status, body: { error: { code: appError.code, message: appError.message, details: appError.details } }, headers };
 }
 
