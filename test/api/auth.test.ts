@@ -104,7 +104,7 @@ describe('session lifetimes', () => {
 describe('sign-in rate limit', () => {
   it('when an account collects too many failures, then further tries are refused while another account still signs in', async () => {
     const coop = await createTestCoop();
-    const handle = testApp({ signIn: { windowSeconds: 60, maxPerIp: 100, maxFailuresPerAccount: 3, maxResetsPerIp: 10 } });
+    const handle = testApp({ signIn: { windowSeconds: 60, maxPerIp: 100, maxFailuresPerAccount: 3, maxFailuresPerAccountAllAddresses: 100, maxResetsPerIp: 10 } });
     for (let i = 0; i < 3; i++) {
       const res = await agentFor(handle).post('/api/session').send({ email: coop.member.email, password: `wrong-${i}-password` });
       expect(res.status).toBe(401);
@@ -119,7 +119,7 @@ describe('sign-in rate limit', () => {
 
   it('when one address sends too many sign-ins, then it is refused', async () => {
     const coop = await createTestCoop();
-    const handle = testApp({ signIn: { windowSeconds: 60, maxPerIp: 2, maxFailuresPerAccount: 50, maxResetsPerIp: 10 } });
+    const handle = testApp({ signIn: { windowSeconds: 60, maxPerIp: 2, maxFailuresPerAccount: 50, maxFailuresPerAccountAllAddresses: 500, maxResetsPerIp: 10 } });
     expect((await agentFor(handle).post('/api/session').send({ email: coop.member.email, password: TEST_PASSWORD })).status).toBe(200);
     expect((await agentFor(handle).post('/api/session').send({ email: coop.admin.email, password: TEST_PASSWORD })).status).toBe(200);
     expect((await agentFor(handle).post('/api/session').send({ email: coop.admin.email, password: TEST_PASSWORD })).status).toBe(429);

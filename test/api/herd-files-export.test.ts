@@ -106,6 +106,34 @@ describe('herd export (CSV)', () => {
   });
 });
 
+describe('herd export: text a spreadsheet would run', () => {
+  it('when every text field of an animal starts like a formula, then every cell of the export is made safe in the same way', async () => {
+    const hostileCoop = await createTestCoop();
+    const admin = await signedInAgent(hostileCoop.admin.email, TEST_PASSWORD, handle);
+    const breedName = '=HYPERLINK("http://evil.example","x")';
+    const breed = await admin.post('/api/breeds').send({ name: breedName, sizeClass: 'medium', source: 'Invented for a test' });
+    expect(breed.status).toBe(201);
+    const owner = await signedInAgent(hostileCoop.member.email, TEST_PASSWORD, handle);
+    const hostile = { name: '+SUM(1,2)', colour: '-2+3', registrationNumber: '@cmd', hutch: '=A1', breederName: '=bred("x")' };
+    await addAnimal(owner, { tattoo: 'HX-1', breedId: breed.body.id, origin: 'arrived', arrivedOn: '2024-02-01', ...hostile });
+
+    const res = await owner.get('/api/herd-export?status=all').buffer(true).parse(binaryParser);
+    expect(res.status).toBe(200);
+    const rows = parse(res.body as Buffer, { bom: true, columns: true }) as Record<string, string>[];
+    const row = rows.find((r) => r.tattoo === 'HX-1')!;
+    expect(row).toMatchObject({
+      name: "'+SUM(1,2)",
+      breed: `'${breedName}`,
+      colour: "'-2+3",
+      registration: "'@cmd",
+      hutch: "'=A1",
+      bred_by: `'=bred("x")`,
+      breed_makeup: `'${breedName} 100%`,
+    });
+    for (const r of rows) for (const [column, cell] of Object.entries(r)) expect(cell, column).not.toMatch(/^[=+\-@\t\r]/);
+  });
+});
+
 describe('pedigree certificate (PDF)', () => {
   it('when a member downloads the pedigree of an animal, then the PDF holds its details, four generations with tattoo, name, breed, colour and registration, its COI, the breeding farm and the date', async () => {
     const res = await member.get(`/api/pedigree-certificates/${idOf('TX-1')}`).buffer(true).parse(binaryParser);

@@ -7,7 +7,7 @@ import type { Config } from '../../packages/server/src/config/env';
 import { attachRealtime, closeRealtime } from '../../packages/server/src/lib/realtime';
 
 /** Sign-in limits loose enough for a file that signs many people in (the limits have their own tests). */
-export const ROOMY_SIGN_IN: Config['signIn'] = { windowSeconds: 60, maxPerIp: 100_000, maxFailuresPerAccount: 100_000, maxResetsPerIp: 100_000 };
+export const ROOMY_SIGN_IN: Config['signIn'] = { windowSeconds: 60, maxPerIp: 100_000, maxFailuresPerAccount: 100_000, maxFailuresPerAccountAllAddresses: 100_000, maxResetsPerIp: 100_000 };
 
 let shared: AppHandle | null = null;
 

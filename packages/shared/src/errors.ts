@@ -17,6 +17,8 @@ export const ErrorCode = {
   /** An upload whose content (checked by its signature, not its name) is not a kind we accept. */
   unsupportedFile: 'unsupported_file',
   internal: 'internal_error',
+  /** The database is out of reach for a moment (a restart, a lost connection): try again after `Retry-After`. */
+  unavailable: 'unavailable',
 } as const;
 
 export type ErrorCode = (typeof ErrorCode)[keyof typeof ErrorCode];

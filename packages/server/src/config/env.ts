@@ -22,6 +22,7 @@ const envSchema = z.object({
   SIGNIN_WINDOW_SECONDS: z.coerce.number().int().min(1).default(15 * 60),
   SIGNIN_MAX_PER_IP: z.coerce.number().int().min(1).default(50),
   SIGNIN_MAX_FAILURES_PER_ACCOUNT: z.coerce.number().int().min(1).default(10),
+  SIGNIN_MAX_FAILURES_PER_ACCOUNT_ALL_ADDRESSES: z.coerce.number().int().min(1).default(100),
   PASSWORD_RESET_MAX_PER_IP: z.coerce.number().int().min(1).default(20),
   RESET_TOKEN_TTL_MINUTES: z.coerce.number().int().min(1).default(60),
   MEMBER_LINK_TTL_HOURS: z.coerce.number().int().min(1).default(72),
@@ -64,7 +65,11 @@ export interface Config {
   sessionAbsoluteSeconds: number;
   trustProxyHops: number;
   socketSessionCheckSeconds: number;
-  signIn: { windowSeconds: number; maxPerIp: number; maxFailuresPerAccount: number; maxResetsPerIp: number };
+  /**
+   * Sign-in limits: every attempt per address; failed attempts per account from one address; and failed
+   * attempts per account from all addresses together, which addresses the account signed in from before skip.
+   */
+  signIn: { windowSeconds: number; maxPerIp: number; maxFailuresPerAccount: number; maxFailuresPerAccountAllAddresses: number; maxResetsPerIp: number };
   resetTokenTtlMinutes: number;
   /**
    * Welcome links (approved applicants, invitations) live longer than reset links: people open them
@@ -114,6 +119,7 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
       windowSeconds: e.SIGNIN_WINDOW_SECONDS,
       maxPerIp: e.SIGNIN_MAX_PER_IP,
       maxFailuresPerAccount: e.SIGNIN_MAX_FAILURES_PER_ACCOUNT,
+      maxFailuresPerAccountAllAddresses: e.SIGNIN_MAX_FAILURES_PER_ACCOUNT_ALL_ADDRESSES,
       maxResetsPerIp: e.PASSWORD_RESET_MAX_PER_IP,
     },
     resetTokenTtlMinutes: e.RESET_TOKEN_TTL_MINUTES,

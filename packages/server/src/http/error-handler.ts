@@ -1,6 +1,6 @@
 import type { ErrorRequestHandler, Request, RequestHandler } from 'express';
 import { ForbiddenError } from '@casl/ability';
-import { OptimisticLockError, UniqueConstraintError } from 'sequelize';
+import { ConnectionError, OptimisticLockError, UniqueConstraintError } from 'sequelize';
 import { ZodError } from 'zod';
 import { ErrorCode, type ErrorBody } from '@burrowline/shared';
 import { AppError } from '../lib/app-error';
@@ -15,6 +15,35 @@ function fieldMessages(error: ZodError): Record<string, string[]> {
   return details;
 }
 
+/** Seconds a client should wait before retrying a lost connection (a database restart takes a few). */
+export const RETRY_AFTER_SECONDS = 5;
+
+// PostgreSQL's connection exceptions (class 08) and shutdowns (57P01-57P03), and the socket errors of a lost server.
+const lostConnectionCodes = /^(08...|57P0[123]|ECONNREFUSED|ECONNRESET|ETIMEDOUT|EPIPE|ENOTFOUND|EHOSTUNREACH)$/;
+// What node-postgres says, without a code, when the server went away under a pooled connection.
+const lostConnectionMessages = /Connection terminated|not queryable|connection ended/i;
+
+/**
+ * A lost or refused database connection, as sequelize wraps it or as node-postgres throws it (the session
+ * store). A bare socket error cannot say which server it lost, so one from elsewhere is a 503 too: a retry is right.
+ */
+function isLostConnection(error: unknown): boolean {
+  if (error instanceof ConnectionError) return true;
+  const candidates = [error, (error as { parent?: unknown })?.parent, (error as { original?: unknown })?.original];
+  return candidates.some((candidate) => {
+    if (!(candidate instanceof Error)) return false;
+    const code = (candidate as { code?: unknown }).code;
+    return (typeof code === 'string' && lostConnectionCodes.test(code)) || lostConnectionMessages.test(candidate.message);
+  });
+}
+
+/** A 4xx that a parser or the router set on its error (body-parser, express, path decoding); never a 5xx it claims. */
+function clientStatusOf(error: unknown): number | null {
+  const { status, statusCode } = (error ?? {}) as { status?: unknown; statusCode?: unknown };
+  const value = typeof status === 'number' ? status : statusCode;
+  return typeof value === 'number' && value >= 400 && value < 500 ? value : null;
+}
+
 function toAppError(error: unknown): AppError {
   if (error instanceof AppError) return error;
   if (error instanceof ZodError) return AppError.validation(fieldMessages(error));
@@ -27,24 +56,37 @@ function toAppError(error: unknown): AppError {
   if (bodyError.type === 'charset.unsupported' || bodyError.type === 'encoding.unsupported') {
     return new AppError(ErrorCode.validation, 400, 'Send the request as UTF-8 JSON');
   }
+  if (error instanceof URIError) return new AppError(ErrorCode.validation, 400, 'The address holds a broken %-escape');
+  const clientStatus = clientStatusOf(error);
+  if (clientStatus === 404) return new AppError(ErrorCode.notFound, 404, 'Nothing is at that address');
+  if (clientStatus === 413) return new AppError(ErrorCode.payloadTooLarge, 413, 'The request is too large');
+  if (clientStatus !== null) return new AppError(ErrorCode.validation, clientStatus, 'The request could not be read; check its address, headers and body');
+  if (isLostConnection(error)) {
+    return new AppError(ErrorCode.unavailable, 503, 'Burrowline cannot reach a service it needs just now; try again in a few seconds');
+  }
   return new AppError(ErrorCode.internal, 500, 'Something went wrong on our side; try again in a moment');
 }
 
 /** The status and body the error handler would send for `error` (logged the same way). */
-export function errorBodyOf(error: unknown, req: Pick<Request, 'method' | 'path' | 'user'>): { status: number; body: ErrorBody } {
+export function errorBodyOf(
+  error: unknown,
+  req: Pick<Request, 'method' | 'path' | 'user'>,
+): { status: number; body: ErrorBody; headers: Record<string, string> } {
   const appError = toAppError(error);
   if (appError.status >= 500) {
     logger.error('request failed', { method: req.method, path: req.path, error: error instanceof Error ? error.stack : String(error) });
   } else if (appError.status === 403) {
     logger.warn('refused', { path: req.path, userId: req.user?.id, coopId: req.user?.coopId });
   }
-  return { status: appError.status, body: { error: { code: appError.code, message: appError.message, details: appError.details } } };
+  const headers: Record<string, string> = appError.status === 503 ? { 'Retry-After': String(RETRY_AFTER_SECONDS) } : {};
+  return { status: appError.status, body: { error: { code: appError.code, message: appError.message, details: appError.details } }, headers };
 }
 
 /** The one error handler: shared body shape, no stack traces or SQL to the client (ASVS 16.5.1). */
 export const errorHandler: ErrorRequestHandler = (error, req, res, _next) => {
-  const { status, body } = errorBodyOf(error, req);
+  const { status, body, headers } = errorBodyOf(error, req);
   if (res.headersSent) return;
+  for (const [name, value] of Object.entries(headers)) res.set(name, value);
   res.status(status).json(body);
 };
 

@@ -148,7 +148,8 @@ function listOf(items: readonly string[]): string {
 
 /**
  * A cell safe to open in a spreadsheet: text that a spreadsheet would run as a formula (=, +, -, @,
- * tab, carriage return) gets a leading apostrophe (OWASP, CSV injection).
+ * tab, carriage return) gets a leading apostrophe (OWASP, CSV injection). The server's one CSV writer
+ * applies it to every cell, so an export never picks columns to escape.
  */
 export function spreadsheetSafe(value: string): string {
   return /^[=+\-@\t\r]/.test(value) ? `'${value}` : value;

@@ -3,6 +3,7 @@ import { centsPerKg, checkFeedUses, costFeedUses, feedCostPerWeight, purchaseGra
 import { doeLitterFeedConversion, feedConversion, groupFeedConversion } from './feed-conversion';
 import { dressOut, dressOutPercent } from './dress-out';
 import { usdaClass } from './usda-class';
+import { randomInt, seededRandom } from '../pedigree/seeded-random';
 
 const purchases: FeedPurchase[] = [
   { id: 'p1', feedId: 'pellets', boughtOn: '2026-05-01', grams: purchaseGrams(22_680, 1), priceCents: 1850 },
@@ -35,6 +36,31 @@ describe('feed purchases and uses', () => {
     const cost = costFeedUses(purchases, uses);
     expect(cost.get('u1')).toBe(Math.round((10_000 * 1850) / 22_680)); // 815.7 → 816
     expect([...cost.values()].reduce((s, c) => s + c, 0)).toBe(1850 + 2000);
+  });
+
+  it('when a $10.00 bag is given in three equal thirds, then the uses cost 333, 334 and 333 cents, not 999 in all', () => {
+    const bag: FeedPurchase[] = [{ id: 'bag', feedId: 'mix', boughtOn: '2026-06-01', grams: 3000, priceCents: 1000 }];
+    const thirds: FeedUse[] = ['u1', 'u2', 'u3'].map((id, i) => ({ id, feedId: 'mix', givenOn: `2026-06-0${i + 2}`, grams: 1000 }));
+    expect([...costFeedUses(bag, thirds).values()]).toEqual([333, 334, 333]);
+  });
+
+  it('when one purchase is used up in any split (seeded), then the cents of its uses add up exactly to its price', () => {
+    const random = seededRandom(20260601);
+    for (let round = 0; round < 300; round++) {
+      const grams = purchaseGrams(randomInt(random, 1, 25_000), randomInt(random, 1, 6));
+      const priceCents = randomInt(random, 0, 250_000);
+      const cuts = new Set<number>();
+      const parts = randomInt(random, 1, Math.min(25, grams));
+      while (cuts.size < parts - 1) cuts.add(randomInt(random, 1, grams - 1));
+      const bounds = [0, ...[...cuts].sort((a, b) => a - b), grams];
+      const uses: FeedUse[] = bounds.slice(1).map((end, i) => ({
+        id: `u${String(i).padStart(2, '0')}`, feedId: 'pellets', givenOn: '2026-06-02', grams: end - bounds[i]!,
+      }));
+      const cost = costFeedUses([{ id: 'p', feedId: 'pellets', boughtOn: '2026-06-01', grams, priceCents }], uses);
+      const total = [...cost.values()].reduce((sum, c) => sum + c, 0);
+      expect(total, `${priceCents} cents over ${grams} g in ${parts} uses`).toBe(priceCents);
+      for (const c of cost.values()) expect(Number.isInteger(c) && c >= 0).toBe(true);
+    }
   });
 
   it('when costs are asked of impossible uses, then it throws', () => {

@@ -3,7 +3,7 @@ import { ErrorCode, passwordResetRequestSchema, setPasswordSchema, signInSchema 
 import type { Config } from '../../config/env';
 import { actorOf, requireUser } from '../../http/ability';
 import type { SessionUser } from '../../http/passport';
-import { passwordResetLimiter, signInLimiters } from '../../http/rate-limit';
+import { passwordResetLimiter, signInAddressLimiter, SignInThrottle } from '../../http/rate-limit';
 import { AppError } from '../../lib/app-error';
 import { logger } from '../../lib/logger';
 import { disconnectRoom, sessionRoom } from '../../lib/realtime';
@@ -18,12 +18,13 @@ function ipOf(req: Request) {
 
 export function authRoutes(config: Config, passport: PassportStatic): Router {
   const router = Router();
+  const throttle = new SignInThrottle(config.signIn);
 
   router.get('/me', requireUser, async (req, res) => {
     res.json(await describeMe(actorOf(req)));
   });
 
-  router.post('/session', ...signInLimiters(config), async (req, res, next) => {
+  router.post('/session', signInAddressLimiter(config), throttle.middleware(), async (req, res, next) => {
     const input = signInSchema.parse(req.body);
     req.body = input;
     passport.authenticate('local', { session: false }, async (error: unknown, user: SessionUser | false) => {
@@ -70,6 +71,7 @@ export function authRoutes(config: Config, passport: PassportStatic): Router {
   router.post('/passwords', passwordResetLimiter(config), async (req, res) => {
     const input = setPasswordSchema.parse(req.body);
     const result = await setPasswordWithToken({ ...input, ip: ipOf(req) });
+    throttle.forgetFailures(result.email);
     res.json({ email: result.email });
   });
 

@@ -1,7 +1,5 @@
-import { stringify } from 'csv-stringify/sync';
-import {
-  exportWeightColumn, gramsPerWeightUnit, requiredImportColumns, spreadsheetSafe, type AnimalDto, type WeightUnit,
-} from '@burrowline/shared';
+import { exportWeightColumn, gramsPerWeightUnit, requiredImportColumns, type AnimalDto, type WeightUnit } from '@burrowline/shared';
+import { csvFile } from '../../lib/csv-file';
 
 function percent(fraction: number): string {
   return `${Number((fraction * 100).toFixed(2))}%`;
@@ -21,8 +19,7 @@ function breedCell(animal: AnimalDto): string {
 
 /**
  * The herd as CSV: the import's columns (so the file can be imported again), then what Burrowline
- * computes. UTF-8 with a byte-order mark and CRLF line ends, as spreadsheets expect; text cells that a
- * spreadsheet would run as formulas are made safe.
+ * computes, written by the one CSV writer (which makes every text cell safe from formulas).
  */
 export function herdCsv(animals: AnimalDto[], opts: { unit: WeightUnit; parents: Map<string, { sire: string | null; dam: string | null }> }): string {
   const weightColumn = exportWeightColumn(opts.unit);
@@ -33,16 +30,16 @@ export function herdCsv(animals: AnimalDto[], opts: { unit: WeightUnit; parents:
     const weight = a.latestWeight && a.latestWeight.reviewState !== 'returned' ? a.latestWeight : null;
     return [
       a.tattoo ?? '',
-      spreadsheetSafe(a.name),
+      a.name,
       a.sex,
       breedCell(a),
       a.birthDate ?? '',
       parents?.sire ?? '',
       parents?.dam ?? '',
-      spreadsheetSafe(a.colour),
-      spreadsheetSafe(a.registrationNumber ?? ''),
-      spreadsheetSafe(a.hutch),
-      spreadsheetSafe(a.breedingFarm?.name ?? a.breederName),
+      a.colour,
+      a.registrationNumber ?? '',
+      a.hutch,
+      a.breedingFarm?.name ?? a.breederName,
       weight ? (weight.grams / gramsPerWeightUnit[weightColumn]).toFixed(decimals) : '',
       weight?.weighedOn ?? '',
       a.disposition === 'on_farm' ? a.lifecycle : a.disposition,
@@ -51,5 +48,5 @@ export function herdCsv(animals: AnimalDto[], opts: { unit: WeightUnit; parents:
       a.ageClass ?? '',
     ];
   });
-  return stringify([header, ...rows], { bom: true, record_delimiter: 'windows' });
+  return csvFile([header, ...rows]);
 }
