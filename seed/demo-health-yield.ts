@@ -13,7 +13,7 @@ import { addDays, processingRecordCreateSchema, temperatureReadingCreateSchema, 
 import type { SessionUser } from '../packages/server/src/http/passport';
 import { recordTreatmentIn } from '../packages/server/src/modules/almanac/treatments.service';
 import { farmBreedingStockOf } from '../packages/server/src/modules/animals/animals.service';
-import { growOutFactsOfFarm } from '../packages/server/src/modules/growout/growout.service';
+import { growOutFactsOfFarm } from '../packages/server/src/modules/grow-out/grow-out.service';
 import { hasTemperatureReadings, recordTemperatureIn } from '../packages/server/src/modules/health/temperature.service';
 import { recordProcessingIn } from '../packages/server/src/modules/processing/processing.service';
 import { seededRandom } from '../packages/shared/src/pedigree/seeded-random';

@@ -10,7 +10,7 @@ import { coopHasAnimals } from '../packages/server/src/modules/animals/herd-impo
 import { farmDirectoryOf } from '../packages/server/src/modules/farms/farms.service';
 import { findUserByEmail } from '../packages/server/src/modules/users/users.service';
 import { loadDemoAlmanac } from './demo-almanac';
-import { loadDemoGrowOut } from './demo-growout';
+import { loadDemoGrowOut } from './demo-grow-out';
 import { loadDemoHealthYield } from './demo-health-yield';
 import { loadDemoHerds } from './demo-herds';
 

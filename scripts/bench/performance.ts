@@ -296,7 +296,7 @@ try {
   const { withTenant } = await import('../../packages/server/src/db/tenant');
   const { serviceOutcomesOfFarm } = await import('../../packages/server/src/modules/almanac/breeding.service');
   const { litterFactsOfFarm } = await import('../../packages/server/src/modules/litters/litters.service');
-  const { growOutFactsOfFarm } = await import('../../packages/server/src/modules/growout/growout.service');
+  const { growOutFactsOfFarm } = await import('../../packages/server/src/modules/grow-out/grow-out.service');
   const { doeLitterFeedOfFarm } = await import('../../packages/server/src/modules/feed/feed.service');
   const { processingFactsOfFarm } = await import('../../packages/server/src/modules/processing/processing.service');
   const parts: string[] = [];

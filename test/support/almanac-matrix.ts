@@ -6,7 +6,7 @@ import { createHousingUnit, placeInUnit } from '../../packages/server/src/module
 import { recordLitterEvent } from '../../packages/server/src/modules/litters/litters.service';
 import { almanacCounts, breedingPair, daysAgo, farmToday, litterAs, serviceAs } from './almanac';
 import { asTenant } from './db';
-import { feedAs, grownLitterAs, groupAs, purchaseAs } from './growout';
+import { feedAs, grownLitterAs, groupAs, purchaseAs } from './grow-out';
 import type { TestCoop } from './factories';
 import { actorOf, nextTattoo } from './herd';
 

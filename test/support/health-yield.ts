@@ -9,7 +9,7 @@ import { markForProcessing, recordProcessing } from '../../packages/server/src/m
 import { daysAgo } from './almanac';
 import { asTenant } from './db';
 import type { TestPerson } from './factories';
-import { groupAs, grownLitterAs } from './growout';
+import { groupAs, grownLitterAs } from './grow-out';
 import { actorOf } from './herd';
 
 /** A treatment as the veterinarian prescribed it, with defaults for what a test does not care about. */

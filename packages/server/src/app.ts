@@ -30,7 +30,7 @@ import { almanacRoutes, calendarFeedRoutes, serviceRoutes, treatmentRoutes, with
 import { heatCautionRoutes, temperatureRoutes } from './modules/health/health.routes';
 import { processingMarkRoutes, processingRecordRoutes } from './modules/processing/processing.routes';
 import { housingPlacementRoutes, housingRoutes, litterEventRoutes, litterRoutes } from './modules/litters/litters.routes';
-import { growOutRoutes } from './modules/growout/growout.routes';
+import { growOutRoutes } from './modules/grow-out/grow-out.routes';
 import { feedRoutes } from './modules/feed/feed.routes';
 import { performanceRoutes } from './modules/performance/performance.routes';
 

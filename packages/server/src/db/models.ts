@@ -21,7 +21,7 @@ import { Cooperative } from '../modules/coops/coop.model';
 import { Farm } from '../modules/farms/farm.model';
 import { HousingPlacement } from '../modules/litters/housing-placement.model';
 import { HousingUnit } from '../modules/litters/housing-unit.model';
-import { GrowOutGroup, GrowOutGroupLitter } from '../modules/growout/grow-out-group.model';
+import { GrowOutGroup, GrowOutGroupLitter } from '../modules/grow-out/grow-out-group.model';
 import { FeedPurchase, FeedUse, FeedUseShare } from '../modules/feed/feed.model';
 import { TemperatureReading } from '../modules/health/temperature-reading.model';
 import { ProcessingMark, ProcessingRecord } from '../modules/processing/processing-record.model';

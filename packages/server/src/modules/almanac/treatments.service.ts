@@ -9,7 +9,7 @@ import { AppError } from '../../lib/app-error';
 import { publish } from '../../lib/realtime';
 import { recordChanges } from '../audit/audit.service';
 import { animalFactsOf } from '../animals/animals.service';
-import { groupsOfFarm } from '../growout/growout.service';
+import { groupsOfFarm } from '../grow-out/grow-out.service';
 import { addMessage, ensureCan, farmOf, type FieldMessages } from './almanac-access';
 import { announceAlmanac, farmClockOf } from './almanac-context';
 import { presentAnimalRef, presentTreatment } from './almanac.presenter';

@@ -12,7 +12,7 @@ import { AppError } from '../../lib/app-error';
 import { publish } from '../../lib/realtime';
 import { animalFactsOf } from '../animals/animals.service';
 import { farmDirectoryOf } from '../farms/farms.service';
-import { canSeeMoney, groupOfFarm, groupsOfFarm, groupsPresentDuring, kitsInGroupsByLitter } from '../growout/growout.service';
+import { canSeeMoney, groupOfFarm, groupsOfFarm, groupsPresentDuring, kitsInGroupsByLitter } from '../grow-out/grow-out.service';
 import { farmLitterFactsOf, housingUnitNamesOf, housingUnitOfFarm, placementsDuring, type LitterFacts } from '../litters/litter-facts.service';
 import { namesOf } from '../users/users.service';
 import { FeedPurchase, FeedUse, FeedUseShare } from './feed.model';

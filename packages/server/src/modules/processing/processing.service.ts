@@ -16,7 +16,7 @@ import { presentContextOf } from '../almanac/tasks.service';
 import { withdrawalsCovering, type WithdrawalFacts } from '../almanac/treatments.service';
 import { recordChanges } from '../audit/audit.service';
 import { animalFactsOf, applyStatusEvent, type AnimalFacts } from '../animals/animals.service';
-import { closeEmptiedGroupIn, growOutFactsOfFarm, type GrowOutFacts } from '../growout/growout.service';
+import { closeEmptiedGroupIn, growOutFactsOfFarm, type GrowOutFacts } from '../grow-out/grow-out.service';
 import { namesOf } from '../users/users.service';
 import { presentProcessingMark, presentProcessingRecord, type ProcessingPresentContext } from './processing.presenter';
 import { ProcessingMark, ProcessingRecord } from './processing-record.model';

@@ -15,7 +15,7 @@ import {
 import type { SessionUser } from '../packages/server/src/http/passport';
 import { animalFactsOf } from '../packages/server/src/modules/animals/animals.service';
 import { recordFeedPurchaseIn, recordFeedUseIn } from '../packages/server/src/modules/feed/feed.service';
-import { closeGroupIn, formGroupIn, groupsOfFarm, weighGroupIn } from '../packages/server/src/modules/growout/growout.service';
+import { closeGroupIn, formGroupIn, groupsOfFarm, weighGroupIn } from '../packages/server/src/modules/grow-out/grow-out.service';
 import { farmLitterFactsOf, type LitterFacts } from '../packages/server/src/modules/litters/litter-facts.service';
 import { seededRandom } from '../packages/shared/src/pedigree/seeded-random';
 

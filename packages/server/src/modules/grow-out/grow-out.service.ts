@@ -150,7 +150,7 @@ async function farmToday(tx: Transaction, coopId: string, farmId: string): Promi
 
 /** Grow-out writes of one farm run one at a time, so two groups never take the same kits. */
 async function lockFarm(tx: Transaction, farmId: string): Promise<void> {
-  await lockUntilCommit(tx, `growout:${farmId}`);
+  await lockUntilCommit(tx, `grow-out:${farmId}`);
 }
 
 async function groupFor(tx: Transaction, actor: SessionUser, groupId: string, lock = false): Promise<GrowOutGroup> {
