@@ -1,5 +1,5 @@
 // Loads the demo co-op through the services, so it obeys the same rules as any user's data.
-import { connectDatabase, closeDatabase } from '../packages/server/src/db/sequelize';
+import { connectDatabase, closeDatabase } from '../packages/server/src/composition/database';
 import { hashPassword } from '../packages/server/src/lib/passwords';
 import { createCooperative, findPublicCoop } from '../packages/server/src/modules/coops/coops.service';
 import { createFarm } from '../packages/server/src/modules/farms/farms.service';

@@ -146,7 +146,7 @@ if (!process.env.DATABASE_URL) {
 process.env.SESSION_SECRET ??= `bench-${randomUUID()}-${randomUUID()}`;
 process.env.LOG_LEVEL ??= 'warn';
 const { createApp } = await import('../../packages/server/src/app');
-const { closeDatabase, connectDatabase, database } = await import('../../packages/server/src/db/sequelize');
+const { closeDatabase, connectDatabase, database } = await import('../../packages/server/src/composition/database');
 const { hashPassword } = await import('../../packages/server/src/lib/passwords');
 const { createCooperative } = await import('../../packages/server/src/modules/coops/coops.service');
 const { createFarm } = await import('../../packages/server/src/modules/farms/farms.service');
@@ -296,7 +296,7 @@ try {
   const { withTenant } = await import('../../packages/server/src/db/tenant');
   const { serviceOutcomesOfFarm } = await import('../../packages/server/src/modules/almanac/breeding.service');
   const { litterFactsOfFarm } = await import('../../packages/server/src/modules/litters/litters.service');
-  const { growOutFactsOfFarm } = await import('../../packages/server/src/modules/grow-out/grow-out.service');
+  const { growOutFactsOfFarm } = await import('../../packages/server/src/modules/grow-out/grow-out-facts.service');
   const { doeLitterFeedOfFarm } = await import('../../packages/server/src/modules/feed/feed.service');
   const { processingFactsOfFarm } = await import('../../packages/server/src/modules/processing/processing.service');
   const parts: string[] = [];

@@ -1,7 +1,7 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { addDays, RealtimeEvent, type GrowOutGroupDto, type GrowOutListDto, type LitterChoiceDto } from '@burrowline/shared';
 import { withTenant } from '../../packages/server/src/db/tenant';
-import { growOutFactsOfFarm, groupsOfFarm } from '../../packages/server/src/modules/grow-out/grow-out.service';
+import { growOutFactsOfFarm, groupsOfFarm } from '../../packages/server/src/modules/grow-out/grow-out-facts.service';
 import { daysAgo, farmToday, kindlingAs, serviceAs, taskRows } from '../support/almanac';
 import { asTenant } from '../support/db';
 import { createTestCoop, TEST_PASSWORD } from '../support/factories';

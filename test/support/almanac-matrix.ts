@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import { connectDatabase } from '../../packages/server/src/db/sequelize';
+import { connectDatabase } from '../../packages/server/src/composition/database';
 import { renewCalendarFeed } from '../../packages/server/src/modules/almanac/calendar-feed.service';
 import { updateTask } from '../../packages/server/src/modules/almanac/tasks.service';
 import { createHousingUnit, placeInUnit } from '../../packages/server/src/modules/litters/housing.service';

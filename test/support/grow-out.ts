@@ -2,7 +2,7 @@ import {
   feedPurchaseCreateSchema, feedUseCreateSchema, groupWeighInCreateSchema, growOutGroupCreateSchema,
   type FeedPurchaseCreateBody, type FeedUseCreateBody, type GroupWeighInCreateBody, type GrowOutGroupCreateBody, type GrowOutGroupDto,
 } from '@burrowline/shared';
-import { connectDatabase } from '../../packages/server/src/db/sequelize';
+import { connectDatabase } from '../../packages/server/src/composition/database';
 import { recordFeedPurchase, recordFeedUse } from '../../packages/server/src/modules/feed/feed.service';
 import { formGroup, recordGroupWeighIn } from '../../packages/server/src/modules/grow-out/grow-out.service';
 import { daysAgo, kindlingAs, litterAs, serviceAs } from './almanac';

@@ -2,7 +2,7 @@ import {
   processingMarkCreateSchema, processingRecordCreateSchema, temperatureReadingCreateSchema, treatmentCreateSchema,
   type ProcessingMarkCreateBody, type ProcessingRecordCreateBody, type TemperatureReadingCreateBody, type TreatmentCreateBody,
 } from '@burrowline/shared';
-import { connectDatabase } from '../../packages/server/src/db/sequelize';
+import { connectDatabase } from '../../packages/server/src/composition/database';
 import { recordTreatment } from '../../packages/server/src/modules/almanac/treatments.service';
 import { recordTemperature } from '../../packages/server/src/modules/health/temperature.service';
 import { markForProcessing, recordProcessing } from '../../packages/server/src/modules/processing/processing.service';

@@ -4,7 +4,7 @@ import { fileURLToPath } from 'node:url';
 import express, { type Express } from 'express';
 import helmet from 'helmet';
 import { loadConfig, type Config } from './config/env';
-import { connectDatabase, database } from './db/sequelize';
+import { connectDatabase, database } from './composition/database';
 import { attachAbility } from './http/ability';
 import { csrfGuard } from './http/csrf';
 import { apiNotFound, errorHandler } from './http/error-handler';

@@ -3,8 +3,7 @@ import { findPedigreeCycle, youngParentAt, type BreedDto, type Sex } from '@burr
 import { query, selectAnimalsByIds, type AnimalRow } from './animal-queries';
 import { labelOf, standardBreedOf, type PresentContext } from './animals.presenter';
 import type { PedigreeRow } from './pedigree-figures';
-
-export type FieldMessages = Record<string, string[]>;
+import type { FieldMessages } from '../farms/farm-access';
 
 function add(messages: FieldMessages, field: string, message: string) {
   (messages[field] ??= []).push(message);

@@ -1,152 +1,26 @@
 import { Op, type Transaction } from 'sequelize';
 import {
-  addDays, averageWeightByAge, checkWeightForAge, crossLabel, daysBetween, defineAbilityFor,
-  EARLIEST_GROW_OUT_AGE_DAYS, ErrorCode, feedCostPerWeight, gainSummary, gompertzWeight, groupBirthDate, groupFeedConversion,
-  projectionModelName, projectTargetDate, PUBLISHED_FEED_CONVERSION, PUBLISHED_GAIN, readinessWords, readyBy, RealtimeEvent, weighInSchedule,
-  referenceCurve, rooms, subjectOf, todayIn, type Action, type GroupWeighInCreateInput, type GrowOutGroupCloseInput,
-  type GrowOutGroupCreateInput, type GrowOutGroupDto, type GrowOutGroupListItemDto, type GrowOutListDto, type GrowOutListQuery,
-  type GrowthProjection, type LitterChoiceDto, type SizeClass, type SubjectName, type WeighInPoint,
+  averageWeightByAge, checkWeightForAge, crossLabel, daysBetween, defineAbilityFor, EARLIEST_GROW_OUT_AGE_DAYS, readinessWords, readyBy, RealtimeEvent, rooms, subjectOf, type GroupWeighInCreateInput, type GrowOutGroupCloseInput, type GrowOutGroupCreateInput, type GrowOutGroupDto, type GrowOutListDto, type GrowOutListQuery, type LitterChoiceDto,
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
-import type { SessionUser } from '../../http/passport';
+import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { publish } from '../../lib/realtime';
 import { settingsOf } from '../almanac/cycle-settings.service';
 import { completeWeighInTasksOf } from '../almanac/tasks.service';
-import { animalFactsOf } from '../animals/animals.service';
-import { groupWeighInsOf, insertGroupWeighIn, weighInOwnerOf, type GroupWeighInRow } from '../animals/group-weigh-ins.service';
-import { breedMapOf } from '../breeds/breeds.service';
-import { farmDirectoryOf } from '../farms/farms.service';
-import { feedTotalsByGroup } from '../feed/feed-totals.service';
-import { farmLitterFactsOf, housingUnitNamesOf, housingUnitOfFarm, litterFactsOf, type LitterFacts } from '../litters/litter-facts.service';
+import { animalFactsOf } from '../animals/animal-facts.service';
+import { groupWeighInsOf, insertGroupWeighIn, weighInOwnerOf } from '../animals/group-weigh-ins.service';
+import { canSeeMoney, ensureCan, farmOf } from '../farms/farm-access';
+import { farmTodayOf } from '../farms/farm-clock';
+import { farmLitterFactsOf, housingUnitNamesOf, housingUnitOfFarm, litterFactsOf } from '../litters/litter-facts.service';
 import { namesOf } from '../users/users.service';
 import { GrowOutGroup, GrowOutGroupLitter } from './grow-out-group.model';
-import { groupBy } from '../../lib/group-by';
+import { contextOf, groupFeedTotals } from './grow-out-context';
+import { chartAgesOf, listItemOf, presentGroupDetail, projectionOf } from './grow-out.presenter';
 import { lockUntilCommit } from '../../db/advisory-lock';
 
 // ---------------------------------------------------------------------------------------------------
-// Contracts for feed, health, processing and performance (issue 7 plan).
-
-export interface GrowOutFacts {
-  id: string; farmId: string; name: string; formedOn: string; status: 'growing' | 'closed'; closedOn: string | null;
-  targetGrams: number;
-  litters: { litterId: string; heads: number; damId: string; sireId: string; kindledOn: string }[];
-  /** Accepted group weigh-ins, oldest first. */
-  weighIns: { weighedOn: string; totalGrams: number; headCount: number }[];
-  /** Feed given to the group, including its allocated share of pen- and farm-wide feed (grams, cents). */
-  feedGrams: number; feedCostCents: number;
-}
-
-/**
- * Every grow-out group of a farm (or only the groups asked for) with its make-up, accepted weigh-ins and
- * feed, oldest first. Working out the feed book is the costly part: callers that need no feed (saving a
- * processing record) leave it out and get zeros.
- */
-export async function growOutFactsOfFarm(
-  tx: Transaction, coopId: string, farmId: string, opts: { groupIds?: string[]; withFeed?: boolean } = {},
-): Promise<GrowOutFacts[]> {
-  const groups = await GrowOutGroup.findAll({
-    where: { coopId, farmId, ...(opts.groupIds ? { id: { [Op.in]: opts.groupIds } } : {}) },
-    order: [['formedOn', 'ASC'], ['createdAt', 'ASC']],
-    transaction: tx,
-  });
-  const members = await membersOf(tx, groups.map((g) => g.id));
-  const litters = await litterFactsOf(tx, coopId, members.map((m) => m.litterId));
-  const weighIns = await groupWeighInsOf(tx, coopId, groups.map((g) => g.id), { acceptedOnly: true });
-  const feed = opts.withFeed === false ? new Map<string, { grams: number; costCents: number }>() : await feedTotalsByGroup(tx, coopId, farmId);
-  const membersByGroup = groupBy(members, (m) => m.groupId);
-  const weighInsByGroup = groupBy(weighIns, (w) => w.groupId);
-  return groups.map((g) => ({
-    id: g.id, farmId: g.farmId, name: g.name, formedOn: g.formedOn, status: g.status, closedOn: g.closedOn, targetGrams: g.targetGrams,
-    litters: (membersByGroup.get(g.id) ?? []).map((m) => {
-      const l = litters.get(m.litterId)!;
-      return { litterId: m.litterId, heads: m.heads, damId: l.damId, sireId: l.sireId, kindledOn: l.kindledOn };
-    }),
-    weighIns: (weighInsByGroup.get(g.id) ?? []).map((w) => ({ weighedOn: w.weighedOn, totalGrams: w.totalGrams, headCount: w.headCount })),
-    feedGrams: feed.get(g.id)?.grams ?? 0,
-    feedCostCents: feed.get(g.id)?.costCents ?? 0,
-  }));
-}
-
-/** A farm's groups for pickers (treatments, processing, feed), growing first. */
-export async function groupsOfFarm(tx: Transaction, coopId: string, farmId: string): Promise<{ id: string; name: string; status: 'growing' | 'closed'; litterIds: string[] }[]> {
-  const groups = await GrowOutGroup.findAll({ where: { coopId, farmId }, order: [['status', 'DESC'], ['formedOn', 'DESC']], transaction: tx });
-  const members = await membersOf(tx, groups.map((g) => g.id));
-  return groups.map((g) => ({ id: g.id, name: g.name, status: g.status, litterIds: members.filter((m) => m.groupId === g.id).map((m) => m.litterId) }));
-}
-
-/** Kits of each litter of a farm taken into groups, with the day they left the doe (the forming date). */
-export async function kitsInGroupsByLitter(tx: Transaction, coopId: string, farmId: string): Promise<Map<string, { on: string; heads: number }[]>> {
-  const groups = await GrowOutGroup.findAll({ where: { coopId, farmId }, attributes: ['id', 'formedOn'], transaction: tx });
-  const formed = new Map(groups.map((g) => [g.id, g.formedOn]));
-  const result = new Map<string, { on: string; heads: number }[]>();
-  for (const m of await membersOf(tx, groups.map((g) => g.id))) {
-    result.set(m.litterId, [...(result.get(m.litterId) ?? []), { on: formed.get(m.groupId)!, heads: m.heads }]);
-  }
-  return result;
-}
-
-/** One group of a farm (for feed given to it), or null when it is not the farm's. */
-export async function groupOfFarm(tx: Transaction, coopId: string, farmId: string, groupId: string) {
-  const g = await GrowOutGroup.findOne({ where: { id: groupId, coopId, farmId }, transaction: tx });
-  return g ? { id: g.id, name: g.name, status: g.status, formedOn: g.formedOn, closedOn: g.closedOn, housingUnitId: g.housingUnitId } : null;
-}
-
-/**
- * The groups on a farm (or in one pen) at some time in a period, with their head-days in it and their
- * live weight at its end: the shares pen- and farm-wide feed is split by. Heads follow the weigh-ins'
- * head counts; before the first weigh-in the live weight is the reference curve's for the age.
- */
-export async function groupsPresentDuring(
-  tx: Transaction, coopId: string, farmId: string, from: string, to: string, unitId?: string,
-): Promise<{ id: string; name: string; headDays: number; liveGrams: number }[]> {
-  const groups = await GrowOutGroup.findAll({
-    where: {
-      coopId, farmId, formedOn: { [Op.lte]: to }, ...(unitId ? { housingUnitId: unitId } : {}),
-      [Op.or]: [{ closedOn: { [Op.is]: null } }, { closedOn: { [Op.gte]: from } }],
-    },
-    transaction: tx,
-  });
-  if (groups.length === 0) return [];
-  const ctx = await contextOf(tx, coopId, groups);
-  return groups.map((g) => {
-    const info = ctx.info(g);
-    const start = from > g.formedOn ? from : g.formedOn;
-    const end = g.closedOn && g.closedOn < to ? g.closedOn : to;
-    let headDaysTotal = 0;
-    for (let day = start; day <= end; day = addDays(day, 1)) headDaysTotal += headsOn(info, day);
-    const latest = [...info.accepted].reverse().find((w) => w.weighedOn <= to);
-    const liveGrams = latest
-      ? (latest.totalGrams / latest.headCount) * headsOn(info, to)
-      : gompertzWeight(Math.max(daysBetween(info.birthDate, to), 0), referenceCurve(info.sizeClass)) * headsOn(info, to);
-    return { id: g.id, name: g.name, headDays: headDaysTotal, liveGrams: Math.round(liveGrams) };
-  }).filter((g) => g.headDays > 0);
-}
-
-// ---------------------------------------------------------------------------------------------------
 // Access
-
-function farmOf(actor: SessionUser): string {
-  if (!actor.farmId) throw new AppError(ErrorCode.forbidden, 403, 'Only a member of a farm keeps grow-out groups');
-  return actor.farmId;
-}
-
-/** Another farm's (or co-op's) group does not exist for the actor (404); on their own farm a refusal is 403. */
-function ensureCan(actor: SessionUser, action: Action, subjectName: SubjectName, fields: Record<string, unknown>, what: string, refusal: string): void {
-  const ability = defineAbilityFor(actor);
-  if (ability.can(action, subjectOf(subjectName, { coopId: actor.coopId, ...fields }))) return;
-  if (fields.farmId !== actor.farmId) throw AppError.notFound(what);
-  throw new AppError(ErrorCode.forbidden, 403, refusal);
-}
-
-export function canSeeMoney(actor: SessionUser, farmId: string): boolean {
-  return defineAbilityFor(actor).can('read', subjectOf('Money', { coopId: actor.coopId, farmId }));
-}
-
-async function farmToday(tx: Transaction, coopId: string, farmId: string): Promise<string> {
-  const farm = (await farmDirectoryOf(coopId, tx)).get(farmId);
-  return todayIn(farm?.timeZone || 'America/Chicago');
-}
 
 /** Grow-out writes of one farm run one at a time, so two groups never take the same kits. */
 async function lockFarm(tx: Transaction, farmId: string): Promise<void> {
@@ -167,82 +41,6 @@ function announce(tx: Transaction, farmId: string, groupId: string | null): void
 // ---------------------------------------------------------------------------------------------------
 // Reading groups
 
-async function membersOf(tx: Transaction, groupIds: string[]): Promise<GrowOutGroupLitter[]> {
-  if (groupIds.length === 0) return [];
-  return GrowOutGroupLitter.findAll({ where: { groupId: { [Op.in]: groupIds } }, transaction: tx, raw: true });
-}
-
-interface GroupInfo {
-  group: GrowOutGroup;
-  members: { litterId: string; heads: number; litter: LitterFacts }[];
-  heads: number;
-  birthDate: string;
-  sizeClass: SizeClass;
-  cross: { key: string; label: string; kind: 'purebred' | 'cross' | 'unknown' };
-  /** Weigh-ins that count (accepted), oldest first; `all` keeps pending ones too. */
-  accepted: GroupWeighInRow[];
-  all: GroupWeighInRow[];
-}
-
-function headsOn(info: GroupInfo, date: string): number {
-  if (date < info.group.formedOn || (info.group.closedOn && date > info.group.closedOn)) return 0;
-  const latest = [...info.accepted].reverse().find((w) => w.weighedOn <= date);
-  return latest ? latest.headCount : info.heads;
-}
-
-/** Everything presenting a set of groups needs, fetched once. */
-async function contextOf(tx: Transaction, coopId: string, groups: GrowOutGroup[]) {
-  const members = await membersOf(tx, groups.map((g) => g.id));
-  const litters = await litterFactsOf(tx, coopId, members.map((m) => m.litterId));
-  const parents = await animalFactsOf(tx, coopId, [...litters.values()].flatMap((l) => [l.damId, l.sireId]));
-  const breeds = await breedMapOf(coopId, tx);
-  const weighIns = await groupWeighInsOf(tx, coopId, groups.map((g) => g.id));
-  const crossOf = (l: LitterFacts) => crossLabel(parents.get(l.sireId)?.lineBreedName, parents.get(l.damId)?.lineBreedName);
-  const cache = new Map<string, GroupInfo>();
-  const info = (group: GrowOutGroup): GroupInfo => {
-    const hit = cache.get(group.id);
-    if (hit) return hit;
-    const own = members.filter((m) => m.groupId === group.id).map((m) => ({ litterId: m.litterId, heads: m.heads, litter: litters.get(m.litterId)! }));
-    const main = [...own].sort((a, b) => b.heads - a.heads)[0];
-    const sireBreed = main ? parents.get(main.litter.sireId)?.breedId : null;
-    const damBreed = main ? parents.get(main.litter.damId)?.breedId : null;
-    const sizeClass = (sireBreed && breeds.get(sireBreed)?.sizeClass) || (damBreed && breeds.get(damBreed)?.sizeClass) || 'medium';
-    const all = weighIns.filter((w) => w.groupId === group.id);
-    const result: GroupInfo = {
-      group, members: own, heads: own.reduce((n, m) => n + m.heads, 0),
-      birthDate: own.length > 0 ? groupBirthDate(own.map((m) => ({ kindledOn: m.litter.kindledOn, heads: m.heads }))) : group.formedOn,
-      sizeClass, cross: main ? crossOf(main.litter) : crossLabel(null, null),
-      accepted: all.filter((w) => w.reviewState === 'accepted'), all,
-    };
-    cache.set(group.id, result);
-    return result;
-  };
-  return { info, parents, crossOf };
-}
-
-const points = (rows: GroupWeighInRow[]): WeighInPoint[] => rows.map((w) => ({ weighedOn: w.weighedOn, totalGrams: w.totalGrams, headCount: w.headCount }));
-
-function projectionOf(info: GroupInfo): GrowthProjection {
-  return projectTargetDate({ birthDate: info.birthDate, weighIns: points(info.accepted), targetGrams: info.group.targetGrams, sizeClass: info.sizeClass });
-}
-
-function listItemOf(info: GroupInfo, today: string): GrowOutGroupListItemDto {
-  const g = info.group;
-  const projection = projectionOf(info);
-  const gain = gainSummary(points(info.accepted));
-  const last = info.accepted.at(-1);
-  return {
-    id: g.id, farmId: g.farmId, name: g.name, formedOn: g.formedOn, status: g.status, closedOn: g.closedOn,
-    heads: info.heads, currentHeads: last ? last.headCount : info.heads, birthDate: info.birthDate,
-    ageDays: daysBetween(info.birthDate, g.closedOn ?? today), targetGrams: g.targetGrams, crossLabel: info.cross.label,
-    latest: last ? { weighedOn: last.weighedOn, gramsPerHead: Math.round(last.totalGrams / last.headCount) } : null,
-    gramsPerDay: gain.gramsPerDay,
-    projection: { status: projection.status, projectedOn: projection.status === 'reached' ? projection.reachedOn : projection.projectedOn, interval: projection.interval, modelKind: projection.model.kind, message: projection.message },
-    pendingWeighIns: info.all.filter((w) => w.reviewState === 'pending').length,
-    version: g.version,
-  };
-}
-
 /** The co-op's mean weight by age for groups of one breed or cross, from every farm's groups: aggregates only. */
 async function coopAverageFor(tx: Transaction, coopId: string, crossKey: string, ages: number[]) {
   const groups = await GrowOutGroup.findAll({ where: { coopId }, transaction: tx });
@@ -256,132 +54,29 @@ async function coopAverageFor(tx: Transaction, coopId: string, crossKey: string,
   return averageWeightByAge(rows, ages);
 }
 
-/** Fryers gain about 30–40 g a day; over 100 g a head a day (and 300 g in all, beyond gut fill) since the last weigh-in asks for a check (common practice). */
-const SUSPECT_GAIN_GRAMS_PER_DAY = 100;
-
-function cautionOf(w: GroupWeighInRow, info: GroupInfo): string | null {
-  const perHead = w.totalGrams / w.headCount;
-  const check = checkWeightForAge(perHead, daysBetween(info.birthDate, w.weighedOn), info.sizeClass);
-  if (check?.level === 'warning') return check.message;
-  const previous = [...info.accepted].reverse().find((p) => p.weighedOn < w.weighedOn);
-  if (previous) {
-    const rise = perHead - previous.totalGrams / previous.headCount;
-    const days = daysBetween(previous.weighedOn, w.weighedOn);
-    if (rise > 300 && rise / days > SUSPECT_GAIN_GRAMS_PER_DAY) {
-      return `${Math.round(rise / days)} g a head a day since ${previous.weighedOn} is far above the usual 30–40 g; check the weight and the head count`;
-    }
-  }
-  return null;
-}
-
 async function detailOf(tx: Transaction, actor: SessionUser, group: GrowOutGroup): Promise<GrowOutGroupDto> {
-  const today = await farmToday(tx, actor.coopId, group.farmId);
   const ctx = await contextOf(tx, actor.coopId, [group]);
   const info = ctx.info(group);
-  const base = listItemOf(info, today);
-  const projection = projectionOf(info);
-  const names = await namesOf(info.all.map((w) => w.enteredBy), tx);
-  const units = await housingUnitNamesOf(tx, actor.coopId, group.housingUnitId ? [group.housingUnitId] : []);
-
-  // Per-kit gain: kits weighed one by one and labelled, followed across weigh-ins.
-  const byLabel = new Map<string, WeighInPoint[]>();
-  for (const w of info.accepted) {
-    for (const k of w.kitWeights ?? []) {
-      if (!k.label) continue;
-      const key = k.label;
-      byLabel.set(key, [...(byLabel.get(key) ?? []), { weighedOn: w.weighedOn, totalGrams: k.grams, headCount: 1 }]);
-    }
-  }
-  const kitGains = [...byLabel.entries()].sort(([a], [b]) => a.localeCompare(b, 'en', { numeric: true })).map(([label, pts]) => ({
-    label, weighIns: pts.length, latestGrams: pts.at(-1)!.totalGrams, gramsPerDay: gainSummary(pts).gramsPerDay,
-  }));
-
-  // The chart: the group, the co-op's average for its cross, the published line, the model's curve.
-  const groupSeries = gainPoints(info);
-  const lastAge = groupSeries.at(-1)?.ageDays ?? 56;
-  const endAge = Math.max(84, Math.ceil((projection.projectedAgeDays ?? lastAge) + 7), lastAge + 7);
-  const ages: number[] = [];
-  for (let a = 28; a <= endAge; a += 7) ages.push(a);
-  const coop = (await coopAverageFor(tx, actor.coopId, info.cross.key, ages)).map((r) => ({ ageDays: r.ageDays, grams: r.gramsPerHead === null ? null : Math.round(r.gramsPerHead), heads: r.heads, groups: r.weighIns }));
-  const publishedStart = PUBLISHED_GAIN.eightWeekGrams - PUBLISHED_GAIN.gramsPerDay * PUBLISHED_GAIN.toAgeDays;
-  const projectionSeries: { ageDays: number; grams: number }[] = [];
-  const firstAge = groupSeries[0]?.ageDays;
-  if (firstAge !== undefined && projection.status === 'projected') {
-    const until = Math.ceil(projection.projectedAgeDays ?? lastAge) + 3;
-    for (let a = firstAge; a <= until; a += 2) {
-      const m = projection.model;
-      const grams = m.gompertz ? gompertzWeight(a, m.gompertz) : m.line ? m.line.interceptGrams + m.line.gramsPerDay * a : null;
-      if (grams !== null) projectionSeries.push({ ageDays: a, grams: Math.round(grams) });
-    }
-  }
-
-  // Feed: the group's own feed and its share of pen- and farm-wide feed.
-  const feed = (await feedTotalsByGroup(tx, actor.coopId, group.farmId)).get(group.id) ?? { grams: 0, costCents: 0 };
-  const first = info.accepted[0];
-  const last = info.accepted.at(-1);
-  const conversion = first && last && first.weighedOn !== last.weighedOn
-    ? groupFeedConversion({ feedGrams: feed.grams, startTotalGrams: first.totalGrams, endTotalGrams: last.totalGrams })
-    : null;
-  const money = canSeeMoney(actor, group.farmId);
-  const cost = money && feed.grams > 0 ? feedCostPerWeight({ feedCostCents: feed.costCents, liveGrams: conversion && conversion.gainGrams > 0 ? conversion.gainGrams : null }) : null;
-  const model = projectionModelName(projection);
-  const schedule = weighInSchedule({
-    birthDate: info.birthDate, agesDays: (await settingsOf(tx, group.farmId)).settings.weighInAgesDays, formedOn: group.formedOn,
-    closedOn: group.closedOn, weighedOn: info.all.map((w) => w.weighedOn), today,
-  });
-
-  return {
-    ...base,
-    housingUnit: group.housingUnitId ? { id: group.housingUnitId, name: units.get(group.housingUnitId) ?? 'A pen' } : null,
-    notes: group.notes,
-    litters: info.members.map((m) => ({
-      litterId: m.litterId, heads: m.heads, kindledOn: m.litter.kindledOn,
-      dam: { id: m.litter.damId, name: ctx.parents.get(m.litter.damId)?.name ?? 'Unknown doe' },
-      sire: { id: m.litter.sireId, name: ctx.parents.get(m.litter.sireId)?.name ?? 'Unknown buck' },
-      cross: ctx.crossOf(m.litter),
-    })),
-    weighIns: info.all.map((w) => ({
-      id: w.id, weighedOn: w.weighedOn, ageDays: daysBetween(info.birthDate, w.weighedOn), totalGrams: w.totalGrams, headCount: w.headCount,
-      gramsPerHead: Math.round(w.totalGrams / w.headCount), kits: w.kitWeights, note: w.note,
-      enteredBy: { id: w.enteredBy, name: names.get(w.enteredBy) ?? 'Someone' }, reviewState: w.reviewState, caution: cautionOf(w, info), version: w.version,
-    })),
-    weighInSchedule: schedule,
-    gain: gainSummary(points(info.accepted)),
-    kitGains,
-    projection: { ...projection, modelName: model.name, why: model.why },
-    chart: {
-      group: groupSeries, coop, coopLabel: info.cross.label,
-      published: [{ ageDays: 0, grams: Math.round(publishedStart * 10) / 10 }, { ageDays: PUBLISHED_GAIN.toAgeDays, grams: PUBLISHED_GAIN.eightWeekGrams }],
-      publishedSource: PUBLISHED_GAIN.source, projection: projectionSeries, targetGrams: group.targetGrams,
-    },
-    feed: {
-      // No feed recorded yet is an unknown conversion, not a free one.
-      feedGrams: feed.grams, gainGrams: conversion?.gainGrams ?? null, conversion: feed.grams > 0 ? (conversion?.ratio ?? null) : null,
-      feedCostCents: money ? feed.costCents : null, costPerKgLiveCents: cost?.perKgLive ?? null, costPerLbLiveCents: cost?.perLbLive ?? null,
-      publishedConversion: PUBLISHED_FEED_CONVERSION.growOutPellets,
-    },
+  return presentGroupDetail(info, {
+    today: await farmTodayOf(tx, actor.coopId, group.farmId),
+    parents: ctx.parents,
+    crossOf: ctx.crossOf,
+    names: await namesOf(info.all.map((w) => w.enteredBy), tx),
+    units: await housingUnitNamesOf(tx, actor.coopId, group.housingUnitId ? [group.housingUnitId] : []),
+    coopAverage: await coopAverageFor(tx, actor.coopId, info.cross.key, chartAgesOf(info)),
+    feed: (await groupFeedTotals(tx, actor.coopId, group.farmId)).get(group.id) ?? { grams: 0, costCents: 0 },
+    weighInAgesDays: (await settingsOf(tx, group.farmId)).settings.weighInAgesDays,
+    canSeeMoney: canSeeMoney(actor, group.farmId),
     canEdit: defineAbilityFor(actor).can('update', subjectOf('GrowOutGroup', { coopId: actor.coopId, farmId: group.farmId })),
-    canSeeMoney: money,
-  };
-}
-
-function gainPoints(info: GroupInfo): { ageDays: number; grams: number; weighedOn: string }[] {
-  const byDay = new Map<string, { grams: number; heads: number }>();
-  for (const w of info.accepted) {
-    const d = byDay.get(w.weighedOn) ?? { grams: 0, heads: 0 };
-    d.grams += w.totalGrams;
-    d.heads += w.headCount;
-    byDay.set(w.weighedOn, d);
-  }
-  return [...byDay.entries()].map(([on, d]) => ({ weighedOn: on, ageDays: daysBetween(info.birthDate, on), grams: Math.round(d.grams / d.heads) }));
+  });
 }
 
 /** The farm's groups (growing, closed or all), with the projection of each and, for a date, which will be ready by then. */
 export async function listGroups(actor: SessionUser, q: GrowOutListQuery): Promise<GrowOutListDto> {
-  const farmId = farmOf(actor);
+  const farmId = farmOf(actor, 'Only a member of a farm keeps grow-out groups');
   ensureCan(actor, 'read', 'GrowOutGroup', { farmId }, 'Those groups', 'You may not see grow-out groups');
   return withTenant(actor, async (tx) => {
-    const today = await farmToday(tx, actor.coopId, farmId);
+    const today = await farmTodayOf(tx, actor.coopId, farmId);
     const groups = await GrowOutGroup.findAll({
       where: { coopId: actor.coopId, farmId, ...(q.status === 'all' ? {} : { status: q.status }) },
       order: [['status', 'DESC'], ['formedOn', 'DESC'], ['createdAt', 'DESC']],
@@ -409,7 +104,7 @@ export async function listGroups(actor: SessionUser, q: GrowOutListQuery): Promi
 }
 
 export async function getGroup(actor: SessionUser, groupId: string): Promise<GrowOutGroupDto> {
-  farmOf(actor);
+  farmOf(actor, 'Only a member of a farm keeps grow-out groups');
   return withTenant(actor, async (tx) => detailOf(tx, actor, await groupFor(tx, actor, groupId)));
 }
 
@@ -425,10 +120,10 @@ async function headsInGroups(tx: Transaction, coopId: string, litterIds: string[
 
 /** The farm's litters kits can be put in a group from: weaned or at weaning age, with kits not yet in a group. */
 export async function litterChoices(actor: SessionUser): Promise<{ litters: LitterChoiceDto[] }> {
-  const farmId = farmOf(actor);
+  const farmId = farmOf(actor, 'Only a member of a farm keeps grow-out groups');
   ensureCan(actor, 'read', 'GrowOutGroup', { farmId }, 'Those litters', 'You may not see grow-out groups');
   return withTenant(actor, async (tx) => {
-    const today = await farmToday(tx, actor.coopId, farmId);
+    const today = await farmTodayOf(tx, actor.coopId, farmId);
     const litters = (await farmLitterFactsOf(tx, actor.coopId, farmId)).filter((l) => l.alive > 0 && daysBetween(l.kindledOn, today) <= 200);
     const used = await headsInGroups(tx, actor.coopId, litters.map((l) => l.id));
     const parents = await animalFactsOf(tx, actor.coopId, litters.flatMap((l) => [l.damId, l.sireId]));
@@ -454,7 +149,7 @@ export async function litterChoices(actor: SessionUser): Promise<{ litters: Litt
  * alive beyond those already in groups, a pen not of the farm, or a date in the future.
  */
 export async function formGroup(actor: SessionUser, input: GrowOutGroupCreateInput): Promise<GrowOutGroupDto> {
-  const farmId = farmOf(actor);
+  const farmId = farmOf(actor, 'Only a member of a farm keeps grow-out groups');
   ensureCan(actor, 'create', 'GrowOutGroup', { farmId }, 'That farm', 'Only members of the farm form grow-out groups');
   return withTenant(actor, async (tx) => {
     if (input.id) {
@@ -468,11 +163,11 @@ export async function formGroup(actor: SessionUser, input: GrowOutGroupCreateInp
 
 /** formGroup inside the caller's transaction (the demo loader); the same checks, no presenting. */
 export async function formGroupIn(tx: Transaction, actor: SessionUser, input: GrowOutGroupCreateInput): Promise<GrowOutGroup> {
-  const farmId = farmOf(actor);
+  const farmId = farmOf(actor, 'Only a member of a farm keeps grow-out groups');
   ensureCan(actor, 'create', 'GrowOutGroup', { farmId }, 'That farm', 'Only members of the farm form grow-out groups');
   {
     await lockFarm(tx, farmId);
-    const today = await farmToday(tx, actor.coopId, farmId);
+    const today = await farmTodayOf(tx, actor.coopId, farmId);
     const errors: Record<string, string[]> = {};
     const add = (field: string, message: string) => (errors[field] ??= []).push(message);
     if (input.formedOn > today) add('formedOn', 'A group cannot be formed in the future');
@@ -520,7 +215,7 @@ export async function formGroupIn(tx: Transaction, actor: SessionUser, input: Gr
  * waits for the mentor's review and counts only once accepted.
  */
 export async function recordGroupWeighIn(actor: SessionUser, groupId: string, input: GroupWeighInCreateInput): Promise<GrowOutGroupDto> {
-  farmOf(actor);
+  farmOf(actor, 'Only a member of a farm keeps grow-out groups');
   return withTenant(actor, async (tx) => {
     const group = await groupFor(tx, actor, groupId, true);
     ensureCan(actor, 'create', 'WeighIn', { farmId: group.farmId, enteredBy: actor.id }, 'That group', 'You may not weigh this group');
@@ -539,7 +234,7 @@ export async function weighGroupIn(tx: Transaction, actor: SessionUser, groupOrI
   const group = typeof groupOrId === 'string' ? await groupFor(tx, actor, groupOrId, true) : groupOrId;
   ensureCan(actor, 'create', 'WeighIn', { farmId: group.farmId, enteredBy: actor.id }, 'That group', 'You may not weigh this group');
   {
-    const today = await farmToday(tx, actor.coopId, group.farmId);
+    const today = await farmTodayOf(tx, actor.coopId, group.farmId);
     const ctx = await contextOf(tx, actor.coopId, [group]);
     const info = ctx.info(group);
     const kits = input.kits?.map((k) => ({ label: k.label || null, grams: k.grams })) ?? null;
@@ -574,7 +269,7 @@ export async function weighGroupIn(tx: Transaction, actor: SessionUser, groupOrI
 
 /** Closes a group on a date (its kits processed, sold or kept); the version guards against a second editor. */
 export async function closeGroup(actor: SessionUser, groupId: string, input: GrowOutGroupCloseInput): Promise<GrowOutGroupDto> {
-  farmOf(actor);
+  farmOf(actor, 'Only a member of a farm keeps grow-out groups');
   return withTenant(actor, async (tx) => detailOf(tx, actor, await closeGroupIn(tx, actor, groupId, input)));
 }
 
@@ -600,7 +295,7 @@ export async function closeGroupIn(tx: Transaction, actor: SessionUser, groupId:
     ensureCan(actor, 'update', 'GrowOutGroup', { farmId: group.farmId }, 'That group', 'Only members of the farm close groups');
     if (group.version !== input.version) throw AppError.staleVersion();
     if (group.status === 'closed') throw AppError.conflict(`The group was already closed on ${group.closedOn}`);
-    const today = await farmToday(tx, actor.coopId, group.farmId);
+    const today = await farmTodayOf(tx, actor.coopId, group.farmId);
     if (input.closedOn > today) throw AppError.validation({ closedOn: ['A group cannot be closed in the future'] });
     if (input.closedOn < group.formedOn) throw AppError.validation({ closedOn: [`That is before the group was formed on ${group.formedOn}`] });
     const lastWeighIn = (await groupWeighInsOf(tx, actor.coopId, [group.id])).at(-1);

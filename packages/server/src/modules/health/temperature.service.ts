@@ -5,12 +5,12 @@ import {
   type HeatCautionDto, type TemperatureListDto, type TemperatureReadingCreateInput, type TemperatureReadingDto,
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
-import type { SessionUser } from '../../http/passport';
+import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { publish } from '../../lib/realtime';
-import { ensureCan, farmOf } from '../almanac/almanac-access';
-import { farmClockOf } from '../almanac/almanac-context';
-import { presentAnimalRef } from '../almanac/almanac.presenter';
+import { ensureCan, farmOf } from '../farms/farm-access';
+import { farmClockOf } from '../farms/farm-clock';
+import { presentAnimalRef } from '../animals/animal-facts.service';
 import { serviceOutcomesOfFarm } from '../almanac/breeding.service';
 import { presentContextOf } from '../almanac/tasks.service';
 import { litterFactsOfFarm } from '../litters/litters.service';

@@ -7,15 +7,17 @@ import {
   type HerdImportConfirmInput, type HerdImportDto, type HerdImportProgressDto, type HerdImportRowsQuery, type ImportCheckResult,
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
-import type { SessionUser } from '../../http/passport';
+import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
-import { animalAccess, getAnimal, listHerd } from '../animals/animals.service';
+import { animalAccess } from '../animals/animal-facts.service';
+import { getAnimal, listHerd } from '../animals/animals.service';
 import { herdRecordsForImport, importSpreadsheet, lockHerdForImport } from '../animals/herd-import.service';
 import { getPedigreeTree } from '../animals/pedigree.service';
 import { recordAudit } from '../audit/audit.service';
 import { breedsOf } from '../breeds/breeds.service';
 import { getCoop } from '../coops/coops.service';
 import { farmDirectoryOf } from '../farms/farms.service';
+import { DEFAULT_FARM_TIME_ZONE, farmTodayIn } from '../farms/farm-clock';
 import { namesOf } from '../users/users.service';
 import { readHerdCsv } from './csv-reading';
 import { herdCsv } from './herd-export';
@@ -23,7 +25,6 @@ import { HerdImport } from './herd-import.model';
 import { presentHerdImport } from './herd-files.presenter';
 import { renderCertificate } from './pedigree-certificate';
 
-const DEFAULT_TIME_ZONE = 'America/Chicago';
 /** Rows checked between two progress reports of a large file. */
 const CHECK_SLICE = 1000;
 const UNCONFIRMED_KEPT_MS = 24 * 60 * 60 * 1000;
@@ -74,7 +75,7 @@ async function checkFile(
   const breeds = await breedsOf(actor.coopId, tx);
   const herd = await herdRecordsForImport(actor.coopId, farmId, tx);
   const checker = createImportChecker(csv.records, mapping, {
-    today: todayIn(farm?.timeZone ?? DEFAULT_TIME_ZONE),
+    today: farmTodayIn(farms, farmId),
     farmName: farm?.name ?? '',
     weightUnit: farm?.weightUnit ?? 'lb_oz',
     herd,
@@ -252,7 +253,7 @@ export async function exportHerdCsv(actor: SessionUser, query: HerdExportQuery):
     const farm = actor.farmId ? farms.get(actor.farmId) : undefined;
     const records = actor.farmId ? await herdRecordsForImport(actor.coopId, actor.farmId, tx) : [];
     const parents = new Map(records.map((r) => [r.id, { sire: r.sireTattoo, dam: r.damTattoo }]));
-    const today = todayIn(farm?.timeZone ?? DEFAULT_TIME_ZONE);
+    const today = farmTodayIn(farms, actor.farmId);
     return {
       fileName: `${slug(farm?.name ?? 'herd')}-herd-${today}.csv`,
       body: herdCsv(herd.items, { unit: farm?.weightUnit ?? 'lb_oz', parents }),
@@ -282,7 +283,7 @@ export async function pedigreeCertificate(actor: SessionUser, animalId: string):
     tree,
     issuedBy: context.issuer?.name ?? 'the owning farm',
     coopName: context.coopName,
-    issuedOn: todayIn(context.issuer?.timeZone ?? DEFAULT_TIME_ZONE),
+    issuedOn: todayIn(context.issuer?.timeZone ?? DEFAULT_FARM_TIME_ZONE),
   });
   return { fileName: `pedigree-${animal.tattoo}${animal.name ? `-${slug(animal.name)}` : ''}.pdf`, body };
 }
