@@ -1,4 +1,4 @@
-// Performance tables benchmark (issue 7): a farm with 100 does, 10 bucks and five years of invented
+// Performance tables benchmark: a farm with 100 does, 10 bucks and five years of invented
 // records — services (some missed), litters with losses and weanings (weighed), a grow-out group per
 // litter with four weigh-ins, feed bought and given to the does and the groups, and a processing record
 // per group — and the time to compute every performance table (per doe, per buck, per breed and cross,

@@ -22,7 +22,7 @@ export interface AlmanacIds {
   unitId?: string;
   placementId?: string;
   feedToken?: string;
-  /** Grow-out (issue 7): a growing group of farm A with a litter that still has free kits, and a feed purchase. */
+  /** Grow-out: a growing group of farm A with a litter that still has free kits, and a feed purchase. */
   groupId?: string;
   /** Feed corrections: a purchase of farm A and feed given from it to the group. */
   purchaseId?: string;

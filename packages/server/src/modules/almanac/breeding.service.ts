@@ -321,7 +321,7 @@ export async function settleServiceOnKindling(tx: Transaction, actor: SessionUse
 }
 
 // ---------------------------------------------------------------------------------------------
-// For performance (issue 7), inside the caller's transaction
+// For performance, inside the caller's transaction
 // ---------------------------------------------------------------------------------------------
 
 /** A service with how it turned out (shared serviceOutcome), for conception rates and misses in a row. */

@@ -23,7 +23,7 @@ export async function recordStatus(actor: SessionUser, animalId: string, input: 
 
 /**
  * A lifecycle or disposition change inside the caller's transaction (a processing record sets
- * 'processed', issue 7): the same checks and history as recordStatus; throws AppError when refused.
+ * 'processed'): the same checks and history as recordStatus; throws AppError when refused.
  */
 export async function applyStatusEvent(tx: Transaction, actor: SessionUser, animalId: string, input: StatusEventInput) {
   {

@@ -198,7 +198,7 @@ export async function coopHasAnimals(coopId: string, tx: Transaction): Promise<b
 }
 
 // ---------------------------------------------------------------------------------------------
-// Spreadsheet import (issue 5): the herd as the check sees it, and the confirmed plan written at once
+// Spreadsheet import: the herd as the check sees it, and the confirmed plan written at once
 // ---------------------------------------------------------------------------------------------
 
 /**

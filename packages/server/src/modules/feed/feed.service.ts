@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import type { Transaction } from 'sequelize';
 import {
-  addDays, allocateByHeadDays, allocateByLiveWeight, centsPerKg, checkFeedUses, daysBetween, defineAbilityFor, formatWeight, gompertzWeight, MATURE_WEIGHT_PRIORS, RealtimeEvent, referenceCurve, rooms, subjectOf, type FeedOverviewDto, type FeedPurchaseCreateInput, type FeedPurchaseUpdateInput, type FeedUseCreateInput, type FeedUseDto, type FeedUseUpdateInput,
+  addDays, allocateByHeadDays, allocateByLiveWeight, checkFeedUses, daysBetween, defineAbilityFor, formatWeight, gompertzWeight, MATURE_WEIGHT_PRIORS, RealtimeEvent, referenceCurve, rooms, subjectOf, type FeedOverviewDto, type FeedPurchaseCreateInput, type FeedPurchaseUpdateInput, type FeedUseCreateInput, type FeedUseUpdateInput,
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../lib/session-user';
@@ -17,7 +17,8 @@ import {
 } from '../litters/litter-facts.service';
 import { namesOf } from '../users/users.service';
 import { FeedPurchase, FeedUse, FeedUseShare } from './feed.model';
-import { feedKeyOf, feedLedgerOf, feedTotalsByLitter, purchaseFact, sharesWithCost, useFact } from './feed-totals.service';
+import { presentFeedOverview } from './feed.presenter';
+import { feedKeyOf, feedLedgerOf, feedTotalsByLitter, purchaseFact, useFact } from './feed-totals.service';
 import { lockUntilCommit } from '../../db/advisory-lock';
 import { recordChanges } from '../audit/audit.service';
 
@@ -77,42 +78,10 @@ async function presentOverview(tx: Transaction, actor: SessionUser, farmId: stri
   const animals = await animalFactsOf(tx, actor.coopId, [...ledger.uses.map((u) => u.doeId), ...[...litters.values()].map((l) => l.damId)].filter((x): x is string => Boolean(x)));
   const units = await housingUnitNamesOf(tx, actor.coopId, ledger.uses.map((u) => u.housingUnitId).filter((x): x is string => Boolean(x)));
   const names = await namesOf(ledger.uses.map((u) => u.enteredBy), tx);
-  const productOf = new Map(ledger.purchases.map((p) => [feedKeyOf(p.productName), p.productName]));
-  const litterLabel = (id: string) => {
-    const l = litters.get(id);
-    return l ? `${animals.get(l.damId)?.name ?? 'A doe'} and litter (kindled ${l.kindledOn})` : 'A litter';
-  };
-  const uses: FeedUseDto[] = [...ledger.uses].reverse().map((u) => ({
-    id: u.id, givenOn: u.givenOn, fromOn: u.fromOn, grams: u.grams, productName: productOf.get(u.feedKey) ?? u.feedKey, purchaseId: u.purchaseId,
-    target: u.target, groupId: u.groupId, housingUnitId: u.housingUnitId, doeId: u.doeId, allocation: u.allocation, version: u.version,
-    targetLabel: u.target === 'group' ? groups.get(u.groupId!) ?? 'A group'
-      : u.target === 'pen' ? units.get(u.housingUnitId!) ?? 'A pen'
-        : u.target === 'doe' ? `${animals.get(u.doeId!)?.name ?? 'A doe'} with her litter`
-          : 'Whole farm',
-    shares: sharesWithCost(ledger, u.id).map((s) => ({ groupId: s.groupId, litterId: s.litterId, grams: s.grams, label: s.groupId ? groups.get(s.groupId) ?? 'A group' : litterLabel(s.litterId!) })),
-    costCents: money ? ledger.costByUse.get(u.id) ?? null : null,
-    enteredBy: { id: u.enteredBy, name: names.get(u.enteredBy) ?? 'Someone' },
-    note: u.note,
-  }));
-  const products = new Map<string, { name: string; gramsLeft: number }>();
-  for (const p of ledger.purchases) {
-    const key = feedKeyOf(p.productName);
-    const entry = products.get(key) ?? { name: p.productName, gramsLeft: 0 };
-    entry.gramsLeft += ledger.leftByPurchase.get(p.id) ?? 0;
-    products.set(key, entry);
-  }
-  return {
-    purchases: [...ledger.purchases].reverse().map((p) => ({
-      id: p.id, boughtOn: p.boughtOn, productName: p.productName, bagGrams: p.bagGrams, bags: p.bags, grams: p.bagGrams * p.bags,
-      gramsLeft: ledger.leftByPurchase.get(p.id) ?? 0, crudeProteinPercent: p.crudeProteinPercent,
-      priceCents: money ? p.priceCents : null, centsPerKg: money ? centsPerKg(p.priceCents, p.bagGrams * p.bags) : null, note: p.note,
-      version: p.version,
-    })),
-    uses,
-    products: [...products.values()].sort((a, b) => a.name.localeCompare(b.name)),
+  return presentFeedOverview(ledger, {
+    groups, litters, animals, units, names, canSeeMoney: money,
     canEdit: defineAbilityFor(actor).can('create', subjectOf('FeedRecord', { coopId: actor.coopId, farmId })),
-    canSeeMoney: money,
-  };
+  });
 }
 
 /** The farm's feed book: purchases with the stock left in each, and the feed given with its split (money for members only). */

@@ -404,7 +404,7 @@ export async function addKeeper(actor: SessionUser, litterId: string, input: Kee
 }
 
 // ---------------------------------------------------------------------------------------------
-// For performance (issue 7), inside the caller's transaction
+// For performance, inside the caller's transaction
 // ---------------------------------------------------------------------------------------------
 
 /** A litter as the performance tables read it: its parents, its kit-count record and its weaning weight. */

@@ -24,7 +24,7 @@ import { presentProcessingMark, presentProcessingRecord, type ProcessingPresentC
 import { ProcessingMark, ProcessingRecord } from './processing-record.model';
 
 // ---------------------------------------------------------------------------------------------
-// For performance (issue 7), inside the caller's transaction
+// For performance, inside the caller's transaction
 // ---------------------------------------------------------------------------------------------
 
 export interface ProcessingFacts {
