@@ -8,7 +8,7 @@ import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { publish } from '../../lib/realtime';
 import { animalFactsOf } from '../animals/animal-facts.service';
-import { canSeeMoney, ensureCan, farmOf } from '../farms/farm-access';
+import { addMessage, canSeeMoney, ensureCan, farmOf } from '../farms/farm-access';
 import { farmTodayOf } from '../farms/farm-clock';
 import { farmDirectoryOf } from '../farms/farms.service';
 import { groupOfFarm, groupsOfFarm, groupsPresentDuring, kitsInGroupsByLitter } from '../grow-out/grow-out-facts.service';
@@ -146,7 +146,7 @@ export async function recordFeedUseIn(tx: Transaction, actor: SessionUser, input
     const today = await farmTodayOf(tx, actor.coopId, farmId);
     const fromOn = input.fromOn ?? input.givenOn;
     const errors: Record<string, string[]> = {};
-    const add = (field: string, message: string) => (errors[field] ??= []).push(message);
+    const add = (field: string, message: string) => addMessage(errors, field, message);
     if (input.givenOn > today) add('givenOn', 'Feed given cannot be dated in the future');
 
     // Which feed: a named purchase, or the feed by name (first bought, first used).

@@ -10,7 +10,7 @@ import { settingsOf } from '../almanac/cycle-settings.service';
 import { completeWeighInTasksOf } from '../almanac/tasks.service';
 import { animalFactsOf } from '../animals/animal-facts.service';
 import { groupWeighInsOf, insertGroupWeighIn, weighInOwnerOf } from '../animals/group-weigh-ins.service';
-import { canSeeMoney, ensureCan, farmOf } from '../farms/farm-access';
+import { addMessage, canSeeMoney, ensureCan, farmOf } from '../farms/farm-access';
 import { farmTodayOf } from '../farms/farm-clock';
 import { farmLitterFactsOf, housingUnitNamesOf, housingUnitOfFarm, litterFactsOf } from '../litters/litter-facts.service';
 import { namesOf } from '../users/users.service';
@@ -169,7 +169,7 @@ export async function formGroupIn(tx: Transaction, actor: SessionUser, input: Gr
     await lockFarm(tx, farmId);
     const today = await farmTodayOf(tx, actor.coopId, farmId);
     const errors: Record<string, string[]> = {};
-    const add = (field: string, message: string) => (errors[field] ??= []).push(message);
+    const add = (field: string, message: string) => addMessage(errors, field, message);
     if (input.formedOn > today) add('formedOn', 'A group cannot be formed in the future');
     if (input.housingUnitId && !(await housingUnitOfFarm(tx, actor.coopId, farmId, input.housingUnitId))) add('housingUnitId', "Choose one of your farm's hutches or pens");
     const ids = input.litters.map((l) => l.litterId);
@@ -241,7 +241,7 @@ export async function weighGroupIn(tx: Transaction, actor: SessionUser, groupOrI
     const totalGrams = kits ? kits.reduce((n, k) => n + k.grams, 0) : input.totalGrams!;
     const headCount = kits ? kits.length : input.headCount!;
     const errors: Record<string, string[]> = {};
-    const add = (field: string, message: string) => (errors[field] ??= []).push(message);
+    const add = (field: string, message: string) => addMessage(errors, field, message);
     if (input.weighedOn > today) add('weighedOn', 'A weigh-in cannot be dated in the future');
     if (input.weighedOn < group.formedOn) add('weighedOn', `That is before the group was formed on ${group.formedOn}`);
     if (group.closedOn && input.weighedOn > group.closedOn) add('weighedOn', `The group was closed on ${group.closedOn}`);

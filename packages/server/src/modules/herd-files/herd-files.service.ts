@@ -3,8 +3,7 @@ import path from 'node:path';
 import { setImmediate as yieldToEventLoop } from 'node:timers/promises';
 import { Op, type Transaction } from 'sequelize';
 import {
-  createImportChecker, defineAbilityFor, ErrorCode, headerProblem, mapImportHeader, subjectOf, todayIn, type HerdExportQuery,
-  type HerdImportConfirmInput, type HerdImportDto, type HerdImportProgressDto, type HerdImportRowsQuery, type ImportCheckResult,
+  createImportChecker, defineAbilityFor, ErrorCode, headerProblem, mapImportHeader, subjectOf, todayIn, type HerdExportQuery, type HerdImportConfirmInput, type HerdImportDto, type HerdImportProgressDto, type HerdImportRowsQuery, type ImportCheckResult,
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../lib/session-user';
@@ -17,6 +16,7 @@ import { recordAudit } from '../audit/audit.service';
 import { breedsOf } from '../breeds/breeds.service';
 import { getCoop } from '../coops/coops.service';
 import { farmDirectoryOf } from '../farms/farms.service';
+import { ensureCan, farmOf } from '../farms/farm-access';
 import { DEFAULT_FARM_TIME_ZONE, farmTodayIn } from '../farms/farm-clock';
 import { namesOf } from '../users/users.service';
 import { readHerdCsv } from './csv-reading';
@@ -37,15 +37,14 @@ type Progress = (progress: HerdImportProgressDto) => void | Promise<void>;
 
 /** Who may stage and confirm imports: a member (or admin) of a farm, for that farm. */
 export function assertCanImport(actor: SessionUser): void {
-  farmOf(actor);
+  importingFarmOf(actor);
 }
 
-function farmOf(actor: SessionUser): string {
-  const farmId = actor.farmId;
-  const ability = defineAbilityFor(actor);
-  if (!farmId || !ability.can('create', subjectOf('HerdImport', { coopId: actor.coopId, farmId }))) {
-    throw new AppError(ErrorCode.forbidden, 403, "Only a member of the farm imports animals into its herd (apprentices read the herd)");
-  }
+/** The actor's farm, when they may import into its herd (apprentices read the herd but add no animals). */
+function importingFarmOf(actor: SessionUser): string {
+  const refusal = 'Only a member of the farm imports animals into its herd (apprentices read the herd)';
+  const farmId = farmOf(actor, refusal);
+  ensureCan(actor, 'create', 'HerdImport', { farmId }, 'That farm', refusal);
   return farmId;
 }
 
@@ -123,7 +122,7 @@ export async function stageHerdImport(
   limits: ImportLimits,
   onProgress?: Progress,
 ): Promise<HerdImportDto> {
-  const farmId = farmOf(actor);
+  const farmId = importingFarmOf(actor);
   if (input.content.length === 0) throw AppError.validation({ file: ['The file is empty'] }, 'The file is empty');
   return withTenant(actor, async (tx) => {
     const { result, mapping, checksum, hadByteOrderMark } = await checkFile(actor, farmId, input.content, limits, tx, { idFor: () => randomUUID(), onProgress });
@@ -189,7 +188,7 @@ export async function confirmHerdImport(actor: SessionUser, importId: string, in
         'Some rows have errors: fix them in your spreadsheet and upload the file again',
       );
     }
-    const farmId = farmOf(actor);
+    const farmId = importingFarmOf(actor);
     await lockHerdForImport(actor.coopId, tx);
     const idsByLine = new Map(row.rows.filter((r) => r.action === 'create').map((r) => [r.line, r.animalId]));
     const { result, mapping } = await checkFile(actor, farmId, row.content, limits, tx, { idFor: (line) => idsByLine.get(line) ?? randomUUID() });
