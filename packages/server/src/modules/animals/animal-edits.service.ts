@@ -20,6 +20,7 @@ import { CustodyEvent } from './custody-event.model';
 import { findOrCreateOutside } from './outside-animals.service';
 import { loadPedigreeRows, lockCoopPedigree, recomputePedigreeFigures } from './pedigree-figures';
 
+/* Adding and editing animals; litters call createAnimal for a kit given its own record. */
 
 function defaultLifecycle(sex: Sex, birthDate: string, today: string, firstBreeding: { doe: number; buck: number } | null): Lifecycle {
   const age = daysBetween(birthDate, today);

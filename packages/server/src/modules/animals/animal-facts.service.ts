@@ -6,6 +6,10 @@ import { Animal } from './animal.model';
 import { selectAnimals, type AnimalRow } from './animal-queries';
 import { animalSubject } from './animal-access';
 
+/*
+ * The herd's published reads for other modules (the Almanac, litters, grow-out, feed, processing,
+ * photos, herd files), inside the caller's transaction. Other modules never read the animal model.
+ */
 
 /** What the Almanac and litters need to know of an animal. */
 export interface AnimalFacts {

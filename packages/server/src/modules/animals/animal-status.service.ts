@@ -12,6 +12,7 @@ import { detailOf } from './animal-detail';
 import { hasMessages, type FieldMessages } from '../farms/farm-access';
 import { CustodyEvent } from './custody-event.model';
 
+/* Dated lifecycle and disposition changes; processing calls applyStatusEvent inside its transaction. */
 
 /** Records a dated lifecycle or disposition change (with a cause for a cull) on the owning farm. */
 export async function recordStatus(actor: SessionUser, animalId: string, input: StatusEventInput): Promise<AnimalDetailDto> {

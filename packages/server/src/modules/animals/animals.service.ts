@@ -10,6 +10,7 @@ import { subjectOfRow } from './animal-access';
 import { detailOf } from './animal-detail';
 import { presentAnimal } from './animals.presenter';
 
+/* The herd as its own screens read it: the farm's list and one animal's full record. */
 
 const lifecycleOrder: Record<Lifecycle, number> = { kit: 0, junior: 1, breeding: 2, retired: 3 };
 const collator = new Intl.Collator('en', { numeric: true, sensitivity: 'base' });

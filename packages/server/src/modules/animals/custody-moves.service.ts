@@ -17,6 +17,11 @@ import { CustodyEvent } from './custody-event.model';
 
 import { port } from '../../lib/port';
 
+/*
+ * Custody: which farm owns and which keeps an animal, and its moves between farms (transfer, loan, return).
+ * Loans and trades build on applyCustodyMove; every arrival goes through the onArrival port.
+ */
+
 /** An animal arriving at a farm (bought, traded, lent to it, or back home from a loan). */
 export interface Arrival {
   coopId: string;

@@ -6,8 +6,10 @@ import { GrowOutGroup } from './grow-out-group.model';
 import { contextOf, groupFeedTotals, headsOn, membersOf } from './grow-out-context';
 import { groupBy } from '../../lib/group-by';
 
-// ---------------------------------------------------------------------------------------------------
-// What feed, health, processing and performance read of grow-out groups, inside the caller's transaction.
+/*
+ * Grow-out's published reads for other modules (feed, health, processing, performance), inside the
+ * caller's transaction. Other modules never read the group models.
+ */
 
 export interface GrowOutFacts {
   id: string; farmId: string; name: string; formedOn: string; status: 'growing' | 'closed'; closedOn: string | null;

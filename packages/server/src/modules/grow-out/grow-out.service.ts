@@ -19,6 +19,8 @@ import { contextOf, groupFeedTotals } from './grow-out-context';
 import { chartAgesOf, listItemOf, presentGroupDetail, projectionOf } from './grow-out.presenter';
 import { lockUntilCommit } from '../../db/advisory-lock';
 
+/* Grow-out groups as their screens read and write them; processing calls closeEmptiedGroupIn. */
+
 // ---------------------------------------------------------------------------------------------------
 // Access
 
