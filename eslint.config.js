@@ -1,10 +1,8 @@
-import fs from 'node:fs';
 import js from '@eslint/js';
 import importX from 'eslint-plugin-import-x';
 import globals from 'globals';
 import tseslint from 'typescript-eslint';
-
-const serverDomains = fs.readdirSync(new URL('./packages/server/src/modules', import.meta.url));
+import serverModules from './eslint/server-modules.js';
 
 /** Import boundaries of DEVELOPERS.md ("Imports that must never exist"). */
 const boundaries = {
@@ -34,22 +32,30 @@ export default tseslint.config(
     },
   },
   {
-    // A server module reaches another domain through its service, never its model.
-    files: ['packages/server/src/modules/**/*.ts'],
+    /*
+     * Server module contracts. A module (packages/server/src/modules/<name>/) is reached from another
+     * module only through its PUBLIC files:
+     *   - `*-facts.service.ts`  reads published for other modules, inside the caller's transaction;
+     *   - `*.service.ts`        the module's documented reads and writes (what routes and other modules call);
+     *   - `farms/farm-access.ts`, `farms/farm-clock.ts`  the one farm access check and the farm's clock.
+     * Everything else (models, presenters, queries, contexts, private helpers) is private to its module;
+     * a model may still name another module's model for an association (the composition root wires them).
+     * No folder loops: an import may not close a loop between server folders (modules/<name>, db, lib,
+     * http, composition). Where two modules need each other, the one below declares a port
+     * (lib/port.ts) and composition/ports.ts plugs the other's function in.
+     */
+    files: ['packages/server/src/**/*.ts'],
+    plugins: { 'server-modules': serverModules },
     rules: {
-      'import-x/no-restricted-paths': [
+      'server-modules/public-only': [
         'error',
         {
-          zones: [
-            boundaries.server,
-            ...serverDomains.map((domain) => ({
-              target: `./packages/server/src/modules/!(${domain})/**/!(*.model).ts`,
-              from: `./packages/server/src/modules/${domain}/**/*.model.ts`,
-              message: `Reach the ${domain} domain through its service, not its model`,
-            })),
-          ],
+          srcDir: 'packages/server/src',
+          publicFiles: ['*.service.ts', 'farms/farm-access.ts', 'farms/farm-clock.ts'],
+          modelsMayReferenceModels: true,
         },
       ],
+      'server-modules/no-folder-cycle': ['error', { srcDir: 'packages/server/src' }],
     },
   },
 );

@@ -16,7 +16,7 @@ import {
 import {
   coopHasServices, importServices, importTasks, type ImportedPalpation, type ImportedService, type ImportedTask,
 } from '../packages/server/src/modules/almanac/almanac-import.service';
-import { coopAnimalFactsOf } from '../packages/server/src/modules/animals/animals.service';
+import { coopAnimalFactsOf } from '../packages/server/src/modules/animals/animal-facts.service';
 import { importLitters, type ImportedLitter, type ImportedLitterEvent } from '../packages/server/src/modules/litters/litters-import.service';
 import { seededRandom } from '../packages/shared/src/pedigree/seeded-random';
 

@@ -10,10 +10,10 @@
  */
 import type { Transaction } from 'sequelize';
 import { addDays, processingRecordCreateSchema, temperatureReadingCreateSchema, todayIn, treatmentCreateSchema, type TreatmentCreateBody } from '@burrowline/shared';
-import type { SessionUser } from '../packages/server/src/http/passport';
+import type { SessionUser } from '../packages/server/src/lib/session-user';
 import { recordTreatmentIn } from '../packages/server/src/modules/almanac/treatments.service';
-import { farmBreedingStockOf } from '../packages/server/src/modules/animals/animals.service';
-import { growOutFactsOfFarm } from '../packages/server/src/modules/growout/growout.service';
+import { farmBreedingStockOf } from '../packages/server/src/modules/animals/animal-facts.service';
+import { growOutFactsOfFarm } from '../packages/server/src/modules/grow-out/grow-out-facts.service';
 import { hasTemperatureReadings, recordTemperatureIn } from '../packages/server/src/modules/health/temperature.service';
 import { recordProcessingIn } from '../packages/server/src/modules/processing/processing.service';
 import { seededRandom } from '../packages/shared/src/pedigree/seeded-random';

@@ -1,5 +1,5 @@
 // Loads the demo co-op through the services, so it obeys the same rules as any user's data.
-import { connectDatabase, closeDatabase } from '../packages/server/src/db/sequelize';
+import { connectDatabase, closeDatabase } from '../packages/server/src/composition/database';
 import { hashPassword } from '../packages/server/src/lib/passwords';
 import { createCooperative, findPublicCoop } from '../packages/server/src/modules/coops/coops.service';
 import { createFarm } from '../packages/server/src/modules/farms/farms.service';
@@ -10,7 +10,7 @@ import { coopHasAnimals } from '../packages/server/src/modules/animals/herd-impo
 import { farmDirectoryOf } from '../packages/server/src/modules/farms/farms.service';
 import { findUserByEmail } from '../packages/server/src/modules/users/users.service';
 import { loadDemoAlmanac } from './demo-almanac';
-import { loadDemoGrowOut } from './demo-growout';
+import { loadDemoGrowOut } from './demo-grow-out';
 import { loadDemoHealthYield } from './demo-health-yield';
 import { loadDemoHerds } from './demo-herds';
 

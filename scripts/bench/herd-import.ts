@@ -25,7 +25,7 @@ process.env.SESSION_SECRET ??= `bench-${randomUUID()}-${randomUUID()}`;
 process.env.LOG_LEVEL ??= 'warn';
 
 const { createApp } = await import('../../packages/server/src/app');
-const { closeDatabase, connectDatabase } = await import('../../packages/server/src/db/sequelize');
+const { closeDatabase, connectDatabase } = await import('../../packages/server/src/composition/database');
 const { hashPassword } = await import('../../packages/server/src/lib/passwords');
 const { createCooperative } = await import('../../packages/server/src/modules/coops/coops.service');
 const { createFarm } = await import('../../packages/server/src/modules/farms/farms.service');

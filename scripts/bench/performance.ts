@@ -1,4 +1,4 @@
-// Performance tables benchmark (issue 7): a farm with 100 does, 10 bucks and five years of invented
+// Performance tables benchmark: a farm with 100 does, 10 bucks and five years of invented
 // records — services (some missed), litters with losses and weanings (weighed), a grow-out group per
 // litter with four weigh-ins, feed bought and given to the does and the groups, and a processing record
 // per group — and the time to compute every performance table (per doe, per buck, per breed and cross,
@@ -146,7 +146,7 @@ if (!process.env.DATABASE_URL) {
 process.env.SESSION_SECRET ??= `bench-${randomUUID()}-${randomUUID()}`;
 process.env.LOG_LEVEL ??= 'warn';
 const { createApp } = await import('../../packages/server/src/app');
-const { closeDatabase, connectDatabase, database } = await import('../../packages/server/src/db/sequelize');
+const { closeDatabase, connectDatabase, database } = await import('../../packages/server/src/composition/database');
 const { hashPassword } = await import('../../packages/server/src/lib/passwords');
 const { createCooperative } = await import('../../packages/server/src/modules/coops/coops.service');
 const { createFarm } = await import('../../packages/server/src/modules/farms/farms.service');
@@ -296,7 +296,7 @@ try {
   const { withTenant } = await import('../../packages/server/src/db/tenant');
   const { serviceOutcomesOfFarm } = await import('../../packages/server/src/modules/almanac/breeding.service');
   const { litterFactsOfFarm } = await import('../../packages/server/src/modules/litters/litters.service');
-  const { growOutFactsOfFarm } = await import('../../packages/server/src/modules/growout/growout.service');
+  const { growOutFactsOfFarm } = await import('../../packages/server/src/modules/grow-out/grow-out-facts.service');
   const { doeLitterFeedOfFarm } = await import('../../packages/server/src/modules/feed/feed.service');
   const { processingFactsOfFarm } = await import('../../packages/server/src/modules/processing/processing.service');
   const parts: string[] = [];

@@ -26,7 +26,7 @@ export type Target =
   | 'weighInA'
   | 'noteA'
   | 'outsideDuplicate'
-  // The Almanac and litters (issue 6), all on farm A: a doe and buck, an open service 31 days old (with its
+  // The Almanac and litters, all on farm A: a doe and buck, an open service 31 days old (with its
   // palpation task), a task an apprentice ticked, a nursing litter (with a second one to foster into), an
   // apprentice's pending loss, a hutch, a placement, the farm's calendar feed.
   | 'breedingPairA'
@@ -37,11 +37,11 @@ export type Target =
   | 'housingA'
   | 'placementA'
   | 'feedA'
-  // Grow-out and feed (issue 7): a growing group of farm A (with a litter that has free kits) and a feed purchase.
+  // Grow-out and feed: a growing group of farm A (with a litter that has free kits) and a feed purchase.
   | 'groupA'
   // A purchase of farm A with feed given from it to a group of farm A.
   | 'feedEntriesA'
-  // Herd files (issue 5): a photo of a fresh farm-A animal, a spreadsheet staged by farm A's member.
+  // Herd files: a photo of a fresh farm-A animal, a spreadsheet staged by farm A's member.
   | 'photoA'
   | 'importA';
 export type Body =
@@ -89,7 +89,7 @@ export type Body =
   | 'photoCaption'
   | 'csvUpload'
   | 'importConfirmation'
-  // Health and yield (issue 7).
+  // Health and yield.
   | 'temperatureReading'
   | 'processingRecord'
   | 'processingMark'
@@ -139,7 +139,7 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'GET', path: '/api/coop', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   // The co-op is the session's own: the other co-op's admin edits their own co-op's rules, never ours.
   { method: 'PATCH', path: '/api/coop', target: 'none', body: 'rules', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 200 } },
-  // The Herd (issue 4): full rights on one's own farm's animals, pedigree cards for everyone in the co-op,
+  // The Herd: full rights on one's own farm's animals, pedigree cards for everyone in the co-op,
   // apprentices read and add entries that wait for review, admins add breeds and merge outside duplicates
   // but edit no other farm's herd; another co-op sees nothing.
   { method: 'GET', path: '/api/breeds', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
@@ -165,7 +165,7 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'GET', path: '/api/outside-animals', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'POST', path: '/api/outside-animals', target: 'none', body: 'outsideAnimal', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 201, admin: 201, otherCoop: 201 } },
   { method: 'POST', path: '/api/outside-animals/:animalId/merge', target: 'outsideDuplicate', body: 'merge', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
-  // The Almanac and litters (issue 6): members plan and record for their own farm; apprentices read the
+  // The Almanac and litters: members plan and record for their own farm; apprentices read the
   // mentor's, tick tasks and record litter counts (pending review), never plan; another farm's records are
   // not there (404); another co-op sees nothing. Ids of other farms' animals in a body are field errors (400).
   // The calendar feed is public at its secret address (a phone calendar has no session).
@@ -191,7 +191,7 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'POST', path: '/api/services/:serviceId/closure', target: 'serviceA', body: 'closure', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
   { method: 'GET', path: '/api/treatments', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'POST', path: '/api/treatments', target: 'breedingPairA', body: 'treatment', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 400, admin: 201, otherCoop: 400 } },
-  // Health and yield (issue 7): the farm's own withdrawals, temperatures and processing; apprentices read and log
+  // Health and yield: the farm's own withdrawals, temperatures and processing; apprentices read and log
   // temperatures only; an animal of another farm (or co-op) in a body is a field error (400).
   { method: 'GET', path: '/api/withdrawals', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'GET', path: '/api/temperature-readings', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
@@ -212,7 +212,7 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'POST', path: '/api/housing-units', target: 'none', body: 'housingUnit', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 201, admin: 201, otherCoop: 201 } },
   { method: 'POST', path: '/api/housing-units/:unitId/placements', target: 'housingA', body: 'placement', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 404, admin: 201, otherCoop: 404 } },
   { method: 'POST', path: '/api/housing-placements/:placementId/end', target: 'placementA', body: 'placementEnd', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
-  // Herd files (issue 5): an animal's photos and papers are its own farm's (its apprentices see, do not change;
+  // Herd files: an animal's photos and papers are its own farm's (its apprentices see, do not change;
   // another farm of the co-op, which sees only the pedigree card, finds nothing: 404); farm profile photos are
   // seen by the co-op, changed by the farm; spreadsheets are imported by a farm's members into their own herd.
   { method: 'GET', path: '/api/animals/:animalId/photos', target: 'animalA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
@@ -230,7 +230,7 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'GET', path: '/api/herd-export', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'GET', path: '/api/pedigree-certificates/:animalId', target: 'animalA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
   { method: 'GET', path: '/api/pedigree-certificates/:animalId', target: 'animalB', expect: { anonymous: 401, apprentice: 404, member: 404, otherFarmMember: 200, admin: 404, otherCoop: 404 } },
-  // Grow-out groups and the feed book (issue 7): farm-private; apprentices read and weigh (pending review) but form,
+  // Grow-out groups and the feed book: farm-private; apprentices read and weigh (pending review) but form,
   // close and record feed never; another farm's or co-op's group does not exist (404), their litters and groups are not ours (400).
   { method: 'GET', path: '/api/grow-out/groups', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'GET', path: '/api/grow-out/litter-choices', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
@@ -247,7 +247,7 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'PUT', path: '/api/feed/uses/:useId', target: 'feedEntriesA', body: 'feedUseCorrection', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
   // The purchase still feeds the group: taking it out is refused until that feed given goes.
   { method: 'DELETE', path: '/api/feed/purchases/:purchaseId?version=0', target: 'feedEntriesA', expect: { anonymous: 401, apprentice: 403, member: 409, otherFarmMember: 404, admin: 409, otherCoop: 404 } },
-  // Performance (issue 7): read-only, the signed-in person's farm; another farm's or co-op's tables do not exist (404).
+  // Performance: read-only, the signed-in person's farm; another farm's or co-op's tables do not exist (404).
   { method: 'GET', path: '/api/performance', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'GET', path: '/api/performance?period=all&farmId=:farmId', target: 'farmA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
   { method: 'DELETE', path: '/api/session', target: 'none', expect: { anonymous: 204, apprentice: 204, member: 204, otherFarmMember: 204, admin: 204, otherCoop: 204 } },

@@ -7,7 +7,7 @@ import { actorOf } from '../support/herd';
 import { daysAgo, farmToday } from '../support/almanac';
 import { asTenant } from '../support/db';
 import { createTestCoop, TEST_PASSWORD, type TestCoop } from '../support/factories';
-import { feedAs, grownLitterAs, groupAs, growOutCounts, purchaseAs, weighGroupAs } from '../support/growout';
+import { feedAs, grownLitterAs, groupAs, growOutCounts, purchaseAs, weighGroupAs } from '../support/grow-out';
 import { agentFor, ROOMY_SIGN_IN, signedInAgent, testApp } from '../support/test-app';
 
 const handle = testApp({ signIn: ROOMY_SIGN_IN });

@@ -98,7 +98,7 @@ describe('treatments and their withdrawal', () => {
     expect(await healthYieldCounts(coop.id)).toEqual(before);
   });
 
-  it('when a treatment recorded before issue 7 (no dose, route or last day) is read, then it still shows with its withdrawal end', async () => {
+  it('when a treatment recorded before treatments had a dose, route and last day is read, then it still shows with its withdrawal end', async () => {
     const coop = await createTestCoop();
     const doe = await addAnimalAs(coop.member, { sex: 'doe', name: 'Old record', birthDate: '2023-03-01' });
     await asTenant(coop.id, (c) => c.query(

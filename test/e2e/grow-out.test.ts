@@ -3,7 +3,7 @@ import { daysAgo, farmToday } from '../support/almanac';
 import { browserTestApp, collectPageErrors, openBrowser, sidewaysScroll } from '../support/browser';
 import { asTenant } from '../support/db';
 import { createTestCoop, TEST_PASSWORD } from '../support/factories';
-import { breedLitterAs, groupAs, weighGroupAs } from '../support/growout';
+import { breedLitterAs, groupAs, weighGroupAs } from '../support/grow-out';
 import { catalogueBreeds } from '../support/herd';
 
 const app = browserTestApp(TEST_PASSWORD);
@@ -47,7 +47,7 @@ describe('grow-out: a member weighs a group, records feed and reads the breed co
       await page.getByText(/Model: /).first().waitFor();
       const stored = await asTenant(coop.id, async (c) => (await c.query(`SELECT total_grams, head_count FROM weigh_ins WHERE group_id = $1 ORDER BY weighed_on DESC, created_at DESC LIMIT 1`, [group.id])).rows);
       expect(stored).toEqual([{ total_grams: 8165, head_count: 8 }]); // 18 lb = 8,164.66 g (NIST HB44: 1 lb = 453.59237 g)
-      await page.screenshot({ path: '.data/e2e-growout-group.png', fullPage: true });
+      await page.screenshot({ path: '.data/e2e-grow-out-group.png', fullPage: true });
 
       // 2. Record feed: a purchase, then feed given to the group.
       await page.getByRole('navigation', { name: 'Grow-out' }).getByRole('link', { name: 'Feed' }).click();
@@ -78,13 +78,13 @@ describe('grow-out: a member weighs a group, records feed and reads the breed co
       const correction = page.getByRole('form', { name: 'Correct feed given' });
       await expect.poll(async () => correction.getByLabel('Amount (lb)').inputValue()).toBe('30');
       await correction.getByLabel('Amount (lb)').fill('25');
-      await page.screenshot({ path: '.data/e2e-growout-feed-correction.png', fullPage: true });
+      await page.screenshot({ path: '.data/e2e-grow-out-feed-correction.png', fullPage: true });
       await correction.getByRole('button', { name: 'Save correction' }).click();
       await page.getByText(/^Correction saved/).waitFor();
       await page.getByRole('form', { name: 'Record feed given' }).waitFor();
       const feedRows = async () => (await asTenant(coop.id, async (c) => (await c.query(`SELECT grams, deleted_at IS NOT NULL AS deleted FROM feed_uses WHERE coop_id = $1 ORDER BY deleted_at NULLS LAST`, [coop.id])).rows));
       await expect.poll(feedRows).toEqual([{ grams: 13608, deleted: true }, { grams: 11340, deleted: false }]); // 25 lb = 11,339.81 g
-      await page.screenshot({ path: '.data/e2e-growout-feed.png', fullPage: true });
+      await page.screenshot({ path: '.data/e2e-grow-out-feed.png', fullPage: true });
 
       // 3. The breed comparison: the cross is there, with its litter behind it.
       await page.getByRole('navigation', { name: 'Grow-out' }).getByRole('link', { name: 'Performance' }).click();
@@ -93,7 +93,7 @@ describe('grow-out: a member weighs a group, records feed and reads the breed co
       const comparison = page.locator('section[aria-labelledby="breeds-heading"]');
       await comparison.getByRole('heading', { name: 'Breeds and crosses' }).waitFor();
       await comparison.getByText('Californian × New Zealand').first().waitFor();
-      await page.screenshot({ path: '.data/e2e-growout-breeds.png', fullPage: true });
+      await page.screenshot({ path: '.data/e2e-grow-out-breeds.png', fullPage: true });
       expect(errors).toEqual([]);
 
       // A phone: the group's page fits the width.
@@ -101,7 +101,7 @@ describe('grow-out: a member weighs a group, records feed and reads the breed co
       await page.goto(`${app.url}/grow-out/groups/${group.id}`);
       await page.getByRole('heading', { name: 'Juniper spring pen', level: 1 }).waitFor();
       expect(await sidewaysScroll(page)).toBeLessThanOrEqual(0);
-      await page.screenshot({ path: '.data/e2e-growout-group-phone.png', fullPage: true });
+      await page.screenshot({ path: '.data/e2e-grow-out-group-phone.png', fullPage: true });
     } finally {
       await browser.close();
     }

@@ -1,12 +1,12 @@
 import { randomUUID } from 'node:crypto';
-import { connectDatabase } from '../../packages/server/src/db/sequelize';
+import { connectDatabase } from '../../packages/server/src/composition/database';
 import { renewCalendarFeed } from '../../packages/server/src/modules/almanac/calendar-feed.service';
 import { updateTask } from '../../packages/server/src/modules/almanac/tasks.service';
 import { createHousingUnit, placeInUnit } from '../../packages/server/src/modules/litters/housing.service';
 import { recordLitterEvent } from '../../packages/server/src/modules/litters/litters.service';
 import { almanacCounts, breedingPair, daysAgo, farmToday, litterAs, serviceAs } from './almanac';
 import { asTenant } from './db';
-import { feedAs, grownLitterAs, groupAs, purchaseAs } from './growout';
+import { feedAs, grownLitterAs, groupAs, purchaseAs } from './grow-out';
 import type { TestCoop } from './factories';
 import { actorOf, nextTattoo } from './herd';
 
@@ -22,7 +22,7 @@ export interface AlmanacIds {
   unitId?: string;
   placementId?: string;
   feedToken?: string;
-  /** Grow-out (issue 7): a growing group of farm A with a litter that still has free kits, and a feed purchase. */
+  /** Grow-out: a growing group of farm A with a litter that still has free kits, and a feed purchase. */
   groupId?: string;
   /** Feed corrections: a purchase of farm A and feed given from it to the group. */
   purchaseId?: string;

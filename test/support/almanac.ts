@@ -2,7 +2,7 @@ import {
   addDays, fosteringCreateSchema, kindlingCreateSchema, palpationCreateSchema, serviceCreateSchema, todayIn,
   type FosteringCreateInput, type KindlingCreateBody, type LitterDto, type ServiceCreateBody, type ServiceDto,
 } from '@burrowline/shared';
-import { connectDatabase } from '../../packages/server/src/db/sequelize';
+import { connectDatabase } from '../../packages/server/src/composition/database';
 import { recordPalpation, recordService } from '../../packages/server/src/modules/almanac/breeding.service';
 import { recordFostering, recordKindling } from '../../packages/server/src/modules/litters/litters.service';
 import { asTenant } from './db';

@@ -2,7 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { inject } from 'vitest';
 import type { ApplicationInput, Role } from '@burrowline/shared';
 import { loadConfig } from '../../packages/server/src/config/env';
-import { connectDatabase } from '../../packages/server/src/db/sequelize';
+import { connectDatabase } from '../../packages/server/src/composition/database';
 import { configureMailer } from '../../packages/server/src/lib/mailer';
 import { withTenant } from '../../packages/server/src/db/tenant';
 import { submitApplication } from '../../packages/server/src/modules/applications/applications.service';

@@ -2,14 +2,14 @@ import {
   processingMarkCreateSchema, processingRecordCreateSchema, temperatureReadingCreateSchema, treatmentCreateSchema,
   type ProcessingMarkCreateBody, type ProcessingRecordCreateBody, type TemperatureReadingCreateBody, type TreatmentCreateBody,
 } from '@burrowline/shared';
-import { connectDatabase } from '../../packages/server/src/db/sequelize';
+import { connectDatabase } from '../../packages/server/src/composition/database';
 import { recordTreatment } from '../../packages/server/src/modules/almanac/treatments.service';
 import { recordTemperature } from '../../packages/server/src/modules/health/temperature.service';
 import { markForProcessing, recordProcessing } from '../../packages/server/src/modules/processing/processing.service';
 import { daysAgo } from './almanac';
 import { asTenant } from './db';
 import type { TestPerson } from './factories';
-import { groupAs, grownLitterAs } from './growout';
+import { groupAs, grownLitterAs } from './grow-out';
 import { actorOf } from './herd';
 
 /** A treatment as the veterinarian prescribed it, with defaults for what a test does not care about. */

@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import type supertest from 'supertest';
 import { loadConfig } from '../../packages/server/src/config/env';
-import { connectDatabase } from '../../packages/server/src/db/sequelize';
+import { connectDatabase } from '../../packages/server/src/composition/database';
 import { stageHerdImport } from '../../packages/server/src/modules/herd-files/herd-files.service';
 import { addAnimalPhotos } from '../../packages/server/src/modules/photos/photos.service';
 import { asTenant } from './db';

@@ -1,5 +1,5 @@
 import { randomUUID } from 'node:crypto';
-import { connectDatabase } from '../../packages/server/src/db/sequelize';
+import { connectDatabase } from '../../packages/server/src/composition/database';
 import { registerOutsideAnimal } from '../../packages/server/src/modules/animals/outside-animals.service';
 import { createAnimalNote, createWeighIn } from '../../packages/server/src/modules/animals/weigh-ins.service';
 import { asTenant } from './db';

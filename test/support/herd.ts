@@ -1,9 +1,9 @@
 import { randomUUID } from 'node:crypto';
 import { animalCreateSchema, type AnimalCreateBody, type AnimalDetailDto, type BreedDto } from '@burrowline/shared';
-import { connectDatabase } from '../../packages/server/src/db/sequelize';
+import { connectDatabase } from '../../packages/server/src/composition/database';
 import { withTenant } from '../../packages/server/src/db/tenant';
-import type { SessionUser } from '../../packages/server/src/http/passport';
-import { createAnimal } from '../../packages/server/src/modules/animals/animals.service';
+import type { SessionUser } from '../../packages/server/src/lib/session-user';
+import { createAnimal } from '../../packages/server/src/modules/animals/animal-edits.service';
 import { breedsOf } from '../../packages/server/src/modules/breeds/breeds.service';
 import type { TestPerson } from './factories';
 import type { Agent } from './test-app';

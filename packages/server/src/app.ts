@@ -4,7 +4,7 @@ import { fileURLToPath } from 'node:url';
 import express, { type Express } from 'express';
 import helmet from 'helmet';
 import { loadConfig, type Config } from './config/env';
-import { connectDatabase, database } from './db/sequelize';
+import { connectDatabase, database } from './composition/database';
 import { attachAbility } from './http/ability';
 import { csrfGuard } from './http/csrf';
 import { apiNotFound, errorHandler } from './http/error-handler';
@@ -31,7 +31,7 @@ import { almanacRoutes, calendarFeedRoutes, serviceRoutes, treatmentRoutes, with
 import { heatCautionRoutes, temperatureRoutes } from './modules/health/health.routes';
 import { processingMarkRoutes, processingRecordRoutes } from './modules/processing/processing.routes';
 import { housingPlacementRoutes, housingRoutes, litterEventRoutes, litterRoutes } from './modules/litters/litters.routes';
-import { growOutRoutes } from './modules/growout/growout.routes';
+import { growOutRoutes } from './modules/grow-out/grow-out.routes';
 import { feedRoutes } from './modules/feed/feed.routes';
 import { performanceRoutes } from './modules/performance/performance.routes';
 
@@ -105,9 +105,9 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
   api.use('/invitations', invitationRoutes(config));
   api.use('/audit-events', auditRoutes());
   api.use('/coop', coopRoutes());
-  // The Herd (issue 4)
+  // The Herd
   api.use('/breeds', breedRoutes());
-  // Herd records in and out (issue 5): photos, spreadsheet import and export, pedigree papers.
+  // Herd records in and out: photos, spreadsheet import and export, pedigree papers.
   api.use('/animals/:animalId/photos', animalPhotoRoutes(config));
   api.use('/photos', photoRoutes());
   api.use('/herd-imports', herdImportRoutes(config));
@@ -119,7 +119,7 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
   api.use('/weigh-ins', weighInRoutes());
   api.use('/animal-notes', animalNoteRoutes());
   api.use('/outside-animals', outsideAnimalRoutes());
-  // The Almanac and litters (issue 6). The calendar feed answers a phone calendar with no session (secret address).
+  // The Almanac and litters. The calendar feed answers a phone calendar with no session (secret address).
   api.use('/almanac', almanacRoutes(config));
   api.use('/services', serviceRoutes());
   api.use('/treatments', treatmentRoutes());
@@ -127,11 +127,11 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
   api.use('/litters', litterRoutes());
   api.use('/litter-events', litterEventRoutes());
   api.use('/housing-units', housingRoutes());
-  // Grow-out groups and the feed book (issue 7).
+  // Grow-out groups and the feed book.
   api.use('/grow-out', growOutRoutes());
   api.use('/feed', feedRoutes());
   api.use('/housing-placements', housingPlacementRoutes());
-  // Health and yield (issue 7): treatments' withdrawals, the barn's temperature, processing records and marks.
+  // Health and yield: treatments' withdrawals, the barn's temperature, processing records and marks.
   api.use('/withdrawals', withdrawalRoutes());
   api.use('/temperature-readings', temperatureRoutes());
   api.use('/heat-caution', heatCautionRoutes());

@@ -21,7 +21,7 @@ export const RealtimeEvent = {
   /** A litter of the farm changed (kindling, a kit-count event, a fostering, a keeper, a review); to the farm's room. */
   litterChanged: 'litter:changed',
   /** The farm's grow-out groups, their weigh-ins or its feed purchases and feed given changed; to the farm's room. */
-  growOutChanged: 'growout:changed',
+  growOutChanged: 'grow-out:changed',
   /** A temperature reading was logged on the farm (the heat caution may change); to the farm's room. */
   temperatureRecorded: 'temperature:recorded',
   /** The farm's treatments and withdrawals changed; to the farm's room. */

@@ -1,10 +1,12 @@
 import { Sequelize } from 'sequelize';
-import { initModels } from './models';
 
 let instance: { url: string; sequelize: Sequelize } | null = null;
 
-/** One connection pool per process, as the app role (never the owner). */
-export function connectDatabase(url: string, poolMax = 10): Sequelize {
+/**
+ * Opens the process's one connection pool, as the app role (never the owner). The composition root
+ * passes `initModels`, so this folder never imports the modules.
+ */
+export function openDatabase(url: string, poolMax: number, initModels: (sequelize: Sequelize) => void): Sequelize {
   if (instance?.url === url) return instance.sequelize;
   if (instance) throw new Error('connectDatabase was called with a second database URL');
   const sequelize = new Sequelize(url, {

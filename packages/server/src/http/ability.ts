@@ -1,7 +1,7 @@
 import type { NextFunction, Request, RequestHandler, Response } from 'express';
 import { defineAbilityFor, ErrorCode, type AppAbility } from '@burrowline/shared';
 import { AppError } from '../lib/app-error';
-import type { SessionUser } from './passport';
+import type { SessionUser } from '../lib/session-user';
 
 declare module 'express-serve-static-core' {
   interface Request {

@@ -1,20 +1,10 @@
 import passport from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
 import { QueryTypes } from 'sequelize';
-import type { Role } from '@burrowline/shared';
 import { database } from '../db/sequelize';
+import type { Role } from '@burrowline/shared';
 import { verifyPassword } from '../lib/passwords';
-
-/** What a request knows about its signed-in person (loaded per request by id). */
-export interface SessionUser {
-  id: string;
-  coopId: string;
-  farmId: string | null;
-  mentorId: string | null;
-  email: string;
-  name: string;
-  role: Role;
-}
+import type { SessionUser } from '../lib/session-user';
 
 declare global {
   // eslint-disable-next-line @typescript-eslint/no-namespace

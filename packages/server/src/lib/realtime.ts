@@ -2,7 +2,7 @@ import type { Server as HttpServer, IncomingMessage } from 'node:http';
 import type { RequestHandler } from 'express';
 import { Server, type Socket } from 'socket.io';
 import { defineAbilityFor, rooms, RealtimeEvent, subjectOf, type ClientToServerEvents, type ServerToClientEvents } from '@burrowline/shared';
-import type { SessionUser } from '../http/passport';
+import type { SessionUser } from './session-user';
 import { logger } from './logger';
 
 type RealtimeServer = Server<ClientToServerEvents, ServerToClientEvents>;

@@ -7,7 +7,7 @@ import type { FarmRefDto } from '../herd/herd-dto';
 import type { ReviewState, Sex } from '../herd/herd-enums';
 import type { HousingKind } from '../schemas/litter.schema';
 
-/** What the Almanac and litter screens receive (issue 6). */
+/** What the Almanac and litter screens receive. */
 
 export interface AnimalRefDto {
   id: string;
@@ -171,7 +171,7 @@ export interface BreedingStockListDto {
   bucks: BreedingStockDto[];
 }
 
-/** TreatmentDto: see health/health-dto.ts (issue 7). */
+/** TreatmentDto: see health/health-dto.ts. */
 
 export interface LitterEventDto {
   id: string;

@@ -4,7 +4,7 @@ import type { YieldFlag } from '../yield/dress-out';
 import type { UsdaClass } from '../yield/usda-class';
 import type { TreatmentRoute } from '../schemas/health.schema';
 
-/** What the Health and Processing tabs receive (issue 7). */
+/** What the Health and Processing tabs receive. */
 
 export interface GroupRefDto {
   id: string;

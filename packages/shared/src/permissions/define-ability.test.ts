@@ -97,7 +97,7 @@ describe('defineAbilityFor (the brief\'s role table)', () => {
   });
 });
 
-describe('defineAbilityFor: the Herd (issue 4)', () => {
+describe('defineAbilityFor: the Herd', () => {
   const weighIn = (farm: string, enteredBy: string) => subjectOf('WeighIn', { coopId, farmId: farm, enteredBy });
   const note = (farm: string, enteredBy: string) => subjectOf('AnimalNote', { coopId, farmId: farm, enteredBy });
 
@@ -148,7 +148,7 @@ describe('defineAbilityFor: the Herd (issue 4)', () => {
   });
 });
 
-describe('defineAbilityFor: the Almanac and litters (issue 6)', () => {
+describe('defineAbilityFor: the Almanac and litters', () => {
   const almanacSubjects = ['CycleSettings', 'Service', 'Treatment', 'AlmanacTask', 'CalendarFeed', 'Litter', 'LitterEvent', 'HousingUnit'] as const;
 
   it('when a member, then they plan and record everything for their own farm, and nothing of another farm', () => {
@@ -196,7 +196,7 @@ describe('defineAbilityFor: the Almanac and litters (issue 6)', () => {
   });
 });
 
-describe('defineAbilityFor: herd files (issue 5)', () => {
+describe('defineAbilityFor: herd files', () => {
   it('when a member, then they stage and confirm imports for their own farm only', () => {
     const a = defineAbilityFor(member);
     for (const action of ['create', 'read', 'update'] as const) {

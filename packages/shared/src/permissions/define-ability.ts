@@ -37,7 +37,7 @@ export type SubjectName =
   | 'WeighIn'
   | 'AnimalNote'
   | 'HerdImport'
-  // The Almanac and litters (issue 6): farm-private, subjects carry { farmId }.
+  // The Almanac and litters: farm-private, subjects carry { farmId }.
   | 'CycleSettings'
   | 'Service'
   | 'Treatment'
@@ -47,7 +47,7 @@ export type SubjectName =
   | 'Litter'
   | 'LitterEvent'
   | 'HousingUnit'
-  // Grow-out, feed, health and yield (issue 7): farm-private, subjects carry { farmId }. Money in them
+  // Grow-out, feed, health and yield: farm-private, subjects carry { farmId }. Money in them
   // (prices, costs) is shown only to who can read 'Money'.
   | 'GrowOutGroup'
   | 'FeedRecord'

@@ -3,7 +3,7 @@ import { isIsoDate } from '../herd/herd-dates';
 import { calendarDateSchema } from './animal.schema';
 
 /**
- * Inputs of the Almanac (issue 6): services and palpations, closing a service, treatments, task
+ * Inputs of the Almanac: services and palpations, closing a service, treatments, task
  * actions one by one or in bulk, the agenda's date range, the morning e-mail. Dates are calendar dates
  * on the farm's own clock; whether one lies in the future is checked by the server against the farm's
  * today (the schema cannot know the farm's time zone).
@@ -51,7 +51,7 @@ export const serviceListQuerySchema = z.strictObject({
 });
 export type ServiceListQuery = z.infer<typeof serviceListQuerySchema>;
 
-/** Treatments moved to schemas/health.schema.ts (issue 7: dose, route, withdrawal, groups). */
+/** Treatments moved to schemas/health.schema.ts (dose, route, withdrawal, groups). */
 
 /** GET /api/almanac/tasks: a window of the agenda or of a month, on the farm's clock. */
 export const agendaQuerySchema = z

@@ -5,7 +5,7 @@ import { celsiusToFahrenheit } from '../units/units';
 import { calendarDateSchema } from './animal.schema';
 
 /**
- * Inputs of the Health tab (issue 7). No drugs are approved for rabbits in the US: treatment is
+ * Inputs of the Health tab. No drugs are approved for rabbits in the US: treatment is
  * extralabel and needs a veterinarian, who sets the withdrawal time before slaughter (Sundlof et al.,
  * JAVMA 1991; FARAD). A withdrawal is entered as its end date or as days after the last dose; one with
  * no end is refused, and "no withdrawal" is an explicit 0 days.

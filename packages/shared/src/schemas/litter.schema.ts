@@ -3,7 +3,7 @@ import { sexes } from '../herd/herd-enums';
 import { calendarDateSchema, tattooSchema } from './animal.schema';
 
 /**
- * Inputs for litters (issue 6). A litter's kit count is never typed in: the kindling gives born alive and
+ * Inputs for litters. A litter's kit count is never typed in: the kindling gives born alive and
  * born dead, and every later change is a dated event (lost with a cause, culled, weaned, fostered in or
  * out naming the other litter). Counts are whole numbers, 0 or more for the kindling, at least 1 for an
  * event; the checks that need the litter's history (more kits leaving than were with the doe, a date

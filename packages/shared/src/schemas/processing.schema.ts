@@ -3,7 +3,7 @@ import { MAX_RABBIT_GRAMS } from '../growth/plausibility';
 import { calendarDateSchema } from './animal.schema';
 
 /**
- * Inputs of the Processing tab (issue 7): a processing record for one animal or a batch of a grow-out
+ * Inputs of the Processing tab: a processing record for one animal or a batch of a grow-out
  * group's heads (weights are the totals of the record's heads, in grams), and a mark for processing.
  * What the schema cannot know (the animal's farm, the group's heads left, a withdrawal, the farm's
  * today) the server checks.

@@ -1,7 +1,7 @@
 import type { MigrationFn } from '../migrator';
 
 /**
- * One animal, one record, for life (issue 4). Co-op animals carry their breeding, owning and keeping
+ * One animal, one record, for life. Co-op animals carry their breeding, owning and keeping
  * farm; outside animals (known only from papers) are rows of the same table with `is_outside` and no
  * farm, so a sire or dam reference is always an animal id and pedigree queries stay one self-join.
  * Parents must be of the same co-op: the composite keys make that a database fact, not only an app rule.

@@ -1,7 +1,7 @@
 import type { MigrationFn } from '../migrator';
 
 /**
- * Each farm's own breeding cycle (issue 6): the days from service and kindling to each job of the
+ * Each farm's own breeding cycle: the days from service and kindling to each job of the
  * Almanac. No row means the published defaults (packages/shared breeding/cycle-settings, with their
  * sources); the first edit stores the whole set. Two members of a farm may edit at once: `version`.
  */

@@ -2,7 +2,7 @@ import type { MigrationFn } from '../migrator';
 
 /**
  * Services (a doe bred to a buck on a date), their palpations, and the treatments checked before a
- * service is saved (issue 6). A service stays open until it is kindled, palpated empty or closed as
+ * service is saved. A service stays open until it is kindled, palpated empty or closed as
  * missed; the partial unique index makes "one open service per doe" a database fact, so two members
  * saving at once cannot give her two. Services are referred to by litters and tasks: never deleted.
  */

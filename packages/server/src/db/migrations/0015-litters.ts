@@ -1,7 +1,7 @@
 import type { MigrationFn } from '../migrator';
 
 /**
- * Litters and the dated events that change their kit count (issue 6). The count is never stored: it
+ * Litters and the dated events that change their kit count. The count is never stored: it
  * follows from born alive and the events (fostered in or out naming the other litter, lost with a cause,
  * culled, weaned). Sire and dam are the service's, fixed at the kindling; fostering never changes them.
  * A fostering between two litters is two events sharing a `pair_id`, one on each litter (and farm).

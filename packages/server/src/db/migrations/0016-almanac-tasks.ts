@@ -1,7 +1,7 @@
 import type { MigrationFn } from '../migrator';
 
 /**
- * The Almanac's tasks (issue 6): rows with stable ids (the calendar feed's UIDs), each a calendar date
+ * The Almanac's tasks: rows with stable ids (the calendar feed's UIDs), each a calendar date
  * on the farm's clock, planned from a service, a negative palpation, a kindling or an arrival under the
  * farm's cycle settings (or the co-op's quarantine rule), and linked to what it came from. A task is
  * open, done, moved (to a date the breeder chose; re-planning leaves it there) or skipped with a reason.

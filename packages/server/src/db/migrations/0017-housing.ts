@@ -1,7 +1,7 @@
 import type { MigrationFn } from '../migrator';
 
 /**
- * Hutches and pens as housing units, with dated placements of animals and litters (issue 6; later
+ * Hutches and pens as housing units, with dated placements of animals and litters (later
  * issues allocate feed by pen). A placement is current until it ends; one current placement per animal
  * and per litter, enforced by partial unique indexes.
  */

@@ -1,7 +1,7 @@
 import type { MigrationFn } from '../migrator';
 
 /**
- * The per-farm iCalendar feed's secret (issue 6). A phone calendar fetches the feed with no session,
+ * The per-farm iCalendar feed's secret. A phone calendar fetches the feed with no session,
  * before the tenant is known, so this table stays outside row-level security on purpose, like
  * one_time_tokens (listed with it in migration 0002): only the SHA-256 of the token is stored, and the
  * feed route looks it up by that hash alone. Renewing revokes the old token; one live token per farm.

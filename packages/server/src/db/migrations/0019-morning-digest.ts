@@ -5,7 +5,7 @@ const DIGEST_QUEUE = 'almanac-morning-digest';
 const BOSS_SCHEMA = 'pgboss';
 
 /**
- * The opt-in morning e-mail (issue 6). Who asked for it and at what hour of their farm's clock; one
+ * The opt-in morning e-mail. Who asked for it and at what hour of their farm's clock; one
  * delivery row per person and farm day, unique, so the e-mail goes once however many app instances
  * run the job; and the job queue itself (pg-boss, in its own schema), installed here by the owner so
  * the app role needs no right to create schemas or tables.

@@ -1,7 +1,7 @@
 import type { MigrationFn } from '../migrator';
 
 /**
- * Photos (issue 5): several per animal, one per farm profile. The files live in the storage module
+ * Photos: several per animal, one per farm profile. The files live in the storage module
  * (outside the web root) under server-made keys; this table says whose they are. An animal's photos
  * follow the animal (who may see them is decided by the animal's farm at the time of viewing);
  * `farm_id` is the farm that uploaded them. Removed photos keep their row (`deleted_at`), their files

@@ -1,7 +1,7 @@
 import type { MigrationFn } from '../migrator';
 
 /**
- * Spreadsheets staged for import into a farm's herd (issue 5). The file is kept as uploaded (with its
+ * Spreadsheets staged for import into a farm's herd. The file is kept as uploaded (with its
  * checksum) so the confirm checks exactly what the preview showed against the herd as it is then;
  * `rows` holds the checked rows (and the ids new animals will get), `summary` the counts. A confirm
  * carries an idempotency key, unique in the co-op, so a double click imports once. Previews that were

@@ -2,7 +2,7 @@ import type { MigrationFn } from '../migrator';
 import { tenantIsolation } from '../tenant-isolation-sql';
 
 /**
- * Grow-out groups (issue 7): kits of one or more litters raised together after weaning toward a target
+ * Grow-out groups: kits of one or more litters raised together after weaning toward a target
  * live weight. The group's make-up (which litters, how many heads each) is fixed at forming; later head
  * changes (losses, animals processed) come from the group's weigh-ins and processing records. Group
  * weigh-ins live in weigh_ins (group_id), which now refers here. Never hard-deleted: feed uses,

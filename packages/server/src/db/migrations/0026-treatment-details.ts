@@ -1,7 +1,7 @@
 import type { MigrationFn } from '../migrator';
 
 /**
- * Treatments in full (issue 7): the dose, the route, the last day of treatment and the withdrawal the
+ * Treatments in full: the dose, the route, the last day of treatment and the withdrawal the
  * veterinarian set, and a treated grow-out group as well as a single animal. No drugs are approved for
  * rabbits in the US: treatment is extralabel and the veterinarian sets the withdrawal time before
  * slaughter (Sundlof et al., JAVMA 1991; FARAD). `ends_on` stays what it was, the last day under

@@ -2,7 +2,7 @@ import type { MigrationFn } from '../migrator';
 import { tenantIsolation } from '../tenant-isolation-sql';
 
 /**
- * The barn's temperature as a farm reads it (issue 7): stored in °C to one decimal, whichever unit the
+ * The barn's temperature as a farm reads it: stored in °C to one decimal, whichever unit the
  * farm reads in. Rabbits suffer above about 85 °F / 29 °C, heavily pregnant does and young litters most
  * (Texas Extension, TAMUK): the latest reading drives the heat caution on Commons. Readings outside
  * −40…55 °C are not a barn's and are refused. Apprentices may log readings.

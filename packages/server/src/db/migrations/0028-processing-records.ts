@@ -2,7 +2,7 @@ import type { MigrationFn } from '../migrator';
 import { tenantIsolation } from '../tenant-isolation-sql';
 
 /**
- * Processing records (issue 7): one animal from the Herd, or a batch of a grow-out group's heads, with
+ * Processing records: one animal from the Herd, or a batch of a grow-out group's heads, with
  * the live and carcass weights (totals of the record's heads), the age, and what was computed when it
  * was saved: the dress-out (hot and chilled), the USDA class (USDA FSIS, "Rabbit from Farm to Table")
  * and the flags for figures outside the usual range. Later shared processing days fill these in; the

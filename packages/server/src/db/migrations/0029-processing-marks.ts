@@ -2,7 +2,7 @@ import type { MigrationFn } from '../migrator';
 import { tenantIsolation } from '../tenant-isolation-sql';
 
 /**
- * Marks for processing (issue 7): an animal or a grow-out group set aside for a planned processing
+ * Marks for processing: an animal or a grow-out group set aside for a planned processing
  * date. An animal or group under a veterinarian's withdrawal cannot be marked until the withdrawal is
  * over (checked by the service). A mark is done when the processing record is saved, or cancelled.
  * One planned mark per animal and per group.

@@ -1,7 +1,7 @@
 import type { MigrationFn } from '../migrator';
 
 /**
- * Litter weight at weaning (issue 7): the total live weight of the kits weaned, optional, on a 'weaned'
+ * Litter weight at weaning: the total live weight of the kits weaned, optional, on a 'weaned'
  * litter event only. Grams; the sanity of the weight for the kits' age is checked by the service with
  * the shared growth plausibility rules, the table only refuses what no litter can weigh.
  */

@@ -2,7 +2,7 @@ import type { Transaction } from 'sequelize';
 import {
   checkPalpationDate, hasBreedingErrors, plannedTaskKinds, type BreedingCheck, type PlannedTaskKind, type TaskAnchor, type TaskState,
 } from '@burrowline/shared';
-import { animalFactsOf } from '../animals/animals.service';
+import { animalFactsOf } from '../animals/animal-facts.service';
 import { Palpation } from './palpation.model';
 import { ServiceRecord } from './service-record.model';
 import { AlmanacTask } from './task.model';

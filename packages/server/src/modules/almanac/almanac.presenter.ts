@@ -1,12 +1,13 @@
 import {
-  daysBetween, TASK_KIND_LABELS, taskTiming, type AlmanacTaskDto, type AnimalRefDto, type BreedingCheck, type FarmRefDto,
-  type PalpationDto, type ServiceDto, type ServiceListItemDto, type TreatmentDto, type TreatmentRoute,
+  daysBetween, TASK_KIND_LABELS, taskTiming, type AlmanacTaskDto, type BreedingCheck, type PalpationDto, type ServiceDto, type ServiceListItemDto, type TreatmentDto, type TreatmentRoute,
 } from '@burrowline/shared';
-import type { AnimalFacts } from '../animals/animals.service';
+import { animalLabel, presentAnimalRef, type AnimalFacts } from '../animals/animal-facts.service';
 import type { Palpation } from './palpation.model';
 import type { ServiceRecord } from './service-record.model';
 import type { AlmanacTask } from './task.model';
 import type { Treatment } from './treatment.model';
+
+export { animalLabel, presentAnimalRef };
 
 /** What presenting needs besides the rows: animals, farm names, people's names, the farm's today. */
 export interface AlmanacPresentContext {
@@ -14,18 +15,6 @@ export interface AlmanacPresentContext {
   farms: Map<string, { id: string; name: string }>;
   names: Map<string, string>;
   today: string;
-}
-
-export function animalLabel(animal: Pick<AnimalFacts, 'name' | 'tattoo'> | undefined): string {
-  if (!animal) return 'An animal';
-  if (animal.name && animal.tattoo) return `${animal.name} (${animal.tattoo})`;
-  return animal.name || animal.tattoo || 'An animal';
-}
-
-export function presentAnimalRef(id: string, ctx: Pick<AlmanacPresentContext, 'animals' | 'farms'>): AnimalRefDto {
-  const a = ctx.animals.get(id);
-  const farm: FarmRefDto | null = a?.keepingFarmId ? { id: a.keepingFarmId, name: ctx.farms.get(a.keepingFarmId)?.name ?? 'A former member farm' } : null;
-  return { id, name: a?.name ?? '', tattoo: a?.tattoo ?? null, sex: a?.sex ?? 'doe', farm };
 }
 
 const person = (id: string | null, names: Map<string, string>) => (id ? { id, name: names.get(id) ?? 'Someone' } : null);

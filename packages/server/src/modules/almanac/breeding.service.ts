@@ -6,18 +6,19 @@ import {
   type ServiceCreateInput, type ServiceDto, type ServiceListItemDto, type ServiceListQuery,
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
-import type { SessionUser } from '../../http/passport';
+import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { recordChanges } from '../audit/audit.service';
-import { animalFactsOf, farmBreedingStockOf, type AnimalFacts } from '../animals/animals.service';
-import { addMessage, ensureCan, farmOf, refuseOrConfirm, type FieldMessages } from './almanac-access';
-import { announceAlmanac, farmClockOf } from './almanac-context';
+import { animalFactsOf, farmBreedingStockOf, type AnimalFacts } from '../animals/animal-facts.service';
+import { addMessage, ensureCan, farmOf, refuseOrConfirm, type FieldMessages } from '../farms/farm-access';
+import { announceAlmanac } from './almanac-events.service';
+import { farmClockOf } from '../farms/farm-clock';
 import { presentService, presentServiceListItem } from './almanac.presenter';
 import { settingsOf } from './cycle-settings.service';
 import { Palpation } from './palpation.model';
 import { ServiceRecord } from './service-record.model';
 import { openTasksOfAnimal, presentContextOf, tasksOf } from './tasks.service';
-import { insertPlannedTasks, markTasksDone, skipTasks, toTaskRecord } from './task-writer';
+import { insertPlannedTasks, markTasksDone, skipTasks, toTaskRecord } from './task-writer.service';
 import { treatmentsCovering } from './treatments.service';
 
 /** What litters need of a service to kindle it. */
@@ -320,7 +321,7 @@ export async function settleServiceOnKindling(tx: Transaction, actor: SessionUse
 }
 
 // ---------------------------------------------------------------------------------------------
-// For performance (issue 7), inside the caller's transaction
+// For performance, inside the caller's transaction
 // ---------------------------------------------------------------------------------------------
 
 /** A service with how it turned out (shared serviceOutcome), for conception rates and misses in a row. */

@@ -4,14 +4,15 @@ import {
   type CycleSettingsPatchInput, type CycleSettingsSaveDto,
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
-import type { SessionUser } from '../../http/passport';
+import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { recordChanges } from '../audit/audit.service';
-import { ensureCan, farmOf } from './almanac-access';
-import { announceAlmanac, farmClockOf } from './almanac-context';
+import { ensureCan, farmOf } from '../farms/farm-access';
+import { announceAlmanac } from './almanac-events.service';
+import { farmClockOf } from '../farms/farm-clock';
 import { FarmCycleSettings } from './cycle-settings.model';
 import { AlmanacTask } from './task.model';
-import { insertPlannedTasks, skipTasks, toTaskRecord } from './task-writer';
+import { insertPlannedTasks, skipTasks, toTaskRecord } from './task-writer.service';
 
 export interface StoredSettings {
   settings: CycleSettings;

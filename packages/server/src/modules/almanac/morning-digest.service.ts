@@ -4,17 +4,17 @@ import {
 } from '@burrowline/shared';
 import { database } from '../../db/sequelize';
 import { withTenant } from '../../db/tenant';
-import type { SessionUser } from '../../http/passport';
+import type { SessionUser } from '../../lib/session-user';
 import { logger } from '../../lib/logger';
 import { queueMail } from '../../lib/mail-outbox';
 import { composeMail, type MailMessage } from '../../lib/mailer';
-import { ensureCan, farmOf } from './almanac-access';
-import { farmClockOf } from './almanac-context';
+import { ensureCan, farmOf } from '../farms/farm-access';
+import { farmClockOf } from '../farms/farm-clock';
 import { settingsOf } from './cycle-settings.service';
 import { DigestSubscription } from './digest-subscription.model';
 import { AlmanacTask } from './task.model';
 import { presentTasks } from './tasks.service';
-import { toTaskRecord } from './task-writer';
+import { toTaskRecord } from './task-writer.service';
 
 /** After this hour of the farm's clock a missed morning e-mail is not sent late (it is no morning any more). */
 const LAST_HOUR = 12;

@@ -1,8 +1,8 @@
 import type { Transaction } from 'sequelize';
 import { planQuarantine } from '@burrowline/shared';
 import { getCoop } from '../coops/coops.service';
-import { announceAlmanac } from './almanac-context';
-import { insertPlannedTasks } from './task-writer';
+import { announceAlmanac } from './almanac-events.service';
+import { insertPlannedTasks } from './task-writer.service';
 
 export interface Arrival {
   coopId: string;

@@ -5,18 +5,19 @@ import {
 } from '@burrowline/shared';
 import { accessibleWhere } from '../../db/scope';
 import { withTenant } from '../../db/tenant';
-import type { SessionUser } from '../../http/passport';
+import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { recordChanges } from '../audit/audit.service';
-import { animalFactsOf } from '../animals/animals.service';
+import { animalFactsOf } from '../animals/animal-facts.service';
 import { farmDirectoryOf } from '../farms/farms.service';
 import { namesOf } from '../users/users.service';
-import { ensureCan, farmOf } from './almanac-access';
-import { announceAlmanac, farmClockOf, type FarmClock } from './almanac-context';
+import { ensureCan, farmOf } from '../farms/farm-access';
+import { announceAlmanac } from './almanac-events.service';
+import { farmClockOf, type FarmClock } from '../farms/farm-clock';
 import { presentTask, type AlmanacPresentContext } from './almanac.presenter';
 import { settingsOf } from './cycle-settings.service';
 import { AlmanacTask } from './task.model';
-import { toTaskRecord } from './task-writer';
+import { toTaskRecord } from './task-writer.service';
 
 const kindOrder = new Map<string, number>(plannedTaskKinds.map((kind, index) => [kind, index]));
 

@@ -2,7 +2,7 @@ import { DataTypes, Model, type CreationOptional, type InferAttributes, type Inf
 
 /**
  * A veterinarian's (extralabel) treatment of an animal or a grow-out group, to the end of the withdrawal
- * time set. `endsOn` is the last day under withdrawal (rows from before issue 7 have no dose, route or
+ * time set. `endsOn` is the last day under withdrawal (rows saved before treatments recorded them have no dose, route or
  * last day of treatment).
  */
 export class Treatment extends Model<InferAttributes<Treatment>, InferCreationAttributes<Treatment>> {

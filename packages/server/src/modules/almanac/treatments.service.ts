@@ -4,14 +4,15 @@ import {
   type TreatmentCreateInput, type TreatmentDto, type WithdrawalDto, type WithdrawalQuery, type WithdrawalStateDto,
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
-import type { SessionUser } from '../../http/passport';
+import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { publish } from '../../lib/realtime';
 import { recordChanges } from '../audit/audit.service';
-import { animalFactsOf } from '../animals/animals.service';
-import { groupsOfFarm } from '../growout/growout.service';
-import { addMessage, ensureCan, farmOf, type FieldMessages } from './almanac-access';
-import { announceAlmanac, farmClockOf } from './almanac-context';
+import { animalFactsOf } from '../animals/animal-facts.service';
+import { port } from '../../lib/port';
+import { addMessage, ensureCan, farmOf, type FieldMessages } from '../farms/farm-access';
+import { announceAlmanac } from './almanac-events.service';
+import { farmClockOf } from '../farms/farm-clock';
 import { presentAnimalRef, presentTreatment } from './almanac.presenter';
 import { presentContextOf } from './tasks.service';
 import { Treatment } from './treatment.model';
@@ -74,8 +75,14 @@ function announceHealth(tx: Transaction, farmId: string): void {
   tx.afterCommit(() => publish(rooms.farm(farmId), RealtimeEvent.healthChanged, { farmId }));
 }
 
+/**
+ * The farm's grow-out groups by id, named. Grow-out reads the Almanac (settings, weigh-in tasks), so the
+ * Almanac cannot import it; the composition root plugs grow-out's groups in.
+ */
+export const groupNamesOfFarm = port<(tx: Transaction, coopId: string, farmId: string) => Promise<Map<string, string>>>('farm grow-out group names');
+
 async function groupNamesOf(tx: Transaction, coopId: string, farmId: string): Promise<Map<string, string>> {
-  return new Map((await groupsOfFarm(tx, coopId, farmId)).map((g) => [g.id, g.name]));
+  return groupNamesOfFarm(tx, coopId, farmId);
 }
 
 /**

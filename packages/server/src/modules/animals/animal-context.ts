@@ -1,19 +1,17 @@
 import type { Transaction } from 'sequelize';
-import { RealtimeEvent, rooms, todayIn } from '@burrowline/shared';
-import type { SessionUser } from '../../http/passport';
+import { RealtimeEvent, rooms } from '@burrowline/shared';
+import type { SessionUser } from '../../lib/session-user';
 import { publish } from '../../lib/realtime';
 import { breedMapOf } from '../breeds/breeds.service';
+import { farmTodayIn } from '../farms/farm-clock';
 import { farmDirectoryOf } from '../farms/farms.service';
 import type { PresentContext } from './animals.presenter';
-
-const DEFAULT_TIME_ZONE = 'America/Chicago';
 
 /** Breeds, farms and "today" on the actor's own farm clock, loaded once per request. */
 export async function presentContextFor(actor: Pick<SessionUser, 'coopId' | 'farmId'>, tx: Transaction): Promise<PresentContext> {
   const breeds = await breedMapOf(actor.coopId, tx);
   const farms = await farmDirectoryOf(actor.coopId, tx);
-  const timeZone = (actor.farmId && farms.get(actor.farmId)?.timeZone) || DEFAULT_TIME_ZONE;
-  return { breeds, farms, viewerFarmId: actor.farmId, today: todayIn(timeZone) };
+  return { breeds, farms, viewerFarmId: actor.farmId, today: farmTodayIn(farms, actor.farmId) };
 }
 
 /** Live updates after commit: the farms whose herd changed, and the co-op when pedigree figures moved. */

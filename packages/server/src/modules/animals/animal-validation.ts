@@ -3,12 +3,7 @@ import { findPedigreeCycle, youngParentAt, type BreedDto, type Sex } from '@burr
 import { query, selectAnimalsByIds, type AnimalRow } from './animal-queries';
 import { labelOf, standardBreedOf, type PresentContext } from './animals.presenter';
 import type { PedigreeRow } from './pedigree-figures';
-
-export type FieldMessages = Record<string, string[]>;
-
-function add(messages: FieldMessages, field: string, message: string) {
-  (messages[field] ??= []).push(message);
-}
+import { addMessage, type FieldMessages } from '../farms/farm-access';
 
 export interface PedigreeCandidate {
   /** Null for a new animal (it has no descendants yet). */
@@ -44,9 +39,9 @@ export async function checkPedigree(
   const warnings: FieldMessages = {};
 
   if (candidate.breedId && !ctx.breeds.has(candidate.breedId)) {
-    add(errors, 'breedId', 'Unknown breed: choose one from the list (your co-op admin can add a missing breed)');
+    addMessage(errors, 'breedId', 'Unknown breed: choose one from the list (your co-op admin can add a missing breed)');
   }
-  if (candidate.birthDate && candidate.birthDate > today) add(errors, 'birthDate', 'A birth date cannot be in the future');
+  if (candidate.birthDate && candidate.birthDate > today) addMessage(errors, 'birthDate', 'A birth date cannot be in the future');
 
   const parentIds = [candidate.sireId, candidate.damId].filter((id): id is string => Boolean(id));
   const parents = new Map((await selectAnimalsByIds(tx, coopId, parentIds)).map((row) => [row.id, row]));
@@ -57,23 +52,23 @@ export async function checkPedigree(
     const field = fieldFor[role] ?? `${role}Id`;
     const parent = parents.get(parentId);
     if (!parent) {
-      add(errors, field, `No such animal in the co-op to be the ${role}`);
+      addMessage(errors, field, `No such animal in the co-op to be the ${role}`);
       continue;
     }
     if (parentId === candidate.id) {
-      add(errors, field, `An animal cannot be its own ${role}`);
+      addMessage(errors, field, `An animal cannot be its own ${role}`);
       continue;
     }
     const wanted: Sex = role === 'sire' ? 'buck' : 'doe';
     if (parent.sex !== wanted) {
-      add(errors, field, `${labelOf(parent)} is a ${parent.sex}; a ${role} must be a ${wanted}`);
+      addMessage(errors, field, `${labelOf(parent)} is a ${parent.sex}; a ${role} must be a ${wanted}`);
     }
     if (candidate.birthDate && parent.birth_date && parent.birth_date >= candidate.birthDate) {
-      add(errors, field, `${labelOf(parent)} was born on ${parent.birth_date}, not before this animal (${candidate.birthDate})`);
+      addMessage(errors, field, `${labelOf(parent)} was born on ${parent.birth_date}, not before this animal (${candidate.birthDate})`);
     } else if (candidate.birthDate && parent.sex === wanted) {
       const young = youngParentAt({ sex: parent.sex, birthDate: parent.birth_date }, candidate.birthDate, firstBreedingOf(parent, ctx));
       if (young) {
-        add(
+        addMessage(
           warnings,
           field,
           `${labelOf(parent)} was ${young.ageDays} days old at this birth, younger than the usual first-breeding age of ` +
@@ -91,7 +86,7 @@ export async function checkPedigree(
         const parentId = role === 'sire' ? candidate.sireId : candidate.damId;
         if (parentId && cycle.includes(parentId)) {
           const parent = parents.get(parentId)!;
-          add(errors, fieldFor[role] ?? `${role}Id`, `${labelOf(parent)} descends from this animal, so it cannot also be its ${role} (a cycle in the pedigree)`);
+          addMessage(errors, fieldFor[role] ?? `${role}Id`, `${labelOf(parent)} descends from this animal, so it cannot also be its ${role} (a cycle in the pedigree)`);
         }
       }
     }

@@ -5,7 +5,10 @@ import {
   statusEventSchema, trialMatingSchema, uuidParamSchema, weighInCreateSchema,
 } from '@burrowline/shared';
 import { actorOf, requireUser } from '../../http/ability';
-import { createAnimal, getAnimal, listHerd, moveAnimal, recordStatus, updateAnimal } from './animals.service';
+import { createAnimal, updateAnimal } from './animal-edits.service';
+import { getAnimal, listHerd } from './animals.service';
+import { moveAnimal } from './custody-moves.service';
+import { recordStatus } from './animal-status.service';
 import { listOutsideAnimals, mergeOutsideAnimal, registerOutsideAnimal } from './outside-animals.service';
 import { getPedigreeCard, getPedigreeTree, listPedigreeCards, trialMatings } from './pedigree.service';
 import { createAnimalNote, createWeighIn, listAnimalWeighIns, reviewAnimalNote, reviewWeighIn } from './weigh-ins.service';

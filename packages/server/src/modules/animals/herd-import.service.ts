@@ -1,15 +1,15 @@
-import { ForbiddenError } from '@casl/ability';
+import { authorize } from '../farms/farm-access';
+import { animalRecord } from './animal-access';
 import type { CreationAttributes, Transaction } from 'sequelize';
 import {
-  defineAbilityFor, ErrorCode, findPedigreeCycle, type Disposition, type HerdRecordForImport, type ImportPlan, type Lifecycle, type Sex,
+  ErrorCode, findPedigreeCycle, type Disposition, type HerdRecordForImport, type ImportPlan, type Lifecycle, type Sex,
 } from '@burrowline/shared';
 import { insertMany, type ColumnType } from '../../db/bulk-insert';
 import { database } from '../../db/sequelize';
-import type { SessionUser } from '../../http/passport';
+import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { recordChangesMany } from '../audit/audit.service';
 import { announceAfterCommit } from './animal-context';
-import { animalSubject } from './animals.service';
 import { AnimalStatusEvent } from './animal-status-event.model';
 import { Animal } from './animal.model';
 import { query } from './animal-queries';
@@ -198,7 +198,7 @@ export async function coopHasAnimals(coopId: string, tx: Transaction): Promise<b
 }
 
 // ---------------------------------------------------------------------------------------------
-// Spreadsheet import (issue 5): the herd as the check sees it, and the confirmed plan written at once
+// Spreadsheet import: the herd as the check sees it, and the confirmed plan written at once
 // ---------------------------------------------------------------------------------------------
 
 /**
@@ -264,7 +264,7 @@ export async function importSpreadsheet(
 ): Promise<SpreadsheetImportResult> {
   const farmId = actor.farmId;
   if (!farmId) throw new AppError(ErrorCode.forbidden, 403, 'Only a member of a farm can import animals');
-  ForbiddenError.from(defineAbilityFor(actor)).throwUnlessCan('create', animalSubject({ coopId: actor.coopId, owningFarmId: farmId, keepingFarmId: farmId }));
+  authorize(actor, 'create', animalRecord({ owningFarmId: farmId, keepingFarmId: farmId }), 'You may not do that');
   await lockCoopPedigree(actor.coopId, tx);
 
   const updates = plan.updates;

@@ -4,13 +4,14 @@ import {
   defineAbilityFor, findPedigreeCycle, subjectOf, type OutsideAnimalInput, type OutsideAnimalResultDto, type PedigreeCardDto,
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
-import type { SessionUser } from '../../http/passport';
+import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { recordAudit, recordChanges } from '../audit/audit.service';
 import { announceAfterCommit, presentContextFor } from './animal-context';
 import { Animal } from './animal.model';
 import { query, selectAnimalById, selectAnimals, type AnimalRow } from './animal-queries';
-import { checkPedigree, type FieldMessages } from './animal-validation';
+import { checkPedigree } from './animal-validation';
+import type { FieldMessages } from '../farms/farm-access';
 import { labelOf, presentCard, type PresentContext } from './animals.presenter';
 import { loadPedigreeRows, lockCoopPedigree, recomputePedigreeFigures } from './pedigree-figures';
 

@@ -4,11 +4,11 @@ import {
   type PedigreeCardListDto, type PedigreeCardQuery, type PedigreeTreeDto, type TrialMatingDto, type TrialMatingInput,
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
-import type { SessionUser } from '../../http/passport';
+import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { presentContextFor } from './animal-context';
 import { query, selectAncestorIds, selectAnimalById, selectAnimals, selectAnimalsByIds } from './animal-queries';
-import type { FieldMessages } from './animal-validation';
+import type { FieldMessages } from '../farms/farm-access';
 import { labelOf, presentCard, presentMakeup } from './animals.presenter';
 import { loadPedigreeRows, type PedigreeRow } from './pedigree-figures';
 

@@ -1,18 +1,18 @@
+import { authorize, ensureCan } from '../farms/farm-access';
+import { animalRecord } from './animal-access';
 import { ForbiddenError } from '@casl/ability';
 import type { Transaction } from 'sequelize';
 import {
-  defineAbilityFor, ErrorCode, subjectOf, type AnimalNoteCreateInput, type AnimalNoteDto, type EntryReviewInput,
-  type ReviewState, type WeighInCreateInput, type WeighInDto,
+  defineAbilityFor, ErrorCode, subjectOf, type AnimalNoteCreateInput, type AnimalNoteDto, type EntryReviewInput, type ReviewState, type WeighInCreateInput, type WeighInDto,
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
-import type { SessionUser } from '../../http/passport';
+import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { recordChanges } from '../audit/audit.service';
 import { namesOf } from '../users/users.service';
 import { announceAfterCommit, presentContextFor } from './animal-context';
 import { AnimalNote } from './animal-note.model';
 import { Animal } from './animal.model';
-import { animalSubject } from './animals.service';
 import { WeighIn } from './weigh-in.model';
 
 /** An apprentice's entry waits for the mentor's review; a member's stands as entered. */
@@ -58,8 +58,7 @@ function presentNote(n: AnimalNote, names: Map<string, string>): AnimalNoteDto {
 async function animalOnActorsFarm(actor: SessionUser, animalId: string, tx: Transaction): Promise<Animal> {
   const animal = await Animal.findOne({ where: { id: animalId, coopId: actor.coopId, isOutside: false }, transaction: tx });
   if (!animal) throw AppError.notFound('That animal');
-  const ability = defineAbilityFor(actor);
-  ForbiddenError.from(ability).throwUnlessCan('read', animalSubject(animal));
+  authorize(actor, 'read', animalRecord(animal), 'You may not do that');
   if (animal.keepingFarmId !== actor.farmId) {
     throw new AppError(ErrorCode.forbidden, 403, 'Only the farm keeping the animal can record this');
   }
@@ -79,7 +78,7 @@ export async function createWeighIn(actor: SessionUser, input: WeighInCreateInpu
     const animal = input.animalId ? await animalOnActorsFarm(actor, input.animalId, tx) : null;
     const farmId = animal?.keepingFarmId ?? actor.farmId;
     if (!farmId) throw new AppError(ErrorCode.forbidden, 403, 'Only a member of a farm can record weights');
-    ForbiddenError.from(defineAbilityFor(actor)).throwUnlessCan('create', subjectOf('WeighIn', { coopId: actor.coopId, farmId, enteredBy: actor.id }));
+    ensureCan(actor, 'create', 'WeighIn', { farmId, enteredBy: actor.id }, 'That farm', 'You may not do that');
 
     const ctx = await presentContextFor(actor, tx);
     if (input.weighedOn > ctx.today) throw AppError.validation({ weighedOn: ['A weigh-in cannot be dated in the future'] });
@@ -111,7 +110,7 @@ export async function listAnimalWeighIns(actor: SessionUser, animalId: string): 
   return withTenant(actor, async (tx) => {
     const animal = await Animal.findOne({ where: { id: animalId, coopId: actor.coopId, isOutside: false }, transaction: tx });
     if (!animal) throw AppError.notFound('That animal');
-    ForbiddenError.from(defineAbilityFor(actor)).throwUnlessCan('read', animalSubject(animal));
+    authorize(actor, 'read', animalRecord(animal), 'You may not do that');
     const rows = await WeighIn.findAll({ where: { animalId }, order: [['weighedOn', 'ASC'], ['createdAt', 'ASC']], transaction: tx });
     const names = await namesOf(rows.map((r) => r.enteredBy), tx);
     return rows.map((r) => presentWeighIn(r, names));
@@ -163,7 +162,7 @@ export async function createAnimalNote(actor: SessionUser, animalId: string, inp
   return withTenant(actor, async (tx) => {
     const animal = await animalOnActorsFarm(actor, animalId, tx);
     const farmId = animal.keepingFarmId!;
-    ForbiddenError.from(defineAbilityFor(actor)).throwUnlessCan('create', subjectOf('AnimalNote', { coopId: actor.coopId, farmId, enteredBy: actor.id }));
+    ensureCan(actor, 'create', 'AnimalNote', { farmId, enteredBy: actor.id }, 'That farm', 'You may not do that');
     const ctx = await presentContextFor(actor, tx);
     if (input.notedOn > ctx.today) throw AppError.validation({ notedOn: ['A note cannot be dated in the future'] });
     const note = await AnimalNote.create(

@@ -20,12 +20,12 @@ import {
 import { accessibleWhere } from '../../db/scope';
 import { database } from '../../db/sequelize';
 import { withTenant } from '../../db/tenant';
-import type { SessionUser } from '../../http/passport';
+import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { queueMail } from '../../lib/mail-outbox';
 import { publish } from '../../lib/realtime';
 import { recordAudit } from '../audit/audit.service';
-import { issueToken } from '../auth/tokens';
+import { issueToken } from '../one-time-tokens/one-time-tokens.service';
 import { findPublicCoop, getCoop } from '../coops/coops.service';
 import { createFarm, findFarmRef, isFarmNameTaken } from '../farms/farms.service';
 import { createUser, isEmailRegistered, listAdminContacts, namesOf } from '../users/users.service';

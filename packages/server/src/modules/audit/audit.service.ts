@@ -4,7 +4,7 @@ import { defineAbilityFor, subjectOf, type AuditCategory, type AuditEventListDto
 import { insertMany } from '../../db/bulk-insert';
 import { accessibleWhere } from '../../db/scope';
 import { withTenant } from '../../db/tenant';
-import type { SessionUser } from '../../http/passport';
+import type { SessionUser } from '../../lib/session-user';
 import { namesOf } from '../users/users.service';
 import { presentAuditEvent } from './audit.presenter';
 import { AuditEvent } from './audit-event.model';

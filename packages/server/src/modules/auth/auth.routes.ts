@@ -2,7 +2,7 @@ import { Router, type Request } from 'express';
 import { ErrorCode, passwordResetRequestSchema, setPasswordSchema, signInSchema } from '@burrowline/shared';
 import type { Config } from '../../config/env';
 import { actorOf, requireUser } from '../../http/ability';
-import type { SessionUser } from '../../http/passport';
+import type { SessionUser } from '../../lib/session-user';
 import { passwordResetLimiter, signInAddressLimiter, SignInThrottle } from '../../http/rate-limit';
 import { AppError } from '../../lib/app-error';
 import { logger } from '../../lib/logger';

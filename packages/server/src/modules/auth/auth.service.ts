@@ -6,13 +6,13 @@ import { queueMail } from '../../lib/mail-outbox';
 import { assertPasswordAllowed, hashPassword } from '../../lib/passwords';
 import { disconnectRoom } from '../../lib/realtime';
 import { findIdentityByEmail } from '../../http/passport';
-import type { SessionUser } from '../../http/passport';
+import type { SessionUser } from '../../lib/session-user';
 import { recordAudit } from '../audit/audit.service';
 import { getCoop } from '../coops/coops.service';
 import { acceptPendingInvitation } from '../members/members.service';
 import { findUser, replacePassword } from '../users/users.service';
 import { passwordResetMail } from './auth.mail';
-import { consumeToken, hashToken, issueToken, peekToken } from './tokens';
+import { consumeToken, hashToken, issueToken, peekToken } from '../one-time-tokens/one-time-tokens.service';
 
 /** The signed-in person and their co-op, as `/api/me` and sign-in answer. */
 export async function describeMe(actor: SessionUser): Promise<MeDto> {

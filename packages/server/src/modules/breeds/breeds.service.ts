@@ -2,7 +2,7 @@ import { ForbiddenError } from '@casl/ability';
 import { Op, type Transaction } from 'sequelize';
 import { defineAbilityFor, ErrorCode, poundsToGrams, subjectOf, type BreedCreateInput, type BreedDto, type SizeClass } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
-import type { SessionUser } from '../../http/passport';
+import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { Breed } from './breed.model';
 import { presentBreed } from './breeds.presenter';

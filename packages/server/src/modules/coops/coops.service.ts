@@ -4,7 +4,7 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import { defineAbilityFor, subjectOf, type CoopRulesUpdateInput, type CoopSettingsDto } from '@burrowline/shared';
 import { database } from '../../db/sequelize';
 import { withTenant } from '../../db/tenant';
-import type { SessionUser } from '../../http/passport';
+import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { recordAudit, recordChanges } from '../audit/audit.service';
 import { Cooperative } from './coop.model';

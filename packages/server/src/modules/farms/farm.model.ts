@@ -1,6 +1,7 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize';
 import type { TemperatureUnit, WeightUnit } from '@burrowline/shared';
 import type { User } from '../users/user.model';
+import { DEFAULT_FARM_TIME_ZONE } from './farm-defaults';
 
 export class Farm extends Model<InferAttributes<Farm>, InferCreationAttributes<Farm>> {
   declare id: CreationOptional<string>;
@@ -25,7 +26,7 @@ export class Farm extends Model<InferAttributes<Farm>, InferCreationAttributes<F
         coopId: { type: DataTypes.UUID, allowNull: false },
         name: { type: DataTypes.TEXT, allowNull: false },
         location: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
-        timeZone: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'America/Chicago' },
+        timeZone: { type: DataTypes.TEXT, allowNull: false, defaultValue: DEFAULT_FARM_TIME_ZONE },
         weightUnit: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'lb_oz' },
         temperatureUnit: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'F' },
         breedsKept: { type: DataTypes.ARRAY(DataTypes.TEXT), allowNull: false, defaultValue: [] },

@@ -5,7 +5,7 @@ import { accessibleWhere } from '../../db/scope';
 import { withTenant } from '../../db/tenant';
 import { AppError } from '../../lib/app-error';
 import { publish } from '../../lib/realtime';
-import type { SessionUser } from '../../http/passport';
+import type { SessionUser } from '../../lib/session-user';
 import { recordChanges } from '../audit/audit.service';
 import { Farm } from './farm.model';
 import { presentFarm } from './farms.presenter';

@@ -1,22 +1,24 @@
 import { randomUUID } from 'node:crypto';
 import type { Transaction } from 'sequelize';
 import {
-  addDays, allocateByHeadDays, allocateByLiveWeight, centsPerKg, checkFeedUses, daysBetween, defineAbilityFor, ErrorCode, formatWeight,
-  gompertzWeight, MATURE_WEIGHT_PRIORS, RealtimeEvent, referenceCurve, rooms, subjectOf, todayIn,
-  type FeedOverviewDto, type FeedPurchaseCreateInput, type FeedPurchaseUpdateInput, type FeedUseCreateInput, type FeedUseDto,
-  type FeedUseUpdateInput,
+  addDays, allocateByHeadDays, allocateByLiveWeight, checkFeedUses, daysBetween, defineAbilityFor, formatWeight, gompertzWeight, MATURE_WEIGHT_PRIORS, RealtimeEvent, referenceCurve, rooms, subjectOf, type FeedOverviewDto, type FeedPurchaseCreateInput, type FeedPurchaseUpdateInput, type FeedUseCreateInput, type FeedUseUpdateInput,
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
-import type { SessionUser } from '../../http/passport';
+import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { publish } from '../../lib/realtime';
-import { animalFactsOf } from '../animals/animals.service';
+import { animalFactsOf } from '../animals/animal-facts.service';
+import { addMessage, canSeeMoney, ensureCan, farmOf } from '../farms/farm-access';
+import { farmTodayOf } from '../farms/farm-clock';
 import { farmDirectoryOf } from '../farms/farms.service';
-import { canSeeMoney, groupOfFarm, groupsOfFarm, groupsPresentDuring, kitsInGroupsByLitter } from '../growout/growout.service';
-import { farmLitterFactsOf, housingUnitNamesOf, housingUnitOfFarm, placementsDuring, type LitterFacts } from '../litters/litter-facts.service';
+import { groupOfFarm, groupsOfFarm, groupsPresentDuring, kitsInGroupsByLitter } from '../grow-out/grow-out-facts.service';
+import {
+  farmLitterFactsOf, housingUnitNamesOf, housingUnitOfFarm, placementsDuring, type LitterFacts,
+} from '../litters/litter-facts.service';
 import { namesOf } from '../users/users.service';
 import { FeedPurchase, FeedUse, FeedUseShare } from './feed.model';
-import { feedKeyOf, feedLedgerOf, feedTotalsByLitter, purchaseFact, sharesWithCost, useFact } from './feed-totals.service';
+import { presentFeedOverview } from './feed.presenter';
+import { feedKeyOf, feedLedgerOf, feedTotalsByLitter, purchaseFact, useFact } from './feed-totals.service';
 import { lockUntilCommit } from '../../db/advisory-lock';
 import { recordChanges } from '../audit/audit.service';
 
@@ -25,19 +27,9 @@ export async function doeLitterFeedOfFarm(tx: Transaction, coopId: string, farmI
   return feedTotalsByLitter(tx, coopId, farmId);
 }
 
-function farmOf(actor: SessionUser): string {
-  if (!actor.farmId) throw new AppError(ErrorCode.forbidden, 403, 'Only a member of a farm keeps a feed book');
-  return actor.farmId;
-}
-
-function ensureCan(actor: SessionUser, action: 'read' | 'create' | 'update' | 'delete', farmId: string): void {
-  if (defineAbilityFor(actor).can(action, subjectOf('FeedRecord', { coopId: actor.coopId, farmId }))) return;
-  throw new AppError(ErrorCode.forbidden, 403, action === 'read' ? 'You may not see the feed book' : 'Only members of the farm record feed');
-}
-
-async function farmToday(tx: Transaction, coopId: string, farmId: string): Promise<string> {
-  const farm = (await farmDirectoryOf(coopId, tx)).get(farmId);
-  return todayIn(farm?.timeZone || 'America/Chicago');
+/** The feed book is farm-private: another farm's is never shown; on one's own farm a refusal is 403. */
+function ensureCanFeed(actor: SessionUser, action: 'read' | 'create' | 'update' | 'delete', farmId: string): void {
+  ensureCan(actor, action, 'FeedRecord', { farmId }, 'That feed book', action === 'read' ? 'You may not see the feed book' : 'Only members of the farm record feed');
 }
 
 /** Weights in refusals read in the farm's units. */
@@ -86,55 +78,23 @@ async function presentOverview(tx: Transaction, actor: SessionUser, farmId: stri
   const animals = await animalFactsOf(tx, actor.coopId, [...ledger.uses.map((u) => u.doeId), ...[...litters.values()].map((l) => l.damId)].filter((x): x is string => Boolean(x)));
   const units = await housingUnitNamesOf(tx, actor.coopId, ledger.uses.map((u) => u.housingUnitId).filter((x): x is string => Boolean(x)));
   const names = await namesOf(ledger.uses.map((u) => u.enteredBy), tx);
-  const productOf = new Map(ledger.purchases.map((p) => [feedKeyOf(p.productName), p.productName]));
-  const litterLabel = (id: string) => {
-    const l = litters.get(id);
-    return l ? `${animals.get(l.damId)?.name ?? 'A doe'} and litter (kindled ${l.kindledOn})` : 'A litter';
-  };
-  const uses: FeedUseDto[] = [...ledger.uses].reverse().map((u) => ({
-    id: u.id, givenOn: u.givenOn, fromOn: u.fromOn, grams: u.grams, productName: productOf.get(u.feedKey) ?? u.feedKey, purchaseId: u.purchaseId,
-    target: u.target, groupId: u.groupId, housingUnitId: u.housingUnitId, doeId: u.doeId, allocation: u.allocation, version: u.version,
-    targetLabel: u.target === 'group' ? groups.get(u.groupId!) ?? 'A group'
-      : u.target === 'pen' ? units.get(u.housingUnitId!) ?? 'A pen'
-        : u.target === 'doe' ? `${animals.get(u.doeId!)?.name ?? 'A doe'} with her litter`
-          : 'Whole farm',
-    shares: sharesWithCost(ledger, u.id).map((s) => ({ groupId: s.groupId, litterId: s.litterId, grams: s.grams, label: s.groupId ? groups.get(s.groupId) ?? 'A group' : litterLabel(s.litterId!) })),
-    costCents: money ? ledger.costByUse.get(u.id) ?? null : null,
-    enteredBy: { id: u.enteredBy, name: names.get(u.enteredBy) ?? 'Someone' },
-    note: u.note,
-  }));
-  const products = new Map<string, { name: string; gramsLeft: number }>();
-  for (const p of ledger.purchases) {
-    const key = feedKeyOf(p.productName);
-    const entry = products.get(key) ?? { name: p.productName, gramsLeft: 0 };
-    entry.gramsLeft += ledger.leftByPurchase.get(p.id) ?? 0;
-    products.set(key, entry);
-  }
-  return {
-    purchases: [...ledger.purchases].reverse().map((p) => ({
-      id: p.id, boughtOn: p.boughtOn, productName: p.productName, bagGrams: p.bagGrams, bags: p.bags, grams: p.bagGrams * p.bags,
-      gramsLeft: ledger.leftByPurchase.get(p.id) ?? 0, crudeProteinPercent: p.crudeProteinPercent,
-      priceCents: money ? p.priceCents : null, centsPerKg: money ? centsPerKg(p.priceCents, p.bagGrams * p.bags) : null, note: p.note,
-      version: p.version,
-    })),
-    uses,
-    products: [...products.values()].sort((a, b) => a.name.localeCompare(b.name)),
+  return presentFeedOverview(ledger, {
+    groups, litters, animals, units, names, canSeeMoney: money,
     canEdit: defineAbilityFor(actor).can('create', subjectOf('FeedRecord', { coopId: actor.coopId, farmId })),
-    canSeeMoney: money,
-  };
+  });
 }
 
 /** The farm's feed book: purchases with the stock left in each, and the feed given with its split (money for members only). */
 export async function listFeed(actor: SessionUser): Promise<FeedOverviewDto> {
-  const farmId = farmOf(actor);
-  ensureCan(actor, 'read', farmId);
+  const farmId = farmOf(actor, 'Only a member of a farm keeps a feed book');
+  ensureCanFeed(actor, 'read', farmId);
   return withTenant(actor, async (tx) => presentOverview(tx, actor, farmId));
 }
 
 /** Records feed bought in whole bags. Refused (400) in the farm's future. */
 export async function recordFeedPurchase(actor: SessionUser, input: FeedPurchaseCreateInput): Promise<FeedOverviewDto> {
-  const farmId = farmOf(actor);
-  ensureCan(actor, 'create', farmId);
+  const farmId = farmOf(actor, 'Only a member of a farm keeps a feed book');
+  ensureCanFeed(actor, 'create', farmId);
   return withTenant(actor, async (tx) => {
     if (input.id && (await FeedPurchase.findOne({ where: { id: input.id }, paranoid: false, transaction: tx }))) return presentOverview(tx, actor, farmId);
     await recordFeedPurchaseIn(tx, actor, input);
@@ -144,11 +104,11 @@ export async function recordFeedPurchase(actor: SessionUser, input: FeedPurchase
 
 /** A feed purchase inside the caller's transaction (the demo loader); the same checks. */
 export async function recordFeedPurchaseIn(tx: Transaction, actor: SessionUser, input: FeedPurchaseCreateInput): Promise<void> {
-  const farmId = farmOf(actor);
-  ensureCan(actor, 'create', farmId);
+  const farmId = farmOf(actor, 'Only a member of a farm keeps a feed book');
+  ensureCanFeed(actor, 'create', farmId);
   {
     await lockFarm(tx, farmId);
-    if (input.boughtOn > (await farmToday(tx, actor.coopId, farmId))) throw AppError.validation({ boughtOn: ['A purchase cannot be dated in the future'] });
+    if (input.boughtOn > (await farmTodayOf(tx, actor.coopId, farmId))) throw AppError.validation({ boughtOn: ['A purchase cannot be dated in the future'] });
     await FeedPurchase.create(
       {
         ...(input.id ? { id: input.id } : {}),
@@ -168,8 +128,8 @@ export async function recordFeedPurchaseIn(tx: Transaction, actor: SessionUser, 
  * groups and nursing litters present in the period by head-days or by live weight, and the split kept.
  */
 export async function recordFeedUse(actor: SessionUser, input: FeedUseCreateInput): Promise<FeedOverviewDto> {
-  const farmId = farmOf(actor);
-  ensureCan(actor, 'create', farmId);
+  const farmId = farmOf(actor, 'Only a member of a farm keeps a feed book');
+  ensureCanFeed(actor, 'create', farmId);
   return withTenant(actor, async (tx) => {
     if (input.id && (await FeedUse.findOne({ where: { id: input.id }, paranoid: false, transaction: tx }))) return presentOverview(tx, actor, farmId);
     await recordFeedUseIn(tx, actor, input);
@@ -179,14 +139,14 @@ export async function recordFeedUse(actor: SessionUser, input: FeedUseCreateInpu
 
 /** Feed given inside the caller's transaction (the demo loader); the same checks. */
 export async function recordFeedUseIn(tx: Transaction, actor: SessionUser, input: FeedUseCreateInput): Promise<void> {
-  const farmId = farmOf(actor);
-  ensureCan(actor, 'create', farmId);
+  const farmId = farmOf(actor, 'Only a member of a farm keeps a feed book');
+  ensureCanFeed(actor, 'create', farmId);
   {
     await lockFarm(tx, farmId);
-    const today = await farmToday(tx, actor.coopId, farmId);
+    const today = await farmTodayOf(tx, actor.coopId, farmId);
     const fromOn = input.fromOn ?? input.givenOn;
     const errors: Record<string, string[]> = {};
-    const add = (field: string, message: string) => (errors[field] ??= []).push(message);
+    const add = (field: string, message: string) => addMessage(errors, field, message);
     if (input.givenOn > today) add('givenOn', 'Feed given cannot be dated in the future');
 
     // Which feed: a named purchase, or the feed by name (first bought, first used).
@@ -327,11 +287,11 @@ async function useToChange(tx: Transaction, actor: SessionUser, farmId: string, 
  * longer cover the feed already given (less bought, bought later, or the feed renamed away from it).
  */
 export async function correctFeedPurchase(actor: SessionUser, purchaseId: string, input: FeedPurchaseUpdateInput): Promise<FeedOverviewDto> {
-  const farmId = farmOf(actor);
-  ensureCan(actor, 'update', farmId);
+  const farmId = farmOf(actor, 'Only a member of a farm keeps a feed book');
+  ensureCanFeed(actor, 'update', farmId);
   return withTenant(actor, async (tx) => {
     const purchase = await purchaseToChange(tx, actor, farmId, purchaseId, input.version);
-    if (input.boughtOn > (await farmToday(tx, actor.coopId, farmId))) throw AppError.validation({ boughtOn: ['A purchase cannot be dated in the future'] });
+    if (input.boughtOn > (await farmTodayOf(tx, actor.coopId, farmId))) throw AppError.validation({ boughtOn: ['A purchase cannot be dated in the future'] });
     const { version: _seen, ...fields } = input;
     const corrected = { ...fields, crudeProteinPercent: fields.crudeProteinPercent ?? null };
     // The values corrected away stay in the audit log: a price once entered is not lost.
@@ -348,8 +308,8 @@ export async function correctFeedPurchase(actor: SessionUser, purchaseId: string
 
 /** Takes a purchase out of the book (kept, marked deleted). Refused (409) while feed given still draws on it. */
 export async function removeFeedPurchase(actor: SessionUser, purchaseId: string, version: number): Promise<FeedOverviewDto> {
-  const farmId = farmOf(actor);
-  ensureCan(actor, 'delete', farmId);
+  const farmId = farmOf(actor, 'Only a member of a farm keeps a feed book');
+  ensureCanFeed(actor, 'delete', farmId);
   return withTenant(actor, async (tx) => {
     const purchase = await purchaseToChange(tx, actor, farmId, purchaseId, version);
     const problems = await uncoveredBy(tx, actor.coopId, farmId, () => purchase.destroy({ transaction: tx }));
@@ -364,8 +324,8 @@ export async function removeFeedPurchase(actor: SessionUser, purchaseId: string,
  * with the same checks as a new one and its split worked anew.
  */
 export async function correctFeedUse(actor: SessionUser, useId: string, input: FeedUseUpdateInput): Promise<FeedOverviewDto> {
-  const farmId = farmOf(actor);
-  ensureCan(actor, 'update', farmId);
+  const farmId = farmOf(actor, 'Only a member of a farm keeps a feed book');
+  ensureCanFeed(actor, 'update', farmId);
   return withTenant(actor, async (tx) => {
     const use = await useToChange(tx, actor, farmId, useId, input.version);
     await use.destroy({ transaction: tx });
@@ -377,8 +337,8 @@ export async function correctFeedUse(actor: SessionUser, useId: string, input: F
 
 /** Takes feed given out of the book (kept, marked deleted); its share leaves the groups' and litters' figures. */
 export async function removeFeedUse(actor: SessionUser, useId: string, version: number): Promise<FeedOverviewDto> {
-  const farmId = farmOf(actor);
-  ensureCan(actor, 'delete', farmId);
+  const farmId = farmOf(actor, 'Only a member of a farm keeps a feed book');
+  ensureCanFeed(actor, 'delete', farmId);
   return withTenant(actor, async (tx) => {
     const use = await useToChange(tx, actor, farmId, useId, version);
     await use.destroy({ transaction: tx });

@@ -1,37 +1,24 @@
 import { Op, type Transaction } from 'sequelize';
 import {
-  addDays, DEFAULT_CYCLE_SETTINGS, ErrorCode, HEAT_CAUTION, isHeatCaution, KINDLING_SOON_DAYS, kitCount, RealtimeEvent, readingToCelsius,
-  rooms, YOUNG_LITTER_DAYS, daysBetween,
-  type HeatCautionDto, type TemperatureListDto, type TemperatureReadingCreateInput, type TemperatureReadingDto,
+  addDays, DEFAULT_CYCLE_SETTINGS, ErrorCode, HEAT_CAUTION, KINDLING_SOON_DAYS, kitCount, RealtimeEvent, readingToCelsius, rooms, YOUNG_LITTER_DAYS, daysBetween, type HeatCautionDto, type TemperatureListDto, type TemperatureReadingCreateInput, type TemperatureReadingDto,
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
-import type { SessionUser } from '../../http/passport';
+import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { publish } from '../../lib/realtime';
-import { ensureCan, farmOf } from '../almanac/almanac-access';
-import { farmClockOf } from '../almanac/almanac-context';
-import { presentAnimalRef } from '../almanac/almanac.presenter';
+import { ensureCan, farmOf } from '../farms/farm-access';
+import { farmClockOf } from '../farms/farm-clock';
+import { presentAnimalRef } from '../animals/animal-facts.service';
 import { serviceOutcomesOfFarm } from '../almanac/breeding.service';
 import { presentContextOf } from '../almanac/tasks.service';
 import { litterFactsOfFarm } from '../litters/litters.service';
 import { namesOf } from '../users/users.service';
 import { TemperatureReading } from './temperature-reading.model';
+import { presentReading } from './health.presenter';
 
 /** A reading "taken" a little ahead of the server clock is a phone's clock, not the future. */
 const CLOCK_SKEW_MS = 5 * 60_000;
 const HOUR_MS = 3_600_000;
-
-function presentReading(r: TemperatureReading, names: Map<string, string>): TemperatureReadingDto {
-  const celsius = Number(r.celsius);
-  return {
-    id: r.id,
-    takenAt: r.takenAt.toISOString(),
-    celsius,
-    place: r.place,
-    hot: isHeatCaution(celsius),
-    recordedBy: r.recordedBy ? { id: r.recordedBy, name: names.get(r.recordedBy) ?? 'Someone' } : null,
-  };
-}
 
 /**
  * Logs a barn temperature reading in the farm's unit (°F or °C), stored in °C to one decimal.

@@ -3,19 +3,21 @@ import path from 'node:path';
 import { setImmediate as yieldToEventLoop } from 'node:timers/promises';
 import { Op, type Transaction } from 'sequelize';
 import {
-  createImportChecker, defineAbilityFor, ErrorCode, headerProblem, mapImportHeader, subjectOf, todayIn, type HerdExportQuery,
-  type HerdImportConfirmInput, type HerdImportDto, type HerdImportProgressDto, type HerdImportRowsQuery, type ImportCheckResult,
+  createImportChecker, defineAbilityFor, ErrorCode, headerProblem, mapImportHeader, subjectOf, todayIn, type HerdExportQuery, type HerdImportConfirmInput, type HerdImportDto, type HerdImportProgressDto, type HerdImportRowsQuery, type ImportCheckResult,
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
-import type { SessionUser } from '../../http/passport';
+import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
-import { animalAccess, getAnimal, listHerd } from '../animals/animals.service';
+import { animalAccess } from '../animals/animal-facts.service';
+import { getAnimal, listHerd } from '../animals/animals.service';
 import { herdRecordsForImport, importSpreadsheet, lockHerdForImport } from '../animals/herd-import.service';
 import { getPedigreeTree } from '../animals/pedigree.service';
 import { recordAudit } from '../audit/audit.service';
 import { breedsOf } from '../breeds/breeds.service';
 import { getCoop } from '../coops/coops.service';
 import { farmDirectoryOf } from '../farms/farms.service';
+import { ensureCan, farmOf } from '../farms/farm-access';
+import { DEFAULT_FARM_TIME_ZONE, farmTodayIn } from '../farms/farm-clock';
 import { namesOf } from '../users/users.service';
 import { readHerdCsv } from './csv-reading';
 import { herdCsv } from './herd-export';
@@ -23,7 +25,6 @@ import { HerdImport } from './herd-import.model';
 import { presentHerdImport } from './herd-files.presenter';
 import { renderCertificate } from './pedigree-certificate';
 
-const DEFAULT_TIME_ZONE = 'America/Chicago';
 /** Rows checked between two progress reports of a large file. */
 const CHECK_SLICE = 1000;
 const UNCONFIRMED_KEPT_MS = 24 * 60 * 60 * 1000;
@@ -36,15 +37,14 @@ type Progress = (progress: HerdImportProgressDto) => void | Promise<void>;
 
 /** Who may stage and confirm imports: a member (or admin) of a farm, for that farm. */
 export function assertCanImport(actor: SessionUser): void {
-  farmOf(actor);
+  importingFarmOf(actor);
 }
 
-function farmOf(actor: SessionUser): string {
-  const farmId = actor.farmId;
-  const ability = defineAbilityFor(actor);
-  if (!farmId || !ability.can('create', subjectOf('HerdImport', { coopId: actor.coopId, farmId }))) {
-    throw new AppError(ErrorCode.forbidden, 403, "Only a member of the farm imports animals into its herd (apprentices read the herd)");
-  }
+/** The actor's farm, when they may import into its herd (apprentices read the herd but add no animals). */
+function importingFarmOf(actor: SessionUser): string {
+  const refusal = 'Only a member of the farm imports animals into its herd (apprentices read the herd)';
+  const farmId = farmOf(actor, refusal);
+  ensureCan(actor, 'create', 'HerdImport', { farmId }, 'That farm', refusal);
   return farmId;
 }
 
@@ -74,7 +74,7 @@ async function checkFile(
   const breeds = await breedsOf(actor.coopId, tx);
   const herd = await herdRecordsForImport(actor.coopId, farmId, tx);
   const checker = createImportChecker(csv.records, mapping, {
-    today: todayIn(farm?.timeZone ?? DEFAULT_TIME_ZONE),
+    today: farmTodayIn(farms, farmId),
     farmName: farm?.name ?? '',
     weightUnit: farm?.weightUnit ?? 'lb_oz',
     herd,
@@ -122,7 +122,7 @@ export async function stageHerdImport(
   limits: ImportLimits,
   onProgress?: Progress,
 ): Promise<HerdImportDto> {
-  const farmId = farmOf(actor);
+  const farmId = importingFarmOf(actor);
   if (input.content.length === 0) throw AppError.validation({ file: ['The file is empty'] }, 'The file is empty');
   return withTenant(actor, async (tx) => {
     const { result, mapping, checksum, hadByteOrderMark } = await checkFile(actor, farmId, input.content, limits, tx, { idFor: () => randomUUID(), onProgress });
@@ -188,7 +188,7 @@ export async function confirmHerdImport(actor: SessionUser, importId: string, in
         'Some rows have errors: fix them in your spreadsheet and upload the file again',
       );
     }
-    const farmId = farmOf(actor);
+    const farmId = importingFarmOf(actor);
     await lockHerdForImport(actor.coopId, tx);
     const idsByLine = new Map(row.rows.filter((r) => r.action === 'create').map((r) => [r.line, r.animalId]));
     const { result, mapping } = await checkFile(actor, farmId, row.content, limits, tx, { idFor: (line) => idsByLine.get(line) ?? randomUUID() });
@@ -252,7 +252,7 @@ export async function exportHerdCsv(actor: SessionUser, query: HerdExportQuery):
     const farm = actor.farmId ? farms.get(actor.farmId) : undefined;
     const records = actor.farmId ? await herdRecordsForImport(actor.coopId, actor.farmId, tx) : [];
     const parents = new Map(records.map((r) => [r.id, { sire: r.sireTattoo, dam: r.damTattoo }]));
-    const today = todayIn(farm?.timeZone ?? DEFAULT_TIME_ZONE);
+    const today = farmTodayIn(farms, actor.farmId);
     return {
       fileName: `${slug(farm?.name ?? 'herd')}-herd-${today}.csv`,
       body: herdCsv(herd.items, { unit: farm?.weightUnit ?? 'lb_oz', parents }),
@@ -282,7 +282,7 @@ export async function pedigreeCertificate(actor: SessionUser, animalId: string):
     tree,
     issuedBy: context.issuer?.name ?? 'the owning farm',
     coopName: context.coopName,
-    issuedOn: todayIn(context.issuer?.timeZone ?? DEFAULT_TIME_ZONE),
+    issuedOn: todayIn(context.issuer?.timeZone ?? DEFAULT_FARM_TIME_ZONE),
   });
   return { fileName: `pedigree-${animal.tattoo}${animal.name ? `-${slug(animal.name)}` : ''}.pdf`, body };
 }

@@ -4,12 +4,12 @@ import {
   type PlacementCreateInput, type PlacementEndInput,
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
-import type { SessionUser } from '../../http/passport';
+import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { publish } from '../../lib/realtime';
-import { addMessage, ensureCan, farmOf, type FieldMessages } from '../almanac/almanac-access';
-import { farmClockOf } from '../almanac/almanac-context';
-import { presentAnimalRef } from '../almanac/almanac.presenter';
+import { addMessage, ensureCan, farmOf, type FieldMessages } from '../farms/farm-access';
+import { farmClockOf } from '../farms/farm-clock';
+import { presentAnimalRef } from '../animals/animal-facts.service';
 import { presentContextOf } from '../almanac/tasks.service';
 import { HousingPlacement } from './housing-placement.model';
 import { HousingUnit } from './housing-unit.model';

@@ -6,17 +6,19 @@ import {
   type LitterDto, type LitterEventCreateInput, type LitterIssue, type LitterListItemDto, type LitterListQuery, type LitterRecord,
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
-import type { SessionUser } from '../../http/passport';
+import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { publish } from '../../lib/realtime';
-import { addMessage, ensureCan, farmOf, refuseOrConfirm, type FieldMessages } from '../almanac/almanac-access';
-import { announceAlmanac, farmClockOf } from '../almanac/almanac-context';
-import { presentAnimalRef } from '../almanac/almanac.presenter';
+import { addMessage, ensureCan, farmOf, refuseOrConfirm, type FieldMessages } from '../farms/farm-access';
+import { announceAlmanac } from '../almanac/almanac-events.service';
+import { farmClockOf } from '../farms/farm-clock';
+import { presentAnimalRef } from '../animals/animal-facts.service';
 import { serviceDatesOf, serviceForKindling, settleServiceOnKindling } from '../almanac/breeding.service';
 import { settingsOf } from '../almanac/cycle-settings.service';
 import { presentContextOf, presentTasks, tasksOf } from '../almanac/tasks.service';
-import { insertPlannedTasks, markTasksDone, skipTasks } from '../almanac/task-writer';
-import { animalFactsOf, animalsBornOf, createAnimal } from '../animals/animals.service';
+import { insertPlannedTasks, markTasksDone, skipTasks } from '../almanac/task-writer.service';
+import { animalFactsOf, animalsBornOf } from '../animals/animal-facts.service';
+import { createAnimal } from '../animals/animal-edits.service';
 import { breedMapOf } from '../breeds/breeds.service';
 import { recordChanges } from '../audit/audit.service';
 import { currentHousingOfLitter } from './housing.service';
@@ -402,7 +404,7 @@ export async function addKeeper(actor: SessionUser, litterId: string, input: Kee
 }
 
 // ---------------------------------------------------------------------------------------------
-// For performance (issue 7), inside the caller's transaction
+// For performance, inside the caller's transaction
 // ---------------------------------------------------------------------------------------------
 
 /** A litter as the performance tables read it: its parents, its kit-count record and its weaning weight. */

@@ -13,15 +13,16 @@ import {
   type MemberRoleChangeInput,
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
-import type { SessionUser } from '../../http/passport';
+import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { queueMail } from '../../lib/mail-outbox';
 import { disconnectRoom, publish } from '../../lib/realtime';
 import { findPendingApplicationId } from '../applications/applications.service';
 import { lastSignIns, recordAudit } from '../audit/audit.service';
-import { hashToken, issueToken } from '../auth/tokens';
+import { hashToken, issueToken } from '../one-time-tokens/one-time-tokens.service';
 import { getCoop } from '../coops/coops.service';
 import { createFarm, findFarmRef, findFarmRefs, isFarmNameTaken } from '../farms/farms.service';
+import { DEFAULT_FARM_TIME_ZONE } from '../farms/farm-clock';
 import {
   attachToFarm,
   createUser,
@@ -355,7 +356,7 @@ export async function acceptPendingInvitation(user: UserRecord, tx: Transaction,
       {
         name,
         location: invitation.newFarmLocation ?? '',
-        timeZone: invitation.newFarmTimeZone ?? 'America/Chicago',
+        timeZone: invitation.newFarmTimeZone ?? DEFAULT_FARM_TIME_ZONE,
         weightUnit: 'lb_oz',
         temperatureUnit: 'F',
         breedsKept: invitation.newFarmBreeds ?? [],

@@ -1,7 +1,7 @@
 import type { Transaction } from 'sequelize';
 import type { PerformanceGroupInput, PerformanceProcessingInput } from '@burrowline/shared';
 import { feedTotalsOfFarm } from '../feed/feed-totals.service';
-import { growOutFactsOfFarm } from '../growout/growout.service';
+import { growOutFactsOfFarm } from '../grow-out/grow-out-facts.service';
 import { processingFactsOfFarm } from '../processing/processing.service';
 
 /**

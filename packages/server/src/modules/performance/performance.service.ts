@@ -2,11 +2,11 @@ import {
   defineAbilityFor, lastTwelveMonths, performanceTables, subjectOf, type PerformanceAnimal, type PerformanceDto, type PerformanceQuery,
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
-import type { SessionUser } from '../../http/passport';
-import { ensureCan, farmOf } from '../almanac/almanac-access';
-import { farmClockOf } from '../almanac/almanac-context';
+import type { SessionUser } from '../../lib/session-user';
+import { ensureCan, farmOf } from '../farms/farm-access';
+import { farmClockOf } from '../farms/farm-clock';
 import { serviceOutcomesOfFarm } from '../almanac/breeding.service';
-import { animalFactsOf } from '../animals/animals.service';
+import { animalFactsOf } from '../animals/animal-facts.service';
 import { litterFactsOfFarm } from '../litters/litters.service';
 import { performanceSourcesOf } from './performance-sources';
 import { presentPerformance } from './performance.presenter';

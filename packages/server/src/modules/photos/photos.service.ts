@@ -6,12 +6,12 @@ import {
   type PhotoLimitsDto, type PhotoUpdateInput,
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
-import type { SessionUser } from '../../http/passport';
+import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { logger } from '../../lib/logger';
 import { publish } from '../../lib/realtime';
 import { storage } from '../../lib/storage';
-import { animalAccess, type AnimalAccess } from '../animals/animals.service';
+import { animalAccess, type AnimalAccess } from '../animals/animal-facts.service';
 import { findFarmRef } from '../farms/farms.service';
 import { namesOf } from '../users/users.service';
 import { Photo } from './photo.model';

@@ -6,23 +6,25 @@ import {
 } from '@burrowline/shared';
 import { lockUntilCommit } from '../../db/advisory-lock';
 import { withTenant } from '../../db/tenant';
-import type { SessionUser } from '../../http/passport';
+import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { publish } from '../../lib/realtime';
-import { addMessage, ensureCan, farmOf, type FieldMessages } from '../almanac/almanac-access';
-import { farmClockOf } from '../almanac/almanac-context';
-import { presentAnimalRef } from '../almanac/almanac.presenter';
+import { addMessage, ensureCan, farmOf, type FieldMessages } from '../farms/farm-access';
+import { farmClockOf } from '../farms/farm-clock';
+import { presentAnimalRef } from '../animals/animal-facts.service';
 import { presentContextOf } from '../almanac/tasks.service';
 import { withdrawalsCovering, type WithdrawalFacts } from '../almanac/treatments.service';
 import { recordChanges } from '../audit/audit.service';
-import { animalFactsOf, applyStatusEvent, type AnimalFacts } from '../animals/animals.service';
-import { closeEmptiedGroupIn, growOutFactsOfFarm, type GrowOutFacts } from '../growout/growout.service';
+import { animalFactsOf, type AnimalFacts } from '../animals/animal-facts.service';
+import { applyStatusEvent } from '../animals/animal-status.service';
+import { closeEmptiedGroupIn } from '../grow-out/grow-out.service';
+import { growOutFactsOfFarm, type GrowOutFacts } from '../grow-out/grow-out-facts.service';
 import { namesOf } from '../users/users.service';
 import { presentProcessingMark, presentProcessingRecord, type ProcessingPresentContext } from './processing.presenter';
 import { ProcessingMark, ProcessingRecord } from './processing-record.model';
 
 // ---------------------------------------------------------------------------------------------
-// For performance (issue 7), inside the caller's transaction
+// For performance, inside the caller's transaction
 // ---------------------------------------------------------------------------------------------
 
 export interface ProcessingFacts {

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { feedUseCreateSchema } from '../schemas/feed.schema';
-import { groupWeighInCreateSchema, growOutGroupCreateSchema } from '../schemas/growout.schema';
+import { groupWeighInCreateSchema, growOutGroupCreateSchema } from '../schemas/grow-out.schema';
 import { GRAMS_PER_POUND } from '../units/units';
-import { DEFAULT_TARGET_GRAMS, projectionModelName, readinessWords } from './growout-dto';
+import { DEFAULT_TARGET_GRAMS, projectionModelName, readinessWords } from './grow-out-dto';
 
 describe('grow-out words and defaults', () => {
   it('when no target is set, then it is 2,270 g, about 5 lb (common practice; OSU Ext. Bulletin 745: 4–5 lb at 8 weeks)', () => {

@@ -1,11 +1,11 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { addDays, RealtimeEvent, type GrowOutGroupDto, type GrowOutListDto, type LitterChoiceDto } from '@burrowline/shared';
 import { withTenant } from '../../packages/server/src/db/tenant';
-import { growOutFactsOfFarm, groupsOfFarm } from '../../packages/server/src/modules/growout/growout.service';
+import { growOutFactsOfFarm, groupsOfFarm } from '../../packages/server/src/modules/grow-out/grow-out-facts.service';
 import { daysAgo, farmToday, kindlingAs, serviceAs, taskRows } from '../support/almanac';
 import { asTenant } from '../support/db';
 import { createTestCoop, TEST_PASSWORD } from '../support/factories';
-import { breedLitterAs, feedAs, grownLitterAs, groupAs, growOutCounts, purchaseAs, weighGroupAs } from '../support/growout';
+import { breedLitterAs, feedAs, grownLitterAs, groupAs, growOutCounts, purchaseAs, weighGroupAs } from '../support/grow-out';
 import { addAnimalAs, catalogueBreeds } from '../support/herd';
 import { liveTestServer } from '../support/sockets';
 import { agentFor, ROOMY_SIGN_IN, signedInAgent, testApp } from '../support/test-app';
@@ -393,7 +393,7 @@ describe('live updates of grow-out', () => {
   const server = liveTestServer({ signIn: ROOMY_SIGN_IN });
   const { kit } = server;
 
-  it('when a group is formed and weighed, then the farm\'s room hears growout:changed and another farm hears nothing', async () => {
+  it('when a group is formed and weighed, then the farm\'s room hears grow-out:changed and another farm hears nothing', async () => {
     const coop = await createTestCoop();
     const { litter } = await grownLitterAs(coop.member, 40, 4);
     const here = await kit.listen(coop.apprentice.email);

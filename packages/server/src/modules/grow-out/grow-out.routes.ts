@@ -1,7 +1,7 @@
 import { Router } from 'express';
 import { groupWeighInCreateSchema, growOutGroupCloseSchema, growOutGroupCreateSchema, growOutListQuerySchema, uuidParamSchema } from '@burrowline/shared';
 import { actorOf, requireUser } from '../../http/ability';
-import { closeGroup, formGroup, getGroup, listGroups, litterChoices, recordGroupWeighIn } from './growout.service';
+import { closeGroup, formGroup, getGroup, listGroups, litterChoices, recordGroupWeighIn } from './grow-out.service';
 
 const id = (value: unknown) => uuidParamSchema.parse(value);
 

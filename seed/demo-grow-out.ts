@@ -12,10 +12,11 @@ import {
   addDays, crossLabel, daysBetween, feedPurchaseCreateSchema, feedUseCreateSchema, gompertzWeight, groupWeighInCreateSchema, growOutGroupCloseSchema,
   growOutGroupCreateSchema, referenceCurve, todayIn, type FeedUseCreateInput,
 } from '@burrowline/shared';
-import type { SessionUser } from '../packages/server/src/http/passport';
-import { animalFactsOf } from '../packages/server/src/modules/animals/animals.service';
+import type { SessionUser } from '../packages/server/src/lib/session-user';
+import { animalFactsOf } from '../packages/server/src/modules/animals/animal-facts.service';
 import { recordFeedPurchaseIn, recordFeedUseIn } from '../packages/server/src/modules/feed/feed.service';
-import { closeGroupIn, formGroupIn, groupsOfFarm, weighGroupIn } from '../packages/server/src/modules/growout/growout.service';
+import { closeGroupIn, formGroupIn, weighGroupIn } from '../packages/server/src/modules/grow-out/grow-out.service';
+import { groupsOfFarm } from '../packages/server/src/modules/grow-out/grow-out-facts.service';
 import { farmLitterFactsOf, type LitterFacts } from '../packages/server/src/modules/litters/litter-facts.service';
 import { seededRandom } from '../packages/shared/src/pedigree/seeded-random';
 

@@ -15,13 +15,13 @@ import { ApplicationView } from '../modules/applications/application-view.model'
 import { Application } from '../modules/applications/application.model';
 import { AuditEvent } from '../modules/audit/audit-event.model';
 import { RecordChange } from '../modules/audit/record-change.model';
-import { OneTimeToken } from '../modules/auth/one-time-token.model';
+import { OneTimeToken } from '../modules/one-time-tokens/one-time-token.model';
 import { Breed } from '../modules/breeds/breed.model';
 import { Cooperative } from '../modules/coops/coop.model';
 import { Farm } from '../modules/farms/farm.model';
 import { HousingPlacement } from '../modules/litters/housing-placement.model';
 import { HousingUnit } from '../modules/litters/housing-unit.model';
-import { GrowOutGroup, GrowOutGroupLitter } from '../modules/growout/grow-out-group.model';
+import { GrowOutGroup, GrowOutGroupLitter } from '../modules/grow-out/grow-out-group.model';
 import { FeedPurchase, FeedUse, FeedUseShare } from '../modules/feed/feed.model';
 import { TemperatureReading } from '../modules/health/temperature-reading.model';
 import { ProcessingMark, ProcessingRecord } from '../modules/processing/processing-record.model';
@@ -42,7 +42,7 @@ export function initModels(sequelize: Sequelize): void {
   // The Almanac and litters: cycle settings, services, palpations, treatments, tasks, the feed, the morning e-mail.
   for (const model of [FarmCycleSettings, ServiceRecord, Palpation, Treatment, AlmanacTask, CalendarFeedToken, DigestSubscription]) model.initModel(sequelize);
   for (const model of [Litter, LitterEvent, HousingUnit, HousingPlacement]) model.initModel(sequelize);
-  // Grow-out, feed, health and yield (issue 7).
+  // Grow-out, feed, health and yield.
   for (const model of [GrowOutGroup, GrowOutGroupLitter]) model.initModel(sequelize);
   for (const model of [FeedPurchase, FeedUse, FeedUseShare]) model.initModel(sequelize);
   for (const model of [TemperatureReading, ProcessingRecord, ProcessingMark]) model.initModel(sequelize);

@@ -2,9 +2,9 @@ import {
   feedPurchaseCreateSchema, feedUseCreateSchema, groupWeighInCreateSchema, growOutGroupCreateSchema,
   type FeedPurchaseCreateBody, type FeedUseCreateBody, type GroupWeighInCreateBody, type GrowOutGroupCreateBody, type GrowOutGroupDto,
 } from '@burrowline/shared';
-import { connectDatabase } from '../../packages/server/src/db/sequelize';
+import { connectDatabase } from '../../packages/server/src/composition/database';
 import { recordFeedPurchase, recordFeedUse } from '../../packages/server/src/modules/feed/feed.service';
-import { formGroup, recordGroupWeighIn } from '../../packages/server/src/modules/growout/growout.service';
+import { formGroup, recordGroupWeighIn } from '../../packages/server/src/modules/grow-out/grow-out.service';
 import { daysAgo, kindlingAs, litterAs, serviceAs } from './almanac';
 import { asTenant } from './db';
 import type { TestPerson } from './factories';
