@@ -1,9 +1,17 @@
+import os from 'node:os';
 import { defineConfig } from 'vitest/config';
+
+// An API test spends most of its time waiting on PostgreSQL, so one worker more than there are cores keeps
+// them busy (vitest's default, cores − 1, is a single worker on a two-core machine). The browser tests run
+// one file at a time after the rest.
+const workers = os.availableParallelism() + 1;
 
 export default defineConfig({
   test: {
+    maxWorkers: workers,
     projects: [
-      { test: { name: 'unit', include: ['packages/*/src/**/*.test.ts'], environment: 'node' } },
+      // Pure code with no module state: one worker runs file after file without re-importing.
+      { test: { name: 'unit', include: ['packages/*/src/**/*.test.ts'], environment: 'node', pool: 'threads', isolate: false } },
       {
         test: {
           name: 'api',
@@ -16,7 +24,7 @@ export default defineConfig({
           pool: 'forks',
         },
       },
-      { test: { name: 'reference', include: ['test/reference/**/*.test.ts'] } },
+      { test: { name: 'reference', include: ['test/reference/**/*.test.ts'], pool: 'threads', isolate: false } },
       {
         test: {
           name: 'e2e',

@@ -268,11 +268,16 @@ export function runTs(entry, args = [], env = {}) {
   return run(process.execPath, ['--import', 'tsx', entry, ...args], { cwd: root, env: { ...process.env, ...env } });
 }
 
+/** The client's production build into packages/client/dist. */
+export const CLIENT_BUILD = {
+  command: process.execPath,
+  args: [path.join(root, 'node_modules', 'vite', 'bin', 'vite.js'), 'build', '--logLevel', 'warn'],
+  cwd: path.join(root, 'packages', 'client'),
+};
+
 export function buildClient() {
   log('building the client…');
-  run(process.execPath, [path.join(root, 'node_modules', 'vite', 'bin', 'vite.js'), 'build', '--logLevel', 'warn'], {
-    cwd: path.join(root, 'packages', 'client'),
-  });
+  run(CLIENT_BUILD.command, CLIENT_BUILD.args, { cwd: CLIENT_BUILD.cwd });
 }
 
 /** A secret kept in the gitignored data folder, so sessions survive a restart of `npm start`. */

@@ -1,6 +1,6 @@
 /**
  * Who may call what, against whose object → expected status. The generated tests in
- * authorization.test.ts run every cell. Personas: `member` and `apprentice` and `admin` belong to
+ * authorization-<area>.test.ts run every cell, one file per area of `matrixAreas` below. Personas: `member` and `apprentice` and `admin` belong to
  * farm A; `otherFarmMember` to farm B of the same co-op; `otherCoop` is an admin of another co-op.
  */
 export type Persona = 'anonymous' | 'apprentice' | 'member' | 'otherFarmMember' | 'admin' | 'otherCoop';
@@ -252,3 +252,23 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'GET', path: '/api/performance?period=all&farmId=:farmId', target: 'farmA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
   { method: 'DELETE', path: '/api/session', target: 'none', expect: { anonymous: 204, apprentice: 204, member: 204, otherFarmMember: 204, admin: 204, otherCoop: 204 } },
 ];
+
+/**
+ * Which file runs a row: each area has its own `authorization-<area>.test.ts`, so the matrix is shared among
+ * the test workers instead of running in one. The first area whose paths match the row's path takes it; a row
+ * no area takes fails authorization-membership.test.ts, which also checks that every area has its file.
+ */
+export const matrixAreas = [
+  { area: 'herd-files', paths: /^\/api\/(animals\/:animalId\/photos|photos|farms\/:farmId\/photo|herd-imports|herd-export|pedigree-certificates)\b/ },
+  { area: 'membership', paths: /^\/api\/(me|session|farms|apply|applications|members|invitations|audit-events|coop)\b/ },
+  { area: 'herd', paths: /^\/api\/(breeds|animals|weigh-ins|animal-notes|pedigree-cards|trial-matings|outside-animals)\b/ },
+  { area: 'almanac', paths: /^\/api\/(almanac|calendar-feeds|services|treatments)\b/ },
+  { area: 'litters-and-health', paths: /^\/api\/(litters|litter-events|housing-units|housing-placements|withdrawals|temperature-readings|heat-caution|processing-records|processing-marks)\b/ },
+  { area: 'grow-out', paths: /^\/api\/(grow-out|feed|performance)\b/ },
+] as const;
+
+export type MatrixArea = (typeof matrixAreas)[number]['area'];
+
+export function areaOf(row: MatrixRow): MatrixArea | null {
+  return matrixAreas.find((a) => a.paths.test(row.path))?.area ?? null;
+}

@@ -32,6 +32,26 @@ export async function signedInAgent(email: string, password: string, handle: App
   return agent;
 }
 
+const sharedAgents = new WeakMap<AppHandle, Map<string, Promise<Agent>>>();
+
+/**
+ * A client signed in once per test file and app, then shared by the file's tests (each file has its own
+ * module state). For tests that only act as the person; a test that signs out, changes the person's
+ * password or account, or checks sessions uses its own `signedInAgent`.
+ */
+export function sharedSignedInAgent(email: string, password: string, handle: AppHandle = testApp()): Promise<Agent> {
+  const agents = sharedAgents.get(handle) ?? new Map<string, Promise<Agent>>();
+  sharedAgents.set(handle, agents);
+  let agent = agents.get(email);
+  if (!agent) {
+    agent = signedInAgent(email, password, handle);
+    agents.set(email, agent);
+    // A failed sign-in is not kept: the next test tries again and reports its own failure.
+    agent.catch(() => agents.delete(email));
+  }
+  return agent;
+}
+
 /** A listening HTTP + Socket.IO server on a free loopback port, as server.ts builds it. */
 export async function listeningServer(overrides: Partial<Config> = {}) {
   const server = http.createServer();

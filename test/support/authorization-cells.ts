@@ -1,0 +1,167 @@
+import { randomUUID } from 'node:crypto';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { authorizationMatrix, areaOf, type Body, type MatrixArea, type MatrixRow, type Persona, type Target } from '../api/authorization-matrix';
+import { almanacBody, almanacPath, almanacStateOf, almanacTarget } from './almanac-matrix';
+import { asTenant } from './db';
+import {
+  applicationBody,
+  createAwaitingMember,
+  createTestApplication,
+  createTestCoop,
+  createTestInvitee,
+  createTestMember,
+  TEST_PASSWORD,
+  type TestCoop,
+} from './factories';
+import { herdFilesPath, herdFilesSend, herdFilesStateOf, herdFilesTarget } from './herd-files-matrix';
+import { herdBody, herdStateOf, herdTarget } from './herd-matrix';
+import { agentFor, ROOMY_SIGN_IN, sharedSignedInAgent, signedInAgent, testApp, type Agent } from './test-app';
+
+/**
+ * Runs every cell of one area of the authorization matrix (test/api/authorization-matrix.ts) against two
+ * fresh co-ops of the calling test file.
+ */
+export function describeMatrixArea(area: MatrixArea) {
+  // Some cells send applications: rate limits stay out of the way here (they have their own tests).
+  const handle = testApp({
+    signIn: ROOMY_SIGN_IN,
+    membership: { linkTtlHours: 72, applyWindowSeconds: 60, applyMaxPerIp: 100_000, applyMaxPerEmail: 100_000 },
+  });
+  let coop: TestCoop;
+  let foreign: TestCoop;
+
+  beforeAll(async () => {
+    [coop, foreign] = await Promise.all([createTestCoop(), createTestCoop()]);
+  });
+  afterAll(async () => {
+    await handle.close();
+  });
+
+  /** Each persona signs in once per file; a cell that ends its session signs in afresh so the others keep theirs. */
+  async function agentOf(persona: Persona, row: MatrixRow): Promise<Agent> {
+    if (persona === 'anonymous') return agentFor(handle);
+    const person = persona === 'otherCoop' ? foreign.admin : coop[persona];
+    const endsSession = row.method === 'DELETE' && row.path === '/api/session';
+    if (endsSession) return signedInAgent(person.email, TEST_PASSWORD, handle);
+    return sharedSignedInAgent(person.email, TEST_PASSWORD, handle);
+  }
+
+  async function farmProfileBody(farmId: string) {
+    const row = await asTenant(coop.id, (c) => c.query('SELECT * FROM farms WHERE id = $1', [farmId]));
+    const f = row.rows[0];
+    return {
+      name: f.name, location: `Checked ${Date.now()}`, timeZone: f.time_zone, weightUnit: f.weight_unit,
+      temperatureUnit: f.temperature_unit, breedsKept: f.breeds_kept, description: f.description, version: f.version,
+    };
+  }
+
+  /** A fresh object for membership targets, so one persona's allowed change never alters the next cell. */
+  async function membershipTarget(target: Target): Promise<{ applicationId?: string; userId?: string }> {
+    switch (target) {
+      case 'application':
+        return { applicationId: (await createTestApplication(coop)).id };
+      case 'freshMember':
+        return { userId: (await createTestMember(coop)).id };
+      case 'disabledMember': {
+        const person = await createTestMember(coop);
+        await asTenant(coop.id, (c) => c.query(`UPDATE users SET disabled_at = now(), disabled_reason = 'Matrix' WHERE id = $1`, [person.id]), { commit: true });
+        return { userId: person.id };
+      }
+      case 'awaitingMember':
+        return { userId: (await createAwaitingMember(coop)).id };
+      case 'invitee':
+        return { userId: (await createTestInvitee(coop)).id };
+      case 'coopAdmin':
+        return { userId: coop.admin.id };
+      default:
+        return {};
+    }
+  }
+
+  /** What a refused call must leave exactly as it was. */
+  async function stateOf(ids: { farmId: string; applicationId?: string; userId?: string }, persona: Persona) {
+    const ownCoop = persona === 'otherCoop' ? foreign.id : coop.id;
+    return {
+      farmVersion: ids.farmId ? (await farmProfileBody(ids.farmId)).version : null,
+      application: ids.applicationId
+        ? (await asTenant(coop.id, (c) => c.query('SELECT status, version FROM applications WHERE id = $1', [ids.applicationId]))).rows[0]
+        : null,
+      user: ids.userId
+        ? (await asTenant(coop.id, (c) => c.query('SELECT role, disabled_at, version FROM users WHERE id = $1', [ids.userId]))).rows[0]
+        : null,
+      coopVersion: (await asTenant(ownCoop, (c) => c.query('SELECT version FROM cooperatives WHERE id = $1', [ownCoop]))).rows[0].version,
+    };
+  }
+
+  async function bodyFor(body: Body | undefined, ids: { farmId: string; userId?: string }, persona: Persona): Promise<object | undefined> {
+    const userVersion = async () =>
+      ids.userId ? (await asTenant(coop.id, (c) => c.query('SELECT version FROM users WHERE id = $1', [ids.userId]))).rows[0].version : 0;
+    switch (body) {
+      case 'farmProfile':
+        return farmProfileBody(ids.farmId);
+      case 'application':
+        return applicationBody();
+      case 'approval':
+        return {};
+      case 'rejection':
+        return { reason: 'Checked by the authorization matrix.' };
+      case 'withdrawal':
+        return { note: 'Checked by the authorization matrix.' };
+      case 'roleChange':
+        return { role: 'admin', version: await userVersion() };
+      case 'disable':
+        return { reason: 'Checked by the authorization matrix.', version: await userVersion() };
+      case 'enable':
+        return { version: await userVersion() };
+      case 'invitation': {
+        const tag = randomUUID().slice(0, 8);
+        return { name: `Matrix ${tag}`, email: `matrix-${tag}@example.test`, role: 'member', farm: { kind: 'existing', farmId: persona === 'otherCoop' ? foreign.farms[0]!.id : coop.farms[1]!.id } };
+      }
+      case 'rules': {
+        const ownCoop = persona === 'otherCoop' ? foreign.id : coop.id;
+        const version = (await asTenant(ownCoop, (c) => c.query('SELECT version FROM cooperatives WHERE id = $1', [ownCoop]))).rows[0].version;
+        return { rulesText: `Rules checked by the authorization matrix at ${Date.now()}.`, version };
+      }
+      default:
+        return undefined;
+    }
+  }
+
+  describe('authorization matrix', () => {
+    for (const row of authorizationMatrix.filter((r) => areaOf(r) === area)) {
+      for (const [persona, status] of Object.entries(row.expect) as [Persona, number][]) {
+        it(`when ${persona} calls ${row.method} ${row.path} on ${row.target}, then it answers ${status}`, async () => {
+          const agent = await agentOf(persona, row);
+          const farmId = row.target === 'farmA' ? coop.farms[0]!.id : row.target === 'farmB' ? coop.farms[1]!.id : '';
+          const ids = { farmId, ...(await membershipTarget(row.target)), ...(await herdTarget(coop, row.target)), ...(await almanacTarget(coop, row.target)), ...(await herdFilesTarget(coop, row.target)) };
+          const url = row.path
+            .replace(':farmId', farmId)
+            .replace(':coopSlug', coop.slug)
+            .replace(':applicationId', ids.applicationId ?? '')
+            .replace(':userId', ids.userId ?? '')
+            .replace(':animalId', ids.animalId ?? '')
+            .replace(':weighInId', ids.weighInId ?? '')
+            .replace(':noteId', ids.noteId ?? '');
+          const path = herdFilesPath(almanacPath(url, ids), ids);
+          const personaOf = persona === 'otherCoop' ? foreign.admin : persona === 'anonymous' ? null : coop[persona];
+          const body = (await bodyFor(row.body, ids, persona)) ?? (await herdBody(coop, row.body, ids))
+            ?? (await almanacBody(coop, row.body, ids, personaOf?.coopId ?? coop.id, personaOf?.farmId ?? null));
+          const before = await stateOf(ids, persona);
+          const herdBefore = await herdStateOf(coop.id, ids);
+          const almanacBefore = await almanacStateOf(coop.id);
+          const filesBefore = await herdFilesStateOf(coop.id, ids);
+          const method = row.method.toLowerCase() as 'get' | 'patch' | 'delete' | 'post' | 'put';
+          const res = await herdFilesSend(agent[method](path), row.body, body);
+          expect(res.status).toBe(status);
+          if (status >= 400) {
+            expect(res.body.error.code).toBeTypeOf('string');
+            expect(await stateOf(ids, persona)).toEqual(before); // a refusal changes nothing
+            expect(await herdStateOf(coop.id, ids)).toEqual(herdBefore);
+            expect(await almanacStateOf(coop.id)).toEqual(almanacBefore);
+            expect(await herdFilesStateOf(coop.id, ids)).toEqual(filesBefore);
+          }
+        });
+      }
+    }
+  });
+}
