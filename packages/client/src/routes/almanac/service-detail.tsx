@@ -8,7 +8,7 @@ import { LinkButton } from '../../components/ui/link-button';
 import { PageHeader } from '../../components/ui/page-header';
 import { PageTitle } from '../../components/ui/page-title';
 import { serviceQueryOptions, useService } from '../../features/almanac/api/get-service';
-import { formatDate } from '../../features/almanac/almanac-dates';
+import { formatDate } from '../../lib/days';
 import { CloseServiceForm } from '../../features/almanac/components/close-service-form';
 import { animalName } from '../../features/almanac/components/open-services';
 import { PalpationForm } from '../../features/almanac/components/palpation-form';

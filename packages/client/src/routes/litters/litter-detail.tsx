@@ -8,7 +8,7 @@ import { Card } from '../../components/ui/card';
 import { LinkButton } from '../../components/ui/link-button';
 import { PageHeader } from '../../components/ui/page-header';
 import { PageTitle } from '../../components/ui/page-title';
-import { formatDate } from '../../features/almanac/almanac-dates';
+import { formatDate } from '../../lib/days';
 import { animalName } from '../../features/almanac/components/open-services';
 import { TaskItem } from '../../features/almanac/components/task-item';
 import { useAlmanacRights } from '../../features/almanac/hooks/use-almanac-rights';

@@ -8,7 +8,7 @@ import { LinkButton } from '../../components/ui/link-button';
 import { PageHeader } from '../../components/ui/page-header';
 import { PageTitle } from '../../components/ui/page-title';
 import { SegmentedFilter } from '../../components/ui/segmented-filter';
-import { formatDate } from '../../features/almanac/almanac-dates';
+import { formatDate } from '../../lib/days';
 import { animalName } from '../../features/almanac/components/open-services';
 import { littersQueryOptions, useLitters } from '../../features/litters/api/get-litters';
 

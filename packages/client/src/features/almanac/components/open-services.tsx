@@ -4,7 +4,7 @@ import type { ServiceListItemDto } from '@burrowline/shared';
 import { Badge } from '../../../components/ui/badge';
 import { Card } from '../../../components/ui/card';
 import { servicesQueryOptions } from '../api/get-services';
-import { formatDate } from '../almanac-dates';
+import { formatDate } from '../../../lib/days';
 
 const kindlingWords: Record<NonNullable<ServiceListItemDto['kindlingStatus']>, { label: string; tone: 'neutral' | 'straw' | 'clay' }> = {
   not_due: { label: 'Kindling not due yet', tone: 'neutral' },

@@ -9,7 +9,7 @@ import { TextField } from '../../../components/ui/text-field';
 import { isApiError } from '../../../lib/api-client';
 import { useBreedingStock } from '../api/get-breeding-stock';
 import { useRecordService } from '../api/record-service';
-import { formatDate } from '../almanac-dates';
+import { formatDate } from '../../../lib/days';
 import { fieldErrors } from '../error-text';
 import { animalName } from './open-services';
 

@@ -8,7 +8,7 @@ import { TextField } from '../../../components/ui/text-field';
 import { cn } from '../../../lib/cn';
 import { useReviewTask } from '../api/review-task';
 import { useUpdateTask } from '../api/update-task';
-import { formatDate, formatDay } from '../almanac-dates';
+import { formatDate, formatWeekdayDay } from '../../../lib/days';
 import { errorText } from '../error-text';
 import { useAlmanacRights } from '../hooks/use-almanac-rights';
 import { isOpen, taskStatus } from '../task-labels';
@@ -62,7 +62,7 @@ export function TaskItem({ task, selected, onSelect, showDate = false, showSourc
             {task.subject && <span className="font-normal text-grey-700"> · {task.subject}</span>}
           </p>
           <div className="flex flex-wrap items-center gap-x-3 gap-y-1 text-sm text-grey-600">
-            {showDate && <span>{formatDay(task.dueOn)}</span>}
+            {showDate && <span>{formatWeekdayDay(task.dueOn)}</span>}
             <Badge tone={status.tone}>{status.label}</Badge>
             {task.kind === 'kindling_due' && task.windowStart && (
               <span>

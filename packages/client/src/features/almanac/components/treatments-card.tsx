@@ -4,7 +4,7 @@ import { MedicineCaution } from '../../health/components/medicine-caution';
 import { TreatmentForm } from '../../health/components/treatment-form';
 import { useBreedingStock } from '../api/get-breeding-stock';
 import { useTreatments } from '../api/get-treatments';
-import { formatDate } from '../almanac-dates';
+import { formatDate } from '../../../lib/days';
 import { animalName } from './open-services';
 
 /** Treatments of the farm's breeding stock; a doe under one is flagged before she is bred (a warning, not a block). */

@@ -9,12 +9,12 @@ import { Button } from '../../../components/ui/button';
 import { SelectField } from '../../../components/ui/select-field';
 import { TextField } from '../../../components/ui/text-field';
 import { isApiError } from '../../../lib/api-client';
-import { formatDate } from '../../almanac/almanac-dates';
+import { formatDate } from '../../../lib/days';
 import { useFarmToday } from '../../farms/hooks/use-farm-today';
 import { breedingStockQueryOptions } from '../../almanac/api/get-breeding-stock';
-import { groupsQueryOptions } from '../../growout/api/get-groups';
-import { WeightInput } from '../../growout/components/weight-input';
-import { weight } from '../../growout/growout-format';
+import { groupsQueryOptions } from '../../grow-out/api/get-groups';
+import { WeightInput } from '../../grow-out/components/weight-input';
+import { weight } from '../../grow-out/grow-out-format';
 import { housingUnitsQueryOptions } from '../../litters/api/housing';
 import { useCorrectFeedUse, useCorrectPurchase, useRecordFeedUse, useRecordPurchase } from '../api/record-feed';
 

@@ -5,7 +5,7 @@ import { SelectField, type SelectOption } from '../../../components/ui/select-fi
 import { TextField } from '../../../components/ui/text-field';
 import { errorText, fieldErrors } from '../../almanac/error-text';
 import { useRecordTreatment } from '../api/record-treatment';
-import { formatDate } from '../../almanac/almanac-dates';
+import { formatDate } from '../../../lib/days';
 
 interface TreatmentFormProps {
   today: string;

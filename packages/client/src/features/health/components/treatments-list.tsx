@@ -3,7 +3,7 @@ import { createColumnHelper, getCoreRowModel, useReactTable } from '@tanstack/re
 import { treatmentRouteLabels, type TreatmentDto } from '@burrowline/shared';
 import { Badge } from '../../../components/ui/badge';
 import { DataTable } from '../../../components/ui/data-table';
-import { formatDate } from '../../almanac/almanac-dates';
+import { formatDate } from '../../../lib/days';
 import { subjectName } from './withdrawals-card';
 
 const column = createColumnHelper<TreatmentDto>();

@@ -1,7 +1,7 @@
 import type { WithdrawalDto } from '@burrowline/shared';
 import { Card } from '../../../components/ui/card';
 import { animalName } from '../../almanac/components/open-services';
-import { formatDate } from '../../almanac/almanac-dates';
+import { formatDate } from '../../../lib/days';
 
 export function subjectName(w: { animal: { name: string; tattoo: string | null } | null; group: { name: string } | null }): string {
   if (w.animal) return animalName(w.animal);

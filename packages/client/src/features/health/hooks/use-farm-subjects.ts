@@ -2,7 +2,7 @@ import { useQuery } from '@tanstack/react-query';
 import { animalListQuerySchema } from '@burrowline/shared';
 import type { SelectOption } from '../../../components/ui/select-field';
 import { animalName } from '../../almanac/components/open-services';
-import { groupsQueryOptions } from '../../growout/api/get-groups';
+import { groupsQueryOptions } from '../../grow-out/api/get-groups';
 import { herdQueryOptions } from '../../herd/api/get-herd';
 
 const herdQuery = animalListQuerySchema.parse({ status: 'current', pageSize: 200 });

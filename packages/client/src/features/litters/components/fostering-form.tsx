@@ -4,7 +4,7 @@ import { Button } from '../../../components/ui/button';
 import { SelectField } from '../../../components/ui/select-field';
 import { TextField } from '../../../components/ui/text-field';
 import { animalName } from '../../almanac/components/open-services';
-import { formatDate } from '../../almanac/almanac-dates';
+import { formatDate } from '../../../lib/days';
 import { errorText, fieldErrors } from '../../almanac/error-text';
 import { useFosterCandidates } from '../api/get-foster-candidates';
 import { useRecordFostering } from '../api/record-fostering';

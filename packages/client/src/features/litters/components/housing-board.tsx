@@ -6,7 +6,7 @@ import { Card } from '../../../components/ui/card';
 import { SelectField } from '../../../components/ui/select-field';
 import { TextField } from '../../../components/ui/text-field';
 import { breedingStockQueryOptions } from '../../almanac/api/get-breeding-stock';
-import { formatDate } from '../../almanac/almanac-dates';
+import { formatDate } from '../../../lib/days';
 import { animalName } from '../../almanac/components/open-services';
 import { errorText, fieldErrors } from '../../almanac/error-text';
 import { littersQueryOptions } from '../api/get-litters';

@@ -3,7 +3,7 @@ import { formatWeight, type LitterDto, type LitterEventDto, type WeightUnit } fr
 import { Badge } from '../../../components/ui/badge';
 import { Button } from '../../../components/ui/button';
 import { animalName } from '../../almanac/components/open-services';
-import { formatDate } from '../../almanac/almanac-dates';
+import { formatDate } from '../../../lib/days';
 import { errorText } from '../../almanac/error-text';
 import { useReviewLitterEvent } from '../api/review-litter-event';
 

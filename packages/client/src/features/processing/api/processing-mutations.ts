@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { ProcessingMarkCreateBody, ProcessingMarkDto, ProcessingRecordCreateBody, ProcessingRecordDto } from '@burrowline/shared';
 import { apiFetch } from '../../../lib/api-client';
-import { growOutKeys } from '../../growout/api/growout-keys';
+import { growOutKeys } from '../../grow-out/api/grow-out-keys';
 import { herdKeys } from '../../herd/api/herd-keys';
 import { performanceKeys } from '../../performance/api/performance-keys';
 import { processingKeys } from './keys';

@@ -5,7 +5,7 @@ import { Card } from '../../../components/ui/card';
 import { SelectField, type SelectOption } from '../../../components/ui/select-field';
 import { errorText } from '../../almanac/error-text';
 import { subjectName } from '../../health/components/withdrawals-card';
-import { formatDate } from '../../almanac/almanac-dates';
+import { formatDate } from '../../../lib/days';
 import { useCancelMark } from '../api/processing-mutations';
 import { MarkForProcessing } from './mark-for-processing';
 

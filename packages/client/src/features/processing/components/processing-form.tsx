@@ -4,7 +4,7 @@ import { Button } from '../../../components/ui/button';
 import { SelectField, type SelectOption } from '../../../components/ui/select-field';
 import { TextField } from '../../../components/ui/text-field';
 import { errorText, fieldErrors } from '../../almanac/error-text';
-import { WeightInput } from '../../growout/components/weight-input';
+import { WeightInput } from '../../grow-out/components/weight-input';
 import { useRecordProcessing } from '../api/processing-mutations';
 import { percent, usdaClassLabels } from '../processing-format';
 

@@ -3,7 +3,7 @@ import { createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable, 
 import { formatWeight, type ProcessingRecordDto, type WeightUnit } from '@burrowline/shared';
 import { Badge } from '../../../components/ui/badge';
 import { DataTable } from '../../../components/ui/data-table';
-import { formatDate } from '../../almanac/almanac-dates';
+import { formatDate } from '../../../lib/days';
 import { subjectName } from '../../health/components/withdrawals-card';
 import { ageText, percent, usdaClassLabels, usdaClassTone } from '../processing-format';
 

@@ -7,7 +7,7 @@ import { almanacKeys } from '../../almanac/api/almanac-keys';
 import { applicationKeys } from '../../applications/api/application-keys';
 import { farmKeys } from '../../farms/api/farm-keys';
 import { feedKeys } from '../../feed/api/feed-keys';
-import { growOutKeys } from '../../growout/api/growout-keys';
+import { growOutKeys } from '../../grow-out/api/grow-out-keys';
 import { healthKeys } from '../../health/api/keys';
 import { processingKeys } from '../../processing/api/keys';
 import { herdKeys } from '../../herd/api/herd-keys';

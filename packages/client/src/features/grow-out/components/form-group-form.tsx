@@ -7,7 +7,7 @@ import { Button } from '../../../components/ui/button';
 import { SelectField } from '../../../components/ui/select-field';
 import { TextField } from '../../../components/ui/text-field';
 import { isApiError } from '../../../lib/api-client';
-import { formatDate } from '../../almanac/almanac-dates';
+import { formatDate } from '../../../lib/days';
 import { useHousingUnits } from '../../litters/api/housing';
 import { useLitterChoices } from '../api/get-litter-choices';
 import { useFormGroup } from '../api/group-mutations';

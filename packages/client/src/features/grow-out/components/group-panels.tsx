@@ -6,10 +6,10 @@ import { Button } from '../../../components/ui/button';
 import { SegmentedFilter } from '../../../components/ui/segmented-filter';
 import { TextField } from '../../../components/ui/text-field';
 import { isApiError } from '../../../lib/api-client';
-import { formatDate } from '../../almanac/almanac-dates';
+import { formatDate } from '../../../lib/days';
 import { useFarmToday } from '../../farms/hooks/use-farm-today';
 import { useCloseGroup, useReviewGroupWeighIn, useWeighGroup } from '../api/group-mutations';
-import { gainPerDay, useMoney, weight } from '../growout-format';
+import { gainPerDay, useMoney, weight } from '../grow-out-format';
 import { WeightInput } from './weight-input';
 
 const fieldError = (error: unknown, field: string) => (isApiError(error) ? error.details[field]?.[0] : undefined);
