@@ -10,7 +10,7 @@ import { PageTitle } from '../../components/ui/page-title';
 import { serviceQueryOptions, useService } from '../../features/almanac/api/get-service';
 import { formatDate } from '../../lib/days';
 import { CloseServiceForm } from '../../features/almanac/components/close-service-form';
-import { animalName } from '../../features/almanac/components/open-services';
+import { animalName } from '../../lib/names';
 import { PalpationForm } from '../../features/almanac/components/palpation-form';
 import { TaskItem } from '../../features/almanac/components/task-item';
 import { useAlmanacRights } from '../../features/almanac/hooks/use-almanac-rights';

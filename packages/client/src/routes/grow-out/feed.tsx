@@ -10,7 +10,8 @@ import { formatDate } from '../../lib/days';
 import { feedQueryOptions, useFeed } from '../../features/feed/api/get-feed';
 import { BookProblems, FeedUseForm, PurchaseForm } from '../../features/feed/components/feed-forms';
 import { useRemoveFeedUse, useRemovePurchase } from '../../features/feed/api/record-feed';
-import { useMoney, weight } from '../../features/grow-out/grow-out-format';
+import { useMoney } from '../../lib/money';
+import { weight } from '../../lib/weights';
 import { useWeightUnit } from '../../features/herd/hooks/use-weight-unit';
 
 export async function loader() {

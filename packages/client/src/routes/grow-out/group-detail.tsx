@@ -16,7 +16,7 @@ import { useWeightUnit } from '../../features/herd/hooks/use-weight-unit';
 import { groupQueryOptions, useGroup } from '../../features/grow-out/api/get-group';
 import { GrowthChart } from '../../features/grow-out/components/growth-chart';
 import { CloseGroupForm, FeedPanel, GainsPanel, GroupWeighInForm, GroupWeighInsList, ProjectionCard, WeighInSchedule } from '../../features/grow-out/components/group-panels';
-import { weight } from '../../features/grow-out/grow-out-format';
+import { weight } from '../../lib/weights';
 import { idFrom, useIdParam } from '../almanac/id-param';
 
 export async function loader({ params }: LoaderFunctionArgs) {

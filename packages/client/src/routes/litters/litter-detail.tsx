@@ -9,7 +9,7 @@ import { LinkButton } from '../../components/ui/link-button';
 import { PageHeader } from '../../components/ui/page-header';
 import { PageTitle } from '../../components/ui/page-title';
 import { formatDate } from '../../lib/days';
-import { animalName } from '../../features/almanac/components/open-services';
+import { animalName } from '../../lib/names';
 import { TaskItem } from '../../features/almanac/components/task-item';
 import { useAlmanacRights } from '../../features/almanac/hooks/use-almanac-rights';
 import { litterQueryOptions, useLitter } from '../../features/litters/api/get-litter';

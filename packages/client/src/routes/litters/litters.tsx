@@ -9,7 +9,7 @@ import { PageHeader } from '../../components/ui/page-header';
 import { PageTitle } from '../../components/ui/page-title';
 import { SegmentedFilter } from '../../components/ui/segmented-filter';
 import { formatDate } from '../../lib/days';
-import { animalName } from '../../features/almanac/components/open-services';
+import { animalName } from '../../lib/names';
 import { littersQueryOptions, useLitters } from '../../features/litters/api/get-litters';
 
 type Status = 'nursing' | 'weaned' | 'all';

@@ -3,7 +3,7 @@ import type { AlmanacTaskDto } from '@burrowline/shared';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/text-field';
 import { useBulkUpdateTasks } from '../api/bulk-update-tasks';
-import { errorText } from '../error-text';
+import { errorText } from '../../../lib/form-errors';
 
 /** Done, moved or skipped at once for the selected tasks (all or none). */
 export function BulkBar({ tasks, today, onDone }: { tasks: AlmanacTaskDto[]; today: string; onDone: () => void }) {

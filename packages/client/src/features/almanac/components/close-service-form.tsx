@@ -3,7 +3,7 @@ import type { ServiceDto } from '@burrowline/shared';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/text-field';
 import { useCloseService } from '../api/close-service';
-import { errorText, fieldErrors } from '../error-text';
+import { errorText, fieldErrors } from '../../../lib/form-errors';
 
 /** She did not kindle: close the service, skip its open tasks, plan the rebreed. */
 export function CloseServiceForm({ service, today }: { service: ServiceDto; today: string }) {

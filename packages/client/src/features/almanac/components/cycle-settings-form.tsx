@@ -5,7 +5,7 @@ import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/text-field';
 import { isApiError } from '../../../lib/api-client';
 import { useUpdateCycleSettings } from '../api/update-cycle-settings';
-import { fieldErrors } from '../error-text';
+import { fieldErrors } from '../../../lib/form-errors';
 
 type NumberKey = Exclude<keyof CycleSettings, 'weighInAgesDays'>;
 

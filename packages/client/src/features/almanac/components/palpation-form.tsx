@@ -5,7 +5,7 @@ import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/text-field';
 import { isApiError } from '../../../lib/api-client';
 import { useRecordPalpation } from '../api/record-palpation';
-import { fieldErrors } from '../error-text';
+import { fieldErrors } from '../../../lib/form-errors';
 
 /** Kits felt or not: a negative palpation closes the service and plans the rebreed. */
 export function PalpationForm({ service, today }: { service: ServiceDto; today: string }) {

@@ -10,8 +10,8 @@ import { isApiError } from '../../../lib/api-client';
 import { useBreedingStock } from '../api/get-breeding-stock';
 import { useRecordService } from '../api/record-service';
 import { formatDate } from '../../../lib/days';
-import { fieldErrors } from '../error-text';
-import { animalName } from './open-services';
+import { fieldErrors } from '../../../lib/form-errors';
+import { animalName } from '../../../lib/names';
 
 function doeLabel(d: BreedingStockDto): string {
   const notes = [d.openService ? `open service from ${formatDate(d.openService.servicedOn)}` : null, d.underTreatment ? 'under treatment' : null].filter(Boolean);

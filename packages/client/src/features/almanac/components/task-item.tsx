@@ -9,7 +9,7 @@ import { cn } from '../../../lib/cn';
 import { useReviewTask } from '../api/review-task';
 import { useUpdateTask } from '../api/update-task';
 import { formatDate, formatWeekdayDay } from '../../../lib/days';
-import { errorText } from '../error-text';
+import { errorText } from '../../../lib/form-errors';
 import { useAlmanacRights } from '../hooks/use-almanac-rights';
 import { isOpen, taskStatus } from '../task-labels';
 

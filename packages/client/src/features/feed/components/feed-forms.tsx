@@ -10,12 +10,12 @@ import { SelectField } from '../../../components/ui/select-field';
 import { TextField } from '../../../components/ui/text-field';
 import { isApiError } from '../../../lib/api-client';
 import { formatDate } from '../../../lib/days';
-import { useFarmToday } from '../../farms/hooks/use-farm-today';
-import { breedingStockQueryOptions } from '../../almanac/api/get-breeding-stock';
-import { groupsQueryOptions } from '../../grow-out/api/get-groups';
-import { WeightInput } from '../../grow-out/components/weight-input';
-import { weight } from '../../grow-out/grow-out-format';
-import { housingUnitsQueryOptions } from '../../litters/api/housing';
+import { useFarmToday } from '../../farms';
+import { breedingStockQueryOptions } from '../../almanac';
+import { groupsQueryOptions } from '../../grow-out';
+import { WeightInput } from '../../../components/ui/weight-input';
+import { weight } from '../../../lib/weights';
+import { housingUnitsQueryOptions } from '../../litters';
 import { useCorrectFeedUse, useCorrectPurchase, useRecordFeedUse, useRecordPurchase } from '../api/record-feed';
 
 const fieldError = (error: unknown, field: string) => (isApiError(error) ? error.details[field]?.[0] : undefined);

@@ -1,17 +1,17 @@
 import { useState, type FormEvent } from 'react';
 import { useNavigate } from 'react-router-dom';
 import { ErrorCode, gramsToWeightInput, weightInputToGrams, type WeightUnit } from '@burrowline/shared';
-import { useFarmToday } from '../../farms/hooks/use-farm-today';
+import { useFarmToday } from '../../farms';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { SelectField } from '../../../components/ui/select-field';
 import { TextField } from '../../../components/ui/text-field';
 import { isApiError } from '../../../lib/api-client';
 import { formatDate } from '../../../lib/days';
-import { useHousingUnits } from '../../litters/api/housing';
+import { useHousingUnits } from '../../litters';
 import { useLitterChoices } from '../api/get-litter-choices';
 import { useFormGroup } from '../api/group-mutations';
-import { WeightInput } from './weight-input';
+import { WeightInput } from '../../../components/ui/weight-input';
 
 const fieldError = (error: unknown, field: string) => (isApiError(error) ? error.details[field]?.[0] : undefined);
 

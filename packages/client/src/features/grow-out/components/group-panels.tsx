@@ -7,10 +7,11 @@ import { SegmentedFilter } from '../../../components/ui/segmented-filter';
 import { TextField } from '../../../components/ui/text-field';
 import { isApiError } from '../../../lib/api-client';
 import { formatDate } from '../../../lib/days';
-import { useFarmToday } from '../../farms/hooks/use-farm-today';
+import { useFarmToday } from '../../farms';
 import { useCloseGroup, useReviewGroupWeighIn, useWeighGroup } from '../api/group-mutations';
-import { gainPerDay, useMoney, weight } from '../grow-out-format';
-import { WeightInput } from './weight-input';
+import { gainPerDay, weight } from '../../../lib/weights';
+import { useMoney } from '../../../lib/money';
+import { WeightInput } from '../../../components/ui/weight-input';
 
 const fieldError = (error: unknown, field: string) => (isApiError(error) ? error.details[field]?.[0] : undefined);
 

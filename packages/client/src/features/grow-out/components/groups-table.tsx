@@ -4,7 +4,8 @@ import type { GrowOutGroupListItemDto, ReadyByDto, WeightUnit } from '@burrowlin
 import { Badge } from '../../../components/ui/badge';
 import { DataTable, RowLink } from '../../../components/ui/data-table';
 import { formatDate } from '../../../lib/days';
-import { gainPerDay, readinessTone, weight } from '../grow-out-format';
+import { gainPerDay, weight } from '../../../lib/weights';
+import { readinessTone } from '../grow-out-format';
 
 const column = createColumnHelper<GrowOutGroupListItemDto>();
 

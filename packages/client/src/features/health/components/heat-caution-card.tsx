@@ -1,6 +1,6 @@
 import { formatTemperature, type HeatCautionDto, type TemperatureUnit } from '@burrowline/shared';
 import { ThermometerSun } from 'lucide-react';
-import { animalName } from '../../almanac/components/open-services';
+import { animalName } from '../../../lib/names';
 import { formatDate } from '../../../lib/days';
 import { formatInstant } from '../health-format';
 

@@ -2,7 +2,7 @@ import { useState } from 'react';
 import type { TemperatureUnit } from '@burrowline/shared';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/text-field';
-import { errorText, fieldErrors } from '../../almanac/error-text';
+import { errorText, fieldErrors } from '../../../lib/form-errors';
 import { useRecordTemperature } from '../api/record-temperature';
 
 /** Logs the barn's temperature in the farm's unit, now or at a time given (members and apprentices). */

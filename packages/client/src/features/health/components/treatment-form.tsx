@@ -3,7 +3,7 @@ import { addDays, treatmentRouteLabels, treatmentRoutes, type TreatmentRoute } f
 import { Button } from '../../../components/ui/button';
 import { SelectField, type SelectOption } from '../../../components/ui/select-field';
 import { TextField } from '../../../components/ui/text-field';
-import { errorText, fieldErrors } from '../../almanac/error-text';
+import { errorText, fieldErrors } from '../../../lib/form-errors';
 import { useRecordTreatment } from '../api/record-treatment';
 import { formatDate } from '../../../lib/days';
 

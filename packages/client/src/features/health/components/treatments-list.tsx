@@ -4,7 +4,7 @@ import { treatmentRouteLabels, type TreatmentDto } from '@burrowline/shared';
 import { Badge } from '../../../components/ui/badge';
 import { DataTable } from '../../../components/ui/data-table';
 import { formatDate } from '../../../lib/days';
-import { subjectName } from './withdrawals-card';
+import { subjectName } from '../../../lib/names';
 
 const column = createColumnHelper<TreatmentDto>();
 

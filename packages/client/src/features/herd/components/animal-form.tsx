@@ -11,7 +11,7 @@ import { TextField } from '../../../components/ui/text-field';
 import { isApiError } from '../../../lib/api-client';
 import { useSaveAnimal } from '../api/save-animal';
 import { ParentPicker, type ParentChoice } from './parent-picker';
-import { useFarmToday } from '../../farms/hooks/use-farm-today';
+import { useFarmToday } from '../../farms';
 
 interface Fields {
   tattoo: string;

@@ -6,7 +6,7 @@ import { SelectField } from '../../../components/ui/select-field';
 import { TextAreaField } from '../../../components/ui/text-area-field';
 import { TextField } from '../../../components/ui/text-field';
 import { isApiError } from '../../../lib/api-client';
-import { useFarmToday } from '../../farms/hooks/use-farm-today';
+import { useFarmToday } from '../../farms';
 import { useCreateWeighIn } from '../api/create-weigh-in';
 import { useAddAnimalNote, useRecordStatus } from '../api/record-entries';
 import { dispositionLabels, lifecycleLabels } from '../herd-labels';

@@ -3,9 +3,9 @@ import type { LitterDto } from '@burrowline/shared';
 import { Button } from '../../../components/ui/button';
 import { SelectField } from '../../../components/ui/select-field';
 import { TextField } from '../../../components/ui/text-field';
-import { animalName } from '../../almanac/components/open-services';
+import { animalName } from '../../../lib/names';
 import { formatDate } from '../../../lib/days';
-import { errorText, fieldErrors } from '../../almanac/error-text';
+import { errorText, fieldErrors } from '../../../lib/form-errors';
 import { useFosterCandidates } from '../api/get-foster-candidates';
 import { useRecordFostering } from '../api/record-fostering';
 

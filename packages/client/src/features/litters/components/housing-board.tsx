@@ -5,10 +5,10 @@ import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { SelectField } from '../../../components/ui/select-field';
 import { TextField } from '../../../components/ui/text-field';
-import { breedingStockQueryOptions } from '../../almanac/api/get-breeding-stock';
+import { breedingStockQueryOptions } from '../../almanac';
 import { formatDate } from '../../../lib/days';
-import { animalName } from '../../almanac/components/open-services';
-import { errorText, fieldErrors } from '../../almanac/error-text';
+import { animalName } from '../../../lib/names';
+import { errorText, fieldErrors } from '../../../lib/form-errors';
 import { littersQueryOptions } from '../api/get-litters';
 import { useCreateHousingUnit, useEndPlacement, useHousingUnits, usePlaceInUnit } from '../api/housing';
 

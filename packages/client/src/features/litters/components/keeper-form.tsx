@@ -3,8 +3,8 @@ import type { LitterDto } from '@burrowline/shared';
 import { Button } from '../../../components/ui/button';
 import { SelectField } from '../../../components/ui/select-field';
 import { TextField } from '../../../components/ui/text-field';
-import { animalName } from '../../almanac/components/open-services';
-import { errorText, fieldErrors } from '../../almanac/error-text';
+import { animalName } from '../../../lib/names';
+import { errorText, fieldErrors } from '../../../lib/form-errors';
 import { useAddKeeper } from '../api/add-keeper';
 
 /** A kit kept for breeding gets its own record; its sire, dam and birth date come from the litter it was born in. */

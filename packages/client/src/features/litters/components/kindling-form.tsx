@@ -5,7 +5,7 @@ import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/text-field';
 import { isApiError } from '../../../lib/api-client';
-import { fieldErrors } from '../../almanac/error-text';
+import { fieldErrors } from '../../../lib/form-errors';
 import { useRecordKindling } from '../api/record-kindling';
 
 /** The kindling of a service: the date, born alive and born dead; the litter's plan follows from the real date. */

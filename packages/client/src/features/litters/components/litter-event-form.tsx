@@ -5,7 +5,7 @@ import { Button } from '../../../components/ui/button';
 import { SelectField } from '../../../components/ui/select-field';
 import { TextField } from '../../../components/ui/text-field';
 import { isApiError } from '../../../lib/api-client';
-import { errorText, fieldErrors } from '../../almanac/error-text';
+import { errorText, fieldErrors } from '../../../lib/form-errors';
 import { useRecordLitterEvent } from '../api/record-litter-event';
 
 const kinds = [

@@ -4,7 +4,7 @@ import type { GroupRow, WeightUnit } from '@burrowline/shared';
 import { Badge } from '../../../components/ui/badge';
 import { DataTable, RowLink } from '../../../components/ui/data-table';
 import { formatDate } from '../../../lib/days';
-import { useMoney } from '../../grow-out/grow-out-format';
+import { useMoney } from '../../../lib/money';
 import { dash, gainShort, ratio, weightOrDash, weightUnitShort, wholeDays } from '../performance-format';
 import { Figure } from './does-table';
 

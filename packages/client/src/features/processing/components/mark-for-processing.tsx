@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/text-field';
-import { errorText } from '../../almanac/error-text';
+import { errorText } from '../../../lib/form-errors';
 import { useMarkForProcessing } from '../api/processing-mutations';
 
 /**

@@ -3,8 +3,8 @@ import { dressOut, usdaClass, weightInputToGrams, type WeightUnit } from '@burro
 import { Button } from '../../../components/ui/button';
 import { SelectField, type SelectOption } from '../../../components/ui/select-field';
 import { TextField } from '../../../components/ui/text-field';
-import { errorText, fieldErrors } from '../../almanac/error-text';
-import { WeightInput } from '../../grow-out/components/weight-input';
+import { errorText, fieldErrors } from '../../../lib/form-errors';
+import { WeightInput } from '../../../components/ui/weight-input';
 import { useRecordProcessing } from '../api/processing-mutations';
 import { percent, usdaClassLabels } from '../processing-format';
 

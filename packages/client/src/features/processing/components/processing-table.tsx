@@ -4,7 +4,7 @@ import { formatWeight, type ProcessingRecordDto, type WeightUnit } from '@burrow
 import { Badge } from '../../../components/ui/badge';
 import { DataTable } from '../../../components/ui/data-table';
 import { formatDate } from '../../../lib/days';
-import { subjectName } from '../../health/components/withdrawals-card';
+import { subjectName } from '../../../lib/names';
 import { ageText, percent, usdaClassLabels, usdaClassTone } from '../processing-format';
 
 const column = createColumnHelper<ProcessingRecordDto>();

@@ -1,5 +1,5 @@
 import type { WeightUnit } from '@burrowline/shared';
-import { TextField } from '../../../components/ui/text-field';
+import { TextField } from './text-field';
 
 /**
  * A weight typed in the farm's units: pounds and ounces, or kilograms and grams. The first field carries
