@@ -16,7 +16,7 @@ interface SharedSchema {
  */
 export function sharedSchemaResolver<TForm extends FieldValues, TBody>(
   schema: SharedSchema,
-  toBody: (values: TForm, refuse: (field: Path<TForm>, message: string) => void) => TBody,
+  toBody: (values: TForm, refuse: (field: Path<TForm> | 'root', message: string) => void) => TBody,
   fieldOf?: FieldOf<TForm>,
 ): Resolver<TForm, unknown, TBody> {
   return async (values, _context, options) => {

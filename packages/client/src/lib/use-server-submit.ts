@@ -1,9 +1,15 @@
 import type { FieldValues, Path, UseFormReturn } from 'react-hook-form';
 import { applyServerFieldErrors, confirmWarnings, errorText, type FieldOf } from './form-errors';
 
-/** What the hook needs of a TanStack mutation. */
-interface ServerMutation<TBody, TResult> {
-  mutate: (body: TBody, options?: { onSuccess?: (result: TResult) => void; onError?: (error: unknown) => void }) => void;
+/** The callbacks the hook passes to `mutate`. */
+export interface ServerMutateOptions<TResult> {
+  onSuccess?: (result: TResult) => void;
+  onError?: (error: unknown) => void;
+}
+
+/** What the hook needs of a TanStack mutation (or a wrapper that adds an id or a version to the body). */
+export interface ServerMutation<TBody, TResult> {
+  mutate: (body: TBody, options?: ServerMutateOptions<TResult>) => void;
   reset: () => void;
   error: unknown;
 }
