@@ -48,9 +48,3 @@ export function errorText(error: unknown): string {
   }
   return error instanceof Error ? error.message : 'Something went wrong';
 }
-
-/** Field messages of a failed action outside a form (a task ticked, a bulk change), by field name. */
-export function fieldErrors(error: unknown): Record<string, string | undefined> {
-  if (!isApiError(error)) return {};
-  return Object.fromEntries(Object.entries(error.details).map(([k, v]) => [k, v[0]]));
-}
