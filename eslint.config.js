@@ -1,8 +1,14 @@
+import fs from 'node:fs';
+import { fileURLToPath } from 'node:url';
 import js from '@eslint/js';
 import importX from 'eslint-plugin-import-x';
 import globals from 'globals';
 import tseslint from 'typescript-eslint';
 import serverModules from './eslint/server-modules.js';
+
+const clientFeatures = fs.readdirSync(new URL('./packages/client/src/features', import.meta.url));
+/** A feature's public file: the only part of it another feature may import (exceptions match absolute paths). */
+const featurePublicFile = fileURLToPath(new URL('./packages/client/src/features/*/index.ts', import.meta.url));
 
 /** Import boundaries of DEVELOPERS.md ("Imports that must never exist"). */
 const boundaries = {
@@ -56,6 +62,33 @@ export default tseslint.config(
         },
       ],
       'server-modules/no-folder-cycle': ['error', { srcDir: 'packages/server/src' }],
+    },
+  },
+  {
+    // Client features are islands. A feature imports lib/, components/ and what another feature exports on
+    // purpose from its index.ts; anything two features share (dates, names, error text, inputs) moves to lib/ or
+    // components/. Routes compose features and may import their files; lib/ and components/ import no feature.
+    files: ['packages/client/**/*.{ts,tsx}'],
+    rules: {
+      'import-x/no-restricted-paths': [
+        'error',
+        {
+          zones: [
+            boundaries.client,
+            ...clientFeatures.map((feature) => ({
+              target: `./packages/client/src/features/${feature}/**`,
+              from: `./packages/client/src/features/!(${feature})/**`,
+              except: [featurePublicFile],
+              message: 'Import what another feature exports from its index.ts, or move the shared piece to lib/ or components/',
+            })),
+            {
+              target: ['./packages/client/src/lib/**', './packages/client/src/components/**'],
+              from: './packages/client/src/features/**',
+              message: 'lib/ and components/ sit below the features and import none of them',
+            },
+          ],
+        },
+      ],
     },
   },
 );

@@ -10,7 +10,7 @@ import { onSessionLost, queryClient } from './query-client';
 import { requireMe } from './route-guards';
 
 // The shell (layout, guards, errors) ships in the first load; each screen is fetched when first visited.
-/** The grow-out area's tabs (issue 7), each its own lazy route. */
+/** The grow-out area's tabs, each its own lazy route so a breeder who only weighs groups never loads the charts. */
 const growOutRoutes: RouteObject[] = [
   // Groups (index), forming one, a group's detail; the Feed tab.
   {
@@ -189,7 +189,7 @@ const routes: RouteObject[] = [
                 },
               },
               {
-                // Herd records in (issue 5): a spreadsheet staged, checked row by row, then confirmed.
+                // Herd records in: a spreadsheet staged, checked row by row, then confirmed.
                 path: 'herd/import',
                 lazy: async () => {
                   const { loader, HerdImportPage } = await import('../routes/herd/herd-import');
@@ -225,7 +225,7 @@ const routes: RouteObject[] = [
                 },
               },
               {
-                // The Almanac (issue 6): agenda and month, services, settings; litters and their kit counts.
+                // The Almanac: agenda and month, services, settings; litters and their kit counts.
                 path: 'almanac',
                 lazy: async () => ({ Component: (await import('../routes/almanac/almanac')).AlmanacPage }),
               },
@@ -272,7 +272,7 @@ const routes: RouteObject[] = [
                 },
               },
               {
-                // Grow-out, feed, health, processing and performance (issue 7). Each tab is its own lazy route.
+                // Grow-out, feed, health, processing and performance share one layout; each tab is its own lazy route.
                 path: 'grow-out',
                 lazy: async () => ({ Component: (await import('../routes/grow-out/grow-out-layout')).GrowOutLayout }),
                 children: growOutRoutes,

@@ -6,6 +6,7 @@ export function formatInstant(iso: string): string {
   return dateTime.format(new Date(iso));
 }
 
-export function formatDay(iso: string): string {
+/** The date part of an instant, in the reader's own clock: "Mar 4, 2026" (farm days are in ./days). */
+export function formatInstantDate(iso: string): string {
   return dateOnly.format(new Date(iso));
 }

@@ -9,7 +9,7 @@ import { PageTitle } from '../../components/ui/page-title';
 import { SegmentedFilter } from '../../components/ui/segmented-filter';
 import { Spinner } from '../../components/ui/spinner';
 import { useAgenda, type AgendaRange } from '../../features/almanac/api/get-agenda';
-import { firstOfMonth, shiftMonth } from '../../features/almanac/almanac-dates';
+import { firstOfMonth, shiftMonth } from '../../lib/days';
 import { AgendaView } from '../../features/almanac/components/agenda-view';
 import { AttentionList } from '../../features/almanac/components/attention-list';
 import { MonthCalendar } from '../../features/almanac/components/month-calendar';

@@ -6,11 +6,12 @@ import { Button } from '../../components/ui/button';
 import { Card } from '../../components/ui/card';
 import { PageHeader } from '../../components/ui/page-header';
 import { PageTitle } from '../../components/ui/page-title';
-import { formatDate } from '../../features/almanac/almanac-dates';
+import { formatDate } from '../../lib/days';
 import { feedQueryOptions, useFeed } from '../../features/feed/api/get-feed';
 import { BookProblems, FeedUseForm, PurchaseForm } from '../../features/feed/components/feed-forms';
 import { useRemoveFeedUse, useRemovePurchase } from '../../features/feed/api/record-feed';
-import { useMoney, weight } from '../../features/growout/growout-format';
+import { useMoney } from '../../lib/money';
+import { weight } from '../../lib/weights';
 import { useWeightUnit } from '../../features/herd/hooks/use-weight-unit';
 
 export async function loader() {

@@ -9,14 +9,14 @@ import { PageHeader } from '../../components/ui/page-header';
 import { PageTitle } from '../../components/ui/page-title';
 import { TextLink } from '../../components/ui/text-link';
 import { useSession } from '../../lib/session';
-import { formatDate } from '../../features/almanac/almanac-dates';
+import { formatDate } from '../../lib/days';
 import { useWithdrawals } from '../../features/health/api/get-withdrawals';
 import { MarkForProcessing } from '../../features/processing/components/mark-for-processing';
 import { useWeightUnit } from '../../features/herd/hooks/use-weight-unit';
-import { groupQueryOptions, useGroup } from '../../features/growout/api/get-group';
-import { GrowthChart } from '../../features/growout/components/growth-chart';
-import { CloseGroupForm, FeedPanel, GainsPanel, GroupWeighInForm, GroupWeighInsList, ProjectionCard, WeighInSchedule } from '../../features/growout/components/group-panels';
-import { weight } from '../../features/growout/growout-format';
+import { groupQueryOptions, useGroup } from '../../features/grow-out/api/get-group';
+import { GrowthChart } from '../../features/grow-out/components/growth-chart';
+import { CloseGroupForm, FeedPanel, GainsPanel, GroupWeighInForm, GroupWeighInsList, ProjectionCard, WeighInSchedule } from '../../features/grow-out/components/group-panels';
+import { weight } from '../../lib/weights';
 import { idFrom, useIdParam } from '../almanac/id-param';
 
 export async function loader({ params }: LoaderFunctionArgs) {

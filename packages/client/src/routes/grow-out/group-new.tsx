@@ -6,9 +6,9 @@ import { PageHeader } from '../../components/ui/page-header';
 import { PageTitle } from '../../components/ui/page-title';
 import { Spinner } from '../../components/ui/spinner';
 import { useWeightUnit } from '../../features/herd/hooks/use-weight-unit';
-import { groupsQueryOptions, useGroups } from '../../features/growout/api/get-groups';
-import { litterChoicesQueryOptions } from '../../features/growout/api/get-litter-choices';
-import { FormGroupForm } from '../../features/growout/components/form-group-form';
+import { groupsQueryOptions, useGroups } from '../../features/grow-out/api/get-groups';
+import { litterChoicesQueryOptions } from '../../features/grow-out/api/get-litter-choices';
+import { FormGroupForm } from '../../features/grow-out/components/form-group-form';
 
 export async function loader() {
   await Promise.all([queryClient.ensureQueryData(litterChoicesQueryOptions()), queryClient.ensureQueryData(groupsQueryOptions({ status: 'growing' }))]);

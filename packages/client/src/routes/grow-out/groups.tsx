@@ -10,9 +10,9 @@ import { SegmentedFilter } from '../../components/ui/segmented-filter';
 import { Spinner } from '../../components/ui/spinner';
 import { TextField } from '../../components/ui/text-field';
 import { useWeightUnit } from '../../features/herd/hooks/use-weight-unit';
-import { groupsQueryOptions, useGroups } from '../../features/growout/api/get-groups';
-import { GroupsTable } from '../../features/growout/components/groups-table';
-import { formatDate } from '../../features/almanac/almanac-dates';
+import { groupsQueryOptions, useGroups } from '../../features/grow-out/api/get-groups';
+import { GroupsTable } from '../../features/grow-out/components/groups-table';
+import { formatDate } from '../../lib/days';
 
 type Status = 'growing' | 'closed';
 

@@ -3,7 +3,7 @@ import { Outlet } from 'react-router-dom';
 import { SectionTab as Tab, SectionTabs } from '../../components/ui/section-tabs';
 
 /**
- * The grow-out area (issue 7): groups raised to market weight, the feed bought and given, health
+ * The grow-out area: groups raised to market weight, the feed bought and given, health
  * (treatments and withdrawal, the barn's temperature), processing records with their yields, and the
  * performance of each doe, buck, breed and cross that keep and cull decisions rest on.
  */

@@ -8,7 +8,7 @@ import { PageTitle } from '../../components/ui/page-title';
 import { SegmentedFilter } from '../../components/ui/segmented-filter';
 import { Spinner } from '../../components/ui/spinner';
 import { TextField } from '../../components/ui/text-field';
-import { formatDate } from '../../features/almanac/almanac-dates';
+import { formatDate } from '../../lib/days';
 import { useWeightUnit } from '../../features/herd/hooks/use-weight-unit';
 import { performanceQueryOptions, usePerformance, type PerformanceFilters } from '../../features/performance/api/get-performance';
 import { BreedsComparison } from '../../features/performance/components/breeds-comparison';

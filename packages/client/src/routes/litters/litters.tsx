@@ -8,8 +8,8 @@ import { LinkButton } from '../../components/ui/link-button';
 import { PageHeader } from '../../components/ui/page-header';
 import { PageTitle } from '../../components/ui/page-title';
 import { SegmentedFilter } from '../../components/ui/segmented-filter';
-import { formatDate } from '../../features/almanac/almanac-dates';
-import { animalName } from '../../features/almanac/components/open-services';
+import { formatDate } from '../../lib/days';
+import { animalName } from '../../lib/names';
 import { littersQueryOptions, useLitters } from '../../features/litters/api/get-litters';
 
 type Status = 'nursing' | 'weaned' | 'all';

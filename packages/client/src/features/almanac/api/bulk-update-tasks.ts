@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { AlmanacTaskDto, TaskBulkInput } from '@burrowline/shared';
 import { apiFetch } from '../../../lib/api-client';
-import { litterKeys } from '../../litters/api/litter-keys';
+import { litterKeys } from '../../litters';
 import { almanacKeys } from './almanac-keys';
 
 /** Several tasks at once, all or none (the server refuses the lot if one was changed meanwhile). */

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { CycleSettingsPatchInput, CycleSettingsSaveDto } from '@burrowline/shared';
 import { apiFetch } from '../../../lib/api-client';
-import { litterKeys } from '../../litters/api/litter-keys';
+import { litterKeys } from '../../litters';
 import { almanacKeys } from './almanac-keys';
 
 /** Sends the version edited from; the answer says how many open tasks were re-planned. */

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { AlmanacTaskDto, TaskUpdateInput } from '@burrowline/shared';
 import { apiFetch } from '../../../lib/api-client';
-import { litterKeys } from '../../litters/api/litter-keys';
+import { litterKeys } from '../../litters';
 import { almanacKeys } from './almanac-keys';
 
 export function updateTask(taskId: string, input: TaskUpdateInput): Promise<AlmanacTaskDto> {

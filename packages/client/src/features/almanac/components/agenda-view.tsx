@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import type { AgendaDto, AlmanacTaskDto } from '@burrowline/shared';
-import { relativeDay, formatLongDay } from '../almanac-dates';
+import { relativeDay, formatLongDay } from '../../../lib/days';
 import { useAlmanacRights } from '../hooks/use-almanac-rights';
 import { isOpen } from '../task-labels';
 import { BulkBar } from './bulk-bar';

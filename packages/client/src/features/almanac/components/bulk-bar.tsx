@@ -1,17 +1,15 @@
-import { useState } from 'react';
-import type { AlmanacTaskDto } from '@burrowline/shared';
+import { taskBulkSchema, type AlmanacTaskDto, type TaskBulkInput } from '@burrowline/shared';
 import { Button } from '../../../components/ui/button';
-import { TextField } from '../../../components/ui/text-field';
 import { useBulkUpdateTasks } from '../api/bulk-update-tasks';
-import { errorText } from '../error-text';
+import { errorText } from '../../../lib/form-errors';
+import type { ServerMutateOptions } from '../../../lib/use-server-submit';
+import { TaskActionForm } from './task-action-form';
 
 /** Done, moved or skipped at once for the selected tasks (all or none). */
 export function BulkBar({ tasks, today, onDone }: { tasks: AlmanacTaskDto[]; today: string; onDone: () => void }) {
   const bulk = useBulkUpdateTasks();
-  const [moveTo, setMoveTo] = useState(today);
-  const [reason, setReason] = useState('');
   const refs = tasks.map((t) => ({ id: t.id, version: t.version }));
-  const run = (input: Parameters<typeof bulk.mutate>[0]) => bulk.mutate(input, { onSuccess: onDone });
+  const run = (input: TaskBulkInput, options?: ServerMutateOptions<unknown>) => bulk.mutate(input, { ...options, onSuccess: onDone });
   return (
     <section aria-label="Selected tasks" className="sticky bottom-2 z-10 space-y-3 rounded-2xl border-2 border-moss bg-white p-4 shadow-lg">
       <div className="flex flex-wrap items-center justify-between gap-3">
@@ -26,30 +24,24 @@ export function BulkBar({ tasks, today, onDone }: { tasks: AlmanacTaskDto[]; tod
         </div>
       </div>
       <div className="grid gap-3 sm:grid-cols-2">
-        <form
-          className="flex items-end gap-2"
-          onSubmit={(e) => {
-            e.preventDefault();
-            run({ action: 'move', dueOn: moveTo, tasks: refs });
-          }}
-        >
-          <TextField label="Move all to" type="date" value={moveTo} onChange={(e) => setMoveTo(e.target.value)} className="flex-1" />
-          <Button type="submit" variant="secondary">
-            Move
-          </Button>
-        </form>
-        <form
-          className="flex items-end gap-2"
-          onSubmit={(e) => {
-            e.preventDefault();
-            run({ action: 'skip', reason, tasks: refs });
-          }}
-        >
-          <TextField label="Skip all, because…" value={reason} onChange={(e) => setReason(e.target.value)} className="flex-1" />
-          <Button type="submit" variant="secondary">
-            Skip
-          </Button>
-        </form>
+        <TaskActionForm
+          field={{ name: 'dueOn', label: 'Move all to', type: 'date', initial: today }}
+          button="Move"
+          schema={taskBulkSchema}
+          toBody={(dueOn): TaskBulkInput => ({ action: 'move', dueOn, tasks: refs })}
+          send={run}
+          reset={bulk.reset}
+          error={bulk.error}
+        />
+        <TaskActionForm
+          field={{ name: 'reason', label: 'Skip all, because…', initial: '' }}
+          button="Skip"
+          schema={taskBulkSchema}
+          toBody={(reason): TaskBulkInput => ({ action: 'skip', reason, tasks: refs })}
+          send={run}
+          reset={bulk.reset}
+          error={bulk.error}
+        />
       </div>
       {bulk.isError && (
         <p role="alert" className="text-sm font-medium text-clay-deep">

@@ -3,7 +3,7 @@ import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { useCalendarFeed } from '../api/get-calendar-feed';
 import { useRenewCalendarFeed, useRevokeCalendarFeed } from '../api/renew-calendar-feed';
-import { errorText } from '../error-text';
+import { errorText } from '../../../lib/form-errors';
 
 /** The farm's secret calendar address for a phone calendar; shown once when made, renewable. */
 export function CalendarFeedPanel({ canManage }: { canManage: boolean }) {

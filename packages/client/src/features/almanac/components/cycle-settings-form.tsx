@@ -1,13 +1,24 @@
-import { useState } from 'react';
-import { ErrorCode, formatWeight, outsidePublishedRange, type CycleSettings, type CycleSettingsDto, type CycleSettingSource } from '@burrowline/shared';
+import { useForm } from 'react-hook-form';
+import {
+  cycleSettingsSchema,
+  ErrorCode,
+  formatWeight,
+  outsidePublishedRange,
+  type CycleSettings,
+  type CycleSettingsDto,
+  type CycleSettingSource,
+} from '@burrowline/shared';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/text-field';
 import { isApiError } from '../../../lib/api-client';
+import { sharedSchemaResolver } from '../../../lib/shared-schema-resolver';
+import { useServerSubmit } from '../../../lib/use-server-submit';
 import { useUpdateCycleSettings } from '../api/update-cycle-settings';
-import { fieldErrors } from '../error-text';
 
 type NumberKey = Exclude<keyof CycleSettings, 'weighInAgesDays'>;
+/** Every setting as typed: numbers as text, the weigh-in ages as one line. */
+type CycleSettingsValues = Record<keyof CycleSettings, string>;
 
 /** The source as a sentence, marking a fact of the trade with no published source as common practice. */
 function sourceText(source: CycleSettingSource): string {
@@ -33,27 +44,32 @@ const fields: { key: NumberKey; label: string; unit: string }[] = [
 /** The farm's own cycle, each default with its published range and source; saving re-plans open tasks only. */
 export function CycleSettingsForm({ current, canEdit }: { current: CycleSettingsDto; canEdit: boolean }) {
   const save = useUpdateCycleSettings();
-  const [values, setValues] = useState<Record<string, string>>(() => ({
-    ...Object.fromEntries(fields.map((f) => [f.key, String(current.settings[f.key])])),
-    weighInAgesDays: current.settings.weighInAgesDays.join(', '),
-  }));
-  const errors = fieldErrors(save.error);
-  const submit = () => {
-    const patch: Record<string, unknown> = { version: current.version };
-    for (const f of fields) if (Number(values[f.key]) !== current.settings[f.key]) patch[f.key] = Number(values[f.key]);
-    const ages = (values.weighInAgesDays ?? '').split(/[,\s]+/).filter(Boolean).map(Number);
-    if (ages.join(',') !== current.settings.weighInAgesDays.join(',')) patch.weighInAgesDays = ages;
-    save.mutate(patch as Parameters<typeof save.mutate>[0]);
+  const form = useForm<CycleSettingsValues, unknown, CycleSettings>({
+    // The whole set is checked, as the server checks the stored settings merged with the change.
+    resolver: sharedSchemaResolver(cycleSettingsSchema, (v) => ({
+      ...(Object.fromEntries(fields.map((f) => [f.key, v[f.key] === '' ? NaN : Number(v[f.key])])) as Record<NumberKey, number>),
+      weighInAgesDays: v.weighInAgesDays.split(/[,\s]+/).filter(Boolean).map(Number),
+    })),
+    defaultValues: {
+      ...(Object.fromEntries(fields.map((f) => [f.key, String(current.settings[f.key])])) as Record<NumberKey, string>),
+      weighInAgesDays: current.settings.weighInAgesDays.join(', '),
+    },
+  });
+  const { errors } = form.formState;
+  // Only what changed is sent, with the version this screen showed.
+  const sendChanges = {
+    mutate: (settings: CycleSettings, options?: Parameters<typeof save.mutate>[1]) => {
+      const patch: Record<string, unknown> = { version: current.version };
+      for (const f of fields) if (settings[f.key] !== current.settings[f.key]) patch[f.key] = settings[f.key];
+      if (settings.weighInAgesDays.join(',') !== current.settings.weighInAgesDays.join(',')) patch.weighInAgesDays = settings.weighInAgesDays;
+      save.mutate(patch as Parameters<typeof save.mutate>[0], options);
+    },
+    reset: save.reset,
+    error: save.error,
   };
+  const { submit } = useServerSubmit(form, sendChanges);
   return (
-    <form
-      noValidate
-      className="space-y-5"
-      onSubmit={(e) => {
-        e.preventDefault();
-        submit();
-      }}
-    >
+    <form noValidate className="space-y-5" onSubmit={submit}>
       {save.isSuccess && (
         <Alert tone="success">
           Saved. {save.data.replanned.changed} open {save.data.replanned.changed === 1 ? 'task was' : 'tasks were'} re-planned
@@ -65,7 +81,7 @@ export function CycleSettingsForm({ current, canEdit }: { current: CycleSettings
       <div className="grid gap-5 md:grid-cols-2">
         {fields.map((f) => {
           const source = current.sources[f.key];
-          const value = Number(values[f.key]);
+          const value = Number(form.watch(f.key));
           const range = Number.isFinite(value) ? outsidePublishedRange(f.key, value) : null;
           return (
             <TextField
@@ -74,9 +90,7 @@ export function CycleSettingsForm({ current, canEdit }: { current: CycleSettings
               type="number"
               inputMode="numeric"
               disabled={!canEdit}
-              value={values[f.key]}
-              onChange={(e) => setValues({ ...values, [f.key]: e.target.value })}
-              error={errors[f.key]}
+              error={errors[f.key]?.message}
               hint={
                 <>
                   Published: {source.publishedText}. Source: {sourceText(source)}
@@ -84,16 +98,16 @@ export function CycleSettingsForm({ current, canEdit }: { current: CycleSettings
                   {range === 'below' || range === 'above' ? <strong className="block text-clay-deep">Outside the published range: fine if you know your herd.</strong> : null}
                 </>
               }
+              {...form.register(f.key)}
             />
           );
         })}
         <TextField
           label="Weigh-in ages (days, youngest first)"
           disabled={!canEdit}
-          value={values.weighInAgesDays}
-          onChange={(e) => setValues({ ...values, weighInAgesDays: e.target.value })}
-          error={errors.weighInAgesDays}
+          error={errors.weighInAgesDays?.message}
           hint={`Source: ${sourceText(current.sources.weighInAgesDays)}`}
+          {...form.register('weighInAgesDays')}
         />
       </div>
       {canEdit && (

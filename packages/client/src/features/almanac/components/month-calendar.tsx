@@ -3,7 +3,7 @@ import { ChevronLeft, ChevronRight } from 'lucide-react';
 import type { AgendaDto, AlmanacTaskDto } from '@burrowline/shared';
 import { Button } from '../../../components/ui/button';
 import { cn } from '../../../lib/cn';
-import { formatLongDay, formatMonth, monthGrid, weekdayNames } from '../almanac-dates';
+import { formatLongDay, formatMonth, monthGrid, weekdayNames } from '../../../lib/days';
 import { TaskItem } from './task-item';
 
 const dotTone: Record<string, string> = {

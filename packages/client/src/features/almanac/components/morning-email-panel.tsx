@@ -3,7 +3,7 @@ import { CheckboxField } from '../../../components/ui/checkbox-field';
 import { SelectField } from '../../../components/ui/select-field';
 import { useMorningEmail } from '../api/get-morning-email';
 import { useUpdateMorningEmail } from '../api/update-morning-email';
-import { errorText } from '../error-text';
+import { errorText } from '../../../lib/form-errors';
 
 const hours = Array.from({ length: 9 }, (_, i) => i + 3).map((h) => ({ value: String(h), label: `${h}:00 am` }));
 

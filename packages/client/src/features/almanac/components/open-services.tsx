@@ -2,9 +2,10 @@ import { useQuery } from '@tanstack/react-query';
 import { Link } from 'react-router-dom';
 import type { ServiceListItemDto } from '@burrowline/shared';
 import { Badge } from '../../../components/ui/badge';
+import { animalName } from '../../../lib/names';
 import { Card } from '../../../components/ui/card';
 import { servicesQueryOptions } from '../api/get-services';
-import { formatDate } from '../almanac-dates';
+import { formatDate } from '../../../lib/days';
 
 const kindlingWords: Record<NonNullable<ServiceListItemDto['kindlingStatus']>, { label: string; tone: 'neutral' | 'straw' | 'clay' }> = {
   not_due: { label: 'Kindling not due yet', tone: 'neutral' },
@@ -12,11 +13,6 @@ const kindlingWords: Record<NonNullable<ServiceListItemDto['kindlingStatus']>, {
   overdue: { label: 'Kindling overdue', tone: 'clay' },
   missed: { label: 'Past the window', tone: 'clay' },
 };
-
-export function animalName(a: { name: string; tattoo: string | null }): string {
-  if (a.name && a.tattoo) return `${a.name} (${a.tattoo})`;
-  return a.name || a.tattoo || 'Unnamed';
-}
 
 /** The farm's open services, each a link to record its palpation, kindling or closing. */
 export function OpenServices() {

@@ -1,71 +1,69 @@
-import { useState } from 'react';
+import { useForm } from 'react-hook-form';
 import { useNavigate } from 'react-router-dom';
-import { ErrorCode, type BreedingStockDto } from '@burrowline/shared';
+import { serviceCreateSchema, type BreedingStockDto, type ServiceCreateBody } from '@burrowline/shared';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
+import { ConfirmWarnings } from '../../../components/ui/confirm-warnings';
 import { SelectField } from '../../../components/ui/select-field';
 import { TextAreaField } from '../../../components/ui/text-area-field';
 import { TextField } from '../../../components/ui/text-field';
-import { isApiError } from '../../../lib/api-client';
+import { animalName } from '../../../lib/names';
+import { formatDate } from '../../../lib/days';
+import { sharedSchemaResolver } from '../../../lib/shared-schema-resolver';
+import { useServerSubmit } from '../../../lib/use-server-submit';
 import { useBreedingStock } from '../api/get-breeding-stock';
 import { useRecordService } from '../api/record-service';
-import { formatDate } from '../almanac-dates';
-import { fieldErrors } from '../error-text';
-import { animalName } from './open-services';
 
 function doeLabel(d: BreedingStockDto): string {
   const notes = [d.openService ? `open service from ${formatDate(d.openService.servicedOn)}` : null, d.underTreatment ? 'under treatment' : null].filter(Boolean);
   return `${animalName(d)}${notes.length ? ` — ${notes.join(', ')}` : ''}`;
 }
 
+interface ServiceValues {
+  doeId: string;
+  buckId: string;
+  servicedOn: string;
+  notes: string;
+}
+
+const resolver = sharedSchemaResolver<ServiceValues, ServiceCreateBody>(serviceCreateSchema, (v) => v);
+
 /** Records a service; warnings (a young doe, one under treatment) are shown and must be confirmed. */
 export function ServiceForm({ initialDoeId }: { initialDoeId?: string }) {
   const { data: stock } = useBreedingStock();
   const record = useRecordService();
   const navigate = useNavigate();
-  const [doeId, setDoeId] = useState(initialDoeId ?? '');
-  const [buckId, setBuckId] = useState(stock.bucks.length === 1 ? stock.bucks[0]!.id : '');
-  const [servicedOn, setServicedOn] = useState(stock.today);
-  const [notes, setNotes] = useState('');
-  const errors = fieldErrors(record.error);
-  const needsConfirm = isApiError(record.error, ErrorCode.confirmationRequired);
-  const send = (confirm: boolean) =>
-    record.mutate(
-      { doeId, buckId, servicedOn, notes, ...(confirm ? { confirm: true } : {}) },
-      { onSuccess: (service) => navigate(`/almanac/services/${service.id}`, { state: { recorded: true } }) },
-    );
-  const doe = stock.does.find((d) => d.id === doeId);
+  const form = useForm<ServiceValues, unknown, ServiceCreateBody>({
+    resolver,
+    defaultValues: { doeId: initialDoeId ?? '', buckId: stock.bucks.length === 1 ? stock.bucks[0]!.id : '', servicedOn: stock.today, notes: '' },
+  });
+  const { errors } = form.formState;
+  const { submit, confirm, warnings, failure } = useServerSubmit(form, record, {
+    onSuccess: (service) => navigate(`/almanac/services/${service.id}`, { state: { recorded: true } }),
+  });
+  const doe = stock.does.find((d) => d.id === form.watch('doeId'));
 
   return (
-    <form
-      noValidate
-      className="space-y-5"
-      onSubmit={(e) => {
-        e.preventDefault();
-        send(false);
-      }}
-    >
+    <form noValidate className="space-y-5" onSubmit={submit}>
       <div className="grid gap-5 md:grid-cols-2">
         <SelectField
           label="Doe"
-          value={doeId}
-          onChange={(e) => setDoeId(e.target.value)}
-          error={needsConfirm ? undefined : errors.doeId}
+          error={errors.doeId?.message}
           options={[{ value: '', label: 'Choose a doe' }, ...stock.does.map((d) => ({ value: d.id, label: doeLabel(d) }))]}
+          {...form.register('doeId')}
         />
         <SelectField
           label="Buck"
           hint="Your own bucks, and any kept here on loan."
-          value={buckId}
-          onChange={(e) => setBuckId(e.target.value)}
-          error={needsConfirm ? undefined : errors.buckId}
+          error={errors.buckId?.message}
           options={[
             { value: '', label: 'Choose a buck' },
             ...stock.bucks.map((b) => ({ value: b.id, label: `${animalName(b)}${b.onLoanFrom ? ` — on loan from ${b.onLoanFrom.name}` : ''}` })),
           ]}
+          {...form.register('buckId')}
         />
-        <TextField label="Date of the service" type="date" max={stock.today} value={servicedOn} onChange={(e) => setServicedOn(e.target.value)} error={errors.servicedOn} />
-        <TextAreaField label="Notes (optional)" rows={2} value={notes} onChange={(e) => setNotes(e.target.value)} error={errors.notes} />
+        <TextField label="Date of the service" type="date" max={stock.today} error={errors.servicedOn?.message} {...form.register('servicedOn')} />
+        <TextAreaField label="Notes (optional)" rows={2} error={errors.notes?.message} {...form.register('notes')} />
       </div>
       {doe?.underTreatment && (
         <Alert tone="warning" title="She is under treatment">
@@ -73,29 +71,13 @@ export function ServiceForm({ initialDoeId }: { initialDoeId?: string }) {
           prescribed it before breeding her.
         </Alert>
       )}
-      {needsConfirm && record.error && (
-        <Alert
-          tone="warning"
-          title="Check before saving"
-          actions={
-            <Button onClick={() => send(true)} isBusy={record.isPending}>
-              Save anyway
-            </Button>
-          }
-        >
-          <ul className="list-disc space-y-1 pl-5">
-            {Object.values(fieldErrors(record.error)).map((m) => (
-              <li key={m}>{m}</li>
-            ))}
-          </ul>
-        </Alert>
-      )}
-      {record.isError && !needsConfirm && Object.keys(errors).length === 0 && (
+      <ConfirmWarnings warnings={warnings} onConfirm={confirm} isBusy={record.isPending} />
+      {failure && (
         <Alert tone="error" title="Service not saved">
-          {record.error.message}
+          {failure}
         </Alert>
       )}
-      <Button type="submit" isBusy={record.isPending && !needsConfirm}>
+      <Button type="submit" isBusy={record.isPending && !warnings}>
         Save the service
       </Button>
     </form>

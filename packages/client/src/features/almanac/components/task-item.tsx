@@ -1,17 +1,18 @@
 import { useState } from 'react';
 import { Check, ChevronDown, ChevronUp, RotateCcw } from 'lucide-react';
 import { Link } from 'react-router-dom';
-import type { AlmanacTaskDto } from '@burrowline/shared';
+import { taskUpdateSchema, type AlmanacTaskDto, type TaskUpdateInput } from '@burrowline/shared';
 import { Badge } from '../../../components/ui/badge';
 import { Button } from '../../../components/ui/button';
-import { TextField } from '../../../components/ui/text-field';
 import { cn } from '../../../lib/cn';
 import { useReviewTask } from '../api/review-task';
 import { useUpdateTask } from '../api/update-task';
-import { formatDate, formatDay } from '../almanac-dates';
-import { errorText } from '../error-text';
+import { formatDate, formatWeekdayDay } from '../../../lib/days';
+import { errorText } from '../../../lib/form-errors';
+import type { ServerMutateOptions } from '../../../lib/use-server-submit';
 import { useAlmanacRights } from '../hooks/use-almanac-rights';
 import { isOpen, taskStatus } from '../task-labels';
+import { TaskActionForm } from './task-action-form';
 
 interface TaskItemProps {
   task: AlmanacTaskDto;
@@ -36,12 +37,11 @@ export function TaskItem({ task, selected, onSelect, showDate = false, showSourc
   const update = useUpdateTask();
   const review = useReviewTask();
   const [more, setMore] = useState(false);
-  const [moveTo, setMoveTo] = useState(task.dueOn);
-  const [reason, setReason] = useState('');
   const status = taskStatus(task);
   const open = isOpen(task);
   const source = showSource ? sourceLink(task) : null;
-  const act = (input: Parameters<typeof update.mutate>[0]['input']) => update.mutate({ taskId: task.id, input }, { onSuccess: () => setMore(false) });
+  const act = (input: TaskUpdateInput, options?: ServerMutateOptions<unknown>) =>
+    update.mutate({ taskId: task.id, input }, { ...options, onSuccess: (result) => { setMore(false); options?.onSuccess?.(result); } });
   const error = update.error ?? review.error;
 
   return (
@@ -62,7 +62,7 @@ export function TaskItem({ task, selected, onSelect, showDate = false, showSourc
             {task.subject && <span className="font-normal text-grey-700"> · {task.subject}</span>}
           </p>
           <div className="flex flex-wrap items-center gap-x-3 gap-y-1 text-sm text-grey-600">
-            {showDate && <span>{formatDay(task.dueOn)}</span>}
+            {showDate && <span>{formatWeekdayDay(task.dueOn)}</span>}
             <Badge tone={status.tone}>{status.label}</Badge>
             {task.kind === 'kindling_due' && task.windowStart && (
               <span>
@@ -118,30 +118,24 @@ export function TaskItem({ task, selected, onSelect, showDate = false, showSourc
       </div>
       {more && (
         <div className="mt-3 grid gap-3 border-t border-grey-200 pt-3 sm:grid-cols-2">
-          <form
-            className="flex items-end gap-2"
-            onSubmit={(e) => {
-              e.preventDefault();
-              act({ action: 'move', dueOn: moveTo, version: task.version });
-            }}
-          >
-            <TextField label="Move to" type="date" value={moveTo} min={task.anchorDate} onChange={(e) => setMoveTo(e.target.value)} className="flex-1" />
-            <Button type="submit" variant="secondary">
-              Move
-            </Button>
-          </form>
-          <form
-            className="flex items-end gap-2"
-            onSubmit={(e) => {
-              e.preventDefault();
-              act({ action: 'skip', reason, version: task.version });
-            }}
-          >
-            <TextField label="Skip, because…" value={reason} onChange={(e) => setReason(e.target.value)} className="flex-1" />
-            <Button type="submit" variant="secondary">
-              Skip
-            </Button>
-          </form>
+          <TaskActionForm
+            field={{ name: 'dueOn', label: 'Move to', type: 'date', min: task.anchorDate, initial: task.dueOn }}
+            button="Move"
+            toBody={(dueOn): TaskUpdateInput => ({ action: 'move', dueOn, version: task.version })}
+            schema={taskUpdateSchema}
+            send={act}
+            reset={update.reset}
+            error={update.error}
+          />
+          <TaskActionForm
+            field={{ name: 'reason', label: 'Skip, because…', initial: '' }}
+            button="Skip"
+            toBody={(reason): TaskUpdateInput => ({ action: 'skip', reason, version: task.version })}
+            schema={taskUpdateSchema}
+            send={act}
+            reset={update.reset}
+            error={update.error}
+          />
         </div>
       )}
       {error && (

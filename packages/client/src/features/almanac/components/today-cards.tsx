@@ -4,7 +4,7 @@ import { Card } from '../../../components/ui/card';
 import { LinkButton } from '../../../components/ui/link-button';
 import { Spinner } from '../../../components/ui/spinner';
 import { useAlmanacSummary } from '../api/get-almanac-summary';
-import { formatLongDay, relativeDay } from '../almanac-dates';
+import { formatLongDay, relativeDay } from '../../../lib/days';
 import { AttentionList } from './attention-list';
 import { TaskItem } from './task-item';
 

@@ -1,11 +1,11 @@
 import { Card } from '../../../components/ui/card';
 import { TextLink } from '../../../components/ui/text-link';
-import { MedicineCaution } from '../../health/components/medicine-caution';
-import { TreatmentForm } from '../../health/components/treatment-form';
+import { MedicineCaution } from '../../health';
+import { TreatmentForm } from '../../health';
 import { useBreedingStock } from '../api/get-breeding-stock';
 import { useTreatments } from '../api/get-treatments';
-import { formatDate } from '../almanac-dates';
-import { animalName } from './open-services';
+import { formatDate } from '../../../lib/days';
+import { animalName } from '../../../lib/names';
 
 /** Treatments of the farm's breeding stock; a doe under one is flagged before she is bred (a warning, not a block). */
 export function TreatmentsCard() {

@@ -6,7 +6,7 @@ import { Alert } from '../../../components/ui/alert';
 import { Card } from '../../../components/ui/card';
 import { PageHeader } from '../../../components/ui/page-header';
 import { formatInstant } from '../../../lib/dates';
-import { BreedTags } from '../../farms/components/breed-tags';
+import { BreedTags } from '../../farms';
 import { useMarkApplicationViewed } from '../api/mark-application-viewed';
 import { sharingLabels } from '../application-labels';
 import { ApplicationStatusBadge } from './application-status-badge';

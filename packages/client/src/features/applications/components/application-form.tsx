@@ -13,8 +13,8 @@ import { TextField } from '../../../components/ui/text-field';
 import { isApiError } from '../../../lib/api-client';
 import { applyServerFieldErrors } from '../../../lib/form-errors';
 import { newIdempotencyKey } from '../../../lib/idempotency';
-import { parseBreeds } from '../../farms/components/breeds-field';
-import { timeZoneOptions } from '../../farms/time-zone-options';
+import { parseBreeds } from '../../farms';
+import { timeZoneOptions } from '../../farms';
 import { useSubmitApplication } from '../api/submit-application';
 import { sharingLabels } from '../application-labels';
 

@@ -1,6 +1,6 @@
 import type { FarmDto } from '@burrowline/shared';
 import { Card } from '../../../components/ui/card';
-import { FarmPhoto } from '../../photos/components/farm-photo';
+import { FarmPhoto } from '../../photos';
 import { FarmFacts } from './farm-facts';
 import { MemberList } from './member-list';
 

@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { FeedOverviewDto, FeedPurchaseCreateBody, FeedPurchaseUpdateBody, FeedUseCreateBody, FeedUseUpdateBody } from '@burrowline/shared';
 import { apiFetch } from '../../../lib/api-client';
-import { growOutKeys } from '../../growout/api/growout-keys';
+import { growOutKeys } from '../../grow-out';
 import { feedKeys } from './feed-keys';
 
 function useFeedMutation<V>(request: (variables: V) => Promise<FeedOverviewDto>) {

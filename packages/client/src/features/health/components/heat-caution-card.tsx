@@ -1,7 +1,7 @@
 import { formatTemperature, type HeatCautionDto, type TemperatureUnit } from '@burrowline/shared';
 import { ThermometerSun } from 'lucide-react';
-import { animalName } from '../../almanac/components/open-services';
-import { formatDate } from '../../almanac/almanac-dates';
+import { animalName } from '../../../lib/names';
+import { formatDate } from '../../../lib/days';
 import { formatInstant } from '../health-format';
 
 /**

@@ -1,11 +1,13 @@
 import { useState } from 'react';
-import { addDays, treatmentRouteLabels, treatmentRoutes, type TreatmentRoute } from '@burrowline/shared';
+import { useForm } from 'react-hook-form';
+import { addDays, treatmentCreateSchema, treatmentRouteLabels, treatmentRoutes, type TreatmentCreateBody, type TreatmentRoute } from '@burrowline/shared';
 import { Button } from '../../../components/ui/button';
 import { SelectField, type SelectOption } from '../../../components/ui/select-field';
 import { TextField } from '../../../components/ui/text-field';
-import { errorText, fieldErrors } from '../../almanac/error-text';
+import { sharedSchemaResolver } from '../../../lib/shared-schema-resolver';
+import { useServerSubmit } from '../../../lib/use-server-submit';
 import { useRecordTreatment } from '../api/record-treatment';
-import { formatDate } from '../../almanac/almanac-dates';
+import { formatDate } from '../../../lib/days';
 
 interface TreatmentFormProps {
   today: string;
@@ -18,26 +20,61 @@ interface TreatmentFormProps {
  * Records a treatment as the veterinarian prescribed it: what, dose, route, who prescribed it, the days
  * of treatment and the withdrawal (its end date, or days after the last dose; 0 when there is none).
  */
+interface TreatmentValues {
+  subject: 'animal' | 'group';
+  animalId: string;
+  groupId: string;
+  treatment: string;
+  dose: string;
+  route: TreatmentRoute | '';
+  veterinarian: string;
+  startedOn: string;
+  lastDoseOn: string;
+  withdrawalBy: 'date' | 'days';
+  withdrawalEndsOn: string;
+  withdrawalDays: string;
+  notes: string;
+}
+
+/** The schema asks for the animal or the group under `animalId`; a group's select shows it too. */
+const fieldOf = (path: string) =>
+  (['animalId', 'groupId', 'treatment', 'dose', 'route', 'veterinarian', 'startedOn', 'lastDoseOn', 'withdrawalEndsOn', 'withdrawalDays', 'notes'] as const).find((f) => f === path) ?? null;
+
 export function TreatmentForm({ today, animals, groups }: TreatmentFormProps) {
   const record = useRecordTreatment();
-  const [subject, setSubject] = useState<'animal' | 'group'>('animal');
-  const [animalId, setAnimalId] = useState('');
-  const [groupId, setGroupId] = useState('');
-  const [treatment, setTreatment] = useState('');
-  const [dose, setDose] = useState('');
-  const [route, setRoute] = useState<TreatmentRoute | ''>('');
-  const [veterinarian, setVeterinarian] = useState('');
-  const [startedOn, setStartedOn] = useState(today);
-  const [lastDoseOn, setLastDoseOn] = useState(today);
-  const [withdrawalBy, setWithdrawalBy] = useState<'date' | 'days'>('days');
-  const [withdrawalEndsOn, setWithdrawalEndsOn] = useState('');
-  const [withdrawalDays, setWithdrawalDays] = useState('');
-  const [notes, setNotes] = useState('');
+  const form = useForm<TreatmentValues, unknown, TreatmentCreateBody>({
+    resolver: sharedSchemaResolver(
+      treatmentCreateSchema,
+      (v) => ({
+        ...(v.subject === 'animal' ? { animalId: v.animalId || undefined } : { groupId: v.groupId || undefined }),
+        treatment: v.treatment, dose: v.dose, route: (v.route || undefined) as TreatmentRoute, veterinarian: v.veterinarian,
+        startedOn: v.startedOn, lastDoseOn: v.lastDoseOn, notes: v.notes,
+        ...(v.withdrawalBy === 'date'
+          ? { withdrawalEndsOn: v.withdrawalEndsOn || undefined }
+          : { withdrawalDays: v.withdrawalDays.trim() === '' ? undefined : Number(v.withdrawalDays) }),
+      }),
+      (path, values) => (path === 'animalId' && values.subject === 'group' ? 'groupId' : fieldOf(path)),
+    ),
+    defaultValues: {
+      subject: 'animal', animalId: '', groupId: '', treatment: '', dose: '', route: '', veterinarian: '',
+      startedOn: today, lastDoseOn: today, withdrawalBy: 'days', withdrawalEndsOn: '', withdrawalDays: '', notes: '',
+    },
+  });
+  const { errors } = form.formState;
   const [saved, setSaved] = useState<string | null>(null);
-  const errors = fieldErrors(record.error);
+  const { submit, failure } = useServerSubmit(form, record, {
+    fields: (path) => (path === 'animalId' && form.getValues('subject') === 'group' ? 'groupId' : fieldOf(path)),
+    onSuccess: (t) => {
+      setSaved(`Saved: ${t.treatment}, under withdrawal through ${formatDate(t.withdrawalEndsOn)}.`);
+      form.reset({ ...form.getValues(), treatment: '', dose: '', notes: '' });
+    },
+  });
 
-  const days = withdrawalDays.trim() === '' ? null : Number(withdrawalDays);
-  const endsOn = withdrawalBy === 'date' ? withdrawalEndsOn || null : days !== null && Number.isInteger(days) && days >= 0 && lastDoseOn ? addDays(lastDoseOn, days) : null;
+  const v = form.watch();
+  const subject = v.subject;
+  const withdrawalBy = v.withdrawalBy;
+  const days = v.withdrawalDays.trim() === '' ? null : Number(v.withdrawalDays);
+  const endsOn = withdrawalBy === 'date' ? v.withdrawalEndsOn || null : days !== null && Number.isInteger(days) && days >= 0 && v.lastDoseOn ? addDays(v.lastDoseOn, days) : null;
 
   return (
     <form
@@ -45,25 +82,8 @@ export function TreatmentForm({ today, animals, groups }: TreatmentFormProps) {
       aria-label="Record a treatment"
       className="space-y-4"
       onSubmit={(e) => {
-        e.preventDefault();
         setSaved(null);
-        record.mutate(
-          {
-            ...(subject === 'animal' ? { animalId: animalId || undefined } : { groupId: groupId || undefined }),
-            treatment, dose, route: (route || undefined) as TreatmentRoute, veterinarian, startedOn, lastDoseOn, notes,
-            ...(withdrawalBy === 'date'
-              ? { withdrawalEndsOn: withdrawalEndsOn || undefined }
-              : { withdrawalDays: withdrawalDays.trim() === '' ? undefined : Number(withdrawalDays) }),
-          },
-          {
-            onSuccess: (t) => {
-              setSaved(`Saved: ${t.treatment}, under withdrawal through ${formatDate(t.withdrawalEndsOn)}.`);
-              setTreatment('');
-              setDose('');
-              setNotes('');
-            },
-          },
-        );
+        return submit(e);
       }}
     >
       {groups && (
@@ -72,7 +92,7 @@ export function TreatmentForm({ today, animals, groups }: TreatmentFormProps) {
           <div className="flex flex-wrap gap-x-6">
             {(['animal', 'group'] as const).map((kind) => (
               <label key={kind} className="flex min-h-11 cursor-pointer items-center gap-3">
-                <input type="radio" name="treated" className="size-6 accent-moss" checked={subject === kind} onChange={() => setSubject(kind)} />
+                <input type="radio" value={kind} className="size-6 accent-moss" {...form.register('subject')} />
                 <span className="font-medium">{kind === 'animal' ? 'An animal' : 'A grow-out group'}</span>
               </label>
             ))}
@@ -83,39 +103,36 @@ export function TreatmentForm({ today, animals, groups }: TreatmentFormProps) {
         {subject === 'animal' ? (
           <SelectField
             label="Animal"
-            value={animalId}
-            onChange={(e) => setAnimalId(e.target.value)}
-            error={errors.animalId}
+            error={errors.animalId?.message}
             options={[{ value: '', label: 'Choose an animal' }, ...animals]}
+            {...form.register('animalId')}
           />
         ) : (
           <SelectField
             label="Grow-out group"
-            value={groupId}
-            onChange={(e) => setGroupId(e.target.value)}
-            error={errors.groupId ?? errors.animalId}
+            error={errors.groupId?.message}
             options={[{ value: '', label: 'Choose a group' }, ...(groups ?? [])]}
+            {...form.register('groupId')}
           />
         )}
-        <TextField label="Treatment (what was given)" value={treatment} onChange={(e) => setTreatment(e.target.value)} error={errors.treatment} />
-        <TextField label="Dose" hint="As the veterinarian prescribed, e.g. 0.2 ml per kg twice a day" value={dose} onChange={(e) => setDose(e.target.value)} error={errors.dose} />
+        <TextField label="Treatment (what was given)" error={errors.treatment?.message} {...form.register('treatment')} />
+        <TextField label="Dose" hint="As the veterinarian prescribed, e.g. 0.2 ml per kg twice a day" error={errors.dose?.message} {...form.register('dose')} />
         <SelectField
           label="Route"
-          value={route}
-          onChange={(e) => setRoute(e.target.value as TreatmentRoute | '')}
-          error={errors.route}
+          error={errors.route?.message}
           options={[{ value: '', label: 'Choose how it is given' }, ...treatmentRoutes.map((r) => ({ value: r, label: treatmentRouteLabels[r] }))]}
+          {...form.register('route')}
         />
-        <TextField label="Prescribed by (veterinarian)" value={veterinarian} onChange={(e) => setVeterinarian(e.target.value)} error={errors.veterinarian} />
-        <TextField label="First day of treatment" type="date" max={today} value={startedOn} onChange={(e) => setStartedOn(e.target.value)} error={errors.startedOn} />
-        <TextField label="Last day of treatment" type="date" value={lastDoseOn} onChange={(e) => setLastDoseOn(e.target.value)} error={errors.lastDoseOn} />
+        <TextField label="Prescribed by (veterinarian)" error={errors.veterinarian?.message} {...form.register('veterinarian')} />
+        <TextField label="First day of treatment" type="date" max={today} error={errors.startedOn?.message} {...form.register('startedOn')} />
+        <TextField label="Last day of treatment" type="date" error={errors.lastDoseOn?.message} {...form.register('lastDoseOn')} />
       </div>
       <fieldset className="space-y-3 rounded-xl border-2 border-oat p-4">
         <legend className="px-1 font-semibold">Withdrawal set by the veterinarian</legend>
         <div className="flex flex-wrap gap-x-6">
           {(['days', 'date'] as const).map((way) => (
             <label key={way} className="flex min-h-11 cursor-pointer items-center gap-3">
-              <input type="radio" name="withdrawal-by" className="size-6 accent-moss" checked={withdrawalBy === way} onChange={() => setWithdrawalBy(way)} />
+              <input type="radio" value={way} className="size-6 accent-moss" {...form.register('withdrawalBy')} />
               <span className="font-medium">{way === 'days' ? 'Days after the last dose' : 'Ends on a date'}</span>
             </label>
           ))}
@@ -127,12 +144,11 @@ export function TreatmentForm({ today, animals, groups }: TreatmentFormProps) {
             type="number"
             inputMode="numeric"
             min={0}
-            value={withdrawalDays}
-            onChange={(e) => setWithdrawalDays(e.target.value)}
-            error={errors.withdrawalDays ?? errors.withdrawalEndsOn}
+            error={errors.withdrawalDays?.message ?? errors.withdrawalEndsOn?.message}
+            {...form.register('withdrawalDays')}
           />
         ) : (
-          <TextField label="Withdrawal ends on" type="date" min={lastDoseOn} value={withdrawalEndsOn} onChange={(e) => setWithdrawalEndsOn(e.target.value)} error={errors.withdrawalEndsOn} />
+          <TextField label="Withdrawal ends on" type="date" min={v.lastDoseOn} error={errors.withdrawalEndsOn?.message} {...form.register('withdrawalEndsOn')} />
         )}
         {endsOn && (
           <p className="text-sm text-bark">
@@ -140,8 +156,8 @@ export function TreatmentForm({ today, animals, groups }: TreatmentFormProps) {
           </p>
         )}
       </fieldset>
-      <TextField label="Notes (optional)" value={notes} onChange={(e) => setNotes(e.target.value)} error={errors.notes} />
-      {record.isError && Object.keys(errors).length === 0 && <p role="alert" className="text-sm font-medium text-clay-deep">{errorText(record.error)}</p>}
+      <TextField label="Notes (optional)" error={errors.notes?.message} {...form.register('notes')} />
+      {failure && <p role="alert" className="text-sm font-medium text-clay-deep">{failure}</p>}
       {saved && <p role="status" className="text-sm font-medium text-moss-deep">{saved}</p>}
       <Button type="submit" isBusy={record.isPending}>
         Save the treatment

@@ -3,8 +3,8 @@ import { createColumnHelper, getCoreRowModel, useReactTable } from '@tanstack/re
 import { treatmentRouteLabels, type TreatmentDto } from '@burrowline/shared';
 import { Badge } from '../../../components/ui/badge';
 import { DataTable } from '../../../components/ui/data-table';
-import { formatDate } from '../../almanac/almanac-dates';
-import { subjectName } from './withdrawals-card';
+import { formatDate } from '../../../lib/days';
+import { subjectName } from '../../../lib/names';
 
 const column = createColumnHelper<TreatmentDto>();
 

@@ -1,12 +1,7 @@
 import type { WithdrawalDto } from '@burrowline/shared';
 import { Card } from '../../../components/ui/card';
-import { animalName } from '../../almanac/components/open-services';
-import { formatDate } from '../../almanac/almanac-dates';
-
-export function subjectName(w: { animal: { name: string; tattoo: string | null } | null; group: { name: string } | null }): string {
-  if (w.animal) return animalName(w.animal);
-  return w.group ? `Group ${w.group.name}` : 'Unknown';
-}
+import { subjectName } from '../../../lib/names';
+import { formatDate } from '../../../lib/days';
 
 /** What is under a veterinarian's withdrawal today: it may be neither marked for processing nor processed until it clears. */
 export function WithdrawalsCard({ withdrawals }: { withdrawals: WithdrawalDto[] }) {

@@ -1,9 +1,9 @@
 import { useQuery } from '@tanstack/react-query';
 import { animalListQuerySchema } from '@burrowline/shared';
 import type { SelectOption } from '../../../components/ui/select-field';
-import { animalName } from '../../almanac/components/open-services';
-import { groupsQueryOptions } from '../../growout/api/get-groups';
-import { herdQueryOptions } from '../../herd/api/get-herd';
+import { animalName } from '../../../lib/names';
+import { groupsQueryOptions } from '../../grow-out';
+import { herdQueryOptions } from '../../herd';
 
 const herdQuery = animalListQuerySchema.parse({ status: 'current', pageSize: 200 });
 

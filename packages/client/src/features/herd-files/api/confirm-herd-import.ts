@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { HerdImportDto } from '@burrowline/shared';
 import { apiFetch } from '../../../lib/api-client';
-import { herdKeys } from '../../herd/api/herd-keys';
+import { herdKeys } from '../../herd';
 import { herdFileKeys } from './herd-file-keys';
 
 export function confirmHerdImport(importId: string, idempotencyKey: string): Promise<HerdImportDto> {

@@ -1,5 +1,5 @@
 import type { HerdImportRowsQuery } from '@burrowline/shared';
-import { herdKeys } from '../../herd/api/herd-keys';
+import { herdKeys } from '../../herd';
 
 export const herdFileKeys = {
   import: (importId: string, query: HerdImportRowsQuery) => [...herdKeys.all, 'imports', importId, query] as const,

@@ -1,6 +1,6 @@
 import { useQuery } from '@tanstack/react-query';
 import type { WeightUnit } from '@burrowline/shared';
-import { farmDetailQueryOptions } from '../../farms/api/get-farm';
+import { farmDetailQueryOptions } from '../../farms';
 import { useSession } from '../../../lib/session';
 
 /** The signed-in person's farm's weight units (pounds and ounces until the farm says otherwise). */

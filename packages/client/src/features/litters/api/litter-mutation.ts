@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { LitterDto } from '@burrowline/shared';
-import { almanacKeys } from '../../almanac/api/almanac-keys';
+import { almanacKeys } from '../../almanac';
 import { litterKeys } from './litter-keys';
 
 /** Every change to a litter answers with the litter as it is now; its tasks live in the Almanac too. */

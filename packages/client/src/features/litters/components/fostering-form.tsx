@@ -1,13 +1,25 @@
-import { useState } from 'react';
-import type { LitterDto } from '@burrowline/shared';
+import { useForm } from 'react-hook-form';
+import { fosteringCreateSchema, type FosteringCreateInput, type LitterDto } from '@burrowline/shared';
 import { Button } from '../../../components/ui/button';
 import { SelectField } from '../../../components/ui/select-field';
 import { TextField } from '../../../components/ui/text-field';
-import { animalName } from '../../almanac/components/open-services';
-import { formatDate } from '../../almanac/almanac-dates';
-import { errorText, fieldErrors } from '../../almanac/error-text';
+import { animalName } from '../../../lib/names';
+import { formatDate } from '../../../lib/days';
+import { sharedSchemaResolver } from '../../../lib/shared-schema-resolver';
+import { typedNumber } from '../../../lib/typed-number';
+import { useServerSubmit } from '../../../lib/use-server-submit';
 import { useFosterCandidates } from '../api/get-foster-candidates';
 import { useRecordFostering } from '../api/record-fostering';
+
+interface FosteringValues {
+  direction: 'out' | 'in';
+  otherLitterId: string;
+  on: string;
+  count: string;
+}
+
+/** The server also answers for the other litter's count ("otherLitter.count"): that is the count typed here. */
+const fieldOf = (path: string) => (path === 'otherLitter.count' ? 'count' : (['direction', 'otherLitterId', 'on', 'count'] as const).find((f) => f === path) ?? null);
 
 /**
  * Kits moved to another doe's litter of about the same age, or taken in from one of this farm. A
@@ -16,39 +28,30 @@ import { useRecordFostering } from '../api/record-fostering';
 export function FosteringForm({ litter, today }: { litter: LitterDto; today: string }) {
   const candidates = useFosterCandidates(litter.id, true);
   const record = useRecordFostering(litter.id);
-  const [direction, setDirection] = useState<'out' | 'in'>('out');
-  const [otherLitterId, setOtherLitterId] = useState('');
-  const [on, setOn] = useState(today);
-  const [count, setCount] = useState('1');
-  const errors = fieldErrors(record.error);
+  const form = useForm<FosteringValues, unknown, FosteringCreateInput>({
+    resolver: sharedSchemaResolver(fosteringCreateSchema, (v) => ({ ...v, count: typedNumber(v.count) }), fieldOf),
+    defaultValues: { direction: 'out', otherLitterId: '', on: today, count: '1' },
+  });
+  const { errors } = form.formState;
+  const direction = form.watch('direction');
+  const { submit, failure } = useServerSubmit(form, record, { fields: fieldOf, onSuccess: () => form.setValue('otherLitterId', '') });
   const list = (candidates.data?.candidates ?? []).filter((c) => direction === 'out' || c.isOwnFarm);
   return (
-    <form
-      noValidate
-      aria-label="Record a fostering"
-      className="space-y-4"
-      onSubmit={(e) => {
-        e.preventDefault();
-        record.mutate({ direction, otherLitterId, on, count: Number(count === '' ? NaN : count) }, { onSuccess: () => setOtherLitterId('') });
-      }}
-    >
+    <form noValidate aria-label="Record a fostering" className="space-y-4" onSubmit={submit}>
       <div className="grid gap-4 sm:grid-cols-2">
         <SelectField
           label="Which way"
-          value={direction}
-          onChange={(e) => setDirection(e.target.value as 'out' | 'in')}
           options={[
             { value: 'out', label: 'Fostered out of this litter' },
             { value: 'in', label: 'Fostered in to this litter' },
           ]}
-          error={errors.direction}
+          error={errors.direction?.message}
+          {...form.register('direction')}
         />
         <SelectField
           label={direction === 'out' ? 'To the litter of' : 'From the litter of'}
           hint={list.length === 0 ? 'No nursing litter kindled within a week of this one.' : 'Nursing litters kindled within a week of this one; another farm\'s only to foster out to.'}
-          value={otherLitterId}
-          onChange={(e) => setOtherLitterId(e.target.value)}
-          error={errors.otherLitterId}
+          error={errors.otherLitterId?.message}
           options={[
             { value: '', label: 'Choose the other litter' },
             ...list.map((c) => ({
@@ -56,11 +59,12 @@ export function FosteringForm({ litter, today }: { litter: LitterDto; today: str
               label: `${animalName(c.dam)}, kindled ${formatDate(c.kindledOn)}${c.isOwnFarm ? ` (${c.onDoe} with her)` : ` — ${c.farm.name}`}`,
             })),
           ]}
+          {...form.register('otherLitterId')}
         />
-        <TextField label="On" type="date" max={today} value={on} onChange={(e) => setOn(e.target.value)} error={errors.on} />
-        <TextField label="Number of kits" type="number" inputMode="numeric" min={1} value={count} onChange={(e) => setCount(e.target.value)} error={errors.count ?? errors['otherLitter.count']} />
+        <TextField label="On" type="date" max={today} error={errors.on?.message} {...form.register('on')} />
+        <TextField label="Number of kits" type="number" inputMode="numeric" min={1} error={errors.count?.message} {...form.register('count')} />
       </div>
-      {record.isError && Object.keys(errors).length === 0 && <p role="alert" className="text-sm font-medium text-clay-deep">{errorText(record.error)}</p>}
+      {failure && <p role="alert" className="text-sm font-medium text-clay-deep">{failure}</p>}
       <Button type="submit" isBusy={record.isPending}>
         Save the fostering
       </Button>

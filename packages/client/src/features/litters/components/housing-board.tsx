@@ -1,31 +1,56 @@
-import { useState } from 'react';
 import { useQuery } from '@tanstack/react-query';
-import type { HousingKind, HousingUnitDto } from '@burrowline/shared';
+import { useForm } from 'react-hook-form';
+import {
+  housingUnitCreateSchema,
+  placementCreateSchema,
+  type HousingKind,
+  type HousingUnitCreateInput,
+  type HousingUnitDto,
+  type PlacementCreateInput,
+} from '@burrowline/shared';
 import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { SelectField } from '../../../components/ui/select-field';
 import { TextField } from '../../../components/ui/text-field';
-import { breedingStockQueryOptions } from '../../almanac/api/get-breeding-stock';
-import { formatDate } from '../../almanac/almanac-dates';
-import { animalName } from '../../almanac/components/open-services';
-import { errorText, fieldErrors } from '../../almanac/error-text';
+import { breedingStockQueryOptions } from '../../almanac';
+import { formatDate } from '../../../lib/days';
+import { animalName } from '../../../lib/names';
+import { errorText } from '../../../lib/form-errors';
+import { sharedSchemaResolver } from '../../../lib/shared-schema-resolver';
+import { useServerSubmit } from '../../../lib/use-server-submit';
 import { littersQueryOptions } from '../api/get-litters';
 import { useCreateHousingUnit, useEndPlacement, useHousingUnits, usePlaceInUnit } from '../api/housing';
 
 const kindWords: Record<HousingKind, string> = { hutch: 'Hutch', pen: 'Pen', colony: 'Colony', grow_out: 'Grow-out pen' };
+
+/** One select names an animal or a litter ("animal:<id>", "litter:<id>"); every placement error shows under it. */
+const placementResolver = (today: string) =>
+  sharedSchemaResolver<{ who: string }, PlacementCreateInput>(
+    placementCreateSchema,
+    ({ who }) => {
+      const [type, id] = who.split(':');
+      return { ...(type === 'animal' ? { animalId: id } : type === 'litter' ? { litterId: id } : {}), placedOn: today, note: '' };
+    },
+    () => 'who',
+  );
 
 function UnitCard({ unit, today, canEdit }: { unit: HousingUnitDto; today: string; canEdit: boolean }) {
   const stock = useQuery({ ...breedingStockQueryOptions(), enabled: canEdit });
   const litters = useQuery({ ...littersQueryOptions({ status: 'all' }), enabled: canEdit });
   const place = usePlaceInUnit();
   const end = useEndPlacement();
-  const [who, setWho] = useState('');
+  const form = useForm<{ who: string }, unknown, PlacementCreateInput>({ resolver: placementResolver(today), defaultValues: { who: '' } });
+  const { submit } = useServerSubmit(
+    form,
+    { mutate: (input: PlacementCreateInput, options) => place.mutate({ unitId: unit.id, input }, options), reset: place.reset, error: place.error },
+    { fields: () => 'who', onSuccess: () => form.reset({ who: '' }) },
+  );
   const options = [
     { value: '', label: 'Move in…' },
     ...[...(stock.data?.does ?? []), ...(stock.data?.bucks ?? [])].map((a) => ({ value: `animal:${a.id}`, label: animalName(a) })),
     ...(litters.data?.litters ?? []).filter((l) => l.status === 'nursing').map((l) => ({ value: `litter:${l.id}`, label: `Litter of ${animalName(l.dam)}` })),
   ];
-  const errors = fieldErrors(place.error);
+  const whoError = form.formState.errors.who?.message;
   return (
     <Card className="space-y-3">
       <div className="flex items-baseline justify-between gap-2">
@@ -54,22 +79,14 @@ function UnitCard({ unit, today, canEdit }: { unit: HousingUnitDto; today: strin
         </ul>
       )}
       {canEdit && (
-        <form
-          className="flex items-end gap-2"
-          onSubmit={(e) => {
-            e.preventDefault();
-            const [type, id] = who.split(':');
-            if (!id) return;
-            place.mutate({ unitId: unit.id, input: { ...(type === 'animal' ? { animalId: id } : { litterId: id }), placedOn: today, note: '' } }, { onSuccess: () => setWho('') });
-          }}
-        >
-          <SelectField label={`Move into ${unit.name}`} value={who} onChange={(e) => setWho(e.target.value)} options={options} className="flex-1" error={errors.animalId ?? errors.litterId ?? errors.placedOn} />
+        <form noValidate className="flex items-end gap-2" onSubmit={submit}>
+          <SelectField label={`Move into ${unit.name}`} options={options} className="flex-1" error={whoError} {...form.register('who')} />
           <Button type="submit" variant="secondary" isBusy={place.isPending}>
             Move in
           </Button>
         </form>
       )}
-      {(place.isError || end.isError) && !errors.animalId && !errors.litterId && !errors.placedOn && (
+      {(place.isError || end.isError) && (
         <p role="alert" className="text-sm font-medium text-clay-deep">{errorText(place.error ?? end.error)}</p>
       )}
     </Card>
@@ -80,22 +97,19 @@ function UnitCard({ unit, today, canEdit }: { unit: HousingUnitDto; today: strin
 export function HousingBoard({ today, canEdit }: { today: string; canEdit: boolean }) {
   const units = useHousingUnits();
   const create = useCreateHousingUnit();
-  const [name, setName] = useState('');
-  const [kind, setKind] = useState<HousingKind>('hutch');
-  const errors = fieldErrors(create.error);
+  const form = useForm<{ name: string; kind: HousingKind }, unknown, HousingUnitCreateInput>({
+    resolver: sharedSchemaResolver(housingUnitCreateSchema, (v) => ({ ...v, capacity: null, notes: '' })),
+    defaultValues: { name: '', kind: 'hutch' },
+  });
+  const { errors } = form.formState;
+  const { submit } = useServerSubmit(form, create, { onSuccess: () => form.reset({ ...form.getValues(), name: '' }) });
   return (
     <div className="space-y-6">
       {canEdit && (
         <Card>
-          <form
-            className="grid items-end gap-4 sm:grid-cols-[1fr_1fr_auto]"
-            onSubmit={(e) => {
-              e.preventDefault();
-              create.mutate({ name, kind, capacity: null, notes: '' }, { onSuccess: () => setName('') });
-            }}
-          >
-            <TextField label="New hutch or pen" value={name} onChange={(e) => setName(e.target.value)} error={errors.name} />
-            <SelectField label="Kind" value={kind} onChange={(e) => setKind(e.target.value as HousingKind)} options={Object.entries(kindWords).map(([value, label]) => ({ value, label }))} />
+          <form noValidate className="grid items-end gap-4 sm:grid-cols-[1fr_1fr_auto]" onSubmit={submit}>
+            <TextField label="New hutch or pen" error={errors.name?.message} {...form.register('name')} />
+            <SelectField label="Kind" options={Object.entries(kindWords).map(([value, label]) => ({ value, label }))} error={errors.kind?.message} {...form.register('kind')} />
             <Button type="submit" isBusy={create.isPending}>
               Add
             </Button>

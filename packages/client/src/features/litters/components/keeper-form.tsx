@@ -1,48 +1,55 @@
-import { useState } from 'react';
-import type { LitterDto } from '@burrowline/shared';
+import { useForm } from 'react-hook-form';
+import { keeperCreateSchema, type KeeperCreateInput, type LitterDto } from '@burrowline/shared';
 import { Button } from '../../../components/ui/button';
 import { SelectField } from '../../../components/ui/select-field';
 import { TextField } from '../../../components/ui/text-field';
-import { animalName } from '../../almanac/components/open-services';
-import { errorText, fieldErrors } from '../../almanac/error-text';
+import { animalName } from '../../../lib/names';
+import { sharedSchemaResolver } from '../../../lib/shared-schema-resolver';
+import { useServerSubmit } from '../../../lib/use-server-submit';
 import { useAddKeeper } from '../api/add-keeper';
+
+interface KeeperValues {
+  tattoo: string;
+  name: string;
+  sex: 'doe' | 'buck';
+  bornInLitterId: string;
+}
 
 /** A kit kept for breeding gets its own record; its sire, dam and birth date come from the litter it was born in. */
 export function KeeperForm({ litter }: { litter: LitterDto }) {
   const add = useAddKeeper(litter.id);
-  const [tattoo, setTattoo] = useState('');
-  const [name, setName] = useState('');
-  const [sex, setSex] = useState<'doe' | 'buck'>('doe');
-  const [bornIn, setBornIn] = useState(litter.id);
-  const errors = fieldErrors(add.error);
+  const form = useForm<KeeperValues, unknown, KeeperCreateInput>({
+    resolver: sharedSchemaResolver(keeperCreateSchema, ({ tattoo, name, sex, bornInLitterId }) => ({
+      tattoo,
+      name,
+      sex,
+      colour: '',
+      // This litter is the default; only a kit fostered in names the litter it was born in.
+      ...(bornInLitterId !== litter.id ? { bornInLitterId } : {}),
+    })),
+    defaultValues: { tattoo: '', name: '', sex: 'doe', bornInLitterId: litter.id },
+  });
+  const { errors } = form.formState;
+  const { submit, failure } = useServerSubmit(form, add, { onSuccess: () => form.reset({ ...form.getValues(), tattoo: '', name: '' }) });
   return (
-    <form
-      noValidate
-      aria-label="Keep a kit"
-      className="space-y-4"
-      onSubmit={(e) => {
-        e.preventDefault();
-        add.mutate({ tattoo, name, sex, colour: '', ...(bornIn !== litter.id ? { bornInLitterId: bornIn } : {}) }, { onSuccess: () => { setTattoo(''); setName(''); } });
-      }}
-    >
+    <form noValidate aria-label="Keep a kit" className="space-y-4" onSubmit={submit}>
       <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
-        <TextField label="Ear tattoo" value={tattoo} onChange={(e) => setTattoo(e.target.value)} error={errors.tattoo} />
-        <TextField label="Name (optional)" value={name} onChange={(e) => setName(e.target.value)} error={errors.name} />
-        <SelectField label="Sex" value={sex} onChange={(e) => setSex(e.target.value as 'doe' | 'buck')} options={[{ value: 'doe', label: 'Doe' }, { value: 'buck', label: 'Buck' }]} />
+        <TextField label="Ear tattoo" error={errors.tattoo?.message} {...form.register('tattoo')} />
+        <TextField label="Name (optional)" error={errors.name?.message} {...form.register('name')} />
+        <SelectField label="Sex" options={[{ value: 'doe', label: 'Doe' }, { value: 'buck', label: 'Buck' }]} error={errors.sex?.message} {...form.register('sex')} />
         {litter.fosteredInFrom.length > 0 && (
           <SelectField
             label="Born in"
-            value={bornIn}
-            onChange={(e) => setBornIn(e.target.value)}
-            error={errors.bornInLitterId}
+            error={errors.bornInLitterId?.message}
             options={[
               { value: litter.id, label: `This litter (${animalName(litter.dam)})` },
               ...litter.fosteredInFrom.map((l) => ({ value: l.id, label: `Fostered in: ${l.dam ? animalName(l.dam) : 'another doe'}'s litter` })),
             ]}
+            {...form.register('bornInLitterId')}
           />
         )}
       </div>
-      {add.isError && Object.keys(errors).length === 0 && <p role="alert" className="text-sm font-medium text-clay-deep">{errorText(add.error)}</p>}
+      {failure && <p role="alert" className="text-sm font-medium text-clay-deep">{failure}</p>}
       <Button type="submit" variant="secondary" isBusy={add.isPending}>
         Keep this kit
       </Button>

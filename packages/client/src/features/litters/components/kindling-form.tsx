@@ -1,48 +1,42 @@
-import { useState } from 'react';
+import { useForm } from 'react-hook-form';
 import { useNavigate } from 'react-router-dom';
-import { ErrorCode } from '@burrowline/shared';
+import { kindlingCreateSchema, type KindlingCreateBody } from '@burrowline/shared';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
+import { ConfirmWarnings } from '../../../components/ui/confirm-warnings';
 import { TextField } from '../../../components/ui/text-field';
-import { isApiError } from '../../../lib/api-client';
-import { fieldErrors } from '../../almanac/error-text';
+import { typedNumber } from '../../../lib/typed-number';
+import { sharedSchemaResolver } from '../../../lib/shared-schema-resolver';
+import { useServerSubmit } from '../../../lib/use-server-submit';
 import { useRecordKindling } from '../api/record-kindling';
+
+interface KindlingValues {
+  kindledOn: string;
+  bornAlive: string;
+  bornDead: string;
+}
 
 /** The kindling of a service: the date, born alive and born dead; the litter's plan follows from the real date. */
 export function KindlingForm({ serviceId, today }: { serviceId: string; today: string }) {
   const record = useRecordKindling();
   const navigate = useNavigate();
-  const [kindledOn, setKindledOn] = useState(today);
-  const [bornAlive, setBornAlive] = useState('');
-  const [bornDead, setBornDead] = useState('0');
-  const errors = fieldErrors(record.error);
-  const needsConfirm = isApiError(record.error, ErrorCode.confirmationRequired);
-  const send = (confirm: boolean) =>
-    record.mutate(
-      { serviceId, kindledOn, bornAlive: Number(bornAlive === '' ? NaN : bornAlive), bornDead: Number(bornDead === '' ? NaN : bornDead), ...(confirm ? { confirm: true } : {}) },
-      { onSuccess: (litter) => navigate(`/litters/${litter.id}`, { state: { kindled: true } }) },
-    );
+  const form = useForm<KindlingValues, unknown, KindlingCreateBody>({
+    resolver: sharedSchemaResolver(kindlingCreateSchema, (v) => ({ serviceId, kindledOn: v.kindledOn, bornAlive: typedNumber(v.bornAlive), bornDead: typedNumber(v.bornDead) })),
+    defaultValues: { kindledOn: today, bornAlive: '', bornDead: '0' },
+  });
+  const { errors } = form.formState;
+  const { submit, confirm, warnings, failure } = useServerSubmit(form, record, {
+    onSuccess: (litter) => navigate(`/litters/${litter.id}`, { state: { kindled: true } }),
+  });
   return (
-    <form
-      noValidate
-      aria-label="Record the kindling"
-      className="space-y-4"
-      onSubmit={(e) => {
-        e.preventDefault();
-        send(false);
-      }}
-    >
+    <form noValidate aria-label="Record the kindling" className="space-y-4" onSubmit={submit}>
       <div className="grid gap-4 sm:grid-cols-3">
-        <TextField label="Kindled on" type="date" max={today} value={kindledOn} onChange={(e) => setKindledOn(e.target.value)} error={needsConfirm ? undefined : errors.kindledOn} />
-        <TextField label="Born alive" type="number" inputMode="numeric" min={0} value={bornAlive} onChange={(e) => setBornAlive(e.target.value)} error={errors.bornAlive} />
-        <TextField label="Born dead" type="number" inputMode="numeric" min={0} value={bornDead} onChange={(e) => setBornDead(e.target.value)} error={errors.bornDead} />
+        <TextField label="Kindled on" type="date" max={today} error={errors.kindledOn?.message} {...form.register('kindledOn')} />
+        <TextField label="Born alive" type="number" inputMode="numeric" min={0} error={errors.bornAlive?.message} {...form.register('bornAlive')} />
+        <TextField label="Born dead" type="number" inputMode="numeric" min={0} error={errors.bornDead?.message} {...form.register('bornDead')} />
       </div>
-      {needsConfirm && (
-        <Alert tone="warning" title="Check before saving" actions={<Button onClick={() => send(true)}>Save anyway</Button>}>
-          {errors.kindledOn}
-        </Alert>
-      )}
-      {record.isError && !needsConfirm && Object.keys(errors).length === 0 && <Alert tone="error">{record.error.message}</Alert>}
+      <ConfirmWarnings warnings={warnings} onConfirm={confirm} isBusy={record.isPending} />
+      {failure && <Alert tone="error">{failure}</Alert>}
       <Button type="submit" isBusy={record.isPending}>
         Save the kindling
       </Button>

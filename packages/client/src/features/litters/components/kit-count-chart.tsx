@@ -1,5 +1,5 @@
 import { daysBetween } from '@burrowline/shared';
-import { formatDate } from '../../almanac/almanac-dates';
+import { formatDate } from '../../../lib/days';
 
 /** Kits with the doe over the days since the kindling: a step line, with the count at each change. */
 export function KitCountChart({ history, today }: { history: { on: string; count: number }[]; today: string }) {

@@ -1,11 +1,12 @@
-import { useState } from 'react';
-import { ErrorCode, weightInputToGrams, type LitterDto, type WeightUnit } from '@burrowline/shared';
-import { Alert } from '../../../components/ui/alert';
+import { useForm } from 'react-hook-form';
+import { litterEventCreateSchema, weightInputToGrams, type LitterDto, type LitterEventCreateInput, type WeightUnit } from '@burrowline/shared';
 import { Button } from '../../../components/ui/button';
+import { ConfirmWarnings } from '../../../components/ui/confirm-warnings';
 import { SelectField } from '../../../components/ui/select-field';
 import { TextField } from '../../../components/ui/text-field';
-import { isApiError } from '../../../lib/api-client';
-import { errorText, fieldErrors } from '../../almanac/error-text';
+import { sharedSchemaResolver } from '../../../lib/shared-schema-resolver';
+import { typedNumber } from '../../../lib/typed-number';
+import { useServerSubmit } from '../../../lib/use-server-submit';
 import { useRecordLitterEvent } from '../api/record-litter-event';
 
 const kinds = [
@@ -14,74 +15,71 @@ const kinds = [
   { value: 'culled', label: 'Culled' },
 ] as const;
 
+interface LitterEventValues {
+  kind: 'weaned' | 'lost' | 'culled';
+  on: string;
+  count: string;
+  cause: string;
+  /** The litter weight in the farm's units: pounds and ounces, or kilograms and grams. */
+  weightMajor: string;
+  weightMinor: string;
+}
+
+/** The body's weight in grams goes back to the first weight box. */
+const fieldOf = (path: string) => (path === 'weaningWeightGrams' ? 'weightMajor' : (['kind', 'on', 'count', 'cause'] as const).find((f) => f === path) ?? null);
+
 /**
  * Kits leaving the doe on a date: weaned, lost (with a cause) or culled. The count follows from these. A
  * weaning may carry the litter's total weight, typed in the farm's units (optional).
  */
 export function LitterEventForm({ litter, today, isApprentice, unit }: { litter: LitterDto; today: string; isApprentice: boolean; unit: WeightUnit }) {
   const record = useRecordLitterEvent(litter.id);
-  const [kind, setKind] = useState<'weaned' | 'lost' | 'culled'>('weaned');
-  const [on, setOn] = useState(today);
-  const [count, setCount] = useState(String(litter.onDoe || ''));
-  const [cause, setCause] = useState('');
-  const [major, setMajor] = useState('');
-  const [minor, setMinor] = useState('');
-  const [weightProblem, setWeightProblem] = useState<string | null>(null);
-  const errors = fieldErrors(record.error);
-  const needsConfirm = isApiError(record.error, ErrorCode.confirmationRequired);
-  const send = (confirm: boolean) => {
-    const typed = kind === 'weaned' && (major.trim() !== '' || minor.trim() !== '');
-    const weaningWeightGrams = typed ? weightInputToGrams(major, minor, unit) : null;
-    if (typed && weaningWeightGrams === null) return setWeightProblem('Enter the litter weight, above zero, or leave it blank');
-    setWeightProblem(null);
-    record.mutate(
-      { kind, on, count: Number(count === '' ? NaN : count), ...(cause ? { cause } : {}), ...(weaningWeightGrams ? { weaningWeightGrams } : {}), ...(confirm ? { confirm: true } : {}) },
-      { onSuccess: () => { setCause(''); setMajor(''); setMinor(''); } },
-    );
-  };
+  const form = useForm<LitterEventValues, unknown, LitterEventCreateInput>({
+    resolver: sharedSchemaResolver(
+      litterEventCreateSchema,
+      (v, refuse) => {
+        const typed = v.kind === 'weaned' && (v.weightMajor.trim() !== '' || v.weightMinor.trim() !== '');
+        const weaningWeightGrams = typed ? weightInputToGrams(v.weightMajor, v.weightMinor, unit) : null;
+        if (typed && weaningWeightGrams === null) refuse('weightMajor', 'Enter the litter weight, above zero, or leave it blank');
+        return {
+          kind: v.kind,
+          on: v.on,
+          count: typedNumber(v.count),
+          ...(v.cause && v.kind !== 'weaned' ? { cause: v.cause } : {}),
+          ...(weaningWeightGrams ? { weaningWeightGrams } : {}),
+        };
+      },
+      fieldOf,
+    ),
+    defaultValues: { kind: 'weaned', on: today, count: String(litter.onDoe || ''), cause: '', weightMajor: '', weightMinor: '' },
+  });
+  const { errors } = form.formState;
+  const kind = form.watch('kind');
+  const { submit, confirm, warnings, failure } = useServerSubmit(form, record, {
+    fields: fieldOf,
+    onSuccess: () => form.reset({ ...form.getValues(), cause: '', weightMajor: '', weightMinor: '' }),
+  });
+  const weightError = errors.weightMajor?.message;
   return (
-    <form
-      noValidate
-      aria-label="Record a change of the kit count"
-      className="space-y-4"
-      onSubmit={(e) => {
-        e.preventDefault();
-        send(false);
-      }}
-    >
+    <form noValidate aria-label="Record a change of the kit count" className="space-y-4" onSubmit={submit}>
       <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
-        <SelectField label="What happened" value={kind} onChange={(e) => setKind(e.target.value as typeof kind)} options={kinds} />
-        <TextField label="On" type="date" max={today} value={on} onChange={(e) => setOn(e.target.value)} error={errors.on} />
-        <TextField label="Kits" type="number" inputMode="numeric" min={1} value={count} onChange={(e) => setCount(e.target.value)} error={errors.count} />
-        {kind !== 'weaned' && (
-          <TextField label={kind === 'lost' ? 'Cause' : 'Reason (optional)'} value={cause} onChange={(e) => setCause(e.target.value)} error={errors.cause} />
-        )}
+        <SelectField label="What happened" options={kinds} error={errors.kind?.message} {...form.register('kind')} />
+        <TextField label="On" type="date" max={today} error={errors.on?.message} {...form.register('on')} />
+        <TextField label="Kits" type="number" inputMode="numeric" min={1} error={errors.count?.message} {...form.register('count')} />
+        {kind !== 'weaned' && <TextField label={kind === 'lost' ? 'Cause' : 'Reason (optional)'} error={errors.cause?.message} {...form.register('cause')} />}
       </div>
       {kind === 'weaned' && (
         <fieldset className="space-y-2">
           <legend className="text-sm font-medium text-bark">Litter weight at weaning (optional): all the kits weaned, together</legend>
           <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-4">
-            {unit === 'lb_oz' ? (
-              <>
-                <TextField label="Pounds" inputMode="decimal" value={major} onChange={(e) => setMajor(e.target.value)} error={weightProblem ?? (needsConfirm ? undefined : errors.weaningWeightGrams)} />
-                <TextField label="Ounces" inputMode="decimal" value={minor} onChange={(e) => setMinor(e.target.value)} />
-              </>
-            ) : (
-              <>
-                <TextField label="Kilograms" inputMode="decimal" value={major} onChange={(e) => setMajor(e.target.value)} error={weightProblem ?? (needsConfirm ? undefined : errors.weaningWeightGrams)} />
-                <TextField label="Grams" inputMode="numeric" value={minor} onChange={(e) => setMinor(e.target.value)} />
-              </>
-            )}
+            <TextField label={unit === 'lb_oz' ? 'Pounds' : 'Kilograms'} inputMode="decimal" error={weightError} {...form.register('weightMajor')} />
+            <TextField label={unit === 'lb_oz' ? 'Ounces' : 'Grams'} inputMode={unit === 'lb_oz' ? 'decimal' : 'numeric'} {...form.register('weightMinor')} />
           </div>
         </fieldset>
       )}
-      {needsConfirm && (
-        <Alert tone="warning" title="Check before saving" actions={<Button onClick={() => send(true)}>Save anyway</Button>}>
-          {errors.weaningWeightGrams}
-        </Alert>
-      )}
+      <ConfirmWarnings warnings={warnings} onConfirm={confirm} isBusy={record.isPending} />
       {isApprentice && <p className="text-sm text-grey-600">Your entry counts as unverified until your mentor reviews it.</p>}
-      {record.isError && !needsConfirm && Object.keys(errors).length === 0 && <p role="alert" className="text-sm font-medium text-clay-deep">{errorText(record.error)}</p>}
+      {failure && <p role="alert" className="text-sm font-medium text-clay-deep">{failure}</p>}
       <Button type="submit" isBusy={record.isPending}>
         Save
       </Button>

@@ -2,9 +2,9 @@ import { Link } from 'react-router-dom';
 import { formatWeight, type LitterDto, type LitterEventDto, type WeightUnit } from '@burrowline/shared';
 import { Badge } from '../../../components/ui/badge';
 import { Button } from '../../../components/ui/button';
-import { animalName } from '../../almanac/components/open-services';
-import { formatDate } from '../../almanac/almanac-dates';
-import { errorText } from '../../almanac/error-text';
+import { animalName } from '../../../lib/names';
+import { formatDate } from '../../../lib/days';
+import { errorText } from '../../../lib/form-errors';
 import { useReviewLitterEvent } from '../api/review-litter-event';
 
 const words: Record<LitterEventDto['kind'], string> = {

@@ -9,8 +9,8 @@ import { RadioGroup } from '../../../components/ui/radio-group';
 import { SelectField } from '../../../components/ui/select-field';
 import { TextField } from '../../../components/ui/text-field';
 import { isApiError } from '../../../lib/api-client';
-import { parseBreeds } from '../../farms/components/breeds-field';
-import { timeZoneOptions } from '../../farms/time-zone-options';
+import { parseBreeds } from '../../farms';
+import { timeZoneOptions } from '../../farms';
 import { useInviteMember } from '../api/invite-member';
 import { roleDescriptions } from '../member-labels';
 

@@ -11,7 +11,7 @@ import { PageHeader } from '../../../components/ui/page-header';
 import { SelectField } from '../../../components/ui/select-field';
 import { TextAreaField } from '../../../components/ui/text-area-field';
 import { isApiError } from '../../../lib/api-client';
-import { formatDay, formatInstant } from '../../../lib/dates';
+import { formatInstantDate, formatInstant } from '../../../lib/dates';
 import { roleLabels } from '../../../lib/role-labels';
 import { useSession } from '../../../lib/session';
 import { useChangeMemberRole } from '../api/change-member-role';
@@ -198,7 +198,7 @@ export function MemberDetail({ member }: { member: MemberDto }) {
             )}
           </Fact>
           {member.mentor && <Fact term="Mentor">{member.mentor.name}</Fact>}
-          <Fact term="In the co-op since">{formatDay(member.joinedAt)}</Fact>
+          <Fact term="In the co-op since">{formatInstantDate(member.joinedAt)}</Fact>
           <Fact term="Last sign-in">{member.lastSignInAt ? formatInstant(member.lastSignInAt) : 'Never'}</Fact>
         </dl>
       </Card>

@@ -13,7 +13,7 @@ import {
 import { useMemo } from 'react';
 import type { MemberDto, MemberListView, MemberSortKey } from '@burrowline/shared';
 import { DataTable, Pagination, RowLink } from '../../../components/ui/data-table';
-import { formatDay, formatInstant } from '../../../lib/dates';
+import { formatInstantDate, formatInstant } from '../../../lib/dates';
 import { roleLabels } from '../../../lib/role-labels';
 import { MemberStatusBadge } from './member-status-badge';
 
@@ -59,7 +59,7 @@ const columns: ColumnDef<MemberDto>[] = [
     header: 'Last sign-in',
     cell: ({ row }) => (row.original.lastSignInAt ? formatInstant(row.original.lastSignInAt) : <span className="text-grey-600">Never</span>),
   },
-  { id: 'joinedAt', accessorFn: (m) => m.joinedAt, header: 'Joined', cell: ({ row }) => formatDay(row.original.joinedAt) },
+  { id: 'joinedAt', accessorFn: (m) => m.joinedAt, header: 'Joined', cell: ({ row }) => formatInstantDate(row.original.joinedAt) },
 ];
 
 interface MembersTableProps {

@@ -3,8 +3,8 @@ import { useState } from 'react';
 import type { GroupRow, WeightUnit } from '@burrowline/shared';
 import { Badge } from '../../../components/ui/badge';
 import { DataTable, RowLink } from '../../../components/ui/data-table';
-import { formatDate } from '../../almanac/almanac-dates';
-import { useMoney } from '../../growout/growout-format';
+import { formatDate } from '../../../lib/days';
+import { useMoney } from '../../../lib/money';
 import { dash, gainShort, ratio, weightOrDash, weightUnitShort, wholeDays } from '../performance-format';
 import { Figure } from './does-table';
 

@@ -1,5 +1,5 @@
-import { farmKeys } from '../../farms/api/farm-keys';
-import { herdKeys } from '../../herd/api/herd-keys';
+import { farmKeys } from '../../farms';
+import { herdKeys } from '../../herd';
 
 /** An animal's photos live under the Herd's keys (a `herd:changed` refreshes them); a farm's under the farm's. */
 export const photoKeys = {

@@ -1,9 +1,9 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { ProcessingMarkCreateBody, ProcessingMarkDto, ProcessingRecordCreateBody, ProcessingRecordDto } from '@burrowline/shared';
 import { apiFetch } from '../../../lib/api-client';
-import { growOutKeys } from '../../growout/api/growout-keys';
-import { herdKeys } from '../../herd/api/herd-keys';
-import { performanceKeys } from '../../performance/api/performance-keys';
+import { growOutKeys } from '../../grow-out';
+import { herdKeys } from '../../herd';
+import { performanceKeys } from '../../performance';
 import { processingKeys } from './keys';
 
 export function recordProcessing(input: ProcessingRecordCreateBody): Promise<ProcessingRecordDto> {

@@ -1,7 +1,9 @@
-import { useState } from 'react';
+import { useForm } from 'react-hook-form';
+import { processingMarkCreateSchema, type ProcessingMarkCreateBody } from '@burrowline/shared';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/text-field';
-import { errorText } from '../../almanac/error-text';
+import { sharedSchemaResolver } from '../../../lib/shared-schema-resolver';
+import { useServerSubmit } from '../../../lib/use-server-submit';
 import { useMarkForProcessing } from '../api/processing-mutations';
 
 /**
@@ -10,23 +12,19 @@ import { useMarkForProcessing } from '../api/processing-mutations';
  */
 export function MarkForProcessing({ animalId, groupId, today }: { animalId?: string; groupId?: string; today: string }) {
   const mark = useMarkForProcessing();
-  const [plannedOn, setPlannedOn] = useState(today);
+  const form = useForm<{ plannedOn: string }, unknown, ProcessingMarkCreateBody>({
+    resolver: sharedSchemaResolver(processingMarkCreateSchema, ({ plannedOn }) => ({ animalId, groupId, plannedOn })),
+    defaultValues: { plannedOn: today },
+  });
+  const { submit, failure } = useServerSubmit(form, mark);
   return (
-    <form
-      noValidate
-      aria-label="Mark for processing"
-      className="flex flex-wrap items-end gap-3"
-      onSubmit={(e) => {
-        e.preventDefault();
-        mark.mutate({ animalId, groupId, plannedOn });
-      }}
-    >
-      <TextField label="Planned processing day" type="date" min={today} value={plannedOn} onChange={(e) => setPlannedOn(e.target.value)} />
+    <form noValidate aria-label="Mark for processing" className="flex flex-wrap items-end gap-3" onSubmit={submit}>
+      <TextField label="Planned processing day" type="date" min={today} error={form.formState.errors.plannedOn?.message} {...form.register('plannedOn')} />
       <Button type="submit" variant="secondary" isBusy={mark.isPending}>
         Mark for processing
       </Button>
       {mark.isSuccess && <p role="status" className="w-full text-sm font-medium text-moss-deep">Marked for processing on {mark.data.plannedOn}.</p>}
-      {mark.isError && <p role="alert" className="w-full text-sm font-medium text-clay-deep">{errorText(mark.error)}</p>}
+      {failure && <p role="alert" className="w-full text-sm font-medium text-clay-deep">{failure}</p>}
     </form>
   );
 }

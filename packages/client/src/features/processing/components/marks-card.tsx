@@ -3,9 +3,9 @@ import type { ProcessingMarkDto } from '@burrowline/shared';
 import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { SelectField, type SelectOption } from '../../../components/ui/select-field';
-import { errorText } from '../../almanac/error-text';
-import { subjectName } from '../../health/components/withdrawals-card';
-import { formatDate } from '../../almanac/almanac-dates';
+import { errorText } from '../../../lib/form-errors';
+import { subjectName } from '../../../lib/names';
+import { formatDate } from '../../../lib/days';
 import { useCancelMark } from '../api/processing-mutations';
 import { MarkForProcessing } from './mark-for-processing';
 

@@ -1,5 +1,5 @@
-import { useWithdrawals } from '../../health/api/get-withdrawals';
-import { WithdrawalLine } from '../../health/components/withdrawals-card';
+import { useWithdrawals } from '../../health';
+import { WithdrawalLine } from '../../health';
 import { MarkForProcessing } from './mark-for-processing';
 
 /**

@@ -1,10 +1,12 @@
 import { useState } from 'react';
-import { dressOut, usdaClass, weightInputToGrams, type WeightUnit } from '@burrowline/shared';
+import { useForm } from 'react-hook-form';
+import { dressOut, processingRecordCreateSchema, usdaClass, weightInputToGrams, type ProcessingRecordCreateBody, type WeightUnit } from '@burrowline/shared';
 import { Button } from '../../../components/ui/button';
 import { SelectField, type SelectOption } from '../../../components/ui/select-field';
 import { TextField } from '../../../components/ui/text-field';
-import { errorText, fieldErrors } from '../../almanac/error-text';
-import { WeightInput } from '../../growout/components/weight-input';
+import { sharedSchemaResolver } from '../../../lib/shared-schema-resolver';
+import { useServerSubmit } from '../../../lib/use-server-submit';
+import { WeightInput } from '../../../components/ui/weight-input';
 import { useRecordProcessing } from '../api/processing-mutations';
 import { percent, usdaClassLabels } from '../processing-format';
 
@@ -16,8 +18,28 @@ interface ProcessingFormProps {
   birthDates: Map<string, string | null>;
 }
 
-type Weight = { major: string; minor: string };
-const blank: Weight = { major: '', minor: '' };
+interface ProcessingValues {
+  kind: 'animal' | 'group';
+  subjectId: string;
+  processedOn: string;
+  heads: string;
+  /** Weights in the farm's units, each as its two boxes. */
+  liveMajor: string;
+  liveMinor: string;
+  hotMajor: string;
+  hotMinor: string;
+  chilledMajor: string;
+  chilledMinor: string;
+  notes: string;
+}
+
+const processingFields = {
+  animalId: 'subjectId', groupId: 'subjectId', processedOn: 'processedOn', headCount: 'heads',
+  liveGrams: 'liveMajor', hotCarcassGrams: 'hotMajor', chilledCarcassGrams: 'chilledMajor', notes: 'notes',
+} as const;
+const fieldOf = (path: string) => processingFields[path as keyof typeof processingFields] ?? null;
+
+const blankWeights = { liveMajor: '', liveMinor: '', hotMajor: '', hotMinor: '', chilledMajor: '', chilledMinor: '' };
 
 /**
  * Records one animal from the Herd or a batch of a grow-out group's heads, in the farm's units. The
@@ -25,25 +47,41 @@ const blank: Weight = { major: '', minor: '' };
  */
 export function ProcessingForm({ today, unit, animals, groups, birthDates }: ProcessingFormProps) {
   const record = useRecordProcessing();
-  const [kind, setKind] = useState<'animal' | 'group'>('group');
-  const [subjectId, setSubjectId] = useState('');
-  const [processedOn, setProcessedOn] = useState(today);
-  const [heads, setHeads] = useState('1');
-  const [live, setLive] = useState<Weight>(blank);
-  const [hot, setHot] = useState<Weight>(blank);
-  const [chilled, setChilled] = useState<Weight>(blank);
-  const [notes, setNotes] = useState('');
+  const headsOf = (v: Pick<ProcessingValues, 'kind' | 'heads'>) => (v.kind === 'animal' ? 1 : Math.max(1, Number.parseInt(v.heads, 10) || 1));
+  const form = useForm<ProcessingValues, unknown, ProcessingRecordCreateBody>({
+    resolver: sharedSchemaResolver(
+      processingRecordCreateSchema,
+      (v) => ({
+        ...(v.kind === 'animal' ? { animalId: v.subjectId || undefined } : { groupId: v.subjectId || undefined, headCount: headsOf(v) }),
+        processedOn: v.processedOn,
+        liveGrams: weightInputToGrams(v.liveMajor, v.liveMinor, unit) ?? Number.NaN,
+        hotCarcassGrams: weightInputToGrams(v.hotMajor, v.hotMinor, unit) ?? Number.NaN,
+        chilledCarcassGrams: weightInputToGrams(v.chilledMajor, v.chilledMinor, unit),
+        notes: v.notes,
+      }),
+      fieldOf,
+    ),
+    defaultValues: { kind: 'group', subjectId: '', processedOn: today, heads: '1', ...blankWeights, notes: '' },
+  });
+  const { errors } = form.formState;
   const [saved, setSaved] = useState<string | null>(null);
-  const errors = fieldErrors(record.error);
+  const { submit, failure } = useServerSubmit(form, record, {
+    fields: fieldOf,
+    onSuccess: (r) => {
+      setSaved(`Saved: dress-out ${percent(r.hotDressOutPercent)}, ${usdaClassLabels[r.usdaClass]}.`);
+      form.reset({ ...form.getValues(), ...blankWeights, subjectId: '' });
+    },
+  });
 
-  const grams = (w: Weight) => weightInputToGrams(w.major, w.minor, unit);
-  const liveGrams = grams(live);
-  const hotGrams = grams(hot);
-  const chilledGrams = grams(chilled);
-  const headCount = kind === 'animal' ? 1 : Math.max(1, Number.parseInt(heads, 10) || 1);
+  const v = form.watch();
+  const kind = v.kind;
+  const liveGrams = weightInputToGrams(v.liveMajor, v.liveMinor, unit);
+  const hotGrams = weightInputToGrams(v.hotMajor, v.hotMinor, unit);
+  const chilledGrams = weightInputToGrams(v.chilledMajor, v.chilledMinor, unit);
+  const headCount = headsOf(v);
   const preview = liveGrams && hotGrams ? dressOut({ liveGrams, hotCarcassGrams: hotGrams, chilledCarcassGrams: chilledGrams }) : null;
   const classed = preview && !preview.invalid && hotGrams
-    ? usdaClass({ birthDate: birthDates.get(subjectId) ?? null, processedOn, carcassGrams: (chilledGrams ?? hotGrams) / headCount })
+    ? usdaClass({ birthDate: birthDates.get(v.subjectId) ?? null, processedOn: v.processedOn, carcassGrams: (chilledGrams ?? hotGrams) / headCount })
     : null;
 
   return (
@@ -52,27 +90,8 @@ export function ProcessingForm({ today, unit, animals, groups, birthDates }: Pro
       aria-label="Record processing"
       className="space-y-4"
       onSubmit={(e) => {
-        e.preventDefault();
         setSaved(null);
-        record.mutate(
-          {
-            ...(kind === 'animal' ? { animalId: subjectId || undefined } : { groupId: subjectId || undefined, headCount }),
-            processedOn,
-            liveGrams: liveGrams ?? Number.NaN,
-            hotCarcassGrams: hotGrams ?? Number.NaN,
-            chilledCarcassGrams: chilledGrams,
-            notes,
-          },
-          {
-            onSuccess: (r) => {
-              setSaved(`Saved: dress-out ${percent(r.hotDressOutPercent)}, ${usdaClassLabels[r.usdaClass]}.`);
-              setLive(blank);
-              setHot(blank);
-              setChilled(blank);
-              setSubjectId('');
-            },
-          },
-        );
+        return submit(e);
       }}
     >
       <fieldset>
@@ -80,7 +99,7 @@ export function ProcessingForm({ today, unit, animals, groups, birthDates }: Pro
         <div className="flex flex-wrap gap-x-6">
           {(['group', 'animal'] as const).map((k) => (
             <label key={k} className="flex min-h-11 cursor-pointer items-center gap-3">
-              <input type="radio" name="processed-kind" className="size-6 accent-moss" checked={kind === k} onChange={() => { setKind(k); setSubjectId(''); }} />
+              <input type="radio" value={k} className="size-6 accent-moss" {...form.register('kind', { onChange: () => form.setValue('subjectId', '') })} />
               <span className="font-medium">{k === 'group' ? 'A batch from a grow-out group' : 'One animal from the Herd'}</span>
             </label>
           ))}
@@ -89,20 +108,19 @@ export function ProcessingForm({ today, unit, animals, groups, birthDates }: Pro
       <div className="grid gap-4 md:grid-cols-2">
         <SelectField
           label={kind === 'group' ? 'Grow-out group' : 'Animal'}
-          value={subjectId}
-          onChange={(e) => setSubjectId(e.target.value)}
-          error={kind === 'group' ? (errors.groupId ?? errors.animalId) : errors.animalId}
+          error={errors.subjectId?.message}
           options={[{ value: '', label: kind === 'group' ? 'Choose a group' : 'Choose an animal' }, ...(kind === 'group' ? groups : animals)]}
+          {...form.register('subjectId')}
         />
-        <TextField label="Processed on" type="date" max={today} value={processedOn} onChange={(e) => setProcessedOn(e.target.value)} error={errors.processedOn} />
+        <TextField label="Processed on" type="date" max={today} error={errors.processedOn?.message} {...form.register('processedOn')} />
         {kind === 'group' && (
-          <TextField label="Heads processed" type="number" inputMode="numeric" min={1} value={heads} onChange={(e) => setHeads(e.target.value)} error={errors.headCount} />
+          <TextField label="Heads processed" type="number" inputMode="numeric" min={1} error={errors.heads?.message} {...form.register('heads')} />
         )}
       </div>
       <div className="grid gap-4 md:grid-cols-3">
-        <WeightInput label={kind === 'group' ? 'Live weight, all heads' : 'Live weight'} unit={unit} {...fields(live, setLive)} error={errors.liveGrams} />
-        <WeightInput label="Hot carcass" unit={unit} {...fields(hot, setHot)} error={errors.hotCarcassGrams} />
-        <WeightInput label="Chilled carcass (optional)" unit={unit} {...fields(chilled, setChilled)} error={errors.chilledCarcassGrams} />
+        <WeightInput label={kind === 'group' ? 'Live weight, all heads' : 'Live weight'} unit={unit} error={errors.liveMajor?.message} majorProps={form.register('liveMajor')} minorProps={form.register('liveMinor')} />
+        <WeightInput label="Hot carcass" unit={unit} error={errors.hotMajor?.message} majorProps={form.register('hotMajor')} minorProps={form.register('hotMinor')} />
+        <WeightInput label="Chilled carcass (optional)" unit={unit} error={errors.chilledMajor?.message} majorProps={form.register('chilledMajor')} minorProps={form.register('chilledMinor')} />
       </div>
       {preview && (
         <div aria-live="polite" className="rounded-xl bg-oat/70 p-4">
@@ -119,16 +137,12 @@ export function ProcessingForm({ today, unit, animals, groups, birthDates }: Pro
           ))}
         </div>
       )}
-      <TextField label="Notes (optional)" value={notes} onChange={(e) => setNotes(e.target.value)} error={errors.notes} />
-      {record.isError && Object.keys(errors).length === 0 && <p role="alert" className="text-sm font-medium text-clay-deep">{errorText(record.error)}</p>}
+      <TextField label="Notes (optional)" error={errors.notes?.message} {...form.register('notes')} />
+      {failure && <p role="alert" className="text-sm font-medium text-clay-deep">{failure}</p>}
       {saved && <p role="status" className="text-sm font-medium text-moss-deep">{saved}</p>}
       <Button type="submit" isBusy={record.isPending}>
         Save the processing record
       </Button>
     </form>
   );
-}
-
-function fields(value: Weight, set: (w: Weight) => void) {
-  return { major: value.major, minor: value.minor, onMajor: (major: string) => set({ ...value, major }), onMinor: (minor: string) => set({ ...value, minor }) };
 }

@@ -3,8 +3,8 @@ import { createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable, 
 import { formatWeight, type ProcessingRecordDto, type WeightUnit } from '@burrowline/shared';
 import { Badge } from '../../../components/ui/badge';
 import { DataTable } from '../../../components/ui/data-table';
-import { formatDate } from '../../almanac/almanac-dates';
-import { subjectName } from '../../health/components/withdrawals-card';
+import { formatDate } from '../../../lib/days';
+import { subjectName } from '../../../lib/names';
 import { ageText, percent, usdaClassLabels, usdaClassTone } from '../processing-format';
 
 const column = createColumnHelper<ProcessingRecordDto>();

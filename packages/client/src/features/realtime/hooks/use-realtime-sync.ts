@@ -2,18 +2,18 @@ import { useQueryClient } from '@tanstack/react-query';
 import { useEffect } from 'react';
 import { useNavigate } from 'react-router-dom';
 import { RealtimeEvent } from '@burrowline/shared';
-import { leaveSignedInArea } from '../../auth/leave-signed-in-area';
-import { almanacKeys } from '../../almanac/api/almanac-keys';
-import { applicationKeys } from '../../applications/api/application-keys';
-import { farmKeys } from '../../farms/api/farm-keys';
-import { feedKeys } from '../../feed/api/feed-keys';
-import { growOutKeys } from '../../growout/api/growout-keys';
-import { healthKeys } from '../../health/api/keys';
-import { processingKeys } from '../../processing/api/keys';
-import { herdKeys } from '../../herd/api/herd-keys';
-import { litterKeys } from '../../litters/api/litter-keys';
-import { auditKeys, memberKeys } from '../../members/api/member-keys';
-import { performanceKeys } from '../../performance/api/performance-keys';
+import { leaveSignedInArea } from '../../auth';
+import { almanacKeys } from '../../almanac';
+import { applicationKeys } from '../../applications';
+import { farmKeys } from '../../farms';
+import { feedKeys } from '../../feed';
+import { growOutKeys } from '../../grow-out';
+import { healthKeys } from '../../health';
+import { processingKeys } from '../../processing';
+import { herdKeys } from '../../herd';
+import { litterKeys } from '../../litters';
+import { auditKeys, memberKeys } from '../../members';
+import { performanceKeys } from '../../performance';
 
 /**
  * The one place where server events become cache updates. Mounted by the signed-in layout, so the

@@ -1,7 +1,7 @@
 import { queryOptions, useSuspenseQuery } from '@tanstack/react-query';
 import type { LitterChoiceDto } from '@burrowline/shared';
 import { apiFetch } from '../../../lib/api-client';
-import { growOutKeys } from './growout-keys';
+import { growOutKeys } from './grow-out-keys';
 
 export function getLitterChoices(signal?: AbortSignal): Promise<{ litters: LitterChoiceDto[] }> {
   return apiFetch<{ litters: LitterChoiceDto[] }>('/api/grow-out/litter-choices', { signal });

@@ -3,8 +3,9 @@ import { useState } from 'react';
 import type { GrowOutGroupListItemDto, ReadyByDto, WeightUnit } from '@burrowline/shared';
 import { Badge } from '../../../components/ui/badge';
 import { DataTable, RowLink } from '../../../components/ui/data-table';
-import { formatDate } from '../../almanac/almanac-dates';
-import { gainPerDay, readinessTone, weight } from '../growout-format';
+import { formatDate } from '../../../lib/days';
+import { gainPerDay, weight } from '../../../lib/weights';
+import { readinessTone } from '../grow-out-format';
 
 const column = createColumnHelper<GrowOutGroupListItemDto>();
 

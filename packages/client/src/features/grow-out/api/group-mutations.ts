@@ -1,7 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type { EntryReviewInput, GroupWeighInCreateBody, GrowOutGroupCloseInput, GrowOutGroupCreateBody, GrowOutGroupDto } from '@burrowline/shared';
 import { apiFetch } from '../../../lib/api-client';
-import { growOutKeys } from './growout-keys';
+import { growOutKeys } from './grow-out-keys';
 
 /** Every change to a group answers with the group as it is now. */
 function useGroupMutation<V>(request: (variables: V) => Promise<GrowOutGroupDto>) {

@@ -1,6 +1,6 @@
 import { CartesianGrid, ComposedChart, Line, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
 import type { GrowthChartDto, WeightUnit } from '@burrowline/shared';
-import { chartUnit, chartValue } from '../growout-format';
+import { chartUnit, chartValue } from '../../../lib/weights';
 
 /**
  * The group's mean weight by age against the co-op's average for the same breed or cross, the published

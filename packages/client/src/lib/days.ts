@@ -12,7 +12,8 @@ const monthYear = fmt({ month: 'long', year: 'numeric' });
 
 const asDate = (day: string) => new Date(`${day}T00:00:00Z`);
 
-export const formatDay = (day: string) => weekdayDay.format(asDate(day));
+/** "Tue, 4 Mar": a farm day with its weekday (instants are in ./dates). */
+export const formatWeekdayDay = (day: string) => weekdayDay.format(asDate(day));
 export const formatLongDay = (day: string) => longDay.format(asDate(day));
 export const formatDate = (day: string) => dayMonthYear.format(asDate(day));
 export const formatMonth = (day: string) => monthYear.format(asDate(day));
@@ -22,7 +23,7 @@ export function relativeDay(day: string, today: string): string {
   if (day === today) return 'Today';
   if (day === addDays(today, 1)) return 'Tomorrow';
   if (day === addDays(today, -1)) return 'Yesterday';
-  return formatDay(day);
+  return formatWeekdayDay(day);
 }
 
 export function firstOfMonth(day: string): string {

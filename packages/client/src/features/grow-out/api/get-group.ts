@@ -1,7 +1,7 @@
 import { queryOptions, useSuspenseQuery } from '@tanstack/react-query';
 import type { GrowOutGroupDto } from '@burrowline/shared';
 import { apiFetch } from '../../../lib/api-client';
-import { growOutKeys } from './growout-keys';
+import { growOutKeys } from './grow-out-keys';
 
 export function getGroup(groupId: string, signal?: AbortSignal): Promise<GrowOutGroupDto> {
   return apiFetch<GrowOutGroupDto>(`/api/grow-out/groups/${groupId}`, { signal });

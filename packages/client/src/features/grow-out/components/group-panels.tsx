@@ -1,18 +1,28 @@
-import { useState, type FormEvent } from 'react';
-import { ErrorCode, weightInputToGrams, type GrowOutGroupDto, type ScheduledWeighInState, type WeightUnit } from '@burrowline/shared';
+import { useForm, type Path } from 'react-hook-form';
+import {
+  groupWeighInCreateSchema,
+  growOutGroupCloseSchema,
+  weightInputToGrams,
+  type GroupWeighInCreateBody,
+  type GrowOutGroupCloseInput,
+  type GrowOutGroupDto,
+  type ScheduledWeighInState,
+  type WeightUnit,
+} from '@burrowline/shared';
 import { Alert } from '../../../components/ui/alert';
 import { Badge, type BadgeTone } from '../../../components/ui/badge';
 import { Button } from '../../../components/ui/button';
 import { SegmentedFilter } from '../../../components/ui/segmented-filter';
 import { TextField } from '../../../components/ui/text-field';
-import { isApiError } from '../../../lib/api-client';
-import { formatDate } from '../../almanac/almanac-dates';
-import { useFarmToday } from '../../farms/hooks/use-farm-today';
+import { sharedSchemaResolver } from '../../../lib/shared-schema-resolver';
+import { typedNumber } from '../../../lib/typed-number';
+import { useServerSubmit, type ServerMutateOptions } from '../../../lib/use-server-submit';
+import { formatDate } from '../../../lib/days';
+import { useFarmToday } from '../../farms';
 import { useCloseGroup, useReviewGroupWeighIn, useWeighGroup } from '../api/group-mutations';
-import { gainPerDay, useMoney, weight } from '../growout-format';
-import { WeightInput } from './weight-input';
-
-const fieldError = (error: unknown, field: string) => (isApiError(error) ? error.details[field]?.[0] : undefined);
+import { gainPerDay, weight } from '../../../lib/weights';
+import { useMoney } from '../../../lib/money';
+import { WeightInput } from '../../../components/ui/weight-input';
 
 const scheduleWords: Record<ScheduledWeighInState, { word: string; tone: BadgeTone }> = {
   weighed: { word: 'Weighed', tone: 'moss' },
@@ -68,32 +78,69 @@ export function ProjectionCard({ group, unit }: { group: GrowOutGroupDto; unit: 
   );
 }
 
+interface WeighInValues {
+  mode: 'total' | 'each';
+  weighedOn: string;
+  /** The total in the farm's units. */
+  major: string;
+  minor: string;
+  headCount: string;
+  kits: { label: string; major: string; minor: string }[];
+}
+
 /** A group weigh-in: the total on the scale and the head count, or each kit with an optional label. */
 export function GroupWeighInForm({ group, unit, isApprentice }: { group: GrowOutGroupDto; unit: WeightUnit; isApprentice: boolean }) {
   const save = useWeighGroup();
-  const [mode, setMode] = useState<'total' | 'each'>('total');
-  const [on, setOn] = useState(useFarmToday());
-  const [major, setMajor] = useState('');
-  const [minor, setMinor] = useState('');
-  const [count, setCount] = useState(String(group.currentHeads));
-  const [kits, setKits] = useState<{ label: string; major: string; minor: string }[]>(() => Array.from({ length: group.currentHeads }, () => ({ label: '', major: '', minor: '' })));
-  const [problem, setProblem] = useState<string | null>(null);
-
-  const submit = (event: FormEvent) => {
-    event.preventDefault();
-    if (mode === 'total') {
-      const totalGrams = weightInputToGrams(major, minor, unit);
-      if (!totalGrams) return setProblem('Enter the total weight');
-      setProblem(null);
-      save.mutate({ groupId: group.id, body: { weighedOn: on, totalGrams, headCount: Number(count) } }, { onSuccess: () => { setMajor(''); setMinor(''); } });
-    } else {
-      const weighed = kits.map((k) => ({ label: k.label.trim() || undefined, grams: weightInputToGrams(k.major, k.minor, unit) })).filter((k) => k.grams !== null);
-      if (weighed.length === 0) return setProblem('Enter at least one kit\'s weight');
-      setProblem(null);
-      save.mutate({ groupId: group.id, body: { weighedOn: on, kits: weighed.map((k) => ({ label: k.label, grams: k.grams! })) } },
-        { onSuccess: () => setKits(kits.map((k) => ({ ...k, major: '', minor: '' }))) });
+  const today = useFarmToday();
+  // Kits left blank are not sent; the body's "kits.<i>" is the i-th weighed kit, mapped back to its row.
+  const weighedRows = (kits: WeighInValues['kits']) => kits.flatMap((k, index) => (k.major.trim() !== '' || k.minor.trim() !== '' ? [index] : []));
+  const fieldOf = (path: string): Path<WeighInValues> | null => {
+    const kit = /^kits\.(\d+)\./.exec(path);
+    if (kit) {
+      const row = weighedRows(form.getValues('kits'))[Number(kit[1])];
+      return row === undefined ? null : `kits.${row}.major`;
     }
+    return ({ weighedOn: 'weighedOn', totalGrams: 'major', headCount: 'headCount' } as const)[path as 'weighedOn'] ?? null;
   };
+  const form = useForm<WeighInValues, unknown, GroupWeighInCreateBody>({
+    resolver: sharedSchemaResolver(
+      groupWeighInCreateSchema,
+      (v, refuse) => {
+        if (v.mode === 'total') {
+          return { weighedOn: v.weighedOn, totalGrams: weightInputToGrams(v.major, v.minor, unit) ?? NaN, headCount: typedNumber(v.headCount) };
+        }
+        const rows = weighedRows(v.kits);
+        if (rows.length === 0) refuse('root', "Enter at least one kit's weight");
+        return {
+          weighedOn: v.weighedOn,
+          kits: rows.map((row) => ({ label: v.kits[row]!.label.trim() || undefined, grams: weightInputToGrams(v.kits[row]!.major, v.kits[row]!.minor, unit) ?? NaN })),
+        };
+      },
+      (path) => fieldOf(path),
+    ),
+    defaultValues: {
+      mode: 'total',
+      weighedOn: today,
+      major: '',
+      minor: '',
+      headCount: String(group.currentHeads),
+      kits: Array.from({ length: group.currentHeads }, () => ({ label: '', major: '', minor: '' })),
+    },
+  });
+  const { errors } = form.formState;
+  const mode = form.watch('mode');
+  const send = {
+    mutate: (body: GroupWeighInCreateBody, options?: ServerMutateOptions<GrowOutGroupDto>) => save.mutate({ groupId: group.id, body }, options),
+    reset: save.reset,
+    error: save.error,
+  };
+  const { submit, failure } = useServerSubmit(form, send, {
+    fields: fieldOf,
+    onSuccess: () => {
+      const v = form.getValues();
+      form.reset({ ...v, major: '', minor: '', kits: v.kits.map((k) => ({ ...k, major: '', minor: '' })) });
+    },
+  });
   const small = unit === 'lb_oz' ? 'oz' : 'g';
   const big = unit === 'lb_oz' ? 'lb' : 'kg';
   return (
@@ -101,15 +148,15 @@ export function GroupWeighInForm({ group, unit, isApprentice }: { group: GrowOut
       <SegmentedFilter
         label="How was the group weighed?"
         value={mode}
-        onChange={setMode}
+        onChange={(value) => form.setValue('mode', value)}
         options={[{ value: 'total', label: 'All together' }, { value: 'each', label: 'One by one' }]}
       />
       <div className="grid gap-4 sm:grid-cols-2">
-        <TextField label="Weighed on" type="date" value={on} onChange={(e) => setOn(e.target.value)} error={fieldError(save.error, 'weighedOn')} />
+        <TextField label="Weighed on" type="date" error={errors.weighedOn?.message} {...form.register('weighedOn')} />
         {mode === 'total' && (
           <>
-            <WeightInput label="Total weight" unit={unit} major={major} minor={minor} onMajor={setMajor} onMinor={setMinor} error={problem ?? fieldError(save.error, 'totalGrams')} />
-            <TextField label="Head count" inputMode="numeric" value={count} onChange={(e) => setCount(e.target.value)} error={fieldError(save.error, 'headCount')} />
+            <WeightInput label="Total weight" unit={unit} error={errors.major?.message} majorProps={form.register('major')} minorProps={form.register('minor')} />
+            <TextField label="Head count" inputMode="numeric" error={errors.headCount?.message} {...form.register('headCount')} />
           </>
         )}
       </div>
@@ -118,24 +165,22 @@ export function GroupWeighInForm({ group, unit, isApprentice }: { group: GrowOut
           <legend className="font-semibold">Each kit</legend>
           <p className="text-sm text-grey-600">Give a kit a label (an ear mark or a tag) to follow its own gain from one weigh-in to the next.</p>
           <ul className="space-y-2">
-            {kits.map((k, i) => (
+            {form.getValues('kits').map((_, i) => (
               <li key={i} className="grid grid-cols-3 gap-2">
-                <TextField label={`Kit ${i + 1} label`} value={k.label} onChange={(e) => setKits(kits.map((x, j) => (j === i ? { ...x, label: e.target.value } : x)))} />
-                <TextField label={`Kit ${i + 1} (${big})`} inputMode="decimal" value={k.major} onChange={(e) => setKits(kits.map((x, j) => (j === i ? { ...x, major: e.target.value } : x)))}
-                  error={fieldError(save.error, `kits.${i}.grams`)} />
-                <TextField label={`Kit ${i + 1} (${small})`} inputMode="decimal" value={k.minor} onChange={(e) => setKits(kits.map((x, j) => (j === i ? { ...x, minor: e.target.value } : x)))} />
+                <TextField label={`Kit ${i + 1} label`} {...form.register(`kits.${i}.label`)} />
+                <TextField label={`Kit ${i + 1} (${big})`} inputMode="decimal" error={errors.kits?.[i]?.major?.message} {...form.register(`kits.${i}.major`)} />
+                <TextField label={`Kit ${i + 1} (${small})`} inputMode="decimal" {...form.register(`kits.${i}.minor`)} />
               </li>
             ))}
           </ul>
-          {problem && <p className="text-sm font-medium text-clay-deep">{problem}</p>}
-          {fieldError(save.error, 'kits') && <p className="text-sm font-medium text-clay-deep">{fieldError(save.error, 'kits')}</p>}
+          {errors.root?.message && <p className="text-sm font-medium text-clay-deep">{errors.root.message}</p>}
         </fieldset>
       )}
       <Button type="submit" isBusy={save.isPending}>
         Save weigh-in
       </Button>
       {save.isSuccess && <Alert tone="success">{isApprentice ? 'Saved. It counts once your mentor accepts it.' : 'Weigh-in saved; the projection is updated.'}</Alert>}
-      {save.isError && !isApiError(save.error, ErrorCode.validation) && <Alert tone="error">{save.error.message}</Alert>}
+      {failure && failure !== errors.root?.message && <Alert tone="error">{failure}</Alert>}
     </form>
   );
 }
@@ -241,22 +286,23 @@ export function FeedPanel({ group, unit }: { group: GrowOutGroupDto; unit: Weigh
 /** Closes the group on a date (kits processed, sold or kept); a second editor's change first is caught by the version. */
 export function CloseGroupForm({ group }: { group: GrowOutGroupDto }) {
   const save = useCloseGroup();
-  const [on, setOn] = useState(useFarmToday());
+  const form = useForm<{ closedOn: string }, unknown, GrowOutGroupCloseInput>({
+    resolver: sharedSchemaResolver(growOutGroupCloseSchema, (v) => ({ closedOn: v.closedOn, version: group.version })),
+    defaultValues: { closedOn: useFarmToday() },
+  });
+  const send = {
+    mutate: (body: GrowOutGroupCloseInput, options?: ServerMutateOptions<GrowOutGroupDto>) => save.mutate({ groupId: group.id, body }, options),
+    reset: save.reset,
+    error: save.error,
+  };
+  const { submit, failure } = useServerSubmit(form, send);
   return (
-    <form
-      className="flex flex-wrap items-end gap-3"
-      aria-label="Close the group"
-      noValidate
-      onSubmit={(e) => {
-        e.preventDefault();
-        save.mutate({ groupId: group.id, body: { closedOn: on, version: group.version } });
-      }}
-    >
-      <TextField label="Closed on" type="date" value={on} onChange={(e) => setOn(e.target.value)} error={fieldError(save.error, 'closedOn')} />
+    <form className="flex flex-wrap items-end gap-3" aria-label="Close the group" noValidate onSubmit={submit}>
+      <TextField label="Closed on" type="date" error={form.formState.errors.closedOn?.message} {...form.register('closedOn')} />
       <Button type="submit" variant="secondary" isBusy={save.isPending}>
         Close group
       </Button>
-      {save.isError && !fieldError(save.error, 'closedOn') && <Alert tone="error">{save.error.message}</Alert>}
+      {failure && <Alert tone="error">{failure}</Alert>}
     </form>
   );
 }

@@ -1,7 +1,7 @@
 import { queryOptions, useQuery } from '@tanstack/react-query';
 import type { GrowOutListDto } from '@burrowline/shared';
 import { apiFetch } from '../../../lib/api-client';
-import { growOutKeys } from './growout-keys';
+import { growOutKeys } from './grow-out-keys';
 
 type Filters = { status: 'growing' | 'closed' | 'all'; readyBy?: string };
 

@@ -1,0 +1,3 @@
+/** What this feature offers other features; everything else in the folder is private to it. */
+export { herdKeys } from './api/herd-keys';
+export { herdQueryOptions } from './api/get-herd';
