@@ -11,7 +11,8 @@ export default defineConfig({
     maxWorkers: workers,
     projects: [
       // Pure code with no module state: one worker runs file after file without re-importing.
-      { test: { name: 'unit', include: ['packages/*/src/**/*.test.ts'], environment: 'node', pool: 'threads', isolate: false } },
+      // The deepest pedigree checks take seconds, more while API workers share the cores.
+      { test: { name: 'unit', include: ['packages/*/src/**/*.test.ts'], environment: 'node', pool: 'threads', isolate: false, testTimeout: 30_000 } },
       {
         test: {
           name: 'api',

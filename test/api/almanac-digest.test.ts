@@ -39,7 +39,7 @@ async function scheduler(clock: () => Date, opts: { work?: boolean } = {}): Prom
 }
 
 async function finished(s: DigestScheduler, jobId: string) {
-  await expect.poll(async () => (await s.boss.getJobById('almanac-morning-digest', jobId, { includeArchive: true }))?.state, { timeout: 15_000 }).toBe('completed');
+  await expect.poll(async () => (await s.boss.getJobById('almanac-morning-digest', jobId, { includeArchive: true }))?.state, { timeout: 30_000 }).toBe('completed');
 }
 
 /** A farm with a palpation due on `morning`, and one three days late by then. */
@@ -54,7 +54,8 @@ async function farmWithTasks(morning: string) {
   return { coop, due: a, late: b };
 }
 
-describe('the opt-in morning e-mail (pg-boss job, injectable clock)', () => {
+// A run reads every farm of the test run: beside other test files it can take a while.
+describe('the opt-in morning e-mail (pg-boss job, injectable clock)', { timeout: 90_000 }, () => {
   it('when a member opted in and the clock is set to 7:20 on a chosen morning of the farm, then the e-mail lists the day\'s tasks and what is overdue', async () => {
     const morning = addDays(farmToday(), 1);
     const { coop } = await farmWithTasks(morning);

@@ -57,5 +57,5 @@ describe('backup and restore', () => {
     await cleanup.connect();
     await cleanup.query(`DROP DATABASE ${database}`);
     await cleanup.end();
-  });
+  }, 90_000); // the dump holds every co-op the run has made so far
 });

@@ -114,7 +114,9 @@ describe('reliability of the running server', () => {
         statuses.push(res?.status ?? 0);
       }
     })();
-    await new Promise((r) => setTimeout(r, 300));
+    // Counted in answers, not milliseconds: on a busy machine 300 ms may hold none.
+    const answered = (from = 0) => statuses.slice(from).filter((s) => s === 200).length;
+    await waitUntil(async () => answered() >= 3, 'the herd did not load before the restart');
     const pgCtl = path.join(postgresBinDir(), 'pg_ctl');
     const dataDir = path.join(root, '.data', CLUSTER);
     const args = ['-D', dataDir, '-l', path.join(dataDir, 'server.log'), '-m', 'fast', '-w', '-t', '30', 'restart'];
@@ -124,7 +126,8 @@ describe('reliability of the running server', () => {
     expect(restart.status).toBe(0);
     // Without restarting the server, answers come back (the pools drop dead connections and open new ones).
     await waitUntil(async () => (await agent.get('/api/animals').timeout(5000)).status === 200, 'the herd did not load again after the restart');
-    await new Promise((r) => setTimeout(r, 300));
+    const restarted = statuses.length;
+    await waitUntil(async () => answered(restarted) >= 3, 'the reads under load did not recover after the restart');
     stop = true;
     await load;
     expect(statuses.filter((s) => s === 200).length).toBeGreaterThan(5);
