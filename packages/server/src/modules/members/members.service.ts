@@ -17,6 +17,7 @@ import type { SessionUser } from '../../http/passport';
 import { AppError } from '../../lib/app-error';
 import { queueMail } from '../../lib/mail-outbox';
 import { disconnectRoom, publish } from '../../lib/realtime';
+import { revokeFeedsNoLongerAllowed } from '../almanac/calendar-feed.service';
 import { findPendingApplicationId } from '../applications/applications.service';
 import { lastSignIns, recordAudit } from '../audit/audit.service';
 import { hashToken, issueToken } from '../auth/tokens';
@@ -135,6 +136,7 @@ export async function changeMemberRole(actor: SessionUser, userId: string, input
     }
     const from = user.role;
     await setRole(user, input.role, tx);
+    await revokeFeedsNoLongerAllowed(user, tx, actor.id);
     await recordAudit(
       { coopId: actor.coopId, actorUserId: actor.id, action: 'member.role_changed', subjectType: 'User', subjectId: user.id, details: { name: user.name, from, to: input.role }, ip: ctx.ip },
       tx,
@@ -154,6 +156,7 @@ export async function disableMember(actor: SessionUser, userId: string, input: M
     assertVersion(user, input.version);
     if (user.disabledAt) throw AppError.conflict(`${user.name}'s account is already turned off.`);
     await disableUser(user, input.reason, tx);
+    await revokeFeedsNoLongerAllowed(user, tx, actor.id);
     await recordAudit(
       { coopId: actor.coopId, actorUserId: actor.id, action: 'member.disabled', subjectType: 'User', subjectId: user.id, details: { name: user.name, reason: input.reason }, ip: ctx.ip },
       tx,
@@ -328,6 +331,7 @@ export async function revokeInvitation(actor: SessionUser, userId: string, ctx: 
     invitation.set({ status: 'revoked', revokedAt: new Date(), revokedByUserId: actor.id });
     await invitation.save({ transaction: tx });
     await disableUser(user, INVITATION_WITHDRAWN, tx);
+    await revokeFeedsNoLongerAllowed(user, tx, actor.id);
     await recordAudit(
       { coopId: actor.coopId, actorUserId: actor.id, action: 'invitation.revoked', subjectType: 'User', subjectId: user.id, details: { name: user.name, email: user.email }, ip: ctx.ip },
       tx,
@@ -367,6 +371,8 @@ export async function acceptPendingInvitation(user: UserRecord, tx: Transaction,
     created = true;
   }
   await attachToFarm(user, farmId, tx);
+  // Joining another farm leaves the old one: feeds of the old farm's Almanac stop.
+  await revokeFeedsNoLongerAllowed(user, tx, user.id);
   invitation.set({ status: 'accepted', acceptedAt: new Date(), farmId });
   await invitation.save({ transaction: tx });
   await recordAudit(
