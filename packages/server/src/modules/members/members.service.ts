@@ -35,10 +35,11 @@ import {
   namesOf,
   reviveInvitee,
   setRole,
+  unsavedUser,
   type UserRecord,
 } from '../users/users.service';
 import { Invitation } from './invitation.model';
-import { invitationMail, setPasswordLinkMail } from './members.mail';
+import { invitationForAccountHolderMail, invitationMail, setPasswordLinkMail } from './members.mail';
 import { presentMember } from './members.presenter';
 
 /** Where set-password links point, how long they live, and the request's address for the audit log. */
@@ -198,6 +199,34 @@ async function isNewFarmNameClaimed(coopId: string, name: string, tx: Transactio
 }
 
 /**
+ * The answer an invitation of a new address gets, for an address whose account is in another co-op:
+ * nothing is stored, and the holder learns of it by e-mail (at most once a day per co-op), so the
+ * admin is not told that the address has an account.
+ */
+async function answerAsInvited(
+  actor: SessionUser,
+  input: InvitationInput,
+  farm: { farmName: string; existingFarmId: string | null; appUrl: string },
+  tx: Transaction,
+): Promise<MemberDto> {
+  const coopName = (await getCoop(actor.coopId, tx))?.name ?? 'the co-op';
+  const mail = invitationForAccountHolderMail({ to: input.email, inviterName: actor.name, coopName, signInUrl: `${farm.appUrl}/sign-in` });
+  const day = new Date().toISOString().slice(0, 10);
+  await queueMail(tx, `invitation-to-account-holder:${hashToken(input.email.trim().toLowerCase())}:${day}`, mail);
+  const user = unsavedUser({ coopId: actor.coopId, farmId: null, email: input.email, name: input.name, role: input.role, passwordHash: null });
+  const invitation = Invitation.build({
+    coopId: actor.coopId,
+    userId: user.id,
+    invitedByUserId: actor.id,
+    farmId: farm.existingFarmId,
+    newFarmName: input.farm.kind === 'new' ? input.farm.name : null,
+    createdAt: new Date(),
+  });
+  const farmNames = new Map(farm.existingFarmId ? [[farm.existingFarmId, farm.farmName]] : []);
+  return presentMember(user, { invitation, names: new Map([[actor.id, actor.name]]), farmNames, lastSignInAt: null });
+}
+
+/**
  * Invites someone directly by e-mail: their account exists at once without a password, and the
  * e-mailed single-use link lets them set one; their farm is created (or the chosen farm joined) then.
  */
@@ -206,14 +235,19 @@ export async function inviteMember(actor: SessionUser, input: InvitationInput, c
   ForbiddenError.from(defineAbilityFor(actor)).throwUnlessCan('create', subjectOf('User', { coopId: actor.coopId }));
   return withTenant(actor, async (tx) => {
     let revived: UserRecord | null = null;
+    let accountElsewhere = false;
     if (await isEmailRegistered(input.email, tx)) {
-      // Only a withdrawn invitation of this co-op may be sent again to the same address.
+      // The roster shows this co-op's people anyway; an account of another co-op is never revealed.
       const existing = await findUserByEmail(input.email, tx);
-      if (!existing || existing.passwordHash || existing.disabledReason !== INVITATION_WITHDRAWN) {
-        const message = 'This e-mail address already belongs to a Burrowline account.';
+      if (!existing) {
+        accountElsewhere = true;
+      } else if (existing.passwordHash || existing.disabledReason !== INVITATION_WITHDRAWN) {
+        // Only a withdrawn invitation of this co-op may be sent again to the same address.
+        const message = `${existing.name} already has this e-mail address in the co-op; find them in the member list.`;
         throw AppError.conflict(message, { email: [message] });
+      } else {
+        revived = existing;
       }
-      revived = existing;
     }
     if (await findPendingApplicationId(actor.coopId, input.email, tx)) {
       const message = 'An application from this address is waiting in the queue. Approve it there instead.';
@@ -233,6 +267,10 @@ export async function inviteMember(actor: SessionUser, input: InvitationInput, c
         const message = `A farm called "${farmName}" is already in the co-op or on its way in. Choose another name, or invite them to that farm.`;
         throw AppError.conflict(message, { 'farm.name': [message] });
       }
+    }
+
+    if (accountElsewhere) {
+      return answerAsInvited(actor, input, { farmName, existingFarmId, appUrl: ctx.appUrl }, tx);
     }
 
     let user: UserRecord;
