@@ -386,7 +386,7 @@ describe('herd import: confirming', () => {
 });
 
 describe('how many files a farm may keep staged', () => {
-  it('when a farm already has ten files waiting, then another is refused with a clear 409 before it is read, until one is discarded or imported', async () => {
+  it('when a farm already has ten files waiting, then another is refused with a clear 409 and nothing more is staged', async () => {
     const own = await createTestCoop();
     const agent = await signedInAgent(own.member.email, TEST_PASSWORD);
     const file = csv(HEADER, 'Q-1,Quill,doe,New Zealand,2024-01-10,,');
