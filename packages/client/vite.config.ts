@@ -20,7 +20,9 @@ export default defineConfig({
     outDir: 'dist',
     emptyOutDir: true,
     target: 'es2022',
-    sourcemap: true,
+    // Maps are written for reading a stack trace by hand, but no bundle points to them, and the server
+    // does not serve them in production.
+    sourcemap: 'hidden',
     rolldownOptions: {
       output: {
         codeSplitting: {

@@ -2,6 +2,9 @@ import { afterAll, describe, expect, it } from 'vitest';
 import ical, { type VEvent } from 'node-ical';
 import supertest from 'supertest';
 import { addDays } from '@burrowline/shared';
+import { withTenant } from '../../packages/server/src/db/tenant';
+import { revokeFeedsNoLongerAllowed } from '../../packages/server/src/modules/almanac/calendar-feed.service';
+import { attachToFarm, findUser } from '../../packages/server/src/modules/users/users.service';
 import { breedingPair, daysAgo, serviceAs } from '../support/almanac';
 import { asTenant, ownerDb } from '../support/db';
 import { createTestCoop, TEST_PASSWORD } from '../support/factories';
@@ -103,5 +106,50 @@ describe('the iCalendar feed (RFC 5545)', () => {
     const url = (await (await agentOf(coop.member.email)).post('/api/almanac/calendar-feed')).body.url as string;
     const events = Object.values(ical.sync.parseICS((await fetchFeed(url)).text)).filter((c): c is VEvent => c?.type === 'VEVENT');
     expect(events.map((e) => e.uid).sort()).toEqual(ourService.tasks.map((t) => t.id).sort());
+  });
+
+  const liveFeedsOf = (userId: string) =>
+    ownerDb(async (c) => Number((await c.query('SELECT count(*) FROM calendar_feed_tokens WHERE created_by = $1 AND revoked_at IS NULL', [userId])).rows[0].count));
+
+  it('when the maker of a feed is turned off, then the feed is revoked with the change and answers 404, also after they are turned on again', async () => {
+    const coop = await createTestCoop();
+    const url = (await (await agentOf(coop.member.email)).post('/api/almanac/calendar-feed')).body.url as string;
+    expect((await fetchFeed(url)).status).toBe(200);
+    const admin = await agentOf(coop.admin.email);
+    expect((await admin.post(`/api/members/${coop.member.id}/disable`).send({ reason: 'Left the co-op', version: 0 })).status).toBe(200);
+    // Revoked in the disabling transaction, before anyone fetches the feed.
+    expect(await liveFeedsOf(coop.member.id)).toBe(0);
+    expect((await fetchFeed(url)).status).toBe(404);
+    const audit = await asTenant(coop.id, async (c) => (await c.query(`SELECT action, details FROM audit_events WHERE coop_id = $1 AND action = 'calendar_feed.revoked'`, [coop.id])).rows);
+    expect(audit).toEqual([{ action: 'calendar_feed.revoked', details: { reason: 'maker_lost_access', makerUserId: coop.member.id } }]);
+    expect((await admin.post(`/api/members/${coop.member.id}/enable`).send({ version: 1 })).status).toBe(200);
+    expect((await fetchFeed(url)).status).toBe(404);
+  });
+
+  it('when the maker leaves the farm or loses the Almanac with a role change, then the feed is revoked in that transaction; a role that keeps the Almanac keeps the feed', async () => {
+    const coop = await createTestCoop();
+    const movingUrl = (await (await agentOf(coop.member.email)).post('/api/almanac/calendar-feed')).body.url as string;
+    const demotedUrl = (await (await agentOf(coop.otherFarmMember.email)).post('/api/almanac/calendar-feed')).body.url as string;
+
+    // Promoted to admin: still a member of the farm with its Almanac, so the feed keeps working.
+    const admin = await agentOf(coop.admin.email);
+    expect((await admin.patch(`/api/members/${coop.otherFarmMember.id}/role`).send({ role: 'admin', version: 0 })).status).toBe(200);
+    expect((await fetchFeed(demotedUrl)).status).toBe(200);
+
+    // Moving to the other farm: the old farm's feed is revoked by the same transaction that moves them.
+    const revokedInTransaction = await withTenant({ coopId: coop.id }, async (tx) => {
+      const person = (await findUser(coop.member.id, tx))!;
+      await attachToFarm(person, coop.farms[1]!.id, tx);
+      return revokeFeedsNoLongerAllowed(person, tx, coop.admin.id);
+    });
+    expect(revokedInTransaction).toBe(1);
+    expect(await liveFeedsOf(coop.member.id)).toBe(0);
+    expect((await fetchFeed(movingUrl)).status).toBe(404);
+
+    // A role without the calendar feed, set by a path that forgot to revoke: the feed still stops and is revoked.
+    const demoted = await asTenant(coop.id, async (c) => (await c.query(`UPDATE users SET role = 'apprentice', mentor_id = $2 WHERE id = $1`, [coop.otherFarmMember.id, coop.member.id])).rowCount, { commit: true });
+    expect(demoted).toBe(1);
+    expect((await fetchFeed(demotedUrl)).status).toBe(404);
+    expect(await liveFeedsOf(coop.otherFarmMember.id)).toBe(0);
   });
 });

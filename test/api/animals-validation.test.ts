@@ -31,6 +31,27 @@ async function setUp() {
 }
 
 describe('bad herd input: clear field errors and nothing written', () => {
+  it('when a name holds a line break or NUL, or the birth date is 1900, then the field says so and nothing is written; the Almanac refuses a year 9999 query', async () => {
+    const { coop, agent } = await setUp();
+    const before = await herdState(coop);
+    const cases: [Record<string, unknown>, string, RegExp][] = [
+      [{ name: 'Fern\r\nHill' }, 'name', /on one line/],
+      [{ name: 'Fern\u0000' }, 'name', /on one line/],
+      [{ colour: 'Black\nWhite' }, 'colour', /on one line/],
+      [{ birthDate: '1900-01-01' }, 'birthDate', /from 1990-01-01 to 2100-12-31/],
+      [{ notes: 'Quiet doe\u0000' }, 'notes', /control characters/],
+    ];
+    for (const [fields, field, message] of cases) {
+      const res = await agent.post('/api/animals').send({ tattoo: 'N-1', sex: 'doe', birthDate: '2023-01-01', ...fields });
+      expect(res.status, field).toBe(400);
+      expect(res.body.error.details[field]?.[0], field).toMatch(message);
+    }
+    expect(await herdState(coop)).toEqual(before);
+    const future = await agent.get('/api/almanac/tasks?from=9999-12-01');
+    expect(future.status).toBe(400);
+    expect(future.body.error.details.from[0]).toBe('Enter a date from 1990-01-01 to 2100-12-31');
+  });
+
   it('when a tattoo is already kept by the farm, then the tattoo field says so with a prompt, and nothing is written', async () => {
     const { coop, agent } = await setUp();
     const before = await herdState(coop);

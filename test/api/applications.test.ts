@@ -102,16 +102,28 @@ describe('the public application form', () => {
     expect(audit.rows).toEqual([{ action: 'application.submitted', actor_user_id: null }]);
   });
 
-  it('when the e-mail already belongs to an account in any co-op, then the application is refused with a clear message and nothing is stored', async () => {
+  it('when the e-mail already belongs to an account in any co-op, then the form answers exactly as for a new address, stores nothing and tells the holder by e-mail', async () => {
     const coop = await createTestCoop();
     const foreign = await createTestCoop();
+    const fresh = await anonymous().post(`/api/apply/${coop.slug}`).send(applicationBody({ farmName: 'Fresh Hollow' }));
+    expect(fresh.status).toBe(201);
+    const shape = (body: Record<string, unknown>) => ({ ...body, id: typeof body.id, email: typeof body.email, submittedAt: typeof body.submittedAt });
     for (const email of [foreign.member.email, coop.apprentice.email.toUpperCase()]) {
-      const res = await anonymous().post(`/api/apply/${coop.slug}`).send(applicationBody({ email }));
-      expect(res.status).toBe(409);
-      expect(res.body.error.code).toBe('conflict');
-      expect(res.body.error.message).toMatch(/already belongs to a Burrowline account/);
-      expect(res.body.error.details.email).toHaveLength(1);
+      const body = applicationBody({ email, farmName: 'Fresh Hollow' });
+      const res = await anonymous().post(`/api/apply/${coop.slug}`).send(body);
+      expect(res.status).toBe(201);
+      expect(Object.keys(res.body).sort()).toEqual(Object.keys(fresh.body).sort());
+      expect(shape(res.body)).toEqual(shape(fresh.body));
+      expect(res.body.id).toMatch(/^[0-9a-f]{8}-[0-9a-f]{4}-4[0-9a-f]{3}-[89ab][0-9a-f]{3}-[0-9a-f]{12}$/);
+      expect(res.body.email).toBe(email.toLowerCase());
       expect(await applicationsFrom(coop.id, email)).toBe(0);
+      // The same form sent again is a replay, as for a real application: same id, no second e-mail.
+      const again = await anonymous().post(`/api/apply/${coop.slug}`).send(body);
+      expect(again.status).toBe(200);
+      expect(again.body.id).toBe(res.body.id);
+      const told = await waitForMail(email.toLowerCase(), { subject: new RegExp(`An application to ${coop.name} used your e-mail address`) });
+      expect(told.text).toContain('already has a Burrowline account');
+      expect((await queuedMailTo(email)).map((m) => m.subject)).toEqual([`An application to ${coop.name} used your e-mail address`]);
     }
   });
 

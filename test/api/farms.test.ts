@@ -75,6 +75,22 @@ describe('farm profiles and the members directory', () => {
     expect(names.rows.map((r) => r.name)).not.toContain('Taken Over');
   });
 
+  it('when someone who may not edit a farm sends a malformed body, then the answer is 403 or 404, never the field errors', async () => {
+    const coop = await createTestCoop();
+    const foreign = await createTestCoop();
+    const malformed = { name: '', timeZone: 'Mars/Olympus', weightUnit: 'stone', version: 'x' };
+    const neighbour = await signedInAgent(coop.otherFarmMember.email, TEST_PASSWORD);
+    const refused = await neighbour.patch(`/api/farms/${coop.farms[0]!.id}`).send(malformed);
+    expect(refused.status).toBe(403);
+    expect(refused.body.error.code).toBe('forbidden');
+    const outsider = await signedInAgent(foreign.member.email, TEST_PASSWORD);
+    for (const farmId of [coop.farms[0]!.id, '00000000-0000-4000-8000-000000000000']) {
+      const hidden = await outsider.patch(`/api/farms/${farmId}`).send(malformed);
+      expect(hidden.status).toBe(404);
+      expect(hidden.body.error.details).toBeUndefined();
+    }
+  });
+
   it('when the input is malformed, then field errors come back and nothing is written', async () => {
     const coop = await createTestCoop();
     const agent = await signedInAgent(coop.member.email, TEST_PASSWORD);

@@ -384,3 +384,17 @@ describe('herd import: confirming', () => {
     expect((await animalsOfFarm(coop.id, farmA())).filter((a) => a.tattoo === 'NF1')).toEqual([]);
   });
 });
+
+describe('how many files a farm may keep staged', () => {
+  it('when a farm already has ten files waiting, then another is refused with a clear 409 and nothing more is staged', async () => {
+    const own = await createTestCoop();
+    const agent = await signedInAgent(own.member.email, TEST_PASSWORD);
+    const file = csv(HEADER, 'Q-1,Quill,doe,New Zealand,2024-01-10,,');
+    for (let i = 0; i < 10; i += 1) expect((await stageFile(agent, file)).status).toBe(201);
+    const refused = await stageFile(agent, file);
+    expect(refused.status).toBe(409);
+    expect(refused.body.error.message).toMatch(/10 spreadsheets are already waiting .* Import or discard one of them first/);
+    const staged = await asTenant(own.id, (c) => c.query(`SELECT count(*)::int AS n FROM herd_imports WHERE farm_id = $1`, [own.farms[0]!.id]));
+    expect(staged.rows[0].n).toBe(10);
+  });
+});

@@ -259,13 +259,41 @@ describe('inviting someone directly', () => {
     expect(farms.rows[0].n).toBe(2);
   });
 
+  it('when the address has an account in another co-op, then the invitation answers exactly as for a new address, stores nothing and tells the holder by e-mail', async () => {
+    const coop = await createTestCoop();
+    const foreign = await createTestCoop();
+    const admin = await signedIn(coop.admin.email);
+    const freshBody = invitationBody(coop);
+    const fresh = await admin.post('/api/invitations').send(freshBody);
+    const hiddenBody = invitationBody(coop, { email: foreign.member.email.toUpperCase() });
+    const hidden = await admin.post('/api/invitations').send(hiddenBody);
+    expect(hidden.status).toBe(fresh.status);
+    const comparable = (body: Record<string, unknown>, sent: { name: string; email: string; farm: { name: string } }) =>
+      JSON.parse(
+        JSON.stringify(body)
+          .replace(/[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}/g, 'ID')
+          .replace(/\d{4}-\d\d-\d\dT[\d:.]+Z/g, 'TIME')
+          .replaceAll(sent.email.toLowerCase(), 'EMAIL')
+          .replaceAll(sent.farm.name, 'FARM')
+          .replaceAll(sent.name, 'NAME'),
+      );
+    expect(comparable(hidden.body, hiddenBody)).toEqual(comparable(fresh.body, freshBody));
+    // Nothing of it is stored in this co-op, and the other co-op's person is untouched.
+    const stored = await asTenant(coop.id, async (c) => (await c.query('SELECT count(*)::int AS n FROM users WHERE lower(email) = lower($1)', [foreign.member.email])).rows[0].n);
+    expect(stored).toBe(0);
+    expect((await userRow(foreign.id, foreign.member.id)).coop_id).toBe(foreign.id);
+    const told = await waitForMail(foreign.member.email, { subject: new RegExp(`tried to invite you to ${coop.name}`) });
+    expect(told.text).toContain('already has a Burrowline account');
+    expect((await auditOf(coop.id, foreign.member.id))).toEqual([]);
+  });
+
   it('when the e-mail already has an account, a pending application, or the farm is not of this co-op, then the invitation is refused', async () => {
     const coop = await createTestCoop();
     const foreign = await createTestCoop();
     const admin = await signedIn(coop.admin.email);
-    const taken = await admin.post('/api/invitations').send(invitationBody(coop, { email: foreign.member.email }));
+    const taken = await admin.post('/api/invitations').send(invitationBody(coop, { email: coop.otherFarmMember.email }));
     expect(taken.status).toBe(409);
-    expect(taken.body.error.details.email[0]).toMatch(/already belongs/);
+    expect(taken.body.error.details.email[0]).toMatch(new RegExp(`${coop.otherFarmMember.name} already has this e-mail address in the co-op`));
     const app = await createTestApplication(coop);
     const waiting = await admin.post('/api/invitations').send(invitationBody(coop, { email: app.email }));
     expect(waiting.status).toBe(409);

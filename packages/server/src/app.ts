@@ -92,6 +92,12 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
   });
 
   const api = express.Router();
+  // Answers hold one person's herd and co-op: no shared or browser cache keeps them. A route that may
+  // be cached (a photo, the calendar feed) says so itself.
+  api.use((_req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
   api.use(express.json({ limit: '100kb' }));
   api.use(session.middleware, enforceAbsoluteLifetime(config), passport.session(), attachAbility);
   api.use(csrfGuard(config.appUrl));
@@ -143,6 +149,8 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
 
   const clientDist = config.clientDist ?? defaultClientDist;
   if (fs.existsSync(path.join(clientDist, 'index.html'))) {
+    // Source maps would hand out the client's source; production builds keep them off the web.
+    if (config.env === 'production') app.get(/\.map$/, (_req, res) => res.status(404).end());
     app.use(express.static(clientDist, { index: false, maxAge: '1h', setHeaders: immutableAssets }));
     // Client-side routes: every other GET gets the app shell.
     app.get(/^(?!\/api\/|\/socket\.io\/).*/, (_req, res) => res.sendFile(path.join(clientDist, 'index.html')));

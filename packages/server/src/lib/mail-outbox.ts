@@ -76,6 +76,25 @@ export async function queueMail(tx: Transaction, key: string, message: MailMessa
   return true;
 }
 
+/** Work done after the request has been answered, by the worker of any app process. */
+type JobHandler = (data: object) => Promise<void>;
+const jobHandlers = new Map<string, JobHandler>();
+
+/** Registers the worker's handler of a queue (created by a migration, as the app role may not). */
+export function handleJobs<T extends object>(queue: string, handler: (data: T) => Promise<void>): void {
+  jobHandlers.set(queue, handler as JobHandler);
+}
+
+/**
+ * Queues work for after the answer, in a short transaction of its own: the request costs one insert
+ * whatever the work will find, so its timing tells nothing about the data.
+ */
+export async function enqueueJob(queue: string, data: object): Promise<void> {
+  await database().transaction(async (tx) => {
+    await jobWriter.send(queue, data, { retryDelay: settings.retryDelaySeconds, db: onTransaction(tx) });
+  });
+}
+
 interface OutboxRow {
   recipient: string;
   subject: string;
@@ -144,6 +163,11 @@ async function startBoss(opts: MailWorkerOptions): Promise<PgBoss | null> {
     await boss.work<MailJob>(MAIL_QUEUE, { pollingIntervalSeconds: opts.pollingIntervalSeconds, batchSize: 1 }, async ([job]) => {
       if (job) await deliverQueuedMail(job.data);
     });
+    for (const [queue, handler] of jobHandlers) {
+      await boss.work<object>(queue, { pollingIntervalSeconds: opts.pollingIntervalSeconds, batchSize: 1 }, async ([job]) => {
+        if (job) await handler(job.data);
+      });
+    }
     return boss;
   } catch (error) {
     logger.error('mail worker not started', { error: String(error) });

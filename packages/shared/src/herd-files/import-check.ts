@@ -14,7 +14,7 @@
  * - No animal may be its own ancestor (a cycle), a tattoo may appear once per file.
  * - Errors block the whole import; warnings are shown and accepted by confirming.
  */
-import { daysBetween, isIsoDate } from '../herd/herd-dates';
+import { daysBetween, EARLIEST_RECORD_DATE, isIsoDate, isRecordDate, LATEST_RECORD_DATE } from '../herd/herd-dates';
 import { MEDIUM_BREED_FIRST_BREEDING_DAYS, youngParentAt } from '../herd/first-breeding';
 import type { Disposition, Lifecycle, Sex } from '../herd/herd-enums';
 import { formatWeight, type WeightUnit } from '../units/units';
@@ -368,7 +368,11 @@ export function createImportChecker(records: readonly ImportRecord[], mapping: H
   }
 
   function dateCell(value: string, field: ImportField, what: string, errors: ImportIssueDto[]): string | null {
-    if (isIsoDate(value)) return value;
+    if (isRecordDate(value)) return value;
+    if (isIsoDate(value)) {
+      issue(errors, field, `${value} is out of range for a ${what}: use a date from ${EARLIEST_RECORD_DATE} to ${LATEST_RECORD_DATE}`);
+      return null;
+    }
     const hint = /^\d{1,2}[/.]\d{1,2}[/.]\d{2,4}$/.test(value) ? ` (spreadsheets often turn dates into ${value}; format the column as text or YYYY-MM-DD)` : '';
     issue(errors, field, `"${value}" is not a ${what}: write it as YYYY-MM-DD, e.g. 2024-03-15${hint}`);
     return null;

@@ -55,3 +55,15 @@ export function isIsoDate(value: string): boolean {
   // Years under 100 were never valid here (Date.UTC reads them as 19xx).
   return y >= 100 && m >= 1 && m <= 12 && d >= 1 && d <= daysInMonth(y, m);
 }
+
+/**
+ * The dates a record may carry: the co-op's oldest stock was born long after 1990, and a date past 2100
+ * is a typing slip (or a probe), which would otherwise reach date arithmetic.
+ */
+export const EARLIEST_RECORD_DATE = '1990-01-01';
+export const LATEST_RECORD_DATE = '2100-12-31';
+
+/** A valid YYYY-MM-DD within the range a record may carry. */
+export function isRecordDate(value: string): boolean {
+  return isIsoDate(value) && value >= EARLIEST_RECORD_DATE && value <= LATEST_RECORD_DATE;
+}

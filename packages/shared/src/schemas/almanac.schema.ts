@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { multiLine, singleLine } from './text';
 import { isIsoDate } from '../herd/herd-dates';
 import { calendarDateSchema } from './animal.schema';
 
@@ -10,7 +11,7 @@ import { calendarDateSchema } from './animal.schema';
  */
 
 const idSchema = (what: string) => z.uuid({ message: `${what} is not a valid id` });
-const noteText = (max: number) => z.string().trim().max(max, `Keep it under ${max.toLocaleString('en-US')} characters`);
+const noteText = (max: number) => multiLine(max);
 
 /** A service: the doe, the buck (the farm's own or one kept here on loan), the date. */
 export const serviceCreateSchema = z.strictObject({
@@ -39,7 +40,7 @@ export type PalpationCreateInput = z.infer<typeof palpationCreateSchema>;
 /** Closing a service with no kindling (she did not kindle; the window passed). */
 export const serviceClosureSchema = z.strictObject({
   closedOn: calendarDateSchema,
-  reason: z.string().trim().min(1, 'Say why the service is closed').max(200, 'Keep the reason under 200 characters'),
+  reason: singleLine('The reason', 0, 200).refine((v) => v.length > 0, 'Say why the service is closed'),
   version: z.number().int().min(0),
 });
 export type ServiceClosureInput = z.infer<typeof serviceClosureSchema>;
@@ -79,7 +80,7 @@ const taskActions = {
   move: z.strictObject({ action: z.literal('move'), dueOn: calendarDateSchema, reason: noteText(200).optional() }),
   skip: z.strictObject({
     action: z.literal('skip'),
-    reason: z.string().trim().min(1, 'Say why you skip it').max(200, 'Keep the reason under 200 characters'),
+    reason: singleLine('The reason', 0, 200).refine((v) => v.length > 0, 'Say why you skip it'),
   }),
   reopen: z.strictObject({ action: z.literal('reopen') }),
 };

@@ -1,13 +1,14 @@
 import { z } from 'zod';
 import { ageClasses } from '../herd/age-class';
-import { isIsoDate } from '../herd/herd-dates';
+import { EARLIEST_RECORD_DATE, isIsoDate, isRecordDate, LATEST_RECORD_DATE } from '../herd/herd-dates';
 import { dispositions, lifecycles, purities, sexes } from '../herd/herd-enums';
-import { singleLine } from './text';
+import { multiLine, singleLine } from './text';
 
-/** A calendar date as the farm sees it (trade events are dates, not instants). */
+/** A calendar date as the farm sees it (trade events are dates, not instants), within the range a record may carry. */
 export const calendarDateSchema = z
   .string({ message: 'Enter a date' })
-  .refine(isIsoDate, 'Enter a date as YYYY-MM-DD');
+  .refine(isIsoDate, 'Enter a date as YYYY-MM-DD')
+  .refine((value) => !isIsoDate(value) || isRecordDate(value), `Enter a date from ${EARLIEST_RECORD_DATE} to ${LATEST_RECORD_DATE}`);
 
 const idSchema = (what: string) => z.uuid({ message: `${what} is not a valid id` });
 
@@ -33,9 +34,9 @@ const registrationSchema = z
   .transform((v) => (v === '' ? null : v))
   .nullable();
 
-const animalName = z.string().trim().max(60, 'Keep the name under 60 characters');
-const colourSchema = z.string().trim().max(60, 'Keep the colour under 60 characters');
-const noteText = (max: number) => z.string().trim().max(max, `Keep it under ${max} characters`);
+const animalName = singleLine('The name', 0, 60);
+const colourSchema = singleLine('The colour', 0, 60);
+const noteText = (max: number) => multiLine(max, `Keep it under ${max} characters`);
 
 /** An ancestor known only from papers, entered as a parent (its sex follows from sire or dam). */
 export const fromPapersSchema = z.strictObject({
@@ -61,7 +62,7 @@ const animalFields = {
   sireFromPapers: fromPapersSchema.optional(),
   damFromPapers: fromPapersSchema.optional(),
   registrationNumber: registrationSchema,
-  hutch: z.string().trim().max(30, 'Keep the hutch under 30 characters'),
+  hutch: singleLine('The hutch', 0, 30),
   notes: noteText(2000),
 };
 
@@ -148,7 +149,7 @@ export const statusEventSchema = z
   .strictObject({
     kind: z.enum(['lifecycle', 'disposition']),
     value: z.enum([...lifecycles, ...dispositions]),
-    cause: z.string().trim().max(200, 'Keep the cause under 200 characters').optional(),
+    cause: singleLine('The cause', 0, 200).optional(),
     effectiveOn: calendarDateSchema,
   })
   .superRefine((value, ctx) => {

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { multiLine, singleLine } from './text';
 
 export const weightUnits = ['lb_oz', 'kg_g'] as const;
 export const temperatureUnits = ['F', 'C'] as const;
@@ -19,15 +20,15 @@ export const timeZoneSchema = z
   .refine(isIanaTimeZone, 'Choose a time zone such as America/Chicago');
 
 export const farmProfileSchema = z.strictObject({
-  name: z.string().trim().min(2, 'A farm name has at least 2 characters').max(80, 'Keep the name under 80 characters'),
-  location: z.string().trim().min(2, 'Say where the farm is').max(120, 'Keep the location under 120 characters'),
+  name: singleLine('The name', 0, 80).refine((v) => v.length >= 2, 'A farm name has at least 2 characters'),
+  location: singleLine('The location', 0, 120).refine((v) => v.length >= 2, 'Say where the farm is'),
   timeZone: timeZoneSchema,
   weightUnit: z.enum(weightUnits, { message: 'Choose pounds and ounces or kilograms and grams' }),
   temperatureUnit: z.enum(temperatureUnits, { message: 'Choose °F or °C' }),
   breedsKept: z
-    .array(z.string().trim().min(1).max(60))
+    .array(singleLine('A breed name', 1, 60))
     .max(20, 'List at most 20 breeds'),
-  description: z.string().trim().max(1000, 'Keep the description under 1,000 characters'),
+  description: multiLine(1000, 'Keep the description under 1,000 characters'),
 });
 export type FarmProfileInput = z.infer<typeof farmProfileSchema>;
 

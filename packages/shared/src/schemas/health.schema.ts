@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { multiLine, singleLine } from './text';
 import { isIsoDate } from '../herd/herd-dates';
 import { readingToCelsius, TEMPERATURE_LIMITS_CELSIUS } from '../health/heat';
 import { celsiusToFahrenheit } from '../units/units';
@@ -12,7 +13,7 @@ import { calendarDateSchema } from './animal.schema';
  */
 
 const idSchema = (what: string) => z.uuid({ message: `${what} is not a valid id` });
-const noteText = (max: number) => z.string().trim().max(max, `Keep it under ${max.toLocaleString('en-US')} characters`);
+const noteText = (max: number) => multiLine(max);
 
 export const treatmentRoutes = ['oral', 'injection', 'topical', 'in_water', 'in_feed', 'other'] as const;
 export type TreatmentRoute = (typeof treatmentRoutes)[number];
@@ -34,10 +35,10 @@ export const treatmentCreateSchema = z
     id: idSchema('The treatment').optional(),
     animalId: idSchema('The animal').optional(),
     groupId: idSchema('The group').optional(),
-    treatment: z.string().trim().min(1, 'Say what the treatment is').max(200, 'Keep it under 200 characters'),
+    treatment: singleLine('The treatment', 0, 200).refine((v) => v.length > 0, 'Say what the treatment is'),
     dose: z.string().trim().min(1, 'Give the dose the veterinarian prescribed').max(200, 'Keep it under 200 characters'),
     route: z.enum(treatmentRoutes, { message: 'Choose how it is given' }),
-    veterinarian: z.string().trim().min(1, 'Name the veterinarian who prescribed it').max(120, 'Keep it under 120 characters'),
+    veterinarian: singleLine('The name', 0, 120).refine((v) => v.length > 0, 'Name the veterinarian who prescribed it'),
     startedOn: calendarDateSchema,
     /** The last day of treatment (the last dose). */
     lastDoseOn: calendarDateSchema,
@@ -88,7 +89,7 @@ export const temperatureReadingCreateSchema = z
     unit: z.enum(['F', 'C'], { message: 'Choose °F or °C' }),
     /** When it was read (an instant); now if left out. */
     takenAt: z.iso.datetime({ offset: true, message: 'Give the time it was read' }).optional(),
-    place: z.string().trim().max(60, 'Keep the place under 60 characters').default(''),
+    place: singleLine('The place', 0, 60).default(''),
   })
   .superRefine((v, ctx) => {
     if (!Number.isFinite(v.value)) return;

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { multiLine, singleLine } from './text';
 import { sexes } from '../herd/herd-enums';
 import { calendarDateSchema, tattooSchema } from './animal.schema';
 
@@ -11,7 +12,7 @@ import { calendarDateSchema, tattooSchema } from './animal.schema';
  */
 
 const idSchema = (what: string) => z.uuid({ message: `${what} is not a valid id` });
-const noteText = (max: number) => z.string().trim().max(max, `Keep it under ${max.toLocaleString('en-US')} characters`);
+const noteText = (max: number) => multiLine(max);
 
 const kitCount = (what: string, min: number) =>
   z
@@ -84,9 +85,9 @@ export type FosteringCreateInput = z.infer<typeof fosteringCreateSchema>;
 export const keeperCreateSchema = z.strictObject({
   id: idSchema('The animal').optional(),
   tattoo: tattooSchema,
-  name: z.string().trim().max(60, 'Keep the name under 60 characters').default(''),
+  name: singleLine('The name', 0, 60).default(''),
   sex: z.enum(sexes, { message: 'Choose buck or doe' }),
-  colour: z.string().trim().max(60, 'Keep the colour under 60 characters').default(''),
+  colour: singleLine('The colour', 0, 60).default(''),
   /** When the kit was fostered in: the litter it was born in (its parentage). Default: this litter. */
   bornInLitterId: idSchema('The litter it was born in').optional(),
 });
@@ -103,7 +104,7 @@ export const housingKinds = ['hutch', 'pen', 'colony', 'grow_out'] as const;
 export type HousingKind = (typeof housingKinds)[number];
 
 export const housingUnitCreateSchema = z.strictObject({
-  name: z.string().trim().min(1, 'Name the hutch or pen').max(40, 'Keep the name under 40 characters'),
+  name: singleLine('The name', 0, 40).refine((v) => v.length > 0, 'Name the hutch or pen'),
   kind: z.enum(housingKinds, { message: 'Choose hutch, pen, colony or grow-out pen' }),
   capacity: z.number().int().min(1, 'At least one place').max(200).nullable().default(null),
   notes: noteText(500).default(''),

@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { farmProfileUpdateSchema, setPasswordSchema, signInSchema } from '../index';
+import { calendarDateSchema, farmProfileUpdateSchema, setPasswordSchema, signInSchema } from '../index';
+import { multiLine, singleLine } from './text';
 
 const validProfile = {
   name: 'Juniper Hill', location: 'Tamsin County', timeZone: 'America/Chicago', weightUnit: 'lb_oz', temperatureUnit: 'F',
@@ -32,5 +33,29 @@ describe('shared input schemas', () => {
 
   it('when a valid profile is given, then it parses unchanged', () => {
     expect(farmProfileUpdateSchema.parse(validProfile)).toEqual(validProfile);
+  });
+
+  it('when a one-line field holds CR, LF, a tab or NUL, then it is refused; a note keeps its line breaks but not NUL', () => {
+    const name = singleLine('The name', 0, 60);
+    for (const bad of ['Fern\r\nBcc: x', 'Fern\nHill', 'Fern\u0000', 'Fern\tHill', 'Fern\u007f']) {
+      expect(name.safeParse(bad).success, JSON.stringify(bad)).toBe(false);
+    }
+    expect(name.parse(' Fern Hill ')).toBe('Fern Hill');
+    const note = multiLine(500);
+    expect(note.parse('Line one\nLine two\twith a tab')).toBe('Line one\nLine two\twith a tab');
+    expect(note.safeParse('Ends here\u0000').success).toBe(false);
+    expect(farmProfileUpdateSchema.safeParse({ ...validProfile, name: 'Juniper\nHill' }).success).toBe(false);
+    expect(farmProfileUpdateSchema.safeParse({ ...validProfile, location: 'Tamsin\u0000County' }).success).toBe(false);
+  });
+
+  it('when a date is before 1990 or after 2100, then it is refused with the range in the message', () => {
+    for (const date of ['1900-01-01', '1989-12-31', '2101-01-01', '9999-12-01']) {
+      const result = calendarDateSchema.safeParse(date);
+      expect(result.success, date).toBe(false);
+      expect(result.error?.issues.map((i) => i.message), date).toEqual(['Enter a date from 1990-01-01 to 2100-12-31']);
+    }
+    expect(calendarDateSchema.parse('1990-01-01')).toBe('1990-01-01');
+    expect(calendarDateSchema.parse('2100-12-31')).toBe('2100-12-31');
+    expect(calendarDateSchema.safeParse('2024-02-30').error?.issues.map((i) => i.message)).toEqual(['Enter a date as YYYY-MM-DD']);
   });
 });

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { multiLine, singleLine } from './text';
 import { calendarDateSchema } from './animal.schema';
 
 /** A weigh-in of one animal (head count 1) or of a group (a litter, a pen) as a total over a head count. */
@@ -6,7 +7,7 @@ export const weighInCreateSchema = z
   .strictObject({
     id: z.uuid({ message: 'Not a valid id' }).optional(),
     animalId: z.uuid({ message: 'The animal is not a valid id' }).optional(),
-    groupLabel: z.string().trim().min(1, 'Name the group').max(60, 'Keep the group name under 60 characters').optional(),
+    groupLabel: singleLine('The group name', 0, 60).refine((v) => v.length > 0, 'Name the group').optional(),
     totalGrams: z
       .number({ message: 'Enter the weight' })
       .int('Weights are whole grams')
@@ -14,7 +15,7 @@ export const weighInCreateSchema = z
       .max(1_000_000, 'That is more than a tonne; check the weight'),
     headCount: z.number().int().min(1, 'At least one head').max(500).default(1),
     weighedOn: calendarDateSchema,
-    note: z.string().trim().max(500).default(''),
+    note: multiLine(500).default(''),
   })
   .superRefine((v, ctx) => {
     if (!v.animalId && !v.groupLabel) ctx.addIssue({ code: 'custom', path: ['animalId'], message: 'Weigh an animal or name a group' });
@@ -32,7 +33,7 @@ export const entryReviewSchema = z.strictObject({
 export type EntryReviewInput = z.infer<typeof entryReviewSchema>;
 
 export const animalNoteCreateSchema = z.strictObject({
-  body: z.string().trim().min(1, 'Write the note').max(2000, 'Keep the note under 2,000 characters'),
+  body: multiLine(2000, 'Keep the note under 2,000 characters').refine((v) => v.length > 0, 'Write the note'),
   notedOn: calendarDateSchema,
 });
 export type AnimalNoteCreateInput = z.infer<typeof animalNoteCreateSchema>;

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatTemperature, formatWeight, gramsToPoundsOunces, gramsToWeightInput, weightInputToGrams } from './units';
+import { formatTemperature, formatWeight, gramsToPoundsOunces, gramsToWeightInput, toFixedHalfUp, weightInputToGrams } from './units';
 
 describe('unit formatting', () => {
   it('when grams are shown in pounds and ounces, then the ounces carry over at 16', () => {
@@ -21,6 +21,30 @@ describe('unit formatting', () => {
   it('when grams are shown metric, then small weights stay in grams', () => {
     expect(formatWeight(64, 'kg_g')).toBe('64 g');
     expect(formatWeight(2270, 'kg_g')).toBe('2.27 kg');
+  });
+
+  it('when a weight is exactly half-way between two hundredths of a kilogram, then it rounds up, computed on whole grams', () => {
+    // 1.015 and 2.275 are stored as 1.01499… and 2.27499… in binary, which toFixed(2) rounds down.
+    expect(formatWeight(1015, 'kg_g')).toBe('1.02 kg');
+    expect(formatWeight(2275, 'kg_g')).toBe('2.28 kg');
+    expect(formatWeight(1005, 'kg_g')).toBe('1.01 kg');
+    expect(formatWeight(1004.6, 'kg_g')).toBe('1.01 kg');
+    expect(formatWeight(99_995, 'kg_g')).toBe('100.00 kg');
+    expect(formatWeight(999.6, 'kg_g')).toBe('1.00 kg');
+    for (let grams = 1000; grams < 20_000; grams += 1) {
+      const hundredths = Math.floor((grams + 5) / 10);
+      expect(formatWeight(grams, 'kg_g')).toBe(`${Math.floor(hundredths / 100)}.${String(hundredths % 100).padStart(2, '0')} kg`);
+    }
+  });
+
+  it('when a decimal is shown to a fixed count of places, then halves round away from zero as written', () => {
+    expect(toFixedHalfUp(1.015, 2)).toBe('1.02');
+    expect(toFixedHalfUp(2.275, 2)).toBe('2.28');
+    expect(toFixedHalfUp(0.15, 1)).toBe('0.2');
+    expect(toFixedHalfUp(-0.15, 1)).toBe('-0.2');
+    expect(toFixedHalfUp(-0.01, 1)).toBe('0.0');
+    expect(toFixedHalfUp(1e-9, 2)).toBe('0.00');
+    expect(formatTemperature(20.05, 'C')).toBe('20.1 °C');
   });
 
   it('when a stored Celsius reading is shown, then it follows the farm\'s unit', () => {

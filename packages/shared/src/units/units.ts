@@ -14,9 +14,21 @@ export function gramsToPounds(grams: number): number {
   return grams / GRAMS_PER_POUND;
 }
 
-/** Splits grams into whole pounds and ounces (rounded to a tenth of an ounce). */
+/**
+ * A number with a fixed count of decimals, halves rounded away from zero as written in decimal.
+ * `toFixed` rounds the binary double, so 1.015 (stored as 1.01499…) would show as "1.01".
+ */
+export function toFixedHalfUp(value: number, decimals: number): string {
+  const factor = 10 ** decimals;
+  // Twelve significant digits drop the binary tail (101.49999999999999 becomes 101.5) before rounding.
+  const scaled = Math.round(Number((Math.abs(value) * factor).toPrecision(12)));
+  const sign = value < 0 && scaled > 0 ? '-' : '';
+  return `${sign}${(scaled / factor).toFixed(decimals)}`;
+}
+
+/** Splits grams into whole pounds and ounces (rounded to a tenth of an ounce, from whole grams). */
 export function gramsToPoundsOunces(grams: number): { pounds: number; ounces: number } {
-  const totalOunces = Math.round((grams / GRAMS_PER_OUNCE) * 10) / 10;
+  const totalOunces = Math.round((Math.round(grams) / GRAMS_PER_OUNCE) * 10) / 10;
   const pounds = Math.floor(totalOunces / 16);
   const ounces = Math.round((totalOunces - pounds * 16) * 10) / 10;
   return { pounds, ounces };
@@ -35,19 +47,23 @@ export function celsiusToFahrenheit(c: number): number {
  * (feed sacks, stock, a batch) ounces are whole: a tenth of an ounce there is noise from the gram.
  */
 export function formatWeight(grams: number, unit: WeightUnit): string {
+  const wholeGrams = Math.round(grams);
   if (unit === 'kg_g') {
-    return grams >= 1000 ? `${(grams / 1000).toFixed(2)} kg` : `${Math.round(grams)} g`;
+    if (wholeGrams < 1000) return `${wholeGrams} g`;
+    // Hundredths of a kilogram from whole grams in integers: 1,015 g is 1.02 kg, not toFixed's 1.01.
+    const hundredths = Math.floor((wholeGrams + 5) / 10);
+    return `${Math.floor(hundredths / 100)}.${String(hundredths % 100).padStart(2, '0')} kg`;
   }
-  if (grams >= 10 * GRAMS_PER_POUND) {
-    const wholeOunces = Math.round(grams / GRAMS_PER_OUNCE);
+  if (wholeGrams >= 10 * GRAMS_PER_POUND) {
+    const wholeOunces = Math.round(wholeGrams / GRAMS_PER_OUNCE);
     return `${Math.floor(wholeOunces / 16)} lb ${wholeOunces % 16} oz`;
   }
-  const { pounds, ounces } = gramsToPoundsOunces(grams);
+  const { pounds, ounces } = gramsToPoundsOunces(wholeGrams);
   return pounds > 0 ? `${pounds} lb ${ounces} oz` : `${ounces} oz`;
 }
 
 export function formatTemperature(celsius: number, unit: TemperatureUnit): string {
-  return unit === 'C' ? `${celsius.toFixed(1)} °C` : `${celsiusToFahrenheit(celsius).toFixed(1)} °F`;
+  return unit === 'C' ? `${toFixedHalfUp(celsius, 1)} °C` : `${toFixedHalfUp(celsiusToFahrenheit(celsius), 1)} °F`;
 }
 
 /**

@@ -1,4 +1,4 @@
-import { formatWeight, GRAMS_PER_OUNCE, type WeightUnit } from '@burrowline/shared';
+import { formatWeight, GRAMS_PER_OUNCE, toFixedHalfUp, type WeightUnit } from '@burrowline/shared';
 
 /** Figures of the performance tables, as people read them; a missing figure is a dash. */
 export const dash = '—';
@@ -16,4 +16,4 @@ export const weightUnitShort = (unit: WeightUnit) => (unit === 'lb_oz' ? 'lb' : 
 
 /** A daily gain, short enough for a table cell: ounces a day on lb/oz farms, grams a day otherwise. */
 export const gainShort = (gramsPerDay: number | null, unit: WeightUnit) =>
-  gramsPerDay === null ? dash : unit === 'lb_oz' ? `${(gramsPerDay / GRAMS_PER_OUNCE).toFixed(2)} oz/day` : `${gramsPerDay.toFixed(1)} g/day`;
+  gramsPerDay === null ? dash : unit === 'lb_oz' ? `${toFixedHalfUp(gramsPerDay / GRAMS_PER_OUNCE, 2)} oz/day` : `${toFixedHalfUp(gramsPerDay, 1)} g/day`;

@@ -1,12 +1,13 @@
 import { randomBytes } from 'node:crypto';
 import ical, { ICalCalendarMethod } from 'ical-generator';
-import { Op } from 'sequelize';
-import { addDays, ErrorCode, TASK_KIND_LABELS, type CalendarFeedDto } from '@burrowline/shared';
+import { Op, type Transaction } from 'sequelize';
+import { addDays, defineAbilityFor, ErrorCode, subjectOf, TASK_KIND_LABELS, type AbilityUser, type CalendarFeedDto } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { recordAudit } from '../audit/audit.service';
 import { hashToken } from '../one-time-tokens/one-time-tokens.service';
+import { findUser } from '../users/users.service';
 import { ensureCan, farmOf } from '../farms/farm-access';
 import { farmClockOf } from '../farms/farm-clock';
 import { animalLabel } from './almanac.presenter';
@@ -58,6 +59,34 @@ export async function revokeCalendarFeed(actor: SessionUser): Promise<void> {
   });
 }
 
+/** A person as a feed's maker: the facts that decide whether their feeds may still answer. */
+export type FeedMaker = AbilityUser & { disabledAt: Date | null };
+
+/** Whether the person, as they are now, may still have a feed of the farm's Almanac. */
+function mayKeepFeed(maker: FeedMaker, farmId: string): boolean {
+  if (maker.disabledAt) return false;
+  return defineAbilityFor(maker).can('read', subjectOf('CalendarFeed', { coopId: maker.coopId, farmId }));
+}
+
+/**
+ * Revokes every live feed the person made on a farm whose Almanac they may no longer have: turned off,
+ * gone from the farm, or a role without the calendar feed. Call it in the transaction of that change,
+ * so the feed never answers after the change is committed.
+ */
+export async function revokeFeedsNoLongerAllowed(maker: FeedMaker, tx: Transaction, actorUserId: string): Promise<number> {
+  const live = await CalendarFeedToken.findAll({ where: { createdBy: maker.id, revokedAt: { [Op.is]: null } }, transaction: tx, lock: tx.LOCK.UPDATE });
+  const outgrown = live.filter((feed) => !mayKeepFeed(maker, feed.farmId));
+  if (outgrown.length === 0) return 0;
+  await CalendarFeedToken.update({ revokedAt: new Date() }, { where: { id: { [Op.in]: outgrown.map((feed) => feed.id) } }, transaction: tx });
+  for (const feed of outgrown) {
+    await recordAudit(
+      { coopId: maker.coopId, actorUserId, action: 'calendar_feed.revoked', subjectType: 'farm', subjectId: feed.farmId, details: { reason: 'maker_lost_access', makerUserId: maker.id } },
+      tx,
+    );
+  }
+  return outgrown.length;
+}
+
 /**
  * The farm's Almanac as an iCalendar (RFC 5545) feed, for the token in its secret address; null for an
  * unknown or revoked token. Each task is an all-day event whose UID is the task's id, so a calendar
@@ -69,8 +98,14 @@ export async function calendarFeedFor(token: string, opts: { appUrl: string; now
   const row = await CalendarFeedToken.findOne({ where: { tokenHash: hashToken(token), revokedAt: { [Op.is]: null } } });
   if (!row) return null;
   const now = opts.now ?? new Date();
-  await CalendarFeedToken.update({ lastUsedAt: now }, { where: { id: row.id } });
   return withTenant({ coopId: row.coopId }, async (tx) => {
+    // A change that forgot to revoke the maker's feeds still cannot keep one answering.
+    const maker = await findUser(row.createdBy, tx);
+    if (!maker || !mayKeepFeed(maker, row.farmId)) {
+      await CalendarFeedToken.update({ revokedAt: now }, { where: { id: row.id }, transaction: tx });
+      return null;
+    }
+    await CalendarFeedToken.update({ lastUsedAt: now }, { where: { id: row.id }, transaction: tx });
     const clock = await farmClockOf(tx, row.coopId, row.farmId, now);
     const tasks = await AlmanacTask.findAll({
       where: {

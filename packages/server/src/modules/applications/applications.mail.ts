@@ -69,3 +69,18 @@ export function applicationRejectedMail(opts: { to: string; name: string; coopNa
     ],
   });
 }
+
+/** To the holder of an address someone applied with: the form answered as usual and told them nothing. */
+export function applicationForAccountHolderMail(opts: { to: string; coopName: string; signInUrl: string }) {
+  return composeMail({
+    to: opts.to,
+    subject: `An application to ${opts.coopName} used your e-mail address`,
+    greeting: 'Hello,',
+    paragraphs: [
+      `Someone applied to join ${opts.coopName} on Burrowline with this e-mail address, which already has a Burrowline account. No application was made with it.`,
+      'If it was you: sign in with your account instead. If you forgot your password, "Forgot your password?" on the sign-in page sends you a link. To join another co-op with a farm of its own, apply with a different address.',
+      'If it was not you, there is nothing to do; your account is unchanged.',
+    ],
+    action: { label: 'Sign in', url: opts.signInUrl },
+  });
+}

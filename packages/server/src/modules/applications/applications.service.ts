@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import { ForbiddenError } from '@casl/ability';
 import { col, fn, literal, Op, QueryTypes, where, type Order, type Transaction, type WhereOptions } from 'sequelize';
 import {
@@ -25,13 +26,13 @@ import { AppError } from '../../lib/app-error';
 import { queueMail } from '../../lib/mail-outbox';
 import { publish } from '../../lib/realtime';
 import { recordAudit } from '../audit/audit.service';
-import { issueToken } from '../one-time-tokens/one-time-tokens.service';
+import { hashToken, issueToken } from '../one-time-tokens/one-time-tokens.service';
 import { findPublicCoop, getCoop } from '../coops/coops.service';
 import { createFarm, findFarmRef, isFarmNameTaken } from '../farms/farms.service';
 import { createUser, isEmailRegistered, listAdminContacts, namesOf } from '../users/users.service';
 import { ApplicationView } from './application-view.model';
 import { Application } from './application.model';
-import { applicationApprovedMail, applicationReceivedMail, applicationRejectedMail, newApplicationMail } from './applications.mail';
+import { applicationApprovedMail, applicationForAccountHolderMail, applicationReceivedMail, applicationRejectedMail, newApplicationMail } from './applications.mail';
 import { presentApplication, presentListItem, presentReceipt } from './applications.presenter';
 
 /** What a decision needs besides the actor: where links point, how long they live, the request's address. */
@@ -65,10 +66,18 @@ function uniqueList<T extends string>(values: T[]): T[] {
   });
 }
 
+/** A stable id in the shape of a random one, so a repeated submit answers the same id. */
+function uuidFromKey(key: string): string {
+  const hex = createHash('sha256').update(key).digest('hex');
+  const variant = ((parseInt(hex[16]!, 16) & 0x3) | 0x8).toString(16);
+  return `${hex.slice(0, 8)}-${hex.slice(8, 12)}-4${hex.slice(13, 16)}-${variant}${hex.slice(17, 20)}-${hex.slice(20, 32)}`;
+}
+
 /**
  * Takes an application from the public form: the one place where the tenant comes from the URL.
  * A repeated submit with the same idempotency key returns the first application (`replayed`).
- * Refuses an e-mail that already has an account anywhere, or that already waits here.
+ * An e-mail that already has an account anywhere gets the usual answer and nothing is stored; its
+ * holder is told by e-mail. Refuses an e-mail that already waits here.
  */
 export async function submitApplication(
   slug: string,
@@ -90,8 +99,18 @@ export async function submitApplication(
       return { receipt: presentReceipt(earlier, coop.name), replayed: true };
     }
     if (await isEmailRegistered(input.email, tx)) {
-      const message = 'This e-mail address already belongs to a Burrowline account. Sign in with it, or apply with another address.';
-      throw AppError.conflict(message, { email: [message] });
+      // Answered like a new application, so the form does not tell who has an account; the holder is told by e-mail.
+      const mail = applicationForAccountHolderMail({ to: input.email, coopName: coop.name, signInUrl: `${ctx.appUrl}/sign-in` });
+      const queued = await queueMail(tx, `application-by-account-holder:${hashToken(`${input.idempotencyKey}:${input.email}`)}`, mail);
+      const receipt: ApplicationReceiptDto = {
+        id: uuidFromKey(`${coop.id}:${input.idempotencyKey}`),
+        status: 'pending',
+        email: input.email,
+        farmName: input.farmName,
+        coopName: coop.name,
+        submittedAt: new Date().toISOString(),
+      };
+      return { receipt, replayed: !queued };
     }
     if (await findPendingApplicationId(coop.id, input.email, tx)) {
       const message = 'An application from this e-mail address is already waiting for the coordinator. You will hear back by e-mail.';

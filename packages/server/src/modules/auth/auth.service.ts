@@ -2,7 +2,7 @@ import { packRules } from '@casl/ability/extra';
 import { defineAbilityFor, ErrorCode, rooms, type MeDto } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
 import { AppError } from '../../lib/app-error';
-import { queueMail } from '../../lib/mail-outbox';
+import { enqueueJob, handleJobs, queueMail } from '../../lib/mail-outbox';
 import { assertPasswordAllowed, hashPassword } from '../../lib/passwords';
 import { disconnectRoom } from '../../lib/realtime';
 import { findIdentityByEmail } from '../../http/passport';
@@ -25,25 +25,43 @@ export async function describeMe(actor: SessionUser): Promise<MeDto> {
   };
 }
 
+/** The queue of reset requests (migration 0034): the link is made and mailed after the answer. */
+export const PASSWORD_RESET_QUEUE = 'password-reset-requests';
+
+interface ResetRequest {
+  email: string;
+  ip: string | null;
+  appUrl: string;
+  ttlMinutes: number;
+}
+
 /**
- * Sends a reset link when the e-mail belongs to an active account. The caller answers the same
- * either way, so the form does not tell who has an account.
+ * Takes a reset request: only queues it, so the answer and its timing are the same whether or not the
+ * e-mail belongs to an account; the job looks the address up and mails the link.
  */
 export async function requestPasswordReset(input: { email: string; ip: string | null }, opts: { appUrl: string; ttlMinutes: number }) {
-  const identity = await findIdentityByEmail(input.email);
+  const request: ResetRequest = { email: input.email, ip: input.ip, appUrl: opts.appUrl, ttlMinutes: opts.ttlMinutes };
+  await enqueueJob(PASSWORD_RESET_QUEUE, request);
+}
+
+/** Sends a reset link when the e-mail belongs to an active account; any other address gets nothing. */
+export async function sendPasswordReset(request: ResetRequest): Promise<void> {
+  const identity = await findIdentityByEmail(request.email);
   if (!identity || identity.disabled_at) {
-    await recordAudit({ coopId: null, actorUserId: null, action: 'password_reset.unknown_email', ip: input.ip });
+    await recordAudit({ coopId: null, actorUserId: null, action: 'password_reset.unknown_email', ip: request.ip });
     return;
   }
   await withTenant({ coopId: identity.coop_id }, async (tx) => {
     const user = await findUser(identity.id, tx);
     if (!user) return;
-    const token = await issueToken({ userId: user.id, coopId: user.coopId, purpose: 'reset_password', ttlMinutes: opts.ttlMinutes }, tx);
-    await recordAudit({ coopId: user.coopId, actorUserId: user.id, action: 'password_reset.requested', ip: input.ip }, tx);
-    const mail = passwordResetMail({ to: user.email, name: user.name, url: `${opts.appUrl}/set-password?token=${token}`, ttlMinutes: opts.ttlMinutes });
+    const token = await issueToken({ userId: user.id, coopId: user.coopId, purpose: 'reset_password', ttlMinutes: request.ttlMinutes }, tx);
+    await recordAudit({ coopId: user.coopId, actorUserId: user.id, action: 'password_reset.requested', ip: request.ip }, tx);
+    const mail = passwordResetMail({ to: user.email, name: user.name, url: `${request.appUrl}/set-password?token=${token}`, ttlMinutes: request.ttlMinutes });
     await queueMail(tx, `password-reset:${user.id}:${hashToken(token)}`, mail);
   });
 }
+
+handleJobs<ResetRequest>(PASSWORD_RESET_QUEUE, sendPasswordReset);
 
 /**
  * Sets a password from a single-use link (reset, or a new member's first password). Every other

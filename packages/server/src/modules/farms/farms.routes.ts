@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { farmProfileUpdateSchema, uuidParamSchema } from '@burrowline/shared';
+import { uuidParamSchema } from '@burrowline/shared';
 import { actorOf, requireUser } from '../../http/ability';
 import { getFarm, listFarms, updateFarmProfile } from './farms.service';
 
@@ -17,7 +17,7 @@ export function farmRoutes(): Router {
 
   router.patch('/:farmId', async (req, res) => {
     const farmId = uuidParamSchema.parse(req.params.farmId);
-    res.json(await updateFarmProfile(actorOf(req), farmId, farmProfileUpdateSchema.parse(req.body)));
+    res.json(await updateFarmProfile(actorOf(req), farmId, req.body));
   });
 
   return router;

@@ -1,6 +1,6 @@
 import { ForbiddenError } from '@casl/ability';
 import { col, fn, Op, where, type Transaction } from 'sequelize';
-import { defineAbilityFor, RealtimeEvent, rooms, subjectOf, type FarmDto, type FarmProfileInput, type FarmProfileUpdateInput } from '@burrowline/shared';
+import { defineAbilityFor, farmProfileUpdateSchema, RealtimeEvent, rooms, subjectOf, type FarmDto, type FarmProfileInput } from '@burrowline/shared';
 import { accessibleWhere } from '../../db/scope';
 import { withTenant } from '../../db/tenant';
 import { AppError } from '../../lib/app-error';
@@ -41,12 +41,14 @@ export async function getFarm(actor: SessionUser, farmId: string): Promise<FarmD
  * Edits a farm's profile. Only the farm's own members may; the edit must be made from the current
  * version (else 409), is kept in the record's history and is announced live to the co-op.
  */
-export async function updateFarmProfile(actor: SessionUser, farmId: string, input: FarmProfileUpdateInput): Promise<FarmDto> {
+/** The body is read only once the actor may edit the farm, so someone who may not learns nothing from a 400. */
+export async function updateFarmProfile(actor: SessionUser, farmId: string, body: unknown): Promise<FarmDto> {
   return withTenant(actor, async (tx) => {
     // Row lock first (FOR UPDATE cannot cover the outer join), members after.
     const farm = await Farm.findOne({ where: { id: farmId, coopId: actor.coopId }, transaction: tx, lock: tx.LOCK.UPDATE });
     if (!farm) throw AppError.notFound('That farm');
     ForbiddenError.from(defineAbilityFor(actor)).throwUnlessCan('update', subjectOf('Farm', { id: farm.id, coopId: farm.coopId }));
+    const input = farmProfileUpdateSchema.parse(body);
     if (farm.version !== input.version) throw AppError.staleVersion();
 
     const { version: _version, ...fields } = input;

@@ -28,6 +28,8 @@ import { renderCertificate } from './pedigree-certificate';
 /** Rows checked between two progress reports of a large file. */
 const CHECK_SLICE = 1000;
 const UNCONFIRMED_KEPT_MS = 24 * 60 * 60 * 1000;
+/** Unconfirmed files a farm may keep at once: each holds a whole spreadsheet for a day. */
+export const MAX_STAGED_IMPORTS_PER_FARM = 10;
 
 export interface ImportLimits {
   maxRows: number;
@@ -125,9 +127,17 @@ export async function stageHerdImport(
   const farmId = importingFarmOf(actor);
   if (input.content.length === 0) throw AppError.validation({ file: ['The file is empty'] }, 'The file is empty');
   return withTenant(actor, async (tx) => {
+    // Counted before the file is read, under a per-farm lock so parallel uploads cannot pass together.
+    await HerdImport.sequelize!.query('SELECT pg_advisory_xact_lock(hashtext($1))', { bind: [`herd-import:${farmId}`], transaction: tx });
+    await HerdImport.destroy({ where: { farmId, status: 'ready', createdAt: { [Op.lt]: new Date(Date.now() - UNCONFIRMED_KEPT_MS) } }, transaction: tx });
+    const waiting = await HerdImport.count({ where: { farmId, status: 'ready' }, transaction: tx });
+    if (waiting >= MAX_STAGED_IMPORTS_PER_FARM) {
+      throw AppError.conflict(
+        `${waiting} spreadsheets are already waiting to be imported into this farm's herd. Import or discard one of them first; unconfirmed files are removed after a day.`,
+      );
+    }
     const { result, mapping, checksum, hadByteOrderMark } = await checkFile(actor, farmId, input.content, limits, tx, { idFor: () => randomUUID(), onProgress });
     await onProgress?.({ phase: 'saving', done: 0, total: 1 });
-    await HerdImport.destroy({ where: { farmId, status: 'ready', createdAt: { [Op.lt]: new Date(Date.now() - UNCONFIRMED_KEPT_MS) } }, transaction: tx });
     const row = await HerdImport.create(
       {
         coopId: actor.coopId,

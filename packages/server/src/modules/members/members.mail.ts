@@ -38,3 +38,17 @@ export function setPasswordLinkMail(opts: { to: string; name: string; coopName: 
     action: { label: 'Set your password', url: opts.url },
   });
 }
+
+/** To the holder of an address an admin of another co-op invited: the admin was answered as usual. */
+export function invitationForAccountHolderMail(opts: { to: string; inviterName: string; coopName: string; signInUrl: string }) {
+  return composeMail({
+    to: opts.to,
+    subject: `${opts.inviterName} tried to invite you to ${opts.coopName}`,
+    greeting: 'Hello,',
+    paragraphs: [
+      `${opts.inviterName} tried to invite this e-mail address to ${opts.coopName} on Burrowline. It already has a Burrowline account, so no invitation was made and ${opts.coopName} was not told about your account.`,
+      `If you want to join ${opts.coopName} as well, ask ${opts.inviterName} to invite another address of yours. Otherwise there is nothing to do; your account is unchanged.`,
+    ],
+    action: { label: 'Sign in to your account', url: opts.signInUrl },
+  });
+}

@@ -17,6 +17,7 @@ import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { queueMail } from '../../lib/mail-outbox';
 import { disconnectRoom, publish } from '../../lib/realtime';
+import { revokeFeedsNoLongerAllowed } from '../almanac/calendar-feed.service';
 import { findPendingApplicationId } from '../applications/applications.service';
 import { lastSignIns, recordAudit } from '../audit/audit.service';
 import { hashToken, issueToken } from '../one-time-tokens/one-time-tokens.service';
@@ -35,10 +36,11 @@ import {
   namesOf,
   reviveInvitee,
   setRole,
+  unsavedUser,
   type UserRecord,
 } from '../users/users.service';
 import { Invitation } from './invitation.model';
-import { invitationMail, setPasswordLinkMail } from './members.mail';
+import { invitationForAccountHolderMail, invitationMail, setPasswordLinkMail } from './members.mail';
 import { presentMember } from './members.presenter';
 
 /** Where set-password links point, how long they live, and the request's address for the audit log. */
@@ -136,6 +138,7 @@ export async function changeMemberRole(actor: SessionUser, userId: string, input
     }
     const from = user.role;
     await setRole(user, input.role, tx);
+    await revokeFeedsNoLongerAllowed(user, tx, actor.id);
     await recordAudit(
       { coopId: actor.coopId, actorUserId: actor.id, action: 'member.role_changed', subjectType: 'User', subjectId: user.id, details: { name: user.name, from, to: input.role }, ip: ctx.ip },
       tx,
@@ -155,6 +158,7 @@ export async function disableMember(actor: SessionUser, userId: string, input: M
     assertVersion(user, input.version);
     if (user.disabledAt) throw AppError.conflict(`${user.name}'s account is already turned off.`);
     await disableUser(user, input.reason, tx);
+    await revokeFeedsNoLongerAllowed(user, tx, actor.id);
     await recordAudit(
       { coopId: actor.coopId, actorUserId: actor.id, action: 'member.disabled', subjectType: 'User', subjectId: user.id, details: { name: user.name, reason: input.reason }, ip: ctx.ip },
       tx,
@@ -196,6 +200,34 @@ async function isNewFarmNameClaimed(coopId: string, name: string, tx: Transactio
 }
 
 /**
+ * The answer an invitation of a new address gets, for an address whose account is in another co-op:
+ * nothing is stored, and the holder learns of it by e-mail (at most once a day per co-op), so the
+ * admin is not told that the address has an account.
+ */
+async function answerAsInvited(
+  actor: SessionUser,
+  input: InvitationInput,
+  farm: { farmName: string; existingFarmId: string | null; appUrl: string },
+  tx: Transaction,
+): Promise<MemberDto> {
+  const coopName = (await getCoop(actor.coopId, tx))?.name ?? 'the co-op';
+  const mail = invitationForAccountHolderMail({ to: input.email, inviterName: actor.name, coopName, signInUrl: `${farm.appUrl}/sign-in` });
+  const day = new Date().toISOString().slice(0, 10);
+  await queueMail(tx, `invitation-to-account-holder:${hashToken(input.email.trim().toLowerCase())}:${day}`, mail);
+  const user = unsavedUser({ coopId: actor.coopId, farmId: null, email: input.email, name: input.name, role: input.role, passwordHash: null });
+  const invitation = Invitation.build({
+    coopId: actor.coopId,
+    userId: user.id,
+    invitedByUserId: actor.id,
+    farmId: farm.existingFarmId,
+    newFarmName: input.farm.kind === 'new' ? input.farm.name : null,
+    createdAt: new Date(),
+  });
+  const farmNames = new Map(farm.existingFarmId ? [[farm.existingFarmId, farm.farmName]] : []);
+  return presentMember(user, { invitation, names: new Map([[actor.id, actor.name]]), farmNames, lastSignInAt: null });
+}
+
+/**
  * Invites someone directly by e-mail: their account exists at once without a password, and the
  * e-mailed single-use link lets them set one; their farm is created (or the chosen farm joined) then.
  */
@@ -204,14 +236,19 @@ export async function inviteMember(actor: SessionUser, input: InvitationInput, c
   ForbiddenError.from(defineAbilityFor(actor)).throwUnlessCan('create', subjectOf('User', { coopId: actor.coopId }));
   return withTenant(actor, async (tx) => {
     let revived: UserRecord | null = null;
+    let accountElsewhere = false;
     if (await isEmailRegistered(input.email, tx)) {
-      // Only a withdrawn invitation of this co-op may be sent again to the same address.
+      // The roster shows this co-op's people anyway; an account of another co-op is never revealed.
       const existing = await findUserByEmail(input.email, tx);
-      if (!existing || existing.passwordHash || existing.disabledReason !== INVITATION_WITHDRAWN) {
-        const message = 'This e-mail address already belongs to a Burrowline account.';
+      if (!existing) {
+        accountElsewhere = true;
+      } else if (existing.passwordHash || existing.disabledReason !== INVITATION_WITHDRAWN) {
+        // Only a withdrawn invitation of this co-op may be sent again to the same address.
+        const message = `${existing.name} already has this e-mail address in the co-op; find them in the member list.`;
         throw AppError.conflict(message, { email: [message] });
+      } else {
+        revived = existing;
       }
-      revived = existing;
     }
     if (await findPendingApplicationId(actor.coopId, input.email, tx)) {
       const message = 'An application from this address is waiting in the queue. Approve it there instead.';
@@ -231,6 +268,10 @@ export async function inviteMember(actor: SessionUser, input: InvitationInput, c
         const message = `A farm called "${farmName}" is already in the co-op or on its way in. Choose another name, or invite them to that farm.`;
         throw AppError.conflict(message, { 'farm.name': [message] });
       }
+    }
+
+    if (accountElsewhere) {
+      return answerAsInvited(actor, input, { farmName, existingFarmId, appUrl: ctx.appUrl }, tx);
     }
 
     let user: UserRecord;
@@ -329,6 +370,7 @@ export async function revokeInvitation(actor: SessionUser, userId: string, ctx: 
     invitation.set({ status: 'revoked', revokedAt: new Date(), revokedByUserId: actor.id });
     await invitation.save({ transaction: tx });
     await disableUser(user, INVITATION_WITHDRAWN, tx);
+    await revokeFeedsNoLongerAllowed(user, tx, actor.id);
     await recordAudit(
       { coopId: actor.coopId, actorUserId: actor.id, action: 'invitation.revoked', subjectType: 'User', subjectId: user.id, details: { name: user.name, email: user.email }, ip: ctx.ip },
       tx,
@@ -368,6 +410,8 @@ export async function acceptPendingInvitation(user: UserRecord, tx: Transaction,
     created = true;
   }
   await attachToFarm(user, farmId, tx);
+  // Joining another farm leaves the old one: feeds of the old farm's Almanac stop.
+  await revokeFeedsNoLongerAllowed(user, tx, user.id);
   invitation.set({ status: 'accepted', acceptedAt: new Date(), farmId });
   await invitation.save({ transaction: tx });
   await recordAudit(

@@ -38,6 +38,22 @@ export async function isEmailRegistered(email: string, tx?: Transaction): Promis
   return rows.length > 0;
 }
 
+/**
+ * A person as an answer would show them, never saved: lets an answer about an address with an account
+ * elsewhere look exactly like one about a new address.
+ */
+export function unsavedUser(input: NewUser): User {
+  return User.build({
+    mentorId: null,
+    disabledAt: null,
+    disabledReason: null,
+    version: 0,
+    ...input,
+    email: input.email.trim().toLowerCase(),
+    createdAt: new Date(),
+  });
+}
+
 /** Someone of the actor's co-op by e-mail, inside the tenant transaction. */
 export async function findUserByEmail(email: string, tx: Transaction): Promise<User | null> {
   return User.findOne({ where: where(fn('lower', col('email')), email.trim().toLowerCase()), transaction: tx });

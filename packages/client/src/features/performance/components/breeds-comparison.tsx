@@ -1,5 +1,5 @@
 import { Bar, BarChart, CartesianGrid, LabelList, ResponsiveContainer, Tooltip, XAxis, YAxis } from 'recharts';
-import { GRAMS_PER_OUNCE, PUBLISHED_FEED_CONVERSION, PUBLISHED_GAIN, type BreedRow, type ComparisonMetric, type MetricSummary, type WeightUnit } from '@burrowline/shared';
+import { GRAMS_PER_OUNCE, PUBLISHED_FEED_CONVERSION, PUBLISHED_GAIN, type BreedRow, type ComparisonMetric, type MetricSummary, toFixedHalfUp, type WeightUnit } from '@burrowline/shared';
 import { Card } from '../../../components/ui/card';
 import { dash, sampleWords } from '../performance-format';
 
@@ -17,10 +17,10 @@ interface MetricView {
 
 function views(unit: WeightUnit): MetricView[] {
   const gain = unit === 'lb_oz'
-    ? { value: (g: number) => Math.round((g / GRAMS_PER_OUNCE) * 100) / 100, text: (g: number) => `${(g / GRAMS_PER_OUNCE).toFixed(2)} oz/day` }
-    : { value: (g: number) => Math.round(g * 10) / 10, text: (g: number) => `${g.toFixed(1)} g/day` };
+    ? { value: (g: number) => Math.round((g / GRAMS_PER_OUNCE) * 100) / 100, text: (g: number) => `${toFixedHalfUp(g / GRAMS_PER_OUNCE, 2)} oz/day` }
+    : { value: (g: number) => Math.round(g * 10) / 10, text: (g: number) => `${toFixedHalfUp(g, 1)} g/day` };
   return [
-    { metric: 'adgGramsPerDay', title: 'Daily gain in grow-out', noun: 'group', ...gain, reference: `Published: ${PUBLISHED_GAIN.gramsPerDay} g/day${unit === 'lb_oz' ? ` (${(PUBLISHED_GAIN.gramsPerDay / GRAMS_PER_OUNCE).toFixed(2)} oz/day)` : ''} from birth to 8 weeks (Rao et al. 1977); gain after weaning is faster` },
+    { metric: 'adgGramsPerDay', title: 'Daily gain in grow-out', noun: 'group', ...gain, reference: `Published: ${PUBLISHED_GAIN.gramsPerDay} g/day${unit === 'lb_oz' ? ` (${toFixedHalfUp(PUBLISHED_GAIN.gramsPerDay / GRAMS_PER_OUNCE, 2)} oz/day)` : ''} from birth to 8 weeks (Rao et al. 1977); gain after weaning is faster` },
     { metric: 'feedConversion', title: 'Feed conversion', noun: 'group', value: (x) => Math.round(x * 100) / 100, text: (x) => x.toFixed(2), lowerIsBetter: true,
       reference: `Published: ${PUBLISHED_FEED_CONVERSION.growOutPellets.ratio} on pellets (World Rabbit Science, NZW line study)` },
     { metric: 'bornAlive', title: 'Litter size (born alive)', noun: 'litter', value: (x) => Math.round(x * 10) / 10, text: (x) => x.toFixed(1), reference: '8–12 born is usual for medium meat breeds (common practice)' },
