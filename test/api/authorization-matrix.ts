@@ -1,3 +1,5 @@
+import type { LoanStage } from '../support/lent-animal';
+
 /**
  * Who may call what, against whose object → expected status. The generated tests in
  * authorization-<area>.test.ts run every cell, one file per area of `matrixAreas` below. Personas: `member` and `apprentice` and `admin` belong to
@@ -43,7 +45,10 @@ export type Target =
   | 'feedEntriesA'
   // Herd files: a photo of a fresh farm-A animal, a spreadsheet staged by farm A's member.
   | 'photoA'
-  | 'importA';
+  | 'importA'
+  // A lent buck of farm A with private records of farm A (notes field, note, weigh-in, photo, treatment):
+  // at home, lent to farm B (which records its own note, weigh-in and treatment), and back home.
+  | LoanStage;
 export type Body =
   | 'farmProfile'
   | 'application'
@@ -251,6 +256,29 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'GET', path: '/api/performance', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'GET', path: '/api/performance?period=all&farmId=:farmId', target: 'farmA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
   { method: 'DELETE', path: '/api/session', target: 'none', expect: { anonymous: 204, apprentice: 204, member: 204, otherFarmMember: 204, admin: 204, otherCoop: 204 } },
+
+  // A lent animal: its private records belong to the farm that recorded them. Farm B sees the pedigree card
+  // before and after the loan, and during it the buck and what B records, never farm A's notes, weigh-ins,
+  // photos, treatments or certificate; farm A never sees B's. Every 2xx answer is checked for the other
+  // farm's ids and texts (test/support/authorization-cells.ts).
+  { method: 'GET', path: '/api/animals/:animalId', target: 'beforeLoan', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/animals/:animalId/weigh-ins', target: 'beforeLoan', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/animals/:animalId/photos', target: 'beforeLoan', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/photos/:photoId', target: 'beforeLoan', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/pedigree-certificates/:animalId', target: 'beforeLoan', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/treatments?animalId=:animalId', target: 'beforeLoan', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/animals/:animalId', target: 'duringLoan', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/animals/:animalId/weigh-ins', target: 'duringLoan', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/animals/:animalId/photos', target: 'duringLoan', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/photos/:photoId', target: 'duringLoan', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/pedigree-certificates/:animalId', target: 'duringLoan', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/treatments?animalId=:animalId', target: 'duringLoan', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/animals/:animalId', target: 'afterLoan', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/animals/:animalId/weigh-ins', target: 'afterLoan', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/animals/:animalId/photos', target: 'afterLoan', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/photos/:photoId', target: 'afterLoan', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/pedigree-certificates/:animalId', target: 'afterLoan', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/treatments?animalId=:animalId', target: 'afterLoan', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
 ];
 
 /**

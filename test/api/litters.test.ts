@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { addDays, RealtimeEvent, type AlmanacTaskDto, type LitterDto } from '@burrowline/shared';
+import { addDays, RealtimeEvent, type AgendaDto, type AlmanacTaskDto, type LitterDto } from '@burrowline/shared';
 import { almanacCounts, breedingPair, daysAgo, farmToday, fosteringAs, kindlingAs, litterAs, serviceAs, taskRows } from '../support/almanac';
 import { asTenant } from '../support/db';
 import { createTestCoop, TEST_PASSWORD, type TestCoop } from '../support/factories';
@@ -16,6 +16,23 @@ afterAll(async () => {
 const byKey = (tasks: AlmanacTaskDto[]) => Object.fromEntries(tasks.map((t) => [t.key, t]));
 
 describe('kindling: the litter and the plan from the real date', () => {
+  it('when she kindles while her nest box task is days late, then the kindling closes it and the agenda no longer calls it late', async () => {
+    const coop = await createTestCoop();
+    const { doe, buck } = await breedingPair(coop.member, { doe: 'Bramble' });
+    const servicedOn = daysAgo(33);
+    const service = await serviceAs(coop.member, { doeId: doe.id, buckId: buck.id, servicedOn });
+    const agent = await agentOf(coop.member.email);
+    const agendaOf = async () => (await agent.get('/api/almanac/tasks').query({ from: servicedOn, to: farmToday() }).expect(200)).body as AgendaDto;
+    const lateBefore = (await agendaOf()).tasks.find((t) => t.kind === 'nest_box_in' && t.serviceId === service.id);
+    expect(lateBefore).toMatchObject({ state: 'open', timing: 'overdue', daysLate: 5 });
+
+    await agent.post('/api/litters').send({ serviceId: service.id, kindledOn: farmToday(), bornAlive: 7, bornDead: 0 }).expect(201);
+    const nestBox = (await taskRows(coop.id, { serviceId: service.id })).find((r) => r.kind === 'nest_box_in');
+    expect(nestBox).toMatchObject({ state: 'skipped', state_reason: 'Kindled on day 33; the nest box task closes with the kindling' });
+    const after = (await agendaOf()).tasks.filter((t) => t.serviceId === service.id && (t.timing === 'overdue' || t.timing === 'due_today'));
+    expect(after).toEqual([]);
+  });
+
   it('when she kindles on day 30, then the service closes and nest box out, weigh-ins, weaning and breed-back count from that day', async () => {
     const coop = await createTestCoop();
     const { doe, buck } = await breedingPair(coop.member, { doe: 'Willow' });

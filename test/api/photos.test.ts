@@ -165,14 +165,18 @@ describe('who sees an animal\'s photos', () => {
     await apprentice.delete(`/api/photos/${(list.body.photos[0] as PhotoDto).id}`).expect(403);
   });
 
-  it('when the animal is lent to another farm, then the farm keeping it sees its photos, and only its owner changes them', async () => {
+  it('when the animal is lent to another farm, then the farm keeping it does not see the owner\'s photos, and only its owner changes them', async () => {
     const buck = await addAnimal(member, { tattoo: 'PH-L', sex: 'buck', name: 'Lent buck' });
     const { body } = await upload(member, buck.id, [{ body: await testImage('jpeg', { width: 80, height: 80 }), name: 'buck.jpg', type: 'image/jpeg' }]).expect(201);
     await member.post(`/api/animals/${buck.id}/custody-events`).send({ kind: 'lent', toFarmId: coop.farms[1]!.id, movedOn: '2024-06-01' }).expect(201);
     const borrower = await signedInAgent(coop.otherFarmMember.email, TEST_PASSWORD, handle);
-    await borrower.get(body.photos[0].url).expect(200);
+    // Photos belong to the farm that took them, like notes and weigh-ins.
+    await borrower.get(body.photos[0].url).expect(404);
+    await borrower.patch(`/api/photos/${body.photos[0].id}`).send({ caption: 'Mine now' }).expect(404);
     const list = await borrower.get(`/api/animals/${buck.id}/photos`).expect(200);
-    expect(list.body.canChange).toBe(false);
+    expect(list.body).toMatchObject({ photos: [], canChange: false });
+    const owners = await member.get(`/api/animals/${buck.id}/photos`).expect(200);
+    expect(owners.body).toMatchObject({ photos: [{ id: body.photos[0].id }], canChange: true });
   });
 });
 

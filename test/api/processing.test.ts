@@ -23,6 +23,22 @@ const recordRow = (coopId: string, id: string) =>
        FROM processing_records WHERE id = $1`, [id])).rows[0]);
 
 describe('processing records and their yields', () => {
+  it('when 3 heads of a 17-head group are processed, then the group list, its page and the weigh-in form count 14', async () => {
+    const coop = await createTestCoop();
+    const { group } = await growingGroupAs(coop.member, { kindledDaysAgo: 80, heads: 17, name: 'Oat pen' });
+    const agent = await agentOf(coop.member.email);
+    await agent.post('/api/processing-records').send({ groupId: group.id, processedOn: daysAgo(1), headCount: 3, liveGrams: 7200, hotCarcassGrams: 3960 }).expect(201);
+
+    const list = await agent.get('/api/grow-out/groups').query({ status: 'growing' }).expect(200);
+    expect(list.body.groups.find((g: { id: string }) => g.id === group.id)).toMatchObject({ heads: 17, currentHeads: 14 });
+    const page = await agent.get(`/api/grow-out/groups/${group.id}`).expect(200);
+    expect(page.body).toMatchObject({ heads: 17, currentHeads: 14 });
+    const tooMany = await agent.post(`/api/grow-out/groups/${group.id}/weigh-ins`).send({ weighedOn: farmToday(), totalGrams: 40_000, headCount: 17 });
+    expect(tooMany.status).toBe(400);
+    expect(tooMany.body.error.details.headCount).toEqual(['The group has 14 heads; 17 is more']);
+    await agent.post(`/api/grow-out/groups/${group.id}/weigh-ins`).send({ weighedOn: farmToday(), totalGrams: 33_600, headCount: 14 }).expect(201);
+  });
+
   it('when a member processes a fryer from the Herd, then dress-out and USDA class are computed and kept, and the Herd shows it processed', async () => {
     const coop = await createTestCoop();
     const fryer = await addAnimalAs(coop.member, { sex: 'buck', name: 'Pippin', birthDate: daysAgo(70) });

@@ -15,6 +15,7 @@ import {
 } from './factories';
 import { herdFilesPath, herdFilesSend, herdFilesStateOf, herdFilesTarget } from './herd-files-matrix';
 import { herdBody, herdStateOf, herdTarget } from './herd-matrix';
+import { loanTarget, tracesHiddenFrom } from './lent-animal';
 import { agentFor, ROOMY_SIGN_IN, sharedSignedInAgent, signedInAgent, testApp, type Agent } from './test-app';
 
 /**
@@ -133,7 +134,7 @@ export function describeMatrixArea(area: MatrixArea) {
         it(`when ${persona} calls ${row.method} ${row.path} on ${row.target}, then it answers ${status}`, async () => {
           const agent = await agentOf(persona, row);
           const farmId = row.target === 'farmA' ? coop.farms[0]!.id : row.target === 'farmB' ? coop.farms[1]!.id : '';
-          const ids = { farmId, ...(await membershipTarget(row.target)), ...(await herdTarget(coop, row.target)), ...(await almanacTarget(coop, row.target)), ...(await herdFilesTarget(coop, row.target)) };
+          const ids = { farmId, ...(await membershipTarget(row.target)), ...(await herdTarget(coop, row.target)), ...(await almanacTarget(coop, row.target)), ...(await herdFilesTarget(coop, row.target)), ...(await loanTarget(coop, row.target)) };
           const url = row.path
             .replace(':farmId', farmId)
             .replace(':coopSlug', coop.slug)
@@ -153,6 +154,11 @@ export function describeMatrixArea(area: MatrixArea) {
           const method = row.method.toLowerCase() as 'get' | 'patch' | 'delete' | 'post' | 'put';
           const res = await herdFilesSend(agent[method](path), row.body, body);
           expect(res.status).toBe(status);
+          if (status < 300 && ids.loan) {
+            // A lent animal's answers carry no trace of the other farm's private records.
+            const answer = res.text ?? JSON.stringify(res.body);
+            for (const trace of tracesHiddenFrom(ids.loan, persona)) expect(answer, `${persona} sees ${trace}`).not.toContain(trace);
+          }
           if (status >= 400) {
             expect(res.body.error.code).toBeTypeOf('string');
             expect(await stateOf(ids, persona)).toEqual(before); // a refusal changes nothing

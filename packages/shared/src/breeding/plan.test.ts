@@ -103,6 +103,19 @@ describe('what a kindling does to the service tasks', () => {
       { id: 's1-3', reason: 'Kindled on day 27' },
     ]);
   });
+
+  it('when she kindles after the nest box fell due and its task is still open or was moved, then the kindling closes it too', () => {
+    for (const state of ['open', 'moved'] as const) {
+      const tasks = stored(planFromService('2026-03-02', DEFAULT_CYCLE_SETTINGS), 's1', state);
+      const result = settleServiceTasksOnKindling(tasks, '2026-04-02');
+      expect(result.done).toEqual(['s1-2']);
+      expect(result.skipped).toEqual([
+        { id: 's1-0', reason: 'Kindled on day 31 before a palpation was recorded' },
+        { id: 's1-1', reason: 'Kindled on day 31; the nest box task closes with the kindling' },
+        { id: 's1-3', reason: 'Kindled on day 31' },
+      ]);
+    }
+  });
 });
 
 describe('tasks that surface by themselves', () => {

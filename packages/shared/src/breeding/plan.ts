@@ -234,20 +234,21 @@ export interface KindlingSettlement {
 }
 
 /**
- * What a recorded kindling does to its service's open tasks: the kindling task is done; the overdue alert
- * and a palpation not yet done are skipped; an open nest-box task is skipped when she kindled before it
- * fell due (the kits came early) and otherwise left for the breeder to tick.
+ * What a recorded kindling does to its service's open (or moved) tasks: the kindling task is done; the
+ * overdue alert, a palpation not yet done and a nest box not yet ticked are skipped with the reason, since
+ * the kits are born and none of them can still be late.
  */
 export function settleServiceTasksOnKindling(serviceTasks: ReadonlyArray<TaskRecord>, kindlingDate: string): KindlingSettlement {
   const out: KindlingSettlement = { done: [], skipped: [] };
   for (const t of serviceTasks) {
-    if (t.anchor !== 'service' || t.state !== 'open') continue;
+    if (t.anchor !== 'service' || (t.state !== 'open' && t.state !== 'moved')) continue;
     const day = daysBetween(t.anchorDate, kindlingDate);
     if (t.kind === 'kindling_due') out.done.push(t.id);
     else if (t.kind === 'kindling_overdue') out.skipped.push({ id: t.id, reason: `Kindled on day ${day}` });
     else if (t.kind === 'palpation') out.skipped.push({ id: t.id, reason: `Kindled on day ${day} before a palpation was recorded` });
-    else if (t.kind === 'nest_box_in' && kindlingDate < t.dueOn) {
-      out.skipped.push({ id: t.id, reason: `Kindled on day ${day}, before the nest box was due` });
+    else if (t.kind === 'nest_box_in') {
+      const reason = kindlingDate < t.dueOn ? `Kindled on day ${day}, before the nest box was due` : `Kindled on day ${day}; the nest box task closes with the kindling`;
+      out.skipped.push({ id: t.id, reason });
     }
   }
   return out;

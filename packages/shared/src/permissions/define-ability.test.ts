@@ -216,3 +216,51 @@ describe('defineAbilityFor: herd files', () => {
     expect(a.can('read', own('HerdImport'))).toBe(false);
   });
 });
+
+describe('defineAbilityFor: a lent animal\'s private records belong to the farm that recorded them', () => {
+  const lender: AbilityUser = member;
+  const borrower: AbilityUser = { id: 'u-borrower', coopId, role: 'member', farmId: 'farm-2', mentorId: null };
+  const borrowersApprentice: AbilityUser = { id: 'u-b-app', coopId, role: 'apprentice', farmId: 'farm-2', mentorId: 'u-borrower' };
+  const privateTypes = ['WeighIn', 'AnimalNote', 'Photo', 'Treatment'] as const;
+  /** A record of the buck that farm-1 owns, recorded by `recordedBy` (`byAnOwner`: that farm owned the buck then). */
+  const record = (type: (typeof privateTypes)[number], recordedBy: string, byAnOwner = recordedBy === farmId) =>
+    subjectOf(type, { coopId, farmId: recordedBy, animalOwningFarmId: farmId, byAnOwner });
+
+  it('when the buck is lent out, then the borrower reads the buck and its own records, never the lender\'s notes, weights, photos, treatments or papers', () => {
+    for (const person of [borrower, borrowersApprentice]) {
+      const a = defineAbilityFor(person);
+      expect(a.can('read', animal(farmId, 'farm-2'))).toBe(true);
+      expect(a.can('read', animal(farmId, 'farm-2'), 'notes')).toBe(false);
+      expect(a.can('read', animal(farmId, 'farm-2'), 'certificate')).toBe(false);
+      for (const type of privateTypes) {
+        expect(a.can('read', record(type, farmId)), `${person.role} reads the lender's ${type}`).toBe(false);
+        expect(a.can('read', record(type, 'farm-2')), `${person.role} reads its own ${type}`).toBe(true);
+      }
+    }
+  });
+
+  it('when the buck is lent out or back home, then the lender reads its own records and papers, never what the borrower recorded', () => {
+    for (const person of [lender, apprentice]) {
+      const a = defineAbilityFor(person);
+      for (const buck of [animal(farmId, 'farm-2'), animal(farmId)]) {
+        expect(a.can('read', buck, 'notes')).toBe(true);
+        expect(a.can('read', buck, 'certificate')).toBe(true);
+      }
+      for (const type of privateTypes) {
+        expect(a.can('read', record(type, farmId)), `${person.role} reads its own ${type}`).toBe(true);
+        expect(a.can('read', record(type, 'farm-2')), `${person.role} reads the borrower's ${type}`).toBe(false);
+      }
+    }
+  });
+
+  it('when an animal was sold to the farm, then the buyer reads the history its former owners recorded, not a former borrower\'s', () => {
+    const buyer = defineAbilityFor(borrower);
+    const sold = (type: (typeof privateTypes)[number], recordedBy: string, byAnOwner: boolean) =>
+      subjectOf(type, { coopId, farmId: recordedBy, animalOwningFarmId: 'farm-2', byAnOwner });
+    for (const type of ['WeighIn', 'AnimalNote', 'Photo'] as const) {
+      expect(buyer.can('read', sold(type, farmId, true))).toBe(true);
+      expect(buyer.can('read', sold(type, 'farm-3', false))).toBe(false);
+    }
+    expect(buyer.can('read', animal('farm-2'), 'notes')).toBe(true);
+  });
+});

@@ -36,6 +36,8 @@ export type SubjectName =
   | 'OutsideAnimal'
   | 'WeighIn'
   | 'AnimalNote'
+  /** An animal's photo: `{ farmId }` is the farm that took it, like the other private records. */
+  | 'Photo'
   | 'HerdImport'
   // The Almanac and litters: farm-private, subjects carry { farmId }.
   | 'CycleSettings'
@@ -69,6 +71,24 @@ export type AppAbility = MongoAbility<[Action, SubjectName | Record<string, unkn
 /** Tags a plain object (a row, a DTO) with its subject type so `ability.can` can match conditions. */
 export function subjectOf(type: SubjectName, object: Record<string, unknown>): Record<string, unknown> {
   return subject(type, { ...object }) as Record<string, unknown>;
+}
+
+/**
+ * The animal's fields only its owning farm reads: its own notes (prices, health remarks) and the pedigree
+ * certificate it issues. A farm keeping a lent animal reads the rest of the record.
+ */
+export const ownerOnlyAnimalFields = ['notes', 'certificate'] as const;
+
+/**
+ * The private records of an animal (weigh-ins, notes, photos, treatments) belong to the farm that recorded
+ * them, `{ farmId }`, never to whoever keeps the animal now: a borrower never reads the lender's, nor the
+ * lender the borrower's. Subjects of such a record about an animal also carry `animalOwningFarmId` and
+ * `byAnOwner` (the recording farm owned the animal), so a sold animal's history goes with it to the buyer.
+ */
+function privateRecordRules(can: AbilityBuilder<AppAbility>['can'], cannot: AbilityBuilder<AppAbility>['cannot'], farmId: string): void {
+  can('read', ['WeighIn', 'AnimalNote', 'Photo', 'Treatment'], { farmId });
+  can('read', ['WeighIn', 'AnimalNote', 'Photo'], { animalOwningFarmId: farmId, byAnOwner: true });
+  cannot('read', 'Animal', [...ownerOnlyAnimalFields], { owningFarmId: { $ne: farmId } });
 }
 
 /** The facts about a signed-in person that permissions depend on. */
@@ -124,6 +144,7 @@ export function defineAbilityFor(user: AbilityUser | null): AppAbility {
       // Grow-out and results: read them (without money); weigh groups (pending review) and log the barn's temperature.
       can('read', ['GrowOutGroup', 'FeedRecord', 'TemperatureReading', 'ProcessingRecord', 'Performance'], { farmId });
       can('create', 'TemperatureReading', { farmId });
+      privateRecordRules(can, cannot, farmId);
     }
     can('manage', 'DigestSubscription', { userId: user.id });
     cannot('read', 'Money');
@@ -150,6 +171,7 @@ export function defineAbilityFor(user: AbilityUser | null): AppAbility {
     can('manage', ['CycleSettings', 'Service', 'Treatment', 'AlmanacTask', 'CalendarFeed', 'Litter', 'LitterEvent', 'HousingUnit'], { farmId });
     // Grow-out groups, feed bought and given, temperature readings, processing records, performance tables.
     can('manage', ['GrowOutGroup', 'FeedRecord', 'TemperatureReading', 'ProcessingRecord', 'Performance'], { farmId });
+    privateRecordRules(can, cannot, farmId);
   }
   can('manage', 'DigestSubscription', { userId: user.id });
   can('create', 'OutsideAnimal', { coopId });

@@ -1,5 +1,5 @@
 import type { Transaction } from 'sequelize';
-import { RealtimeEvent, rooms } from '@burrowline/shared';
+import { defineAbilityFor, RealtimeEvent, rooms } from '@burrowline/shared';
 import type { SessionUser } from '../../lib/session-user';
 import { publish } from '../../lib/realtime';
 import { breedMapOf } from '../breeds/breeds.service';
@@ -8,10 +8,11 @@ import { farmDirectoryOf } from '../farms/farms.service';
 import type { PresentContext } from './animals.presenter';
 
 /** Breeds, farms and "today" on the actor's own farm clock, loaded once per request. */
-export async function presentContextFor(actor: Pick<SessionUser, 'coopId' | 'farmId'>, tx: Transaction): Promise<PresentContext> {
+export async function presentContextFor(actor: Pick<SessionUser, 'coopId' | 'farmId'> & Partial<SessionUser>, tx: Transaction): Promise<PresentContext> {
   const breeds = await breedMapOf(actor.coopId, tx);
   const farms = await farmDirectoryOf(actor.coopId, tx);
-  return { breeds, farms, viewerFarmId: actor.farmId, today: farmTodayIn(farms, actor.farmId) };
+  const ability = actor.id && actor.role ? defineAbilityFor({ id: actor.id, coopId: actor.coopId, role: actor.role, farmId: actor.farmId, mentorId: actor.mentorId ?? null }) : null;
+  return { breeds, farms, viewerFarmId: actor.farmId, ability, today: farmTodayIn(farms, actor.farmId) };
 }
 
 /** Live updates after commit: the farms whose herd changed, and the co-op when pedigree figures moved. */

@@ -1,4 +1,4 @@
-import type { Transaction } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 import { pedigreeCompleteness, type AnimalDetailDto } from '@burrowline/shared';
 import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
@@ -8,18 +8,20 @@ import { AnimalStatusEvent } from './animal-status-event.model';
 import { query, selectAncestorIds, selectAnimalById, selectAnimals } from './animal-queries';
 import { presentAnimal, presentCard, standardBreedOf, type PresentContext } from './animals.presenter';
 import { CustodyEvent } from './custody-event.model';
+import { privateRecordFarmsOf } from './animal-facts.service';
 
 
 export async function detailOf(tx: Transaction, actor: SessionUser, ctx: PresentContext, animalId: string): Promise<AnimalDetailDto> {
-  const row = await selectAnimalById(tx, actor.coopId, animalId, { withWeights: true });
+  const row = await selectAnimalById(tx, actor.coopId, animalId, { weightsSeenBy: actor.farmId });
   if (!row) throw AppError.notFound('That animal');
+  const noteFarms = await privateRecordFarmsOf(actor, { id: animalId, owningFarmId: row.owning_farm_id }, 'AnimalNote', tx);
   const [statusEvents, custodyEvents, offspringRows, parentRows, ancestorIds, notes] = [
     await AnimalStatusEvent.findAll({ where: { animalId }, order: [['effectiveOn', 'ASC'], ['createdAt', 'ASC']], transaction: tx }),
     await CustodyEvent.findAll({ where: { animalId }, order: [['movedOn', 'ASC'], ['createdAt', 'ASC']], transaction: tx }),
     await selectAnimals(tx, actor.coopId, 'a.sire_id = $2 OR a.dam_id = $2', [animalId], { orderBy: 'a.birth_date DESC, a.tattoo' }),
     await selectAnimals(tx, actor.coopId, 'a.id = ANY($2::uuid[])', [[row.sire_id, row.dam_id].filter(Boolean)]),
     await selectAncestorIds(tx, actor.coopId, animalId, 4),
-    await AnimalNote.findAll({ where: { animalId }, order: [['notedOn', 'DESC'], ['createdAt', 'DESC']], transaction: tx }),
+    await AnimalNote.findAll({ where: { animalId, farmId: { [Op.in]: noteFarms } }, order: [['notedOn', 'DESC'], ['createdAt', 'DESC']], transaction: tx }),
   ];
   const ancestry = await query<{ id: string; sire_id: string | null; dam_id: string | null }>(
     tx,

@@ -1,9 +1,9 @@
 import type { Transaction } from 'sequelize';
-import { defineAbilityFor, type AnimalRefDto, type FarmRefDto, type Disposition, type Lifecycle, type Sex } from '@burrowline/shared';
+import { defineAbilityFor, subjectOf, type AnimalRefDto, type FarmRefDto, type Disposition, type Lifecycle, type Sex } from '@burrowline/shared';
 import type { SessionUser } from '../../lib/session-user';
 import { presentContextFor } from './animal-context';
 import { Animal } from './animal.model';
-import { selectAnimals, type AnimalRow } from './animal-queries';
+import { query, selectAnimals, type AnimalRow } from './animal-queries';
 import { animalSubject } from './animal-access';
 
 /*
@@ -113,6 +113,8 @@ export interface AnimalAccess {
   canRead: boolean;
   /** Its owning farm. */
   canUpdate: boolean;
+  /** Its owning farm's papers (the pedigree certificate it issues): not a farm that borrows it. */
+  canReadPapers: boolean;
 }
 
 /**
@@ -137,7 +139,36 @@ export async function animalAccess(actor: SessionUser, animalId: string, tx: Tra
     keepingFarmId: animal.keepingFarmId,
     canRead: ability.can('read', subject),
     canUpdate: ability.can('update', subject),
+    canReadPapers: ability.can('read', subject, 'certificate'),
   };
+}
+
+/** The kinds of an animal's private records that are listed by the farm that recorded them. */
+export type PrivateRecordKind = 'WeighIn' | 'AnimalNote' | 'Photo';
+
+/**
+ * The one scope of an animal's private records (weigh-ins, notes, photos): the farms whose records of it
+ * the viewer reads, as the ability decides. Those are the farm's own records, plus, on an animal the farm
+ * owns, those of farms that owned it before; never those of a farm that borrowed it or lent it. List
+ * queries filter on `farm_id IN (…)` with this, inside the caller's transaction.
+ */
+export async function privateRecordFarmsOf(
+  actor: SessionUser,
+  animal: { id: string; owningFarmId: string | null },
+  kind: PrivateRecordKind,
+  tx: Transaction,
+): Promise<string[]> {
+  if (!actor.farmId) return [];
+  const owners = await query<{ farm_id: string }>(
+    tx,
+    'SELECT DISTINCT owning_farm_id AS farm_id FROM animal_custody_events WHERE animal_id = $1 AND owning_farm_id IS NOT NULL',
+    [animal.id],
+  );
+  const ownerFarms = new Set([...owners.map((o) => o.farm_id), ...(animal.owningFarmId ? [animal.owningFarmId] : [])]);
+  const ability = defineAbilityFor(actor);
+  return [...new Set([actor.farmId, ...ownerFarms])].filter((farmId) =>
+    ability.can('read', subjectOf(kind, { coopId: actor.coopId, farmId, animalOwningFarmId: animal.owningFarmId, byAnOwner: ownerFarms.has(farmId) })),
+  );
 }
 
 /** Every co-op animal (not the outside ones from papers), for loading a breeding history. */

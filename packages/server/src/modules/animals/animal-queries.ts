@@ -47,42 +47,56 @@ const figures = `
   LEFT JOIN animal_inbreeding i ON i.animal_id = a.id
   LEFT JOIN animal_breed_makeups m ON m.animal_id = a.id`;
 
+/**
+ * The private records of animal `a` (alias `record`, with a `farm_id`) that the viewer's farm (`viewer`, a
+ * positional parameter) reads: its own, and, on an animal it owns, those of a farm that owned it (a sold
+ * animal's history). The SQL twin of the ability's private-record rules, for bulk reads.
+ */
+export function privateRecordScopeSql(record: string, viewer: string): string {
+  return `(${record}.farm_id = ${viewer} OR (a.owning_farm_id = ${viewer} AND EXISTS (
+    SELECT 1 FROM animal_custody_events owner_event
+    WHERE owner_event.animal_id = a.id AND owner_event.owning_farm_id = ${record}.farm_id)))`;
+}
+
 // Returned entries do not count; a pending one shows (as unverified) until it is reviewed.
-const latestWeight = `
+const latestWeight = (viewer: string) => `
   LEFT JOIN LATERAL (
     SELECT wi.total_grams, wi.weighed_on, wi.review_state FROM weigh_ins wi
     WHERE wi.animal_id = a.id AND wi.deleted_at IS NULL AND wi.review_state <> 'returned'
+      AND ${privateRecordScopeSql('wi', viewer)}
     ORDER BY wi.weighed_on DESC, wi.created_at DESC LIMIT 1
   ) w ON true`;
 
 /**
  * Animals of the current co-op matching `where` (SQL over alias `a`, with `$1` = the co-op id and
- * further positional parameters in `bind`). `withWeights` adds the latest weigh-in (farm-private:
- * only for full records, never for pedigree cards).
+ * further positional parameters in `bind`). `weightsSeenBy` adds the latest weigh-in that farm may read
+ * (farm-private: only for full records, never for pedigree cards).
  */
 export async function selectAnimals(
   tx: Transaction,
   coopId: string,
   where: string,
   bind: unknown[] = [],
-  opts: { withWeights?: boolean; orderBy?: string; limit?: number; offset?: number } = {},
+  opts: { weightsSeenBy?: string | null; orderBy?: string; limit?: number; offset?: number } = {},
 ): Promise<AnimalRow[]> {
-  const weightColumns = opts.withWeights
+  const withWeights = Boolean(opts.weightsSeenBy);
+  const params = withWeights ? [...bind, opts.weightsSeenBy] : bind;
+  const weightColumns = withWeights
     ? ', w.total_grams AS latest_grams, w.weighed_on::text AS latest_weighed_on, w.review_state AS latest_review_state'
     : ', NULL::integer AS latest_grams, NULL::text AS latest_weighed_on, NULL::text AS latest_review_state';
-  const sql = `SELECT ${columns}${weightColumns} FROM animals a ${figures} ${opts.withWeights ? latestWeight : ''}
+  const sql = `SELECT ${columns}${weightColumns} FROM animals a ${figures} ${withWeights ? latestWeight(`$${params.length + 1}`) : ''}
     WHERE a.coop_id = $1 AND a.deleted_at IS NULL AND (${where})
     ${opts.orderBy ? `ORDER BY ${opts.orderBy}` : ''} ${opts.limit ? `LIMIT ${Math.floor(opts.limit)}` : ''}
     ${opts.offset ? `OFFSET ${Math.floor(opts.offset)}` : ''}`;
-  return database().query<AnimalRow>(sql, { bind: [coopId, ...bind], type: QueryTypes.SELECT, transaction: tx });
+  return database().query<AnimalRow>(sql, { bind: [coopId, ...params], type: QueryTypes.SELECT, transaction: tx });
 }
 
-export async function selectAnimalById(tx: Transaction, coopId: string, id: string, opts: { withWeights?: boolean } = {}) {
+export async function selectAnimalById(tx: Transaction, coopId: string, id: string, opts: { weightsSeenBy?: string | null } = {}) {
   const [row] = await selectAnimals(tx, coopId, 'a.id = $2', [id], opts);
   return row ?? null;
 }
 
-export async function selectAnimalsByIds(tx: Transaction, coopId: string, ids: string[], opts: { withWeights?: boolean } = {}) {
+export async function selectAnimalsByIds(tx: Transaction, coopId: string, ids: string[], opts: { weightsSeenBy?: string | null } = {}) {
   if (ids.length === 0) return [];
   return selectAnimals(tx, coopId, 'a.id = ANY($2::uuid[])', [ids], opts);
 }

@@ -1,8 +1,12 @@
 import {
-  ageClassOf, daysBetween, seniorRangeFor, weightAgainstStandard, type AnimalDto, type BreedDto, type BreedMakeupDto,
+  ageClassOf, daysBetween, type AppAbility, subjectOf, seniorRangeFor, weightAgainstStandard, type AnimalDto, type BreedDto, type BreedMakeupDto,
   type CustodyStatus, type FarmRefDto, type PedigreeCardDto, type WeightUnit,
 } from '@burrowline/shared';
 import type { AnimalRow } from './animal-queries';
+
+function animalRowSubject(row: AnimalRow) {
+  return subjectOf('Animal', { coopId: row.coop_id, owningFarmId: row.owning_farm_id, keepingFarmId: row.keeping_farm_id });
+}
 
 export interface FarmInfo {
   id: string;
@@ -16,6 +20,8 @@ export interface PresentContext {
   breeds: Map<string, BreedDto>;
   farms: Map<string, FarmInfo>;
   viewerFarmId: string | null;
+  /** The viewer's ability, for the owner-only fields of a full record (none without it). */
+  ability: AppAbility | null;
   today: string;
 }
 
@@ -103,7 +109,8 @@ export function presentAnimal(row: AnimalRow, ctx: PresentContext): AnimalDto {
     breedId: row.breed_id,
     breedName: row.breed_id ? (ctx.breeds.get(row.breed_id)?.name ?? null) : null,
     hutch: row.hutch,
-    notes: row.notes,
+    // The owning farm's own notes: a farm keeping the animal on loan never reads them.
+    notes: ctx.ability?.can('read', animalRowSubject(row), 'notes') ? row.notes : '',
     lifecycle: row.lifecycle,
     disposition: row.disposition,
     dispositionCause: row.disposition_cause,

@@ -38,7 +38,7 @@ export async function listHerd(actor: SessionUser, q: AnimalListQuery): Promise<
       const p = param(`%${q.search.replace(/[\\%_]/g, '\\$&')}%`);
       where.push(`(a.name ILIKE ${p} OR a.tattoo ILIKE ${p} OR a.hutch ILIKE ${p} OR a.colour ILIKE ${p} OR a.registration_number ILIKE ${p})`);
     }
-    const rows = (await selectAnimals(tx, actor.coopId, where.join(' AND '), bind, { withWeights: true }))
+    const rows = (await selectAnimals(tx, actor.coopId, where.join(' AND '), bind, { weightsSeenBy: farmId }))
       // The SQL scope and the ability must agree row by row (architecture, "Permissions").
       .filter((row) => ability.can('read', subjectOfRow(row)));
     let items = rows.map((row) => presentAnimal(row, ctx));

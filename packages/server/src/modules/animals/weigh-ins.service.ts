@@ -1,7 +1,7 @@
 import { authorize, ensureCan } from '../farms/farm-access';
 import { animalRecord } from './animal-access';
 import { ForbiddenError } from '@casl/ability';
-import type { Transaction } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 import {
   defineAbilityFor, ErrorCode, subjectOf, type AnimalNoteCreateInput, type AnimalNoteDto, type EntryReviewInput, type ReviewState, type WeighInCreateInput, type WeighInDto,
 } from '@burrowline/shared';
@@ -14,6 +14,7 @@ import { announceAfterCommit, presentContextFor } from './animal-context';
 import { AnimalNote } from './animal-note.model';
 import { Animal } from './animal.model';
 import { WeighIn } from './weigh-in.model';
+import { privateRecordFarmsOf } from './animal-facts.service';
 
 /** An apprentice's entry waits for the mentor's review; a member's stands as entered. */
 function initialReviewState(actor: SessionUser): ReviewState {
@@ -105,13 +106,17 @@ export async function createWeighIn(actor: SessionUser, input: WeighInCreateInpu
   });
 }
 
-/** Every weigh-in of an animal, oldest first (pending ones included, marked as such). */
+/**
+ * The weigh-ins of an animal the viewer's farm may read (its own, not a lender's or borrower's), oldest
+ * first (pending ones included, marked as such).
+ */
 export async function listAnimalWeighIns(actor: SessionUser, animalId: string): Promise<WeighInDto[]> {
   return withTenant(actor, async (tx) => {
     const animal = await Animal.findOne({ where: { id: animalId, coopId: actor.coopId, isOutside: false }, transaction: tx });
     if (!animal) throw AppError.notFound('That animal');
     authorize(actor, 'read', animalRecord(animal), 'You may not do that');
-    const rows = await WeighIn.findAll({ where: { animalId }, order: [['weighedOn', 'ASC'], ['createdAt', 'ASC']], transaction: tx });
+    const farms = await privateRecordFarmsOf(actor, animal, 'WeighIn', tx);
+    const rows = await WeighIn.findAll({ where: { animalId, farmId: { [Op.in]: farms } }, order: [['weighedOn', 'ASC'], ['createdAt', 'ASC']], transaction: tx });
     const names = await namesOf(rows.map((r) => r.enteredBy), tx);
     return rows.map((r) => presentWeighIn(r, names));
   });

@@ -6,7 +6,7 @@ import { breedMapOf } from '../breeds/breeds.service';
 import { litterFactsOf, type LitterFacts } from '../litters/litter-facts.service';
 import { GrowOutGroup, GrowOutGroupLitter } from './grow-out-group.model';
 import { port } from '../../lib/port';
-import { type GroupInfo } from './grow-out.presenter';
+import { headsLeftOn, type GroupInfo } from './grow-out.presenter';
 
 /**
  * The feed each group of a farm was given, with its share of pen- and farm-wide feed (grams, cents). The
@@ -19,11 +19,24 @@ export async function membersOf(tx: Transaction, groupIds: string[]): Promise<Gr
   return GrowOutGroupLitter.findAll({ where: { groupId: { [Op.in]: groupIds } }, transaction: tx, raw: true });
 }
 
+/**
+ * The heads processed from groups, by day. Processing reads grow-out, so grow-out cannot import it; the
+ * composition root plugs it in.
+ */
+export const processedHeadsOfGroups = port<(tx: Transaction, coopId: string, groupIds: string[]) => Promise<ProcessedHeads[]>>('grow-out processed heads');
+
+export interface ProcessedHeads {
+  groupId: string;
+  processedOn: string;
+  headCount: number;
+}
+
+/** Heads of a group on a date (none before it was formed or after it closed). */
 export function headsOn(info: GroupInfo, date: string): number {
   if (date < info.group.formedOn || (info.group.closedOn && date > info.group.closedOn)) return 0;
-  const latest = [...info.accepted].reverse().find((w) => w.weighedOn <= date);
-  return latest ? latest.headCount : info.heads;
+  return headsLeftOn(info, date);
 }
+
 
 /** Everything presenting a set of groups needs, fetched once. */
 export async function contextOf(tx: Transaction, coopId: string, groups: GrowOutGroup[]) {
@@ -32,6 +45,7 @@ export async function contextOf(tx: Transaction, coopId: string, groups: GrowOut
   const parents = await animalFactsOf(tx, coopId, [...litters.values()].flatMap((l) => [l.damId, l.sireId]));
   const breeds = await breedMapOf(coopId, tx);
   const weighIns = await groupWeighInsOf(tx, coopId, groups.map((g) => g.id));
+  const processed = groups.length > 0 ? await processedHeadsOfGroups(tx, coopId, groups.map((g) => g.id)) : [];
   const crossOf = (l: LitterFacts) => crossLabel(parents.get(l.sireId)?.lineBreedName, parents.get(l.damId)?.lineBreedName);
   const cache = new Map<string, GroupInfo>();
   const info = (group: GrowOutGroup): GroupInfo => {
@@ -48,6 +62,7 @@ export async function contextOf(tx: Transaction, coopId: string, groups: GrowOut
       birthDate: own.length > 0 ? groupBirthDate(own.map((m) => ({ kindledOn: m.litter.kindledOn, heads: m.heads }))) : group.formedOn,
       sizeClass, cross: main ? crossOf(main.litter) : crossLabel(null, null),
       accepted: all.filter((w) => w.reviewState === 'accepted'), all,
+      processed: processed.filter((p) => p.groupId === group.id).sort((a, b) => a.processedOn.localeCompare(b.processedOn)),
     };
     cache.set(group.id, result);
     return result;

@@ -6,6 +6,8 @@ import { GrowOutGroup } from './grow-out-group.model';
 import { contextOf, groupFeedTotals, headsOn, membersOf } from './grow-out-context';
 import { groupBy } from '../../lib/group-by';
 
+export { groupHeadsOn } from './grow-out.presenter';
+
 /*
  * Grow-out's published reads for other modules (feed, health, processing, performance), inside the
  * caller's transaction. Other modules never read the group models.

@@ -18,6 +18,28 @@ export interface GroupInfo {
   /** Weigh-ins that count (accepted), oldest first; `all` keeps pending ones too. */
   accepted: GroupWeighInRow[];
   all: GroupWeighInRow[];
+  /** Heads processed from the group, oldest first. */
+  processed: { processedOn: string; headCount: number }[];
+}
+
+/**
+ * The one count of a group's heads on a date, for every screen, form and figure: the head count of its
+ * latest accepted weigh-in by then (or the heads it was formed with), less the heads processed since that
+ * weigh-in (on its day or after) up to the date.
+ */
+export function groupHeadsOn(
+  group: { formedHeads: number; weighIns: readonly { weighedOn: string; headCount: number }[]; processed: readonly { processedOn: string; headCount: number }[] },
+  date: string,
+): number {
+  const weighIn = group.weighIns.filter((w) => w.weighedOn <= date).at(-1);
+  const base = weighIn ? weighIn.headCount : group.formedHeads;
+  const since = group.processed.filter((p) => p.processedOn <= date && (!weighIn || p.processedOn >= weighIn.weighedOn));
+  return Math.max(0, base - since.reduce((n, p) => n + p.headCount, 0));
+}
+
+/** Heads of a group on a date, as `groupHeadsOn` counts them. */
+export function headsLeftOn(info: GroupInfo, date: string): number {
+  return groupHeadsOn({ formedHeads: info.heads, weighIns: info.accepted, processed: info.processed }, date);
 }
 
 const points = (rows: GroupWeighInRow[]): WeighInPoint[] => rows.map((w) => ({ weighedOn: w.weighedOn, totalGrams: w.totalGrams, headCount: w.headCount }));
@@ -33,7 +55,7 @@ export function listItemOf(info: GroupInfo, today: string): GrowOutGroupListItem
   const last = info.accepted.at(-1);
   return {
     id: g.id, farmId: g.farmId, name: g.name, formedOn: g.formedOn, status: g.status, closedOn: g.closedOn,
-    heads: info.heads, currentHeads: last ? last.headCount : info.heads, birthDate: info.birthDate,
+    heads: info.heads, currentHeads: headsLeftOn(info, g.closedOn ?? today), birthDate: info.birthDate,
     ageDays: daysBetween(info.birthDate, g.closedOn ?? today), targetGrams: g.targetGrams, crossLabel: info.cross.label,
     latest: last ? { weighedOn: last.weighedOn, gramsPerHead: Math.round(last.totalGrams / last.headCount) } : null,
     gramsPerDay: gain.gramsPerDay,

@@ -16,7 +16,7 @@ import { farmLitterFactsOf, housingUnitNamesOf, housingUnitOfFarm, litterFactsOf
 import { namesOf } from '../users/users.service';
 import { GrowOutGroup, GrowOutGroupLitter } from './grow-out-group.model';
 import { contextOf, groupFeedTotals } from './grow-out-context';
-import { chartAgesOf, listItemOf, presentGroupDetail, projectionOf } from './grow-out.presenter';
+import { chartAgesOf, headsLeftOn, listItemOf, presentGroupDetail, projectionOf } from './grow-out.presenter';
 import { lockUntilCommit } from '../../db/advisory-lock';
 
 /* Grow-out groups as their screens read and write them; processing calls closeEmptiedGroupIn. */
@@ -247,7 +247,8 @@ export async function weighGroupIn(tx: Transaction, actor: SessionUser, groupOrI
     if (input.weighedOn > today) add('weighedOn', 'A weigh-in cannot be dated in the future');
     if (input.weighedOn < group.formedOn) add('weighedOn', `That is before the group was formed on ${group.formedOn}`);
     if (group.closedOn && input.weighedOn > group.closedOn) add('weighedOn', `The group was closed on ${group.closedOn}`);
-    if (headCount > info.heads) add(kits ? 'kits' : 'headCount', `The group has ${info.heads} head${info.heads === 1 ? '' : 's'}; ${headCount} is more`);
+    const heads = headsLeftOn(info, input.weighedOn);
+    if (headCount > heads) add(kits ? 'kits' : 'headCount', `The group has ${heads} head${heads === 1 ? '' : 's'}; ${headCount} is more`);
     const age = input.weighedOn >= info.birthDate ? daysBetween(info.birthDate, input.weighedOn) : null;
     if (kits) {
       kits.forEach((k, i) => {

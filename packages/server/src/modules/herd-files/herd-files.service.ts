@@ -272,7 +272,7 @@ export async function exportHerdCsv(actor: SessionUser, query: HerdExportQuery):
 }
 
 /**
- * A printable pedigree certificate (PDF) of an animal of the viewer's farm: its details, four
+ * A printable pedigree certificate (PDF) of an animal the viewer's farm owns (a borrower gets 403): its details, four
  * generations with each ancestor's tattoo, name, breed, colour and registration, its COI, who bred
  * it, the issuing farm and the date. An animal the viewer may not see answers 404.
  */
@@ -280,6 +280,7 @@ export async function pedigreeCertificate(actor: SessionUser, animalId: string):
   const context = await withTenant(actor, async (tx) => {
     const access = await animalAccess(actor, animalId, tx);
     if (!access || !access.canRead) throw AppError.notFound('That animal');
+    if (!access.canReadPapers) throw new AppError(ErrorCode.forbidden, 403, 'Only the farm that owns the animal issues its pedigree certificate');
     const farms = await farmDirectoryOf(actor.coopId, tx);
     const issuer = farms.get(access.owningFarmId ?? '') ?? (actor.farmId ? farms.get(actor.farmId) : undefined);
     const coop = await getCoop(actor.coopId, tx);

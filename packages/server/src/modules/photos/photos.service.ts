@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto';
 import type { Readable } from 'node:stream';
-import type { Transaction } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 import {
   defineAbilityFor, ErrorCode, RealtimeEvent, rooms, subjectOf, type AnimalPhotosDto, type FarmPhotoDto, type PhotoDto,
   type PhotoLimitsDto, type PhotoUpdateInput,
@@ -11,7 +11,7 @@ import { AppError } from '../../lib/app-error';
 import { logger } from '../../lib/logger';
 import { publish } from '../../lib/realtime';
 import { storage } from '../../lib/storage';
-import { animalAccess, type AnimalAccess } from '../animals/animal-facts.service';
+import { animalAccess, privateRecordFarmsOf, type AnimalAccess } from '../animals/animal-facts.service';
 import { findFarmRef } from '../farms/farms.service';
 import { namesOf } from '../users/users.service';
 import { Photo } from './photo.model';
@@ -113,11 +113,12 @@ async function prepareAll(files: UploadedFile[], limits: PhotoLimits): Promise<P
   return prepared;
 }
 
-/** An animal's photos, oldest first, for a viewer who may see its full record. */
+/** An animal's photos the viewer's farm may see (its own, not a lender's or borrower's), oldest first. */
 export async function listAnimalPhotos(actor: SessionUser, animalId: string, limits: PhotoLimits): Promise<AnimalPhotosDto> {
   return withTenant(actor, async (tx) => {
     const access = await animalFor(actor, animalId, tx, false);
-    const photos = await Photo.findAll({ where: { animalId, subject: 'animal' }, order: [['createdAt', 'ASC'], ['id', 'ASC']], transaction: tx });
+    const farms = await privateRecordFarmsOf(actor, access, 'Photo', tx);
+    const photos = await Photo.findAll({ where: { animalId, subject: 'animal', farmId: { [Op.in]: farms } }, order: [['createdAt', 'ASC'], ['id', 'ASC']], transaction: tx });
     return { photos: await present(photos, tx), canChange: access.canUpdate, limits: limitsDto(limits) };
   });
 }
@@ -186,6 +187,8 @@ async function photoForViewer(actor: SessionUser, photoId: string, tx: Transacti
     const access = await animalAccess(actor, photo.animalId!, tx);
     // Someone who may not see the animal learns nothing about its photos, not even that they exist.
     if (!access || !access.canRead) throw AppError.notFound('That photo');
+    // Photos belong to the farm that took them: a borrower never opens the lender's, nor the other way round.
+    if (!(await privateRecordFarmsOf(actor, access, 'Photo', tx)).includes(photo.farmId)) throw AppError.notFound('That photo');
     if (change && !access.canUpdate) throw new AppError(ErrorCode.forbidden, 403, "Only the animal's own farm changes its photos");
     return { photo, access, label: access.tattoo ?? 'animal' };
   }

@@ -1,4 +1,4 @@
-import type { Transaction } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 import {
   addDays, checkWeightForAge, daysBetween, dressOut, ErrorCode, groupBirthDate, RealtimeEvent, rooms, usdaClass,
   type ProcessingListDto, type ProcessingMarkCreateInput, type ProcessingMarkDto, type ProcessingRecordCreateInput,
@@ -18,7 +18,7 @@ import { recordChanges } from '../audit/audit.service';
 import { animalFactsOf, type AnimalFacts } from '../animals/animal-facts.service';
 import { applyStatusEvent } from '../animals/animal-status.service';
 import { closeEmptiedGroupIn } from '../grow-out/grow-out.service';
-import { growOutFactsOfFarm, type GrowOutFacts } from '../grow-out/grow-out-facts.service';
+import { groupHeadsOn, growOutFactsOfFarm, type GrowOutFacts } from '../grow-out/grow-out-facts.service';
 import { namesOf } from '../users/users.service';
 import { presentProcessingMark, presentProcessingRecord, type ProcessingPresentContext } from './processing.presenter';
 import { ProcessingMark, ProcessingRecord } from './processing-record.model';
@@ -62,10 +62,10 @@ function birthOfGroup(group: GrowOutFacts): string | null {
  * heads it was formed with), less the heads processed since that weigh-in (on its day or after).
  */
 function headsLeft(group: GrowOutFacts, processed: ProcessingFacts[], on: string): number {
-  const weighIn = [...group.weighIns].filter((w) => w.weighedOn <= on).at(-1);
-  const base = weighIn ? weighIn.headCount : group.litters.reduce((n, l) => n + l.heads, 0);
-  const since = processed.filter((p) => p.groupId === group.id && (!weighIn || p.processedOn >= weighIn.weighedOn));
-  return base - since.reduce((n, p) => n + p.headCount, 0);
+  const formedHeads = group.litters.reduce((n, l) => n + l.heads, 0);
+  // Every batch counts, even one dated after `on`: those heads are gone already.
+  const batches = processed.filter((p) => p.groupId === group.id).map((p) => ({ processedOn: p.processedOn < on ? p.processedOn : on, headCount: p.headCount }));
+  return groupHeadsOn({ formedHeads, weighIns: group.weighIns, processed: batches }, on);
 }
 
 function withdrawalMessage(w: WithdrawalFacts): string {
@@ -278,4 +278,13 @@ export async function listProcessing(actor: SessionUser): Promise<ProcessingList
       marks: marks.map((m) => presentProcessingMark(m, ctx, (m.animalId ? covering.animals.get(m.animalId) : covering.groups.get(m.groupId!))?.withdrawalEndsOn ?? null)),
     };
   });
+}
+
+/** The heads processed from these grow-out groups, by day (for grow-out's head counts, through its port). */
+export async function processedHeadsOf(tx: Transaction, coopId: string, groupIds: string[]): Promise<{ groupId: string; processedOn: string; headCount: number }[]> {
+  if (groupIds.length === 0) return [];
+  const rows = await ProcessingRecord.findAll({
+    where: { coopId, groupId: { [Op.in]: groupIds } }, attributes: ['groupId', 'processedOn', 'headCount'], raw: true, transaction: tx,
+  });
+  return rows.map((r) => ({ groupId: r.groupId!, processedOn: r.processedOn, headCount: r.headCount }));
 }
