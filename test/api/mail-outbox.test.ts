@@ -141,7 +141,7 @@ beforeAll(async () => {
   runTs('seed/load.ts', [], env);
   await startMailServer();
   await startServer();
-}, 180_000);
+}, 300_000);
 
 afterAll(async () => {
   await stopServer();

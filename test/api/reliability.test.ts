@@ -72,6 +72,7 @@ async function signedIn() {
   return agent;
 }
 
+// A cluster of its own, migrated and seeded: it can take minutes while the whole suite shares two cores.
 beforeAll(async () => {
   cluster = await startCluster({ name: CLUSTER, port: PG_PORT, fresh: true, fast: true });
   env = {
@@ -90,7 +91,7 @@ beforeAll(async () => {
   runTs('seed/load.ts', [], env);
   server = startServer();
   await waitUntil(serverAnswers, 'the server did not answer');
-}, 120_000);
+}, 300_000);
 
 afterAll(async () => {
   await stopServer();
