@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { authorizationMatrix, areaOf, type Body, type MatrixArea, type MatrixRow, type Persona, type Target } from '../api/authorization-matrix';
-import { almanacBody, almanacPath, almanacStateOf, almanacTarget } from './almanac-matrix';
+import { almanacBody, almanacStateOf, almanacTarget } from './almanac-matrix';
 import { asTenant } from './db';
 import {
   applicationBody,
@@ -13,7 +13,7 @@ import {
   TEST_PASSWORD,
   type TestCoop,
 } from './factories';
-import { herdFilesPath, herdFilesSend, herdFilesStateOf, herdFilesTarget } from './herd-files-matrix';
+import { herdFilesSend, herdFilesStateOf, herdFilesTarget } from './herd-files-matrix';
 import { herdBody, herdStateOf, herdTarget } from './herd-matrix';
 import { agentFor, ROOMY_SIGN_IN, sharedSignedInAgent, signedInAgent, testApp, type Agent } from './test-app';
 
@@ -21,6 +21,15 @@ import { agentFor, ROOMY_SIGN_IN, sharedSignedInAgent, signedInAgent, testApp, t
  * Runs every cell of one area of the authorization matrix (test/api/authorization-matrix.ts) against two
  * fresh co-ops of the calling test file.
  */
+/** The row's path with its ids; a placeholder without an id fails the cell (a typo must not become a 404 that "passes"). */
+export function pathWithIds(path: string, ids: Record<string, unknown>): string {
+  return path.replace(/:([A-Za-z]+)/g, (placeholder: string, name: string) => {
+    const id = ids[name];
+    if (typeof id !== 'string' || id === '') throw new Error(`${path}: the target makes no id for ${placeholder}`);
+    return id;
+  });
+}
+
 export function describeMatrixArea(area: MatrixArea) {
   // Some cells send applications: rate limits stay out of the way here (they have their own tests).
   const handle = testApp({
@@ -134,15 +143,7 @@ export function describeMatrixArea(area: MatrixArea) {
           const agent = await agentOf(persona, row);
           const farmId = row.target === 'farmA' ? coop.farms[0]!.id : row.target === 'farmB' ? coop.farms[1]!.id : '';
           const ids = { farmId, ...(await membershipTarget(row.target)), ...(await herdTarget(coop, row.target)), ...(await almanacTarget(coop, row.target)), ...(await herdFilesTarget(coop, row.target)) };
-          const url = row.path
-            .replace(':farmId', farmId)
-            .replace(':coopSlug', coop.slug)
-            .replace(':applicationId', ids.applicationId ?? '')
-            .replace(':userId', ids.userId ?? '')
-            .replace(':animalId', ids.animalId ?? '')
-            .replace(':weighInId', ids.weighInId ?? '')
-            .replace(':noteId', ids.noteId ?? '');
-          const path = herdFilesPath(almanacPath(url, ids), ids);
+          const path = pathWithIds(row.path, { ...ids, coopSlug: coop.slug });
           const personaOf = persona === 'otherCoop' ? foreign.admin : persona === 'anonymous' ? null : coop[persona];
           const body = (await bodyFor(row.body, ids, persona)) ?? (await herdBody(coop, row.body, ids))
             ?? (await almanacBody(coop, row.body, ids, personaOf?.coopId ?? coop.id, personaOf?.farmId ?? null));
