@@ -2,6 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { authorizationMatrix, areaOf, type Body, type MatrixArea, type MatrixRow, type Persona, type Target } from '../api/authorization-matrix';
 import { almanacBody, almanacStateOf, almanacTarget } from './almanac-matrix';
+import { breedingPair, daysAgo, serviceAs } from './almanac';
 import { asTenant } from './db';
 import {
   applicationBody,
@@ -12,8 +13,11 @@ import {
   createTestMember,
   TEST_PASSWORD,
   type TestCoop,
+  type TestPerson,
 } from './factories';
 import { herdFilesSend, herdFilesStateOf, herdFilesTarget } from './herd-files-matrix';
+import { purchaseAs } from './grow-out';
+import { temperatureAs } from './health-yield';
 import { herdBody, herdStateOf, herdTarget } from './herd-matrix';
 import { agentFor, ROOMY_SIGN_IN, sharedSignedInAgent, signedInAgent, testApp, type Agent } from './test-app';
 
@@ -30,6 +34,22 @@ export function pathWithIds(path: string, ids: Record<string, unknown>): string 
   });
 }
 
+/** Rows only the farm that recorded them may read (a farm's own profile photo is the co-op's to see). */
+const FARM_PRIVATE_ROWS = [
+  'weigh_ins', 'animal_notes', 'feed_purchases', 'feed_uses', 'temperature_readings', 'treatments', 'processing_records',
+  'processing_marks', 'herd_imports', 'calendar_feed_tokens', 'services', 'almanac_tasks', 'grow_out_groups',
+].map((table) => `SELECT id::text FROM ${table} WHERE coop_id = $1 AND farm_id <> ALL($2::uuid[])`)
+  .concat(`SELECT id::text FROM photos WHERE coop_id = $1 AND subject <> 'farm' AND farm_id <> ALL($2::uuid[])`)
+  .join(' UNION ALL ');
+
+/** A farm's private records in every table above, so a list that leaks them has something to leak. */
+async function recordPrivateRows(person: TestPerson) {
+  const { doe, buck } = await breedingPair(person);
+  await serviceAs(person, { doeId: doe.id, buckId: buck.id, servicedOn: daysAgo(3) });
+  await purchaseAs(person, { boughtOn: daysAgo(2), productName: `Private feed ${randomUUID().slice(0, 6)}`, bagGrams: 20_000, bags: 1, priceCents: 1500 });
+  await temperatureAs(person, { value: 21, unit: 'C', place: 'Private barn' });
+}
+
 export function describeMatrixArea(area: MatrixArea) {
   // Some cells send applications: rate limits stay out of the way here (they have their own tests).
   const handle = testApp({
@@ -41,7 +61,16 @@ export function describeMatrixArea(area: MatrixArea) {
 
   beforeAll(async () => {
     [coop, foreign] = await Promise.all([createTestCoop(), createTestCoop()]);
+    await recordPrivateRows(coop.member);
+    await recordPrivateRows(coop.otherFarmMember);
   });
+
+  /** Ids of the test co-op's farm-private rows that `persona` may not read: the other farm's, or all for another co-op. */
+  async function othersPrivateIds(persona: Persona): Promise<string[]> {
+    const ownFarms = persona === 'otherCoop' || persona === 'anonymous' ? [] : [coop[persona].farmId].filter((id): id is string => Boolean(id));
+    const rows = await asTenant(coop.id, (c) => c.query<{ id: string }>(FARM_PRIVATE_ROWS, [coop.id, ownFarms]));
+    return rows.rows.map((r) => r.id);
+  }
   afterAll(async () => {
     await handle.close();
   });
@@ -154,6 +183,13 @@ export function describeMatrixArea(area: MatrixArea) {
           const method = row.method.toLowerCase() as 'get' | 'patch' | 'delete' | 'post' | 'put';
           const res = await herdFilesSend(agent[method](path), row.body, body);
           expect(res.status).toBe(status);
+          // The calendar feed's secret address is its own key: whoever holds it reads that farm's Almanac, session or not.
+          const readsBySession = !row.path.startsWith('/api/calendar-feeds/');
+          if (row.method === 'GET' && status < 300 && readsBySession && typeof res.text === 'string') {
+            // A list (or any read) shows nothing another farm recorded privately, nor anything of another co-op.
+            const leaked = (await othersPrivateIds(persona)).filter((id) => res.text.includes(id));
+            expect(leaked, `${persona} reads other farms' private ids`).toEqual([]);
+          }
           if (status >= 400) {
             expect(res.body.error.code).toBeTypeOf('string');
             expect(await stateOf(ids, persona)).toEqual(before); // a refusal changes nothing
