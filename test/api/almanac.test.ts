@@ -182,6 +182,37 @@ describe('services and the tasks they plan', () => {
   });
 });
 
+describe('the list of services', () => {
+  it('when a member lists services, then the farm\'s come latest first, filtered by status and doe, and another farm\'s never appear', async () => {
+    const coop = await createTestCoop();
+    const first = await breedingPair(coop.member, { doe: 'Alder' });
+    const second = await breedingPair(coop.member, { doe: 'Birch' });
+    const neighbours = await breedingPair(coop.otherFarmMember, { doe: 'Cedar' });
+    const older = await serviceAs(coop.member, { doeId: first.doe.id, buckId: first.buck.id, servicedOn: daysAgo(40) });
+    const newer = await serviceAs(coop.member, { doeId: second.doe.id, buckId: second.buck.id, servicedOn: daysAgo(3) });
+    const theirs = await serviceAs(coop.otherFarmMember, { doeId: neighbours.doe.id, buckId: neighbours.buck.id, servicedOn: daysAgo(2) });
+    await palpationAs(coop.member, older.id, daysAgo(28), 'negative');
+    const agent = await agentOf(coop.member.email);
+
+    const all = await agent.get('/api/services');
+    expect(all.status).toBe(200);
+    expect(all.body.services.map((s: { id: string }) => s.id)).toEqual([newer.id, older.id]);
+    expect(all.body.services[0]).toMatchObject({ doe: { id: second.doe.id }, buck: { id: second.buck.id }, servicedOn: daysAgo(3), status: 'open', lastPalpation: null });
+    expect(all.body.services[1]).toMatchObject({ doe: { id: first.doe.id }, lastPalpation: 'negative' });
+    expect(JSON.stringify(all.body)).not.toContain(theirs.id);
+
+    const ofDoe = await agent.get('/api/services').query({ doeId: first.doe.id });
+    expect(ofDoe.body.services.map((s: { id: string }) => s.id)).toEqual([older.id]);
+    const open = (await agent.get('/api/services').query({ status: 'open' })).body.services.map((s: { id: string; status: string }) => s.status);
+    const closed = (await agent.get('/api/services').query({ status: 'closed' })).body.services.map((s: { id: string; status: string }) => s.status);
+    expect(open.every((status: string) => status === 'open')).toBe(true);
+    expect(closed.every((status: string) => status !== 'open')).toBe(true);
+    expect(open.length + closed.length).toBe(2);
+    const limited = await agent.get('/api/services').query({ limit: 1 });
+    expect(limited.body.services.map((s: { id: string }) => s.id)).toEqual([newer.id]);
+  });
+});
+
 describe('tasks: done, moved, skipped, one by one or several at once', () => {
   it('when a member ticks, moves, skips and reopens tasks, then each keeps its id and version, and a stale version is refused', async () => {
     const coop = await createTestCoop();

@@ -18,7 +18,7 @@ describe('the breed catalogue', () => {
       'New Zealand', 'Californian', 'Silver Fox', 'Palomino', 'Rex', 'Florida White', "Champagne d'Argent", 'Satin', 'American Chinchilla', 'Flemish Giant',
     ]));
     const g = (lb: number) => Math.round(poundsToGrams(lb)); // NIST Handbook 44: 1 lb = 453.59237 g
-    // Senior weights from reference-values.md (ARBA Standard as quoted, "sec"; Champagne, Satin, American Chinchilla "mem").
+    // Senior weights of the ARBA Standard of Perfection as quoted second-hand ("sec"); Champagne, Satin and American Chinchilla from memory ("mem").
     expect(byName['New Zealand']).toMatchObject({ seniorBuckGrams: { minGrams: g(9), maxGrams: g(11) }, seniorDoeGrams: { minGrams: g(10), maxGrams: g(12) } });
     expect(byName.Californian).toMatchObject({ seniorBuckGrams: { minGrams: g(8), maxGrams: g(10) }, seniorDoeGrams: { minGrams: g(8.5), maxGrams: g(10.5) } });
     expect(byName.Rex).toMatchObject({ seniorBuckGrams: { minGrams: g(7.5), maxGrams: g(9.5) } });

@@ -133,6 +133,8 @@ describe('bad herd input: clear field errors and nothing written', () => {
     const confirmed = await agent.post('/api/animals').send({ ...body, confirm: true });
     expect(confirmed.status).toBe(201);
     expect(confirmed.body.damId).toBe(youngDoe.id);
+    const row = await asTenant(coop.id, (c) => c.query('SELECT tattoo, sire_id, dam_id, birth_date::text AS birth_date FROM animals WHERE id = $1', [confirmed.body.id]));
+    expect(row.rows).toEqual([{ tattoo: 'K-5', sire_id: buck.id, dam_id: youngDoe.id, birth_date: body.birthDate }]);
   });
 
   it('when a parent from papers is invalid, then the whole entry is refused and no outside animal is left behind', async () => {

@@ -225,7 +225,7 @@ describe('the Herd: one animal, one record, for life', () => {
     const agent = await signedInAgent(coop.member.email, TEST_PASSWORD);
     const doe = await addAnimal(agent, { breedId: breeds['New Zealand']!.id, birthDate: '2022-01-01' });
     const weigh = (grams: number, on: string) => agent.post('/api/weigh-ins').send({ animalId: doe.id, totalGrams: grams, weighedOn: on });
-    // New Zealand senior doe 10–12 lb (reference-values.md, sec) = 4536–5443 g at 453.59237 g/lb (NIST Handbook 44).
+    // New Zealand senior doe 10–12 lb (ARBA Standard of Perfection, as quoted second-hand) = 4536–5443 g at 453.59237 g/lb (NIST Handbook 44).
     expect(breeds['New Zealand']!.seniorDoeGrams).toEqual({ minGrams: 4536, maxGrams: 5443 });
     await weigh(4400, '2024-01-01');
     expect((await agent.get(`/api/animals/${doe.id}`)).body.weightAgainstStandard).toBe('below');

@@ -4,7 +4,7 @@ import { RealtimeEvent } from '@burrowline/shared';
 import { asTenant, ownerDb } from '../support/db';
 import { applicationBody, createTestApplication, createTestCoop, createTestMember, TEST_PASSWORD, type TestCoop } from '../support/factories';
 import { deliveredMailsTo, linkIn, queuedMailTo, waitForMail } from '../support/mail';
-import { socketKit } from '../support/sockets';
+import { heardEverythingSoFar, socketKit } from '../support/sockets';
 import { agentFor, listeningServer, signedInAgent, testApp } from '../support/test-app';
 
 // Rate limits out of the way for this file, except where a test sets its own.
@@ -23,7 +23,6 @@ afterAll(async () => {
 
 const anonymous = () => agentFor(server.handle);
 const signedIn = (email: string) => signedInAgent(email, TEST_PASSWORD, server.handle);
-const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 async function setRules(coop: TestCoop, rulesText: string) {
   await asTenant(coop.id, (c) => c.query('UPDATE cooperatives SET rules_text = $2 WHERE id = $1', [coop.id, rulesText]), { commit: true });
@@ -94,7 +93,7 @@ describe('the public application form', () => {
     expect(notice.text).toMatch(/Disease in the herd in the last year: yes/);
 
     await expect.poll(() => admin.heard.get(RealtimeEvent.applicationCreated), { timeout: 3000 }).toEqual([{ applicationId: res.body.id }]);
-    await sleep(300);
+    await Promise.all([heardEverythingSoFar(member.socket, coop.member.id), heardEverythingSoFar(foreignAdmin.socket, foreign.admin.id)]);
     expect(member.heard.get(RealtimeEvent.applicationCreated)).toBeUndefined();
     expect(foreignAdmin.heard.get(RealtimeEvent.applicationCreated)).toBeUndefined();
 

@@ -198,7 +198,7 @@ describe('password reset', () => {
     expect(reuse.body.error.code).toBe('invalid_token');
   });
 
-  it('when the e-mail has no account, then the answer is the same as for an account and no mail is sent', async () => {
+  it('when the e-mail has no account, then the answer is the same as for a real account and no mail is sent', async () => {
     const coop = await createTestCoop();
     const email = `nobody-${Date.now()}@example.test`;
     const res = await agentFor().post('/api/password-resets').send({ email });

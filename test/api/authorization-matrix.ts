@@ -39,6 +39,8 @@ export type Target =
   | 'housingA'
   | 'placementA'
   | 'feedA'
+  // A planned processing mark of a farm-A doe.
+  | 'processingMarkA'
   // Grow-out and feed: a growing group of farm A (with a litter that has free kits) and a feed purchase.
   | 'groupA'
   // A purchase of farm A with feed given from it to a group of farm A.
@@ -98,6 +100,7 @@ export type Body =
   | 'temperatureReading'
   | 'processingRecord'
   | 'processingMark'
+  | 'markCancellation'
   | 'growOutGroup'
   | 'groupWeighIn'
   | 'groupClose'
@@ -205,6 +208,7 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'GET', path: '/api/processing-records', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'POST', path: '/api/processing-records', target: 'breedingPairA', body: 'processingRecord', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 400, admin: 201, otherCoop: 400 } },
   { method: 'POST', path: '/api/processing-marks', target: 'breedingPairA', body: 'processingMark', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 400, admin: 201, otherCoop: 400 } },
+  { method: 'POST', path: '/api/processing-marks/:markId/cancellation', target: 'processingMarkA', body: 'markCancellation', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
   { method: 'GET', path: '/api/litters', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'POST', path: '/api/litters', target: 'serviceA', body: 'kindling', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 400, admin: 201, otherCoop: 400 } },
   { method: 'GET', path: '/api/litters/:litterId', target: 'litterA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },

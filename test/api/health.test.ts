@@ -119,6 +119,8 @@ describe('treatments and their withdrawal', () => {
     expect(warned.body.error.details.doeId[0]).toBe(`She is under treatment (Ivermectin) until ${addDays(daysAgo(1), 20)}; ask the veterinarian before breeding her`);
     const saved = await agent.post('/api/services').send({ doeId: doe.id, buckId: buck.id, servicedOn: farmToday(), confirm: true });
     expect(saved.status).toBe(201);
+    const rows = await asTenant(coop.id, (c) => c.query('SELECT id, doe_id, buck_id, serviced_on::text AS serviced_on FROM services WHERE doe_id = $1', [doe.id]));
+    expect(rows.rows).toEqual([{ id: saved.body.id, doe_id: doe.id, buck_id: buck.id, serviced_on: farmToday() }]);
   });
 
   it('when an apprentice, another farm\'s member, another co-op or nobody asks, then the apprentice reads but records no treatment, others find nothing (404) and the signed-out get 401', async () => {

@@ -221,10 +221,13 @@ describe('herd import: files refused as a whole', () => {
     }
   });
 
-  it('when an apprentice uploads a file, then it is refused (they read the herd but add no animals)', async () => {
+  it('when an apprentice uploads a file, then it is refused (they read the herd but add no animals) and nothing is staged', async () => {
     const apprentice = await signedInAgent(coop.apprentice.email, TEST_PASSWORD, handle);
+    const staged = () => asTenant(coop.id, async (c) => (await c.query('SELECT count(*)::int AS n FROM herd_imports WHERE coop_id = $1', [coop.id])).rows[0].n as number);
+    const before = await staged();
     const res = await stageFile(apprentice, csv(HEADER, 'AP1,,doe,Satin,2023-01-01,,'));
     expect(res.status).toBe(403);
+    expect(await staged()).toBe(before);
   });
 });
 

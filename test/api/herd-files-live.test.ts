@@ -4,7 +4,7 @@ import { describe, expect, it } from 'vitest';
 import { CSRF_HEADER, RealtimeEvent } from '@burrowline/shared';
 import { createTestCoop } from '../support/factories';
 import { csv, HEADER, testImage } from '../support/herd-files';
-import { liveTestServer } from '../support/sockets';
+import { heardEverythingSoFar, liveTestServer } from '../support/sockets';
 
 describe('herd files: live updates', () => {
   const server = liveTestServer();
@@ -21,7 +21,7 @@ describe('herd files: live updates', () => {
     const staged = await api.post('/api/herd-imports').set(CSRF_HEADER, '1').set('cookie', cookie)
       .attach('file', Buffer.from(csv(HEADER, 'LV1,Ash,buck,Satin,2022-01-01,,', 'LV2,Birch,doe,Satin,2022-01-01,,', 'LV3,Cedar,doe,Satin,2023-01-01,LV1,LV2')), 'live.csv');
     expect(staged.status).toBe(201);
-    await new Promise((resolve) => setTimeout(resolve, 300));
+    await heardEverythingSoFar(partner.socket, coop.admin.id);
     expect(partner.heard.get(RealtimeEvent.herdChanged)).toBeUndefined();
 
     const confirmed = await api.post(`/api/herd-imports/${staged.body.id}/confirmation`).set(CSRF_HEADER, '1').set('cookie', cookie).send({ idempotencyKey: randomUUID() });

@@ -299,6 +299,28 @@ describe('housing: hutches and pens with dated placements', () => {
     expect((await apprentice.post('/api/housing-units').send({ name: 'X', kind: 'pen' })).status).toBe(403);
     expect((await (await agentOf(coop.otherFarmMember.email)).post(`/api/housing-units/${pen.id}/placements`).send({ animalId: doe.id, placedOn: farmToday() })).status).toBe(404);
   });
+
+  it('when a placement is ended, then the hutch no longer lists the animal, the row carries the end date, and it cannot end twice or before it began', async () => {
+    const coop = await createTestCoop();
+    const { doe } = await breedingPair(coop.member);
+    const agent = await agentOf(coop.member.email);
+    const hutch = (await agent.post('/api/housing-units').send({ name: 'E1', kind: 'hutch' })).body;
+    const placed = await agent.post(`/api/housing-units/${hutch.id}/placements`).send({ animalId: doe.id, placedOn: daysAgo(5) });
+    expect(placed.status).toBe(201);
+    const placementId = placed.body.current[0].id as string;
+
+    const tooEarly = await agent.post(`/api/housing-placements/${placementId}/end`).send({ endedOn: daysAgo(6) });
+    expect(tooEarly.status).toBe(400);
+    expect(tooEarly.body.error.details.endedOn).toEqual([`It was placed there on ${daysAgo(5)}`]);
+    const ended = await agent.post(`/api/housing-placements/${placementId}/end`).send({ endedOn: daysAgo(1) });
+    expect(ended.status).toBe(200);
+    expect(ended.body).toMatchObject({ id: hutch.id, current: [] });
+    const row = await asTenant(coop.id, async (c) => (await c.query('SELECT ended_on::text AS ended_on FROM housing_placements WHERE id = $1', [placementId])).rows);
+    expect(row).toEqual([{ ended_on: daysAgo(1) }]);
+    expect((await agent.get('/api/housing-units')).body.units.find((u: { id: string }) => u.id === hutch.id).current).toEqual([]);
+    const again = await agent.post(`/api/housing-placements/${placementId}/end`).send({ endedOn: farmToday() });
+    expect(again.status).toBe(409);
+  });
 });
 
 describe('live updates of litters', () => {

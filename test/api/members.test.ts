@@ -4,7 +4,7 @@ import { RealtimeEvent } from '@burrowline/shared';
 import { asTenant } from '../support/db';
 import { applicationBody, createTestApplication, createTestCoop, createTestMember, TEST_PASSWORD, type TestCoop } from '../support/factories';
 import { linkIn, mailsTo, waitForMail } from '../support/mail';
-import { socketKit } from '../support/sockets';
+import { heardEverythingSoFar, socketKit } from '../support/sockets';
 import { agentFor, listeningServer, signedInAgent } from '../support/test-app';
 
 let server: Awaited<ReturnType<typeof listeningServer>>;
@@ -84,6 +84,8 @@ describe('changing a role', () => {
     const target = await createTestMember(coop);
     const targetAgent = await signedIn(target.email);
     const live = await kit.listen(target.email);
+    const roster = await kit.listen(coop.admin.email);
+    const neighbour = await kit.listen(coop.otherFarmMember.email);
     const closed = disconnected(live.socket);
     const before = await userRow(coop.id, target.id);
 
@@ -92,6 +94,10 @@ describe('changing a role', () => {
     expect(res.body).toMatchObject({ id: target.id, role: 'admin', version: 1 });
     expect(await closed).toBe('io server disconnect');
     expect(live.heard.get(RealtimeEvent.sessionEnded)).toEqual([{ reason: 'role_changed' }]);
+    // The admins' roster refreshes; the roster is not a member's to hear about.
+    await expect.poll(() => roster.heard.get(RealtimeEvent.memberUpdated), { timeout: 3000 }).toEqual([{ userId: target.id }]);
+    await heardEverythingSoFar(neighbour.socket, coop.otherFarmMember.id);
+    expect(neighbour.heard.get(RealtimeEvent.memberUpdated)).toBeUndefined();
     expect((await targetAgent.get('/api/me')).status).toBe(401);
 
     const after = await userRow(coop.id, target.id);

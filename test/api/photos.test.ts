@@ -126,6 +126,22 @@ describe('animal photos', () => {
     expect(res.body.error.details.photos).toEqual(['An animal may have at most 4 photos; this one has 3, so add at most 1']);
   });
 
+  it('when a member changes a caption, then the row and the gallery carry the new caption and the files stay', async () => {
+    const uploaded = await upload(member, doe.id, [{ body: await testImage('jpeg'), name: 'cap.jpg', type: 'image/jpeg' }], 'Before');
+    expect(uploaded.status).toBe(201);
+    const photo = (uploaded.body.photos as PhotoDto[]).find((p) => p.caption === 'Before')!;
+    const filesBefore = storedFiles().filter((name) => name.startsWith(photo.id));
+    const res = await member.patch(`/api/photos/${photo.id}`).send({ caption: 'Poppy at twelve weeks' });
+    expect(res.status).toBe(200);
+    expect(res.body).toMatchObject({ id: photo.id, caption: 'Poppy at twelve weeks' });
+    const row = await asTenant(coop.id, (c) => c.query('SELECT caption FROM photos WHERE id = $1', [photo.id]));
+    expect(row.rows).toEqual([{ caption: 'Poppy at twelve weeks' }]);
+    const gallery = (await member.get(`/api/animals/${doe.id}/photos`).expect(200)).body.photos as PhotoDto[];
+    expect(gallery.find((p) => p.id === photo.id)?.caption).toBe('Poppy at twelve weeks');
+    expect(storedFiles().filter((name) => name.startsWith(photo.id))).toEqual(filesBefore);
+    await member.delete(`/api/photos/${photo.id}`).expect(204);
+  });
+
   it('when a photo is removed, then it is gone from the gallery and its files from the disk', async () => {
     const { body } = await member.get(`/api/animals/${doe.id}/photos`).expect(200);
     const photo = body.photos[0] as PhotoDto;
@@ -204,5 +220,20 @@ describe('farm profile photo', () => {
     const foreign = await signedInAgent(foreignCoop.member.email, TEST_PASSWORD, handle);
     await foreign.get(`/api/farms/${farmId}/photo`).expect(404);
     await foreign.get(second.body.photo.url).expect(404);
+  });
+
+  it('when a member removes the farm photo, then the farm has none, its row is kept as removed and its files are deleted', async () => {
+    const farmId = coop.farms[0]!.id;
+    const set = await member.put(`/api/farms/${farmId}/photo`).attach('photo', await testImage('jpeg'), { filename: 'gate.jpg', contentType: 'image/jpeg' });
+    expect(set.status).toBe(200);
+    const photoId = set.body.photo.id as string;
+    expect(storedFiles().some((name) => name.startsWith(photoId))).toBe(true);
+
+    await member.delete(`/api/farms/${farmId}/photo`).expect(204);
+    expect((await member.get(`/api/farms/${farmId}/photo`).expect(200)).body.photo).toBeNull();
+    await member.get(set.body.photo.url).expect(404);
+    const rows = await asTenant(coop.id, (c) => c.query(`SELECT id, deleted_at IS NOT NULL AS removed FROM photos WHERE farm_id = $1 AND subject = 'farm' AND id = $2`, [farmId, photoId]));
+    expect(rows.rows).toEqual([{ id: photoId, removed: true }]);
+    await expect.poll(() => storedFiles().some((name) => name.startsWith(photoId))).toBe(false);
   });
 });

@@ -3,6 +3,7 @@ import supertest from 'supertest';
 import { io as connect, type Socket } from 'socket.io-client';
 import { CSRF_HEADER, RealtimeEvent } from '@burrowline/shared';
 import { createTestCoop, TEST_PASSWORD } from '../support/factories';
+import { heardEverythingSoFar } from '../support/sockets';
 import { listeningServer, sessionCookieOf } from '../support/test-app';
 import { asTenant, ownerDb } from '../support/db';
 
@@ -70,7 +71,7 @@ describe('live updates over Socket.IO', () => {
       });
     expect(patch.status).toBe(200);
     await expect.poll(() => heard, { timeout: 3000 }).toEqual([ours.member.farmId]);
-    await new Promise((r) => setTimeout(r, 300));
+    await heardEverythingSoFar(outsider, theirs.member.id);
     expect(outsiderHeard).toEqual([]);
   });
 

@@ -101,7 +101,10 @@ describe('worked example (Mrode, Linear Models for the Prediction of Animal Bree
   });
 });
 
-describe('repeated full-sib mating (Falconer & Mackay, Table 5.1 — values from memory, derived from F_t = ¼(1 + 2F_{t−1} + F_{t−2}))', () => {
+// Worked out by hand, not read from a published table: F_t = ¼(1 + 2F_{t−1} + F_{t−2}) from F_0 = F_{−1} = 0 gives
+// ¼(1) = 0.25, ¼(1 + 0.5) = 0.375, ¼(1 + 0.75 + 0.25) = 0.5, ¼(1 + 1 + 0.375) = 0.59375, ¼(1 + 1.1875 + 0.5) = 0.671875,
+// ¼(1 + 1.34375 + 0.59375) = 0.734375. The recurrence is the full-sib one of Falconer & Mackay, Introduction to Quantitative Genetics, ch. 5.
+describe('repeated full-sib mating (values worked out by hand from the full-sib recurrence, Falconer & Mackay ch. 5)', () => {
   it('when full sibs are mated for six generations, then F = 0.25, 0.375, 0.5, 0.59375, 0.671875, 0.734375', () => {
     const animals: PedigreeAnimal[] = [];
     let pair: [string, string] = ['G0a', 'G0b'];

@@ -5,11 +5,14 @@ import {
 } from '@burrowline/shared';
 
 describe('feed conversion on worked examples', () => {
-  it('when 8 fryers go from 1,000 g to 2,270 g each on 38,608 g of pellets, then feed conversion is 3.8 (NZW post-weaning line study, World Rabbit Science: 3.8 on pellets)', () => {
+  // The 3.8 and 4.4 are from a post-weaning study of New Zealand White lines in World Rabbit Science; its authors and
+  // year were not recorded, so the figures count as from memory until the paper is found and cited.
+  it('when 8 fryers go from 1,000 g to 2,270 g each on 38,608 g of pellets, then feed conversion is 3.8 (NZW post-weaning line study, World Rabbit Science, from memory: 3.8 on pellets)', () => {
     // worked by hand: gain 8 × 1,270 = 10,160 g; 3.8 × 10,160 = 38,608 g of feed
     const result = groupFeedConversion({ feedGrams: 38_608, startTotalGrams: 8 * 1000, endTotalGrams: 8 * 2270 });
     expect(result.gainGrams).toBe(10_160);
-    expect(result.ratio).toBeCloseTo(PUBLISHED_FEED_CONVERSION.growOutPellets.ratio, 12);
+    expect(result.ratio).toBeCloseTo(3.8, 12);
+    expect(PUBLISHED_FEED_CONVERSION.growOutPellets.ratio).toBe(3.8);
   });
 
   it('when the same group eats 44,704 g on forage, then feed conversion is 4.4 (same study: 4.4 on forage)', () => {
@@ -24,11 +27,12 @@ describe('feed conversion on worked examples', () => {
   it('when a doe and her 7 young at 60 days (4 lb each) ate 148.4 lb, then it is 5.3 lb of feed per lb of young (Kellogg, USDA Bureau of Biological Survey, 1933)', () => {
     // worked by hand: 7 × 4 lb = 28 lb of young; 5.3 × 28 = 148.4 lb; the ratio is the same in grams (NIST HB44: 1 lb = 453.59237 g)
     const result = doeLitterFeedConversion({ feedGrams: poundsToGrams(148.4), youngLiveGrams: poundsToGrams(28) });
-    expect(result.ratio).toBeCloseTo(PUBLISHED_FEED_CONVERSION.doeAndLitter.ratio, 12);
+    expect(result.ratio).toBeCloseTo(5.3, 12); // Kellogg 1933: 5.3 lb of feed per lb of live young at 60 days
+    expect(PUBLISHED_FEED_CONVERSION.doeAndLitter.ratio).toBe(5.3);
   });
 });
 
-describe('dress-out (Kuzelov & Atanasova 2011: 55–56 % head-on for Cal×NZ; Nofal, Toth & Virag: ≈ 60 %; MSU 4H1508: more than half)', () => {
+describe('dress-out (Kuzelov & Atanasova 2011: 55–56 % head-on for Cal×NZ; Nofal, Toth & Virag, World Rabbit Science, year not recorded (from memory): ≈ 60 %; MSU 4H1508: more than half)', () => {
   it('when a 2,270 g fryer yields a 1,249 g carcass, then dress-out is 55.0 %, inside 55–56 % (Kuzelov & Atanasova 2011), with no flag', () => {
     const percent = dressOutPercent(1249, 2270);
     expect(percent.toFixed(1)).toBe('55.0');

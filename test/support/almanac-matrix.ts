@@ -8,6 +8,7 @@ import { almanacCounts, breedingPair, daysAgo, farmToday, litterAs, serviceAs } 
 import { asTenant } from './db';
 import { feedAs, grownLitterAs, groupAs, purchaseAs } from './grow-out';
 import type { TestCoop } from './factories';
+import { markAs } from './health-yield';
 import { actorOf, nextTattoo } from './herd';
 
 /** Almanac and litter objects for the authorization matrix, made fresh for every cell (all on farm A). */
@@ -22,6 +23,7 @@ export interface AlmanacIds {
   unitId?: string;
   placementId?: string;
   feedToken?: string;
+  markId?: string;
   /** Grow-out: a growing group of farm A with a litter that still has free kits, and a feed purchase. */
   groupId?: string;
   /** Feed corrections: a purchase of farm A and feed given from it to the group. */
@@ -85,6 +87,11 @@ export async function almanacTarget(coop: TestCoop, target: string): Promise<Alm
       const given = (await feedAs(coop.member, { givenOn: daysAgo(1), grams: 900, purchaseId: bought.id, target: 'group', groupId: group.id })).uses.find((u) => u.productName === productName)!;
       return { groupId: group.id, purchaseId: bought.id, useId: given.id, productName };
     }
+    case 'processingMarkA': {
+      const { doe } = await breedingPair(coop.member);
+      const mark = await markAs(coop.member, { animalId: doe.id, plannedOn: farmToday() });
+      return { doeId: doe.id, markId: mark.id };
+    }
     case 'feedA': {
       const feed = await renewCalendarFeed(actorOf(coop.member), 'http://127.0.0.1:3000');
       return { feedToken: /calendar-feeds\/(.+)\.ics$/.exec(feed.url!)![1] };
@@ -92,20 +99,6 @@ export async function almanacTarget(coop: TestCoop, target: string): Promise<Alm
     default:
       return {};
   }
-}
-
-export function almanacPath(path: string, ids: AlmanacIds): string {
-  return path
-    .replace(':serviceId', ids.serviceId ?? '')
-    .replace(':taskId', ids.taskId ?? '')
-    .replace(':litterId', ids.litterId ?? '')
-    .replace(':eventId', ids.eventId ?? '')
-    .replace(':unitId', ids.unitId ?? '')
-    .replace(':placementId', ids.placementId ?? '')
-    .replace(':feedToken', ids.feedToken ?? '')
-    .replace(':groupId', ids.groupId ?? '')
-    .replace(':purchaseId', ids.purchaseId ?? '')
-    .replace(':useId', ids.useId ?? '');
 }
 
 /** Request bodies of the Almanac's rows; undefined for bodies that are not the Almanac's. */
@@ -153,6 +146,8 @@ export async function almanacBody(coop: TestCoop, body: string | undefined, ids:
       return { animalId: ids.doeId, processedOn: farmToday(), liveGrams: 4200, hotCarcassGrams: 2300 };
     case 'processingMark':
       return { animalId: ids.doeId, plannedOn: farmToday() };
+    case 'markCancellation':
+      return { version: await version('processing_marks', ids.markId) };
     case 'morningEmail':
       return { enabled: false, hour: 6 };
     case 'kindling':
@@ -181,6 +176,7 @@ export async function almanacStateOf(coopId: string) {
   const feedBook = await asTenant(coopId, async (c) => ({
     purchases: (await c.query(`SELECT string_agg(id || ':' || version || ':' || (deleted_at IS NULL), ',' ORDER BY id) AS s FROM feed_purchases WHERE coop_id = $1`, [coopId])).rows[0].s as string | null,
     uses: (await c.query(`SELECT string_agg(id || ':' || version || ':' || (deleted_at IS NULL), ',' ORDER BY id) AS s FROM feed_uses WHERE coop_id = $1`, [coopId])).rows[0].s as string | null,
+    marks: (await c.query(`SELECT string_agg(id || ':' || status || ':' || version, ',' ORDER BY id) AS s FROM processing_marks WHERE coop_id = $1`, [coopId])).rows[0].s as string | null,
   }));
   return { ...(await almanacCounts(coopId)), feedBook };
 }

@@ -1,7 +1,8 @@
 import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { authorizationMatrix, areaOf, type Body, type MatrixArea, type MatrixRow, type Persona, type Target } from '../api/authorization-matrix';
-import { almanacBody, almanacPath, almanacStateOf, almanacTarget } from './almanac-matrix';
+import { almanacBody, almanacStateOf, almanacTarget } from './almanac-matrix';
+import { breedingPair, daysAgo, serviceAs } from './almanac';
 import { asTenant } from './db';
 import {
   applicationBody,
@@ -12,8 +13,11 @@ import {
   createTestMember,
   TEST_PASSWORD,
   type TestCoop,
+  type TestPerson,
 } from './factories';
-import { herdFilesPath, herdFilesSend, herdFilesStateOf, herdFilesTarget } from './herd-files-matrix';
+import { herdFilesSend, herdFilesStateOf, herdFilesTarget } from './herd-files-matrix';
+import { purchaseAs } from './grow-out';
+import { temperatureAs } from './health-yield';
 import { herdBody, herdStateOf, herdTarget } from './herd-matrix';
 import { loanTarget, tracesHiddenFrom } from './lent-animal';
 import { agentFor, ROOMY_SIGN_IN, sharedSignedInAgent, signedInAgent, testApp, type Agent } from './test-app';
@@ -22,6 +26,31 @@ import { agentFor, ROOMY_SIGN_IN, sharedSignedInAgent, signedInAgent, testApp, t
  * Runs every cell of one area of the authorization matrix (test/api/authorization-matrix.ts) against two
  * fresh co-ops of the calling test file.
  */
+/** The row's path with its ids; a placeholder without an id fails the cell (a typo must not become a 404 that "passes"). */
+export function pathWithIds(path: string, ids: Record<string, unknown>): string {
+  return path.replace(/:([A-Za-z]+)/g, (placeholder: string, name: string) => {
+    const id = ids[name];
+    if (typeof id !== 'string' || id === '') throw new Error(`${path}: the target makes no id for ${placeholder}`);
+    return id;
+  });
+}
+
+/** Rows only the farm that recorded them may read (a farm's own profile photo is the co-op's to see). */
+const FARM_PRIVATE_ROWS = [
+  'weigh_ins', 'animal_notes', 'feed_purchases', 'feed_uses', 'temperature_readings', 'treatments', 'processing_records',
+  'processing_marks', 'herd_imports', 'calendar_feed_tokens', 'services', 'almanac_tasks', 'grow_out_groups',
+].map((table) => `SELECT id::text FROM ${table} WHERE coop_id = $1 AND farm_id <> ALL($2::uuid[])`)
+  .concat(`SELECT id::text FROM photos WHERE coop_id = $1 AND subject <> 'farm' AND farm_id <> ALL($2::uuid[])`)
+  .join(' UNION ALL ');
+
+/** A farm's private records in every table above, so a list that leaks them has something to leak. */
+async function recordPrivateRows(person: TestPerson) {
+  const { doe, buck } = await breedingPair(person);
+  await serviceAs(person, { doeId: doe.id, buckId: buck.id, servicedOn: daysAgo(3) });
+  await purchaseAs(person, { boughtOn: daysAgo(2), productName: `Private feed ${randomUUID().slice(0, 6)}`, bagGrams: 20_000, bags: 1, priceCents: 1500 });
+  await temperatureAs(person, { value: 21, unit: 'C', place: 'Private barn' });
+}
+
 export function describeMatrixArea(area: MatrixArea) {
   // Some cells send applications: rate limits stay out of the way here (they have their own tests).
   const handle = testApp({
@@ -33,7 +62,16 @@ export function describeMatrixArea(area: MatrixArea) {
 
   beforeAll(async () => {
     [coop, foreign] = await Promise.all([createTestCoop(), createTestCoop()]);
+    await recordPrivateRows(coop.member);
+    await recordPrivateRows(coop.otherFarmMember);
   });
+
+  /** Ids of the test co-op's farm-private rows that `persona` may not read: the other farm's, or all for another co-op. */
+  async function othersPrivateIds(persona: Persona): Promise<string[]> {
+    const ownFarms = persona === 'otherCoop' || persona === 'anonymous' ? [] : [coop[persona].farmId].filter((id): id is string => Boolean(id));
+    const rows = await asTenant(coop.id, (c) => c.query<{ id: string }>(FARM_PRIVATE_ROWS, [coop.id, ownFarms]));
+    return rows.rows.map((r) => r.id);
+  }
   afterAll(async () => {
     await handle.close();
   });
@@ -135,15 +173,7 @@ export function describeMatrixArea(area: MatrixArea) {
           const agent = await agentOf(persona, row);
           const farmId = row.target === 'farmA' ? coop.farms[0]!.id : row.target === 'farmB' ? coop.farms[1]!.id : '';
           const ids = { farmId, ...(await membershipTarget(row.target)), ...(await herdTarget(coop, row.target)), ...(await almanacTarget(coop, row.target)), ...(await herdFilesTarget(coop, row.target)), ...(await loanTarget(coop, row.target)) };
-          const url = row.path
-            .replace(':farmId', farmId)
-            .replace(':coopSlug', coop.slug)
-            .replace(':applicationId', ids.applicationId ?? '')
-            .replace(':userId', ids.userId ?? '')
-            .replace(':animalId', ids.animalId ?? '')
-            .replace(':weighInId', ids.weighInId ?? '')
-            .replace(':noteId', ids.noteId ?? '');
-          const path = herdFilesPath(almanacPath(url, ids), ids);
+          const path = pathWithIds(row.path, { ...ids, coopSlug: coop.slug });
           const personaOf = persona === 'otherCoop' ? foreign.admin : persona === 'anonymous' ? null : coop[persona];
           const body = (await bodyFor(row.body, ids, persona)) ?? (await herdBody(coop, row.body, ids))
             ?? (await almanacBody(coop, row.body, ids, personaOf?.coopId ?? coop.id, personaOf?.farmId ?? null));
@@ -158,6 +188,13 @@ export function describeMatrixArea(area: MatrixArea) {
             // A lent animal's answers carry no trace of the other farm's private records.
             const answer = res.text ?? JSON.stringify(res.body);
             for (const trace of tracesHiddenFrom(ids.loan, persona)) expect(answer, `${persona} sees ${trace}`).not.toContain(trace);
+          }
+          // The calendar feed's secret address is its own key: whoever holds it reads that farm's Almanac, session or not.
+          const readsBySession = !row.path.startsWith('/api/calendar-feeds/');
+          if (row.method === 'GET' && status < 300 && readsBySession && typeof res.text === 'string') {
+            // A list (or any read) shows nothing another farm recorded privately, nor anything of another co-op.
+            const leaked = (await othersPrivateIds(persona)).filter((id) => res.text.includes(id));
+            expect(leaked, `${persona} reads other farms' private ids`).toEqual([]);
           }
           if (status >= 400) {
             expect(res.body.error.code).toBeTypeOf('string');

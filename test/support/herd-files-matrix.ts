@@ -42,10 +42,6 @@ export async function herdFilesTarget(coop: TestCoop, target: string): Promise<H
   }
 }
 
-export function herdFilesPath(path: string, ids: HerdFilesIds): string {
-  return path.replace(':photoId', ids.photoId ?? '').replace(':importId', ids.importId ?? '');
-}
-
 /** Sends a cell's request: uploads go as multipart form data, the rest as JSON. */
 export async function herdFilesSend(request: supertest.Test, body: string | undefined, json: object | undefined): Promise<supertest.Response> {
   switch (body) {

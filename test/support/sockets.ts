@@ -1,10 +1,35 @@
+import { randomUUID } from 'node:crypto';
 import supertest from 'supertest';
 import { afterAll, beforeAll } from 'vitest';
 import { io as connect, type Socket } from 'socket.io-client';
-import { CSRF_HEADER } from '@burrowline/shared';
+import { CSRF_HEADER, rooms } from '@burrowline/shared';
+import { publish } from '../../packages/server/src/lib/realtime';
 import type { Config } from '../../packages/server/src/config/env';
 import { listeningServer, sessionCookieOf } from './test-app';
 import { TEST_PASSWORD } from './global-setup';
+
+/** A test-only event, never one the product sends; `listen` does not record it. */
+const MARKER_EVENT = 'test:marker';
+
+/**
+ * Resolves once `socket` (signed in as `userId`) hears a marker published now. One connection delivers events in
+ * the order they were published, so anything published before (an event the socket must not get) would have
+ * arrived first: "heard nothing" is then a fact, not the silence of a short wait.
+ */
+export async function heardEverythingSoFar(socket: Socket, userId: string): Promise<void> {
+  const marker = randomUUID();
+  const arrived = new Promise<void>((resolve) => {
+    const onMarker = (payload: { marker?: string }) => {
+      if (payload?.marker !== marker) return;
+      socket.off(MARKER_EVENT, onMarker);
+      resolve();
+    };
+    socket.on(MARKER_EVENT, onMarker);
+  });
+  // The product's events are typed; the marker is deliberately not one of them.
+  (publish as unknown as (room: string, event: string, payload: unknown) => void)(rooms.user(userId), MARKER_EVENT, { marker });
+  await arrived;
+}
 
 /** Sockets of one test file, signed in through a listening server, closed together at the end. */
 export function socketKit(url: () => string) {
@@ -23,6 +48,7 @@ export function socketKit(url: () => string) {
     open.push(socket);
     const heard = new Map<string, unknown[]>();
     socket.onAny((event: string, payload: unknown) => {
+      if (event === MARKER_EVENT) return;
       if (!heard.has(event)) heard.set(event, []);
       heard.get(event)!.push(payload);
     });

@@ -1,4 +1,5 @@
-import { Sequelize } from 'sequelize';
+import { ConnectionError, Sequelize } from 'sequelize';
+import { isLostConnection } from './database-errors';
 
 let instance: { url: string; sequelize: Sequelize } | null = null;
 
@@ -14,7 +15,10 @@ export function openDatabase(url: string, poolMax: number, initModels: (sequeliz
     logging: false,
     pool: { max: poolMax, min: 0, idle: 10_000, acquire: 30_000 },
     define: { underscored: true },
-    retry: { max: 3 },
+    // Only a lost connection is worth a second try of one query; any other failure would be retried inside an
+    // aborted transaction ("current transaction is aborted") and hide the real error. Whole transactions are
+    // run again in withTenant. The arrow function is called as a predicate (it has no prototype to match).
+    retry: { max: 3, match: [ConnectionError, (error: unknown) => isLostConnection(error)] },
   });
   initModels(sequelize);
   instance = { url, sequelize };

@@ -2,6 +2,7 @@ import type { Request, Response } from 'express';
 import { ConnectionAcquireTimeoutError, ConnectionRefusedError, DatabaseError, UniqueConstraintError } from 'sequelize';
 import { describe, expect, it } from 'vitest';
 import { ErrorCode } from '@burrowline/shared';
+import { AppError } from '../lib/app-error';
 import { setLogLevel } from '../lib/logger';
 import { errorBodyOf, errorHandler } from './error-handler';
 
@@ -89,5 +90,17 @@ describe('error handler: client errors', () => {
   it('when an error claims a 5xx status of its own, then it is still a plain 500 with no detail', () => {
     const claimed = Object.assign(new Error('secret internals'), { status: 502 });
     expect(errorBodyOf(claimed, req)).toMatchObject({ status: 500, body: { error: { code: ErrorCode.internal } } });
+  });
+});
+
+describe('error handler: unique clashes', () => {
+  it("when a client-chosen id clashes with a primary key (another co-op's row, hidden by row-level security), then it answers as an id taken in the co-op", () => {
+    const clash = new UniqueConstraintError({ parent: Object.assign(pgError('duplicate key value violates unique constraint "animals_pkey"', '23505'), { constraint: 'animals_pkey' }) });
+    expect(errorBodyOf(clash, req)).toMatchObject({ status: 409, body: { error: { code: ErrorCode.conflict, message: AppError.idTaken().message } } });
+  });
+
+  it('when another unique key clashes, then the answer is a 409 that names no record', () => {
+    const clash = new UniqueConstraintError({ parent: Object.assign(pgError('duplicate key value violates unique constraint "breeds_coop_name_unique"', '23505'), { constraint: 'breeds_coop_name_unique' }) });
+    expect(errorBodyOf(clash, req)).toMatchObject({ status: 409, body: { error: { code: ErrorCode.conflict, message: 'That already exists' } } });
   });
 });

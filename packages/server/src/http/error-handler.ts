@@ -1,8 +1,9 @@
 import type { ErrorRequestHandler, Request, RequestHandler } from 'express';
 import { ForbiddenError } from '@casl/ability';
-import { ConnectionError, OptimisticLockError, UniqueConstraintError } from 'sequelize';
+import { OptimisticLockError, UniqueConstraintError } from 'sequelize';
 import { ZodError } from 'zod';
 import { ErrorCode, type ErrorBody } from '@burrowline/shared';
+import { isLostConnection, isPrimaryKeyClash } from '../db/database-errors';
 import { AppError } from '../lib/app-error';
 import { logger } from '../lib/logger';
 
@@ -18,25 +19,6 @@ function fieldMessages(error: ZodError): Record<string, string[]> {
 /** Seconds a client should wait before retrying a lost connection (a database restart takes a few). */
 export const RETRY_AFTER_SECONDS = 5;
 
-// PostgreSQL's connection exceptions (class 08) and shutdowns (57P01-57P03), and the socket errors of a lost server.
-const lostConnectionCodes = /^(08...|57P0[123]|ECONNREFUSED|ECONNRESET|ETIMEDOUT|EPIPE|ENOTFOUND|EHOSTUNREACH)$/;
-// What node-postgres says, without a code, when the server went away under a pooled connection.
-const lostConnectionMessages = /Connection terminated|not queryable|connection ended/i;
-
-/**
- * A lost or refused database connection, as sequelize wraps it or as node-postgres throws it (the session
- * store). A bare socket error cannot say which server it lost, so one from elsewhere is a 503 too: a retry is right.
- */
-function isLostConnection(error: unknown): boolean {
-  if (error instanceof ConnectionError) return true;
-  const candidates = [error, (error as { parent?: unknown })?.parent, (error as { original?: unknown })?.original];
-  return candidates.some((candidate) => {
-    if (!(candidate instanceof Error)) return false;
-    const code = (candidate as { code?: unknown }).code;
-    return (typeof code === 'string' && lostConnectionCodes.test(code)) || lostConnectionMessages.test(candidate.message);
-  });
-}
-
 /** A 4xx that a parser or the router set on its error (body-parser, express, path decoding); never a 5xx it claims. */
 function clientStatusOf(error: unknown): number | null {
   const { status, statusCode } = (error ?? {}) as { status?: unknown; statusCode?: unknown };
@@ -49,6 +31,9 @@ function toAppError(error: unknown): AppError {
   if (error instanceof ZodError) return AppError.validation(fieldMessages(error));
   if (error instanceof ForbiddenError) return new AppError(ErrorCode.forbidden, 403, 'You may not do that');
   if (error instanceof OptimisticLockError) return AppError.staleVersion();
+  // Primary keys are global: a client-chosen id of another co-op's row clashes here, where row-level security
+  // hid it from the service's own look-up. It answers exactly as an id taken in the actor's co-op does.
+  if (isPrimaryKeyClash(error)) return AppError.idTaken();
   if (error instanceof UniqueConstraintError) return new AppError(ErrorCode.conflict, 409, 'That already exists');
   const bodyError = error as { type?: string; status?: number };
   if (bodyError.type === 'entity.too.large') return new AppError(ErrorCode.payloadTooLarge, 413, 'The request is too large');

@@ -21,6 +21,14 @@ export class AppError extends Error {
     return new AppError(ErrorCode.conflict, 409, message, details);
   }
 
+  /**
+   * A client-chosen id that another record already has. The same answer whichever co-op's record it is, so
+   * it tells an outsider no more than that a random UUID clashed (see the error handler's primary-key case).
+   */
+  static idTaken() {
+    return new AppError(ErrorCode.conflict, 409, 'That id is already taken; reload and try again');
+  }
+
   static staleVersion() {
     return new AppError(
       ErrorCode.staleVersion,

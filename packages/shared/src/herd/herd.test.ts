@@ -57,7 +57,7 @@ describe('first-breeding age (Rabbit Production, 9th ed.: medium breeds, does 4�
 });
 
 describe('weight against the breed standard', () => {
-  // New Zealand senior doe 10–12 lb (reference-values.md, ARBA as quoted: sec), at NIST's 453.59237 g/lb.
+  // New Zealand senior doe 10–12 lb (ARBA Standard of Perfection, as quoted second-hand: sec), at NIST's 453.59237 g/lb.
   const nzDoe = { minGrams: Math.round(poundsToGrams(10)), maxGrams: Math.round(poundsToGrams(12)) };
   it('when a senior New Zealand doe weighs 9.5, 11 and 12.5 lb, then she is below, within and above the standard', () => {
     expect(nzDoe).toEqual({ minGrams: 4536, maxGrams: 5443 });

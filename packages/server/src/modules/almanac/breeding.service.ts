@@ -118,7 +118,7 @@ export async function recordService(actor: SessionUser, input: ServiceCreateInpu
     if (input.id) {
       const existing = await ServiceRecord.findOne({ where: { id: input.id }, paranoid: false, transaction: tx });
       if (existing && existing.farmId === farmId && !existing.deletedAt) return serviceDetail(tx, actor, existing);
-      if (existing) throw new AppError(ErrorCode.conflict, 409, 'That id is already taken; reload and try again');
+      if (existing) throw AppError.idTaken();
     }
     const clock = await farmClockOf(tx, actor.coopId, farmId);
     const { settings } = await settingsOf(tx, farmId);

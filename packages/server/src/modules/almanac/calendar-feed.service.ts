@@ -2,6 +2,7 @@ import { randomBytes } from 'node:crypto';
 import ical, { ICalCalendarMethod } from 'ical-generator';
 import { Op, type Transaction } from 'sequelize';
 import { addDays, defineAbilityFor, ErrorCode, subjectOf, TASK_KIND_LABELS, type AbilityUser, type CalendarFeedDto } from '@burrowline/shared';
+import { lockUntilCommit } from '../../db/advisory-lock';
 import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
@@ -41,6 +42,8 @@ export async function renewCalendarFeed(actor: SessionUser, appUrl: string): Pro
   const farmId = farmOf(actor);
   ensureCan(actor, 'create', 'CalendarFeed', { farmId }, 'That calendar feed', 'Only members of the farm manage its calendar feed');
   return withTenant(actor, async (tx) => {
+    // One renewal at a time per farm: each revokes the one before, so the farm keeps exactly one live feed.
+    await lockUntilCommit(tx, `calendar-feed:${farmId}`);
     const renewed = await CalendarFeedToken.update({ revokedAt: new Date() }, { where: { farmId, revokedAt: { [Op.is]: null } }, transaction: tx });
     const token = randomBytes(32).toString('base64url');
     const row = await CalendarFeedToken.create({ coopId: actor.coopId, farmId, createdBy: actor.id, tokenHash: hashToken(token) }, { transaction: tx });
@@ -54,6 +57,7 @@ export async function revokeCalendarFeed(actor: SessionUser): Promise<void> {
   const farmId = farmOf(actor);
   ensureCan(actor, 'delete', 'CalendarFeed', { farmId }, 'That calendar feed', 'Only members of the farm manage its calendar feed');
   await withTenant(actor, async (tx) => {
+    await lockUntilCommit(tx, `calendar-feed:${farmId}`);
     await CalendarFeedToken.update({ revokedAt: new Date() }, { where: { farmId, revokedAt: { [Op.is]: null } }, transaction: tx });
     await recordAudit({ coopId: actor.coopId, actorUserId: actor.id, action: 'calendar_feed.revoked', subjectType: 'farm', subjectId: farmId }, tx);
   });

@@ -1,6 +1,6 @@
 import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import {
-  addDays, daysBetween, ErrorCode, RealtimeEvent, rooms,
+  addDays, daysBetween, RealtimeEvent, rooms,
   type TreatmentCreateInput, type TreatmentDto, type WithdrawalDto, type WithdrawalQuery, type WithdrawalStateDto,
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
@@ -104,7 +104,7 @@ export async function recordTreatmentIn(tx: Transaction, actor: SessionUser, inp
   if (input.id) {
     const existing = await Treatment.findOne({ where: { id: input.id, coopId: actor.coopId }, transaction: tx });
     if (existing) {
-      if (existing.farmId !== farmId) throw new AppError(ErrorCode.conflict, 409, 'That id is already used');
+      if (existing.farmId !== farmId) throw AppError.idTaken();
       const ctx = await presentContextOf(tx, actor.coopId, clock.today, { animalIds: [existing.animalId], userIds: [existing.recordedBy] });
       return presentTreatment(existing, ctx, groupNames);
     }

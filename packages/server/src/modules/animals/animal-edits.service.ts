@@ -62,7 +62,7 @@ export async function createAnimal(actor: SessionUser, input: AnimalCreateInput)
     if (input.id) {
       const existing = await Animal.findOne({ where: { id: input.id }, paranoid: false, transaction: tx });
       if (existing && existing.owningFarmId === farmId && !existing.deletedAt) return detailOf(tx, actor, ctx, existing.id);
-      if (existing) throw new AppError(ErrorCode.conflict, 409, 'That id is already taken; reload and try again');
+      if (existing) throw AppError.idTaken();
     }
 
     const errors: FieldMessages = {};

@@ -74,7 +74,7 @@ export async function createWeighIn(actor: SessionUser, input: WeighInCreateInpu
       if (existing && existing.farmId === actor.farmId && existing.enteredBy === actor.id) {
         return presentWeighIn(existing, await namesOf([existing.enteredBy], tx));
       }
-      if (existing) throw new AppError(ErrorCode.conflict, 409, 'That id is already taken; reload and try again');
+      if (existing) throw AppError.idTaken();
     }
     const animal = input.animalId ? await animalOnActorsFarm(actor, input.animalId, tx) : null;
     const farmId = animal?.keepingFarmId ?? actor.farmId;

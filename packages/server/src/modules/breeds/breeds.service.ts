@@ -1,6 +1,7 @@
 import { ForbiddenError } from '@casl/ability';
 import { Op, type Transaction } from 'sequelize';
 import { defineAbilityFor, ErrorCode, poundsToGrams, subjectOf, type BreedCreateInput, type BreedDto, type SizeClass } from '@burrowline/shared';
+import { lockUntilCommit } from '../../db/advisory-lock';
 import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
@@ -44,6 +45,8 @@ export async function breedMapOf(coopId: string, tx: Transaction): Promise<Map<s
 export async function createBreed(actor: SessionUser, input: BreedCreateInput): Promise<BreedDto> {
   ForbiddenError.from(defineAbilityFor(actor)).throwUnlessCan('create', subjectOf('Breed', { coopId: actor.coopId }));
   return withTenant(actor, async (tx) => {
+    // One new breed at a time per co-op, so a repeated name meets the clash check below, not the unique index.
+    await lockUntilCommit(tx, `breeds:${actor.coopId}`);
     const clash = await Breed.findOne({
       where: { [Op.and]: [visibleTo(actor.coopId), { name: { [Op.iLike]: input.name.replace(/[\\%_]/g, '\\$&') } }] },
       transaction: tx,

@@ -157,7 +157,7 @@ export async function formGroup(actor: SessionUser, input: GrowOutGroupCreateInp
     if (input.id) {
       const existing = await GrowOutGroup.findOne({ where: { id: input.id }, paranoid: false, transaction: tx });
       if (existing && existing.farmId === farmId && existing.createdBy === actor.id) return detailOf(tx, actor, existing);
-      if (existing) throw AppError.conflict('That id is already taken; reload and try again');
+      if (existing) throw AppError.idTaken();
     }
     return detailOf(tx, actor, await formGroupIn(tx, actor, input));
   });
@@ -224,7 +224,7 @@ export async function recordGroupWeighIn(actor: SessionUser, groupId: string, in
     if (input.id) {
       const existing = await weighInOwnerOf(tx, input.id);
       if (existing && existing.groupId === group.id && existing.enteredBy === actor.id) return detailOf(tx, actor, group);
-      if (existing) throw AppError.conflict('That id is already taken; reload and try again');
+      if (existing) throw AppError.idTaken();
     }
     await weighGroupIn(tx, actor, group, input);
     return detailOf(tx, actor, group);

@@ -1,6 +1,6 @@
 import { Op, type Transaction } from 'sequelize';
 import {
-  addDays, DEFAULT_CYCLE_SETTINGS, ErrorCode, HEAT_CAUTION, KINDLING_SOON_DAYS, kitCount, RealtimeEvent, readingToCelsius, rooms, YOUNG_LITTER_DAYS, daysBetween, type HeatCautionDto, type TemperatureListDto, type TemperatureReadingCreateInput, type TemperatureReadingDto,
+  addDays, DEFAULT_CYCLE_SETTINGS, HEAT_CAUTION, KINDLING_SOON_DAYS, kitCount, RealtimeEvent, readingToCelsius, rooms, YOUNG_LITTER_DAYS, daysBetween, type HeatCautionDto, type TemperatureListDto, type TemperatureReadingCreateInput, type TemperatureReadingDto,
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../lib/session-user';
@@ -39,7 +39,7 @@ export async function recordTemperatureIn(tx: Transaction, actor: SessionUser, i
   if (input.id) {
     const existing = await TemperatureReading.findOne({ where: { id: input.id }, transaction: tx });
     if (existing) {
-      if (existing.farmId !== farmId) throw new AppError(ErrorCode.conflict, 409, 'That id is already used');
+      if (existing.farmId !== farmId) throw AppError.idTaken();
       return presentReading(existing, await namesOf([existing.recordedBy], tx));
     }
   }

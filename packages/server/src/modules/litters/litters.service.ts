@@ -140,7 +140,7 @@ export async function recordKindling(actor: SessionUser, input: KindlingCreateIn
     if (input.id) {
       const existing = await Litter.findOne({ where: { id: input.id }, paranoid: false, transaction: tx });
       if (existing && existing.farmId === farmId && !existing.deletedAt) return litterDetail(tx, actor, existing);
-      if (existing) throw new AppError(ErrorCode.conflict, 409, 'That id is already taken; reload and try again');
+      if (existing) throw AppError.idTaken();
     }
     const service = await serviceForKindling(tx, actor, input.serviceId);
     const clock = await farmClockOf(tx, actor.coopId, farmId);
@@ -210,7 +210,7 @@ export async function recordLitterEvent(actor: SessionUser, litterId: string, in
     if (input.id) {
       const existing = await LitterEvent.findOne({ where: { id: input.id }, paranoid: false, transaction: tx });
       if (existing && existing.litterId === litter.id && existing.enteredBy === actor.id) return litterDetail(tx, actor, litter);
-      if (existing) throw new AppError(ErrorCode.conflict, 409, 'That id is already taken; reload and try again');
+      if (existing) throw AppError.idTaken();
     }
     const clock = await farmClockOf(tx, actor.coopId, litter.farmId);
     const events = await eventsOf(tx, [litter.id]);

@@ -141,7 +141,7 @@ export async function recordProcessingIn(tx: Transaction, actor: SessionUser, in
   if (input.id) {
     const existing = await ProcessingRecord.findOne({ where: { id: input.id }, transaction: tx });
     if (existing) {
-      if (existing.farmId !== farmId) throw new AppError(ErrorCode.conflict, 409, 'That id is already used');
+      if (existing.farmId !== farmId) throw AppError.idTaken();
       return presentProcessingRecord(existing, await presentContext(tx, actor.coopId, clock.today, groups, [{ animalId: existing.animalId, userId: existing.recordedBy }]));
     }
   }
@@ -210,8 +210,19 @@ export async function markForProcessing(actor: SessionUser, input: ProcessingMar
   const farmId = farmOf(actor);
   ensureCan(actor, 'create', 'ProcessingRecord', { farmId }, 'That farm', 'Only members of the farm mark animals for processing');
   return withTenant(actor, async (tx) => {
+    // The farm's processing lock: a mark and a processing record of one animal or group are decided one at a time.
+    await lockUntilCommit(tx, `processing:${farmId}`);
     const clock = await farmClockOf(tx, actor.coopId, farmId);
     const groups = await growOutFactsOfFarm(tx, actor.coopId, farmId, { groupIds: input.groupId ? [input.groupId] : [], withFeed: false });
+    if (input.id) {
+      const existing = await ProcessingMark.findOne({ where: { id: input.id }, paranoid: false, transaction: tx });
+      const sameMark = existing && existing.farmId === farmId && !existing.deletedAt
+        && existing.animalId === (input.animalId ?? null) && existing.groupId === (input.groupId ?? null);
+      if (sameMark) {
+        return presentProcessingMark(existing, await presentContext(tx, actor.coopId, clock.today, groups, [{ animalId: existing.animalId, userId: existing.markedBy }]), null);
+      }
+      if (existing) throw AppError.idTaken();
+    }
     const errors: FieldMessages = {};
     if (input.plannedOn < clock.today) addMessage(errors, 'plannedOn', `Plan it for today (${clock.today}) or later`);
     const subject = await subjectOf(tx, actor, farmId, input, groups, errors);
