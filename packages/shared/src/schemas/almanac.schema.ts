@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { multiLine, singleLine } from './text';
+import { multiLine, singleLine, recordId } from './text';
 import { isIsoDate } from '../herd/herd-dates';
 import { calendarDateSchema } from './animal.schema';
 
@@ -10,15 +10,14 @@ import { calendarDateSchema } from './animal.schema';
  * today (the schema cannot know the farm's time zone).
  */
 
-const idSchema = (what: string) => z.uuid({ message: `${what} is not a valid id` });
 const noteText = (max: number) => multiLine(max);
 
 /** A service: the doe, the buck (the farm's own or one kept here on loan), the date. */
 export const serviceCreateSchema = z.strictObject({
   /** Client-generated, so a retried save cannot record the service twice. */
-  id: idSchema('The service').optional(),
-  doeId: idSchema('The doe'),
-  buckId: idSchema('The buck'),
+  id: recordId('The service').optional(),
+  doeId: recordId('The doe'),
+  buckId: recordId('The buck'),
   servicedOn: calendarDateSchema,
   notes: noteText(1000).default(''),
   /** Set on a resubmit after a warning (a young doe, a doe under treatment), to save anyway. */
@@ -47,7 +46,7 @@ export type ServiceClosureInput = z.infer<typeof serviceClosureSchema>;
 
 export const serviceListQuerySchema = z.strictObject({
   status: z.enum(['open', 'closed', 'all']).default('all'),
-  doeId: idSchema('The doe').optional(),
+  doeId: recordId('The doe').optional(),
   limit: z.coerce.number().int().min(1).max(500).default(100),
 });
 export type ServiceListQuery = z.infer<typeof serviceListQuerySchema>;
@@ -101,7 +100,7 @@ export type TaskUpdateInput = z.infer<typeof taskUpdateSchema>;
 export type TaskAction = TaskUpdateInput['action'];
 
 const bulkTasks = z
-  .array(z.strictObject({ id: idSchema('The task'), version }), { message: 'Choose the tasks' })
+  .array(z.strictObject({ id: recordId('The task'), version }), { message: 'Choose the tasks' })
   .min(1, 'Choose at least one task')
   .max(200, 'At most 200 tasks at once')
   .refine((list) => new Set(list.map((t) => t.id)).size === list.length, 'A task is listed twice');

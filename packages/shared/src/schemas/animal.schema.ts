@@ -2,7 +2,7 @@ import { z } from 'zod';
 import { ageClasses } from '../herd/age-class';
 import { EARLIEST_RECORD_DATE, isIsoDate, isRecordDate, LATEST_RECORD_DATE } from '../herd/herd-dates';
 import { dispositions, lifecycles, purities, sexes } from '../herd/herd-enums';
-import { multiLine, singleLine } from './text';
+import { multiLine, singleLine, recordId } from './text';
 
 /** A calendar date as the farm sees it (trade events are dates, not instants), within the range a record may carry. */
 export const calendarDateSchema = z
@@ -10,7 +10,6 @@ export const calendarDateSchema = z
   .refine(isIsoDate, 'Enter a date as YYYY-MM-DD')
   .refine((value) => !isIsoDate(value) || isRecordDate(value), `Enter a date from ${EARLIEST_RECORD_DATE} to ${LATEST_RECORD_DATE}`);
 
-const idSchema = (what: string) => z.uuid({ message: `${what} is not a valid id` });
 
 export const tattooSchema = z
   .string({ message: 'Enter the ear tattoo' })
@@ -43,7 +42,7 @@ export const fromPapersSchema = z.strictObject({
   name: singleLine('The name on the papers', 1, 60),
   tattoo: optionalTattoo.default(null),
   registrationNumber: registrationSchema.default(null),
-  breedId: idSchema('The breed').nullable().default(null),
+  breedId: recordId('The breed').nullable().default(null),
   colour: colourSchema.default(''),
   birthDate: calendarDateSchema.nullable().default(null),
   breederName: noteText(120).default(''),
@@ -54,11 +53,11 @@ const animalFields = {
   tattoo: tattooSchema,
   name: animalName,
   sex: z.enum(sexes, { message: 'Choose buck or doe' }),
-  breedId: idSchema('The breed').nullable(),
+  breedId: recordId('The breed').nullable(),
   colour: colourSchema,
   birthDate: calendarDateSchema,
-  sireId: idSchema('The sire').nullable(),
-  damId: idSchema('The dam').nullable(),
+  sireId: recordId('The sire').nullable(),
+  damId: recordId('The dam').nullable(),
   sireFromPapers: fromPapersSchema.optional(),
   damFromPapers: fromPapersSchema.optional(),
   registrationNumber: registrationSchema,
@@ -75,7 +74,7 @@ function parentsNotTwice(value: { sireId?: string | null; damId?: string | null;
 export const animalCreateSchema = z
   .strictObject({
     /** Client-generated, so a retried create cannot make two animals. */
-    id: idSchema('The animal').optional(),
+    id: recordId('The animal').optional(),
     ...animalFields,
     name: animalFields.name.default(''),
     breedId: animalFields.breedId.default(null),
@@ -135,7 +134,7 @@ export const animalListQuerySchema = z.strictObject({
   search: z.string().trim().max(60).optional(),
   sex: z.enum(sexes).optional(),
   status: z.enum(herdStatusFilters).default('current'),
-  breedId: idSchema('The breed').optional(),
+  breedId: recordId('The breed').optional(),
   ageClass: z.enum(ageClasses).optional(),
   purity: z.enum(purities).optional(),
   sort: z.enum(herdSortKeys).default('tattoo'),
@@ -168,7 +167,7 @@ export type StatusEventInput = z.infer<typeof statusEventSchema>;
 export const custodyMoveSchema = z
   .strictObject({
     kind: z.enum(['transferred', 'lent', 'returned']),
-    toFarmId: idSchema('The farm').optional(),
+    toFarmId: recordId('The farm').optional(),
     movedOn: calendarDateSchema,
     /** When the tattoo clashes at the destination: the new tattoo (re-tattooed or with a farm suffix). */
     newTattoo: tattooSchema.optional(),
@@ -189,7 +188,7 @@ const booleanQuery = z.enum(['true', 'false']).transform((v) => v === 'true');
 export const pedigreeCardQuerySchema = z.strictObject({
   search: z.string().trim().max(60).optional(),
   sex: z.enum(sexes).optional(),
-  farmId: idSchema('The farm').optional(),
+  farmId: recordId('The farm').optional(),
   /** Only animals alive on a co-op farm (no outside or departed ones). */
   onFarm: booleanQuery.optional(),
   /** Only animals in the breeding stage (not kits, juniors or retired ones): bucks one could use. */
@@ -200,16 +199,16 @@ export const pedigreeCardQuerySchema = z.strictObject({
 export type PedigreeCardQuery = z.infer<typeof pedigreeCardQuerySchema>;
 
 export const trialMatingSchema = z.strictObject({
-  damId: idSchema('The doe'),
-  sireIds: z.array(idSchema('A buck')).min(1, 'Pick at least one buck').max(12, 'Compare at most 12 bucks at once'),
+  damId: recordId('The doe'),
+  sireIds: z.array(recordId('A buck')).min(1, 'Pick at least one buck').max(12, 'Compare at most 12 bucks at once'),
 });
 export type TrialMatingInput = z.infer<typeof trialMatingSchema>;
 
 /** An outside animal for the co-op registry (found again when its registration, or tattoo and name, match). */
 export const outsideAnimalSchema = fromPapersSchema.extend({
   sex: z.enum(sexes, { message: 'Choose buck or doe' }),
-  sireId: idSchema('The sire').nullable().default(null),
-  damId: idSchema('The dam').nullable().default(null),
+  sireId: recordId('The sire').nullable().default(null),
+  damId: recordId('The dam').nullable().default(null),
 });
 export type OutsideAnimalInput = z.infer<typeof outsideAnimalSchema>;
 
@@ -218,7 +217,7 @@ export const outsideAnimalQuerySchema = z.strictObject({
 });
 
 export const outsideMergeSchema = z.strictObject({
-  intoId: idSchema('The record to keep'),
+  intoId: recordId('The record to keep'),
 });
 
 /** Columns the Herd table can show; the choice is kept in the address (`cols`, comma-separated). */

@@ -1,12 +1,11 @@
 import { z } from 'zod';
 import { calendarDateSchema } from './animal.schema';
-import { singleLine } from './text';
+import { singleLine, recordId } from './text';
 
-const id = (what: string) => z.uuid({ message: `${what} is not a valid id` });
 
 /** A purchase of feed in whole bags; the bag weight is entered in the farm's units and sent in grams. */
 export const feedPurchaseCreateSchema = z.strictObject({
-  id: id('The purchase').optional(),
+  id: recordId('The purchase').optional(),
   boughtOn: calendarDateSchema,
   productName: singleLine('The feed', 1, 80),
   bagGrams: z.number({ message: 'Enter the bag weight' }).int('Weights are whole grams').min(100, 'A bag under 100 g is not a feed bag').max(100_000, 'A bag over 100 kg; check the weight'),
@@ -40,16 +39,16 @@ export type FeedAllocationRule = (typeof feedAllocationRules)[number];
  * period the feed covers (default: the day given).
  */
 const feedUseFields = z.strictObject({
-    id: id('The entry').optional(),
+    id: recordId('The entry').optional(),
     givenOn: calendarDateSchema,
     fromOn: calendarDateSchema.optional(),
     grams: z.number({ message: 'Enter the amount' }).int('Weights are whole grams').min(1, 'Enter an amount above zero').max(10_000_000, 'More than 10 tonnes; check the amount'),
-    purchaseId: id('The purchase').nullable().optional(),
+    purchaseId: recordId('The purchase').nullable().optional(),
     productName: singleLine('The feed', 1, 80).optional(),
     target: z.enum(feedTargets, { message: 'Choose who the feed went to' }),
-    groupId: id('The group').optional(),
-    housingUnitId: id('The pen').optional(),
-    doeId: id('The doe').optional(),
+    groupId: recordId('The group').optional(),
+    housingUnitId: recordId('The pen').optional(),
+    doeId: recordId('The doe').optional(),
     allocation: z.enum(feedAllocationRules, { message: 'Choose how to split the feed' }).optional(),
     note: z.string().trim().max(500).default(''),
   });

@@ -1,8 +1,7 @@
 import { z } from 'zod';
 import { calendarDateSchema } from './animal.schema';
-import { singleLine } from './text';
+import { singleLine, recordId } from './text';
 
-const id = (what: string) => z.uuid({ message: `${what} is not a valid id` });
 
 /**
  * A grow-out group formed from kits of one or more of the farm's litters. The target live weight per
@@ -10,7 +9,7 @@ const id = (what: string) => z.uuid({ message: `${what} is not a valid id` });
  * common practice; Oregon State Ext. Bulletin 745 gives 4–5 lb at 8 weeks).
  */
 export const growOutGroupCreateSchema = z.strictObject({
-  id: id('The group').optional(),
+  id: recordId('The group').optional(),
   name: singleLine('The group name', 1, 60),
   formedOn: calendarDateSchema,
   targetGrams: z
@@ -18,11 +17,11 @@ export const growOutGroupCreateSchema = z.strictObject({
     .int('Weights are whole grams')
     .min(500, 'A target under 500 g is not a market weight')
     .max(8000, 'A target over 8 kg is beyond any fryer or roaster'),
-  housingUnitId: id('The pen').nullable().optional(),
+  housingUnitId: recordId('The pen').nullable().optional(),
   litters: z
     .array(
       z.strictObject({
-        litterId: id('The litter'),
+        litterId: recordId('The litter'),
         heads: z.number({ message: 'Enter how many kits' }).int('Whole kits').min(1, 'At least one kit').max(30, 'No litter has more than 30 kits'),
       }),
       { message: 'Pick at least one litter' },
@@ -42,7 +41,7 @@ export const KIT_LABEL_MAX = 30;
  */
 export const groupWeighInCreateSchema = z
   .strictObject({
-    id: id('The weigh-in').optional(),
+    id: recordId('The weigh-in').optional(),
     weighedOn: calendarDateSchema,
     totalGrams: z.number({ message: 'Enter the total weight' }).int('Weights are whole grams').min(1, 'Enter a weight above zero').max(1_000_000, 'That is more than a tonne; check the weight').optional(),
     headCount: z.number({ message: 'Enter the head count' }).int('Whole heads').min(1, 'At least one head').max(500).optional(),

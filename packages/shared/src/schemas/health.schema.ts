@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { multiLine, singleLine } from './text';
+import { multiLine, singleLine, recordId } from './text';
 import { isIsoDate } from '../herd/herd-dates';
 import { readingToCelsius, TEMPERATURE_LIMITS_CELSIUS } from '../health/heat';
 import { celsiusToFahrenheit } from '../units/units';
@@ -12,7 +12,6 @@ import { calendarDateSchema } from './animal.schema';
  * no end is refused, and "no withdrawal" is an explicit 0 days.
  */
 
-const idSchema = (what: string) => z.uuid({ message: `${what} is not a valid id` });
 const noteText = (max: number) => multiLine(max);
 
 export const treatmentRoutes = ['oral', 'injection', 'topical', 'in_water', 'in_feed', 'other'] as const;
@@ -32,9 +31,9 @@ export const WITHDRAWAL_MISSING_MESSAGE =
 export const treatmentCreateSchema = z
   .strictObject({
     /** Client-generated, so a retried save cannot record the treatment twice. */
-    id: idSchema('The treatment').optional(),
-    animalId: idSchema('The animal').optional(),
-    groupId: idSchema('The group').optional(),
+    id: recordId('The treatment').optional(),
+    animalId: recordId('The animal').optional(),
+    groupId: recordId('The group').optional(),
     treatment: singleLine('The treatment', 0, 200).refine((v) => v.length > 0, 'Say what the treatment is'),
     dose: z.string().trim().min(1, 'Give the dose the veterinarian prescribed').max(200, 'Keep it under 200 characters'),
     route: z.enum(treatmentRoutes, { message: 'Choose how it is given' }),
@@ -70,21 +69,21 @@ export type TreatmentCreateInput = z.infer<typeof treatmentCreateSchema>;
 export type TreatmentCreateBody = z.input<typeof treatmentCreateSchema>;
 
 export const treatmentListQuerySchema = z.strictObject({
-  animalId: idSchema('The animal').optional(),
-  groupId: idSchema('The group').optional(),
+  animalId: recordId('The animal').optional(),
+  groupId: recordId('The group').optional(),
 });
 
 /** GET /api/withdrawals: one animal's or group's (or, with neither, all of the farm's current ones). */
 export const withdrawalQuerySchema = z.strictObject({
-  animalId: idSchema('The animal').optional(),
-  groupId: idSchema('The group').optional(),
+  animalId: recordId('The animal').optional(),
+  groupId: recordId('The group').optional(),
 });
 export type WithdrawalQuery = z.infer<typeof withdrawalQuerySchema>;
 
 /** A temperature reading in the farm's unit; stored in °C to one decimal. */
 export const temperatureReadingCreateSchema = z
   .strictObject({
-    id: idSchema('The reading').optional(),
+    id: recordId('The reading').optional(),
     value: z.number({ message: 'Enter the temperature as a number' }).finite('Enter the temperature as a number'),
     unit: z.enum(['F', 'C'], { message: 'Choose °F or °C' }),
     /** When it was read (an instant); now if left out. */

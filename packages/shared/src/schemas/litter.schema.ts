@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { multiLine, singleLine } from './text';
+import { multiLine, singleLine, recordId } from './text';
 import { sexes } from '../herd/herd-enums';
 import { calendarDateSchema, tattooSchema } from './animal.schema';
 
@@ -11,7 +11,6 @@ import { calendarDateSchema, tattooSchema } from './animal.schema';
  * before the kindling or in the farm's future) run on the server with the shared litter-count rules.
  */
 
-const idSchema = (what: string) => z.uuid({ message: `${what} is not a valid id` });
 const noteText = (max: number) => multiLine(max);
 
 const kitCount = (what: string, min: number) =>
@@ -23,8 +22,8 @@ const kitCount = (what: string, min: number) =>
 
 /** The kindling: which service it came from (so sire and dam are fixed), the date, born alive and dead. */
 export const kindlingCreateSchema = z.strictObject({
-  id: idSchema('The litter').optional(),
-  serviceId: idSchema('The service'),
+  id: recordId('The litter').optional(),
+  serviceId: recordId('The service'),
   kindledOn: calendarDateSchema,
   bornAlive: kitCount('Born alive', 0),
   bornDead: kitCount('Born dead', 0),
@@ -38,7 +37,7 @@ export type KindlingCreateBody = z.input<typeof kindlingCreateSchema>;
 /** Kits leaving the doe without another litter: lost (with a cause), culled, weaned. */
 export const litterEventCreateSchema = z
   .strictObject({
-    id: idSchema('The event').optional(),
+    id: recordId('The event').optional(),
     kind: z.enum(['lost', 'culled', 'weaned'], { message: 'Choose lost, culled or weaned' }),
     on: calendarDateSchema,
     count: kitCount('Kits', 1),
@@ -73,9 +72,9 @@ export type LitterEventCreateInput = z.infer<typeof litterEventCreateSchema>;
  * Fostering never changes parentage: the kits stay the offspring of the litter they were born in.
  */
 export const fosteringCreateSchema = z.strictObject({
-  id: idSchema('The fostering').optional(),
+  id: recordId('The fostering').optional(),
   direction: z.enum(['out', 'in'], { message: 'Fostered out of this litter, or in from the other?' }),
-  otherLitterId: idSchema('The other litter'),
+  otherLitterId: recordId('The other litter'),
   on: calendarDateSchema,
   count: kitCount('Kits', 1),
 });
@@ -83,13 +82,13 @@ export type FosteringCreateInput = z.infer<typeof fosteringCreateSchema>;
 
 /** A kit picked to keep: its own animal record with its tattoo; sire, dam and birth date come from the litter it was born in. */
 export const keeperCreateSchema = z.strictObject({
-  id: idSchema('The animal').optional(),
+  id: recordId('The animal').optional(),
   tattoo: tattooSchema,
   name: singleLine('The name', 0, 60).default(''),
   sex: z.enum(sexes, { message: 'Choose buck or doe' }),
   colour: singleLine('The colour', 0, 60).default(''),
   /** When the kit was fostered in: the litter it was born in (its parentage). Default: this litter. */
-  bornInLitterId: idSchema('The litter it was born in').optional(),
+  bornInLitterId: recordId('The litter it was born in').optional(),
 });
 export type KeeperCreateInput = z.infer<typeof keeperCreateSchema>;
 
@@ -113,8 +112,8 @@ export type HousingUnitCreateInput = z.infer<typeof housingUnitCreateSchema>;
 
 export const placementCreateSchema = z
   .strictObject({
-    animalId: idSchema('The animal').optional(),
-    litterId: idSchema('The litter').optional(),
+    animalId: recordId('The animal').optional(),
+    litterId: recordId('The litter').optional(),
     placedOn: calendarDateSchema,
     note: noteText(200).default(''),
   })

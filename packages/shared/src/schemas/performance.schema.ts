@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { recordId } from './text';
 import { calendarDateSchema } from './animal.schema';
 import type { PerformanceTables } from '../yield/performance-tables';
 
@@ -15,7 +16,7 @@ export const performanceQuerySchema = z
     from: calendarDateSchema.optional(),
     to: calendarDateSchema.optional(),
     /** Default: the signed-in person's farm (an apprentice: the mentor's). Another farm's answers 404. */
-    farmId: z.uuid({ message: 'The farm is not a valid id' }).optional(),
+    farmId: recordId('The farm').optional(),
   })
   .superRefine((v, ctx) => {
     if (v.period !== 'custom') return;

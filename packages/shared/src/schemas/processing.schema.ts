@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { recordId } from './text';
 import { MAX_RABBIT_GRAMS } from '../growth/plausibility';
 import { calendarDateSchema } from './animal.schema';
 
@@ -9,15 +10,14 @@ import { calendarDateSchema } from './animal.schema';
  * today) the server checks.
  */
 
-const idSchema = (what: string) => z.uuid({ message: `${what} is not a valid id` });
 const grams = (what: string) =>
   z.number({ message: `Enter the ${what}` }).int(`Give the ${what} in whole grams`).positive(`The ${what} must be above zero`);
 
 export const processingRecordCreateSchema = z
   .strictObject({
-    id: idSchema('The record').optional(),
-    animalId: idSchema('The animal').optional(),
-    groupId: idSchema('The group').optional(),
+    id: recordId('The record').optional(),
+    animalId: recordId('The animal').optional(),
+    groupId: recordId('The group').optional(),
     processedOn: calendarDateSchema,
     headCount: z.number({ message: 'Enter how many were processed' }).int('Enter a whole number of heads').min(1, 'At least one head').max(500, 'At most 500 heads in one record').default(1),
     liveGrams: grams('live weight'),
@@ -45,9 +45,9 @@ export type ProcessingRecordCreateBody = z.input<typeof processingRecordCreateSc
 
 export const processingMarkCreateSchema = z
   .strictObject({
-    id: idSchema('The mark').optional(),
-    animalId: idSchema('The animal').optional(),
-    groupId: idSchema('The group').optional(),
+    id: recordId('The mark').optional(),
+    animalId: recordId('The animal').optional(),
+    groupId: recordId('The group').optional(),
     plannedOn: calendarDateSchema,
     notes: z.string().trim().max(500, 'Keep it under 500 characters').default(''),
   })

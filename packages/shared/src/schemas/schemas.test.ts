@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { calendarDateSchema, farmProfileUpdateSchema, setPasswordSchema, signInSchema } from '../index';
+import { calendarDateSchema, farmProfileUpdateSchema, serviceCreateSchema, setPasswordSchema, signInSchema } from '../index';
 import { multiLine, singleLine } from './text';
 
 const validProfile = {
@@ -8,6 +8,13 @@ const validProfile = {
 };
 
 describe('shared input schemas', () => {
+  it('when no doe or buck is chosen, then the message asks for the choice, not for an id', () => {
+    const result = serviceCreateSchema.safeParse({ doeId: '', servicedOn: '2026-11-02' });
+    expect(result.success).toBe(false);
+    const messages = Object.fromEntries(result.error!.issues.map((i) => [i.path.join('.'), i.message]));
+    expect(messages).toMatchObject({ doeId: 'Choose the doe', buckId: 'Choose the buck' });
+  });
+
   it('when an e-mail has capitals and spaces, then sign-in normalises it', () => {
     expect(signInSchema.parse({ email: '  Marisol@Example.TEST ', password: 'x' }).email).toBe('marisol@example.test');
   });

@@ -25,3 +25,11 @@ export function multiLine(max: number, tooLong = `Keep it under ${max.toLocaleSt
     .max(max, tooLong)
     .refine((value) => !hiddenCharacters.test(value), 'Remove the invisible control characters from this text');
 }
+
+/**
+ * The id of a record the person picks from a list (a doe, a group, a feed). It only fails when nothing or
+ * something unknown was picked, so the message asks for the choice rather than talking about ids.
+ */
+export function recordId(what: string) {
+  return z.uuid({ message: `Choose ${what.replace(/^The /, 'the ')}` });
+}

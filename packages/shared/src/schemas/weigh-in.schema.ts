@@ -1,12 +1,12 @@
 import { z } from 'zod';
-import { multiLine, singleLine } from './text';
+import { multiLine, singleLine, recordId } from './text';
 import { calendarDateSchema } from './animal.schema';
 
 /** A weigh-in of one animal (head count 1) or of a group (a litter, a pen) as a total over a head count. */
 export const weighInCreateSchema = z
   .strictObject({
     id: z.uuid({ message: 'Not a valid id' }).optional(),
-    animalId: z.uuid({ message: 'The animal is not a valid id' }).optional(),
+    animalId: recordId('The animal').optional(),
     groupLabel: singleLine('The group name', 0, 60).refine((v) => v.length > 0, 'Name the group').optional(),
     totalGrams: z
       .number({ message: 'Enter the weight' })
