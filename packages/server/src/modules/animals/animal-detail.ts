@@ -6,7 +6,7 @@ import { namesOf } from '../users/users.service';
 import { AnimalNote } from './animal-note.model';
 import { AnimalStatusEvent } from './animal-status-event.model';
 import { query, selectAncestorIds, selectAnimalById, selectAnimals } from './animal-queries';
-import { presentAnimal, presentCard, standardBreedOf, type PresentContext } from './animals.presenter';
+import { presentAnimal, presentCard, presentNote, standardBreedOf, type PresentContext } from './animals.presenter';
 import { CustodyEvent } from './custody-event.model';
 import { privateRecordFarmsOf } from './animal-facts.service';
 
@@ -66,16 +66,7 @@ export async function detailOf(tx: Transaction, actor: SessionUser, ctx: Present
       animalId,
       4,
     ),
-    noteLog: notes.map((n) => ({
-      id: n.id,
-      animalId: n.animalId,
-      body: n.body,
-      notedOn: n.notedOn,
-      enteredBy: { id: n.enteredBy, name: names.get(n.enteredBy) ?? 'Someone' },
-      reviewState: n.reviewState,
-      reviewComment: n.reviewComment,
-      version: n.version,
-    })),
+    noteLog: notes.map((n) => presentNote(n, names)),
   };
 }
 

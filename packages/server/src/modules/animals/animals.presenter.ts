@@ -1,6 +1,7 @@
+import type { AnimalNote } from './animal-note.model';
 import {
   ageClassOf, daysBetween, type AppAbility, subjectOf, seniorRangeFor, weightAgainstStandard, type AnimalDto, type BreedDto, type BreedMakeupDto,
-  type CustodyStatus, type FarmRefDto, type PedigreeCardDto, type WeightUnit,
+  type AnimalNoteDto, type CustodyStatus, type FarmRefDto, type PedigreeCardDto, type WeightUnit,
 } from '@burrowline/shared';
 import type { AnimalRow } from './animal-queries';
 
@@ -128,4 +129,18 @@ export function presentAnimal(row: AnimalRow, ctx: PresentContext): AnimalDto {
 export function labelOf(row: Pick<AnimalRow, 'name' | 'tattoo'>): string {
   if (row.name && row.tattoo) return `${row.name} (${row.tattoo})`;
   return row.name || row.tattoo || 'That animal';
+}
+
+/** A note in the animal's log, with who entered it and its review state. */
+export function presentNote(n: AnimalNote, names: Map<string, string>): AnimalNoteDto {
+  return {
+    id: n.id,
+    animalId: n.animalId,
+    body: n.body,
+    notedOn: n.notedOn,
+    enteredBy: { id: n.enteredBy, name: names.get(n.enteredBy) ?? 'Someone' },
+    reviewState: n.reviewState,
+    reviewComment: n.reviewComment,
+    version: n.version,
+  };
 }

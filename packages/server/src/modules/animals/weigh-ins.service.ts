@@ -15,6 +15,7 @@ import { AnimalNote } from './animal-note.model';
 import { Animal } from './animal.model';
 import { WeighIn } from './weigh-in.model';
 import { privateRecordFarmsOf } from './animal-facts.service';
+import { presentNote } from './animals.presenter';
 
 /** An apprentice's entry waits for the mentor's review; a member's stands as entered. */
 function initialReviewState(actor: SessionUser): ReviewState {
@@ -36,19 +37,6 @@ function presentWeighIn(w: WeighIn, names: Map<string, string>): WeighInDto {
     reviewState: w.reviewState,
     reviewComment: w.reviewComment,
     version: w.version,
-  };
-}
-
-function presentNote(n: AnimalNote, names: Map<string, string>): AnimalNoteDto {
-  return {
-    id: n.id,
-    animalId: n.animalId,
-    body: n.body,
-    notedOn: n.notedOn,
-    enteredBy: { id: n.enteredBy, name: names.get(n.enteredBy) ?? 'Someone' },
-    reviewState: n.reviewState,
-    reviewComment: n.reviewComment,
-    version: n.version,
   };
 }
 
