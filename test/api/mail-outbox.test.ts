@@ -5,25 +5,20 @@
  */
 import { spawn, type ChildProcess } from 'node:child_process';
 import { randomUUID } from 'node:crypto';
-import fs from 'node:fs';
 import path from 'node:path';
-import pg from 'pg';
 import supertest from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { CSRF_HEADER } from '@burrowline/shared';
 import { withTenant } from '../../packages/server/src/db/tenant';
 import { deliverQueuedMail, queueMail } from '../../packages/server/src/lib/mail-outbox';
 import { composeMail } from '../../packages/server/src/lib/mailer';
-import { root, runTs, startCluster, type LocalCluster } from '../../scripts/lib/bootstrap.mjs';
+import { root } from '../../scripts/lib/bootstrap.mjs';
 import { asTenant } from '../support/db';
 import { applicationBody, createTestCoop } from '../support/factories';
 import { mailsTo, waitForMail } from '../support/mail';
+import { ownServer, stopChild, waitUntil } from '../support/own-server';
 import { testApp } from '../support/test-app';
 
-const CLUSTER = 'pg-mail-outbox';
-const PG_PORT = 54362;
-const APP_PORT = 3962;
-const APP_URL = `http://127.0.0.1:${APP_PORT}`;
 const SMTP_PORT = 1962;
 const INBOX = 'http://127.0.0.1:1963';
 /** Nothing listens here: a mail server that is down. */
@@ -31,55 +26,33 @@ const DEAD_SMTP_PORT = 1964;
 const ADMIN = { email: 'admin@demo.test', password: 'burrowline-demo' };
 const DEMO_COOP = 'larkspur-hollow';
 
-let cluster: LocalCluster;
-let server: ChildProcess | null = null;
+const server = ownServer({
+  cluster: 'pg-mail-outbox',
+  pgPort: 54362,
+  appPort: 3962,
+  env: {
+    SESSION_SECRET: 'mail-outbox-secret-mail-outbox-secret-0123',
+    SMTP_HOST: '127.0.0.1',
+    SMTP_PORT: String(SMTP_PORT),
+    MAIL_POLL_SECONDS: '0.5',
+    MAIL_RETRY_DELAY_SECONDS: '1',
+    MORNING_EMAIL_JOBS: 'false',
+  },
+});
 let maildev: ChildProcess | null = null;
-let env: Record<string, string>;
-
-async function waitUntil(check: () => Promise<boolean>, what: string, timeoutMs = 30_000) {
-  const started = Date.now();
-  while (Date.now() - started < timeoutMs) {
-    if (await check().catch(() => false)) return;
-    await new Promise((r) => setTimeout(r, 100));
-  }
-  throw new Error(`${what} within ${timeoutMs} ms`);
-}
-
-async function startServer(overrides: Record<string, string> = {}) {
-  server = spawn(process.execPath, ['--import', 'tsx', path.join(root, 'packages/server/src/server.ts')], {
-    cwd: root,
-    env: { ...process.env, ...env, ...overrides },
-    stdio: ['ignore', 'ignore', 'inherit'],
-  });
-  await waitUntil(async () => (await fetch(`${APP_URL}/api/health`, { signal: AbortSignal.timeout(5000) })).ok, 'the server did not answer');
-}
-
-async function stopServer(signal: NodeJS.Signals = 'SIGTERM') {
-  const child = server;
-  server = null;
-  if (!child || child.exitCode !== null) return;
-  await new Promise<void>((resolve) => {
-    child.once('exit', () => resolve());
-    child.kill(signal);
-  });
-}
 
 async function startMailServer() {
   maildev = spawn(process.execPath, [
     path.join(root, 'node_modules', 'maildev', 'dist', 'bin', 'maildev.js'),
     '--smtp', String(SMTP_PORT), '--ip', '127.0.0.1', '--web', INBOX.split(':').at(-1)!, '--web-ip', '127.0.0.1', '--silent',
   ], { stdio: ['ignore', 'ignore', 'inherit'] });
-  await waitUntil(async () => (await fetch(`${INBOX}/api/healthz`)).ok, 'maildev did not start');
+  await waitUntil(async () => (await fetch(`${INBOX}/api/healthz`)).ok, 'maildev did not start', 30_000, 100);
 }
 
 async function stopMailServer() {
   const child = maildev;
   maildev = null;
-  if (!child || child.exitCode !== null) return;
-  await new Promise<void>((resolve) => {
-    child.once('exit', () => resolve());
-    child.kill('SIGTERM');
-  });
+  await stopChild(child);
 }
 
 interface OutboxRow {
@@ -89,19 +62,13 @@ interface OutboxRow {
   message_id: string;
 }
 
-/** The cluster's superuser over its socket: row-level security does not hide rows from it. */
+/** Read as the cluster's superuser: row-level security does not hide rows from it. */
 async function outboxRow(key: string): Promise<OutboxRow | undefined> {
-  const client = new pg.Client({ host: path.join(root, '.data', `${CLUSTER}-socket`), port: PG_PORT, user: 'postgres', database: 'burrowline' });
-  await client.connect();
-  try {
-    return (await client.query<OutboxRow>('SELECT attempts, last_error, sent_at, message_id FROM email_outbox WHERE idempotency_key = $1', [key])).rows[0];
-  } finally {
-    await client.end();
-  }
+  return (await server.superuserQuery<OutboxRow>('SELECT attempts, last_error, sent_at, message_id FROM email_outbox WHERE idempotency_key = $1', [key]))[0];
 }
 
 async function signedInAdmin() {
-  const agent = supertest.agent(APP_URL).set(CSRF_HEADER, '1');
+  const agent = supertest.agent(server.url).set(CSRF_HEADER, '1');
   expect((await agent.post('/api/session').send(ADMIN)).status).toBe(200);
   return agent;
 }
@@ -109,7 +76,7 @@ async function signedInAdmin() {
 /** A new application to the demo co-op, from a unique address. */
 async function apply() {
   const body = applicationBody();
-  const res = await supertest(APP_URL).post(`/api/apply/${DEMO_COOP}`).set(CSRF_HEADER, '1').send(body);
+  const res = await supertest(server.url).post(`/api/apply/${DEMO_COOP}`).set(CSRF_HEADER, '1').send(body);
   expect(res.status).toBe(201);
   return { id: res.body.id as string, email: body.email };
 }
@@ -119,35 +86,15 @@ async function sentRow(key: string): Promise<OutboxRow> {
   return (await outboxRow(key))!;
 }
 
+// A cluster of its own, migrated and seeded: it can take minutes while the whole suite shares two cores.
 beforeAll(async () => {
-  cluster = await startCluster({ name: CLUSTER, port: PG_PORT, fresh: true, fast: true });
-  env = {
-    NODE_ENV: 'test',
-    PG_CLUSTER_NAME: CLUSTER,
-    DATABASE_URL: cluster.appUrl,
-    DATABASE_OWNER_URL: cluster.ownerUrl,
-    PORT: String(APP_PORT),
-    APP_URL,
-    SESSION_SECRET: 'mail-outbox-secret-mail-outbox-secret-0123',
-    SMTP_HOST: '127.0.0.1',
-    SMTP_PORT: String(SMTP_PORT),
-    MAIL_POLL_SECONDS: '0.5',
-    MAIL_RETRY_DELAY_SECONDS: '1',
-    MORNING_EMAIL_JOBS: 'false',
-    LOG_LEVEL: 'silent',
-  };
-  runTs('packages/server/src/db/migrate-cli.ts', ['up'], env);
-  // The seed runs without a mail server: what it queues waits for the server's worker.
-  runTs('seed/load.ts', [], env);
   await startMailServer();
-  await startServer();
+  await server.setUp();
 }, 300_000);
 
 afterAll(async () => {
-  await stopServer();
+  await server.tearDown();
   await stopMailServer();
-  await cluster?.stop();
-  fs.rmSync(path.join(root, '.data', CLUSTER), { recursive: true, force: true });
   await testApp().close();
 });
 
@@ -176,13 +123,13 @@ describe('e-mail through the outbox', () => {
 
   it('when the server is killed with SIGKILL right after answering an approval, then the restarted server sends the e-mail exactly once', async () => {
     // The first instance's mail server is unreachable, so the e-mail certainly was not sent before the kill.
-    await stopServer();
-    await startServer({ SMTP_PORT: String(DEAD_SMTP_PORT), MAIL_POLL_SECONDS: '30' });
+    await server.stop();
+    await server.start({ SMTP_PORT: String(DEAD_SMTP_PORT), MAIL_POLL_SECONDS: '30' });
     const admin = await signedInAdmin();
     const application = await apply();
     const approved = await admin.post(`/api/applications/${application.id}/approval`).send({});
     expect(approved.status).toBe(200);
-    await stopServer('SIGKILL');
+    await server.stop('SIGKILL');
 
     // The answer meant the commit: the e-mail is in the outbox, unsent.
     const key = `application-approved:${application.id}`;
@@ -191,7 +138,7 @@ describe('e-mail through the outbox', () => {
     expect(kept!.sent_at).toBeNull();
     expect(await mailsTo(application.email, INBOX)).toEqual([]);
 
-    await startServer();
+    await server.start();
     const sent = await sentRow(key);
     const mail = await waitForMail(application.email, { inbox: INBOX, subject: /^Welcome to / });
     expect(mail.headers['message-id']).toBe(sent.message_id);

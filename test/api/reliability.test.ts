@@ -3,101 +3,38 @@
  * process, on its own PostgreSQL cluster, so the database can be restarted and the server killed
  * without disturbing the other test files.
  */
-import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
+import { spawnSync } from 'node:child_process';
 import { randomUUID } from 'node:crypto';
-import fs from 'node:fs';
 import path from 'node:path';
-import pg from 'pg';
 import supertest from 'supertest';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { CSRF_HEADER } from '@burrowline/shared';
-import { postgresBinDir, root, runTs, startCluster, type LocalCluster } from '../../scripts/lib/bootstrap.mjs';
+import { postgresBinDir } from '../../scripts/lib/bootstrap.mjs';
 import { generatedHerdCsv, stageFile } from '../support/herd-files';
+import { ownServer, waitUntil } from '../support/own-server';
 
-const CLUSTER = 'pg-reliability';
-const PG_PORT = 54361;
-const APP_PORT = 3961;
-const APP_URL = `http://127.0.0.1:${APP_PORT}`;
 const DEMO = { email: 'member@demo.test', password: 'burrowline-demo' };
-
-let cluster: LocalCluster;
-let server: ChildProcess | null = null;
-let env: Record<string, string>;
-
-function startServer(): ChildProcess {
-  const child = spawn(process.execPath, ['--import', 'tsx', path.join(root, 'packages/server/src/server.ts')], {
-    cwd: root,
-    env: { ...process.env, ...env },
-    stdio: ['ignore', 'ignore', 'inherit'],
-  });
-  return child;
-}
-
-async function waitUntil(check: () => Promise<boolean>, what: string, timeoutMs = 30_000) {
-  const started = Date.now();
-  while (Date.now() - started < timeoutMs) {
-    if (await check().catch(() => false)) return;
-    await new Promise((r) => setTimeout(r, 50));
-  }
-  throw new Error(`${what} within ${timeoutMs} ms`);
-}
-
-const serverAnswers = async () => (await fetch(`${APP_URL}/api/health`, { signal: AbortSignal.timeout(5000) })).ok;
-
-async function stopServer(signal: NodeJS.Signals = 'SIGTERM') {
-  const child = server;
-  server = null;
-  if (!child || child.exitCode !== null) return;
-  await new Promise<void>((resolve) => {
-    child.once('exit', () => resolve());
-    child.kill(signal);
-  });
-}
-
-/** The cluster's superuser over its socket: row-level security does not hide rows from it. */
-async function superuserQuery<T = Record<string, unknown>>(sql: string, params: unknown[] = []): Promise<T[]> {
-  const client = new pg.Client({ host: path.join(root, '.data', `${CLUSTER}-socket`), port: PG_PORT, user: 'postgres', database: 'burrowline' });
-  await client.connect();
-  try {
-    return (await client.query(sql, params)).rows as T[];
-  } finally {
-    await client.end();
-  }
-}
+const server = ownServer({
+  cluster: 'pg-reliability',
+  pgPort: 54361,
+  appPort: 3961,
+  env: {
+    SESSION_SECRET: 'reliability-secret-reliability-secret-0123',
+    SMTP_HOST: process.env.SMTP_HOST ?? '127.0.0.1',
+    SMTP_PORT: process.env.SMTP_PORT ?? '1026',
+  },
+});
 
 async function signedIn() {
-  const agent = supertest.agent(APP_URL).set(CSRF_HEADER, '1');
+  const agent = supertest.agent(server.url).set(CSRF_HEADER, '1');
   const res = await agent.post('/api/session').send(DEMO);
   expect(res.status).toBe(200);
   return agent;
 }
 
 // A cluster of its own, migrated and seeded: it can take minutes while the whole suite shares two cores.
-beforeAll(async () => {
-  cluster = await startCluster({ name: CLUSTER, port: PG_PORT, fresh: true, fast: true });
-  env = {
-    NODE_ENV: 'test',
-    PG_CLUSTER_NAME: CLUSTER,
-    DATABASE_URL: cluster.appUrl,
-    DATABASE_OWNER_URL: cluster.ownerUrl,
-    PORT: String(APP_PORT),
-    APP_URL,
-    SESSION_SECRET: 'reliability-secret-reliability-secret-0123',
-    SMTP_HOST: process.env.SMTP_HOST ?? '127.0.0.1',
-    SMTP_PORT: process.env.SMTP_PORT ?? '1026',
-    LOG_LEVEL: 'silent',
-  };
-  runTs('packages/server/src/db/migrate-cli.ts', ['up'], env);
-  runTs('seed/load.ts', [], env);
-  server = startServer();
-  await waitUntil(serverAnswers, 'the server did not answer');
-}, 300_000);
-
-afterAll(async () => {
-  await stopServer();
-  await cluster?.stop();
-  fs.rmSync(path.join(root, '.data', CLUSTER), { recursive: true, force: true });
-});
+beforeAll(() => server.setUp(), 300_000);
+afterAll(() => server.tearDown());
 
 describe('reliability of the running server', () => {
   it('when PostgreSQL restarts under load, then the server reconnects by itself, sessions survive and new writes are kept', async () => {
@@ -119,7 +56,7 @@ describe('reliability of the running server', () => {
     const answered = (from = 0) => statuses.slice(from).filter((s) => s === 200).length;
     await waitUntil(async () => answered() >= 3, 'the herd did not load before the restart');
     const pgCtl = path.join(postgresBinDir(), 'pg_ctl');
-    const dataDir = path.join(root, '.data', CLUSTER);
+    const dataDir = server.dataDir();
     const args = ['-D', dataDir, '-l', path.join(dataDir, 'server.log'), '-m', 'fast', '-w', '-t', '30', 'restart'];
     // stdio ignored: the restarted postgres would otherwise hold the pipe open and spawnSync would never return.
     const options = { stdio: 'ignore' as const };
@@ -135,13 +72,13 @@ describe('reliability of the running server', () => {
     // A request that met the lost connection is told to retry (503), never a 500.
     expect(statuses.filter((s) => s >= 500 && s !== 503)).toEqual([]);
     // While it was down the server answered (an error), it did not hang or crash.
-    expect(server?.exitCode).toBeNull();
+    expect(server.process?.exitCode).toBeNull();
 
     // The session kept in PostgreSQL is still good, and a write after the restart is kept.
     const yesterday = new Date(Date.now() - 86_400_000).toISOString().slice(0, 10);
     const weighed = await agent.post('/api/weigh-ins').send({ animalId, totalGrams: 4321, weighedOn: yesterday });
     expect(weighed.status).toBe(201);
-    const rows = await superuserQuery<{ n: number }>(`SELECT count(*)::int AS n FROM weigh_ins WHERE animal_id = $1 AND total_grams = 4321`, [animalId]);
+    const rows = await server.superuserQuery<{ n: number }>(`SELECT count(*)::int AS n FROM weigh_ins WHERE animal_id = $1 AND total_grams = 4321`, [animalId]);
     expect(rows[0]!.n).toBe(1);
   }, 90_000);
 
@@ -152,31 +89,30 @@ describe('reliability of the running server', () => {
     expect(staged.status).toBe(201);
     const idempotencyKey = randomUUID();
     const countImported = async () =>
-      (await superuserQuery<{ n: number }>(`SELECT count(*)::int AS n FROM animals WHERE tattoo LIKE 'RK%'`))[0]!.n;
+      (await server.superuserQuery<{ n: number }>(`SELECT count(*)::int AS n FROM animals WHERE tattoo LIKE 'RK%'`))[0]!.n;
 
     // Fire the confirmation, then kill -9 the server as soon as its transaction is writing animals.
     const confirming = agent.post(`/api/herd-imports/${staged.body.id}/confirmation`).send({ idempotencyKey }).catch((e: Error) => e);
     await waitUntil(
       async () =>
-        (await superuserQuery(`SELECT 1 FROM pg_stat_activity WHERE usename = 'burrowline_app' AND state <> 'idle' AND query ILIKE '%animals%' AND xact_start IS NOT NULL`)).length > 0,
+        (await server.superuserQuery(`SELECT 1 FROM pg_stat_activity WHERE usename = 'burrowline_app' AND state <> 'idle' AND query ILIKE '%animals%' AND xact_start IS NOT NULL`)).length > 0,
       'the confirmation never started writing',
       20_000,
     );
-    await stopServer('SIGKILL');
+    await server.stop('SIGKILL');
     const answer = await confirming;
     expect(answer).toBeInstanceOf(Error); // the connection dropped: nothing was acknowledged
     // PostgreSQL rolls the dead connection's transaction back: no animal of the file is in the herd.
     await waitUntil(
-      async () => (await superuserQuery(`SELECT 1 FROM pg_stat_activity WHERE usename = 'burrowline_app' AND state <> 'idle'`)).length === 0,
+      async () => (await server.superuserQuery(`SELECT 1 FROM pg_stat_activity WHERE usename = 'burrowline_app' AND state <> 'idle'`)).length === 0,
       'the killed server\'s transaction did not end',
     );
     expect(await countImported()).toBe(0);
-    const importState = await superuserQuery<{ status: string }>(`SELECT status FROM herd_imports WHERE id = $1`, [staged.body.id]);
+    const importState = await server.superuserQuery<{ status: string }>(`SELECT status FROM herd_imports WHERE id = $1`, [staged.body.id]);
     expect(importState[0]!.status).not.toBe('confirmed');
 
     // Back up, the same confirmation (same key) is done once, completely.
-    server = startServer();
-    await waitUntil(serverAnswers, 'the server did not come back');
+    await server.start();
     const again = await signedIn();
     const retried = await again.post(`/api/herd-imports/${staged.body.id}/confirmation`).send({ idempotencyKey });
     expect(retried.status).toBe(200);
