@@ -81,12 +81,12 @@ describe('the Almanac: a member records a service and follows the plan to the li
       await page.screenshot({ path: '.data/e2e-almanac-litter.png', fullPage: true });
       expect(await sidewaysScroll(page)).toBe(0);
 
-      // 6. The plan followed: the service's palpation and kindling are done, the kindling alert skipped,
-      //    and the litter's jobs count from the real kindling date.
+      // 6. The plan followed: the service's palpation and kindling are done, the kindling alert and the
+      //    nest box the kindling made moot are skipped, and the litter's jobs count from the real kindling date.
       const serviceRows = Object.fromEntries((await asTenant(coop.id, async (c) => (await c.query(
         `SELECT kind, state FROM almanac_tasks WHERE service_id = (SELECT service_id FROM litters WHERE id = $1)`, [litterId],
       )).rows)).map((r) => [r.kind, r.state]));
-      expect(serviceRows).toEqual({ palpation: 'done', nest_box_in: 'open', kindling_due: 'done', kindling_overdue: 'skipped' });
+      expect(serviceRows).toEqual({ palpation: 'done', nest_box_in: 'skipped', kindling_due: 'done', kindling_overdue: 'skipped' });
       const rows = Object.fromEntries((await taskRows(coop.id, { litterId })).map((r) => [r.key, r.due_on]));
       expect(rows).toMatchObject({ nest_box_out: addDays(farmToday(), 21), weaning: addDays(farmToday(), 42), breed_back: addDays(farmToday(), 35) });
       const counts = await asTenant(coop.id, async (c) => (await c.query(

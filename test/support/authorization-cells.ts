@@ -1,3 +1,4 @@
+import { loadConfig } from '../../packages/server/src/config/env';
 import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { authorizationMatrix, areaOf, type Body, type MatrixArea, type MatrixRow, type Persona, type Target } from '../api/authorization-matrix';
@@ -52,10 +53,12 @@ async function recordPrivateRows(person: TestPerson) {
 }
 
 export function describeMatrixArea(area: MatrixArea) {
-  // Some cells send applications: rate limits stay out of the way here (they have their own tests).
+  // Some cells send applications and stage spreadsheets on one farm: rate limits and the farm's pile of
+  // waiting files stay out of the way here (they have their own tests).
   const handle = testApp({
     signIn: ROOMY_SIGN_IN,
     membership: { linkTtlHours: 72, applyWindowSeconds: 60, applyMaxPerIp: 100_000, applyMaxPerEmail: 100_000 },
+    uploads: { ...loadConfig().uploads, importsWaitingPerFarm: 10_000 },
   });
   let coop: TestCoop;
   let foreign: TestCoop;

@@ -33,7 +33,8 @@ export async function herdFilesTarget(coop: TestCoop, target: string): Promise<H
       const preview = await stageHerdImport(
         actorOf(coop.member),
         { fileName: 'matrix.csv', content: Buffer.from(csv(HEADER, `${nextTattoo('IM')},Matrix import,doe,Satin,2023-01-01,,`)) },
-        { maxRows: 100 },
+        // Every cell stages a file on one farm: far more than a farm may keep waiting, which has its own test.
+        { maxRows: 100, maxWaiting: 10_000 },
       );
       return { importId: preview.id };
     }

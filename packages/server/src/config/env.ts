@@ -45,6 +45,7 @@ const envSchema = z.object({
   PHOTOS_PER_UPLOAD: z.coerce.number().int().min(1).max(20).default(6),
   HERD_IMPORT_MAX_BYTES: z.coerce.number().int().min(1024).default(5 * 1024 * 1024),
   HERD_IMPORT_MAX_ROWS: z.coerce.number().int().min(1).default(20_000),
+  HERD_IMPORTS_WAITING_PER_FARM: z.coerce.number().int().min(1).default(10),
   /** The Almanac's morning e-mail job (pg-boss) in this process: off for a process that only serves requests. */
   MORNING_EMAIL_JOBS: bool.default(true),
   LOG_LEVEL: z.enum(['debug', 'info', 'warn', 'error', 'silent']).default('info'),
@@ -88,7 +89,7 @@ export interface Config {
    * `.data/uploads` of the repository. Limits: bytes per photo, photos per animal and per upload,
    * bytes and rows per herd spreadsheet.
    */
-  uploads: { dir: string; photoMaxBytes: number; photosPerAnimal: number; photosPerUpload: number; importMaxBytes: number; importMaxRows: number };
+  uploads: { dir: string; photoMaxBytes: number; photosPerAnimal: number; photosPerUpload: number; importMaxBytes: number; importMaxRows: number; importsWaitingPerFarm: number };
   /** Run the Almanac's morning e-mail schedule and worker in this process (server.ts). */
   morningEmailJobs: boolean;
   logLevel: Env['LOG_LEVEL'];
@@ -139,6 +140,7 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
       photosPerUpload: e.PHOTOS_PER_UPLOAD,
       importMaxBytes: e.HERD_IMPORT_MAX_BYTES,
       importMaxRows: e.HERD_IMPORT_MAX_ROWS,
+      importsWaitingPerFarm: e.HERD_IMPORTS_WAITING_PER_FARM,
     },
     morningEmailJobs: e.MORNING_EMAIL_JOBS,
     logLevel: e.LOG_LEVEL,

@@ -12,7 +12,7 @@ import { assertCanImport, confirmHerdImport, exportHerdCsv, getHerdImport, pedig
 const NDJSON = 'application/x-ndjson';
 
 function limitsOf(config: Config): ImportLimits {
-  return { maxRows: config.uploads.importMaxRows };
+  return { maxRows: config.uploads.importMaxRows, maxWaiting: config.uploads.importsWaitingPerFarm };
 }
 
 /** Streams progress lines while the file is checked, then the result (or the refusal) as the last line. */

@@ -5,6 +5,7 @@ import { Op, type Transaction } from 'sequelize';
 import {
   createImportChecker, defineAbilityFor, ErrorCode, headerProblem, mapImportHeader, subjectOf, todayIn, type HerdExportQuery, type HerdImportConfirmInput, type HerdImportDto, type HerdImportProgressDto, type HerdImportRowsQuery, type ImportCheckResult,
 } from '@burrowline/shared';
+import { lockUntilCommit } from '../../db/advisory-lock';
 import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
@@ -28,11 +29,10 @@ import { renderCertificate } from './pedigree-certificate';
 /** Rows checked between two progress reports of a large file. */
 const CHECK_SLICE = 1000;
 const UNCONFIRMED_KEPT_MS = 24 * 60 * 60 * 1000;
-/** Unconfirmed files a farm may keep at once: each holds a whole spreadsheet for a day. */
-export const MAX_STAGED_IMPORTS_PER_FARM = 10;
-
 export interface ImportLimits {
   maxRows: number;
+  /** Staged files a farm may keep unconfirmed at once: each is kept a day, so an unbounded pile costs disk and time. */
+  maxWaiting: number;
 }
 
 type Progress = (progress: HerdImportProgressDto) => void | Promise<void>;
@@ -128,10 +128,10 @@ export async function stageHerdImport(
   if (input.content.length === 0) throw AppError.validation({ file: ['The file is empty'] }, 'The file is empty');
   return withTenant(actor, async (tx) => {
     // Counted before the file is read, under a per-farm lock so parallel uploads cannot pass together.
-    await HerdImport.sequelize!.query('SELECT pg_advisory_xact_lock(hashtext($1))', { bind: [`herd-import:${farmId}`], transaction: tx });
+    await lockUntilCommit(tx, `herd-import:${farmId}`);
     await HerdImport.destroy({ where: { farmId, status: 'ready', createdAt: { [Op.lt]: new Date(Date.now() - UNCONFIRMED_KEPT_MS) } }, transaction: tx });
     const waiting = await HerdImport.count({ where: { farmId, status: 'ready' }, transaction: tx });
-    if (waiting >= MAX_STAGED_IMPORTS_PER_FARM) {
+    if (waiting >= limits.maxWaiting) {
       throw AppError.conflict(
         `${waiting} spreadsheets are already waiting to be imported into this farm's herd. Import or discard one of them first; unconfirmed files are removed after a day.`,
       );
