@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { RealtimeEvent } from '@burrowline/shared';
 import { asTenant } from '../support/db';
 import { applicationBody, createTestApplication, createTestCoop, createTestMember, TEST_PASSWORD, type TestCoop } from '../support/factories';
-import { deliveredMailsTo, linkIn, mailsTo, waitForMail } from '../support/mail';
+import { deliveredMailsTo, linkIn, waitForMail } from '../support/mail';
 import { heardEverythingSoFar, socketKit } from '../support/sockets';
 import { agentFor, listeningServer, signedInAgent } from '../support/test-app';
 
