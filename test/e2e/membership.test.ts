@@ -137,6 +137,10 @@ describe('membership: a breeder applies, the admin approves, the new member sign
       await app.signIn(browser.page, DEMO.member);
       await browser.page.goto(`${app.url}/admin/applications`);
       await browser.page.getByRole('heading', { name: 'Not yours to see' }).waitFor();
+      // Turned away means nothing of the queue reached the page, not only a heading above it.
+      expect(await browser.page.getByRole('heading', { name: 'Not yours to see' }).isVisible()).toBe(true);
+      expect(await browser.page.getByRole('heading', { name: 'Applications', level: 1 }).count()).toBe(0);
+      expect(await browser.page.getByText(/@example\.test/).count()).toBe(0);
     } finally {
       await browser.close();
     }
