@@ -11,10 +11,21 @@ export const ROOMY_SIGN_IN: Config['signIn'] = { windowSeconds: 60, maxPerIp: 10
 
 let shared: AppHandle | null = null;
 
-/** The app as `createApp()` builds it, against the test run's real PostgreSQL and maildev. */
+/**
+ * The app as `createApp()` builds it, against the test run's real PostgreSQL and maildev. Files that run
+ * one after another in a worker share it; closing it (a file's `afterAll`) lets the next file build anew.
+ */
 export function testApp(overrides: Partial<Config> = {}): AppHandle {
   if (Object.keys(overrides).length > 0) return createApp(overrides);
-  shared ??= createApp();
+  if (!shared) {
+    const handle = createApp();
+    const close = handle.close;
+    handle.close = async () => {
+      if (shared === handle) shared = null;
+      await close();
+    };
+    shared = handle;
+  }
   return shared;
 }
 
@@ -35,8 +46,8 @@ export async function signedInAgent(email: string, password: string, handle: App
 const sharedAgents = new WeakMap<AppHandle, Map<string, Promise<Agent>>>();
 
 /**
- * A client signed in once per test file and app, then shared by the file's tests (each file has its own
- * module state). For tests that only act as the person; a test that signs out, changes the person's
+ * A client signed in once per person and app, then shared by the tests that act as that person (every
+ * test co-op has its own people, so files never share one). For tests that only act as the person; a test that signs out, changes the person's
  * password or account, or checks sessions uses its own `signedInAgent`.
  */
 export function sharedSignedInAgent(email: string, password: string, handle: AppHandle = testApp()): Promise<Agent> {
