@@ -16,7 +16,7 @@ const apiSettings = {
 };
 /**
  * Files that keep a process of their own: one points the process at another database, and the ones that
- * wait for e-mail have twice missed a message when sharing a worker with other files (the cause is not
+ * wait for e-mail missed a message in one run while sharing a worker with other files (the cause is not
  * yet found: the outbox worker is per process), so they keep the isolation they were written for.
  */
 const ownProcessFiles = [
