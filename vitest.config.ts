@@ -8,21 +8,14 @@ const workers = os.availableParallelism() + 1;
 
 const apiSettings = {
   globalSetup: ['test/support/global-setup.ts'],
-  // Queued e-mail leaves within half a second, so tests that wait for it stay quick.
-  env: { MAIL_POLL_SECONDS: '0.5' },
+  // Queued e-mail is sent by the run's one worker (test/support/global-setup.ts), not by test processes.
+  env: { MAIL_WORKER: 'false', MAIL_POLL_SECONDS: '0.5' },
   testTimeout: 30_000,
   hookTimeout: 30_000,
   pool: 'forks' as const,
 };
-/**
- * Files that keep a process of their own: one points the process at another database, and the ones that
- * wait for e-mail missed a message in one run while sharing a worker with other files (the cause is not
- * yet found: the outbox worker is per process), so they keep the isolation they were written for.
- */
-const ownProcessFiles = [
-  'test/api/database-down.test.ts',
-  ...['almanac-digest', 'applications', 'auth', 'mail-outbox', 'members', 'sign-in-throttle'].map((name) => `test/api/${name}.test.ts`),
-];
+/** Points its process at another database, so it keeps a process of its own. */
+const ownProcessFiles = ['test/api/database-down.test.ts'];
 
 export default defineConfig({
   test: {
@@ -49,7 +42,7 @@ export default defineConfig({
           name: 'e2e',
           include: ['test/e2e/**/*.test.ts'],
           globalSetup: ['test/support/global-setup.ts'],
-          env: { MAIL_POLL_SECONDS: '0.5' },
+          env: { MAIL_WORKER: 'false', MAIL_POLL_SECONDS: '0.5' },
           testTimeout: 90_000,
           hookTimeout: 60_000,
           fileParallelism: false,

@@ -60,6 +60,8 @@ export function ownServer(options: OwnServerOptions) {
         PORT: String(options.appPort),
         APP_URL: url,
         LOG_LEVEL: 'silent',
+        // A server of its own sends its own mail (test processes leave theirs to the run's one worker).
+        MAIL_WORKER: 'true',
         ...options.env,
       };
       runTs('packages/server/src/db/migrate-cli.ts', ['up'], env);

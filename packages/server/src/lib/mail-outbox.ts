@@ -144,6 +144,27 @@ export interface MailWorkerOptions {
   pollingIntervalSeconds: number;
 }
 
+/** Jobs a worker takes at each look: pg-boss waits a polling interval between looks even when busy. */
+const JOBS_PER_FETCH = 10;
+
+/**
+ * Works a queue's jobs side by side, a batch per look; a job that throws is failed on its own (to be
+ * retried with back-off) while the others of its batch complete.
+ */
+async function workEach<T extends object>(boss: PgBoss, queue: string, pollingIntervalSeconds: number, handler: (data: T) => Promise<void>) {
+  await boss.work<T>(queue, { pollingIntervalSeconds, batchSize: JOBS_PER_FETCH }, async (jobs) => {
+    await Promise.all(
+      jobs.map(async (job) => {
+        try {
+          await handler(job.data);
+        } catch (error) {
+          await boss.fail(queue, job.id, { message: String(error) });
+        }
+      }),
+    );
+  });
+}
+
 let worker: { boss: Promise<PgBoss | null>; users: number } | null = null;
 
 async function startBoss(opts: MailWorkerOptions): Promise<PgBoss | null> {
@@ -160,14 +181,10 @@ async function startBoss(opts: MailWorkerOptions): Promise<PgBoss | null> {
   boss.on('error', (error) => logger.error('mail queue error', { error: String(error) }));
   try {
     await boss.start();
-    await boss.work<MailJob>(MAIL_QUEUE, { pollingIntervalSeconds: opts.pollingIntervalSeconds, batchSize: 1 }, async ([job]) => {
-      if (job) await deliverQueuedMail(job.data);
+    await workEach<MailJob>(boss, MAIL_QUEUE, opts.pollingIntervalSeconds, async (job) => {
+      await deliverQueuedMail(job);
     });
-    for (const [queue, handler] of jobHandlers) {
-      await boss.work<object>(queue, { pollingIntervalSeconds: opts.pollingIntervalSeconds, batchSize: 1 }, async ([job]) => {
-        if (job) await handler(job.data);
-      });
-    }
+    for (const [queue, handler] of jobHandlers) await workEach(boss, queue, opts.pollingIntervalSeconds, handler);
     return boss;
   } catch (error) {
     logger.error('mail worker not started', { error: String(error) });
@@ -177,7 +194,7 @@ async function startBoss(opts: MailWorkerOptions): Promise<PgBoss | null> {
 }
 
 /**
- * Delivers queued e-mail in this process (the server, and each test process through its app). One
+ * Delivers queued e-mail in this process (the server; in tests, the run's one worker). One
  * worker per process however many apps it builds; resolves the returned stop when the last one closes.
  */
 export function startMailWorker(opts: MailWorkerOptions): () => Promise<void> {
