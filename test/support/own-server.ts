@@ -75,7 +75,8 @@ export function ownServer(options: OwnServerOptions) {
         env: { ...process.env, ...env, ...overrides },
         stdio: ['ignore', 'ignore', 'inherit'],
       });
-      await waitUntil(answers, 'the server did not answer');
+      // Loading the server through tsx takes seconds on a quiet machine and far longer on a busy one.
+      await waitUntil(answers, 'the server did not answer', 90_000);
     },
     async stop(signal: NodeJS.Signals = 'SIGTERM') {
       const stopping = child;
