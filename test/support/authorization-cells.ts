@@ -120,6 +120,27 @@ export function describeMatrixArea(area: MatrixArea) {
     }
   }
 
+  async function freshTarget(target: Target) {
+    return { ...(await membershipTarget(target)), ...(await herdTarget(coop, target)), ...(await almanacTarget(coop, target)), ...(await herdFilesTarget(coop, target)), ...(await loanTarget(coop, target)) };
+  }
+  type TargetIds = Awaited<ReturnType<typeof freshTarget>>;
+  const readTargets = new Map<Target, Promise<TargetIds>>();
+
+  /**
+   * The row's target: built afresh for a call that may change it, so one persona's allowed change never
+   * alters the next cell; built once per kind for reads, which every persona of every read row may share.
+   */
+  function targetOf(row: MatrixRow): Promise<TargetIds> {
+    if (row.method !== 'GET') return freshTarget(row.target);
+    let ids = readTargets.get(row.target);
+    if (!ids) {
+      ids = freshTarget(row.target);
+      readTargets.set(row.target, ids);
+      ids.catch(() => readTargets.delete(row.target));
+    }
+    return ids;
+  }
+
   /** What a refused call must leave exactly as it was. */
   async function stateOf(ids: { farmId: string; applicationId?: string; userId?: string }, persona: Persona) {
     const ownCoop = persona === 'otherCoop' ? foreign.id : coop.id;
@@ -175,7 +196,7 @@ export function describeMatrixArea(area: MatrixArea) {
         it(`when ${persona} calls ${row.method} ${row.path} on ${row.target}, then it answers ${status}`, async () => {
           const agent = await agentOf(persona, row);
           const farmId = row.target === 'farmA' ? coop.farms[0]!.id : row.target === 'farmB' ? coop.farms[1]!.id : '';
-          const ids = { farmId, ...(await membershipTarget(row.target)), ...(await herdTarget(coop, row.target)), ...(await almanacTarget(coop, row.target)), ...(await herdFilesTarget(coop, row.target)), ...(await loanTarget(coop, row.target)) };
+          const ids = { farmId, ...(await targetOf(row)) };
           const path = pathWithIds(row.path, { ...ids, coopSlug: coop.slug });
           const personaOf = persona === 'otherCoop' ? foreign.admin : persona === 'anonymous' ? null : coop[persona];
           const body = (await bodyFor(row.body, ids, persona)) ?? (await herdBody(coop, row.body, ids))
