@@ -88,6 +88,7 @@ describe('the tenant transaction', () => {
     expect(await settingIn(coop.id, `SELECT current_setting('app.coop_id', true) AS coop`, [])).toBe(coop.id);
     expect(await settingIn(coop.id, `SELECT current_setting($1, true) AS coop`, ['app.coop_id'])).toBe(coop.id);
     expect(await settingIn(coop.id, `SELECT current_setting('app.coop_id', true) AS coop, $1::timestamptz AS at`, [new Date()])).toBe(coop.id);
+    expect(await settingIn(coop.id, `SELECT current_setting('app.coop_id', true) AS coop, $1::bytea AS data`, [Buffer.from('kits')])).toBe(coop.id);
     // Row-level security sees the co-op in the first statement: its own co-op row and no other.
     const seen = await withTenant({ coopId: coop.id }, (tx) => database().query<{ id: string }>('SELECT id FROM cooperatives', { transaction: tx, type: QueryTypes.SELECT }));
     expect(seen.map((r) => r.id)).toEqual([coop.id]);

@@ -26,8 +26,13 @@ describe('inlineParameters', () => {
     );
   });
 
-  it('when a value is a date or binary data, or the text ends inside a string, then nothing is inlined', () => {
-    expect(inlineParameters('SELECT $1', [new Date()], quote)).toBeNull();
+  it('when a value is a date, then it is written in the form pg sends, with its offset', () => {
+    const sql = inlineParameters('SELECT $1::timestamptz', [new Date('2024-06-01T12:30:00.000Z')], quote)!;
+    const written = /^SELECT '(.*)'::timestamptz$/.exec(sql)![1]!;
+    expect(new Date(written.replace(' ', 'T')).toISOString()).toBe('2024-06-01T12:30:00.000Z');
+  });
+
+  it('when a value is binary data, or the text ends inside a string, then nothing is inlined', () => {
     expect(inlineParameters('SELECT $1', [Buffer.from('x')], quote)).toBeNull();
     expect(inlineParameters("SELECT 'open", ['x'], quote)).toBeNull();
     expect(inlineParameters('SELECT $2', ['x'], quote)).toBeNull();

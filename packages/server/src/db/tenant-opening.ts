@@ -1,4 +1,5 @@
-import pg from 'pg';
+import { createRequire } from 'node:module';
+import type pg from 'pg';
 import type { Sequelize, Transaction } from 'sequelize';
 
 /**
@@ -92,22 +93,14 @@ export function inlineParameters(text: string, values: readonly unknown[], quote
 
 const NOT_TEXT = Symbol('not text');
 
-/** A value's text form on the wire, as pg writes it (arrays as array literals, objects as JSON); dates and binary data are not inlined. */
+/** pg's own conversion of a value for the wire, so an inlined value reads exactly as the parameter would. */
+const prepareValue = (createRequire(import.meta.url)('pg/lib/utils') as { prepareValue: (value: unknown) => unknown }).prepareValue;
+
+/** A value's text as pg sends it (arrays as array literals, objects as JSON, dates in pg's format); binary data has none. */
 function textOf(value: unknown): string | null | typeof NOT_TEXT {
-  if (value === null || value === undefined) return null;
-  if (value instanceof Date || Buffer.isBuffer(value) || ArrayBuffer.isView(value)) return NOT_TEXT;
-  if (Array.isArray(value)) {
-    const items: string[] = [];
-    for (const item of value) {
-      const text = textOf(item);
-      if (text === NOT_TEXT) return NOT_TEXT;
-      if (text === null) items.push('NULL');
-      else items.push(Array.isArray(item) ? text : `"${text.replace(/\\/g, '\\\\').replace(/"/g, '\\"')}"`);
-    }
-    return `{${items.join(',')}}`;
-  }
-  if (typeof value === 'object') return JSON.stringify(value);
-  return String(value);
+  const prepared = prepareValue(value);
+  if (prepared === null || prepared === undefined) return null;
+  return typeof prepared === 'string' ? prepared : NOT_TEXT;
 }
 
 /** What the opened connection answers for the statement that followed the opening. */
