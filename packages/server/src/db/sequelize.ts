@@ -1,5 +1,6 @@
 import { ConnectionError, Sequelize } from 'sequelize';
 import { isLostConnection } from './database-errors';
+import { openTenantTransactionsWithFirstStatement } from './tenant-opening';
 
 let instance: { url: string; sequelize: Sequelize } | null = null;
 
@@ -20,6 +21,7 @@ export function openDatabase(url: string, poolMax: number, initModels: (sequeliz
     // run again in withTenant. The arrow function is called as a predicate (it has no prototype to match).
     retry: { max: 3, match: [ConnectionError, (error: unknown) => isLostConnection(error)] },
   });
+  openTenantTransactionsWithFirstStatement(sequelize);
   initModels(sequelize);
   instance = { url, sequelize };
   return sequelize;

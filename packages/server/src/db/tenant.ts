@@ -1,6 +1,7 @@
 import type { Transaction } from 'sequelize';
 import { isLostConnection, isSerializationFailure, isUniqueViolation } from './database-errors';
 import { database } from './sequelize';
+import { tenantTransactionOptions } from './tenant-opening';
 
 export interface TenantActor {
   coopId: string;
@@ -36,8 +37,8 @@ export async function withTenant<T>(actor: TenantActor, work: (tx: Transaction) 
   for (let run = 1; ; run++) {
     let workFinished = false;
     try {
-      return await database().transaction(async (tx) => {
-        await database().query(`SELECT set_config('app.coop_id', $1, true)`, { bind: [actor.coopId], transaction: tx });
+      // The transaction opens with its first statement, the co-op set for it alone (see tenant-opening.ts).
+      return await database().transaction(tenantTransactionOptions(actor.coopId), async (tx) => {
         const result = await work(tx);
         workFinished = true;
         return result;

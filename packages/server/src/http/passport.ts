@@ -20,7 +20,7 @@ declare module 'express-session' {
   }
 }
 
-interface IdentityRow {
+export interface IdentityRow {
   id: string;
   coop_id: string;
   farm_id: string | null;
@@ -39,6 +39,29 @@ export async function findIdentityByEmail(email: string) {
     { bind: [email], type: QueryTypes.SELECT },
   );
   return row ?? null;
+}
+
+/**
+ * The person read together with the session (one statement per request, see the session store), handed
+ * to the deserializer of the same request by session id. A miss (two requests of one session at once)
+ * reads the person again.
+ */
+const identitiesReadWithSession = new Map<string, IdentityRow>();
+const REMEMBERED_IDENTITIES = 10_000;
+
+export function keepIdentityOfSession(sessionId: string, row: IdentityRow): void {
+  if (identitiesReadWithSession.size >= REMEMBERED_IDENTITIES) identitiesReadWithSession.delete(identitiesReadWithSession.keys().next().value!);
+  identitiesReadWithSession.set(sessionId, row);
+}
+
+export function takeIdentityOfSession(sessionId: string, userId: string): IdentityRow | null {
+  const row = identitiesReadWithSession.get(sessionId);
+  identitiesReadWithSession.delete(sessionId);
+  return row?.id === userId ? row : null;
+}
+
+export function forgetIdentityOfSession(sessionId: string): void {
+  identitiesReadWithSession.delete(sessionId);
 }
 
 export async function findIdentityById(id: string): Promise<IdentityRow | null> {
@@ -63,7 +86,7 @@ export function configurePassport(): passport.PassportStatic {
   passport.serializeUser((user, done) => done(null, user.id));
   passport.deserializeUser(async (req: import('express').Request, id: string, done: (err: unknown, user?: SessionUser | false) => void) => {
     try {
-      const row = await findIdentityById(id);
+      const row = takeIdentityOfSession(req.sessionID, id) ?? (await findIdentityById(id));
       const createdAt = req.session?.createdAt ?? 0;
       // A disabled account, or sessions revoked after this one began, end here (ASVS 7.4.2).
       if (!row || row.disabled_at || row.sessions_valid_after.getTime() > createdAt) return done(null, false);

@@ -3,6 +3,7 @@ import { Op, type Transaction } from 'sequelize';
 import { defineAbilityFor, ErrorCode, poundsToGrams, subjectOf, type BreedCreateInput, type BreedDto, type SizeClass } from '@burrowline/shared';
 import { lockUntilCommit } from '../../db/advisory-lock';
 import { withTenant } from '../../db/tenant';
+import { forgetInTransaction, onceInTransaction } from '../../db/transaction-memo';
 import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { Breed } from './breed.model';
@@ -31,10 +32,13 @@ export async function listBreeds(actor: SessionUser): Promise<BreedDto[]> {
   return withTenant(actor, async (tx) => (await breedsOf(actor.coopId, tx)).sort((a, b) => a.name.localeCompare(b.name)));
 }
 
+const breedsKey = (coopId: string) => `breeds:${coopId}`;
+
 /** Every breed the co-op may use, inside the caller's transaction (for other domains). */
 export async function breedsOf(coopId: string, tx: Transaction): Promise<BreedDto[]> {
-  const rows = await Breed.findAll({ where: visibleTo(coopId), transaction: tx });
-  return rows.map(presentBreed);
+  // Read once per transaction; each caller gets its own array to sort or filter.
+  const breeds = await onceInTransaction(tx, breedsKey(coopId), async () => (await Breed.findAll({ where: visibleTo(coopId), transaction: tx })).map(presentBreed));
+  return [...breeds];
 }
 
 export async function breedMapOf(coopId: string, tx: Transaction): Promise<Map<string, BreedDto>> {
@@ -66,6 +70,7 @@ export async function createBreed(actor: SessionUser, input: BreedCreateInput): 
     const doeMin = input.doeFirstBreedingMinDays ?? defaults.doe;
     const buckMin = input.buckFirstBreedingMinDays ?? defaults.buck;
     const given = { source: input.source, confidence: 'mem' as const };
+    forgetInTransaction(tx, breedsKey(actor.coopId));
     const breed = await Breed.create(
       {
         coopId: actor.coopId,

@@ -3,6 +3,7 @@ import { col, fn, Op, where, type Transaction } from 'sequelize';
 import { defineAbilityFor, farmProfileUpdateSchema, RealtimeEvent, rooms, subjectOf, type FarmDto, type FarmProfileInput } from '@burrowline/shared';
 import { accessibleWhere } from '../../db/scope';
 import { withTenant } from '../../db/tenant';
+import { forgetInTransaction, onceInTransaction } from '../../db/transaction-memo';
 import { AppError } from '../../lib/app-error';
 import { publish } from '../../lib/realtime';
 import type { SessionUser } from '../../lib/session-user';
@@ -60,6 +61,7 @@ export async function updateFarmProfile(actor: SessionUser, farmId: string, body
     if (Object.keys(changes).length > 0) {
       farm.set(fields);
       await farm.save({ transaction: tx });
+      forgetInTransaction(tx, farmDirectoryKey(actor.coopId));
       await recordChanges({ coopId: actor.coopId, tableName: 'farms', recordId: farm.id, actorUserId: actor.id, changes }, tx);
       tx.afterCommit(() => publish(rooms.coop(actor.coopId), RealtimeEvent.farmUpdated, { farmId: farm.id }));
     }
@@ -70,6 +72,7 @@ export async function updateFarmProfile(actor: SessionUser, farmId: string, body
 
 /** Creates a farm inside the caller's tenant transaction (co-op set-up, admission of a member). */
 export async function createFarm(coopId: string, profile: FarmProfileInput, tx: Transaction): Promise<Farm> {
+  forgetInTransaction(tx, farmDirectoryKey(coopId));
   return Farm.create({ coopId, ...profile }, { transaction: tx });
 }
 
@@ -92,10 +95,15 @@ export async function findFarmRef(coopId: string, farmId: string, tx: Transactio
 }
 
 /** Every farm of the co-op with what the Herd needs to present them (name, clock, units), inside the caller's transaction. */
+const farmDirectoryKey = (coopId: string) => `farm-directory:${coopId}`;
+
+/** The co-op's farms with their names, clocks and units, read once per transaction (farm-clock.ts reads it too). */
 export async function farmDirectoryOf(
   coopId: string,
   tx: Transaction,
 ): Promise<Map<string, { id: string; name: string; timeZone: string; weightUnit: Farm['weightUnit'] }>> {
-  const farms = await Farm.findAll({ where: { coopId }, attributes: ['id', 'name', 'timeZone', 'weightUnit'], transaction: tx });
-  return new Map(farms.map((f) => [f.id, { id: f.id, name: f.name, timeZone: f.timeZone, weightUnit: f.weightUnit }]));
+  return onceInTransaction(tx, farmDirectoryKey(coopId), async () => {
+    const farms = await Farm.findAll({ where: { coopId }, attributes: ['id', 'name', 'timeZone', 'weightUnit'], transaction: tx });
+    return new Map(farms.map((f) => [f.id, { id: f.id, name: f.name, timeZone: f.timeZone, weightUnit: f.weightUnit }]));
+  });
 }

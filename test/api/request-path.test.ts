@@ -1,0 +1,128 @@
+import { afterAll, describe, expect, it } from 'vitest';
+import { QueryTypes } from 'sequelize';
+import { database } from '../../packages/server/src/composition/database';
+import { withTenant } from '../../packages/server/src/db/tenant';
+import { SESSION_TOUCH_SHARE } from '../../packages/server/src/http/session';
+import { appDb, asTenant } from '../support/db';
+import { createTestCoop, TEST_PASSWORD } from '../support/factories';
+import { countingAgentFor } from '../support/statement-counter';
+import { testApp } from '../support/test-app';
+
+afterAll(() => testApp().close());
+
+/** The stored expiry of the person's one session, in ms. */
+async function storedExpiry(userId: string): Promise<number[]> {
+  return appDb(async (c) => {
+    const { rows } = await c.query<{ ms: number }>(
+      `SELECT extract(epoch FROM expire::timestamptz)::float8 * 1000 AS ms FROM user_sessions WHERE sess->'passport'->>'user' = $1`,
+      [userId],
+    );
+    return rows.map((r) => r.ms);
+  });
+}
+
+describe('the session on each request', () => {
+  it('when a person makes requests soon after one another, then their session and person are read in one statement and its expiry is not written again', async () => {
+    const coop = await createTestCoop();
+    const counting = await countingAgentFor(coop.member.email, TEST_PASSWORD);
+    const before = await storedExpiry(coop.member.id);
+    expect(before).toHaveLength(1);
+    for (let i = 0; i < 3; i++) {
+      const { res, fixed, statements } = await counting.count((agent) => agent.get('/api/me'));
+      expect(res.status).toBe(200);
+      expect(res.body.user?.id ?? res.body.id).toBe(coop.member.id);
+      expect(statements.filter((sql) => /user_sessions/.test(sql))).toHaveLength(1);
+      expect(statements.some((sql) => /auth_user_by_id/.test(sql) && !/user_sessions/.test(sql))).toBe(false);
+      expect(fixed.length).toBeLessThanOrEqual(2);
+      expect(statements.filter((sql) => /^\s*UPDATE "user_sessions"/.test(sql))).toEqual([]);
+    }
+    expect(await storedExpiry(coop.member.id)).toEqual(before);
+  });
+
+  it(`when more than ${SESSION_TOUCH_SHARE * 100} % of the idle window has passed since the expiry was written, then the next request moves it on`, async () => {
+    const coop = await createTestCoop();
+    const idleMs = testApp().config.sessionIdleSeconds * 1000;
+    const counting = await countingAgentFor(coop.member.email, TEST_PASSWORD);
+    // As if written a fifth of the window ago.
+    await appDb((c) =>
+      c.query(`UPDATE user_sessions SET expire = expire - make_interval(secs => $2) WHERE sess->'passport'->>'user' = $1`, [coop.member.id, (idleMs * 0.2) / 1000]),
+    );
+    const [aged] = await storedExpiry(coop.member.id);
+    const asked = Date.now();
+    const { res, statements } = await counting.count((agent) => agent.get('/api/me'));
+    expect(res.status).toBe(200);
+    expect(statements.filter((sql) => /^\s*UPDATE "user_sessions" SET expire/.test(sql))).toHaveLength(1);
+    const [moved] = await storedExpiry(coop.member.id);
+    expect(moved!).toBeGreaterThan(aged!);
+    expect(moved!).toBeGreaterThanOrEqual(asked + idleMs - 1000);
+  });
+
+  it('when the person is disabled between two requests, then the second is refused although the expiry was not written in between', async () => {
+    const coop = await createTestCoop();
+    const counting = await countingAgentFor(coop.member.email, TEST_PASSWORD);
+    expect((await counting.count((agent) => agent.get('/api/animals'))).res.status).toBe(200);
+    await asTenant(coop.id, (c) => c.query(`UPDATE users SET disabled_at = now(), sessions_valid_after = now() WHERE id = $1`, [coop.member.id]), { commit: true });
+    expect((await counting.count((agent) => agent.get('/api/animals'))).res.status).toBe(401);
+  });
+
+  it('when an admin turns a member into an apprentice between two requests, then the second already acts with the new role', async () => {
+    const coop = await createTestCoop();
+    const counting = await countingAgentFor(coop.member.email, TEST_PASSWORD);
+    const me = async () => (await counting.count((agent) => agent.get('/api/me'))).res.body;
+    expect(JSON.stringify(await me())).toContain('"role":"member"');
+    await asTenant(coop.id, (c) => c.query(`UPDATE users SET role = 'apprentice', mentor_id = $2 WHERE id = $1`, [coop.member.id, coop.admin.id]), { commit: true });
+    expect(JSON.stringify(await me())).toContain('"role":"apprentice"');
+  });
+});
+
+describe('the tenant transaction', () => {
+  const settingIn = (coopId: string, sql: string, bind: unknown[]) =>
+    withTenant({ coopId }, async (tx) => {
+      const [row] = await database().query<{ coop: string }>(sql, { bind, transaction: tx, type: QueryTypes.SELECT });
+      return row!.coop;
+    });
+
+  it('when its first statement is plain, carries values, or carries a value that cannot be inlined, then the co-op is set before it runs', async () => {
+    const coop = await createTestCoop();
+    testApp();
+    expect(await settingIn(coop.id, `SELECT current_setting('app.coop_id', true) AS coop`, [])).toBe(coop.id);
+    expect(await settingIn(coop.id, `SELECT current_setting($1, true) AS coop`, ['app.coop_id'])).toBe(coop.id);
+    expect(await settingIn(coop.id, `SELECT current_setting('app.coop_id', true) AS coop, $1::timestamptz AS at`, [new Date()])).toBe(coop.id);
+    expect(await settingIn(coop.id, `SELECT current_setting('app.coop_id', true) AS coop, $1::bytea AS data`, [Buffer.from('kits')])).toBe(coop.id);
+    // Row-level security sees the co-op in the first statement: its own co-op row and no other.
+    const seen = await withTenant({ coopId: coop.id }, (tx) => database().query<{ id: string }>('SELECT id FROM cooperatives', { transaction: tx, type: QueryTypes.SELECT }));
+    expect(seen.map((r) => r.id)).toEqual([coop.id]);
+  });
+
+  it('when a tenant transaction has ended, then the pooled connections carry no co-op into statements outside one', async () => {
+    const coop = await createTestCoop();
+    testApp();
+    await Promise.all(Array.from({ length: 12 }, () => settingIn(coop.id, `SELECT current_setting('app.coop_id', true) AS coop`, [])));
+    const outside = await Promise.all(
+      Array.from({ length: 12 }, () => database().query<{ coop: string | null }>(`SELECT current_setting('app.coop_id', true) AS coop`, { type: QueryTypes.SELECT })),
+    );
+    for (const [row] of outside) expect(row!.coop ?? '').toBe('');
+  });
+
+  it('when a transaction sends nothing, or its first statement fails, then it ends cleanly and the next one works', async () => {
+    const coop = await createTestCoop();
+    testApp();
+    expect(await withTenant({ coopId: coop.id }, async () => 'nothing sent')).toBe('nothing sent');
+    await expect(withTenant({ coopId: coop.id }, (tx) => database().query('SELECT * FROM no_such_table', { transaction: tx }))).rejects.toThrow(/no_such_table/);
+    expect(await settingIn(coop.id, `SELECT current_setting('app.coop_id', true) AS coop`, [])).toBe(coop.id);
+  });
+
+  it('when a tenant transaction writes with its first statement and then fails, then nothing of it is kept', async () => {
+    const coop = await createTestCoop();
+    testApp();
+    const name = `Renamed ${Date.now()}`;
+    await expect(
+      withTenant({ coopId: coop.id }, async (tx) => {
+        await database().query('UPDATE cooperatives SET name = $1 WHERE id = $2', { bind: [name, coop.id], transaction: tx });
+        throw new Error('changed my mind');
+      }),
+    ).rejects.toThrow('changed my mind');
+    const [row] = await asTenant(coop.id, async (c) => (await c.query<{ name: string }>('SELECT name FROM cooperatives WHERE id = $1', [coop.id])).rows);
+    expect(row!.name).toBe(coop.name);
+  });
+});

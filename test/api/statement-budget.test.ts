@@ -1,0 +1,229 @@
+import { afterAll, describe, expect, it } from 'vitest';
+import { copyLitter, copyRow, rowCount } from '../support/bulk-rows';
+import { asTenant } from '../support/db';
+import { createTestApplication, createTestCoop, TEST_PASSWORD, type TestCoop, type TestPerson } from '../support/factories';
+import { daysAgo, farmToday, litterAs } from '../support/almanac';
+import { groupAs, purchaseAs } from '../support/grow-out';
+import { addAnimalAs } from '../support/herd';
+import { countingAgentFor, type StatementCount } from '../support/statement-counter';
+import { testApp } from '../support/test-app';
+
+afterAll(() => testApp().close());
+
+/** Round trips every request may spend on its session, person, transaction and tenant. */
+const FIXED_BUDGET = 2;
+/** Statements of the endpoint's own work. */
+const OWN_BUDGET = 5;
+
+interface Arranged {
+  /** The endpoint, and who asks. */
+  url: string;
+  asker: TestPerson;
+  /** Adds rows until there are `total` of what the endpoint lists; answers how many there are. */
+  growTo(total: number): Promise<number>;
+}
+
+/** One endpoint and how to give it 10, then 1,000 rows of what it shows. */
+interface Endpoint {
+  name: string;
+  arrange(coop: TestCoop): Promise<Arranged>;
+  /** Where the endpoint still reads more than OWN_BUDGET: its count today, so it cannot grow unseen, and why. */
+  over?: { ownBudget: number; why: string };
+}
+
+/** Grows the copies of one template row to `total` rows of the table matching `where`. */
+function grower(coopId: string, table: string, templateId: string, fresh: Record<string, string> = {}, where = 'true', values: unknown[] = []) {
+  return async (total: number) => {
+    await copyRow(coopId, table, templateId, total - (await rowCount(coopId, table, where, values)), fresh);
+    return rowCount(coopId, table, where, values);
+  };
+}
+
+const endpoints: Endpoint[] = [
+  {
+    name: 'the herd list',
+    async arrange(coop) {
+      const doe = await addAnimalAs(coop.member, { sex: 'doe' });
+      const farm = coop.member.farmId;
+      return {
+        url: '/api/animals',
+        asker: coop.member,
+        growTo: grower(coop.id, 'animals', doe.id, { tattoo: `t.tattoo || '-' || left(md5(random()::text), 8)` }, 'keeping_farm_id = $2', [farm]),
+      };
+    },
+  },
+  {
+    name: "an animal's detail",
+    over: { ownBudget: 13, why: 'the animal three times, its status and custody events, both parents, the ancestors, notes, who recorded them' },
+    async arrange(coop) {
+      const doe = await addAnimalAs(coop.member, { sex: 'doe' });
+      const weighInId = await firstWeighIn(coop.member, doe.id);
+      return {
+        url: `/api/animals/${doe.id}`,
+        asker: coop.member,
+        growTo: grower(coop.id, 'weigh_ins', weighInId, {}, 'animal_id = $2', [doe.id]),
+      };
+    },
+  },
+  {
+    name: "an animal's weigh-ins",
+    async arrange(coop) {
+      const doe = await addAnimalAs(coop.member, { sex: 'doe' });
+      const weighInId = await firstWeighIn(coop.member, doe.id);
+      return {
+        url: `/api/animals/${doe.id}/weigh-ins`,
+        asker: coop.member,
+        growTo: grower(coop.id, 'weigh_ins', weighInId, {}, 'animal_id = $2', [doe.id]),
+      };
+    },
+  },
+  {
+    name: 'the litters',
+    over: { ownBudget: 6, why: 'the litters, their events, the dams’ earlier litters, the animals and the breeds they present' },
+    async arrange(coop) {
+      const { litter } = await litterAs(coop.member, { servicedDaysAgo: 60, kindledDaysAgo: 29, bornAlive: 7 });
+      return { url: '/api/litters', asker: coop.member, growTo: litterGrower(coop.id, litter.id) };
+    },
+  },
+  {
+    name: 'the services',
+    over: { ownBudget: 6, why: 'the cycle settings, the services, their palpations, the animals and the breeds they present' },
+    async arrange(coop) {
+      const { service } = await litterAs(coop.member, { servicedDaysAgo: 60, kindledDaysAgo: 29, bornAlive: 7 });
+      return { url: '/api/services', asker: coop.member, growTo: grower(coop.id, 'services', service.id) };
+    },
+  },
+  {
+    name: "the Almanac's week",
+    over: { ownBudget: 9, why: 'the tasks three times (in range, overdue, for review), the animals twice, the breeds, the settings, a count' },
+    async arrange(coop) {
+      const taskId = await openTaskOf(coop);
+      return { url: '/api/almanac/summary', asker: coop.member, growTo: taskGrower(coop.id, taskId) };
+    },
+  },
+  {
+    name: 'the Almanac tasks',
+    over: { ownBudget: 10, why: 'as the week, and who completed the tasks' },
+    async arrange(coop) {
+      const taskId = await openTaskOf(coop);
+      return { url: '/api/almanac/tasks?days=62', asker: coop.member, growTo: taskGrower(coop.id, taskId) };
+    },
+  },
+  {
+    name: 'the feed book',
+    async arrange(coop) {
+      await purchaseAs(coop.member, { boughtOn: daysAgo(30), productName: 'Grower', bagGrams: 10_000, bags: 1, priceCents: 1000 });
+      const purchaseId = await onlyRowOf(coop.id, 'feed_purchases');
+      return { url: '/api/feed', asker: coop.member, growTo: grower(coop.id, 'feed_purchases', purchaseId) };
+    },
+  },
+  {
+    name: 'the grow-out groups',
+    over: { ownBudget: 10, why: 'the groups, their litters, the litters’ events, animals, breeds, weigh-ins, processing, the settings' },
+    async arrange(coop) {
+      const { litter } = await litterAs(coop.member, { servicedDaysAgo: 80, kindledDaysAgo: 49, bornAlive: 7 });
+      const group = await groupAs(coop.member, { name: 'Fryers', formedOn: farmToday(), targetGrams: 2270, litters: [{ litterId: litter.id, heads: 7 }] });
+      return { url: '/api/grow-out/groups', asker: coop.member, growTo: grower(coop.id, 'grow_out_groups', group.id) };
+    },
+  },
+  {
+    name: 'the performance tables',
+    over: { ownBudget: 11, why: 'one bulk read per table the figures use (services, litters, events, feed, groups, processing...)' },
+    async arrange(coop) {
+      const { litter } = await litterAs(coop.member, { servicedDaysAgo: 60, kindledDaysAgo: 29, bornAlive: 7 });
+      return { url: '/api/performance', asker: coop.member, growTo: litterGrower(coop.id, litter.id) };
+    },
+  },
+  {
+    name: 'the applications',
+    async arrange(coop) {
+      await createTestApplication(coop);
+      const applicationId = await onlyRowOf(coop.id, 'applications');
+      return {
+        url: '/api/applications',
+        asker: coop.admin,
+        growTo: grower(coop.id, 'applications', applicationId, {
+          idempotency_key: 'gen_random_uuid()',
+          email: `'copy-' || left(md5(random()::text), 8) || '-' || t.email`,
+        }),
+      };
+    },
+  },
+  {
+    name: 'the members',
+    async arrange(coop) {
+      return {
+        url: '/api/members',
+        asker: coop.admin,
+        growTo: grower(coop.id, 'users', coop.otherFarmMember.id, { email: `'copy-' || left(md5(random()::text), 8) || '-' || t.email` }),
+      };
+    },
+  },
+];
+
+async function firstWeighIn(person: TestPerson, animalId: string): Promise<string> {
+  const counting = await countingAgentFor(person.email, TEST_PASSWORD);
+  const res = await counting.agent.post('/api/weigh-ins').send({ animalId, totalGrams: 4650, weighedOn: '2024-06-01' });
+  if (res.status !== 201) throw new Error(`weigh-in refused: ${res.status} ${JSON.stringify(res.body)}`);
+  return res.body.id as string;
+}
+
+async function onlyRowOf(coopId: string, table: string): Promise<string> {
+  const { rows } = await asTenant(coopId, (c) => c.query<{ id: string }>(`SELECT id FROM ${table} WHERE coop_id = $1`, [coopId]));
+  if (rows.length !== 1) throw new Error(`expected one row in ${table}, found ${rows.length}`);
+  return rows[0]!.id;
+}
+
+function litterGrower(coopId: string, litterId: string) {
+  return async (total: number) => {
+    await copyLitter(coopId, litterId, total - (await rowCount(coopId, 'litters')));
+    return rowCount(coopId, 'litters');
+  };
+}
+
+/** An open task of the member's farm (one a kindling planned), moved to be due today. */
+async function openTaskOf(coop: TestCoop): Promise<string> {
+  await litterAs(coop.member, { servicedDaysAgo: 30, kindledDaysAgo: 1, bornAlive: 7 });
+  const { rows } = await asTenant(
+    coop.id,
+    (c) =>
+      c.query<{ id: string }>(
+        `UPDATE almanac_tasks SET due_on = $3, window_start = NULL, window_end = NULL
+          WHERE id = (SELECT id FROM almanac_tasks WHERE coop_id = $1 AND farm_id = $2 AND state = 'open' ORDER BY due_on LIMIT 1)
+          RETURNING id`,
+        [coop.id, coop.member.farmId, farmToday()],
+      ),
+    { commit: true },
+  );
+  if (!rows[0]) throw new Error('the kindling planned no task');
+  return rows[0].id;
+}
+
+/** Copies of the task on other anchor days (a source plans one task per key and anchor), all due today. */
+function taskGrower(coopId: string, taskId: string) {
+  return grower(coopId, 'almanac_tasks', taskId, { anchor_date: `(t.anchor_date - g - (SELECT count(*) FROM almanac_tasks)::int)` }, `state = 'open' AND due_on = $2`, [farmToday()]);
+}
+
+const summary = (count: StatementCount) => count.statements.map((sql, i) => `${i + 1}. ${sql.replace(/\s+/g, ' ').slice(0, 160)}`).join('\n');
+
+describe('statements per request', () => {
+  for (const endpoint of endpoints) {
+    it(`when ${endpoint.name} shows 10 and then 1,000 rows, then it sends the same statements, at most ${FIXED_BUDGET} of fixed cost and ${endpoint.over?.ownBudget ?? OWN_BUDGET} of its own`, async () => {
+      const coop = await createTestCoop();
+      const arranged = await endpoint.arrange(coop);
+      const counting = await countingAgentFor(arranged.asker.email, TEST_PASSWORD);
+
+      expect(await arranged.growTo(10)).toBe(10);
+      const few = await counting.count((agent) => agent.get(arranged.url));
+      expect(few.res.status, JSON.stringify(few.res.body)).toBe(200);
+
+      expect(await arranged.growTo(1000)).toBe(1000);
+      const many = await counting.count((agent) => agent.get(arranged.url));
+      expect(many.res.status, JSON.stringify(many.res.body)).toBe(200);
+
+      expect(many.statements.length, `10 rows:\n${summary(few)}\n1,000 rows:\n${summary(many)}`).toBe(few.statements.length);
+      expect(many.fixed.length, summary(many)).toBeLessThanOrEqual(FIXED_BUDGET);
+      expect(many.own.length, summary(many)).toBeLessThanOrEqual(endpoint.over?.ownBudget ?? OWN_BUDGET);
+    });
+  }
+});
