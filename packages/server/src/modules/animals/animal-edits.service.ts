@@ -84,6 +84,7 @@ export async function createAnimal(actor: SessionUser, input: AnimalCreateInput)
         ctx,
         today: ctx.today,
         fieldFor: { sire: input.sireFromPapers ? 'sireFromPapers' : 'sireId', dam: input.damFromPapers ? 'damFromPapers' : 'damId' },
+        kitOfFarm: farmId,
       },
     );
     mergeMessages(errors, check.errors);
@@ -218,6 +219,8 @@ export async function updateAnimal(actor: SessionUser, animalId: string, input: 
           today: ctx.today,
           pedigree: await loadPedigreeRows(actor.coopId, tx),
           fieldFor: { sire: input.sireFromPapers ? 'sireFromPapers' : 'sireId', dam: input.damFromPapers ? 'damFromPapers' : 'damId' },
+          // An older record whose dam and date stay as they were is not refused for an unrelated edit.
+          ...(('damId' in changes || 'birthDate' in changes) && animal.keepingFarmId ? { kitOfFarm: animal.keepingFarmId } : {}),
         },
       );
       // Only parents that changed (or whose relation to a changed date changed) are warned about again.

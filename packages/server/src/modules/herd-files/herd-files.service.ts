@@ -19,6 +19,7 @@ import { getCoop } from '../coops/coops.service';
 import { farmDirectoryOf } from '../farms/farms.service';
 import { ensureCan, farmOf } from '../farms/farm-access';
 import { DEFAULT_FARM_TIME_ZONE, farmTodayIn } from '../farms/farm-clock';
+import { kindlingDaysOfDams } from '../litters/litter-facts.service';
 import { namesOf } from '../users/users.service';
 import { readHerdCsv } from './csv-reading';
 import { herdCsv } from './herd-export';
@@ -81,6 +82,7 @@ async function checkFile(
     weightUnit: farm?.weightUnit ?? 'lb_oz',
     herd,
     breeds,
+    kindlingDaysByDam: await kindlingDaysOfDams(tx, actor.coopId, farmId),
     idFor: opts.idFor,
   });
   if (checker.total === 0) {
