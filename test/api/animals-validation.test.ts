@@ -159,7 +159,7 @@ describe('bad herd input: clear field errors and nothing written', () => {
     const before = await herdState(coop);
     const sex = await agent.patch(`/api/animals/${buck.id}`).send({ sex: 'doe', version: buck.version });
     expect(sex.status).toBe(400);
-    expect(sex.body.error.details.sex).toEqual(['This animal is recorded as the sire of 1 animal(s); its sex cannot change']);
+    expect(sex.body.error.details.sex).toEqual(['This animal is recorded as the sire of 1 animal; its sex cannot change']);
     const born = await agent.patch(`/api/animals/${buck.id}`).send({ birthDate: '2023-02-01', version: buck.version });
     expect(born.status).toBe(400);
     expect(born.body.error.details.birthDate[0]).toMatch(/was born on 2023-01-01, before this date; a parent is born first/);

@@ -1,6 +1,6 @@
 import type { Transaction } from 'sequelize';
 import {
-  daysBetween, ErrorCode, type AnimalCreateInput, type AnimalDetailDto, type AnimalUpdateInput, type Lifecycle, type Sex,
+  countOf,  daysBetween, ErrorCode, type AnimalCreateInput, type AnimalDetailDto, type AnimalUpdateInput, type Lifecycle, type Sex,
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../lib/session-user';
@@ -194,7 +194,7 @@ export async function updateAnimal(actor: SessionUser, animalId: string, input: 
     if (changes.sex) {
       const role = animal.sex === 'buck' ? 'sire' : 'dam';
       const [{ count }] = (await query<{ count: string }>(tx, `SELECT count(*) FROM animals WHERE coop_id = $1 AND deleted_at IS NULL AND ${role}_id = $2`, [actor.coopId, animal.id])) as [{ count: string }];
-      if (Number(count) > 0) (errors.sex ??= []).push(`This animal is recorded as the ${role} of ${count} animal(s); its sex cannot change`);
+      if (Number(count) > 0) (errors.sex ??= []).push(`This animal is recorded as the ${role} of ${countOf(Number(count), 'animal')}; its sex cannot change`);
     }
     if (changes.birthDate) {
       const [early] = await query<{ name: string; tattoo: string | null; birth_date: string }>(

@@ -1,5 +1,5 @@
 import type { Transaction } from 'sequelize';
-import { findPedigreeCycle, kitBirthDateProblem, youngParentAt, type BreedDto, type Sex } from '@burrowline/shared';
+import { countOf, findPedigreeCycle, kitBirthDateProblem, youngParentAt, type BreedDto, type Sex } from '@burrowline/shared';
 import { port } from '../../lib/port';
 import { query, selectAnimalsByIds, type AnimalRow } from './animal-queries';
 import { labelOf, standardBreedOf, type PresentContext } from './animals.presenter';
@@ -61,7 +61,7 @@ export async function checkPedigree(
     const field = fieldFor[role] ?? `${role}Id`;
     const parent = parents.get(parentId);
     if (!parent) {
-      addMessage(errors, field, `No such animal in the co-op to be the ${role}`);
+      addMessage(errors, field, `That ${role} is not in the co-op's records: choose one from the list, or enter it from papers`);
       continue;
     }
     if (parentId === candidate.id) {
@@ -80,7 +80,7 @@ export async function checkPedigree(
         addMessage(
           warnings,
           field,
-          `${labelOf(parent)} was ${young.ageDays} days old at this birth, younger than the usual first-breeding age of ` +
+          `${labelOf(parent)} was ${countOf(young.ageDays, 'day')} old at this birth, younger than the usual first-breeding age of ` +
             `${young.minimumDays} days for its breed. Save anyway if that is right.`,
         );
       }

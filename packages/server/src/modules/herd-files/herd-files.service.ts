@@ -3,7 +3,7 @@ import path from 'node:path';
 import { setImmediate as yieldToEventLoop } from 'node:timers/promises';
 import { Op, type Transaction } from 'sequelize';
 import {
-  createImportChecker, defineAbilityFor, ErrorCode, headerProblem, mapImportHeader, subjectOf, todayIn, type HerdExportQuery, type HerdImportConfirmInput, type HerdImportDto, type HerdImportProgressDto, type HerdImportRowsQuery, type ImportCheckResult,
+  countOf,  createImportChecker, defineAbilityFor, ErrorCode, headerProblem, mapImportHeader, subjectOf, todayIn, type HerdExportQuery, type HerdImportConfirmInput, type HerdImportDto, type HerdImportProgressDto, type HerdImportRowsQuery, type ImportCheckResult,
 } from '@burrowline/shared';
 import { lockUntilCommit } from '../../db/advisory-lock';
 import { withTenant } from '../../db/tenant';
@@ -196,7 +196,7 @@ export async function confirmHerdImport(actor: SessionUser, importId: string, in
     }
     if (row.summary.withErrors > 0) {
       throw AppError.validation(
-        { file: [`${row.summary.withErrors} row(s) have errors`] },
+        { file: [`${row.summary.withErrors === 1 ? '1 row has' : `${countOf(row.summary.withErrors, 'row')} have`} errors`] },
         'Some rows have errors: fix them in your spreadsheet and upload the file again',
       );
     }

@@ -1,6 +1,6 @@
 import { createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
 import { useState } from 'react';
-import { yearlyOutputOf, type DoeRow, type WeightUnit } from '@burrowline/shared';
+import { countOf, yearlyOutputOf, type DoeRow, type WeightUnit } from '@burrowline/shared';
 import { DataTable, RowLink } from '../../../components/ui/data-table';
 import { dash, decimal, gainShort, percent, ratio, weightOrDash, wholeDays } from '../performance-format';
 
@@ -11,7 +11,7 @@ const sortable = (x: number | null) => x ?? -1;
 /** Under the yearly figure: over how many days it is pro-rated, or that it is too early to judge. */
 function outputNote(r: DoeRow): string | null {
   const output = yearlyOutputOf({ days: r.daysInService, kitsWeanedPerYear: r.kitsWeanedPerYear });
-  if (!output.judged) return `Too early to judge: ${r.daysInService} ${r.daysInService === 1 ? 'day' : 'days'} in service`;
+  if (!output.judged) return `Too early to judge: ${countOf(r.daysInService, 'day')} in service`;
   return r.daysInService < 365 ? `Pro-rated from ${r.daysInService} days` : null;
 }
 
