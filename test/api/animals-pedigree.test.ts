@@ -125,7 +125,7 @@ describe('pedigree and inbreeding across the co-op', () => {
     const outsider = await signedInAgent(foreign.member.email, TEST_PASSWORD);
     const leak = await outsider.post('/api/trial-matings').send({ damId: f.daughter.id, sireIds: [f.son.id] });
     expect(leak.status).toBe(400); // another co-op's animals are simply not there
-    expect(leak.body.error.details.damId).toEqual(['No such doe in the co-op']);
+    expect(leak.body.error.details.damId).toEqual(["That doe is not in the co-op's records: choose one from the list"]);
   });
 
   it('when two farms enter the same ancestor from papers, then the registry holds one animal; the admin merges a duplicate that slipped in', async () => {

@@ -1,6 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
-import { addDays, todayIn } from '@burrowline/shared';
+import { addDays, formatDayInWords, todayIn } from '@burrowline/shared';
+import { daysAgo, kindlingAs, serviceAs } from '../support/almanac';
 import { createTestCoop, TEST_PASSWORD, type TestCoop } from '../support/factories';
 import { asTenant } from '../support/db';
 import { addAnimal, catalogueBreeds } from '../support/herd';
@@ -158,10 +159,46 @@ describe('bad herd input: clear field errors and nothing written', () => {
     const before = await herdState(coop);
     const sex = await agent.patch(`/api/animals/${buck.id}`).send({ sex: 'doe', version: buck.version });
     expect(sex.status).toBe(400);
-    expect(sex.body.error.details.sex).toEqual(['This animal is recorded as the sire of 1 animal(s); its sex cannot change']);
+    expect(sex.body.error.details.sex).toEqual(['This animal is recorded as the sire of 1 animal; its sex cannot change']);
     const born = await agent.patch(`/api/animals/${buck.id}`).send({ birthDate: '2023-02-01', version: buck.version });
     expect(born.status).toBe(400);
     expect(born.body.error.details.birthDate[0]).toMatch(/was born on 2023-01-01, before this date; a parent is born first/);
     expect(await herdState(coop)).toEqual(before);
+  });
+
+  it('when a kit is added to a dam on a day that is not one of her kindlings, then the birth date names her litters and nothing is written; her kindling day saves', async () => {
+    const { coop, agent, buck, doe } = await setUp();
+    const service = await serviceAs(coop.member, { doeId: doe.id, buckId: buck.id, servicedOn: daysAgo(40) });
+    await kindlingAs(coop.member, { serviceId: service.id, kindledOn: daysAgo(9), bornAlive: 6, bornDead: 0 });
+    const before = await herdState(coop);
+    // A kit five days before her kindling, as the breeder's try found.
+    const early = await agent.post('/api/animals').send({ tattoo: 'K-20', sex: 'doe', birthDate: daysAgo(14), sireId: buck.id, damId: doe.id });
+    expect(early.status).toBe(400);
+    expect(early.body.error.details.birthDate).toEqual([
+      `Fern (D-1)'s litter was kindled on ${formatDayInWords(daysAgo(9))}. A kit of hers is born on its litter's kindling day: use that date, or record the kindling of this litter first.`,
+    ]);
+    expect(await herdState(coop)).toEqual(before);
+
+    const kit = await agent.post('/api/animals').send({ tattoo: 'K-21', sex: 'doe', birthDate: daysAgo(9), sireId: buck.id, damId: doe.id });
+    expect(kit.status).toBe(201);
+    const row = await asTenant(coop.id, async (c) => (await c.query('SELECT birth_date::text AS born, dam_id FROM animals WHERE id = $1', [kit.body.id])).rows[0]);
+    expect(row).toEqual({ born: daysAgo(9), dam_id: doe.id });
+
+    // Moving the kit's birth date off her litter is refused the same way; a name edit of the kit is not held up.
+    const moved = await agent.patch(`/api/animals/${kit.body.id}`).send({ birthDate: daysAgo(10), version: kit.body.version });
+    expect(moved.status).toBe(400);
+    expect(moved.body.error.details.birthDate[0]).toMatch(/^Fern \(D-1\)'s litter was kindled on /);
+    const renamed = await agent.patch(`/api/animals/${kit.body.id}`).send({ name: 'Sorrel', version: kit.body.version });
+    expect(renamed.status).toBe(200);
+  });
+
+  it('when another farm records a kit of a doe whose litters are not on its record, then her private kindling days are not used or told', async () => {
+    const { coop, buck, doe } = await setUp();
+    const service = await serviceAs(coop.member, { doeId: doe.id, buckId: buck.id, servicedOn: daysAgo(40) });
+    await kindlingAs(coop.member, { serviceId: service.id, kindledOn: daysAgo(9), bornAlive: 6, bornDead: 0 });
+    const other = await signedInAgent(coop.otherFarmMember.email, TEST_PASSWORD);
+    const res = await other.post('/api/animals').send({ tattoo: 'X-1', sex: 'buck', birthDate: daysAgo(30), damId: doe.id, origin: 'arrived', arrivedOn: daysAgo(2), breederName: 'Fern\'s farm' });
+    expect(res.status).toBe(201);
+    expect(JSON.stringify(res.body)).not.toContain(formatDayInWords(daysAgo(9)));
   });
 });

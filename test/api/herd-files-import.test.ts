@@ -1,7 +1,8 @@
 import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { HerdImportDto, HerdImportRowDto } from '@burrowline/shared';
+import { formatDayInWords, type HerdImportDto, type HerdImportRowDto } from '@burrowline/shared';
 import { loadConfig } from '../../packages/server/src/config/env';
+import { daysAgo, kindlingAs, serviceAs } from '../support/almanac';
 import { asTenant } from '../support/db';
 import { createTestCoop, TEST_PASSWORD, type TestCoop } from '../support/factories';
 import { addAnimal } from '../support/herd';
@@ -299,6 +300,32 @@ describe('herd import: rows checked against the herd and the rest of the file', 
     expect(again.summary).toMatchObject({ rows: 12, create: 12, withErrors: 0, withWarnings: 1 });
     await agent.post(`/api/herd-imports/${again.id}/confirmation`).send({ idempotencyKey: randomUUID() }).expect(200);
     expect(await animalsOfFarm(own.id, own.farms[0]!.id)).toHaveLength(12);
+  });
+
+  it('when a row adds a kit of a herd doe on a day that is not one of her kindlings, then that row is refused naming her litter; her kindling day imports', async () => {
+    const { coop: own, agent } = await freshMember();
+    const buck = await addAnimal(agent, { tattoo: 'S1', name: 'Bramble', sex: 'buck', birthDate: '2022-01-05' });
+    const doe = await addAnimal(agent, { tattoo: 'D1', name: 'Clover', sex: 'doe', birthDate: '2022-02-11' });
+    const service = await serviceAs(own.member, { doeId: doe.id, buckId: buck.id, servicedOn: daysAgo(40) });
+    await kindlingAs(own.member, { serviceId: service.id, kindledOn: daysAgo(9), bornAlive: 6, bornDead: 0 });
+    const before = await animalsOfFarm(own.id, own.farms[0]!.id);
+
+    const preview = await stagedPreview(agent, csv(HEADER, `K1,Early kit,doe,cross,${daysAgo(14)},S1,D1`, `K2,Her kit,doe,cross,${daysAgo(9)},S1,D1`));
+    expect(preview.summary).toMatchObject({ rows: 2, withErrors: 1 });
+    expect(row(preview, 2).errors).toEqual([{
+      column: 'born',
+      message: `Clover (D1)'s litter was kindled on ${formatDayInWords(daysAgo(9))}. A kit of hers is born on its litter's kindling day: use that date, or record the kindling of this litter first.`,
+    }]);
+    expect(row(preview, 3).errors).toEqual([]);
+    const refused = await agent.post(`/api/herd-imports/${preview.id}/confirmation`).send({ idempotencyKey: randomUUID() });
+    expect(refused.status).toBe(400);
+    expect(await animalsOfFarm(own.id, own.farms[0]!.id)).toEqual(before);
+
+    const fixed = await stagedPreview(agent, csv(HEADER, `K1,Early kit,doe,cross,${daysAgo(9)},S1,D1`, `K2,Her kit,doe,cross,${daysAgo(9)},S1,D1`));
+    expect(fixed.summary).toMatchObject({ rows: 2, create: 2, withErrors: 0 });
+    await agent.post(`/api/herd-imports/${fixed.id}/confirmation`).send({ idempotencyKey: randomUUID() }).expect(200);
+    const kits = (await animalsOfFarm(own.id, own.farms[0]!.id)).filter((a) => a.tattoo.startsWith('K'));
+    expect(kits.map((k) => [k.tattoo, k.born, k.dam_id])).toEqual([['K1', daysAgo(9), doe.id], ['K2', daysAgo(9), doe.id]]);
   });
 
   it('when a row names an animal already in the herd, then what differs is an update (and a new weigh-in), a parent from the herd is found, and a different sex is an error', async () => {

@@ -217,13 +217,48 @@ describe('performance tables on a fixture farm worked out by hand', () => {
     const body = (await agent.get('/api/performance')).body as PerformanceDto;
     const clover = body.suggestions.find((s) => s.animal.id === fx.clover)!;
     expect(clover.suggestions[0]).toEqual({ action: 'consider_culling', code: 'missed_in_a_row', reason: 'Her last 2 services missed one after another' });
-    // Rabbit Production, 9th ed.: ≈ 35 weaned a year; Clover has under a year of records, so no output check.
+    // Rabbit Production, 9th ed.: ≈ 35 weaned a year, watched under 25. Hazel's 201 days in service are
+    // enough to judge: 15 weaned ÷ (201 ÷ 365.25) = 27.3 a year, pro-rated and said so.
     const hazel = body.suggestions.find((s) => s.animal.id === fx.hazel)!;
-    expect(hazel.suggestions).toEqual([{ action: 'keep', code: 'good_record', reason: 'No concerns in her record' }]);
+    expect(hazel.suggestions).toEqual([{ action: 'keep', code: 'good_record', reason: 'No concerns in her record; 27.3 kits weaned a year (pro-rated from her 201 days in service)' }]);
+    expect(doeRow(body, fx.hazel).daysInService).toBe(201);
     // Culling first in the list.
     expect(body.suggestions[0]!.animal.id).toBe(fx.clover);
     const after = await asTenant(fx.coop.id, async (c) => (await c.query('SELECT lifecycle, disposition, version FROM animals WHERE id = $1', [fx.clover])).rows[0]);
     expect(after).toEqual(before);
+  });
+
+  it('when does have under a year in service, then each is judged by the same yearly rule, pro-rated, or told plainly there is not enough history', async () => {
+    const coop = await createTestCoop();
+    const m = coop.member;
+    const agent = await agentOf(m.email);
+    const juniper = await addAnimalAs(m, { sex: 'doe', name: 'Juniper', birthDate: '2023-03-01' });
+    const willow = await addAnimalAs(m, { sex: 'doe', name: 'Willow', birthDate: '2023-04-01' });
+    const buck = await addAnimalAs(m, { sex: 'buck', name: 'Ash', birthDate: '2022-10-01' });
+    const litter = async (doeId: string, servicedAgo: number, kindledAgo: number, bornAlive: number) => {
+      const service = await serviceAs(m, { doeId, buckId: buck.id, servicedOn: daysAgo(servicedAgo) });
+      return (await kindlingAs(m, { serviceId: service.id, kindledOn: daysAgo(kindledAgo), bornAlive, bornDead: 0 })).id;
+    };
+    // Juniper: in service from 200 days ago (201 days); 6 + 5 weaned = 11 → 11 ÷ (201 ÷ 365.25) = 20.0 a year.
+    await wean(agent, await litter(juniper.id, 200, 169, 7), daysAgo(134), 6);
+    await wean(agent, await litter(juniper.id, 120, 89, 6), daysAgo(54), 5);
+    // Willow: in service from 100 days ago (101 days), under the 182 it takes to judge a year's output.
+    await wean(agent, await litter(willow.id, 100, 69, 8), daysAgo(34), 7);
+    await litter(willow.id, 40, 9, 8);
+
+    const body = (await agent.get('/api/performance')).body as PerformanceDto;
+    const suggestionsOf = (id: string) => body.suggestions.find((s) => s.animal.id === id)!.suggestions;
+    expect(doeRow(body, juniper.id)).toMatchObject({ daysInService: 201, litters: 2 });
+    expect(doeRow(body, juniper.id).kitsWeanedPerYear).toBeCloseTo(11 / (201 / 365.25), 10);
+    expect(suggestionsOf(juniper.id)).toEqual([{
+      action: 'watch', code: 'low_output',
+      reason: '20 kits weaned a year (pro-rated from her 201 days in service), against a target of about 35 (Rabbit Production, 9th ed.)',
+    }]);
+    expect(doeRow(body, willow.id).daysInService).toBe(101);
+    expect(suggestionsOf(willow.id)).toEqual([{
+      action: 'too_early', code: 'short_history',
+      reason: 'Only 101 days in service in this period: not enough history to judge her yearly output (that takes 182 days)',
+    }]);
   });
 
   it('when the period is all records or a chosen window, then the figures follow the period', async () => {

@@ -126,3 +126,36 @@ describe('the Almanac: a member records a service and follows the plan to the li
     }
   });
 });
+
+describe('Almanac settings in the farm\'s units', () => {
+  it('when a pounds-and-ounces farm opens its settings, then the target weight is typed in lb and oz and stored in grams; a kilogram farm sees kg', async () => {
+    const coop = await createTestCoop();
+    const browser = await openBrowser();
+    const errors = collectPageErrors(browser.page);
+    const { page } = browser;
+    try {
+      await app.signIn(page, coop.member.email);
+      await page.goto(`${app.url}/almanac/settings`);
+      // The default 2,270 g, in the farm's pounds and ounces (no grams box, no "5 lb 0.1 oz" hint).
+      await expect.poll(() => page.getByLabel('Target fryer live weight (lb)').inputValue()).toBe('5');
+      expect(await page.getByLabel('Target fryer live weight (oz)').inputValue()).toBe('0.07');
+      expect(await page.getByText(/\(grams\)/).count()).toBe(0);
+      await page.getByLabel('Target fryer live weight (lb)').fill('4');
+      await page.getByLabel('Target fryer live weight (oz)').fill('8');
+      await page.getByRole('button', { name: 'Save the cycle settings' }).click();
+      await page.getByText(/^Saved\./).waitFor();
+      // 4 lb 8 oz = 4.5 × 453.59237 g = 2,041.2 g, stored as 2,041 whole grams (NIST Handbook 44 pound).
+      const stored = await asTenant(coop.id, async (c) => (await c.query('SELECT settings FROM farm_cycle_settings WHERE farm_id = $1', [coop.farms[0]!.id])).rows[0]);
+      expect(stored.settings.targetLiveWeightGrams).toBe(2041);
+
+      // A farm that switches to kilograms sees the same grams in kg and g.
+      await asTenant(coop.id, (c) => c.query("UPDATE farms SET weight_unit = 'kg_g' WHERE id = $1", [coop.farms[0]!.id]), { commit: true });
+      await page.goto(`${app.url}/almanac/settings`);
+      await expect.poll(() => page.getByLabel('Target fryer live weight (kg)').inputValue()).toBe('2');
+      expect(await page.getByLabel('Target fryer live weight (g)').inputValue()).toBe('41');
+      expect(errors).toEqual([]);
+    } finally {
+      await browser.close();
+    }
+  });
+});

@@ -94,3 +94,41 @@ describe('two people at once', () => {
     }
   });
 });
+
+describe('the top bar on wide screens', () => {
+  it('when the admin (six areas) reads Commons at 1024, 1280 and 1440 px, then no area, the co-op name or sign-out overlap, and nothing scrolls sideways', async () => {
+    const browser = await openBrowser({ width: 1024, height: 800 });
+    const { page } = browser;
+    try {
+      await page.goto(`${server.url}/sign-in`);
+      await page.getByLabel('E-mail').fill('admin@demo.test');
+      await page.getByLabel('Password').fill(DEMO.password);
+      await page.getByRole('button', { name: 'Sign in' }).click();
+      await page.getByRole('heading', { name: 'Commons', level: 1 }).waitFor();
+      for (const width of [1024, 1280, 1440]) {
+        await page.setViewportSize({ width, height: 800 });
+        const boxes = await page.evaluate(() => {
+          const header = document.querySelector('header')!;
+          const pieces = [...header.querySelectorAll('nav a'), ...header.querySelectorAll('a[href="/"] > span'), ...header.querySelectorAll('button')];
+          return pieces.map((el) => {
+            const r = el.getBoundingClientRect();
+            return { name: (el.textContent ?? '').trim(), left: r.left, right: r.right, top: r.top, bottom: r.bottom };
+          });
+        });
+        expect(boxes.map((b) => b.name), `${width}`).toEqual(expect.arrayContaining(['Commons', 'Herd', 'Almanac', 'Grow-out', 'My farm', 'Sign out']));
+        expect(boxes.some((b) => b.name.startsWith('Admin')), `${width}`).toBe(true);
+        for (const [i, a] of boxes.entries()) {
+          expect(a.right, `${a.name} inside the window at ${width}`).toBeLessThanOrEqual(width);
+          for (const b of boxes.slice(i + 1)) {
+            const overlap = a.left < b.right - 1 && b.left < a.right - 1 && a.top < b.bottom - 1 && b.top < a.bottom - 1;
+            expect(overlap, `${a.name} and ${b.name} at ${width}`).toBe(false);
+          }
+        }
+        const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+        expect(overflow, `${width}`).toBeLessThanOrEqual(0);
+      }
+    } finally {
+      await browser.close();
+    }
+  });
+});

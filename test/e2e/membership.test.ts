@@ -2,6 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { browserTestApp, collectPageErrors, openBrowser, sidewaysScroll } from '../support/browser';
+import { asTenant, ownerDb } from '../support/db';
 import { linkIn, waitForMail } from '../support/mail';
 
 // The demo co-op is loaded into the test cluster by `npm test`, as `npm start` loads it.
@@ -136,11 +137,31 @@ describe('membership: a breeder applies, the admin approves, the new member sign
     try {
       await app.signIn(browser.page, DEMO.member);
       await browser.page.goto(`${app.url}/admin/applications`);
-      await browser.page.getByRole('heading', { name: 'Not yours to see' }).waitFor();
+      await browser.page.getByRole('heading', { name: 'Not open to you' }).waitFor();
       // Turned away means nothing of the queue reached the page, not only a heading above it.
-      expect(await browser.page.getByRole('heading', { name: 'Not yours to see' }).isVisible()).toBe(true);
+      expect(await browser.page.getByRole('heading', { name: 'Not open to you' }).isVisible()).toBe(true);
+      // The refusal says why and who can help; a reload would change nothing, so none is offered.
+      expect(await browser.page.getByText("The co-op's admin pages are for its admins.").isVisible()).toBe(true);
+      expect(await browser.page.getByText("ask your co-op's coordinator").isVisible()).toBe(true);
+      expect(await browser.page.getByRole('button', { name: /reload|try again/i }).count()).toBe(0);
+      expect(await browser.page.getByRole('link', { name: 'Go to Commons' }).isVisible()).toBe(true);
       expect(await browser.page.getByRole('heading', { name: 'Applications', level: 1 }).count()).toBe(0);
       expect(await browser.page.getByText(/@example\.test/).count()).toBe(0);
+    } finally {
+      await browser.close();
+    }
+  });
+
+  it('when a member opens another farm\'s litter by address, then the page names the missing litter and leads back to her litters, not "No such farm"', async () => {
+    const member = await ownerDb(async (c) => (await c.query('SELECT coop_id, farm_id FROM users WHERE email = $1', [DEMO.member])).rows[0] as { coop_id: string; farm_id: string });
+    const other = await asTenant(member.coop_id, async (c) => (await c.query('SELECT id FROM litters WHERE farm_id <> $1 LIMIT 1', [member.farm_id])).rows[0] as { id: string });
+    const browser = await openBrowser();
+    try {
+      await app.signIn(browser.page, DEMO.member);
+      await browser.page.goto(`${app.url}/litters/${other.id}`);
+      await browser.page.getByRole('heading', { name: 'That litter was not found' }).waitFor();
+      expect(await browser.page.getByText('No such farm').count()).toBe(0);
+      expect(await browser.page.getByRole('link', { name: 'Back to the litters' }).isVisible()).toBe(true);
     } finally {
       await browser.close();
     }

@@ -1,9 +1,11 @@
 import { planArrivalQuarantine } from '../modules/almanac/quarantine.service';
 import { groupNamesOfFarm } from '../modules/almanac/treatments.service';
+import { damKindlingDays } from '../modules/animals/animal-validation';
 import { onArrival } from '../modules/animals/custody-moves.service';
 import { feedTotalsByGroup } from '../modules/feed/feed-totals.service';
 import { groupFeedTotals, processedHeadsOfGroups } from '../modules/grow-out/grow-out-context';
 import { groupsOfFarm } from '../modules/grow-out/grow-out-facts.service';
+import { kindlingDaysOfDams } from '../modules/litters/litter-facts.service';
 import { processedHeadsOf } from '../modules/processing/processing.service';
 
 let plugged = false;
@@ -13,12 +15,14 @@ let plugged = false;
  * between module folders would otherwise be broken: the Almanac reads the herd, so the herd's arrivals
  * reach the Almanac here; the feed book reads grow-out, so grow-out's feed totals come in here; grow-out
  * reads the Almanac, so the Almanac's treatments learn the farm's groups here; processing reads grow-out,
- * so the heads processed from a group reach grow-out's head count here.
+ * so the heads processed from a group reach grow-out's head count here; litters build on the herd, so a
+ * dam's kindling days reach the herd's kit birth-date check here.
  */
 export function plugModulePorts(): void {
   if (plugged) return;
   plugged = true;
   onArrival.plug(planArrivalQuarantine);
+  damKindlingDays.plug(kindlingDaysOfDams);
   groupFeedTotals.plug(feedTotalsByGroup);
   processedHeadsOfGroups.plug(processedHeadsOf);
   groupNamesOfFarm.plug(async (tx, coopId, farmId) => new Map((await groupsOfFarm(tx, coopId, farmId)).map((g) => [g.id, g.name])));

@@ -3,8 +3,8 @@ import { poundsToGrams } from '../units/units';
 
 /**
  * A farm's own breeding cycle: how many days after a service (or after a kindling) each job falls.
- * Every figure is editable per farm; the defaults below come from reference-values.md, each with the
- * range published for it and where it comes from, so the settings screen can show both.
+ * Every figure is editable per farm; each default below carries the range published for it and the
+ * publication it comes from, so the settings screen can show both.
  */
 export interface CycleSettings {
   /** Palpation, days after the service. */
@@ -61,7 +61,7 @@ export const DEFAULT_CYCLE_SETTINGS: Readonly<CycleSettings> = Object.freeze({
   targetLiveWeightGrams: 2270,
 });
 
-/** Where each default comes from (reference-values.md). */
+/** Where each default comes from: the publication and how sure we are of the figure. */
 export const CYCLE_SETTING_SOURCES: Readonly<Record<CycleSettingKey, CycleSettingSource>> = Object.freeze({
   palpationDays: {
     from: 'service', unit: 'days', published: { min: 10, max: 14 }, publishedText: 'day 10–14 (day 12 common)',

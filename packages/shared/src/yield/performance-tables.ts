@@ -113,6 +113,8 @@ export interface DoeRow {
   survivalToWeaning: number | null;
   averageLitterWeaningGrams: number | null;
   kitsWeanedPerYear: number | null;
+  /** Her days in service in the period, which the yearly figures are pro-rated over. */
+  daysInService: number;
   carcassGramsPerYear: number | null;
   /** Doe + litter feed ÷ litter weight at weaning, over her weighed litters with feed records. */
   feedConversionToWeaning: number | null;
@@ -388,6 +390,7 @@ export function performanceTables(input: PerformanceInput): PerformanceTables {
       survivalToWeaning: perf.survivalToWeaning,
       averageLitterWeaningGrams: perf.averageLitterWeaningGrams,
       kitsWeanedPerYear: perf.kitsWeanedPerYear,
+      daysInService: perf.days,
       carcassGramsPerYear: perf.carcassGramsPerYear,
       feedConversionToWeaning: toWeaning,
       feedConversionToMarket: toMarket,

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { DEFAULT_CYCLE_SETTINGS } from '../breeding/cycle-settings';
 import { addDays } from '../herd/herd-dates';
 import { buckPerformance, doePerformance, missedInARow, serviceOutcome, type PerformanceLitter, type ServiceRecord } from './performance';
-import { keepCullSuggestions } from './suggestions';
+import { keepCullSuggestions, yearlyOutputOf } from './suggestions';
 import { compareByKey, summarizeMetric } from './comparison';
 
 // A fixture doe whose figures were worked out by hand (dates counted on a calendar).
@@ -43,8 +43,12 @@ describe('per-doe performance from plain records', () => {
     expect(perf.carcassGramsPerYear).toBeCloseTo(9000 / (361 / 365.25), 9);
   });
 
-  it('when she has missed her last two services, then culling is suggested with the reason', () => {
-    expect(keepCullSuggestions(perf)).toEqual([{ action: 'consider_culling', code: 'missed_in_a_row', reason: 'Her last 2 services missed one after another' }]);
+  it('when she has missed her last two services, then culling is suggested with the reason, and her pro-rated output is judged too', () => {
+    // 22 weaned over 361 days in service = 22.3 a year, under 25: judged although she has under a year.
+    expect(keepCullSuggestions(perf)).toEqual([
+      { action: 'consider_culling', code: 'missed_in_a_row', reason: 'Her last 2 services missed one after another' },
+      { action: 'watch', code: 'low_output', reason: '22.3 kits weaned a year (pro-rated from her 361 days in service), against a target of about 35 (Rabbit Production, 9th ed.)' },
+    ]);
   });
 
   it('when a period ends before it starts, then it is refused', () => {
@@ -100,6 +104,42 @@ describe('keep and cull suggestions', () => {
     expect(keepCullSuggestions(perf, { litterGainsGramsPerDay: [33, 35], comparisonGramsPerDay: 34 })).toEqual([
       { action: 'keep', code: 'good_record', reason: 'No concerns in her record; 40 kits weaned a year' },
     ]);
+  });
+});
+
+describe('keep and cull: every doe judged by the same yearly-output rule', () => {
+  const period = { from: '2025-01-01', to: '2025-12-31' };
+  const doe = (firstService: string, kindlings: [string, number, number | null][]) => {
+    const litters: PerformanceLitter[] = kindlings.map(([kindledOn, bornAlive, weaned]) => ({
+      kindledOn, bornAlive, bornDead: 0, events: weaned === null ? [] : [{ kind: 'weaned', on: addDays(kindledOn, 42), count: weaned }],
+    }));
+    const services = [{ servicedOn: firstService, outcome: 'kindled' as const }, ...kindlings.slice(1).map(([k]) => ({ servicedOn: addDays(k, -31), outcome: 'kindled' as const }))];
+    return doePerformance({ services, litters }, period);
+  };
+
+  it('when a doe has under a year in service, then her output is pro-rated and judged like any other doe\'s', () => {
+    // In service from 15 Jun: 200 days; 6 + 5 = 11 weaned → 11 ÷ (200 ÷ 365.25) = 20.1 a year, under 25 (70 % of ≈ 35).
+    const young = doe('2025-06-15', [['2025-07-16', 7, 6], ['2025-09-30', 7, 5]]);
+    expect(young.days).toBe(200);
+    expect(keepCullSuggestions(young)).toEqual([{
+      action: 'watch', code: 'low_output',
+      reason: '20.1 kits weaned a year (pro-rated from her 200 days in service), against a target of about 35 (Rabbit Production, 9th ed.)',
+    }]);
+    // A doe in service all year with 22 weaned is judged by the same words, without the pro-rating.
+    const older = doe('2024-12-01', [['2025-01-01', 8, 7], ['2025-04-01', 8, 8], ['2025-08-01', 8, 7]]);
+    expect(older.days).toBe(365);
+    expect(keepCullSuggestions(older)).toEqual([{ action: 'watch', code: 'low_output', reason: '22 kits weaned a year, against a target of about 35 (Rabbit Production, 9th ed.)' }]);
+  });
+
+  it('when a doe has too few days in service to judge her output, then "not enough history" is said plainly, also beside other reasons', () => {
+    // In service from 3 Sep: 120 days, under the 182 it takes.
+    const fresh = doe('2025-09-03', [['2025-10-04', 8, 7], ['2025-12-20', 8, null]]);
+    expect(fresh.days).toBe(120);
+    const shortHistory = { action: 'too_early', code: 'short_history', reason: 'Only 120 days in service in this period: not enough history to judge her yearly output (that takes 182 days)' };
+    expect(keepCullSuggestions(fresh)).toEqual([shortHistory]);
+    const small = doe('2025-09-03', [['2025-10-04', 4, 3], ['2025-12-20', 4, null]]);
+    expect(keepCullSuggestions(small).map((x) => x.code)).toEqual(['small_litters', 'short_history']);
+    expect(yearlyOutputOf({ days: 1, kitsWeanedPerYear: 0 }).text).toBe('Only 1 day in service in this period: not enough history to judge her yearly output (that takes 182 days)');
   });
 });
 

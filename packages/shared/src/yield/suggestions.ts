@@ -13,8 +13,13 @@ export interface KeepCullThresholds {
   minAverageBornAlive: number;
   /** Survival to weaning below this over her weaned litters (common practice, from memory: losses over 30 % are poor mothering). */
   minSurvivalToWeaning: number;
-  /** Kits weaned a year below this, for a doe in service with a year (365 days) of records (derived: 70 % of the ≈ 35 target, Rabbit Production 9th ed.). */
+  /** Kits weaned a year below this, pro-rated over her days in service (derived: 70 % of the ≈ 35 target, Rabbit Production 9th ed.). */
   minKitsWeanedPerYear: number;
+  /**
+   * Days in service in the period before her yearly output is judged; fewer is "not enough history"
+   * (common practice: half a year holds two litters to weaning at the usual rebreeding intervals).
+   */
+  minDaysForYearlyOutput: number;
   /** Her litters' gain below this share of the comparison gain (common practice). */
   slowGrowthShare: number;
   /** How many of her latest litters the litter checks look at. */
@@ -26,6 +31,7 @@ export const DEFAULT_KEEP_CULL_THRESHOLDS: Readonly<KeepCullThresholds> = Object
   minAverageBornAlive: 6,
   minSurvivalToWeaning: 0.7,
   minKitsWeanedPerYear: Math.round(PRODUCTIVITY_TARGET.kitsWeanedPerYear * 0.7),
+  minDaysForYearlyOutput: 182,
   slowGrowthShare: 0.85,
   recentLitters: 3,
 });
@@ -34,7 +40,7 @@ export type SuggestionAction = 'consider_culling' | 'watch' | 'keep' | 'too_earl
 
 export interface KeepCullSuggestion {
   action: SuggestionAction;
-  code: 'missed_in_a_row' | 'small_litters' | 'poorly_raised' | 'low_output' | 'slow_growth' | 'good_record' | 'few_records';
+  code: 'missed_in_a_row' | 'small_litters' | 'poorly_raised' | 'low_output' | 'slow_growth' | 'good_record' | 'few_records' | 'short_history';
   reason: string;
 }
 
@@ -47,6 +53,22 @@ export interface GrowthEvidence {
 
 const pct = (x: number) => `${Math.round(x * 100)} %`;
 const one = (x: number) => (Math.round(x * 10) / 10).toString();
+
+/**
+ * Whether her yearly output can be judged, and how it is worded: every doe by the same rule over the
+ * same period, the yearly figure pro-rated over her days in service when she has under a year of them.
+ */
+export function yearlyOutputOf(
+  perf: Pick<DoePerformance, 'days' | 'kitsWeanedPerYear'>,
+  thresholds: Pick<KeepCullThresholds, 'minDaysForYearlyOutput'> = DEFAULT_KEEP_CULL_THRESHOLDS,
+): { judged: true; text: string } | { judged: false; text: string } {
+  if (perf.days < thresholds.minDaysForYearlyOutput || perf.kitsWeanedPerYear === null) {
+    const days = `${perf.days} ${perf.days === 1 ? 'day' : 'days'}`;
+    return { judged: false, text: `Only ${days} in service in this period: not enough history to judge her yearly output (that takes ${thresholds.minDaysForYearlyOutput} days)` };
+  }
+  const proRated = perf.days < 365 ? ` (pro-rated from her ${perf.days} days in service)` : '';
+  return { judged: true, text: `${one(perf.kitsWeanedPerYear)} kits weaned a year${proRated}` };
+}
 
 /**
  * Suggestions for one doe, most serious first; `keep` only when there is enough record and nothing
@@ -75,8 +97,9 @@ export function keepCullSuggestions(
       out.push({ action: 'consider_culling', code: 'poorly_raised', reason: `Poorly raised litters: ${pct(survival)} of her kits reached weaning over her last ${weaned.length} (below ${pct(thresholds.minSurvivalToWeaning)})` });
     }
   }
-  if (perf.services > 0 && perf.days >= 365 && perf.kitsWeanedPerYear !== null && perf.kitsWeanedPerYear < thresholds.minKitsWeanedPerYear) {
-    out.push({ action: 'watch', code: 'low_output', reason: `${one(perf.kitsWeanedPerYear)} kits weaned a year, against a target of about ${PRODUCTIVITY_TARGET.kitsWeanedPerYear} (Rabbit Production, 9th ed.)` });
+  const output = yearlyOutputOf(perf, thresholds);
+  if (perf.services > 0 && output.judged && perf.kitsWeanedPerYear! < thresholds.minKitsWeanedPerYear) {
+    out.push({ action: 'watch', code: 'low_output', reason: `${output.text}, against a target of about ${PRODUCTIVITY_TARGET.kitsWeanedPerYear} (Rabbit Production, 9th ed.)` });
   }
   if (growth && growth.litterGainsGramsPerDay.length >= 2) {
     const gains = growth.litterGainsGramsPerDay;
@@ -87,11 +110,13 @@ export function keepCullSuggestions(
       out.push({ action: 'watch', code: 'slow_growth', reason: `Her litters grow slowly: ${one(average)} g a day against ${one(comparison)} g for ${against}` });
     }
   }
+  const shortHistory: KeepCullSuggestion = { action: 'too_early', code: 'short_history', reason: output.text };
   if (out.length === 0) {
     if (perf.litterSummaries.length < 2) return [{ action: 'too_early', code: 'few_records', reason: 'Fewer than two litters on record: too early to say' }];
-    const output = perf.kitsWeanedPerYear !== null && perf.days >= 365 ? `; ${one(perf.kitsWeanedPerYear)} kits weaned a year` : '';
-    return [{ action: 'keep', code: 'good_record', reason: `No concerns in her record${output}` }];
+    if (!output.judged) return [shortHistory];
+    return [{ action: 'keep', code: 'good_record', reason: `No concerns in her record; ${output.text}` }];
   }
+  if (!output.judged) out.push(shortHistory);
   const rank: Record<SuggestionAction, number> = { consider_culling: 0, watch: 1, keep: 2, too_early: 3 };
   return out.sort((a, b) => rank[a.action] - rank[b.action]);
 }

@@ -40,7 +40,7 @@ function areasFor({ farmId, admin }: Pick<TopBarProps, 'farmId' | 'admin'>): Are
 }
 
 /**
- * Wide screens: one bar with the areas in it. Phones and tablets: the co-op and sign-out on top and
+ * Wide screens: the co-op and sign-out on top, the areas in a row beneath. Phones and tablets: the co-op and sign-out on top and
  * the areas in a tab bar at the bottom, where a thumb reaches them with gloves on.
  */
 export function TopBar({ coopName, personName, roleLabel, farmId, onSignOut, isSigningOut, admin }: TopBarProps) {
@@ -54,44 +54,44 @@ export function TopBar({ coopName, personName, roleLabel, farmId, onSignOut, isS
         >
           Skip to content
         </a>
-        <div className="mx-auto flex max-w-6xl items-center gap-3 px-4 py-2 lg:gap-6">
-          <Link to="/" className="flex min-h-11 min-w-0 flex-1 items-center gap-2.5 rounded-lg focus-visible:outline-straw lg:flex-none">
+        <div className="mx-auto flex max-w-6xl items-center gap-3 px-4 py-2">
+          <Link to="/" className="flex min-h-11 min-w-0 flex-1 items-center gap-2.5 rounded-lg focus-visible:outline-straw">
             <BrandMark withName={false} onMoss />
-            <span className="min-w-0 truncate text-lg leading-tight font-bold lg:max-w-56">{coopName}</span>
+            <span className="min-w-0 truncate text-lg leading-tight font-bold">{coopName}</span>
           </Link>
-          <nav aria-label="Main" className="hidden min-w-0 lg:block">
-            <ul className="flex gap-1">
-              {areas.map((area) => (
-                <li key={area.to}>
-                  <NavLink
-                    to={area.to}
-                    end={area.end}
-                    className={({ isActive }) =>
-                      [
-                        'inline-flex min-h-11 items-center gap-2 rounded-lg px-3 font-medium whitespace-nowrap focus-visible:outline-straw',
-                        isActive ? 'bg-straw text-bark' : 'text-oat hover:bg-moss-deep',
-                      ].join(' ')
-                    }
-                  >
-                    <area.icon className="size-5" aria-hidden="true" />
-                    {area.label}
-                    {area.badge && <CountBadge count={area.badge.count} label={area.badge.label} />}
-                  </NavLink>
-                </li>
-              ))}
-            </ul>
-          </nav>
-          {/* The areas need the room on a laptop; the name comes back on a wide screen. */}
-          <p className="hidden min-w-0 text-right leading-tight sm:block lg:hidden 2xl:ml-auto 2xl:block">
+          <p className="hidden min-w-0 text-right leading-tight sm:block">
             <span className="block max-w-48 truncate font-medium">{personName}</span>
             <span className="block text-sm text-oat/85">{roleLabel}</span>
           </p>
           {/* Icon-only on a phone, but always named "Sign out" for assistive tech. */}
-          <Button variant="on-moss" className="min-w-11 shrink-0 px-3 sm:px-4 lg:ml-auto 2xl:ml-0" onClick={onSignOut} isBusy={isSigningOut} title={`Signed in as ${personName} (${roleLabel})`}>
+          <Button variant="on-moss" className="min-w-11 shrink-0 px-3 sm:px-4" onClick={onSignOut} isBusy={isSigningOut} title={`Signed in as ${personName} (${roleLabel})`}>
             {!isSigningOut && <LogOut className="size-5" aria-hidden="true" />}
             <span className="sr-only sm:not-sr-only">Sign out</span>
           </Button>
         </div>
+        {/* The areas get a row of their own on wide screens, so six of them never run under the co-op's name or sign-out. */}
+        <nav aria-label="Main" className="hidden border-t border-moss-deep lg:block">
+          <ul className="mx-auto flex max-w-6xl flex-wrap gap-1 px-4 py-1.5">
+            {areas.map((area) => (
+              <li key={area.to}>
+                <NavLink
+                  to={area.to}
+                  end={area.end}
+                  className={({ isActive }) =>
+                    [
+                      'inline-flex min-h-11 items-center gap-2 rounded-lg px-3 font-medium whitespace-nowrap focus-visible:outline-straw',
+                      isActive ? 'bg-straw text-bark' : 'text-oat hover:bg-moss-deep',
+                    ].join(' ')
+                  }
+                >
+                  <area.icon className="size-5" aria-hidden="true" />
+                  {area.label}
+                  {area.badge && <CountBadge count={area.badge.count} label={area.badge.label} />}
+                </NavLink>
+              </li>
+            ))}
+          </ul>
+        </nav>
       </header>
       <nav aria-label="Main" className="fixed inset-x-0 bottom-0 z-20 border-t border-moss-deep bg-moss pb-[env(safe-area-inset-bottom)] text-oat lg:hidden">
         <ul className={`mx-auto grid max-w-xl ${columns[areas.length] ?? 'grid-cols-5'}`}>
@@ -102,7 +102,7 @@ export function TopBar({ coopName, personName, roleLabel, farmId, onSignOut, isS
                 end={area.end}
                 className={({ isActive }) =>
                   [
-                    'relative flex min-h-14 flex-col items-center justify-center gap-0.5 px-1 text-xs font-medium focus-visible:outline-straw',
+                    'relative flex min-h-14 flex-col items-center justify-center gap-0.5 px-0.5 text-xs font-medium tracking-tight focus-visible:outline-straw',
                     isActive ? 'bg-straw text-bark' : 'text-oat hover:bg-moss-deep',
                   ].join(' ')
                 }

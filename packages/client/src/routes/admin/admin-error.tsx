@@ -9,10 +9,10 @@ export function AdminRouteError() {
   const error = useRouteError();
   const notFound = (isRouteErrorResponse(error) && error.status === 404) || (isApiError(error) && error.status === 404);
   if (!notFound) return <RouteError />;
-  const what = isRouteErrorResponse(error) && typeof error.data === 'string' ? error.data : isApiError(error) ? error.message : 'Not found';
+  const what = isRouteErrorResponse(error) && typeof error.data === 'string' ? error.data : isApiError(error) ? error.message : 'That page was not found';
   return (
-    <ProblemPage title={what} actions={<LinkButton to="/admin/applications" variant="primary">Go to the admin pages</LinkButton>}>
-      <p>There is nothing at this address. The link may be mistyped, or it belongs to another co-op.</p>
+    <ProblemPage title={what} actions={<LinkButton to="/admin/applications" variant="primary">Back to the admin pages</LinkButton>}>
+      <p>The link may be mistyped, or the application or member was removed.</p>
     </ProblemPage>
   );
 }

@@ -9,6 +9,7 @@ import { CalendarFeedPanel } from '../../features/almanac/components/calendar-fe
 import { CycleSettingsForm } from '../../features/almanac/components/cycle-settings-form';
 import { MorningEmailPanel } from '../../features/almanac/components/morning-email-panel';
 import { useAlmanacRights } from '../../features/almanac/hooks/use-almanac-rights';
+import { useWeightUnit } from '../../features/herd/hooks/use-weight-unit';
 
 export async function loader() {
   await queryClient.ensureQueryData(cycleSettingsQueryOptions());
@@ -18,6 +19,7 @@ export async function loader() {
 export function AlmanacSettingsPage() {
   const { data: settings } = useCycleSettings();
   const rights = useAlmanacRights();
+  const unit = useWeightUnit();
   return (
     <div className="space-y-6">
       <PageTitle>Almanac settings</PageTitle>
@@ -29,7 +31,7 @@ export function AlmanacSettingsPage() {
       <div className="grid gap-6 lg:grid-cols-3">
         <Card className="space-y-4 lg:col-span-2">
           <h2 className="text-lg font-bold">Cycle</h2>
-          <CycleSettingsForm key={settings.version} current={settings} canEdit={rights.canPlan} />
+          <CycleSettingsForm current={settings} canEdit={rights.canPlan} unit={unit} />
         </Card>
         <div className="space-y-6">
           <CalendarFeedPanel canManage={rights.canManageFeed} />

@@ -15,11 +15,11 @@ const slugPattern = /^[a-z0-9]+(-[a-z0-9]+)*$/;
 
 export async function loader({ params }: LoaderFunctionArgs) {
   const slug = params.coopSlug ?? '';
-  if (!slugPattern.test(slug)) throw data('No such co-op', { status: 404 });
+  if (!slugPattern.test(slug)) throw data('That co-op was not found', { status: 404 });
   try {
     await queryClient.ensureQueryData(publicCoopQueryOptions(slug));
   } catch (error) {
-    if (isApiError(error) && error.status === 404) throw data('No such co-op', { status: 404 });
+    if (isApiError(error) && error.status === 404) throw data('That co-op was not found', { status: 404 });
     throw error;
   }
   return null;

@@ -15,23 +15,44 @@ function isStaleChunk(error: unknown): boolean {
   return error instanceof TypeError && /dynamically imported module|Importing a module script failed/i.test(error.message);
 }
 
+/** What is missing, in the words the loader or the server used ("That litter was not found"). */
+function missingTitle(error: unknown): string | undefined {
+  if (isRouteErrorResponse(error) && typeof error.data === 'string' && error.data.trim()) return error.data;
+  if (isApiError(error)) return error.message;
+  return undefined;
+}
+
 export function RouteError({ standalone = false }: { standalone?: boolean }) {
   const error = useRouteError();
 
   // The session-lost handler is already on its way to sign-in; don't flash an error first.
   if (isApiError(error, ErrorCode.unauthenticated)) return <Navigate to="/sign-in" replace />;
-  if (isNotFound(error)) return <NotFoundContent standalone={standalone} what={standalone ? 'page' : 'farm'} />;
+  if (isNotFound(error)) return <NotFoundContent standalone={standalone} title={missingTitle(error)} />;
 
-  const forbidden = isApiError(error, ErrorCode.forbidden);
+  const commons = (
+    <LinkButton to="/" variant="secondary">
+      Go to Commons
+    </LinkButton>
+  );
+  // Reloading cannot change a refusal: say who can help instead.
+  if (isApiError(error, ErrorCode.forbidden)) {
+    return (
+      <ProblemPage title="Not open to you" standalone={standalone} actions={commons}>
+        <p>{error.message}</p>
+        <p>If you need it for your work, ask your co-op's coordinator to change your role.</p>
+      </ProblemPage>
+    );
+  }
+
   const offline = isApiError(error, 'network_error');
-  const title = forbidden ? 'Not yours to see' : offline ? 'No connection' : 'Something went wrong';
-  const message = forbidden
-    ? 'This belongs to another farm or needs a role you do not have.'
-    : offline || isApiError(error)
-      ? (error as Error).message
-      : isStaleChunk(error)
-        ? 'Burrowline was updated while this page was open. Reload to get the new version.'
-        : 'This screen could not be shown. Reloading usually helps; if it keeps happening, tell your co-op coordinator.';
+  const title = offline ? 'No connection' : isStaleChunk(error) ? 'Burrowline was updated' : 'This screen could not be shown';
+  const message = offline
+    ? "Burrowline could not be reached. Check the barn's Wi-Fi or your phone's signal, then try again; nothing you saved is lost."
+    : isStaleChunk(error)
+      ? 'A new version came out while this page was open. Load it to carry on.'
+      : isApiError(error)
+        ? (error as Error).message
+        : "Trying again usually helps. If it keeps happening, tell your co-op's coordinator what you were doing.";
 
   return (
     <ProblemPage
@@ -39,8 +60,8 @@ export function RouteError({ standalone = false }: { standalone?: boolean }) {
       standalone={standalone}
       actions={
         <>
-          <Button onClick={() => window.location.reload()}>Reload</Button>
-          <LinkButton to="/">Go to Commons</LinkButton>
+          <Button onClick={() => window.location.reload()}>{isStaleChunk(error) ? 'Load the new version' : 'Try again'}</Button>
+          {commons}
         </>
       }
     >

@@ -5,7 +5,7 @@ const uuidPattern = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{1
 /** A mistyped farm address is a missing page, not a server round trip that fails validation. */
 export function farmIdFrom(params: Params): string {
   const farmId = params.farmId;
-  if (!farmId || !uuidPattern.test(farmId)) throw data('No such farm', { status: 404 });
+  if (!farmId || !uuidPattern.test(farmId)) throw data('That farm was not found', { status: 404 });
   return farmId;
 }
 

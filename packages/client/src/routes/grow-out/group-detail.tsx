@@ -1,4 +1,5 @@
 import { ArrowLeft } from 'lucide-react';
+import { countOf } from '@burrowline/shared';
 import type { LoaderFunctionArgs } from 'react-router-dom';
 import { queryClient } from '../../app/query-client';
 import { Alert } from '../../components/ui/alert';
@@ -43,7 +44,7 @@ export function GroupDetailPage() {
       </LinkButton>
       <PageHeader
         title={group.name}
-        lead={`${group.currentHeads} heads · ${group.ageDays} days old · ${group.crossLabel} · formed ${formatDate(group.formedOn)}${group.housingUnit ? ` · in ${group.housingUnit.name}` : ''}`}
+        lead={`${countOf(group.currentHeads, 'head')} · ${countOf(group.ageDays, 'day')} old · ${group.crossLabel} · formed ${formatDate(group.formedOn)}${group.housingUnit ? ` · in ${group.housingUnit.name}` : ''}`}
         actions={group.status === 'closed' ? <Badge>Closed {group.closedOn ? formatDate(group.closedOn) : ''}</Badge> : <Badge tone="moss">Growing</Badge>}
       />
       {longest && (

@@ -5,7 +5,7 @@ const uuidPattern = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{1
 /** A mistyped animal address is a missing page, not a failing request. */
 export function animalIdFrom(params: Params): string {
   const animalId = params.animalId;
-  if (!animalId || !uuidPattern.test(animalId)) throw data('No such animal', { status: 404 });
+  if (!animalId || !uuidPattern.test(animalId)) throw data('That animal was not found', { status: 404 });
   return animalId;
 }
 

@@ -1,4 +1,5 @@
 import { ArrowLeft, HeartHandshake, Pencil } from 'lucide-react';
+import { formatDate } from '../../lib/days';
 import type { ReactNode } from 'react';
 import type { LoaderFunctionArgs } from 'react-router-dom';
 import { seniorRangeFor, subjectOf, type AnimalDetailDto, type PedigreeCardDto } from '@burrowline/shared';
@@ -164,7 +165,7 @@ function FullRecord({ animal }: { animal: AnimalDetailDto }) {
             {animal.noteLog.map((n) => (
               <li key={n.id} className="rounded-xl bg-grey-50 p-3">
                 <p className="text-sm text-grey-600">
-                  {n.notedOn} · {n.enteredBy.name}{' '}
+                  {formatDate(n.notedOn)} · {n.enteredBy.name}{' '}
                   {n.reviewState !== 'accepted' && <Badge tone={n.reviewState === 'pending' ? 'straw' : 'clay'}>{n.reviewState === 'pending' ? 'Unverified' : 'Returned'}</Badge>}
                 </p>
                 <p className="whitespace-pre-line">{n.body}</p>

@@ -1,6 +1,6 @@
 import { ArrowLeft } from 'lucide-react';
 import { Link, useLocation, type LoaderFunctionArgs } from 'react-router-dom';
-import { addDays } from '@burrowline/shared';
+import { countOf, addDays } from '@burrowline/shared';
 import { queryClient } from '../../app/query-client';
 import { Alert } from '../../components/ui/alert';
 import { Badge } from '../../components/ui/badge';
@@ -53,7 +53,7 @@ export function LitterDetailPage() {
       </LinkButton>
       <PageHeader
         title={title}
-        lead={`By ${animalName(litter.sire)} · kindled ${formatDate(litter.kindledOn)} (served ${formatDate(litter.servicedOn)}) · ${litter.ageDays} days old`}
+        lead={`By ${animalName(litter.sire)} · kindled ${formatDate(litter.kindledOn)} (served ${formatDate(litter.servicedOn)}) · ${countOf(litter.ageDays, 'day')} old`}
         actions={<Badge tone={litter.status === 'nursing' ? 'straw' : 'neutral'}>{litter.status === 'nursing' ? 'With the doe' : 'Weaned'}</Badge>}
       />
       {kindled && <Alert tone="success">Kindling saved. Nest box out, weigh-ins, weaning and breeding back are planned from {formatDate(litter.kindledOn)}.</Alert>}

@@ -1,6 +1,6 @@
 import { ArrowLeft } from 'lucide-react';
 import { useSearchParams } from 'react-router-dom';
-import type { LitterListItemDto } from '@burrowline/shared';
+import { countOf, type LitterListItemDto } from '@burrowline/shared';
 import { queryClient } from '../../app/query-client';
 import { Badge } from '../../components/ui/badge';
 import { RowLink } from '../../components/ui/data-table';
@@ -95,7 +95,7 @@ export function LittersPage() {
                   {animalName(l.dam)}
                 </RowLink>
                 <p className="text-sm text-grey-600">
-                  by {animalName(l.sire)} · kindled {formatDate(l.kindledOn)} · {l.ageDays} days
+                  by {animalName(l.sire)} · kindled {formatDate(l.kindledOn)} · {countOf(l.ageDays, 'day')}
                 </p>
                 <p className="mt-1 flex flex-wrap items-center gap-2">
                   <span>

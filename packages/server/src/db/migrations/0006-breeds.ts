@@ -4,8 +4,9 @@ import type { MigrationFn } from '../migrator';
 /**
  * The breed catalogue: reference data the Herd cannot run without (architecture, "Data"). Catalogue
  * rows have no co-op and are readable by every co-op; an admin may add a breed for their own co-op.
- * Every value carries its source and confidence (reference-values.md: pub / sec / mem / derived /
- * common practice), so nobody mistakes a remembered figure for a published one.
+ * Every value carries the publication it comes from and a confidence (pub: read in it; sec: quoted
+ * second-hand; mem: remembered, to verify; derived; common practice), so nobody mistakes a remembered
+ * figure for a published one.
  */
 
 type Confidence = 'pub' | 'sec' | 'mem' | 'derived' | 'common_practice';

@@ -127,7 +127,7 @@ export async function recordService(actor: SessionUser, input: ServiceCreateInpu
     const buck = facts.get(input.buckId);
     const errors: FieldMessages = {};
     const onFarm = (a: AnimalFacts | undefined, field: string, what: string) => {
-      if (!a || a.isOutside) addMessage(errors, field, `No such ${what} in your herd`);
+      if (!a || a.isOutside) addMessage(errors, field, `That ${what} is not in your herd: choose one from the list`);
       else if (a.keepingFarmId !== farmId) addMessage(errors, field, `${a.name || a.tattoo} is not kept on your farm`);
       else if (a.disposition !== 'on_farm') addMessage(errors, field, `${a.name || a.tattoo} is no longer on a farm`);
     };
@@ -286,7 +286,7 @@ export async function closeService(actor: SessionUser, serviceId: string, input:
  */
 export async function serviceForKindling(tx: Transaction, actor: SessionUser, serviceId: string): Promise<ServiceFacts> {
   const service = await ServiceRecord.findOne({ where: { id: serviceId, coopId: actor.coopId }, transaction: tx, lock: tx.LOCK.UPDATE });
-  if (!service || service.farmId !== actor.farmId) throw AppError.validation({ serviceId: ['No such service on your farm'] });
+  if (!service || service.farmId !== actor.farmId) throw AppError.validation({ serviceId: ["That service is not on your farm's record: choose one of your does' open services"] });
   if (service.status === 'kindled') throw AppError.validation({ serviceId: ['That service already has its litter'] });
   return { id: service.id, coopId: service.coopId, farmId: service.farmId, doeId: service.doeId, buckId: service.buckId, servicedOn: service.servicedOn, status: service.status };
 }

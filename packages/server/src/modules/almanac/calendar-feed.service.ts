@@ -1,7 +1,7 @@
 import { randomBytes } from 'node:crypto';
 import ical, { ICalCalendarMethod } from 'ical-generator';
 import { Op, type Transaction } from 'sequelize';
-import { addDays, defineAbilityFor, ErrorCode, subjectOf, TASK_KIND_LABELS, type AbilityUser, type CalendarFeedDto } from '@burrowline/shared';
+import { countOf, addDays, defineAbilityFor, ErrorCode, subjectOf, TASK_KIND_LABELS, type AbilityUser, type CalendarFeedDto } from '@burrowline/shared';
 import { lockUntilCommit } from '../../db/advisory-lock';
 import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../lib/session-user';
@@ -135,7 +135,7 @@ export async function calendarFeedFor(token: string, opts: { appUrl: string; now
       const lines = [
         task.windowStart && task.kind === 'kindling_due' ? `Kindling window ${task.windowStart} to ${task.windowEnd}.` : null,
         task.kind === 'quarantine_end' && task.windowStart ? `In quarantine from ${task.windowStart}; isolated from the herd until this day.` : null,
-        task.ageDays ? `Litter age ${task.ageDays} days.` : null,
+        task.ageDays ? `Litter age ${countOf(task.ageDays, 'day')}.` : null,
         `Planned from the ${task.anchor === 'palpation' ? 'empty palpation' : task.anchor} of ${task.anchorDate}.`,
         task.state === 'moved' ? `Moved from ${task.movedFrom}.` : null,
         task.state === 'done' ? `Done on ${task.doneOn}.` : null,

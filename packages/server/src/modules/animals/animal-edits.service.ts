@@ -1,6 +1,6 @@
 import type { Transaction } from 'sequelize';
 import {
-  daysBetween, ErrorCode, type AnimalCreateInput, type AnimalDetailDto, type AnimalUpdateInput, type Lifecycle, type Sex,
+  countOf,  daysBetween, ErrorCode, type AnimalCreateInput, type AnimalDetailDto, type AnimalUpdateInput, type Lifecycle, type Sex,
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../lib/session-user';
@@ -84,6 +84,7 @@ export async function createAnimal(actor: SessionUser, input: AnimalCreateInput)
         ctx,
         today: ctx.today,
         fieldFor: { sire: input.sireFromPapers ? 'sireFromPapers' : 'sireId', dam: input.damFromPapers ? 'damFromPapers' : 'damId' },
+        kitOfFarm: farmId,
       },
     );
     mergeMessages(errors, check.errors);
@@ -193,7 +194,7 @@ export async function updateAnimal(actor: SessionUser, animalId: string, input: 
     if (changes.sex) {
       const role = animal.sex === 'buck' ? 'sire' : 'dam';
       const [{ count }] = (await query<{ count: string }>(tx, `SELECT count(*) FROM animals WHERE coop_id = $1 AND deleted_at IS NULL AND ${role}_id = $2`, [actor.coopId, animal.id])) as [{ count: string }];
-      if (Number(count) > 0) (errors.sex ??= []).push(`This animal is recorded as the ${role} of ${count} animal(s); its sex cannot change`);
+      if (Number(count) > 0) (errors.sex ??= []).push(`This animal is recorded as the ${role} of ${countOf(Number(count), 'animal')}; its sex cannot change`);
     }
     if (changes.birthDate) {
       const [early] = await query<{ name: string; tattoo: string | null; birth_date: string }>(
@@ -218,6 +219,8 @@ export async function updateAnimal(actor: SessionUser, animalId: string, input: 
           today: ctx.today,
           pedigree: await loadPedigreeRows(actor.coopId, tx),
           fieldFor: { sire: input.sireFromPapers ? 'sireFromPapers' : 'sireId', dam: input.damFromPapers ? 'damFromPapers' : 'damId' },
+          // An older record whose dam and date stay as they were is not refused for an unrelated edit.
+          ...(('damId' in changes || 'birthDate' in changes) && animal.keepingFarmId ? { kitOfFarm: animal.keepingFarmId } : {}),
         },
       );
       // Only parents that changed (or whose relation to a changed date changed) are warned about again.

@@ -1,5 +1,6 @@
 import type { Transaction } from 'sequelize';
-import { findPedigreeCycle, youngParentAt, type BreedDto, type Sex } from '@burrowline/shared';
+import { countOf, findPedigreeCycle, kitBirthDateProblem, youngParentAt, type BreedDto, type Sex } from '@burrowline/shared';
+import { port } from '../../lib/port';
 import { query, selectAnimalsByIds, type AnimalRow } from './animal-queries';
 import { labelOf, standardBreedOf, type PresentContext } from './animals.presenter';
 import type { PedigreeRow } from './pedigree-figures';
@@ -15,6 +16,12 @@ export interface PedigreeCandidate {
   damId: string | null;
 }
 
+/**
+ * The days each dam kindled on a farm's record. Litters build on the herd, so the composition root
+ * plugs the litters' reading in here.
+ */
+export const damKindlingDays = port<(tx: Transaction, coopId: string, farmId: string, damIds: string[]) => Promise<Map<string, string[]>>>('damKindlingDays');
+
 interface CheckOptions {
   ctx: PresentContext;
   /** The co-op's pedigree, for the cycle check of an existing animal. */
@@ -22,6 +29,8 @@ interface CheckOptions {
   /** Which fields to name in messages (an inline parent from papers reports under its own key). */
   fieldFor?: { sire?: string; dam?: string };
   today: string;
+  /** The farm whose litters the kit's birth date must match (left out when neither dam nor date changed). */
+  kitOfFarm?: string;
 }
 
 /**
@@ -33,7 +42,7 @@ export async function checkPedigree(
   tx: Transaction,
   coopId: string,
   candidate: PedigreeCandidate,
-  { ctx, pedigree, fieldFor = {}, today }: CheckOptions,
+  { ctx, pedigree, fieldFor = {}, today, kitOfFarm }: CheckOptions,
 ): Promise<{ errors: FieldMessages; warnings: FieldMessages }> {
   const errors: FieldMessages = {};
   const warnings: FieldMessages = {};
@@ -52,7 +61,7 @@ export async function checkPedigree(
     const field = fieldFor[role] ?? `${role}Id`;
     const parent = parents.get(parentId);
     if (!parent) {
-      addMessage(errors, field, `No such animal in the co-op to be the ${role}`);
+      addMessage(errors, field, `That ${role} is not in the co-op's records: choose one from the list, or enter it from papers`);
       continue;
     }
     if (parentId === candidate.id) {
@@ -71,11 +80,19 @@ export async function checkPedigree(
         addMessage(
           warnings,
           field,
-          `${labelOf(parent)} was ${young.ageDays} days old at this birth, younger than the usual first-breeding age of ` +
+          `${labelOf(parent)} was ${countOf(young.ageDays, 'day')} old at this birth, younger than the usual first-breeding age of ` +
             `${young.minimumDays} days for its breed. Save anyway if that is right.`,
         );
       }
     }
+  }
+
+  const dam = candidate.damId ? parents.get(candidate.damId) : undefined;
+  const damField = fieldFor.dam ?? 'damId';
+  if (kitOfFarm && dam && dam.sex === 'doe' && candidate.birthDate && !errors[damField] && !errors.birthDate) {
+    const kindledOn = (await damKindlingDays(tx, coopId, kitOfFarm, [dam.id])).get(dam.id) ?? [];
+    const problem = kitBirthDateProblem(candidate.birthDate, { label: labelOf(dam), kindledOn });
+    if (problem) addMessage(errors, 'birthDate', problem);
   }
 
   if (candidate.id && pedigree && parentIds.length > 0 && !errors.sireId && !errors.damId) {

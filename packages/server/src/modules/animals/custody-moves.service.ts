@@ -57,7 +57,7 @@ export async function applyCustodyMove(tx: Transaction, actor: SessionUser, anim
   const from = animal.keepingFarmId!;
   const to = input.kind === 'returned' ? animal.owningFarmId! : input.toFarmId!;
   if (animal.disposition !== 'on_farm') errors.kind = ['It is no longer on a farm'];
-  if (input.kind !== 'returned' && !ctx.farms.has(to)) errors.toFarmId = ['No such farm in the co-op'];
+  if (input.kind !== 'returned' && !ctx.farms.has(to)) errors.toFarmId = ['That farm is not in your co-op: choose one from the list'];
   if (input.kind !== 'returned' && to === animal.owningFarmId) errors.toFarmId = ['It already belongs to that farm'];
   if (input.kind !== 'returned' && animal.keepingFarmId !== animal.owningFarmId) errors.kind = ['It is on loan elsewhere; record its return first'];
   if (input.kind === 'returned' && animal.keepingFarmId === animal.owningFarmId) errors.kind = ['It is already at home'];

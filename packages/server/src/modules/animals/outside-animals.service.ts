@@ -152,7 +152,7 @@ export async function mergeOutsideAnimal(actor: SessionUser, duplicateId: string
     if (!duplicate) throw AppError.notFound('That outside animal');
     ForbiddenError.from(defineAbilityFor(actor)).throwUnlessCan('merge', subjectOf('OutsideAnimal', { coopId: duplicate.coopId }));
     const into = intoId === duplicateId ? null : await Animal.findOne({ where: { id: intoId, coopId: actor.coopId }, transaction: tx, lock: tx.LOCK.UPDATE });
-    if (!into) throw AppError.validation({ intoId: [intoId === duplicateId ? 'Choose a different record to keep' : 'No such animal in the co-op'] });
+    if (!into) throw AppError.validation({ intoId: [intoId === duplicateId ? 'Choose a different record to keep' : "That record is not in the co-op's records: choose one from the list"] });
     if (into.sex !== duplicate.sex) throw AppError.validation({ intoId: [`One is a ${duplicate.sex}, the other a ${into.sex}: not the same animal`] });
 
     const pedigree = await loadPedigreeRows(actor.coopId, tx);

@@ -121,11 +121,11 @@ export async function trialMatings(actor: SessionUser, input: TrialMatingInput):
     const rows = new Map((await selectAnimalsByIds(tx, actor.coopId, [input.damId, ...sireIds])).map((r) => [r.id, r]));
     const errors: FieldMessages = {};
     const dam = rows.get(input.damId);
-    if (!dam) errors.damId = ['No such doe in the co-op'];
+    if (!dam) errors.damId = ["That doe is not in the co-op's records: choose one from the list"];
     else if (dam.sex !== 'doe') errors.damId = [`${labelOf(dam)} is a buck; choose a doe`];
     input.sireIds.forEach((id, i) => {
       const sire = rows.get(id);
-      if (!sire) errors[`sireIds.${i}`] = ['No such buck in the co-op'];
+      if (!sire) errors[`sireIds.${i}`] = ["That buck is not in the co-op's records: choose one from the list"];
       else if (sire.sex !== 'buck') errors[`sireIds.${i}`] = [`${labelOf(sire)} is a doe; choose a buck`];
     });
     if (Object.keys(errors).length > 0 || !dam) throw AppError.validation(errors);

@@ -1,6 +1,6 @@
 import { Op, type Transaction } from 'sequelize';
 import {
-  averageWeightByAge, checkWeightForAge, crossLabel, daysBetween, defineAbilityFor, EARLIEST_GROW_OUT_AGE_DAYS, readinessWords, readyBy, RealtimeEvent, rooms, subjectOf, type GroupWeighInCreateInput, type GrowOutGroupCloseInput, type GrowOutGroupCreateInput, type GrowOutGroupDto, type GrowOutListDto, type GrowOutListQuery, type LitterChoiceDto,
+  countOf,  averageWeightByAge, checkWeightForAge, crossLabel, daysBetween, defineAbilityFor, EARLIEST_GROW_OUT_AGE_DAYS, readinessWords, readyBy, RealtimeEvent, rooms, subjectOf, type GroupWeighInCreateInput, type GrowOutGroupCloseInput, type GrowOutGroupCreateInput, type GrowOutGroupDto, type GrowOutListDto, type GrowOutListQuery, type LitterChoiceDto,
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../lib/session-user';
@@ -186,7 +186,7 @@ export async function formGroupIn(tx: Transaction, actor: SessionUser, input: Gr
       const age = daysBetween(l.kindledOn, input.formedOn);
       const weanedBy = l.weanedOn !== null && l.weanedOn <= input.formedOn;
       if (!weanedBy && age < EARLIEST_GROW_OUT_AGE_DAYS) {
-        add(field, `The kits kindled on ${l.kindledOn} are ${age} days old on ${input.formedOn}: put kits in a group at weaning, from ${EARLIEST_GROW_OUT_AGE_DAYS} days`);
+        add(field, `The kits kindled on ${l.kindledOn} are ${countOf(age, 'day')} old on ${input.formedOn}: put kits in a group at weaning, from ${EARLIEST_GROW_OUT_AGE_DAYS} days`);
       }
       const free = l.alive - (used.get(l.id) ?? 0);
       if (entry.heads > free) {

@@ -1,5 +1,6 @@
 import { createHash } from 'node:crypto';
-import { parse, CsvError } from 'csv-parse/sync';
+import { Worker } from 'node:worker_threads';
+import { parse, CsvError, type Options } from 'csv-parse/sync';
 import { fileTypeFromBuffer } from 'file-type';
 import { ErrorCode, type ImportRecord } from '@burrowline/shared';
 import { AppError } from '../../lib/app-error';
@@ -19,6 +20,39 @@ function refuse(message: string, status = 400, code: (typeof ErrorCode)[keyof ty
 
 function startsWith(buffer: Buffer, bytes: number[]): boolean {
   return bytes.every((byte, i) => buffer[i] === byte);
+}
+
+type ParsedRow = { record: string[]; raw: string; info: { lines: number } };
+
+/** Files from this size on are parsed in a worker thread: a 20,000-row file held the event loop over a second. */
+export const OFF_THREAD_BYTES = 256 * 1024;
+
+/** A CSV syntax error reported by the worker (the parser's own error class does not cross threads). */
+class CsvSyntaxError extends Error {
+  constructor(readonly code: string, message: string, readonly lines: number | undefined) {
+    super(message);
+  }
+}
+
+/**
+ * Parses CSV text, in a worker thread when it is large so other requests are answered meanwhile; small
+ * files are parsed here, where starting a thread would cost more than the parse. Says which thread did it.
+ */
+export async function parseCsv(text: string, options: Options): Promise<{ rows: ParsedRow[]; threadId: number }> {
+  if (text.length < OFF_THREAD_BYTES) return { rows: parse(text, options) as unknown as ParsedRow[], threadId: 0 };
+  const worker = new Worker(new URL('./csv-parse-worker.mjs', import.meta.url), { workerData: { text, options } });
+  try {
+    const answer = await new Promise<{ rows?: ParsedRow[]; csvError?: { code: string; message: string; lines?: number }; failure?: string; threadId: number }>((resolve, reject) => {
+      worker.once('message', resolve);
+      worker.once('error', reject);
+      worker.once('exit', (code) => reject(new Error(`The CSV worker stopped (exit code ${code}) before answering`)));
+    });
+    if (answer.csvError) throw new CsvSyntaxError(answer.csvError.code, answer.csvError.message, answer.csvError.lines);
+    if (answer.failure !== undefined || !answer.rows) throw new Error(`The CSV worker failed: ${answer.failure ?? 'no rows'}`);
+    return { rows: answer.rows, threadId: answer.threadId };
+  } finally {
+    await worker.terminate();
+  }
 }
 
 /**
@@ -58,20 +92,12 @@ export async function readHerdCsv(buffer: Buffer, opts: { maxRows: number }): Pr
   const firstLine = text.slice(0, text.search(/\n|$/));
   const delimiter = !firstLine.includes(',') && firstLine.includes(';') ? ';' : firstLine.includes(',') ? ',' : firstLine.includes('\t') ? '\t' : ',';
 
-  let parsed: { record: string[]; raw: string; info: { lines: number } }[];
+  let parsed: ParsedRow[];
   try {
-    parsed = parse(text, {
-      bom: true,
-      delimiter,
-      info: true,
-      raw: true,
-      relax_column_count: true,
-      skip_empty_lines: true,
-      trim: true,
-    }) as unknown as typeof parsed;
+    parsed = (await parseCsv(text, { bom: true, delimiter, info: true, raw: true, relax_column_count: true, skip_empty_lines: true, trim: true })).rows;
   } catch (error) {
-    if (error instanceof CsvError) {
-      const line = (error as CsvError & { lines?: number }).lines;
+    if (error instanceof CsvError || error instanceof CsvSyntaxError) {
+      const line = (error as { lines?: number }).lines;
       const where = line ? ` near line ${line}` : '';
       const what = error.code === 'CSV_QUOTE_NOT_CLOSED' ? 'a quoted cell is never closed' : 'a quote is misplaced';
       throw refuse(`The file is not valid CSV${where}: ${what}. Check the quotes (") in that line, or save the file again from your spreadsheet as CSV.`);

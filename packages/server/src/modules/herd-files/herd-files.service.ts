@@ -3,7 +3,7 @@ import path from 'node:path';
 import { setImmediate as yieldToEventLoop } from 'node:timers/promises';
 import { Op, type Transaction } from 'sequelize';
 import {
-  createImportChecker, defineAbilityFor, ErrorCode, headerProblem, mapImportHeader, subjectOf, todayIn, type HerdExportQuery, type HerdImportConfirmInput, type HerdImportDto, type HerdImportProgressDto, type HerdImportRowsQuery, type ImportCheckResult,
+  countOf,  createImportChecker, defineAbilityFor, ErrorCode, headerProblem, mapImportHeader, subjectOf, todayIn, type HerdExportQuery, type HerdImportConfirmInput, type HerdImportDto, type HerdImportProgressDto, type HerdImportRowsQuery, type ImportCheckResult,
 } from '@burrowline/shared';
 import { lockUntilCommit } from '../../db/advisory-lock';
 import { withTenant } from '../../db/tenant';
@@ -19,6 +19,7 @@ import { getCoop } from '../coops/coops.service';
 import { farmDirectoryOf } from '../farms/farms.service';
 import { ensureCan, farmOf } from '../farms/farm-access';
 import { DEFAULT_FARM_TIME_ZONE, farmTodayIn } from '../farms/farm-clock';
+import { kindlingDaysOfDams } from '../litters/litter-facts.service';
 import { namesOf } from '../users/users.service';
 import { readHerdCsv } from './csv-reading';
 import { herdCsv } from './herd-export';
@@ -81,6 +82,7 @@ async function checkFile(
     weightUnit: farm?.weightUnit ?? 'lb_oz',
     herd,
     breeds,
+    kindlingDaysByDam: await kindlingDaysOfDams(tx, actor.coopId, farmId),
     idFor: opts.idFor,
   });
   if (checker.total === 0) {
@@ -194,7 +196,7 @@ export async function confirmHerdImport(actor: SessionUser, importId: string, in
     }
     if (row.summary.withErrors > 0) {
       throw AppError.validation(
-        { file: [`${row.summary.withErrors} row(s) have errors`] },
+        { file: [`${row.summary.withErrors === 1 ? '1 row has' : `${countOf(row.summary.withErrors, 'row')} have`} errors`] },
         'Some rows have errors: fix them in your spreadsheet and upload the file again',
       );
     }

@@ -90,3 +90,16 @@ export async function placementsDuring(
   });
   return rows.map((p) => ({ unitId: p.unitId, litterId: p.litterId, animalId: p.animalId, placedOn: p.placedOn, endedOn: p.endedOn }));
 }
+
+/**
+ * The days each dam kindled on the farm's record (its own litters only: another farm's litters are
+ * private to it), for checking a kit's birth date. All the farm's dams when `damIds` is left out.
+ */
+export async function kindlingDaysOfDams(tx: Transaction, coopId: string, farmId: string, damIds?: string[]): Promise<Map<string, string[]>> {
+  if (damIds && damIds.length === 0) return new Map();
+  const where = { coopId, farmId, ...(damIds ? { damId: { [Op.in]: [...new Set(damIds)] } } : {}) };
+  const litters = await Litter.findAll({ where, attributes: ['damId', 'kindledOn'], order: [['kindledOn', 'ASC']], transaction: tx, raw: true });
+  const days = new Map<string, string[]>();
+  for (const l of litters) days.set(l.damId, [...(days.get(l.damId) ?? []), l.kindledOn]);
+  return days;
+}

@@ -245,7 +245,7 @@ export async function recordFostering(actor: SessionUser, litterId: string, inpu
     const clock = await farmClockOf(tx, actor.coopId, here.farmId);
     const errors: FieldMessages = {};
     const other = await Litter.findOne({ where: { id: input.otherLitterId, coopId: actor.coopId }, transaction: tx });
-    if (!other) addMessage(errors, 'otherLitterId', 'No such litter in the co-op');
+    if (!other) addMessage(errors, 'otherLitterId', "That litter is not in the co-op's records: choose one from the list");
     else if (other.id === here.id) addMessage(errors, 'otherLitterId', 'The other litter is this litter');
     else if (other.farmId !== here.farmId && input.direction === 'in') {
       addMessage(errors, 'direction', "Kits from another farm's litter are recorded by that farm, as fostered out; they then show here");

@@ -3,6 +3,7 @@ import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { useCalendarFeed } from '../api/get-calendar-feed';
 import { useRenewCalendarFeed, useRevokeCalendarFeed } from '../api/renew-calendar-feed';
+import { formatInstantDate } from '../../../lib/dates';
 import { errorText } from '../../../lib/form-errors';
 
 /** The farm's secret calendar address for a phone calendar; shown once when made, renewable. */
@@ -43,7 +44,7 @@ export function CalendarFeedPanel({ canManage }: { canManage: boolean }) {
         </div>
       )}
       <p className="text-sm text-grey-600">
-        {feed.data?.active ? `A feed address is in use (made ${new Date(feed.data.createdAt!).toLocaleDateString()}).` : 'No feed address yet.'}
+        {feed.data?.active ? `A feed address is in use (made ${formatInstantDate(feed.data.createdAt!)}).` : 'No feed address yet.'}
       </p>
       <div className="flex flex-wrap gap-3">
         <Button onClick={() => renew.mutate()} isBusy={renew.isPending}>

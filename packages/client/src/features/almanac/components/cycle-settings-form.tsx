@@ -1,24 +1,40 @@
+import { useEffect } from 'react';
 import { useForm } from 'react-hook-form';
 import {
   cycleSettingsSchema,
   ErrorCode,
+  CYCLE_SETTING_LIMITS,
   formatWeight,
+  gramsToWeightInput,
   outsidePublishedRange,
+  weightInputToGrams,
   type CycleSettings,
   type CycleSettingsDto,
   type CycleSettingSource,
+  type WeightUnit,
 } from '@burrowline/shared';
+import type { Path } from 'react-hook-form';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/text-field';
+import { WeightInput } from '../../../components/ui/weight-input';
 import { isApiError } from '../../../lib/api-client';
 import { sharedSchemaResolver } from '../../../lib/shared-schema-resolver';
 import { useServerSubmit } from '../../../lib/use-server-submit';
 import { useUpdateCycleSettings } from '../api/update-cycle-settings';
 
-type NumberKey = Exclude<keyof CycleSettings, 'weighInAgesDays'>;
-/** Every setting as typed: numbers as text, the weigh-in ages as one line. */
-type CycleSettingsValues = Record<keyof CycleSettings, string>;
+type NumberKey = Exclude<keyof CycleSettings, 'weighInAgesDays' | 'targetLiveWeightGrams'>;
+/** Every setting as typed: numbers as text, the weigh-in ages as one line, the target weight in the farm's two units. */
+type CycleSettingsValues = Record<NumberKey | 'weighInAgesDays' | 'targetMajor' | 'targetMinor', string>;
+
+const unitWords: Record<WeightUnit, string> = { lb_oz: 'pounds and ounces', kg_g: 'kilograms and grams' };
+
+/** The server's messages for the stored grams go under the weight the breeder typed. */
+const fieldOf = (path: string): Path<CycleSettingsValues> | null => {
+  const top = path.split('.')[0]!;
+  if (top === 'targetLiveWeightGrams') return 'targetMajor';
+  return top === 'weighInAgesDays' || fields.some((f) => f.key === top) ? (top as Path<CycleSettingsValues>) : null;
+};
 
 /** The source as a sentence, marking a fact of the trade with no published source as common practice. */
 function sourceText(source: CycleSettingSource): string {
@@ -38,36 +54,63 @@ const fields: { key: NumberKey; label: string; unit: string }[] = [
   { key: 'weaningDays', label: 'Weaning', unit: 'days after kindling' },
   { key: 'breedBackDays', label: 'Breeding back', unit: 'days after kindling' },
   { key: 'rebreedAfterNegativeDays', label: 'Rebreed', unit: 'days after an empty palpation' },
-  { key: 'targetLiveWeightGrams', label: 'Target fryer live weight', unit: 'grams' },
 ];
 
+function valuesOf(current: CycleSettingsDto, unit: WeightUnit): CycleSettingsValues {
+  const target = gramsToWeightInput(current.settings.targetLiveWeightGrams, unit);
+  return {
+    ...(Object.fromEntries(fields.map((f) => [f.key, String(current.settings[f.key])])) as Record<NumberKey, string>),
+    weighInAgesDays: current.settings.weighInAgesDays.join(', '),
+    targetMajor: target.major,
+    targetMinor: target.minor,
+  };
+}
+
 /** The farm's own cycle, each default with its published range and source; saving re-plans open tasks only. */
-export function CycleSettingsForm({ current, canEdit }: { current: CycleSettingsDto; canEdit: boolean }) {
+export function CycleSettingsForm({ current, canEdit, unit }: { current: CycleSettingsDto; canEdit: boolean; unit: WeightUnit }) {
   const save = useUpdateCycleSettings();
+  const limits = CYCLE_SETTING_LIMITS.targetLiveWeightGrams;
   const form = useForm<CycleSettingsValues, unknown, CycleSettings>({
     // The whole set is checked, as the server checks the stored settings merged with the change.
-    resolver: sharedSchemaResolver(cycleSettingsSchema, (v) => ({
-      ...(Object.fromEntries(fields.map((f) => [f.key, v[f.key] === '' ? NaN : Number(v[f.key])])) as Record<NumberKey, number>),
-      weighInAgesDays: v.weighInAgesDays.split(/[,\s]+/).filter(Boolean).map(Number),
-    })),
-    defaultValues: {
-      ...(Object.fromEntries(fields.map((f) => [f.key, String(current.settings[f.key])])) as Record<NumberKey, string>),
-      weighInAgesDays: current.settings.weighInAgesDays.join(', '),
-    },
+    resolver: sharedSchemaResolver(
+      cycleSettingsSchema,
+      (v, refuse) => {
+        // Typed in the farm's units, stored in whole grams; the limits are said in the same units.
+        const grams = weightInputToGrams(v.targetMajor, v.targetMinor, unit);
+        if (grams === null) refuse('targetMajor', `Target live weight: enter it in ${unitWords[unit]}`);
+        else if (grams < limits.min || grams > limits.max) {
+          refuse('targetMajor', `Target live weight: between ${formatWeight(limits.min, unit)} and ${formatWeight(limits.max, unit)}`);
+        }
+        return {
+          ...(Object.fromEntries(fields.map((f) => [f.key, v[f.key] === '' ? NaN : Number(v[f.key])])) as Record<NumberKey, number>),
+          weighInAgesDays: v.weighInAgesDays.split(/[,\s]+/).filter(Boolean).map(Number),
+          targetLiveWeightGrams: grams ?? NaN,
+        };
+      },
+      fieldOf,
+    ),
+    defaultValues: valuesOf(current, unit),
   });
+  // A newer version (this save, or someone else's) becomes the starting point; the save's message stays.
+  useEffect(() => form.reset(valuesOf(current, unit)), [current, unit, form]);
   const { errors } = form.formState;
   // Only what changed is sent, with the version this screen showed.
   const sendChanges = {
     mutate: (settings: CycleSettings, options?: Parameters<typeof save.mutate>[1]) => {
       const patch: Record<string, unknown> = { version: current.version };
       for (const f of fields) if (settings[f.key] !== current.settings[f.key]) patch[f.key] = settings[f.key];
+      if (settings.targetLiveWeightGrams !== current.settings.targetLiveWeightGrams) patch.targetLiveWeightGrams = settings.targetLiveWeightGrams;
       if (settings.weighInAgesDays.join(',') !== current.settings.weighInAgesDays.join(',')) patch.weighInAgesDays = settings.weighInAgesDays;
       save.mutate(patch as Parameters<typeof save.mutate>[0], options);
     },
     reset: save.reset,
     error: save.error,
   };
-  const { submit } = useServerSubmit(form, sendChanges);
+  const { submit } = useServerSubmit(form, sendChanges, { fields: fieldOf });
+  const [major, minor] = form.watch(['targetMajor', 'targetMinor']);
+  const targetGrams = weightInputToGrams(major, minor, unit);
+  const targetRange = targetGrams !== null ? outsidePublishedRange('targetLiveWeightGrams', targetGrams) : null;
+  const targetSource = current.sources.targetLiveWeightGrams;
   return (
     <form noValidate className="space-y-5" onSubmit={submit}>
       {save.isSuccess && (
@@ -94,7 +137,6 @@ export function CycleSettingsForm({ current, canEdit }: { current: CycleSettings
               hint={
                 <>
                   Published: {source.publishedText}. Source: {sourceText(source)}
-                  {f.key === 'targetLiveWeightGrams' && Number.isFinite(value) ? ` ${formatWeight(value, 'lb_oz')} (${formatWeight(value, 'kg_g')}).` : ''}
                   {range === 'below' || range === 'above' ? <strong className="block text-clay-deep">Outside the published range: fine if you know your herd.</strong> : null}
                 </>
               }
@@ -102,6 +144,19 @@ export function CycleSettingsForm({ current, canEdit }: { current: CycleSettings
             />
           );
         })}
+        <div className="space-y-1">
+          <WeightInput
+            label="Target fryer live weight"
+            unit={unit}
+            error={errors.targetMajor?.message}
+            hint={`Published: ${targetSource.publishedText}${unit === 'kg_g' && targetSource.published ? ` (${formatWeight(targetSource.published.min, unit)} to ${formatWeight(targetSource.published.max, unit)})` : ''}. Source: ${sourceText(targetSource)}`}
+            majorProps={{ disabled: !canEdit, ...form.register('targetMajor') }}
+            minorProps={{ disabled: !canEdit, ...form.register('targetMinor') }}
+          />
+          {(targetRange === 'below' || targetRange === 'above') && (
+            <p className="text-sm font-bold text-clay-deep">Outside the published range: fine if you know your herd.</p>
+          )}
+        </div>
         <TextField
           label="Weigh-in ages (days, youngest first)"
           disabled={!canEdit}

@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { Check, ChevronDown, ChevronUp, RotateCcw } from 'lucide-react';
 import { Link } from 'react-router-dom';
-import { taskUpdateSchema, type AlmanacTaskDto, type TaskUpdateInput } from '@burrowline/shared';
+import { countOf, taskUpdateSchema, type AlmanacTaskDto, type TaskUpdateInput } from '@burrowline/shared';
 import { Badge } from '../../../components/ui/badge';
 import { Button } from '../../../components/ui/button';
 import { cn } from '../../../lib/cn';
@@ -70,7 +70,7 @@ export function TaskItem({ task, selected, onSelect, showDate = false, showSourc
               </span>
             )}
             {task.kind === 'quarantine_end' && task.windowStart && <span>isolated from {formatDate(task.windowStart)}</span>}
-            {task.ageDays !== null && <span>kits {task.ageDays} days old</span>}
+            {task.ageDays !== null && <span>kits {countOf(task.ageDays, 'day')} old</span>}
             {task.state === 'moved' && task.movedFrom && <span>moved from {formatDate(task.movedFrom)}</span>}
             {task.state === 'done' && task.doneOn && (
               <span>

@@ -1,6 +1,6 @@
 import { useForm, type Path } from 'react-hook-form';
 import { useNavigate } from 'react-router-dom';
-import { gramsToWeightInput, growOutGroupCreateSchema, weightInputToGrams, type GrowOutGroupCreateBody, type WeightUnit } from '@burrowline/shared';
+import { countOf, gramsToWeightInput, growOutGroupCreateSchema, weightInputToGrams, type GrowOutGroupCreateBody, type WeightUnit } from '@burrowline/shared';
 import { useFarmToday } from '../../farms';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
@@ -97,7 +97,7 @@ export function FormGroupForm({ unit, defaultTargetGrams }: { unit: WeightUnit; 
                 <TextField
                   label={`Kits from ${l.dam.name}'s litter`}
                   inputMode="numeric"
-                  hint={`Kindled ${formatDate(l.kindledOn)} (${l.ageDays} days) by ${l.sire.name} · ${l.crossLabel} · ${l.available} of ${l.alive} alive free${l.weaned ? ' · weaned' : ''}`}
+                  hint={`Kindled ${formatDate(l.kindledOn)} (${countOf(l.ageDays, 'day')}) by ${l.sire.name} · ${l.crossLabel} · ${l.available} of ${l.alive} alive free${l.weaned ? ' · weaned' : ''}`}
                   error={errors.heads?.[index]?.count?.message}
                   {...form.register(`heads.${index}.count`)}
                 />

@@ -1,6 +1,6 @@
 import { useForm, type Path } from 'react-hook-form';
 import {
-  groupWeighInCreateSchema,
+  countOf,  groupWeighInCreateSchema,
   growOutGroupCloseSchema,
   weightInputToGrams,
   type GroupWeighInCreateBody,
@@ -40,7 +40,7 @@ export function WeighInSchedule({ group }: { group: GrowOutGroupDto }) {
       <ul className="mt-1 flex flex-wrap gap-2" aria-label="The farm's weigh-in ages">
         {group.weighInSchedule.map((a) => (
           <li key={a.ageDays} className="rounded-lg border border-grey-200 px-2 py-1 text-sm">
-            {a.ageDays} days · {formatDate(a.on)}{' '}
+            {countOf(a.ageDays, 'day')} · {formatDate(a.on)}{' '}
             <Badge tone={scheduleWords[a.state].tone}>
               {scheduleWords[a.state].word}
               {a.weighedOn && a.weighedOn !== a.on ? ` ${formatDate(a.weighedOn)}` : ''}
@@ -231,7 +231,7 @@ export function GainsPanel({ group, unit }: { group: GrowOutGroupDto; unit: Weig
       <h2 id="gain-heading" className="text-lg font-semibold">Daily gain</h2>
       <p>
         Overall: <strong>{gainPerDay(group.gain.gramsPerDay, unit)}</strong>
-        {group.gain.fromOn && group.gain.toOn && group.gain.days > 0 && <span className="text-grey-600"> over {group.gain.days} days</span>}
+        {group.gain.fromOn && group.gain.toOn && group.gain.days > 0 && <span className="text-grey-600"> over {countOf(group.gain.days, 'day')}</span>}
       </p>
       {group.gain.periods.length > 0 && (
         <ul className="text-sm">

@@ -1,6 +1,6 @@
 import { createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
 import { useState } from 'react';
-import type { GrowOutGroupListItemDto, ReadyByDto, WeightUnit } from '@burrowline/shared';
+import { countOf, type GrowOutGroupListItemDto, type ReadyByDto, type WeightUnit } from '@burrowline/shared';
 import { Badge } from '../../../components/ui/badge';
 import { DataTable, RowLink } from '../../../components/ui/data-table';
 import { formatDate } from '../../../lib/days';
@@ -65,7 +65,7 @@ export function GroupsTable({ groups, unit, readyBy }: { groups: GrowOutGroupLis
               {g.name}
             </RowLink>
             <p className="text-sm text-grey-700">
-              {g.currentHeads} heads · {g.ageDays} days · {g.crossLabel}
+              {countOf(g.currentHeads, 'head')} · {countOf(g.ageDays, 'day')} · {g.crossLabel}
             </p>
             <p>
               Latest {g.latest ? weight(g.latest.gramsPerHead, unit) : '—'} · gain {gainPerDay(g.gramsPerDay, unit)}

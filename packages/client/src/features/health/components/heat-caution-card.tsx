@@ -1,4 +1,4 @@
-import { formatTemperature, type HeatCautionDto, type TemperatureUnit } from '@burrowline/shared';
+import { countOf, formatTemperature, type HeatCautionDto, type TemperatureUnit } from '@burrowline/shared';
 import { ThermometerSun } from 'lucide-react';
 import { animalName } from '../../../lib/names';
 import { formatDate } from '../../../lib/days';
@@ -38,7 +38,7 @@ export function HeatCautionCard({ heat, unit }: { heat: HeatCautionDto; unit: Te
             ))}
             {heat.youngLitters.map((l) => (
               <li key={l.litterId}>
-                <strong>{animalName(l.dam)}'s litter</strong>: {l.ageDays} days old{l.alive !== null ? `, ${l.alive} kits` : ''}
+                <strong>{animalName(l.dam)}'s litter</strong>: {countOf(l.ageDays, 'day')} old{l.alive !== null ? `, ${countOf(l.alive, 'kit')}` : ''}
               </li>
             ))}
           </ul>

@@ -1,6 +1,7 @@
+import { useRef } from 'react';
 import { useForm, type Path } from 'react-hook-form';
 import { useNavigate } from 'react-router-dom';
-import { animalCreateSchema, animalUpdateSchema, type AnimalCreateBody, type AnimalDetailDto, type AnimalUpdateBody, type BreedDto } from '@burrowline/shared';
+import { animalCreateSchema, animalUpdateSchema, kitBirthDateProblem, type AnimalCreateBody, type AnimalDetailDto, type AnimalUpdateBody, type BreedDto } from '@burrowline/shared';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { LinkButton } from '../../../components/ui/link-button';
@@ -14,6 +15,9 @@ import { useServerSubmit } from '../../../lib/use-server-submit';
 import { useSaveAnimal } from '../api/save-animal';
 import { ParentPicker, type ParentChoice } from './parent-picker';
 import { useFarmToday } from '../../farms';
+import { useDamKindlingDays } from '../../litters';
+import { formatDate } from '../../../lib/days';
+import { animalName } from '../../../lib/names';
 
 interface Fields {
   tattoo: string;
@@ -83,6 +87,8 @@ export function AnimalForm({ animal, breeds }: { animal: AnimalDetailDto | null;
   const navigate = useNavigate();
   const save = useSaveAnimal(animal?.id ?? null);
   const today = useFarmToday();
+  // The chosen dam's kindling days, read by the resolver: a kit is born on one of them (the server's rule).
+  const damKindlings = useRef<{ damId: string; label: string; days: string[] } | null>(null);
   const form = useForm<AnimalValues, unknown, AnimalBody>({
     resolver: sharedSchemaResolver(
       animal ? animalUpdateSchema : animalCreateSchema,
@@ -90,6 +96,12 @@ export function AnimalForm({ animal, breeds }: { animal: AnimalDetailDto | null;
         // A parent searched for but not picked yet: nothing to save until one is chosen.
         if (fields.sire.mode === 'animal' && !fields.sire.card) refuse('sire', 'Choose the sire, or say it is unknown');
         if (fields.dam.mode === 'animal' && !fields.dam.card) refuse('dam', 'Choose the dam, or say it is unknown');
+        const kindlings = damKindlings.current;
+        const damChanged = fields.dam.mode === 'animal' && fields.dam.card?.id !== animal?.dam?.id;
+        if (kindlings && fields.dam.mode === 'animal' && fields.dam.card?.id === kindlings.damId && fields.birthDate && (damChanged || fields.birthDate !== animal?.birthDate)) {
+          const problem = kitBirthDateProblem(fields.birthDate, { label: kindlings.label, kindledOn: kindlings.days });
+          if (problem) refuse('birthDate', problem);
+        }
         const common = {
           tattoo: fields.tattoo,
           name: fields.name,
@@ -124,7 +136,10 @@ export function AnimalForm({ animal, breeds }: { animal: AnimalDetailDto | null;
     const message = errors[role]?.message;
     return message ? { [`${role}Id`]: [message] } : {};
   };
-  const [sex, origin, sire, dam] = form.watch(['sex', 'origin', 'sire', 'dam']);
+  const [sex, origin, sire, dam, birthDate] = form.watch(['sex', 'origin', 'sire', 'dam', 'birthDate']);
+  const damCard = dam.mode === 'animal' ? dam.card : null;
+  const kindlingDays = useDamKindlingDays(damCard?.id ?? null);
+  damKindlings.current = damCard ? { damId: damCard.id, label: animalName(damCard), days: kindlingDays } : null;
   const hasFieldErrors = Object.keys(errors).some((key) => key !== 'root');
 
   return (
@@ -178,7 +193,27 @@ export function AnimalForm({ animal, breeds }: { animal: AnimalDetailDto | null;
 
       <div className="grid gap-5 lg:grid-cols-2">
         <ParentPicker role="sire" value={sire} onChange={(choice) => form.setValue('sire', choice)} breeds={breeds} errors={parentErrors('sire')} />
-        <ParentPicker role="dam" value={dam} onChange={(choice) => form.setValue('dam', choice)} breeds={breeds} errors={parentErrors('dam')} />
+        <div className="space-y-3">
+          <ParentPicker role="dam" value={dam} onChange={(choice) => form.setValue('dam', choice)} breeds={breeds} errors={parentErrors('dam')} />
+          {damCard && kindlingDays.length > 0 && (
+            <div className="space-y-2 rounded-xl bg-oat p-3" role="group" aria-label={`${animalName(damCard)}'s litters`}>
+              <p className="text-sm text-bark">A kit of hers is born on her litter's kindling day. Her litters on your record:</p>
+              <div className="flex flex-wrap gap-2">
+                {kindlingDays.slice(-6).reverse().map((day) => (
+                  <Button
+                    key={day}
+                    type="button"
+                    variant={birthDate === day ? 'primary' : 'secondary'}
+                    aria-pressed={birthDate === day}
+                    onClick={() => form.setValue('birthDate', day, { shouldValidate: form.formState.isSubmitted })}
+                  >
+                    Born {formatDate(day)}
+                  </Button>
+                ))}
+              </div>
+            </div>
+          )}
+        </div>
       </div>
 
       <TextAreaField label="Notes" error={err('notes')} {...form.register('notes')} />

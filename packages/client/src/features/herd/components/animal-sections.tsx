@@ -1,4 +1,5 @@
 import { Link } from 'react-router-dom';
+import { formatDate } from '../../../lib/days';
 import { formatWeight, type AnimalDetailDto, type PedigreeCardDto, type WeightUnit } from '@burrowline/shared';
 import { Badge } from '../../../components/ui/badge';
 import {
@@ -30,7 +31,7 @@ export function AnimalFacts({ animal, unit }: { animal: AnimalDetailDto; unit: W
       <Fact term="Ear tattoo">{animal.tattoo}</Fact>
       <Fact term="Sex">{sexLabels[animal.sex]}</Fact>
       <Fact term="Born">
-        {animal.birthDate} ({ageText(animal.ageDays)})
+        {animal.birthDate ? formatDate(animal.birthDate) : 'Unknown'} ({ageText(animal.ageDays)})
       </Fact>
       <Fact term="Age class">{animal.ageClass ? ageClassLabels[animal.ageClass] : '—'}</Fact>
       <Fact term="Declared breed">{animal.breedName ?? 'None (from its parents, or unknown)'}</Fact>
@@ -49,7 +50,7 @@ export function AnimalFacts({ animal, unit }: { animal: AnimalDetailDto; unit: W
       <Fact term="Latest weight">
         {animal.latestWeight ? (
           <>
-            {formatWeight(animal.latestWeight.grams, unit)} on {animal.latestWeight.weighedOn}
+            {formatWeight(animal.latestWeight.grams, unit)} on {formatDate(animal.latestWeight.weighedOn)}
             {animal.latestWeight.reviewState === 'pending' && (
               <Badge tone="straw" className="ml-2">
                 Unverified

@@ -1,6 +1,7 @@
 import { X } from 'lucide-react';
 import { useState } from 'react';
 import type { BreedDto, PedigreeCardDto, Sex } from '@burrowline/shared';
+import { formatDate } from '../../../lib/days';
 import { Button } from '../../../components/ui/button';
 import { SearchField } from '../../../components/ui/search-field';
 import { SegmentedFilter } from '../../../components/ui/segmented-filter';
@@ -61,7 +62,7 @@ export function ParentPicker({ role, value, onChange, breeds, errors }: ParentPi
               <p className="font-semibold">
                 {value.card.name || value.card.tattoo} {value.card.tattoo && <span className="font-normal">({value.card.tattoo})</span>}
               </p>
-              <p className="text-sm">{breedMakeupText(value.card.breedMakeup)} · born {value.card.birthDate ?? 'unknown'}</p>
+              <p className="text-sm">{breedMakeupText(value.card.breedMakeup)} · born {value.card.birthDate ? formatDate(value.card.birthDate) : 'unknown'}</p>
               <p className="text-sm text-grey-700">{value.card.isOutside ? 'Outside animal, from papers' : (value.card.currentFarm?.name ?? value.card.breedingFarm?.name)}</p>
             </div>
             <Button variant="quiet" onClick={() => onChange({ mode: 'animal', card: null })} aria-label={`Choose another ${role}`}>

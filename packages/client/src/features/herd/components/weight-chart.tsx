@@ -1,4 +1,5 @@
 import { daysBetween, formatWeight, gramsToPounds, type WeightRange, type WeighInDto, type WeightUnit } from '@burrowline/shared';
+import { formatDate } from '../../../lib/days';
 
 interface WeightChartProps {
   weighIns: WeighInDto[];
@@ -106,7 +107,7 @@ export function WeightChart({ weighIns, birthDate, standard, unit }: WeightChart
         <ul className="mt-1 space-y-1">
           {weighIns.map((w) => (
             <li key={w.id}>
-              {w.weighedOn}: {formatWeight(w.gramsPerHead, unit)} · entered by {w.enteredBy.name}
+              {formatDate(w.weighedOn)}: {formatWeight(w.gramsPerHead, unit)} · entered by {w.enteredBy.name}
               {w.reviewState !== 'accepted' && ` · ${w.reviewState === 'pending' ? 'waits for review' : 'returned'}`}
             </li>
           ))}

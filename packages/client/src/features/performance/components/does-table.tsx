@@ -1,12 +1,19 @@
 import { createColumnHelper, getCoreRowModel, getSortedRowModel, useReactTable, type SortingState } from '@tanstack/react-table';
 import { useState } from 'react';
-import type { DoeRow, WeightUnit } from '@burrowline/shared';
+import { countOf, yearlyOutputOf, type DoeRow, type WeightUnit } from '@burrowline/shared';
 import { DataTable, RowLink } from '../../../components/ui/data-table';
 import { dash, decimal, gainShort, percent, ratio, weightOrDash, wholeDays } from '../performance-format';
 
 const column = createColumnHelper<DoeRow>();
 const nameOf = (r: DoeRow) => `${r.animal.name || 'Unnamed'}${r.animal.tattoo ? ` (${r.animal.tattoo})` : ''}`;
 const sortable = (x: number | null) => x ?? -1;
+
+/** Under the yearly figure: over how many days it is pro-rated, or that it is too early to judge. */
+function outputNote(r: DoeRow): string | null {
+  const output = yearlyOutputOf({ days: r.daysInService, kitsWeanedPerYear: r.kitsWeanedPerYear });
+  if (!output.judged) return `Too early to judge: ${countOf(r.daysInService, 'day')} in service`;
+  return r.daysInService < 365 ? `Pro-rated from ${r.daysInService} days` : null;
+}
 
 /** Per doe: her litters and what she raised, over the period. */
 export function DoesTable({ does, unit }: { does: DoeRow[]; unit: WeightUnit }) {
@@ -35,6 +42,7 @@ export function DoesTable({ does, unit }: { does: DoeRow[]; unit: WeightUnit }) 
     column.accessor((r) => sortable(r.kitsWeanedPerYear), { id: 'kpy', header: 'Weaned a year', cell: (c) => (
       <span className="whitespace-nowrap">
         {decimal(c.row.original.kitsWeanedPerYear)} kits
+        {outputNote(c.row.original) && <span className="block text-sm text-grey-600">{outputNote(c.row.original)}</span>}
         <span className="block text-sm text-grey-600">{weightOrDash(c.row.original.carcassGramsPerYear, unit)} carcass</span>
       </span>
     ) }),
@@ -71,7 +79,10 @@ export function DoesTable({ does, unit }: { does: DoeRow[]; unit: WeightUnit }) 
               <Figure term="Weaned">{decimal(r.averageWeaned)}</Figure>
               <Figure term="Survival">{percent(r.survivalToWeaning)}</Figure>
               <Figure term="Litter at weaning">{weightOrDash(r.averageLitterWeaningGrams, unit)}</Figure>
-              <Figure term="Kits weaned a year">{decimal(r.kitsWeanedPerYear)}</Figure>
+              <Figure term="Kits weaned a year">
+                {decimal(r.kitsWeanedPerYear)}
+                {outputNote(r) && <span className="block text-xs font-normal text-grey-600">{outputNote(r)}</span>}
+              </Figure>
               <Figure term="Carcass a year">{weightOrDash(r.carcassGramsPerYear, unit)}</Figure>
               <Figure term="Feed conv. to weaning">{ratio(r.feedConversionToWeaning)}</Figure>
               <Figure term="Feed conv. to market">{ratio(r.feedConversionToMarket)}</Figure>

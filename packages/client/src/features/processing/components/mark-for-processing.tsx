@@ -4,6 +4,7 @@ import { Button } from '../../../components/ui/button';
 import { TextField } from '../../../components/ui/text-field';
 import { sharedSchemaResolver } from '../../../lib/shared-schema-resolver';
 import { useServerSubmit } from '../../../lib/use-server-submit';
+import { formatDate } from '../../../lib/days';
 import { useMarkForProcessing } from '../api/processing-mutations';
 
 /**
@@ -23,7 +24,7 @@ export function MarkForProcessing({ animalId, groupId, today }: { animalId?: str
       <Button type="submit" variant="secondary" isBusy={mark.isPending}>
         Mark for processing
       </Button>
-      {mark.isSuccess && <p role="status" className="w-full text-sm font-medium text-moss-deep">Marked for processing on {mark.data.plannedOn}.</p>}
+      {mark.isSuccess && <p role="status" className="w-full text-sm font-medium text-moss-deep">Marked for processing on {formatDate(mark.data.plannedOn)}.</p>}
       {failure && <p role="alert" className="w-full text-sm font-medium text-clay-deep">{failure}</p>}
     </form>
   );
