@@ -82,6 +82,8 @@ export function herdPageSql(q: AnimalListQuery, coopId: string, farmId: string, 
     );
   }
   const filters = where.join(' AND ');
+  // The lent-in index's own expression: no other index serves it, and its statistics say how few rows match.
+  const lentIn = '(CASE WHEN a.owning_farm_id <> a.keeping_farm_id THEN a.keeping_farm_id END) = $2';
   const countBind = [...bind];
   const dir = q.dir === 'desc' ? 'DESC' : 'ASC';
   const key = sortKeys[q.sort];
@@ -93,9 +95,10 @@ export function herdPageSql(q: AnimalListQuery, coopId: string, farmId: string, 
   const pageSql = `SELECT id, row_number() OVER () AS position FROM (
       ${branch('a.owning_farm_id = $2')}
       UNION ALL
-      ${branch('a.keeping_farm_id = $2 AND a.owning_farm_id <> $2')}
+      ${branch(lentIn)}
       ORDER BY ${orderBy} LIMIT ${limit} OFFSET ${offset}
     ) ordered`;
-  const countSql = `SELECT count(*)::int AS total FROM animals a WHERE (a.owning_farm_id = $2 OR a.keeping_farm_id = $2) AND ${filters}`;
+  const countSql = `SELECT ((SELECT count(*) FROM animals a WHERE a.owning_farm_id = $2 AND ${filters})
+    + (SELECT count(*) FROM animals a WHERE ${lentIn} AND ${filters}))::int AS total`;
   return { pageSql, pageBind: bind, countSql, countBind };
 }
