@@ -206,6 +206,15 @@ export interface LitterListItemDto {
   status: 'nursing' | 'weaned';
 }
 
+/** One page of the farm's litters, with how many there are in each state (for the filter's counts). */
+export interface LitterListDto {
+  items: LitterListItemDto[];
+  total: number;
+  page: number;
+  pageSize: number;
+  counts: { nursing: number; weaned: number; all: number };
+}
+
 export interface LitterDto extends LitterListItemDto {
   servicedOn: string;
   notes: string;
