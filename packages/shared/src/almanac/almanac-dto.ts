@@ -135,6 +135,14 @@ export interface ServiceDto {
   version: number;
 }
 
+/** One page of the farm's services. */
+export interface ServiceListDto {
+  items: ServiceListItemDto[];
+  total: number;
+  page: number;
+  pageSize: number;
+}
+
 export interface ServiceListItemDto {
   id: string;
   doe: AnimalRefDto;
