@@ -15,9 +15,9 @@ const right = (text: string | number) => <span className="block text-right">{tex
 const columns: ColumnDef<LitterListItemDto>[] = [
   { id: 'dam', header: 'Dam', enableSorting: false, cell: ({ row }) => <RowLink to={`/litters/${row.original.id}`}>{animalName(row.original.dam)}</RowLink> },
   { id: 'sire', header: 'Sire', enableSorting: false, cell: ({ row }) => animalName(row.original.sire) },
-  { id: 'kindledOn', header: 'Kindled', cell: ({ row }) => <span className="whitespace-nowrap">{formatDate(row.original.kindledOn)}</span> },
+  { id: 'kindledOn', accessorFn: (l) => l.kindledOn, header: 'Kindled', cell: ({ row }) => <span className="whitespace-nowrap">{formatDate(row.original.kindledOn)}</span> },
   { id: 'ageDays', header: 'Age (days)', enableSorting: false, cell: ({ row }) => right(row.original.ageDays) },
-  { id: 'bornAlive', header: 'Born alive', cell: ({ row }) => right(row.original.bornAlive) },
+  { id: 'bornAlive', accessorFn: (l) => l.bornAlive, header: 'Born alive', cell: ({ row }) => right(row.original.bornAlive) },
   { id: 'onDoe', header: 'With the doe', enableSorting: false, cell: ({ row }) => <strong className="block text-right">{row.original.onDoe}</strong> },
   { id: 'weaned', header: 'Weaned', enableSorting: false, cell: ({ row }) => right(row.original.weaned) },
   { id: 'status', header: 'Status', enableSorting: false, cell: ({ row }) => <StatusBadge litter={row.original} /> },
