@@ -196,20 +196,23 @@ describe('the list of services', () => {
 
     const all = await agent.get('/api/services');
     expect(all.status).toBe(200);
-    expect(all.body.services.map((s: { id: string }) => s.id)).toEqual([newer.id, older.id]);
-    expect(all.body.services[0]).toMatchObject({ doe: { id: second.doe.id }, buck: { id: second.buck.id }, servicedOn: daysAgo(3), status: 'open', lastPalpation: null });
-    expect(all.body.services[1]).toMatchObject({ doe: { id: first.doe.id }, lastPalpation: 'negative' });
+    expect(all.body).toMatchObject({ total: 2, page: 1, pageSize: 20 });
+    expect(all.body.items.map((s: { id: string }) => s.id)).toEqual([newer.id, older.id]);
+    expect(all.body.items[0]).toMatchObject({ doe: { id: second.doe.id }, buck: { id: second.buck.id }, servicedOn: daysAgo(3), status: 'open', lastPalpation: null });
+    expect(all.body.items[1]).toMatchObject({ doe: { id: first.doe.id }, lastPalpation: 'negative' });
     expect(JSON.stringify(all.body)).not.toContain(theirs.id);
 
     const ofDoe = await agent.get('/api/services').query({ doeId: first.doe.id });
-    expect(ofDoe.body.services.map((s: { id: string }) => s.id)).toEqual([older.id]);
-    const open = (await agent.get('/api/services').query({ status: 'open' })).body.services.map((s: { id: string; status: string }) => s.status);
-    const closed = (await agent.get('/api/services').query({ status: 'closed' })).body.services.map((s: { id: string; status: string }) => s.status);
+    expect(ofDoe.body.items.map((s: { id: string }) => s.id)).toEqual([older.id]);
+    const open = (await agent.get('/api/services').query({ status: 'open' })).body.items.map((s: { id: string; status: string }) => s.status);
+    const closed = (await agent.get('/api/services').query({ status: 'closed' })).body.items.map((s: { id: string; status: string }) => s.status);
     expect(open.every((status: string) => status === 'open')).toBe(true);
     expect(closed.every((status: string) => status !== 'open')).toBe(true);
     expect(open.length + closed.length).toBe(2);
-    const limited = await agent.get('/api/services').query({ limit: 1 });
-    expect(limited.body.services.map((s: { id: string }) => s.id)).toEqual([newer.id]);
+    const oldestFirst = await agent.get('/api/services').query({ dir: 'asc' });
+    expect(oldestFirst.body.items.map((s: { id: string }) => s.id)).toEqual([older.id, newer.id]);
+    const pastTheEnd = await agent.get('/api/services').query({ page: 2, pageSize: 10 });
+    expect({ items: pastTheEnd.body.items, total: pastTheEnd.body.total }).toEqual({ items: [], total: 2 });
   });
 });
 

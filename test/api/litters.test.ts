@@ -269,7 +269,9 @@ describe('who records what on a litter', () => {
       expect((await agent.get(`/api/litters/${litter.id}`)).status).toBe(404);
       expect((await agent.post(`/api/litters/${litter.id}/events`).send({ kind: 'weaned', on: farmToday(), count: 1 })).status).toBe(404);
       expect((await agent.get(`/api/litters/${litter.id}/foster-candidates`)).status).toBe(404);
-      const list = (await agent.get('/api/litters')).body.litters as { id: string }[];
+      const listed = await agent.get('/api/litters');
+      expect(listed.status).toBe(200);
+      const list = listed.body.items as { id: string }[];
       expect(list.some((l) => l.id === litter.id)).toBe(false);
       expect(await almanacCounts(coop.id)).toEqual(before);
     }

@@ -54,7 +54,7 @@ describe("the admin's roster", () => {
     const admin = await signedIn(coop.admin.email);
     const res = await admin.get('/api/members');
     expect(res.status).toBe(200);
-    const byId = new Map(res.body.members.map((m: { id: string }) => [m.id, m]));
+    const byId = new Map(res.body.items.map((m: { id: string }) => [m.id, m]));
     expect(byId.size).toBe(4);
     expect(byId.get(coop.admin.id)).toMatchObject({ role: 'admin', status: 'active', farm: { id: coop.farms[0]!.id, name: coop.farms[0]!.name } });
     expect((byId.get(coop.admin.id) as { lastSignInAt: string | null }).lastSignInAt).not.toBeNull();
@@ -73,7 +73,7 @@ describe("the admin's roster", () => {
     const outsider = await signedIn(foreign.admin.email);
     expect((await outsider.get(`/api/members/${coop.member.id}`)).status).toBe(404);
     const theirs = await outsider.get('/api/members');
-    expect(theirs.body.members.map((m: { id: string }) => m.id)).not.toContain(coop.member.id);
+    expect(theirs.body.items.map((m: { id: string }) => m.id)).not.toContain(coop.member.id);
   });
 });
 
@@ -351,7 +351,7 @@ describe('inviting someone directly', () => {
     const app = await createTestApplication(coop);
     expect((await admin.post(`/api/applications/${app.id}/approval`).send({})).status).toBe(200);
     const old = linkIn(await waitForMail(app.email, { subject: /Welcome/ }), '/set-password?token=').searchParams.get('token')!;
-    const member = (await admin.get('/api/members')).body.members.find((m: { email: string }) => m.email === app.email);
+    const member = (await admin.get('/api/members')).body.items.find((m: { email: string }) => m.email === app.email);
     expect(member.status).toBe('awaiting_password');
 
     const res = await admin.post(`/api/members/${member.id}/set-password-link`);

@@ -110,6 +110,14 @@ export interface ApplicationDto extends ApplicationListItemDto {
   version: number;
 }
 
+/** One page of the co-op's roster. */
+export interface MemberListDto {
+  items: MemberDto[];
+  total: number;
+  page: number;
+  pageSize: number;
+}
+
 export interface MemberDto {
   id: string;
   name: string;

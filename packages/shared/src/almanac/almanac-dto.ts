@@ -135,6 +135,14 @@ export interface ServiceDto {
   version: number;
 }
 
+/** One page of the farm's services. */
+export interface ServiceListDto {
+  items: ServiceListItemDto[];
+  total: number;
+  page: number;
+  pageSize: number;
+}
+
 export interface ServiceListItemDto {
   id: string;
   doe: AnimalRefDto;
@@ -204,6 +212,15 @@ export interface LitterListItemDto {
   onDoe: number;
   weaned: number;
   status: 'nursing' | 'weaned';
+}
+
+/** One page of the farm's litters, with how many there are in each state (for the filter's counts). */
+export interface LitterListDto {
+  items: LitterListItemDto[];
+  total: number;
+  page: number;
+  pageSize: number;
+  counts: { nursing: number; weaned: number; all: number };
 }
 
 export interface LitterDto extends LitterListItemDto {

@@ -182,7 +182,11 @@ export interface FeedUseDto {
 
 export interface FeedOverviewDto {
   purchases: FeedPurchaseDto[];
+  /** One page of the feed given, latest first. */
   uses: FeedUseDto[];
+  usesTotal: number;
+  usesPage: number;
+  usesPageSize: number;
   products: { name: string; gramsLeft: number }[];
   canEdit: boolean;
   canSeeMoney: boolean;

@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { multiLine, singleLine, recordId } from './text';
 import { isIsoDate } from '../herd/herd-dates';
 import { calendarDateSchema } from './animal.schema';
+import { pageSchema, pageSizeSchema } from './application.schema';
 
 /**
  * Inputs of the Almanac: services and palpations, closing a service, treatments, task
@@ -44,10 +45,16 @@ export const serviceClosureSchema = z.strictObject({
 });
 export type ServiceClosureInput = z.infer<typeof serviceClosureSchema>;
 
+export const serviceSortKeys = ['servicedOn'] as const;
+
+/** GET /api/services: the farm's services (or one doe's), filtered and paged on the server, latest first by default. */
 export const serviceListQuerySchema = z.strictObject({
-  status: z.enum(['open', 'closed', 'all']).default('all'),
+  status: z.enum(['open', 'closed', 'all'], { message: 'Choose open, closed or all' }).default('all'),
   doeId: recordId('The doe').optional(),
-  limit: z.coerce.number().int().min(1).max(500).default(100),
+  sort: z.enum(serviceSortKeys, { message: 'Not a column the services sort by' }).default('servicedOn'),
+  dir: z.enum(['asc', 'desc'], { message: 'Choose asc or desc' }).default('desc'),
+  page: pageSchema,
+  pageSize: pageSizeSchema,
 });
 export type ServiceListQuery = z.infer<typeof serviceListQuerySchema>;
 

@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { calendarDateSchema } from './animal.schema';
+import { pageSchema, pageSizeSchema } from './application.schema';
 import { singleLine, recordId } from './text';
 
 
@@ -72,3 +73,10 @@ export type FeedUseCreateBody = z.input<typeof feedUseCreateSchema>;
 export const feedUseUpdateSchema = feedUseFields.omit({ id: true }).extend({ version }).superRefine(checkFeedUse);
 export type FeedUseUpdateInput = z.infer<typeof feedUseUpdateSchema>;
 export type FeedUseUpdateBody = z.input<typeof feedUseUpdateSchema>;
+
+/** GET /api/feed: the feed book with one page of the feed given, latest first (years of entries are thousands). */
+export const feedBookQuerySchema = z.strictObject({
+  page: pageSchema,
+  pageSize: pageSizeSchema,
+});
+export type FeedBookQuery = z.infer<typeof feedBookQuerySchema>;

@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { multiLine, singleLine, recordId } from './text';
 import { sexes } from '../herd/herd-enums';
 import { calendarDateSchema, tattooSchema } from './animal.schema';
+import { pageSchema, pageSizeSchema } from './application.schema';
 
 /**
  * Inputs for litters. A litter's kit count is never typed in: the kindling gives born alive and
@@ -92,9 +93,19 @@ export const keeperCreateSchema = z.strictObject({
 });
 export type KeeperCreateInput = z.infer<typeof keeperCreateSchema>;
 
+export const litterStatusFilters = ['nursing', 'weaned', 'all'] as const;
+export const litterSortKeys = ['kindledOn', 'bornAlive'] as const;
+export type LitterSortKey = (typeof litterSortKeys)[number];
+
+/** GET /api/litters: the farm's litters, filtered, sorted and paged on the server (the screen keeps them in its address). */
 export const litterListQuerySchema = z.strictObject({
-  status: z.enum(['nursing', 'weaned', 'all']).default('all'),
-  limit: z.coerce.number().int().min(1).max(500).default(100),
+  status: z.enum(litterStatusFilters, { message: 'Choose nursing, weaned or all' }).default('all'),
+  sort: z.enum(litterSortKeys, { message: 'Not a column the litters sort by' }).default('kindledOn'),
+  dir: z.enum(['asc', 'desc'], { message: 'Choose asc or desc' }).default('desc'),
+  /** One dam's litters only (the animal form offers her kindling days as a kit's birth date). */
+  damId: recordId('The dam').optional(),
+  page: pageSchema,
+  pageSize: pageSizeSchema,
 });
 export type LitterListQuery = z.infer<typeof litterListQuerySchema>;
 

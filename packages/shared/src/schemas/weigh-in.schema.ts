@@ -1,6 +1,7 @@
 import { z } from 'zod';
 import { multiLine, singleLine, recordId } from './text';
 import { calendarDateSchema } from './animal.schema';
+import { pageSchema } from './application.schema';
 
 /** A weigh-in of one animal (head count 1) or of a group (a litter, a pen) as a total over a head count. */
 export const weighInCreateSchema = z
@@ -37,3 +38,14 @@ export const animalNoteCreateSchema = z.strictObject({
   notedOn: calendarDateSchema,
 });
 export type AnimalNoteCreateInput = z.infer<typeof animalNoteCreateSchema>;
+
+/**
+ * GET /api/animals/:id/weigh-ins: one animal's series, paged in SQL by weighing date. The default page
+ * holds a whole life's weigh-ins, which the weight chart draws at once.
+ */
+export const weighInListQuerySchema = z.strictObject({
+  dir: z.enum(['asc', 'desc'], { message: 'Choose asc or desc' }).default('asc'),
+  page: pageSchema,
+  pageSize: z.coerce.number({ message: 'Choose how many a page' }).int('Choose how many a page').min(1, 'At least one a page').max(500, 'At most 500 a page').default(500),
+});
+export type WeighInListQuery = z.infer<typeof weighInListQuerySchema>;

@@ -1,20 +1,23 @@
 import { UserPlus } from 'lucide-react';
+import type { LoaderFunctionArgs } from 'react-router-dom';
 import { memberListViewSchema, memberStatuses, roles, type MemberListView } from '@burrowline/shared';
 import { queryClient } from '../../app/query-client';
+import { Alert } from '../../components/ui/alert';
 import { LinkButton } from '../../components/ui/link-button';
 import { PageHeader } from '../../components/ui/page-header';
 import { PageTitle } from '../../components/ui/page-title';
 import { SearchField } from '../../components/ui/search-field';
 import { SelectField } from '../../components/ui/select-field';
+import { PageSpinner } from '../../components/ui/spinner';
 import { membersQueryOptions, useMembers } from '../../features/members/api/get-members';
 import { MembersTable } from '../../features/members/components/members-table';
 import { memberStatusLabels } from '../../features/members/member-labels';
 import { roleLabels } from '../../lib/role-labels';
-import { useUrlState } from '../../lib/url-state';
+import { readUrlState, useUrlState } from '../../lib/url-state';
 import { useSession } from '../../lib/session';
 
-export async function loader() {
-  await queryClient.ensureQueryData(membersQueryOptions());
+export async function loader({ request }: LoaderFunctionArgs) {
+  await queryClient.ensureQueryData(membersQueryOptions(readUrlState(memberListViewSchema, new URL(request.url).searchParams)));
   return null;
 }
 
@@ -23,8 +26,10 @@ const statusOptions = [{ value: 'all', label: 'Any status' }, ...memberStatuses.
 
 export function MembersPage() {
   const { coop } = useSession();
-  const { data: members } = useMembers();
   const [view, setView] = useUrlState(memberListViewSchema);
+  const { data, isPlaceholderData, isError, error } = useMembers(view);
+  if (isError && !data) return <Alert tone="error" title="The roster did not load">{error.message}</Alert>;
+  if (!data) return <PageSpinner />;
 
   return (
     <div className="space-y-6">
@@ -54,7 +59,7 @@ export function MembersPage() {
           onChange={(event) => setView({ status: event.target.value as MemberListView['status'], page: 1 })}
         />
       </div>
-      <MembersTable members={members} view={view} onView={setView} />
+      <MembersTable members={data.items} total={data.total} view={view} onView={setView} isRefreshing={isPlaceholderData} />
     </div>
   );
 }

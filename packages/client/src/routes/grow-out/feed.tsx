@@ -1,12 +1,16 @@
 import { useEffect, useRef, useState } from 'react';
-import { centsPerLb, type FeedPurchaseDto, type FeedUseDto } from '@burrowline/shared';
+import type { LoaderFunctionArgs } from 'react-router-dom';
+import { centsPerLb, feedBookQuerySchema, type FeedPurchaseDto, type FeedUseDto } from '@burrowline/shared';
 import { queryClient } from '../../app/query-client';
 import { Alert } from '../../components/ui/alert';
 import { Button } from '../../components/ui/button';
 import { Card } from '../../components/ui/card';
+import { Pagination } from '../../components/ui/data-table';
 import { PageHeader } from '../../components/ui/page-header';
 import { PageTitle } from '../../components/ui/page-title';
 import { formatDate } from '../../lib/days';
+import { readUrlState, useUrlState } from '../../lib/url-state';
+import { PageSpinner } from '../../components/ui/spinner';
 import { feedQueryOptions, useFeed } from '../../features/feed/api/get-feed';
 import { BookProblems, FeedUseForm, PurchaseForm } from '../../features/feed/components/feed-forms';
 import { useRemoveFeedUse, useRemovePurchase } from '../../features/feed/api/record-feed';
@@ -14,8 +18,8 @@ import { useMoney } from '../../lib/money';
 import { weight } from '../../lib/weights';
 import { useWeightUnit } from '../../features/herd/hooks/use-weight-unit';
 
-export async function loader() {
-  await queryClient.ensureQueryData(feedQueryOptions());
+export async function loader({ request }: LoaderFunctionArgs) {
+  await queryClient.ensureQueryData(feedQueryOptions(readUrlState(feedBookQuerySchema, new URL(request.url).searchParams)));
   return null;
 }
 
@@ -26,11 +30,10 @@ const allocationWords = { head_days: 'split by head-days', live_weight: 'split b
 
 /** /grow-out/feed: feed bought and feed given, with the stock left in each purchase. */
 export function FeedPage() {
-  const { data: book } = useFeed();
+  const [page, setPage] = useUrlState(feedBookQuerySchema);
+  const { data: book, isPlaceholderData, isError, error } = useFeed(page);
   const unit = useWeightUnit();
   const money = useMoney();
-  const [allUses, setAllUses] = useState(false);
-  const uses = allUses ? book.uses : book.uses.slice(0, 25);
   const [correcting, setCorrecting] = useState<BookEntry | null>(null);
   const [confirming, setConfirming] = useState<string | null>(null);
   const [corrected, setCorrected] = useState(false);
@@ -69,6 +72,8 @@ export function FeedPage() {
       </span>
     );
   };
+  if (isError && !book) return <Alert tone="error" title="The feed book did not load">{error.message}</Alert>;
+  if (!book) return <PageSpinner />;
   return (
     <div className="space-y-6">
       <PageTitle>Feed</PageTitle>
@@ -162,8 +167,8 @@ export function FeedPage() {
         {book.uses.length === 0 ? (
           <p className="text-grey-600">None yet.</p>
         ) : (
-          <ul className="divide-y divide-grey-200" aria-label="Feed given">
-            {uses.map((u) => (
+          <ul className={`divide-y divide-grey-200 transition-opacity ${isPlaceholderData ? 'opacity-60' : ''}`} aria-label="Feed given" aria-busy={isPlaceholderData || undefined}>
+            {book.uses.map((u) => (
               <li key={u.id} className="py-3">
                 <p>
                   <strong>{formatDate(u.givenOn)}</strong>
@@ -180,11 +185,9 @@ export function FeedPage() {
             ))}
           </ul>
         )}
-        {!allUses && book.uses.length > uses.length && (
-          <Button variant="secondary" className="mt-3" onClick={() => setAllUses(true)}>
-            Show all {book.uses.length} entries
-          </Button>
-        )}
+        <div className="mt-3">
+          <Pagination page={book.usesPage} pageSize={book.usesPageSize} total={book.usesTotal} noun="entries" onPage={(next) => setPage({ page: next })} />
+        </div>
       </Card>
     </div>
   );

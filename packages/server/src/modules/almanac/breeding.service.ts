@@ -3,7 +3,7 @@ import {
   checkPalpationDate, checkService, daysBetween, ErrorCode, kindlingStatus, MEDIUM_BREED_FIRST_BREEDING_DAYS,
   planAfterPalpation, planFromService, serviceOutcome, settleServiceTasksOnKindling, type ServiceOutcome, type BreedingCheck, type BreedingStockDto,
   type BreedingStockListDto, type CycleSettings, type PalpationCreateInput, type ServiceClosureInput,
-  type ServiceCreateInput, type ServiceDto, type ServiceListItemDto, type ServiceListQuery,
+  type ServiceCreateInput, type ServiceDto, type ServiceListDto, type ServiceListQuery,
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../lib/session-user';
@@ -187,26 +187,32 @@ export async function recordService(actor: SessionUser, input: ServiceCreateInpu
   });
 }
 
-/** The farm's services, latest first (open ones with where their kindling stands). */
-export async function listServices(actor: SessionUser, q: ServiceListQuery): Promise<{ services: ServiceListItemDto[] }> {
+/** The farm's services, filtered, sorted and paged in SQL (open ones with where their kindling stands). */
+export async function listServices(actor: SessionUser, q: ServiceListQuery): Promise<ServiceListDto> {
   const farmId = farmOf(actor);
   ensureCan(actor, 'read', 'Service', { farmId }, 'Those services');
   return withTenant(actor, async (tx) => {
-    const clock = await farmClockOf(tx, actor.coopId, farmId);
-    const { settings } = await settingsOf(tx, farmId);
     const status = q.status === 'open' ? { status: 'open' } : q.status === 'closed' ? { status: { [Op.ne]: 'open' } } : {};
+    const where = { farmId, ...status, ...(q.doeId ? { doeId: q.doeId } : {}) };
+    const dir = q.dir === 'desc' ? 'DESC' : 'ASC';
+    const offset = (q.page - 1) * q.pageSize;
     const rows = await ServiceRecord.findAll({
-      where: { farmId, ...status, ...(q.doeId ? { doeId: q.doeId } : {}) },
-      order: [['servicedOn', 'DESC'], ['createdAt', 'DESC']],
-      limit: q.limit,
+      where,
+      order: [['servicedOn', dir], ['createdAt', dir], ['id', dir]],
+      limit: q.pageSize,
+      offset,
       transaction: tx,
     });
+    // A short page that is not past the end tells the total without counting.
+    const total = rows.length < q.pageSize && (rows.length > 0 || offset === 0) ? offset + rows.length : await ServiceRecord.count({ where, transaction: tx });
+    if (rows.length === 0) return { items: [], total, page: q.page, pageSize: q.pageSize };
+    const clock = await farmClockOf(tx, actor.coopId, farmId);
+    const { settings } = await settingsOf(tx, farmId);
     const palpations = await Palpation.findAll({ where: { serviceId: { [Op.in]: rows.map((r) => r.id) } }, order: [['palpatedOn', 'ASC']], transaction: tx });
     const ctx = await presentContextOf(tx, actor.coopId, clock.today, { animalIds: rows.flatMap((r) => [r.doeId, r.buckId]) });
-    return {
-      services: rows.map((r) =>
-        presentServiceListItem(r, { ...ctx, kindlingStatus: statusOf(r, clock.today, settings), lastPalpation: palpations.filter((p) => p.serviceId === r.id).at(-1)?.result ?? null })),
-    };
+    const items = rows.map((r) =>
+      presentServiceListItem(r, { ...ctx, kindlingStatus: statusOf(r, clock.today, settings), lastPalpation: palpations.filter((p) => p.serviceId === r.id).at(-1)?.result ?? null }));
+    return { items, total, page: q.page, pageSize: q.pageSize };
   });
 }
 

@@ -91,6 +91,29 @@ export async function selectAnimals(
   return database().query<AnimalRow>(sql, { bind: [coopId, ...params], type: QueryTypes.SELECT, transaction: tx });
 }
 
+/**
+ * The animals of a page (`pageSql` yields `id` and `position`), each with its own figures and latest weight
+ * looked up by key: the figures are joined after paging, so the co-op's other rows are never read.
+ */
+export async function selectAnimalPage(
+  tx: Transaction,
+  pageSql: string,
+  bind: unknown[],
+  weightsSeenBy: string,
+): Promise<AnimalRow[]> {
+  const viewer = `$${bind.length + 1}`;
+  const sql = `WITH page AS MATERIALIZED (${pageSql})
+    SELECT ${columns}, w.total_grams AS latest_grams, w.weighed_on::text AS latest_weighed_on, w.review_state AS latest_review_state
+    FROM page JOIN animals a ON a.id = page.id
+    LEFT JOIN LATERAL (SELECT fi.coi FROM animal_inbreeding fi WHERE fi.animal_id = a.id LIMIT 1) i ON true
+    LEFT JOIN LATERAL (
+      SELECT fm.breeds, fm.unknown, fm.purity FROM animal_breed_makeups fm WHERE fm.animal_id = a.id LIMIT 1
+    ) m ON true
+    ${latestWeight(viewer)}
+    ORDER BY page.position`;
+  return database().query<AnimalRow>(sql, { bind: [...bind, weightsSeenBy], type: QueryTypes.SELECT, transaction: tx });
+}
+
 export async function selectAnimalById(tx: Transaction, coopId: string, id: string, opts: { weightsSeenBy?: string | null } = {}) {
   const [row] = await selectAnimals(tx, coopId, 'a.id = $2', [id], opts);
   return row ?? null;

@@ -2,7 +2,7 @@ import { Router } from 'express';
 import {
   animalCreateSchema, animalListQuerySchema, animalNoteCreateSchema, animalUpdateSchema, custodyMoveSchema, entryReviewSchema,
   outsideAnimalQuerySchema, outsideAnimalSchema, outsideMergeSchema, pedigreeCardQuerySchema, pedigreeQuerySchema,
-  statusEventSchema, trialMatingSchema, uuidParamSchema, weighInCreateSchema,
+  statusEventSchema, trialMatingSchema, uuidParamSchema, weighInCreateSchema, weighInListQuerySchema,
 } from '@burrowline/shared';
 import { actorOf, requireUser } from '../../http/ability';
 import { createAnimal, updateAnimal } from './animal-edits.service';
@@ -36,7 +36,7 @@ export function animalRoutes(): Router {
     res.json(await getPedigreeTree(actorOf(req), id(req.params.animalId), generations));
   });
   router.get('/:animalId/weigh-ins', async (req, res) => {
-    res.json({ weighIns: await listAnimalWeighIns(actorOf(req), id(req.params.animalId)) });
+    res.json(await listAnimalWeighIns(actorOf(req), id(req.params.animalId), weighInListQuerySchema.parse(req.query)));
   });
   router.post('/:animalId/status-events', async (req, res) => {
     res.status(201).json(await recordStatus(actorOf(req), id(req.params.animalId), statusEventSchema.parse(req.body)));

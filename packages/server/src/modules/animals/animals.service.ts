@@ -1,64 +1,33 @@
-import {
-  defineAbilityFor, ErrorCode, type AnimalDetailDto, type AnimalListDto, type AnimalListQuery, type Lifecycle,
-} from '@burrowline/shared';
+import { defineAbilityFor, ErrorCode, type AnimalDetailDto, type AnimalListDto, type AnimalListQuery } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { presentContextFor } from './animal-context';
-import { selectAnimalById, selectAnimals } from './animal-queries';
+import { query, selectAnimalById, selectAnimalPage } from './animal-queries';
+import { herdPageSql } from './herd-page';
 import { subjectOfRow } from './animal-access';
 import { detailOf } from './animal-detail';
 import { presentAnimal } from './animals.presenter';
 
 /* The herd as its own screens read it: the farm's list and one animal's full record. */
 
-const lifecycleOrder: Record<Lifecycle, number> = { kit: 0, junior: 1, breeding: 2, retired: 3 };
-const collator = new Intl.Collator('en', { numeric: true, sensitivity: 'base' });
-
-/** The actor's own herd (the animals their farm owns or keeps), filtered, sorted and paged. */
+/** The actor's own herd (the animals their farm owns or keeps), filtered, sorted and paged in SQL. */
 export async function listHerd(actor: SessionUser, q: AnimalListQuery): Promise<AnimalListDto> {
   return withTenant(actor, async (tx) => {
     const farmId = actor.farmId;
     if (!farmId) return { items: [], total: 0, page: q.page, pageSize: q.pageSize };
     const ability = defineAbilityFor(actor);
     const ctx = await presentContextFor(actor, tx);
-    const bind: unknown[] = [farmId];
-    const where = ['NOT a.is_outside', '(a.owning_farm_id = $2 OR a.keeping_farm_id = $2)'];
-    const param = (value: unknown) => {
-      bind.push(value);
-      return `$${bind.length + 1}`;
-    };
-    if (q.status === 'current') where.push(`a.disposition = 'on_farm'`);
-    else if (q.status === 'gone') where.push(`a.disposition <> 'on_farm'`);
-    else if (q.status !== 'all') where.push(`a.disposition = 'on_farm' AND a.lifecycle = ${param(q.status)}`);
-    if (q.sex) where.push(`a.sex = ${param(q.sex)}`);
-    if (q.purity) where.push(`m.purity = ${param(q.purity)}`);
-    if (q.breedId) where.push(`(m.breeds -> ${param(q.breedId)}::text) IS NOT NULL`);
-    if (q.search) {
-      const p = param(`%${q.search.replace(/[\\%_]/g, '\\$&')}%`);
-      where.push(`(a.name ILIKE ${p} OR a.tattoo ILIKE ${p} OR a.hutch ILIKE ${p} OR a.colour ILIKE ${p} OR a.registration_number ILIKE ${p})`);
-    }
-    const rows = (await selectAnimals(tx, actor.coopId, where.join(' AND '), bind, { weightsSeenBy: farmId }))
-      // The SQL scope and the ability must agree row by row (architecture, "Permissions").
-      .filter((row) => ability.can('read', subjectOfRow(row)));
-    let items = rows.map((row) => presentAnimal(row, ctx));
-    if (q.ageClass) items = items.filter((a) => a.ageClass === q.ageClass);
-
-    const breedKey = (a: (typeof items)[number]) => a.breedMakeup.breeds[0]?.name ?? '\uffff';
-    const compare: Record<AnimalListQuery['sort'], (a: (typeof items)[number], b: (typeof items)[number]) => number> = {
-      tattoo: (a, b) => collator.compare(a.tattoo ?? '', b.tattoo ?? ''),
-      name: (a, b) => collator.compare(a.name, b.name),
-      sex: (a, b) => a.sex.localeCompare(b.sex),
-      breed: (a, b) => collator.compare(breedKey(a), breedKey(b)),
-      birthDate: (a, b) => (a.birthDate ?? '').localeCompare(b.birthDate ?? ''),
-      lifecycle: (a, b) => lifecycleOrder[a.lifecycle] - lifecycleOrder[b.lifecycle],
-      hutch: (a, b) => collator.compare(a.hutch, b.hutch),
-      coi: (a, b) => a.coi - b.coi,
-    };
-    const direction = q.dir === 'desc' ? -1 : 1;
-    items.sort((a, b) => direction * compare[q.sort](a, b) || collator.compare(a.tattoo ?? '', b.tattoo ?? ''));
-    const start = (q.page - 1) * q.pageSize;
-    return { items: items.slice(start, start + q.pageSize), total: items.length, page: q.page, pageSize: q.pageSize };
+    const { pageSql, pageBind, countSql, countBind } = herdPageSql(q, actor.coopId, farmId, ctx.today);
+    const rows = await selectAnimalPage(tx, pageSql, pageBind, farmId);
+    const offset = (q.page - 1) * q.pageSize;
+    // A short page that is not past the end tells the total without counting.
+    const total = rows.length < q.pageSize && (rows.length > 0 || offset === 0)
+      ? offset + rows.length
+      : (await query<{ total: number }>(tx, countSql, countBind))[0]!.total;
+    // The SQL scope and the ability must agree row by row (architecture, "Permissions").
+    const items = rows.filter((row) => ability.can('read', subjectOfRow(row))).map((row) => presentAnimal(row, ctx));
+    return { items, total, page: q.page, pageSize: q.pageSize };
   });
 }
 

@@ -3,7 +3,7 @@ import { animalRecord } from './animal-access';
 import { ForbiddenError } from '@casl/ability';
 import { Op, type Transaction } from 'sequelize';
 import {
-  defineAbilityFor, ErrorCode, subjectOf, type AnimalNoteCreateInput, type AnimalNoteDto, type EntryReviewInput, type ReviewState, type WeighInCreateInput, type WeighInDto,
+  defineAbilityFor, ErrorCode, subjectOf, type AnimalNoteCreateInput, type AnimalNoteDto, type EntryReviewInput, type ReviewState, type WeighInCreateInput, type WeighInDto, type WeighInListQuery, weighInListQuerySchema,
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../lib/session-user';
@@ -95,18 +95,27 @@ export async function createWeighIn(actor: SessionUser, input: WeighInCreateInpu
 }
 
 /**
- * The weigh-ins of an animal the viewer's farm may read (its own, not a lender's or borrower's), oldest
- * first (pending ones included, marked as such).
+ * The weigh-ins of an animal the viewer's farm may read (its own, not a lender's or borrower's), a page by
+ * weighing date (pending ones included, marked as such), with how many there are.
  */
-export async function listAnimalWeighIns(actor: SessionUser, animalId: string): Promise<WeighInDto[]> {
+export async function listAnimalWeighIns(
+  actor: SessionUser,
+  animalId: string,
+  q: WeighInListQuery = weighInListQuerySchema.parse({}),
+): Promise<{ weighIns: WeighInDto[]; total: number; page: number; pageSize: number }> {
   return withTenant(actor, async (tx) => {
     const animal = await Animal.findOne({ where: { id: animalId, coopId: actor.coopId, isOutside: false }, transaction: tx });
     if (!animal) throw AppError.notFound('That animal');
     authorize(actor, 'read', animalRecord(animal), 'You may not do that');
     const farms = await privateRecordFarmsOf(actor, animal, 'WeighIn', tx);
-    const rows = await WeighIn.findAll({ where: { animalId, farmId: { [Op.in]: farms } }, order: [['weighedOn', 'ASC'], ['createdAt', 'ASC']], transaction: tx });
+    const where = { animalId, farmId: { [Op.in]: farms } };
+    const dir = q.dir === 'desc' ? 'DESC' : 'ASC';
+    const offset = (q.page - 1) * q.pageSize;
+    const rows = await WeighIn.findAll({ where, order: [['weighedOn', dir], ['createdAt', dir], ['id', dir]], limit: q.pageSize, offset, transaction: tx });
+    // A short page that is not past the end tells the total without counting.
+    const total = rows.length < q.pageSize && (rows.length > 0 || offset === 0) ? offset + rows.length : await WeighIn.count({ where, transaction: tx });
     const names = await namesOf(rows.map((r) => r.enteredBy), tx);
-    return rows.map((r) => presentWeighIn(r, names));
+    return { weighIns: rows.map((r) => presentWeighIn(r, names)), total, page: q.page, pageSize: q.pageSize };
   });
 }
 

@@ -1,4 +1,4 @@
-import { centsPerKg, type FeedOverviewDto, type FeedUseDto } from '@burrowline/shared';
+import { centsPerKg, type FeedBookQuery, type FeedOverviewDto, type FeedUseDto } from '@burrowline/shared';
 import type { AnimalFacts } from '../animals/animal-facts.service';
 import type { LitterFacts } from '../litters/litter-facts.service';
 import { feedKeyOf, sharesWithCost, type FeedLedger } from './feed-totals.service';
@@ -14,8 +14,14 @@ export interface FeedOverviewSources {
   canEdit: boolean;
 }
 
-/** The feed book: purchases with the stock left, feed given with its split and labels; money only for who may see it. */
-export function presentFeedOverview(ledger: FeedLedger, loaded: FeedOverviewSources): FeedOverviewDto {
+/** The page of feed given that the book shows, latest first (only these are presented). */
+export function usesOnPage(ledger: FeedLedger, page: FeedBookQuery): FeedLedger['uses'] {
+  const end = ledger.uses.length - (page.page - 1) * page.pageSize;
+  return ledger.uses.slice(Math.max(0, end - page.pageSize), Math.max(0, end)).reverse();
+}
+
+/** The feed book: purchases with the stock left, a page of feed given with its split and labels; money only for who may see it. */
+export function presentFeedOverview(ledger: FeedLedger, page: FeedBookQuery, loaded: FeedOverviewSources): FeedOverviewDto {
   const { groups, litters, animals, units, names } = loaded;
   const money = loaded.canSeeMoney;
   const productOf = new Map(ledger.purchases.map((p) => [feedKeyOf(p.productName), p.productName]));
@@ -23,7 +29,7 @@ export function presentFeedOverview(ledger: FeedLedger, loaded: FeedOverviewSour
     const l = litters.get(id);
     return l ? `${animals.get(l.damId)?.name ?? 'A doe'} and litter (kindled ${l.kindledOn})` : 'A litter';
   };
-  const uses: FeedUseDto[] = [...ledger.uses].reverse().map((u) => ({
+  const uses: FeedUseDto[] = usesOnPage(ledger, page).map((u) => ({
     id: u.id, givenOn: u.givenOn, fromOn: u.fromOn, grams: u.grams, productName: productOf.get(u.feedKey) ?? u.feedKey, purchaseId: u.purchaseId,
     target: u.target, groupId: u.groupId, housingUnitId: u.housingUnitId, doeId: u.doeId, allocation: u.allocation, version: u.version,
     targetLabel: u.target === 'group' ? groups.get(u.groupId!) ?? 'A group'
@@ -50,6 +56,9 @@ export function presentFeedOverview(ledger: FeedLedger, loaded: FeedOverviewSour
       version: p.version,
     })),
     uses,
+    usesTotal: ledger.uses.length,
+    usesPage: page.page,
+    usesPageSize: page.pageSize,
     products: [...products.values()].sort((a, b) => a.name.localeCompare(b.name)),
     canEdit: loaded.canEdit,
     canSeeMoney: money,

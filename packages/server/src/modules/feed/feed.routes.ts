@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import {
-  feedEntryRemovalSchema, feedPurchaseCreateSchema, feedPurchaseUpdateSchema, feedUseCreateSchema, feedUseUpdateSchema, uuidParamSchema,
+  feedBookQuerySchema, feedEntryRemovalSchema, feedPurchaseCreateSchema, feedPurchaseUpdateSchema, feedUseCreateSchema, feedUseUpdateSchema, uuidParamSchema,
 } from '@burrowline/shared';
 import { actorOf, requireUser } from '../../http/ability';
 import { correctFeedPurchase, correctFeedUse, listFeed, recordFeedPurchase, recordFeedUse, removeFeedPurchase, removeFeedUse } from './feed.service';
@@ -12,7 +12,7 @@ export function feedRoutes(): Router {
   const router = Router();
   router.use(requireUser);
   router.get('/', async (req, res) => {
-    res.json(await listFeed(actorOf(req)));
+    res.json(await listFeed(actorOf(req), feedBookQuerySchema.parse(req.query)));
   });
   router.post('/purchases', async (req, res) => {
     res.status(201).json(await recordFeedPurchase(actorOf(req), feedPurchaseCreateSchema.parse(req.body)));

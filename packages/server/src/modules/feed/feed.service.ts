@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import type { Transaction } from 'sequelize';
 import {
-  addDays, allocateByHeadDays, allocateByLiveWeight, checkFeedUses, daysBetween, defineAbilityFor, formatWeight, gompertzWeight, MATURE_WEIGHT_PRIORS, RealtimeEvent, referenceCurve, rooms, subjectOf, type FeedOverviewDto, type FeedPurchaseCreateInput, type FeedPurchaseUpdateInput, type FeedUseCreateInput, type FeedUseUpdateInput,
+  addDays, allocateByHeadDays, allocateByLiveWeight, checkFeedUses, daysBetween, defineAbilityFor, formatWeight, gompertzWeight, MATURE_WEIGHT_PRIORS, RealtimeEvent, referenceCurve, rooms, subjectOf, feedBookQuerySchema, type FeedBookQuery, type FeedOverviewDto, type FeedPurchaseCreateInput, type FeedPurchaseUpdateInput, type FeedUseCreateInput, type FeedUseUpdateInput,
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../lib/session-user';
@@ -17,7 +17,7 @@ import {
 } from '../litters/litter-facts.service';
 import { namesOf } from '../users/users.service';
 import { FeedPurchase, FeedUse, FeedUseShare } from './feed.model';
-import { presentFeedOverview } from './feed.presenter';
+import { presentFeedOverview, usesOnPage } from './feed.presenter';
 import { feedKeyOf, feedLedgerOf, feedTotalsByLitter, purchaseFact, useFact } from './feed-totals.service';
 import { lockUntilCommit } from '../../db/advisory-lock';
 import { recordChanges } from '../audit/audit.service';
@@ -70,25 +70,31 @@ function litterShareBasis(l: LitterFacts, from: string, to: string, inGroups: Ki
 const nursingIn = (l: LitterFacts, from: string, to: string, inGroups: KitsInGroups) =>
   l.kindledOn <= to && (l.weanedOn === null || l.weanedOn >= from) && litterShareBasis(l, from, to, inGroups).headDays > 0;
 
-async function presentOverview(tx: Transaction, actor: SessionUser, farmId: string): Promise<FeedOverviewDto> {
+/** The first page, as a change answers with it (the screen goes back to the latest entries). */
+const firstPage = feedBookQuerySchema.parse({});
+
+async function presentOverview(tx: Transaction, actor: SessionUser, farmId: string, page: FeedBookQuery = firstPage): Promise<FeedOverviewDto> {
   const ledger = await feedLedgerOf(tx, actor.coopId, farmId);
   const money = canSeeMoney(actor, farmId);
+  // Labels are looked up for the page's entries only.
+  const shown = usesOnPage(ledger, page);
+  const shownLitterIds = new Set(shown.flatMap((u) => (ledger.sharesByUse.get(u.id) ?? []).map((s) => s.litterId)).filter((x): x is string => Boolean(x)));
   const groups = new Map((await groupsOfFarm(tx, actor.coopId, farmId)).map((g) => [g.id, g.name]));
-  const litters = new Map((await farmLitterFactsOf(tx, actor.coopId, farmId)).map((l) => [l.id, l]));
-  const animals = await animalFactsOf(tx, actor.coopId, [...ledger.uses.map((u) => u.doeId), ...[...litters.values()].map((l) => l.damId)].filter((x): x is string => Boolean(x)));
-  const units = await housingUnitNamesOf(tx, actor.coopId, ledger.uses.map((u) => u.housingUnitId).filter((x): x is string => Boolean(x)));
-  const names = await namesOf(ledger.uses.map((u) => u.enteredBy), tx);
-  return presentFeedOverview(ledger, {
+  const litters = new Map((await farmLitterFactsOf(tx, actor.coopId, farmId)).filter((l) => shownLitterIds.has(l.id)).map((l) => [l.id, l]));
+  const animals = await animalFactsOf(tx, actor.coopId, [...shown.map((u) => u.doeId), ...[...litters.values()].map((l) => l.damId)].filter((x): x is string => Boolean(x)));
+  const units = await housingUnitNamesOf(tx, actor.coopId, shown.map((u) => u.housingUnitId).filter((x): x is string => Boolean(x)));
+  const names = await namesOf(shown.map((u) => u.enteredBy), tx);
+  return presentFeedOverview(ledger, page, {
     groups, litters, animals, units, names, canSeeMoney: money,
     canEdit: defineAbilityFor(actor).can('create', subjectOf('FeedRecord', { coopId: actor.coopId, farmId })),
   });
 }
 
-/** The farm's feed book: purchases with the stock left in each, and the feed given with its split (money for members only). */
-export async function listFeed(actor: SessionUser): Promise<FeedOverviewDto> {
+/** The farm's feed book: purchases with the stock left in each, and a page of the feed given with its split (money for members only). */
+export async function listFeed(actor: SessionUser, page: FeedBookQuery = firstPage): Promise<FeedOverviewDto> {
   const farmId = farmOf(actor, 'Only a member of a farm keeps a feed book');
   ensureCanFeed(actor, 'read', farmId);
-  return withTenant(actor, async (tx) => presentOverview(tx, actor, farmId));
+  return withTenant(actor, async (tx) => presentOverview(tx, actor, farmId, page));
 }
 
 /** Records feed bought in whole bags. Refused (400) in the farm's future. */

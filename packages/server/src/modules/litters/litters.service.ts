@@ -1,10 +1,11 @@
 import { randomUUID } from 'node:crypto';
-import { Op, type Transaction } from 'sequelize';
+import { literal, Op, QueryTypes, type Transaction } from 'sequelize';
 import {
   addDays, animalCreateSchema, checkKindlingDate, checkWeightForAge, daysBetween, ErrorCode, planFromKindling, RealtimeEvent, rooms, validateLitter,
   type EntryReviewInput, type FosterCandidateDto, type FosteringCreateInput, type KeeperCreateInput, type KindlingCreateInput,
-  type LitterDto, type LitterEventCreateInput, type LitterIssue, type LitterListItemDto, type LitterListQuery, type LitterRecord,
+  type LitterDto, type LitterEventCreateInput, type LitterIssue, type LitterListDto, type LitterListQuery, type LitterRecord,
 } from '@burrowline/shared';
+import { database } from '../../db/sequelize';
 import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
@@ -317,17 +318,46 @@ export async function getLitter(actor: SessionUser, litterId: string): Promise<L
   return withTenant(actor, async (tx) => litterDetail(tx, actor, await litterFor(tx, actor, litterId)));
 }
 
-/** The farm's litters, latest first, with the kits still on the doe. */
-export async function listLitters(actor: SessionUser, q: LitterListQuery): Promise<{ litters: LitterListItemDto[] }> {
+/**
+ * Kits still with the doe of litter `alias`, in SQL: born alive, plus fostered in, less every kit that left,
+ * counting the entries that are not returned (the presenter's rule). Looked up per litter by its index.
+ */
+function kitsWithDoeSql(alias: string): string {
+  return `(${alias}.born_alive + COALESCE((
+    SELECT sum(CASE e.kind WHEN 'fostered_in' THEN e.kit_count ELSE -e.kit_count END) FROM litter_events e
+    WHERE e.litter_id = ${alias}.id AND e.deleted_at IS NULL AND e.review_state <> 'returned'), 0))`;
+}
+
+const litterOrder: Record<LitterListQuery['sort'], string[]> = {
+  kindledOn: ['kindled_on', 'created_at', 'id'],
+  bornAlive: ['born_alive', 'kindled_on', 'created_at', 'id'],
+};
+
+/** The farm's litters, filtered, sorted and paged in SQL, with the kits still on the doe and each state's count. */
+export async function listLitters(actor: SessionUser, q: LitterListQuery): Promise<LitterListDto> {
   const farmId = farmOf(actor);
   ensureCan(actor, 'read', 'Litter', { farmId }, 'Those litters');
   return withTenant(actor, async (tx) => {
+    const [counts] = await database().query<{ nursing: number; weaned: number; all: number }>(
+      `SELECT count(*) FILTER (WHERE on_doe > 0)::int AS nursing, count(*) FILTER (WHERE on_doe <= 0)::int AS weaned, count(*)::int AS "all"
+       FROM (SELECT ${kitsWithDoeSql('l')} AS on_doe FROM litters l WHERE l.farm_id = $1 AND l.deleted_at IS NULL AND ($2::uuid IS NULL OR l.dam_id = $2)) farm_litters`,
+      { bind: [farmId, q.damId ?? null], type: QueryTypes.SELECT, transaction: tx },
+    );
+    const total = counts![q.status];
+    const statusWhere = q.status === 'all' ? [] : [literal(`${kitsWithDoeSql('"Litter"')} ${q.status === 'nursing' ? '>' : '<='} 0`)];
+    const dir = q.dir === 'desc' ? 'DESC' : 'ASC';
+    const litters = total === 0 ? [] : await Litter.findAll({
+      where: { [Op.and]: [{ farmId }, ...(q.damId ? [{ damId: q.damId }] : []), ...statusWhere] },
+      order: litterOrder[q.sort].map((column) => [literal(`"Litter".${column}`), dir]),
+      limit: q.pageSize,
+      offset: (q.page - 1) * q.pageSize,
+      transaction: tx,
+    });
     const clock = await farmClockOf(tx, actor.coopId, farmId);
-    const litters = await Litter.findAll({ where: { farmId }, order: [['kindledOn', 'DESC'], ['createdAt', 'DESC']], limit: 500, transaction: tx });
     const events = await eventsOf(tx, litters.map((l) => l.id));
     const ctx = await presentContextForLitters(tx, actor, clock.today, litters, []);
     const items = litters.map((l) => presentLitterListItem(l, summaryOf(recordOf(l, events.filter((e) => e.litterId === l.id))), ctx));
-    return { litters: items.filter((i) => q.status === 'all' || i.status === q.status).slice(0, q.limit) };
+    return { items, total, page: q.page, pageSize: q.pageSize, counts: counts! };
   });
 }
 

@@ -4,6 +4,7 @@ import {
   invitationSchema,
   memberDisableSchema,
   memberEnableSchema,
+  memberListViewSchema,
   memberRoleChangeSchema,
   subjectOf,
   uuidParamSchema,
@@ -39,7 +40,7 @@ export function memberRoutes(config: Config): Router {
   const userIdOf = (req: Request) => uuidParamSchema.parse(req.params.userId);
 
   router.get('/', async (req, res) => {
-    res.json({ members: await listMembers(actorOf(req)) });
+    res.json(await listMembers(actorOf(req), memberListViewSchema.parse(req.query)));
   });
 
   router.get('/:userId', async (req, res) => {

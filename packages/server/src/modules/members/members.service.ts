@@ -1,5 +1,5 @@
 import { ForbiddenError } from '@casl/ability';
-import { col, fn, Op, where, type Transaction } from 'sequelize';
+import { col, fn, Op, QueryTypes, where, type Transaction } from 'sequelize';
 import {
   defineAbilityFor,
   ErrorCode,
@@ -10,8 +10,11 @@ import {
   type MemberDisableInput,
   type MemberDto,
   type MemberEnableInput,
+  type MemberListDto,
+  type MemberListView,
   type MemberRoleChangeInput,
 } from '@burrowline/shared';
+import { database } from '../../db/sequelize';
 import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
@@ -32,7 +35,7 @@ import {
   findUser,
   findUserByEmail,
   isEmailRegistered,
-  listCoopUsers,
+  usersInOrder,
   namesOf,
   reviveInvitee,
   setRole,
@@ -41,6 +44,7 @@ import {
 } from '../users/users.service';
 import { Invitation } from './invitation.model';
 import { invitationForAccountHolderMail, invitationMail, setPasswordLinkMail } from './members.mail';
+import { membersPageSql } from './members-page';
 import { presentMember } from './members.presenter';
 
 /** Where set-password links point, how long they live, and the request's address for the audit log. */
@@ -107,10 +111,22 @@ function announce(actor: SessionUser, user: UserRecord, tx: Transaction, opts: {
   });
 }
 
-/** The co-op's roster for its admin: everyone, with role, farm, status and last sign-in. */
-export async function listMembers(actor: SessionUser): Promise<MemberDto[]> {
+/** The co-op's roster for its admin, filtered, sorted and paged in SQL: role, farm, status and last sign-in. */
+export async function listMembers(actor: SessionUser, q: MemberListView): Promise<MemberListDto> {
   assertRosterManager(actor);
-  return withTenant(actor, async (tx) => presentMembers(actor.coopId, await listCoopUsers(actor.coopId, tx), tx, 'all'));
+  return withTenant(actor, async (tx) => {
+    const { sql, bind } = membersPageSql(q, actor.coopId);
+    const page = await database().query<{ id: string; total: number }>(sql, { bind, type: QueryTypes.SELECT, transaction: tx });
+    const offset = (q.page - 1) * q.pageSize;
+    const counted = async () => {
+      const first = membersPageSql({ ...q, page: 1, pageSize: 1 }, actor.coopId);
+      return (await database().query<{ total: number }>(first.sql, { bind: first.bind, type: QueryTypes.SELECT, transaction: tx }))[0]?.total ?? 0;
+    };
+    // Past the last page there is no row to carry the total: count again from the first.
+    const total = page[0]?.total ?? (offset === 0 ? 0 : await counted());
+    const users = await usersInOrder(actor.coopId, page.map((row) => row.id), tx);
+    return { items: await presentMembers(actor.coopId, users, tx, 'these'), total, page: q.page, pageSize: q.pageSize };
+  });
 }
 
 export async function getMember(actor: SessionUser, userId: string): Promise<MemberDto> {

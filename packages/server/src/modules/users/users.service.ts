@@ -59,9 +59,11 @@ export async function findUserByEmail(email: string, tx: Transaction): Promise<U
   return User.findOne({ where: where(fn('lower', col('email')), email.trim().toLowerCase()), transaction: tx });
 }
 
-/** Everyone of the co-op (the admin's roster). */
-export async function listCoopUsers(coopId: string, tx: Transaction): Promise<User[]> {
-  return User.findAll({ where: { coopId }, order: [['name', 'ASC'], ['id', 'ASC']], transaction: tx });
+/** People of the co-op by id, in the order given (a page of the roster). */
+export async function usersInOrder(coopId: string, ids: string[], tx: Transaction): Promise<User[]> {
+  if (ids.length === 0) return [];
+  const users = new Map((await User.findAll({ where: { coopId, id: { [Op.in]: ids } }, transaction: tx })).map((u) => [u.id, u]));
+  return ids.map((id) => users.get(id)).filter((u): u is User => Boolean(u));
 }
 
 /** Names by id, for presenting who did what. */

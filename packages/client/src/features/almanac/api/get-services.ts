@@ -1,17 +1,18 @@
-import { queryOptions, useSuspenseQuery } from '@tanstack/react-query';
-import type { ServiceListItemDto } from '@burrowline/shared';
+import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
+import type { ServiceListDto, ServiceListQuery } from '@burrowline/shared';
 import { apiFetch } from '../../../lib/api-client';
 import { almanacKeys } from './almanac-keys';
 
-export function getServices(filters: { status?: 'open' | 'closed' | 'all' }, signal?: AbortSignal): Promise<{ services: ServiceListItemDto[] }> {
-  const query = filters.status ? `?status=${filters.status}` : '';
-  return apiFetch<{ services: ServiceListItemDto[] }>(`/api/services${query}`, { signal });
+export function getServices(query: ServiceListQuery, signal?: AbortSignal): Promise<ServiceListDto> {
+  const params = new URLSearchParams(Object.entries(query).flatMap(([key, value]) => (value === undefined ? [] : [[key, String(value)]])));
+  return apiFetch<ServiceListDto>(`/api/services?${params}`, { signal });
 }
 
-export function servicesQueryOptions(filters: { status?: 'open' | 'closed' | 'all' }) {
-  return queryOptions({ queryKey: almanacKeys.services(filters), queryFn: ({ signal }) => getServices(filters, signal) });
+export function servicesQueryOptions(query: ServiceListQuery) {
+  return queryOptions({ queryKey: almanacKeys.services(query), queryFn: ({ signal }) => getServices(query, signal) });
 }
 
-export function useServices(filters: { status?: 'open' | 'closed' | 'all' }) {
-  return useSuspenseQuery(servicesQueryOptions(filters));
+/** One page of the farm's services; the last page stays on screen while the next one loads. */
+export function useServices(query: ServiceListQuery) {
+  return useQuery({ ...servicesQueryOptions(query), placeholderData: keepPreviousData });
 }

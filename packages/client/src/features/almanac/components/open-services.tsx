@@ -1,10 +1,10 @@
-import { useQuery } from '@tanstack/react-query';
-import { Link } from 'react-router-dom';
-import type { ServiceListItemDto } from '@burrowline/shared';
+import { Link, useSearchParams } from 'react-router-dom';
+import { serviceListQuerySchema, type ServiceListItemDto } from '@burrowline/shared';
+import { Pagination } from '../../../components/ui/data-table';
 import { Badge } from '../../../components/ui/badge';
 import { animalName } from '../../../lib/names';
 import { Card } from '../../../components/ui/card';
-import { servicesQueryOptions } from '../api/get-services';
+import { useServices } from '../api/get-services';
 import { formatDate } from '../../../lib/days';
 
 const kindlingWords: Record<NonNullable<ServiceListItemDto['kindlingStatus']>, { label: string; tone: 'neutral' | 'straw' | 'clay' }> = {
@@ -14,11 +14,26 @@ const kindlingWords: Record<NonNullable<ServiceListItemDto['kindlingStatus']>, {
   missed: { label: 'Past the window', tone: 'clay' },
 };
 
+function pageFrom(value: string | null): number {
+  const page = Number(value);
+  return Number.isInteger(page) && page >= 1 ? page : 1;
+}
+
 /** The farm's open services, each a link to record its palpation, kindling or closing. */
 export function OpenServices() {
-  const services = useQuery(servicesQueryOptions({ status: 'open' }));
-  const list = services.data?.services ?? [];
+  // Its page sits in the address beside the agenda's own state, so a reload keeps it.
+  const [params, setParams] = useSearchParams();
+  const query = serviceListQuerySchema.parse({ status: 'open', pageSize: 20, page: pageFrom(params.get('servicesPage')) });
+  const services = useServices(query);
+  const list = services.data?.items ?? [];
   if (list.length === 0) return null;
+  const onPage = (page: number) =>
+    setParams((current) => {
+      const next = new URLSearchParams(current);
+      if (page > 1) next.set('servicesPage', String(page));
+      else next.delete('servicesPage');
+      return next;
+    }, { preventScrollReset: true });
   return (
     <Card className="space-y-3">
       <h2 className="text-lg font-bold">Open services</h2>
@@ -39,6 +54,7 @@ export function OpenServices() {
           );
         })}
       </ul>
+      <Pagination page={query.page} pageSize={query.pageSize} total={services.data?.total ?? 0} noun="open services" onPage={onPage} />
     </Card>
   );
 }

@@ -1,16 +1,17 @@
-import { queryOptions, useSuspenseQuery } from '@tanstack/react-query';
-import type { FeedOverviewDto } from '@burrowline/shared';
+import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
+import type { FeedBookQuery, FeedOverviewDto } from '@burrowline/shared';
 import { apiFetch } from '../../../lib/api-client';
 import { feedKeys } from './feed-keys';
 
-export function getFeed(signal?: AbortSignal): Promise<FeedOverviewDto> {
-  return apiFetch<FeedOverviewDto>('/api/feed', { signal });
+export function getFeed(page: FeedBookQuery, signal?: AbortSignal): Promise<FeedOverviewDto> {
+  return apiFetch<FeedOverviewDto>(`/api/feed?page=${page.page}&pageSize=${page.pageSize}`, { signal });
 }
 
-export function feedQueryOptions() {
-  return queryOptions({ queryKey: feedKeys.book(), queryFn: ({ signal }) => getFeed(signal) });
+export function feedQueryOptions(page: FeedBookQuery) {
+  return queryOptions({ queryKey: feedKeys.book(page), queryFn: ({ signal }) => getFeed(page, signal) });
 }
 
-export function useFeed() {
-  return useSuspenseQuery(feedQueryOptions());
+/** The feed book with one page of the feed given; the last page stays on screen while the next one loads. */
+export function useFeed(page: FeedBookQuery) {
+  return useQuery({ ...feedQueryOptions(page), placeholderData: keepPreviousData });
 }

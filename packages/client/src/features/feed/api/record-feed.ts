@@ -9,7 +9,10 @@ function useFeedMutation<V>(request: (variables: V) => Promise<FeedOverviewDto>)
   return useMutation({
     mutationFn: request,
     onSuccess: async (book) => {
-      queryClient.setQueryData(feedKeys.book(), book);
+      // A change answers with the first page of the book; every other page is read again.
+      const answered = feedKeys.book({ page: book.usesPage, pageSize: book.usesPageSize });
+      queryClient.setQueryData(answered, book);
+      await queryClient.invalidateQueries({ queryKey: feedKeys.all, predicate: (q) => JSON.stringify(q.queryKey) !== JSON.stringify(answered) });
       // A group's feed conversion and cost follow the feed given.
       await queryClient.invalidateQueries({ queryKey: growOutKeys.all });
     },

@@ -6,7 +6,7 @@ import { littersQueryOptions } from './get-litters';
  * are private to it): a kit of hers is born on one of them.
  */
 export function useDamKindlingDays(damId: string | null): string[] {
-  const litters = useQuery({ ...littersQueryOptions({ status: 'all' }), enabled: damId !== null });
+  const litters = useQuery({ ...littersQueryOptions({ status: 'all', sort: 'kindledOn', dir: 'asc', damId: damId ?? undefined, page: 1, pageSize: 50 }), enabled: damId !== null });
   if (!damId || !litters.data) return [];
-  return [...new Set(litters.data.litters.filter((l) => l.dam.id === damId).map((l) => l.kindledOn))].sort();
+  return [...new Set(litters.data.items.map((l) => l.kindledOn))];
 }

@@ -2,6 +2,7 @@ import { useQuery } from '@tanstack/react-query';
 import { useForm } from 'react-hook-form';
 import {
   housingUnitCreateSchema,
+  litterListQuerySchema,
   placementCreateSchema,
   type HousingKind,
   type HousingUnitCreateInput,
@@ -34,9 +35,12 @@ const placementResolver = (today: string) =>
     () => 'who',
   );
 
+// A farm nurses far fewer than fifty litters at once: the latest fifty are the ones to place.
+const nursingLitters = litterListQuerySchema.parse({ status: 'nursing', pageSize: 50 });
+
 function UnitCard({ unit, today, canEdit }: { unit: HousingUnitDto; today: string; canEdit: boolean }) {
   const stock = useQuery({ ...breedingStockQueryOptions(), enabled: canEdit });
-  const litters = useQuery({ ...littersQueryOptions({ status: 'all' }), enabled: canEdit });
+  const litters = useQuery({ ...littersQueryOptions(nursingLitters), enabled: canEdit });
   const place = usePlaceInUnit();
   const end = useEndPlacement();
   const form = useForm<{ who: string }, unknown, PlacementCreateInput>({ resolver: placementResolver(today), defaultValues: { who: '' } });
@@ -48,7 +52,7 @@ function UnitCard({ unit, today, canEdit }: { unit: HousingUnitDto; today: strin
   const options = [
     { value: '', label: 'Move in…' },
     ...[...(stock.data?.does ?? []), ...(stock.data?.bucks ?? [])].map((a) => ({ value: `animal:${a.id}`, label: animalName(a) })),
-    ...(litters.data?.litters ?? []).filter((l) => l.status === 'nursing').map((l) => ({ value: `litter:${l.id}`, label: `Litter of ${animalName(l.dam)}` })),
+    ...(litters.data?.items ?? []).map((l) => ({ value: `litter:${l.id}`, label: `Litter of ${animalName(l.dam)}` })),
   ];
   const whoError = form.formState.errors.who?.message;
   return (

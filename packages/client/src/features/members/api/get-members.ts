@@ -1,17 +1,18 @@
-import { queryOptions, useSuspenseQuery } from '@tanstack/react-query';
-import type { MemberDto } from '@burrowline/shared';
+import { keepPreviousData, queryOptions, useQuery } from '@tanstack/react-query';
+import type { MemberListDto, MemberListView } from '@burrowline/shared';
 import { apiFetch } from '../../../lib/api-client';
 import { memberKeys } from './member-keys';
 
-export async function getMembers(signal?: AbortSignal): Promise<MemberDto[]> {
-  return (await apiFetch<{ members: MemberDto[] }>('/api/members', { signal })).members;
+export function getMembers(view: MemberListView, signal?: AbortSignal): Promise<MemberListDto> {
+  const params = new URLSearchParams(Object.entries(view).map(([key, value]) => [key, String(value)]));
+  return apiFetch<MemberListDto>(`/api/members?${params}`, { signal });
 }
 
-export function membersQueryOptions() {
-  return queryOptions({ queryKey: memberKeys.list(), queryFn: ({ signal }) => getMembers(signal) });
+export function membersQueryOptions(view: MemberListView) {
+  return queryOptions({ queryKey: memberKeys.list(view), queryFn: ({ signal }) => getMembers(view, signal) });
 }
 
-/** The whole roster (a co-op is tens of people): the table sorts, filters and pages it in the browser. */
-export function useMembers() {
-  return useSuspenseQuery(membersQueryOptions());
+/** One page of the roster as the server filters, sorts and pages it; the last page stays while the next loads. */
+export function useMembers(view: MemberListView) {
+  return useQuery({ ...membersQueryOptions(view), placeholderData: keepPreviousData });
 }

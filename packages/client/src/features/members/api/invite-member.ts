@@ -13,7 +13,7 @@ export function useInviteMember() {
     mutationFn: inviteMember,
     onSuccess: (member) => {
       queryClient.setQueryData(memberKeys.detail(member.id), member);
-      void queryClient.invalidateQueries({ queryKey: memberKeys.list() });
+      void queryClient.invalidateQueries({ queryKey: memberKeys.lists() });
       void queryClient.invalidateQueries({ queryKey: auditKeys.all });
     },
   });

@@ -1,9 +1,10 @@
-import type { AuditEventQuery } from '@burrowline/shared';
+import type { AuditEventQuery, MemberListView } from '@burrowline/shared';
 
 /** The roster under ['members'], the audit log under ['audit-events'], the co-op's settings under ['coop']. */
 export const memberKeys = {
   all: ['members'] as const,
-  list: () => [...memberKeys.all, 'list'] as const,
+  lists: () => [...memberKeys.all, 'list'] as const,
+  list: (view: MemberListView) => [...memberKeys.lists(), view] as const,
   detail: (userId: string) => [...memberKeys.all, 'detail', userId] as const,
 };
 

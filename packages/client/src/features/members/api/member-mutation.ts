@@ -9,7 +9,7 @@ export function useMemberMutation<V>(userId: string, request: (variables: V) => 
     mutationFn: request,
     onSuccess: (member) => {
       queryClient.setQueryData(memberKeys.detail(userId), member);
-      void queryClient.invalidateQueries({ queryKey: memberKeys.list() });
+      void queryClient.invalidateQueries({ queryKey: memberKeys.lists() });
       void queryClient.invalidateQueries({ queryKey: auditKeys.all });
       void queryClient.invalidateQueries({ queryKey: ['farms'] });
     },

@@ -1,15 +1,4 @@
-import {
-  getCoreRowModel,
-  getFilteredRowModel,
-  getPaginationRowModel,
-  getSortedRowModel,
-  useReactTable,
-  type ColumnDef,
-  type ColumnFiltersState,
-  type FilterFn,
-  type SortingState,
-  type Updater,
-} from '@tanstack/react-table';
+import { getCoreRowModel, useReactTable, type ColumnDef, type SortingState, type Updater } from '@tanstack/react-table';
 import { useMemo } from 'react';
 import type { MemberDto, MemberListView, MemberSortKey } from '@burrowline/shared';
 import { DataTable, Pagination, RowLink } from '../../../components/ui/data-table';
@@ -25,14 +14,6 @@ function MemberLink({ member, cover = false }: { member: MemberDto; cover?: bool
   );
 }
 
-const equals: FilterFn<MemberDto> = (row, columnId, value) => row.getValue(columnId) === value;
-
-const matchesSearch: FilterFn<MemberDto> = (row, _columnId, value: string) => {
-  const needle = value.toLowerCase();
-  const m = row.original;
-  return [m.name, m.email, m.farm?.name ?? ''].some((text) => text.toLowerCase().includes(needle));
-};
-
 const columns: ColumnDef<MemberDto>[] = [
   {
     id: 'name',
@@ -45,14 +26,14 @@ const columns: ColumnDef<MemberDto>[] = [
       </div>
     ),
   },
-  { id: 'role', accessorFn: (m) => m.role, header: 'Role', filterFn: equals, cell: ({ row }) => roleLabels[row.original.role] },
+  { id: 'role', accessorFn: (m) => m.role, header: 'Role', cell: ({ row }) => roleLabels[row.original.role] },
   {
     id: 'farm',
     accessorFn: (m) => (m.farm?.name ?? m.invitation?.farmName ?? '').toLowerCase(),
     header: 'Farm',
     cell: ({ row }) => row.original.farm?.name ?? (row.original.invitation ? <span className="text-grey-600">{row.original.invitation.farmName} (on accepting)</span> : <span className="text-grey-600">None</span>),
   },
-  { id: 'status', accessorFn: (m) => m.status, header: 'Status', filterFn: equals, cell: ({ row }) => <MemberStatusBadge status={row.original.status} /> },
+  { id: 'status', accessorFn: (m) => m.status, header: 'Status', cell: ({ row }) => <MemberStatusBadge status={row.original.status} /> },
   {
     id: 'lastSignInAt',
     accessorFn: (m) => m.lastSignInAt ?? '',
@@ -64,44 +45,37 @@ const columns: ColumnDef<MemberDto>[] = [
 
 interface MembersTableProps {
   members: MemberDto[];
+  total: number;
   view: MemberListView;
   onView: (patch: Partial<MemberListView>) => void;
+  isRefreshing: boolean;
 }
 
-/** The roster: sorted, filtered, searched and paged in the browser, with the view kept in the address. */
-export function MembersTable({ members, view, onView }: MembersTableProps) {
+/** The roster: the server filters, sorts and pages it; this table only shows and asks, with the view kept in the address. */
+export function MembersTable({ members, total, view, onView, isRefreshing }: MembersTableProps) {
   const sorting = useMemo<SortingState>(() => [{ id: view.sort, desc: view.dir === 'desc' }], [view.sort, view.dir]);
-  const columnFilters = useMemo<ColumnFiltersState>(
-    () => [
-      ...(view.role !== 'all' ? [{ id: 'role', value: view.role }] : []),
-      ...(view.status !== 'all' ? [{ id: 'status', value: view.status }] : []),
-    ],
-    [view.role, view.status],
-  );
   const table = useReactTable({
     data: members,
     columns,
     getRowId: (row) => row.id,
     getCoreRowModel: getCoreRowModel(),
-    getSortedRowModel: getSortedRowModel(),
-    getFilteredRowModel: getFilteredRowModel(),
-    getPaginationRowModel: getPaginationRowModel(),
-    globalFilterFn: matchesSearch,
+    manualSorting: true,
+    manualPagination: true,
+    manualFiltering: true,
     enableSortingRemoval: false,
-    autoResetPageIndex: false,
-    state: { sorting, columnFilters, globalFilter: view.q, pagination: { pageIndex: view.page - 1, pageSize: view.pageSize } },
+    rowCount: total,
+    state: { sorting, pagination: { pageIndex: view.page - 1, pageSize: view.pageSize } },
     onSortingChange: (updater: Updater<SortingState>) => {
       const first = (typeof updater === 'function' ? updater(sorting) : updater)[0];
       if (first) onView({ sort: first.id as MemberSortKey, dir: first.desc ? 'desc' : 'asc', page: 1 });
     },
   });
-  const total = table.getFilteredRowModel().rows.length;
-
   return (
     <div className="space-y-4">
       <DataTable
         table={table}
         caption="Members"
+        isRefreshing={isRefreshing}
         empty={view.q ? `Nobody matches "${view.q}".` : 'Nobody here with these filters.'}
         renderCard={(row) => {
           const m = row.original;
