@@ -23,7 +23,10 @@ interface Arranged {
   growTo(total: number): Promise<number>;
 }
 
-/** One endpoint and how to give it 10, then 1,000 rows of what it shows. */
+/**
+ * One endpoint and how to give it 10, then 1,000 rows of what it shows. A paged list is asked for pages
+ * of 10, so both are a full page: a short page tells its own total, a full one counts the rest.
+ */
 interface Endpoint {
   name: string;
   arrange(coop: TestCoop): Promise<Arranged>;
@@ -46,7 +49,7 @@ const endpoints: Endpoint[] = [
       const doe = await addAnimalAs(coop.member, { sex: 'doe' });
       const farm = coop.member.farmId;
       return {
-        url: '/api/animals',
+        url: '/api/animals?pageSize=10',
         asker: coop.member,
         growTo: grower(coop.id, 'animals', doe.id, { tattoo: `t.tattoo || '-' || left(md5(random()::text), 8)` }, 'keeping_farm_id = $2', [farm]),
       };
@@ -71,7 +74,7 @@ const endpoints: Endpoint[] = [
       const doe = await addAnimalAs(coop.member, { sex: 'doe' });
       const weighInId = await firstWeighIn(coop.member, doe.id);
       return {
-        url: `/api/animals/${doe.id}/weigh-ins`,
+        url: `/api/animals/${doe.id}/weigh-ins?pageSize=10`,
         asker: coop.member,
         growTo: grower(coop.id, 'weigh_ins', weighInId, {}, 'animal_id = $2', [doe.id]),
       };
@@ -79,18 +82,18 @@ const endpoints: Endpoint[] = [
   },
   {
     name: 'the litters',
-    over: { ownBudget: 6, why: 'the litters, their events, the dams’ earlier litters, the animals and the breeds they present' },
+    over: { ownBudget: 7, why: 'each state\'s count (with the total), the page of litters, their events, the dams’ earlier litters, the animals and the breeds they present' },
     async arrange(coop) {
       const { litter } = await litterAs(coop.member, { servicedDaysAgo: 60, kindledDaysAgo: 29, bornAlive: 7 });
-      return { url: '/api/litters', asker: coop.member, growTo: litterGrower(coop.id, litter.id) };
+      return { url: '/api/litters?pageSize=10', asker: coop.member, growTo: litterGrower(coop.id, litter.id) };
     },
   },
   {
     name: 'the services',
-    over: { ownBudget: 6, why: 'the cycle settings, the services, their palpations, the animals and the breeds they present' },
+    over: { ownBudget: 7, why: 'the total, the cycle settings, the page of services, their palpations, the animals and the breeds they present' },
     async arrange(coop) {
       const { service } = await litterAs(coop.member, { servicedDaysAgo: 60, kindledDaysAgo: 29, bornAlive: 7 });
-      return { url: '/api/services', asker: coop.member, growTo: grower(coop.id, 'services', service.id) };
+      return { url: '/api/services?pageSize=10', asker: coop.member, growTo: grower(coop.id, 'services', service.id) };
     },
   },
   {
@@ -151,9 +154,10 @@ const endpoints: Endpoint[] = [
   },
   {
     name: 'the members',
+    over: { ownBudget: 6, why: 'the page of ids with its total, then the people, their invitations, last sign-ins, who invited them and their farms' },
     async arrange(coop) {
       return {
-        url: '/api/members',
+        url: '/api/members?pageSize=10',
         asker: coop.admin,
         growTo: grower(coop.id, 'users', coop.otherFarmMember.id, { email: `'copy-' || left(md5(random()::text), 8) || '-' || t.email` }),
       };
