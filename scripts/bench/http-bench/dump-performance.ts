@@ -1,5 +1,7 @@
 // Prints the performance tables of the given members' farms as JSON, to compare two versions of the
 // code on the same data. DUMP_ACTORS: a JSON list of session users (id, coopId, farmId, email, name, role).
+export {};
+
 const { connectDatabase, closeDatabase } = await import('../../../packages/server/src/composition/database');
 const { farmPerformance } = await import('../../../packages/server/src/modules/performance/performance.service');
 connectDatabase(process.env.DATABASE_URL!);

@@ -1,6 +1,6 @@
 import { Op, type Transaction } from 'sequelize';
 import { addDays, daysBetween, gompertzWeight, referenceCurve } from '@burrowline/shared';
-import { groupWeighInsOf } from '../animals/group-weigh-ins.service';
+import { acceptedGroupWeightsOf } from '../animals/group-weigh-ins.service';
 import { litterParentsOf } from '../litters/litter-facts.service';
 import { GrowOutGroup } from './grow-out-group.model';
 import { contextOf, groupFeedTotals, headsOn, membersOf } from './grow-out-context';
@@ -41,7 +41,7 @@ export async function growOutFactsOfFarm(
   });
   const members = await membersOf(tx, groups.map((g) => g.id));
   const litters = await litterParentsOf(tx, coopId, members.map((m) => m.litterId));
-  const weighIns = await groupWeighInsOf(tx, coopId, groups.map((g) => g.id), { acceptedOnly: true });
+  const weighIns = await acceptedGroupWeightsOf(tx, coopId, groups.map((g) => g.id));
   const feed = opts.withFeed === false ? new Map<string, { grams: number; costCents: number }>() : await groupFeedTotals(tx, coopId, farmId);
   const membersByGroup = groupBy(members, (m) => m.groupId);
   const weighInsByGroup = groupBy(weighIns, (w) => w.groupId);
