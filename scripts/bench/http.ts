@@ -188,7 +188,17 @@ try {
     await load(`${apiUrl}${route}`, 10, init, 2);
     const r = await load(`${apiUrl}${route}`, 10, init);
     const statements = await statementsPerRequest(() => fetch(`${apiUrl}${route}`, init as RequestInit), 10);
-    console.log(`  ${label.padEnd(34)} p50 ${ms(r.p50)}  p99 ${ms(r.p99)}  ${r.rps.toFixed(1).padStart(6)} req/s  ${statements.toFixed(1)} statements a request${r.bad ? `  (${r.bad} failed)` : ''}`);
+    // One connection, one request after another: the cost of one answer (and a figure even when none
+    // of the loaded requests finished within a round).
+    const alone: number[] = [];
+    for (let i = 0; i < 7; i++) {
+      const t = performance.now();
+      await (await fetch(`${apiUrl}${route}`, init as RequestInit)).arrayBuffer();
+      alone.push(performance.now() - t);
+    }
+    alone.sort((x, y) => x - y);
+    console.log(`  ${label.padEnd(34)} p50 ${ms(r.p50)}  p99 ${ms(r.p99)}  ${r.rps.toFixed(1).padStart(6)} req/s${r.bad ? ` (${r.bad} failed)` : ''};  `
+      + `1 connection: median ${ms(alone[3]!)};  ${statements.toFixed(1)} statements a request`);
   }
   const herdStatements = await statementsPerRequest(() => fetch(`${apiUrl}/api/animals`, { headers }));
   console.log(`  herd list: ${herdStatements.toFixed(1)} statements a request (session and transaction included)`);
