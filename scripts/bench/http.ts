@@ -5,7 +5,7 @@
 // statements a request sends (pg_stat_statements), the other heavy reads at 10 connections and the
 // plans of the heavy queries. Prints figures; never a timed test.
 // Run: `npm run bench http` (or `npm run bench http -- --200k`). BENCH_PG_PORT (default 54380),
-// BENCH_API_PORT / BENCH_BARE_PORT (3380 / 3381), BENCH_HTTP_SECONDS (8 a round), BENCH_HTTP_ROUNDS (3).
+// BENCH_API_PORT / BENCH_BARE_PORT (default 0: any free port), BENCH_HTTP_SECONDS (8 a round), BENCH_HTTP_ROUNDS (3).
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
@@ -29,8 +29,8 @@ const autocannon = createRequire(import.meta.url)('autocannon') as Autocannon;
 const big = process.argv.includes('--200k') || process.env.BENCH_HTTP_ANIMALS === '200000';
 const ANIMALS = big ? 200_000 : 50_000;
 const PG_PORT = Number(process.env.BENCH_PG_PORT ?? 54380);
-const API_PORT = Number(process.env.BENCH_API_PORT ?? 3380);
-const BARE_PORT = Number(process.env.BENCH_BARE_PORT ?? 3381);
+const API_PORT = Number(process.env.BENCH_API_PORT ?? 0);
+const BARE_PORT = Number(process.env.BENCH_BARE_PORT ?? 0);
 const SECONDS = Number(process.env.BENCH_HTTP_SECONDS ?? 8);
 const ROUNDS = Number(process.env.BENCH_HTTP_ROUNDS ?? 3);
 const name = `bench-http-${ANIMALS / 1000}k`;
@@ -109,13 +109,15 @@ async function signIn(url: string): Promise<string> {
   return res.headers.getSetCookie().map((x) => x.split(';')[0]).join('; ');
 }
 
-function startChild(script: string, args: string[]): Promise<ChildProcess> {
+/** Starts a server script; resolves with the process and the port it listens on (0 = any free port). */
+function startChild(script: string, args: string[]): Promise<{ child: ChildProcess; port: number }> {
   const child = spawn(process.execPath, ['--import', 'tsx', path.join(import.meta.dirname, 'http-bench', script), ...args], {
-    cwd: root, env: { ...process.env, ...env }, stdio: ['ignore', 'pipe', 'inherit'],
+    cwd: root, env: { ...process.env, ...env }, stdio: ['pipe', 'pipe', 'inherit'],
   });
   return new Promise((resolve, reject) => {
     child.stdout!.on('data', (chunk: Buffer) => {
-      if (chunk.toString().includes('ready')) resolve(child);
+      const ready = /ready (\d+)/.exec(chunk.toString());
+      if (ready) resolve({ child, port: Number(ready[1]) });
     });
     child.on('exit', (code) => reject(new Error(`${script} exited with ${code}`)));
   });
@@ -142,10 +144,11 @@ async function statementsPerRequest(send: () => Promise<Response>, n = 20): Prom
 }
 
 await captureHerdQuery();
-const apiUrl = `http://127.0.0.1:${API_PORT}`;
-const bareUrl = `http://127.0.0.1:${BARE_PORT}`;
-const children = [await startChild('api-server.ts', [String(API_PORT)]), await startChild('bare-server.ts', [String(BARE_PORT), queryFile])];
-const stop = () => children.forEach((child) => child.kill('SIGTERM'));
+const api = await startChild('api-server.ts', [String(API_PORT)]);
+const bareServer = await startChild('bare-server.ts', [String(BARE_PORT), queryFile]);
+const apiUrl = `http://127.0.0.1:${api.port}`;
+const bareUrl = `http://127.0.0.1:${bareServer.port}`;
+const stop = () => [api.child, bareServer.child].forEach((child) => child.kill('SIGTERM'));
 process.on('exit', stop);
 try {
   const cookie = await signIn(apiUrl);

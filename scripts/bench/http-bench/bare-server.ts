@@ -28,5 +28,8 @@ const server = http.createServer((req, res) => {
     }
   })();
 });
-server.listen(Number(portText), '127.0.0.1', () => console.log('ready'));
+server.listen(Number(portText), '127.0.0.1', () => console.log(`ready ${(server.address() as { port: number }).port}`));
 process.on('SIGTERM', () => process.exit(0));
+// The benchmark holds our stdin open: when it goes (even killed), so do we.
+process.stdin.on('end', () => process.exit(0));
+process.stdin.resume();
