@@ -7,7 +7,9 @@ import path from 'node:path';
 
 const root = path.resolve(import.meta.dirname, '..');
 const benchDir = path.join(root, 'scripts', 'bench');
-const filters = process.argv.slice(2);
+const filters = process.argv.slice(2).filter((arg) => !arg.startsWith('--'));
+// Flags (e.g. `npm run bench http -- --200k`) go to every benchmark run.
+const flags = process.argv.slice(2).filter((arg) => arg.startsWith('--'));
 const files = fs
   .readdirSync(benchDir)
   .filter((file) => file.endsWith('.ts'))
@@ -23,7 +25,7 @@ const failed = [];
 for (const file of files) {
   console.log(`\n=== ${file} ===`);
   const started = Date.now();
-  const result = spawnSync(process.execPath, ['--import', 'tsx', path.join(benchDir, file)], { cwd: root, stdio: 'inherit' });
+  const result = spawnSync(process.execPath, ['--import', 'tsx', path.join(benchDir, file), ...flags], { cwd: root, stdio: 'inherit' });
   if (result.status !== 0) failed.push(file);
   console.log(`--- ${file}: ${result.status === 0 ? 'done' : 'FAILED'} in ${((Date.now() - started) / 1000).toFixed(1)} s`);
 }

@@ -11,7 +11,10 @@ import {
   breedMakeupAll, inbreedingCoefficients, offspringBreedMakeupMany, offspringInbreedingMany, pedigreeCompletenessAll,
   recomputeInbreeding, type BreedAnimal,
 } from '@burrowline/shared';
+import { CoopPedigree } from '../../packages/shared/src/pedigree/coop-pedigree';
 import { indexPedigree } from '../../packages/shared/src/pedigree/pedigree-index';
+import { TraceKernel } from '../../packages/shared/src/pedigree/trace-kernel';
+import { plainMeuwissenLuo } from './pedigree-bench/plain-meuwissen-luo';
 import { pick, randomInt, seededRandom, shuffled, type Random } from '../../packages/shared/src/pedigree/seeded-random';
 
 // BENCH_PEDIGREE_ANIMALS=300000 shows how the cost grows with more generations of records.
@@ -142,6 +145,23 @@ function depth(list: ReadonlyArray<BreedAnimal>, order: ReadonlyArray<string>): 
   return Math.max(...generation.values());
 }
 
+/** Two pieces of work timed in turn (a warm-up each, then 2 × RUNS + 1 runs each), medians. */
+function alternate<A, B>(a: () => A, b: () => B): [{ ms: number; result: A }, { ms: number; result: B }] {
+  let resultA = a();
+  let resultB = b();
+  const timesA: number[] = [];
+  const timesB: number[] = [];
+  for (let i = 0; i < 2 * RUNS + 1; i++) {
+    let t0 = performance.now();
+    resultA = a();
+    timesA.push(performance.now() - t0);
+    t0 = performance.now();
+    resultB = b();
+    timesB.push(performance.now() - t0);
+  }
+  return [{ ms: median(timesA), result: resultA }, { ms: median(timesB), result: resultB }];
+}
+
 const fmt = (ms: number) => `${ms.toFixed(1)} ms`;
 const t0 = performance.now();
 const coop = generateCoop(20240601);
@@ -159,6 +179,43 @@ for (const value of f.values()) {
   if (value > 0) inbred++;
 }
 const indexing = time(() => indexPedigree(rows));
+// The yardstick: Meuwissen & Luo as the paper gives it, on the same indexed pedigree (typed arrays),
+// against the kernel every pedigree computation here uses (generation order, full sibs traced once).
+const plainIndex = indexPedigree(rows);
+const kernelAll = () => {
+  const kernel = new TraceKernel(plainIndex.size);
+  for (let position = 0; position < plainIndex.size; position++) kernel.place(position, plainIndex.sire[position]!, plainIndex.dam[position]!);
+  kernel.settleRange(0, plainIndex.size);
+  return kernel;
+};
+// Alternated run by run, so a busy machine slows both alike.
+const [plain, kernelOnly] = alternate(() => plainMeuwissenLuo(plainIndex), kernelAll);
+// The same, end to end from the list of rows (reading the ids into an index included).
+const [plainFromRows, oursFromRows] = alternate(() => plainMeuwissenLuo(indexPedigree(rows)), () => CoopPedigree.build(rows));
+let plainDifference = 0;
+for (let row = 0; row < rows.length; row++) {
+  plainDifference = Math.max(plainDifference, Math.abs(plain.result[plainIndex.positionOfRow[row]!]! - f.get(rows[row]!.id)!));
+}
+// The co-op's kept pedigree: built once, then kinship of one doe with 200 bucks, and updates in place.
+const kept = time(() => CoopPedigree.build(rows));
+const pedigreeIndex = kept.result;
+const twoHundred = [...coop.bucks, ...rows.filter((row) => !coop.bucks.includes(row.id)).slice(0, 200 - coop.bucks.length).map((row) => row.id)];
+const keptKinship = time(() => pedigreeIndex.offspringInbreedingMany(coop.doe, twoHundred));
+const updates: number[] = [];
+const corrections: number[] = [];
+const earlyRow = rows.find((row) => row.id === coop.earlyBreeder)!;
+for (let run = 0; run <= RUNS; run++) {
+  let t = performance.now();
+  pedigreeIndex.apply(Array.from({ length: 6 }, (_, k) => ({ id: `kept-kit-${run}-${k}`, sireId: coop.bucks[run % coop.bucks.length]!, damId: coop.doe })));
+  if (run > 0) updates.push(performance.now() - t);
+  t = performance.now();
+  pedigreeIndex.apply([{ id: earlyRow.id, sireId: earlyRow.sireId, damId: run % 2 === 0 ? null : earlyRow.damId }]);
+  if (run > 0) corrections.push(performance.now() - t);
+}
+pedigreeIndex.apply([{ id: earlyRow.id, sireId: earlyRow.sireId, damId: earlyRow.damId }]);
+const full = inbreedingCoefficients(pedigreeIndex.rows());
+let keptDifference = 0;
+for (const [id, value] of pedigreeIndex.inbreedingAll()) keptDifference = Math.max(keptDifference, Math.abs(value - full.get(id)!));
 const ranking = time(() => offspringInbreedingMany(rows, coop.doe, coop.bucks, f));
 const rankingCold = time(() => offspringInbreedingMany(rows, coop.doe, coop.bucks));
 // A new litter of 6 kits recorded, and the dam of an early home-bred breeder corrected (all its
@@ -185,6 +242,15 @@ console.log('');
 console.log(`inbreedingCoefficients, all animals   ${fmt(inbreeding.ms).padStart(10)}  ` +
   `(${Math.round(rows.length / (inbreeding.ms / 1000)).toLocaleString('en-US')} animals/s; goal < 1 s: ${inbreeding.ms < 1000 ? 'met' : 'NOT met'})`);
 console.log(`  of which reading the list into a topological index ${fmt(indexing.ms)}`);
+console.log(`F of all animals on the indexed pedigree: plain Meuwissen & Luo (1992) as the paper gives it ${fmt(plain.ms)}, ` +
+  `ours ${fmt(kernelOnly.ms)} → ${(plain.ms / kernelOnly.ms).toFixed(1)} × faster (goal ≥ 3 ×: ${plain.ms / kernelOnly.ms >= 3 ? 'met' : 'NOT met'}); ` +
+  `largest difference in F ${plainDifference.toExponential(1)}`);
+console.log(`  from the list of rows, index included: plain ${fmt(plainFromRows.ms)}, ours (the co-op pedigree's build) ${fmt(oursFromRows.ms)} → ` +
+  `${(plainFromRows.ms / oursFromRows.ms).toFixed(1)} × (reading string ids into the index is most of both)`);
+console.log(`co-op pedigree kept in memory: built in ${fmt(kept.ms)}; litter F of one doe × ${twoHundred.length} bucks ${fmt(keptKinship.ms)} ` +
+  `(goal < 50 ms: ${keptKinship.ms < 50 ? 'met' : 'NOT met'})`);
+console.log(`  updated in place: a new litter of 6 kits ${fmt(median(updates))}, one breeder's dam corrected ${fmt(median(corrections))}; ` +
+  `largest difference from a full recompute ${keptDifference.toExponential(1)}`);
 console.log(`  F: mean ${(sum / f.size).toFixed(4)}, max ${max.toFixed(4)}, inbred (F > 0) ${((100 * inbred) / f.size).toFixed(1)} %`);
 console.log(`offspringInbreedingMany, ${coop.bucks.length} bucks × 1 doe, with stored F  ${fmt(ranking.ms).padStart(10)}`);
 console.log(`offspringInbreedingMany, ${coop.bucks.length} bucks × 1 doe, no stored F    ${fmt(rankingCold.ms).padStart(10)}`);

@@ -11,13 +11,31 @@ function parts(date: string): [number, number, number] {
   return [Number(match[1]), Number(match[2]), Number(match[3])];
 }
 
+// Years of records repeat the same few thousand dates: each is parsed (or formatted) once. Bounded,
+// so a long-running server cannot grow them without end.
+const CACHED_DATES = 50_000;
+const msOfDate = new Map<string, number>();
+const dateOfMs = new Map<number, string>();
+
 function toUtcMs(date: string): number {
-  const [y, m, d] = parts(date);
-  return Date.UTC(y, m - 1, d);
+  let ms = msOfDate.get(date);
+  if (ms === undefined) {
+    const [y, m, d] = parts(date);
+    ms = Date.UTC(y, m - 1, d);
+    if (msOfDate.size >= CACHED_DATES) msOfDate.clear();
+    msOfDate.set(date, ms);
+  }
+  return ms;
 }
 
 function fromUtcMs(ms: number): string {
-  return new Date(ms).toISOString().slice(0, 10);
+  let date = dateOfMs.get(ms);
+  if (date === undefined) {
+    date = new Date(ms).toISOString().slice(0, 10);
+    if (dateOfMs.size >= CACHED_DATES) dateOfMs.clear();
+    dateOfMs.set(ms, date);
+  }
+  return date;
 }
 
 /** Today in an IANA time zone, e.g. `todayIn('America/Chicago')` → "2025-04-30". */

@@ -5,8 +5,8 @@
  * populations", Genet. Sel. Evol. 24:305–313. With A = L·D·L' (L lower triangular, D diagonal with
  * d_i = ½ − ¼(F_sire + F_dam), taking F = −1 for an unknown parent, so d = 1 for a founder and
  * ¾ − ¼F for one known parent), the diagonal is a_ii = Σ_j l_ij² d_j over i and its ancestors j, and
- * F_i = a_ii − 1. Row i of L is traced from i back through its ancestors, taking ancestors in
- * decreasing topological position (here with a max-heap), so each ancestor is visited once per row.
+ * F_i = a_ii − 1. Row i of L is traced from i back through its ancestors, youngest first, so each
+ * ancestor is visited once per row (see `trace-kernel.ts` for the order kept by generation).
  *
  * Two savings on top of the paper: the animals' F depends only on the pair of parents, so full sibs
  * (the litter mates of one mating, and repeat matings) share one trace; and the F of a prospective
@@ -17,105 +17,31 @@
  * depth; the tabular method (additive relationship matrix) is kept as an independent check.
  */
 import { ancestorClosure, indexPedigree, type PedigreeAnimal, type PedigreeIndex } from './pedigree-index';
+import { TraceKernel } from './trace-kernel';
 
 /** Precomputed F by animal id, e.g. the result of `inbreedingCoefficients` on the same pedigree. */
 export type InbreedingById = ReadonlyMap<string, number>;
 
 /** Working buffers of the Meuwissen–Luo trace over one indexed pedigree, reused across rows. */
 class MeuwissenLuo {
-  /** F by position; valid where `known` is 1. */
-  readonly f: Float64Array;
-  /** Mendelian-sampling variance d_i by position; valid where `known` is 1. */
-  readonly d: Float64Array;
-  readonly known: Uint8Array;
-  /** One row of L, kept all-zero between traces (a non-zero entry means "queued"). */
-  private readonly l: Float64Array;
-  private readonly heap: Int32Array;
+  readonly kernel: TraceKernel;
 
   constructor(private readonly index: PedigreeIndex) {
-    const size = index.size;
-    this.f = new Float64Array(size);
-    this.d = new Float64Array(size);
-    this.known = new Uint8Array(size);
-    this.l = new Float64Array(size);
-    this.heap = new Int32Array(size);
+    this.kernel = new TraceKernel(index.size);
+    for (let position = 0; position < index.size; position++) this.kernel.place(position, index.sire[position]!, index.dam[position]!);
   }
 
-  /** Sets F of `position` (computed or given) and its d from the parents' F (which must be known). */
-  private settle(position: number, f: number): void {
-    const s = this.index.sire[position]!;
-    const dm = this.index.dam[position]!;
-    const fs = s < 0 ? -1 : this.f[s]!;
-    const fd = dm < 0 ? -1 : this.f[dm]!;
-    this.f[position] = f;
-    this.d[position] = 0.5 - 0.25 * (fs + fd);
-    this.known[position] = 1;
+  get f(): Float64Array {
+    return this.kernel.f;
   }
 
-  /**
-   * F of a (real or virtual) offspring of `s` × `dm` — equal to the kinship of `s` and `dm`.
-   * Needs F and d of every ancestor of `s` and `dm`, including themselves.
-   */
   offspringF(s: number, dm: number): number {
-    if (s < 0 || dm < 0) return 0;
-    const { f, d, l, heap } = this;
-    const sire = this.index.sire;
-    const dam = this.index.dam;
-    // The offspring's own term l_ii² d_i, with l_ii = 1.
-    let diagonal = 0.5 - 0.25 * (f[s]! + f[dm]!);
-    let size = 0;
-    // Queue the parents with l = ½ each (l = 1 when the same animal is both sire and dam).
-    l[s] = 0.5;
-    heap[size++] = s;
-    if (dm === s) {
-      l[s] = 1;
-    } else {
-      l[dm] = 0.5;
-      size = heapPush(heap, size, dm);
-    }
-    while (size > 0) {
-      // Pop the highest position: all its descendants in this row have been processed.
-      const j = heap[0]!;
-      size--;
-      if (size > 0) heapSiftDown(heap, size, heap[size]!);
-      const lj = l[j]!;
-      l[j] = 0;
-      diagonal += lj * lj * d[j]!;
-      const half = 0.5 * lj;
-      const sj = sire[j]!;
-      if (sj >= 0) {
-        if (l[sj] === 0) size = heapPush(heap, size, sj);
-        l[sj]! += half;
-      }
-      const dj = dam[j]!;
-      if (dj >= 0) {
-        if (l[dj] === 0) size = heapPush(heap, size, dj);
-        l[dj]! += half;
-      }
-    }
-    return diagonal - 1;
+    return this.kernel.offspringF(s, dm);
   }
 
   /** F of every position, in topological order; full sibs share one trace. */
   computeAll(): void {
-    const { size, sire, dam } = this.index;
-    const byParents = new Map<number, number>();
-    for (let position = 0; position < size; position++) {
-      const s = sire[position]!;
-      const dm = dam[position]!;
-      let f = 0;
-      if (s >= 0 && dm >= 0) {
-        const key = s < dm ? s * size + dm : dm * size + s;
-        const cached = byParents.get(key);
-        if (cached === undefined) {
-          f = this.offspringF(s, dm);
-          byParents.set(key, f);
-        } else {
-          f = cached;
-        }
-      }
-      this.settle(position, f);
-    }
+    this.kernel.settleRange(0, this.index.size);
   }
 
   /**
@@ -123,42 +49,13 @@ class MeuwissenLuo {
    * (except at positions marked in `recompute`).
    */
   computeAncestors(start: ReadonlyArray<number>, precomputed?: InbreedingById, recompute?: Uint8Array): void {
-    const closure = ancestorClosure(this.index, start, this.known);
+    const closure = ancestorClosure(this.index, start, this.kernel.known);
     const { ids, sire, dam } = this.index;
     for (const position of closure) {
       const given = recompute?.[position] ? undefined : precomputed?.get(ids[position]!);
-      this.settle(position, given ?? this.offspringF(sire[position]!, dam[position]!));
+      this.kernel.settle(position, given ?? this.kernel.offspringF(sire[position]!, dam[position]!));
     }
   }
-}
-
-function heapPush(heap: Int32Array, size: number, value: number): number {
-  let i = size;
-  while (i > 0) {
-    const parent = (i - 1) >> 1;
-    const p = heap[parent]!;
-    if (p >= value) break;
-    heap[i] = p;
-    i = parent;
-  }
-  heap[i] = value;
-  return size + 1;
-}
-
-/** Places `value` from the root down in a heap of `size` entries (after the root was taken). */
-function heapSiftDown(heap: Int32Array, size: number, value: number): void {
-  let i = 0;
-  for (;;) {
-    let child = 2 * i + 1;
-    if (child >= size) break;
-    const right = child + 1;
-    if (right < size && heap[right]! > heap[child]!) child = right;
-    const c = heap[child]!;
-    if (c <= value) break;
-    heap[i] = c;
-    i = child;
-  }
-  heap[i] = value;
 }
 
 /**

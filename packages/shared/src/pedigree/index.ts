@@ -7,3 +7,4 @@ export {
   asDyadicFraction, breedMakeup, breedMakeupAll, combineBreedMakeup, offspringBreedMakeup, offspringBreedMakeupMany,
   type BreedAnimal, type BreedMakeup, type BreedPurity,
 } from './breed-makeup';
+export { CoopPedigree } from './coop-pedigree';

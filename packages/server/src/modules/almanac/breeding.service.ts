@@ -347,7 +347,10 @@ export interface ServiceOutcomeFacts {
  */
 export async function serviceOutcomesOfFarm(tx: Transaction, coopId: string, farmId: string, today: string): Promise<ServiceOutcomeFacts[]> {
   const { settings } = await settingsOf(tx, farmId);
-  const rows = await ServiceRecord.findAll({ where: { coopId, farmId }, order: [['servicedOn', 'ASC'], ['createdAt', 'ASC']], raw: true, transaction: tx });
+  const rows = await ServiceRecord.findAll({
+    where: { coopId, farmId }, attributes: ['id', 'doeId', 'buckId', 'servicedOn', 'status', 'closedOn', 'litterId'],
+    order: [['servicedOn', 'ASC'], ['createdAt', 'ASC']], raw: true, transaction: tx,
+  });
   return rows.map((r) => ({
     id: r.id,
     doeId: r.doeId,

@@ -152,7 +152,8 @@ export async function createAnimal(actor: SessionUser, input: AnimalCreateInput)
       { coopId: actor.coopId, tableName: 'animals', recordId: animal.id, actorUserId: actor.id, changes: { created: [null, arrived ? 'arrived' : 'born here'] } },
       tx,
     );
-    const changed = await recomputePedigreeFigures(actor.coopId, tx);
+    // Parents entered from papers are new records too.
+    const changed = await recomputePedigreeFigures(actor.coopId, tx, [animal.id, sireId, damId].filter((id): id is string => Boolean(id)));
     announceAfterCommit(tx, actor.coopId, { farmIds: [farmId], animalId: animal.id, figuresChanged: changed });
     return detailOf(tx, actor, ctx, animal.id);
   });
@@ -236,7 +237,7 @@ export async function updateAnimal(actor: SessionUser, animalId: string, input: 
       await animal.save({ transaction: tx });
       await recordChanges({ coopId: actor.coopId, tableName: 'animals', recordId: animal.id, actorUserId: actor.id, changes }, tx);
     }
-    const figuresChanged = ['sireId', 'damId', 'breedId'].some((f) => f in changes) ? await recomputePedigreeFigures(actor.coopId, tx) : 0;
+    const figuresChanged = ['sireId', 'damId', 'breedId'].some((f) => f in changes) ? await recomputePedigreeFigures(actor.coopId, tx, [animal.id, next('sireId'), next('damId')].filter((id): id is string => Boolean(id))) : 0;
     if (Object.keys(changes).length > 0) {
       announceAfterCommit(tx, actor.coopId, { farmIds: [animal.owningFarmId, animal.keepingFarmId], animalId: animal.id, figuresChanged });
     }

@@ -38,6 +38,21 @@ export async function groupWeighInsOf(tx: Transaction, coopId: string, groupIds:
   return rows.map(rowOf);
 }
 
+/** Accepted weigh-ins of grow-out groups, oldest first, with only their weights (years of a farm's groups, read-only). */
+export async function acceptedGroupWeightsOf(
+  tx: Transaction, coopId: string, groupIds: string[],
+): Promise<{ groupId: string; weighedOn: string; totalGrams: number; headCount: number }[]> {
+  if (groupIds.length === 0) return [];
+  const rows = await WeighIn.findAll({
+    where: { coopId, groupId: { [Op.in]: [...new Set(groupIds)] }, reviewState: 'accepted' },
+    attributes: ['groupId', 'weighedOn', 'totalGrams', 'headCount'],
+    order: [['weighedOn', 'ASC'], ['createdAt', 'ASC']],
+    transaction: tx,
+    raw: true,
+  });
+  return rows.map((w) => ({ groupId: w.groupId!, weighedOn: w.weighedOn, totalGrams: w.totalGrams, headCount: w.headCount }));
+}
+
 /** Writes a group weigh-in checked by grow-out; an apprentice's waits for review. */
 export async function insertGroupWeighIn(
   tx: Transaction,

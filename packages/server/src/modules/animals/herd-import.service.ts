@@ -14,7 +14,7 @@ import { AnimalStatusEvent } from './animal-status-event.model';
 import { Animal } from './animal.model';
 import { query } from './animal-queries';
 import { CustodyEvent } from './custody-event.model';
-import { lockCoopPedigree, recomputePedigreeFigures } from './pedigree-figures';
+import { bumpPedigreeVersion, lockCoopPedigree, recomputePedigreeFigures } from './pedigree-figures';
 
 const animalColumns: Record<string, ColumnType> = {
   id: 'uuid', coopId: 'uuid', isOutside: 'boolean', breedingFarmId: 'uuid', breederName: 'text', owningFarmId: 'uuid', keepingFarmId: 'uuid',
@@ -178,7 +178,9 @@ export async function importHerd(
   await insertMany(tx, 'animal_status_events', statusColumns, statusRows);
   await insertMany(tx, 'animal_custody_events', custodyColumns, custodyRows);
   // A caller that writes more in the same transaction recomputes once at the end instead.
-  if (opts.recompute !== false) await recomputePedigreeFigures(coopId, tx);
+  const ids = animals.map((a) => a.id);
+  if (opts.recompute !== false) await recomputePedigreeFigures(coopId, tx, ids);
+  else await bumpPedigreeVersion(coopId, tx, ids);
 }
 
 /** Bulk weigh-ins for animals already loaded (demo growth records). */

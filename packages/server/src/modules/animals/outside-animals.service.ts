@@ -133,7 +133,7 @@ export async function registerOutsideAnimal(actor: SessionUser, input: OutsideAn
     const ctx = await presentContextFor(actor, tx);
     const result = await findOrCreateOutside(tx, actor, input, ctx, '');
     if (Object.keys(result.errors).length > 0 || !result.animalId) throw AppError.validation(result.errors);
-    const changed = await recomputePedigreeFigures(actor.coopId, tx);
+    const changed = await recomputePedigreeFigures(actor.coopId, tx, [result.animalId]);
     announceAfterCommit(tx, actor.coopId, { farmIds: [], animalId: result.animalId, figuresChanged: changed });
     const row = await selectAnimalById(tx, actor.coopId, result.animalId);
     return { animal: presentCard(row!, ctx), matched: result.matched };

@@ -15,6 +15,8 @@ import { lockUntilCommit } from '../../db/advisory-lock';
  *   pedigree. Under READ COMMITTED each statement after the lock sees everything committed before
  *   it, so two concurrent edits cannot each compute from a pedigree missing the other's change (and
  *   cannot together close a cycle that neither saw alone). The lock is released at commit.
+ * - Every such write bumps the co-op's pedigree version (`pedigree_versions`), read by the instances
+ *   that keep the pedigree in memory (coop-pedigree-cache.ts), in the same transaction.
  * - Only changed figures are written, with `computed_at`, in their own tables: recomputing never
  *   bumps an animal's version, and an edit that changes nothing ancestral writes nothing.
  *
@@ -23,6 +25,23 @@ import { lockUntilCommit } from '../../db/advisory-lock';
  */
 export async function lockCoopPedigree(coopId: string, tx: Transaction): Promise<void> {
   await lockUntilCommit(tx, `pedigree:${coopId}`);
+}
+
+/** Beyond this many animals in one change, instances re-read the co-op's rows instead. */
+const MAX_CHANGED_IDS = 5000;
+
+/**
+ * Bumps the co-op's pedigree version inside the transaction that changes the pedigree, naming the
+ * animals changed (new or with a new sire or dam) when known; `null` makes instances compare all rows.
+ */
+export async function bumpPedigreeVersion(coopId: string, tx: Transaction, changedIds: readonly string[] | null): Promise<void> {
+  const ids = changedIds && changedIds.length <= MAX_CHANGED_IDS ? [...new Set(changedIds)] : null;
+  await query(
+    tx,
+    `INSERT INTO pedigree_versions (coop_id, version, changed_ids, changed_at) VALUES ($1, 1, $2::uuid[], now())
+     ON CONFLICT (coop_id) DO UPDATE SET version = pedigree_versions.version + 1, changed_ids = EXCLUDED.changed_ids, changed_at = now()`,
+    [coopId, ids],
+  );
 }
 
 export interface PedigreeRow extends BreedAnimal {
@@ -54,10 +73,13 @@ function canonicalMakeup(breeds: Record<string, number>, unknown: number): strin
 
 /**
  * Recomputes COI and breed make-up for the whole co-op and writes the ones that changed. Call with
- * the pedigree lock held (see above). Returns how many animals' figures changed.
+ * the pedigree lock held (see above). Bumps the co-op's pedigree version, naming `changedIds` (the
+ * animals added or given a new sire or dam; `null` when not known) for the instances that keep the
+ * pedigree in memory. Returns how many animals' figures changed.
  */
-export async function recomputePedigreeFigures(coopId: string, tx: Transaction, rows?: PedigreeRow[]): Promise<number> {
-  const pedigree = rows ?? (await loadPedigreeRows(coopId, tx));
+export async function recomputePedigreeFigures(coopId: string, tx: Transaction, changedIds: readonly string[] | null = null): Promise<number> {
+  await bumpPedigreeVersion(coopId, tx, changedIds);
+  const pedigree = await loadPedigreeRows(coopId, tx);
   const coi = inbreedingCoefficients(pedigree);
   const makeup = breedMakeupAll(pedigree);
 

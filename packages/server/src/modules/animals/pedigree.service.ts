@@ -1,16 +1,16 @@
 import { ForbiddenError } from '@casl/ability';
 import {
-  defineAbilityFor, offspringBreedMakeupMany, offspringInbreedingMany, pedigreeCompleteness, subjectOf, type PedigreeCardDto,
+  combineBreedMakeup, defineAbilityFor, pedigreeCompleteness, subjectOf, type BreedMakeup, type CoopPedigree, type PedigreeCardDto,
   type PedigreeCardListDto, type PedigreeCardQuery, type PedigreeTreeDto, type TrialMatingDto, type TrialMatingInput,
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { presentContextFor } from './animal-context';
-import { query, selectAncestorIds, selectAnimalById, selectAnimals, selectAnimalsByIds } from './animal-queries';
+import { query, selectAncestorIds, selectAnimalById, selectAnimals, selectAnimalsByIds, type AnimalRow } from './animal-queries';
 import type { FieldMessages } from '../farms/farm-access';
 import { labelOf, presentCard, presentMakeup } from './animals.presenter';
-import { loadPedigreeRows, type PedigreeRow } from './pedigree-figures';
+import { coopPedigreeOf } from './coop-pedigree-cache';
 
 /** Pedigree cards are open to every member of the co-op (brief); another co-op's are simply not there. */
 function assertCanReadCards(actor: SessionUser) {
@@ -89,13 +89,13 @@ export async function getPedigreeTree(actor: SessionUser, animalId: string, gene
 }
 
 /** Ancestors of `id` up to `depth` generations, each with the generation it is first met in. */
-function ancestorDepths(byId: Map<string, PedigreeRow>, id: string, depth: number): Map<string, number> {
+function ancestorDepths(pedigree: CoopPedigree, id: string, depth: number): Map<string, number> {
   const found = new Map<string, number>();
   let frontier = [id];
   for (let g = 1; g <= depth && frontier.length > 0; g++) {
     const next: string[] = [];
     for (const current of frontier) {
-      const row = byId.get(current);
+      const row = pedigree.parentsOf(current);
       for (const parent of [row?.sireId, row?.damId]) {
         if (parent && !found.has(parent)) {
           found.set(parent, g);
@@ -108,9 +108,16 @@ function ancestorDepths(byId: Map<string, PedigreeRow>, id: string, depth: numbe
   return found;
 }
 
+/** The stored breed make-up of an animal (computed with the pedigree, in the same transaction). */
+function storedMakeup(row: AnimalRow): BreedMakeup | null {
+  if (!row.makeup_breeds || row.makeup_unknown === null || !row.purity) return null;
+  return { breeds: row.makeup_breeds, unknown: row.makeup_unknown, purity: row.purity };
+}
+
 /**
  * Trial matings: this doe with each of these bucks (own or other farms'). For each litter, its COI
- * (the kinship of the parents, over the whole co-op's pedigree), its breed make-up, and the nearest
+ * (the kinship of the parents, over the whole co-op's pedigree, kept in memory: see
+ * coop-pedigree-cache.ts), its breed make-up (half each parent's stored make-up), and the nearest
  * ancestors the two parents share.
  */
 export async function trialMatings(actor: SessionUser, input: TrialMatingInput): Promise<TrialMatingDto> {
@@ -130,20 +137,21 @@ export async function trialMatings(actor: SessionUser, input: TrialMatingInput):
     });
     if (Object.keys(errors).length > 0 || !dam) throw AppError.validation(errors);
 
-    const pedigree = await loadPedigreeRows(actor.coopId, tx);
-    const byId = new Map(pedigree.map((r) => [r.id, r]));
-    // One pass each over the co-op's pedigree for all candidate bucks, not one per buck.
-    const coi = offspringInbreedingMany(pedigree, dam.id, sireIds);
-    const makeups = offspringBreedMakeupMany(pedigree, dam.id, sireIds);
-    const damAncestors = ancestorDepths(byId, dam.id, 5);
+    const pedigree = await coopPedigreeOf(actor.coopId, tx);
+    const coi = pedigree.offspringInbreedingMany(dam.id, sireIds);
+    const damMakeup = storedMakeup(dam);
+    const damAncestors = ancestorDepths(pedigree, dam.id, 5);
     damAncestors.set(dam.id, 0);
     const names = new Map<string, { name: string; tattoo: string | null }>();
     const commonOf = (sireId: string) => {
-      const sireAncestors = ancestorDepths(byId, sireId, 5);
+      const sireAncestors = ancestorDepths(pedigree, sireId, 5);
       sireAncestors.set(sireId, 0);
       const common = [...sireAncestors.keys()].filter((id) => damAncestors.has(id));
       // Keep the nearest: drop an ancestor that is a parent of another shared one (it is behind it).
-      const isParentOf = (parent: string, child: string) => byId.get(child)?.sireId === parent || byId.get(child)?.damId === parent;
+      const isParentOf = (parent: string, child: string) => {
+        const parents = pedigree.parentsOf(child);
+        return parents?.sireId === parent || parents?.damId === parent;
+      };
       const nearest = common.filter((id) => !common.some((other) => other !== id && isParentOf(id, other)));
       return nearest.sort((a, b) => sireAncestors.get(a)! + damAncestors.get(a)! - (sireAncestors.get(b)! + damAncestors.get(b)!)).slice(0, 6);
     };
@@ -154,7 +162,7 @@ export async function trialMatings(actor: SessionUser, input: TrialMatingInput):
     return {
       dam: presentCard(dam, ctx),
       litters: litters.map(({ sireId, common }) => {
-        const makeup = makeups.get(sireId)!;
+        const makeup = combineBreedMakeup(storedMakeup(rows.get(sireId)!), damMakeup);
         return {
           sire: presentCard(rows.get(sireId)!, ctx),
           coi: Math.min(1, Math.max(0, coi.get(sireId) ?? 0)),

@@ -52,8 +52,16 @@ export async function feedLedgerOf(tx: Transaction, coopId: string, farmId: stri
   };
 }
 
+/** What splitting uses over groups and litters needs of a ledger (the totals read only these columns). */
+interface CostedShares {
+  sharesByUse: Map<string, Pick<FeedUseShare, 'groupId' | 'litterId' | 'grams'>[]>;
+  useById: Map<string, Pick<FeedUse, 'grams'>>;
+  costByUse: Map<string, number>;
+  uses: Pick<FeedUse, 'id'>[];
+}
+
 /** The shares of one use with their cents: the use's cost split by grams, to the cent (largest remainder). */
-export function sharesWithCost(ledger: FeedLedger, useId: string): { groupId: string | null; litterId: string | null; grams: number; costCents: number }[] {
+export function sharesWithCost(ledger: CostedShares, useId: string): { groupId: string | null; litterId: string | null; grams: number; costCents: number }[] {
   const shares = ledger.sharesByUse.get(useId) ?? [];
   if (shares.length === 0) return [];
   const use = ledger.useById.get(useId)!;
@@ -68,7 +76,7 @@ export function sharesWithCost(ledger: FeedLedger, useId: string): { groupId: st
 type Totals = Map<string, { grams: number; costCents: number }>;
 
 /** One pass over the feed book: each use's shares with their cents, added up by group and by nursing litter. */
-function totalsOf(ledger: FeedLedger): { byGroup: Totals; byLitter: Totals } {
+function totalsOf(ledger: CostedShares): { byGroup: Totals; byLitter: Totals } {
   const byGroup: Totals = new Map();
   const byLitter: Totals = new Map();
   const add = (totals: Totals, id: string, grams: number, costCents: number) => {
@@ -88,7 +96,19 @@ function totalsOf(ledger: FeedLedger): { byGroup: Totals; byLitter: Totals } {
 
 /** Feed of each grow-out group and of each nursing litter (with its doe) of a farm, from one reading of its feed book. */
 export async function feedTotalsOfFarm(tx: Transaction, coopId: string, farmId: string): Promise<{ byGroup: Totals; byLitter: Totals }> {
-  return totalsOf(await feedLedgerOf(tx, coopId, farmId));
+  // The same book as feedLedgerOf, with only the columns the costs and splits use (years of rows).
+  // Purchases are few; as models, so their money columns come back as numbers.
+  const purchases = await FeedPurchase.findAll({ where: { coopId, farmId }, order: [['boughtOn', 'ASC'], ['createdAt', 'ASC']], transaction: tx });
+  const uses = await FeedUse.findAll({
+    where: { coopId, farmId }, attributes: ['id', 'feedKey', 'givenOn', 'grams'], order: [['givenOn', 'ASC'], ['createdAt', 'ASC']], transaction: tx, raw: true,
+  });
+  const farmUses = literal(`(SELECT id FROM feed_uses WHERE farm_id = ${FeedUse.sequelize!.escape(farmId)})`);
+  // The shares exactly as the book reads them: their order settles how a use's odd cents are split.
+  const shares = uses.length === 0 ? [] : await FeedUseShare.findAll({ where: { coopId, feedUseId: { [Op.in]: farmUses } }, transaction: tx, raw: true });
+  return totalsOf({
+    uses, costByUse: costOfUses(purchases.map(purchaseFact), uses.map(useFact)), sharesByUse: groupBy(shares, (s) => s.feedUseId),
+    useById: new Map(uses.map((u) => [u.id, u])),
+  });
 }
 
 /** Feed of each grow-out group of a farm, its own and its share of pen- and farm-wide feed. */

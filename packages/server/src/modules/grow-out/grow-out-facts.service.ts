@@ -1,7 +1,7 @@
 import { Op, type Transaction } from 'sequelize';
 import { addDays, daysBetween, gompertzWeight, referenceCurve } from '@burrowline/shared';
-import { groupWeighInsOf } from '../animals/group-weigh-ins.service';
-import { litterFactsOf } from '../litters/litter-facts.service';
+import { acceptedGroupWeightsOf } from '../animals/group-weigh-ins.service';
+import { litterParentsOf } from '../litters/litter-facts.service';
 import { GrowOutGroup } from './grow-out-group.model';
 import { contextOf, groupFeedTotals, headsOn, membersOf } from './grow-out-context';
 import { groupBy } from '../../lib/group-by';
@@ -31,14 +31,17 @@ export interface GrowOutFacts {
 export async function growOutFactsOfFarm(
   tx: Transaction, coopId: string, farmId: string, opts: { groupIds?: string[]; withFeed?: boolean } = {},
 ): Promise<GrowOutFacts[]> {
+  // Plain rows and the litters' parents only: a farm's years of groups, read-only here.
   const groups = await GrowOutGroup.findAll({
     where: { coopId, farmId, ...(opts.groupIds ? { id: { [Op.in]: opts.groupIds } } : {}) },
+    attributes: ['id', 'farmId', 'name', 'formedOn', 'status', 'closedOn', 'targetGrams'],
     order: [['formedOn', 'ASC'], ['createdAt', 'ASC']],
     transaction: tx,
+    raw: true,
   });
   const members = await membersOf(tx, groups.map((g) => g.id));
-  const litters = await litterFactsOf(tx, coopId, members.map((m) => m.litterId));
-  const weighIns = await groupWeighInsOf(tx, coopId, groups.map((g) => g.id), { acceptedOnly: true });
+  const litters = await litterParentsOf(tx, coopId, members.map((m) => m.litterId));
+  const weighIns = await acceptedGroupWeightsOf(tx, coopId, groups.map((g) => g.id));
   const feed = opts.withFeed === false ? new Map<string, { grams: number; costCents: number }>() : await groupFeedTotals(tx, coopId, farmId);
   const membersByGroup = groupBy(members, (m) => m.groupId);
   const weighInsByGroup = groupBy(weighIns, (w) => w.groupId);

@@ -58,6 +58,20 @@ export async function litterFactsOf(tx: Transaction, coopId: string, litterIds: 
   return new Map((await factsOf(tx, litters)).map((f) => [f.id, f]));
 }
 
+/**
+ * Parents and kindling date of litters by id, nothing derived (another co-op's are simply absent): for
+ * reads over years of litters that need no kit counts, such as a farm's grow-out groups.
+ */
+export async function litterParentsOf(
+  tx: Transaction, coopId: string, litterIds: string[],
+): Promise<Map<string, { damId: string; sireId: string; kindledOn: string }>> {
+  if (litterIds.length === 0) return new Map();
+  const litters = await Litter.findAll({
+    where: { coopId, id: { [Op.in]: [...new Set(litterIds)] } }, attributes: ['id', 'damId', 'sireId', 'kindledOn'], transaction: tx, raw: true,
+  });
+  return new Map(litters.map((l) => [l.id, { damId: l.damId, sireId: l.sireId, kindledOn: l.kindledOn }]));
+}
+
 /** Every litter of a farm, latest first. */
 export async function farmLitterFactsOf(tx: Transaction, coopId: string, farmId: string): Promise<LitterFacts[]> {
   const litters = await Litter.findAll({ where: { coopId, farmId }, order: [['kindledOn', 'DESC']], transaction: tx, raw: true });

@@ -458,8 +458,15 @@ export interface LitterPerformanceFacts {
 /** Every litter of a farm with its counting events: two queries, whatever the number of litters. */
 export async function litterFactsOfFarm(tx: Transaction, coopId: string, farmId: string): Promise<LitterPerformanceFacts[]> {
   // Plain rows (raw): a farm's five years are thousands of rows, and nothing here is saved back.
-  const litters = await Litter.findAll({ where: { coopId, farmId }, order: [['kindledOn', 'ASC'], ['createdAt', 'ASC']], raw: true, transaction: tx });
-  const events = litters.length === 0 ? [] : await LitterEvent.findAll({ where: { coopId, farmId }, order: [['occurredOn', 'ASC'], ['createdAt', 'ASC']], raw: true, transaction: tx });
+  // Only the columns used (no timestamps to parse).
+  const litters = await Litter.findAll({
+    where: { coopId, farmId }, attributes: ['id', 'farmId', 'serviceId', 'damId', 'sireId', 'kindledOn', 'bornAlive', 'bornDead'],
+    order: [['kindledOn', 'ASC'], ['createdAt', 'ASC']], raw: true, transaction: tx,
+  });
+  const events = litters.length === 0 ? [] : await LitterEvent.findAll({
+    where: { coopId, farmId }, attributes: ['id', 'litterId', 'kind', 'occurredOn', 'kitCount', 'cause', 'otherLitterId', 'reviewState', 'weaningWeightGrams'],
+    order: [['occurredOn', 'ASC'], ['createdAt', 'ASC']], raw: true, transaction: tx,
+  });
   const byLitter = new Map<string, LitterEvent[]>();
   for (const e of events) {
     const list = byLitter.get(e.litterId);

@@ -43,7 +43,14 @@ export interface ProcessingFacts {
 
 /** Every processing record of a farm, oldest first: one query. */
 export async function processingFactsOfFarm(tx: Transaction, coopId: string, farmId: string): Promise<ProcessingFacts[]> {
-  const rows = await ProcessingRecord.findAll({ where: { coopId, farmId }, order: [['processedOn', 'ASC'], ['createdAt', 'ASC']], transaction: tx });
+  // Plain rows of the columns used: a farm's years of records, read-only here.
+  const rows = await ProcessingRecord.findAll({
+    where: { coopId, farmId },
+    attributes: ['id', 'farmId', 'processedOn', 'animalId', 'groupId', 'headCount', 'liveGrams', 'hotCarcassGrams', 'chilledCarcassGrams', 'ageDays'],
+    order: [['processedOn', 'ASC'], ['createdAt', 'ASC']],
+    transaction: tx,
+    raw: true,
+  });
   return rows.map((r) => ({
     id: r.id, farmId: r.farmId, processedOn: r.processedOn, animalId: r.animalId, groupId: r.groupId, headCount: r.headCount,
     liveGrams: r.liveGrams, hotCarcassGrams: r.hotCarcassGrams, chilledCarcassGrams: r.chilledCarcassGrams, ageDays: r.ageDays,

@@ -1,0 +1,229 @@
+// HTTP benchmark at co-op scale: a co-op of 50 farms and 50,000 animals (`--200k`: 200,000) built on
+// demand into a cluster of its own under .data (kept, so reruns reuse it), the real API and a bare
+// node:http + pg endpoint running the API's own herd-list SELECT, loaded with autocannon round by
+// round, alternating the two. Prints p50, p99, req/s, the API/bare ratio, the load average, the SQL
+// statements a request sends (pg_stat_statements), the other heavy reads at 10 connections and the
+// plans of the heavy queries. Prints figures; never a timed test.
+// Run: `npm run bench http` (or `npm run bench http -- --200k`). BENCH_PG_PORT (default 54380),
+// BENCH_API_PORT / BENCH_BARE_PORT (default 0: any free port), BENCH_HTTP_SECONDS (8 a round), BENCH_HTTP_ROUNDS (3).
+import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { createRequire } from 'node:module';
+import { CSRF_HEADER } from '@burrowline/shared';
+import { root, runTs, startCluster } from '../lib/bootstrap.mjs';
+import type { BuiltCoop } from './http-bench/build-coop';
+
+interface AutocannonResult {
+  latency: { p50: number; p99: number };
+  requests: { average: number; total: number };
+  duration: number;
+  non2xx: number;
+  errors: number;
+  timeouts: number;
+}
+type Autocannon = (opts: Record<string, unknown>) => Promise<AutocannonResult>;
+const autocannon = createRequire(import.meta.url)('autocannon') as Autocannon;
+
+const big = process.argv.includes('--200k') || process.env.BENCH_HTTP_ANIMALS === '200000';
+const ANIMALS = big ? 200_000 : 50_000;
+const PG_PORT = Number(process.env.BENCH_PG_PORT ?? 54380);
+const API_PORT = Number(process.env.BENCH_API_PORT ?? 0);
+const BARE_PORT = Number(process.env.BENCH_BARE_PORT ?? 0);
+const SECONDS = Number(process.env.BENCH_HTTP_SECONDS ?? 8);
+const ROUNDS = Number(process.env.BENCH_HTTP_ROUNDS ?? 3);
+const name = `bench-http-${ANIMALS / 1000}k`;
+const dataFile = path.join(root, '.data', `${name}.json`);
+const queryFile = path.join(root, '.data', `${name}-herd-query.json`);
+const sockDir = path.join(root, '.data', `${name}-socket`);
+
+/** psql as the cluster's superuser over its socket (pg_stat_statements and settings need it). */
+function psql(sql: string): string {
+  const result = spawnSync('psql', ['-h', sockDir, '-p', String(PG_PORT), '-U', 'postgres', '-d', 'burrowline', '-v', 'ON_ERROR_STOP=1', '-qAt', '-c', sql], { encoding: 'utf8' });
+  if (result.status !== 0) throw new Error(`psql: ${result.stderr}`);
+  return result.stdout.trim();
+}
+
+let cluster = await startCluster({ name, port: PG_PORT, fast: true });
+if (psql('SHOW shared_preload_libraries') !== 'pg_stat_statements') {
+  psql(`ALTER SYSTEM SET shared_preload_libraries = 'pg_stat_statements'`);
+  await cluster.stop();
+  cluster = await startCluster({ name, port: PG_PORT, fast: true });
+}
+psql('CREATE EXTENSION IF NOT EXISTS pg_stat_statements');
+const env = { DATABASE_URL: cluster.appUrl, DATABASE_OWNER_URL: cluster.ownerUrl, SESSION_SECRET: 'bench-secret-bench-secret-bench-secret-0', LOG_LEVEL: 'warn', NODE_ENV: 'development' };
+Object.assign(process.env, env);
+runTs('packages/server/src/db/migrate-cli.ts', ['up'], env);
+
+const { connectDatabase, closeDatabase, database } = await import('../../packages/server/src/composition/database');
+connectDatabase(cluster.appUrl);
+
+async function coopExists(built: BuiltCoop): Promise<boolean> {
+  const rows = await database().query(`SELECT 1 FROM public_coop_by_slug($1)`, { bind: [built.slug], type: 'SELECT' as never }).catch(() => []);
+  return (rows as unknown[]).length > 0;
+}
+let coop: BuiltCoop | null = fs.existsSync(dataFile) ? (JSON.parse(fs.readFileSync(dataFile, 'utf8')) as BuiltCoop) : null;
+if (!coop || !(await coopExists(coop))) {
+  console.log(`building the co-op (${ANIMALS.toLocaleString('en-US')} animals) into .data/${name}…`);
+  const { buildCoop } = await import('./http-bench/build-coop');
+  coop = await buildCoop({ animals: ANIMALS, slug: `bench-http-${ANIMALS / 1000}k`, password: `bench-${Date.now()}` });
+  fs.writeFileSync(dataFile, JSON.stringify(coop, null, 2));
+  console.log(`  built in ${coop.builtInSeconds} s`);
+} else {
+  console.log(`reusing the co-op in .data/${name} (built in ${coop.builtInSeconds} s)`);
+}
+console.log(`co-op: ${Object.entries(coop.counts).map(([k, v]) => `${k} ${v.toLocaleString('en-US')}`).join(', ')}`);
+
+// The herd list's SELECT as the API sends it, captured from one request of an in-process app.
+async function captureHerdQuery(): Promise<void> {
+  const http = await import('node:http');
+  const { createApp } = await import('../../packages/server/src/app');
+  const server = http.createServer();
+  await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
+  const url = `http://127.0.0.1:${(server.address() as { port: number }).port}`;
+  const handle = createApp({ appUrl: url });
+  server.on('request', handle.app);
+  const cookie = await signIn(url);
+  let captured: { sql: string; bind: unknown[] } | null = null;
+  const hook = (options: { bind?: unknown }, query: { sql?: string }) => {
+    const sql = query.sql ?? '';
+    if (/FROM animals a/.test(sql) && (!captured || sql.length > captured.sql.length)) captured = { sql, bind: (options.bind as unknown[]) ?? [] };
+  };
+  database().addHook('afterQuery', 'bench-capture', hook as never);
+  const res = await fetch(`${url}/api/animals`, { headers: { cookie } });
+  const body = (await res.json()) as { items: unknown[]; total: number };
+  database().removeHook('afterQuery', 'bench-capture');
+  server.closeAllConnections();
+  await new Promise<void>((resolve) => server.close(() => resolve()));
+  if (!captured) throw new Error('the herd list sent no SELECT from animals');
+  fs.writeFileSync(queryFile, JSON.stringify({ ...(captured as object), coopId: coop!.coopId }));
+  console.log(`herd list of the signed-in farm: ${body.items.length} rows of ${body.total} (status ${res.status})`);
+}
+
+async function signIn(url: string): Promise<string> {
+  const res = await fetch(`${url}/api/session`, {
+    method: 'POST', headers: { 'content-type': 'application/json', [CSRF_HEADER]: '1' }, body: JSON.stringify({ email: coop!.email, password: coop!.password }),
+  });
+  if (!res.ok) throw new Error(`sign-in failed: ${res.status} ${await res.text()}`);
+  return res.headers.getSetCookie().map((x) => x.split(';')[0]).join('; ');
+}
+
+/** Starts a server script; resolves with the process and the port it listens on (0 = any free port). */
+function startChild(script: string, args: string[]): Promise<{ child: ChildProcess; port: number }> {
+  const child = spawn(process.execPath, ['--import', 'tsx', path.join(import.meta.dirname, 'http-bench', script), ...args], {
+    cwd: root, env: { ...process.env, ...env }, stdio: ['pipe', 'pipe', 'inherit'],
+  });
+  return new Promise((resolve, reject) => {
+    child.stdout!.on('data', (chunk: Buffer) => {
+      const ready = /ready (\d+)/.exec(chunk.toString());
+      if (ready) resolve({ child, port: Number(ready[1]) });
+    });
+    child.on('exit', (code) => reject(new Error(`${script} exited with ${code}`)));
+  });
+}
+
+const ms = (value: number) => `${value.toFixed(0)} ms`.padStart(8);
+async function load(url: string, connections: number, init: { method?: string; body?: string; headers?: Record<string, string> } = {}, seconds = SECONDS) {
+  // A generous timeout: on a busy machine a slow answer is a figure, not an error.
+  const result = await autocannon({ url, connections, duration: seconds, timeout: 60, method: init.method ?? 'GET', body: init.body, headers: init.headers });
+  const bad = result.non2xx + result.errors + result.timeouts;
+  return { p50: result.latency.p50, p99: result.latency.p99, rps: result.requests.total / result.duration, bad };
+}
+
+/** SQL statements per request: pg_stat_statements around `n` sequential requests of the API. */
+async function statementsPerRequest(send: () => Promise<Response>, n = 20): Promise<number> {
+  await send();
+  psql('SELECT pg_stat_statements_reset()');
+  for (let i = 0; i < n; i++) {
+    const res = await send();
+    await res.arrayBuffer();
+  }
+  const calls = Number(psql(`SELECT coalesce(sum(calls), 0) FROM pg_stat_statements s JOIN pg_roles r ON r.oid = s.userid WHERE r.rolname = 'burrowline_app'`));
+  return calls / n;
+}
+
+await captureHerdQuery();
+const api = await startChild('api-server.ts', [String(API_PORT)]);
+const bareServer = await startChild('bare-server.ts', [String(BARE_PORT), queryFile]);
+const apiUrl = `http://127.0.0.1:${api.port}`;
+const bareUrl = `http://127.0.0.1:${bareServer.port}`;
+const stop = () => [api.child, bareServer.child].forEach((child) => child.kill('SIGTERM'));
+process.on('exit', stop);
+try {
+  const cookie = await signIn(apiUrl);
+  const headers = { cookie };
+  console.log(`machine: ${process.version}, ${os.cpus().length} cores; autocannon ${SECONDS} s a round after a 2 s warm-up`);
+  console.log('');
+
+  // The herd list: API and bare, alternated round by round.
+  for (const connections of [50, 10]) {
+    await load(`${apiUrl}/api/animals`, connections, { headers }, 2);
+    await load(bareUrl, connections, {}, 2);
+    const api: Awaited<ReturnType<typeof load>>[] = [];
+    const bare: Awaited<ReturnType<typeof load>>[] = [];
+    for (let round = 0; round < (connections === 50 ? ROUNDS : 1); round++) {
+      api.push(await load(`${apiUrl}/api/animals`, connections, { headers }));
+      bare.push(await load(bareUrl, connections));
+    }
+    const avg = (list: typeof api, key: 'p50' | 'p99' | 'rps') => list.reduce((sum, r) => sum + r[key], 0) / list.length;
+    const [load1] = os.loadavg();
+    console.log(`herd list, ${connections} connections, ${api.length} round(s) each (load average ${load1!.toFixed(2)}):`);
+    console.log(`  API   p50 ${ms(avg(api, 'p50'))}  p99 ${ms(avg(api, 'p99'))}  ${avg(api, 'rps').toFixed(1).padStart(6)} req/s${api.some((r) => r.bad) ? `  (${api.reduce((s, r) => s + r.bad, 0)} failed)` : ''}`);
+    console.log(`  bare  p50 ${ms(avg(bare, 'p50'))}  p99 ${ms(avg(bare, 'p99'))}  ${avg(bare, 'rps').toFixed(1).padStart(6)} req/s`);
+    console.log(`  API / bare throughput ${(avg(api, 'rps') / avg(bare, 'rps')).toFixed(2)}`);
+  }
+
+  // The other heavy reads, at 10 connections.
+  const trialBody = JSON.stringify({ damId: coop.doeId, sireIds: coop.buckIds });
+  const post = { method: 'POST', body: trialBody, headers: { ...headers, 'content-type': 'application/json', [CSRF_HEADER]: '1' } };
+  const reads: [string, string, typeof post | { headers: Record<string, string> }][] = [
+    [`comparing a doe with ${coop.buckIds.length} bucks`, '/api/trial-matings', post],
+    ['litters list', '/api/litters', { headers }],
+    ['performance tables (all years)', '/api/performance?period=all', { headers }],
+    ['Almanac agenda (next 7 days)', '/api/almanac/tasks?days=7&include=open', { headers }],
+  ];
+  console.log('');
+  console.log('other reads, 10 connections:');
+  for (const [label, route, init] of reads) {
+    const first = await fetch(`${apiUrl}${route}`, init as RequestInit);
+    if (!first.ok) throw new Error(`${route}: ${first.status} ${(await first.text()).slice(0, 300)}`);
+    await load(`${apiUrl}${route}`, 10, init, 2);
+    const r = await load(`${apiUrl}${route}`, 10, init);
+    const statements = await statementsPerRequest(() => fetch(`${apiUrl}${route}`, init as RequestInit), 10);
+    // One connection, one request after another: the cost of one answer (and a figure even when none
+    // of the loaded requests finished within a round).
+    const alone: number[] = [];
+    for (let i = 0; i < 7; i++) {
+      const t = performance.now();
+      await (await fetch(`${apiUrl}${route}`, init as RequestInit)).arrayBuffer();
+      alone.push(performance.now() - t);
+    }
+    alone.sort((x, y) => x - y);
+    console.log(`  ${label.padEnd(34)} p50 ${ms(r.p50)}  p99 ${ms(r.p99)}  ${r.rps.toFixed(1).padStart(6)} req/s${r.bad ? ` (${r.bad} failed)` : ''};  `
+      + `1 connection: median ${ms(alone[3]!)};  ${statements.toFixed(1)} statements a request`);
+  }
+  const herdStatements = await statementsPerRequest(() => fetch(`${apiUrl}/api/animals`, { headers }));
+  console.log(`  herd list: ${herdStatements.toFixed(1)} statements a request (session and transaction included)`);
+
+  // Plans of the heavy queries, as the app role under the co-op's tenant.
+  const captured = JSON.parse(fs.readFileSync(queryFile, 'utf8')) as { sql: string; bind: unknown[] };
+  const explain = async (label: string, sql: string, bind: unknown[]) => {
+    const plan = await database().transaction(async (tx) => {
+      await database().query(`SELECT set_config('app.coop_id', $1, true)`, { bind: [coop!.coopId], transaction: tx });
+      return database().query(`EXPLAIN (ANALYZE, BUFFERS) ${sql}`, { bind, transaction: tx, type: 'SELECT' as never });
+    });
+    console.log(`\n--- EXPLAIN (ANALYZE, BUFFERS): ${label}`);
+    for (const row of plan as unknown as { 'QUERY PLAN': string }[]) console.log(row['QUERY PLAN']);
+  };
+  await explain('herd list (the API\'s SELECT)', captured.sql, captured.bind);
+  await explain('the co-op\'s whole pedigree (read per comparison before the shared index)', 'SELECT id, sire_id, dam_id, breed_id FROM animals WHERE coop_id = $1 AND deleted_at IS NULL', [coop.coopId]);
+  const slowest = psql(`SELECT round(mean_exec_time::numeric, 1) || ' ms  ' || calls || ' calls  ' || left(regexp_replace(query, '\\s+', ' ', 'g'), 160)
+    FROM pg_stat_statements s JOIN pg_roles r ON r.oid = s.userid WHERE r.rolname = 'burrowline_app' ORDER BY mean_exec_time DESC LIMIT 8`);
+  console.log('\n--- slowest statements of the last measured read (mean):');
+  console.log(slowest);
+} finally {
+  stop();
+  await closeDatabase().catch(() => undefined);
+}
+process.exit(0);
