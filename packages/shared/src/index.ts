@@ -31,3 +31,5 @@ export * from './grow-out';
 export * from './permissions/define-ability';
 export type { RawRuleOf } from '@casl/ability';
 export type { PackRule } from '@casl/ability/extra';
+export * from './schemas/ledger.schema';
+export * from './ledger';
