@@ -76,7 +76,7 @@ export async function startFakeCardService({ port = 0, accounts = [], log = () =
   async function deliver(acct, event, attempt) {
     if (!acct.webhookUrl || !acct.webhookSecret) return;
     const payload = JSON.stringify(event);
-    let status = 0;
+    let status;
     try {
       const res = await fetch(acct.webhookUrl, {
         method: 'POST',
@@ -137,9 +137,7 @@ export async function startFakeCardService({ port = 0, accounts = [], log = () =
   }
 
   function publicSession(session) {
-    // eslint-disable-next-line no-unused-vars
-    const { _apiKey, ...rest } = session;
-    return rest;
+    return Object.fromEntries(Object.entries(session).filter(([key]) => key !== '_apiKey'));
   }
 
   function createSession(apiKey, params) {

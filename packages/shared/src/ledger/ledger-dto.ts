@@ -53,8 +53,6 @@ export interface FarmDuesDto {
   dueOn: string;
   paidCents: number;
   owedCents: number;
-  /** A card checkout that waits for its confirmation from the card service. */
-  processingCents: number;
 }
 
 /** The balance cards of one farm. */

@@ -45,7 +45,7 @@ export const up: MigrationFn = async ({ context: { sql, appRole } }) => {
     CREATE INDEX ledger_transfers_source_idx ON ledger_transfers (coop_id, source_type, source_id);
     CREATE INDEX ledger_transfers_corrects_idx ON ledger_transfers (coop_id, corrects_transfer_id) WHERE corrects_transfer_id IS NOT NULL;
     ${tenantIsolation('ledger_transfers')}
-    GRANT SELECT, INSERT, UPDATE (status, posted_at, voided_at, posted_by, awaiting_farm_id) ON ledger_transfers TO ${appRole};
+    GRANT SELECT, INSERT, UPDATE (status, posted_at, voided_at, posted_by, awaiting_farm_id, booked_on) ON ledger_transfers TO ${appRole};
   `);
 };
 
