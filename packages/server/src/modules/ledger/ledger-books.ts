@@ -109,10 +109,13 @@ export async function findTransfer(tx: Transaction, id: string, opts: { lock?: b
   return row ?? null;
 }
 
-/** Locks both accounts' rows in id order, then applies `change` to each. */
+/**
+ * Locks both accounts' rows in id order, then applies `change` to each. FOR NO KEY UPDATE, not FOR UPDATE:
+ * the transfer's own foreign keys hold KEY SHARE locks on the same rows, which FOR UPDATE would wait on.
+ */
 async function moveBalances(tx: Transaction, debitId: string, creditId: string, change: { debit: string; credit: string }, amount: number): Promise<void> {
   const ordered = [debitId, creditId].sort();
-  await database().query('SELECT id FROM ledger_accounts WHERE id = ANY($1::uuid[]) ORDER BY id FOR UPDATE', { bind: [ordered], transaction: tx });
+  await database().query('SELECT id FROM ledger_accounts WHERE id = ANY($1::uuid[]) ORDER BY id FOR NO KEY UPDATE', { bind: [ordered], transaction: tx });
   await database().query(`UPDATE ledger_accounts SET ${change.debit}, updated_at = now() WHERE id = $1`, { bind: [debitId, amount], transaction: tx });
   await database().query(`UPDATE ledger_accounts SET ${change.credit}, updated_at = now() WHERE id = $1`, { bind: [creditId, amount], transaction: tx });
 }

@@ -49,6 +49,11 @@ export interface LedgerPosting {
 
 /** Posts a transfer once; the same id and fields again answer the original, other fields a 409. */
 export async function postTransfer(tx: Transaction, posting: LedgerPosting): Promise<TransferDto> {
+  return (await postTransferOnce(tx, posting)).transfer;
+}
+
+/** `postTransfer`, also telling whether this call wrote it. */
+export async function postTransferOnce(tx: Transaction, posting: LedgerPosting): Promise<{ transfer: TransferDto; created: boolean }> {
   if (!Number.isSafeInteger(posting.amountCents) || posting.amountCents <= 0) throw AppError.validation({ amountCents: ['The amount must be whole cents above zero'] });
   const debit = await accountOf(tx, posting.debit);
   const credit = await accountOf(tx, posting.credit);
@@ -59,7 +64,7 @@ export async function postTransfer(tx: Transaction, posting: LedgerPosting): Pro
     bookedOn: posting.bookedOn, postedBy: posting.postedBy ?? null, awaitingFarmId: posting.awaitingFarmId ?? null, method: posting.method ?? null,
   });
   if (created) await announce(tx, [debit, credit]);
-  return presentRows(tx, [row], null).then((list) => list[0]!);
+  return { transfer: (await presentRows(tx, [row], null))[0]!, created };
 }
 
 /** Posts a pending transfer (the day happened, the buck came home). Posting a voided one is refused. */
@@ -169,10 +174,9 @@ async function announce(tx: Transaction, accounts: AccountRow[]): Promise<void> 
 export async function createTransfer(actor: SessionUser, input: TransferCreateInput): Promise<{ transfer: TransferDto; created: boolean }> {
   ensureLedgerAdmin(actor);
   return withTenant(actor, async (tx) => {
-    const before = await findTransfer(tx, input.id);
-    const transfer = await postTransfer(tx, { ...input, postedBy: actor.id });
+    const { transfer, created } = await postTransferOnce(tx, { ...input, postedBy: actor.id });
     const [presented] = await presentRows(tx, [(await findTransfer(tx, transfer.id))!], actor);
-    return { transfer: presented!, created: !before };
+    return { transfer: presented!, created };
   });
 }
 
@@ -273,18 +277,17 @@ export async function recordPayment(actor: SessionUser, input: PaymentCreateInpu
     const period = input.duesYear ? await duesPeriodOf(tx, input.duesYear) : null;
     if (input.duesYear && !period) throw AppError.validation({ duesYear: [`No dues are set for ${input.duesYear}`] });
     if (period && input.toFarmId) throw AppError.validation({ toFarmId: ['Dues are paid to the co-op'] });
-    const before = await findTransfer(tx, input.id);
-    if (!before && input.toFarmId) {
+    if (input.toFarmId) {
       const [farm] = await selectRows<{ id: string }>(tx, 'SELECT id FROM farms WHERE id = $1', [input.toFarmId]);
       if (!farm) throw AppError.validation({ toFarmId: ['Choose a farm of the co-op'] });
     }
     const receiver: AccountRef = input.toFarmId ? { farmId: input.toFarmId } : { coop: 'coop_cash' };
-    const transfer = await postTransfer(tx, {
+    const { transfer, created } = await postTransferOnce(tx, {
       id: input.id, kind: 'payment', debit: receiver, credit: { farmId: payer }, amountCents: input.amountCents, pending: true,
       sourceType: period ? 'dues_period' : '', sourceId: period?.id ?? '', memo: input.memo, bookedOn: input.paidOn,
       method: input.method, awaitingFarmId: input.toFarmId, postedBy: actor.id,
     });
-    return { transfer: (await presentRows(tx, [(await findTransfer(tx, transfer.id))!], actor))[0]!, created: !before };
+    return { transfer: (await presentRows(tx, [(await findTransfer(tx, transfer.id))!], actor))[0]!, created };
   });
 }
 

@@ -10,23 +10,19 @@ const KIND_LABELS: Record<string, string> = {
 
 export const kindLabel = (kind: string) => KIND_LABELS[kind] ?? kind;
 
-/** Amounts in files as plain decimals of the currency ("-12.50"): spreadsheets read them as numbers. */
-function decimal(cents: number): string {
-  const sign = cents < 0 ? '-' : '';
-  const abs = Math.abs(cents);
-  return `${sign}${Math.floor(abs / 100)}.${String(abs % 100).padStart(2, '0')}`;
-}
+/** Amounts in the CSV are numbers of the currency (-12.5), so a spreadsheet sums them; a number cell carries no formula. */
+const decimal = (cents: number): number => cents / 100;
 
 export function statementCsv(s: StatementDto): string {
-  const rows: (string | number)[][] = [
+  const rows: (string | number | null)[][] = [
     ['Statement', s.title],
     ['Period', `${s.from} to ${s.to}`],
     ['Currency', s.currency],
     [],
     ['date', 'transfer', 'kind', 'counterparty', 'memo', 'amount', 'balance'],
-    [s.from, '', '', '', 'Opening balance', '', decimal(s.openingBalanceCents)],
+    [s.from, '', '', '', 'Opening balance', null, decimal(s.openingBalanceCents)],
     ...s.lines.map((l) => [l.bookedOn, l.transferId, kindLabel(l.kind), l.counterparty, l.memo, decimal(l.amountCents), decimal(l.runningBalanceCents)]),
-    [s.to, '', '', '', 'Closing balance', '', decimal(s.closingBalanceCents)],
+    [s.to, '', '', '', 'Closing balance', null, decimal(s.closingBalanceCents)],
   ];
   return csvFile(rows);
 }
