@@ -21,7 +21,7 @@ const apiSettings = {
  */
 const ownProcessFiles = [
   'test/api/database-down.test.ts',
-  ...['almanac-digest', 'applications', 'auth', 'mail-outbox', 'members', 'sign-in-throttle'].map((name) => `test/api/${name}.test.ts`),
+  ...['almanac-digest', 'applications', 'auth', 'ledger-dues-reminders', 'mail-outbox', 'members', 'sign-in-throttle'].map((name) => `test/api/${name}.test.ts`),
 ];
 
 export default defineConfig({
