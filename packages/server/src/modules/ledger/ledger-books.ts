@@ -68,10 +68,14 @@ const TRANSFER_COLUMNS = `id, kind, status, debit_account_id, credit_account_id,
   to_char(booked_on, 'YYYY-MM-DD') AS booked_on, method, corrects_transfer_id, correction_reason, awaiting_farm_id, posted_by,
   created_at, posted_at, voided_at`;
 
-/** The account of a farm or of the co-op, made on first use. A farm of another co-op is not found (row-level security). */
-export async function accountOf(tx: Transaction, ref: AccountRef): Promise<AccountRow> {
+/**
+ * The account of a farm or of the co-op, made on first use. A farm of another co-op is not found (row-level
+ * security): a field error when posting names it, a 404 (`reading`) when it is the account asked for.
+ */
+export async function accountOf(tx: Transaction, ref: AccountRef, opts: { reading?: boolean } = {}): Promise<AccountRow> {
   if ('farmId' in ref) {
     const [farm] = await select<{ id: string }>(tx, 'SELECT id FROM farms WHERE id = $1', [ref.farmId]);
+    if (!farm && opts.reading) throw AppError.notFound('That farm\'s account');
     if (!farm) throw AppError.validation({ farmId: ['Choose a farm of the co-op'] });
     await database().query(
       `INSERT INTO ledger_accounts (coop_id, farm_id, kind) VALUES (current_coop_id(), $1, 'farm')

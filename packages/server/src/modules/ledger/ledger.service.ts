@@ -308,7 +308,7 @@ export async function listTransfers(actor: SessionUser, query: TransferListQuery
     };
     let own: string | null = null;
     if (farmId) {
-      own = param((await accountOf(tx, { farmId })).id);
+      own = param((await accountOf(tx, { farmId }, { reading: true })).id);
       where.push(`(t.debit_account_id = ${own} OR t.credit_account_id = ${own})`);
     }
     if (query.kind) where.push(`t.kind = ${param(query.kind)}`);
@@ -398,7 +398,7 @@ export async function duesOfFarms(tx: Transaction, farmIds: string[]): Promise<M
 export async function ledgerSummary(actor: SessionUser, farmIdAsked: string | undefined, opts: { cardPayments: boolean }): Promise<LedgerSummaryDto> {
   const farmId = farmAsked(actor, farmIdAsked);
   return withTenant(actor, async (tx) => {
-    const account = await accountOf(tx, { farmId });
+    const account = await accountOf(tx, { farmId }, { reading: true });
     const names = await namesFor(tx, actor.coopId, [account.id]);
     const positions = await positionsOf(tx, account);
     const coopNet = positions.filter((p) => p.farmId === null).reduce((s, p) => s + p.netCents, 0);
@@ -506,7 +506,7 @@ export async function feesByMonth(actor: SessionUser, opts: { farmId?: string; c
     return `${d.getUTCFullYear()}-${String(d.getUTCMonth() + 1).padStart(2, '0')}`;
   });
   return withTenant(actor, async (tx) => {
-    const account = farmId ? await accountOf(tx, { farmId }) : null;
+    const account = farmId ? await accountOf(tx, { farmId }, { reading: true }) : null;
     const rows = await selectRows<{ kind: TransferKind; month: string; total: string }>(
       tx,
       `SELECT kind, to_char(booked_on, 'YYYY-MM') AS month, sum(amount_cents) AS total FROM ledger_transfers

@@ -24,7 +24,7 @@ export async function buildStatement(tx: Transaction, coopId: string, target: { 
   const directory = await farmDirectoryOf(coopId, tx);
   const accounts = await allAccounts(tx);
   const names = { farmNames: new Map([...directory.values()].map((f) => [f.id, f.name])), accounts: new Map(accounts.map((a) => [a.id, a])) };
-  const own = 'farmId' in target ? [await accountOf(tx, { farmId: target.farmId })] : accounts.filter((a) => a.farm_id === null);
+  const own = 'farmId' in target ? [await accountOf(tx, { farmId: target.farmId }, { reading: true })] : accounts.filter((a) => a.farm_id === null);
   const ownIds = own.map((a) => a.id);
   const signed = `(CASE WHEN credit_account_id = ANY($1::uuid[]) THEN amount_cents ELSE 0 END - CASE WHEN debit_account_id = ANY($1::uuid[]) THEN amount_cents ELSE 0 END)`;
   const touches = `(debit_account_id = ANY($1::uuid[]) OR credit_account_id = ANY($1::uuid[]))`;
