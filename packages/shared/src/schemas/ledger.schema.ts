@@ -133,3 +133,14 @@ export const cardCheckoutCreateSchema = z.strictObject({
 export type CardCheckoutCreateInput = z.infer<typeof cardCheckoutCreateSchema>;
 
 export const yearParamSchema = z.coerce.number().int().min(2000, 'Choose a year from 2000').max(2100, 'Choose a year up to 2100');
+
+/** The Ledger screen's transfer filters as they sit in the address (a stale value falls back to its default). */
+export const ledgerViewSchema = z.object({
+  kind: z.enum(['all', ...transferKinds]).default('all'),
+  /** A farm id, `coop`, or `all`. */
+  counterparty: z.string().regex(/^(all|coop|[0-9a-f-]{36})$/).default('all'),
+  from: z.string().regex(/^(\d{4}-\d{2}-\d{2})?$/).default(''),
+  to: z.string().regex(/^(\d{4}-\d{2}-\d{2})?$/).default(''),
+  page: z.coerce.number().int().min(1).default(1),
+});
+export type LedgerView = z.infer<typeof ledgerViewSchema>;
