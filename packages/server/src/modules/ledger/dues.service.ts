@@ -1,3 +1,4 @@
+import type { Transaction } from 'sequelize';
 import { addDays, defineAbilityFor, ErrorCode, subjectOf, type CoopLedgerDto, type DuesSetInput } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
 import { AppError } from '../../lib/app-error';
@@ -39,29 +40,35 @@ export async function setDues(actor: SessionUser, year: number, input: DuesSetIn
   if (Number(input.dueOn.slice(0, 4)) < year - 1 || Number(input.dueOn.slice(0, 4)) > year + 1) {
     throw AppError.validation({ dueOn: [`Choose a due date near ${year}`] });
   }
-  await withTenant(actor, async (tx) => {
-    const existing = await duesPeriodOf(tx, year);
-    if (existing && cents(existing.amount_cents) !== input.amountCents) {
-      throw AppError.conflict(`The ${year} dues are already set at ${cents(existing.amount_cents)} cents; correct a farm's charge instead`);
-    }
-    const [{ id }] = await selectRows<{ id: string }>(
-      tx,
-      `INSERT INTO dues_periods (coop_id, year, amount_cents, due_on, reminder_days_before, set_by) VALUES (current_coop_id(), $1, $2, $3, $4, $5)
-       ON CONFLICT (coop_id, year) DO UPDATE SET due_on = EXCLUDED.due_on, reminder_days_before = EXCLUDED.reminder_days_before,
-         version = dues_periods.version + 1, updated_at = now()
-       RETURNING id`,
-      [year, input.amountCents, input.dueOn, input.reminderDaysBefore, actor.id],
-    ) as [{ id: string }];
-    for (const farm of (await farmDirectoryOf(actor.coopId, tx)).values()) {
-      await postTransfer(tx, {
-        id: duesTransferId(year, farm.id), kind: 'dues', debit: { farmId: farm.id }, credit: { coop: 'coop_dues' }, amountCents: input.amountCents,
-        sourceType: 'dues_period', sourceId: id, memo: `${year} dues`, postedBy: actor.id,
-      });
-    }
-    const job: DuesReminderJob = { coopId: actor.coopId, year, appUrl };
-    await enqueueJobIn(tx, DUES_REMINDER_QUEUE, job, { startAfter: reminderInstant(input.dueOn, input.reminderDaysBefore) });
-  });
+  await withTenant(actor, (tx) => chargeDues(tx, actor.coopId, year, input, { setBy: actor.id, appUrl }));
   return coopLedger(actor);
+}
+
+/**
+ * Sets a year's dues inside the caller's transaction (the admin's request, the demo data): charges each farm
+ * of the co-op once and queues the reminder.
+ */
+export async function chargeDues(tx: Transaction, coopId: string, year: number, input: DuesSetInput, opts: { setBy: string | null; appUrl: string; bookedOn?: string }): Promise<void> {
+  const existing = await duesPeriodOf(tx, year);
+  if (existing && cents(existing.amount_cents) !== input.amountCents) {
+    throw AppError.conflict(`The ${year} dues are already set at ${cents(existing.amount_cents)} cents; correct a farm's charge instead`);
+  }
+  const [{ id }] = await selectRows<{ id: string }>(
+    tx,
+    `INSERT INTO dues_periods (coop_id, year, amount_cents, due_on, reminder_days_before, set_by) VALUES (current_coop_id(), $1, $2, $3, $4, $5)
+     ON CONFLICT (coop_id, year) DO UPDATE SET due_on = EXCLUDED.due_on, reminder_days_before = EXCLUDED.reminder_days_before,
+       version = dues_periods.version + 1, updated_at = now()
+     RETURNING id`,
+    [year, input.amountCents, input.dueOn, input.reminderDaysBefore, opts.setBy],
+  ) as [{ id: string }];
+  for (const farm of (await farmDirectoryOf(coopId, tx)).values()) {
+    await postTransfer(tx, {
+      id: duesTransferId(year, farm.id), kind: 'dues', debit: { farmId: farm.id }, credit: { coop: 'coop_dues' }, amountCents: input.amountCents,
+      sourceType: 'dues_period', sourceId: id, memo: `${year} dues`, postedBy: opts.setBy, bookedOn: opts.bookedOn,
+    });
+  }
+  const job: DuesReminderJob = { coopId, year, appUrl: opts.appUrl };
+  await enqueueJobIn(tx, DUES_REMINDER_QUEUE, job, { startAfter: reminderInstant(input.dueOn, input.reminderDaysBefore) });
 }
 
 /**
@@ -74,6 +81,8 @@ export async function sendDuesReminders(job: DuesReminderJob, now: Date = new Da
     if (!period) return 0;
     // A reminder queued for an earlier due date waits for the current one.
     if (now < reminderInstant(period.due_on, period.reminder_days_before)) return 0;
+    // A reminder is sent before the due date; one that runs after it (a server down for weeks) stays quiet.
+    if (now > new Date(`${period.due_on}T23:59:59Z`)) return 0;
     const directory = await farmDirectoryOf(job.coopId, tx);
     const dues = await duesOfFarms(tx, [...directory.keys()]);
     const coop = await getCoop(job.coopId, tx);

@@ -182,8 +182,8 @@ export async function postPendingTransfer(tx: Transaction, id: string, postedBy:
     credit: 'pending_credit_cents = pending_credit_cents - $2, posted_cents = posted_cents + $2',
   }, cents(row.amount_cents));
   await database().query(
-    `UPDATE ledger_transfers SET status = 'posted', posted_at = now(), posted_by = COALESCE($2, posted_by), awaiting_farm_id = NULL,
-       booked_on = GREATEST(booked_on, (now() AT TIME ZONE 'UTC')::date) WHERE id = $1`,
+    // The booking date stays the one it was given (the day a payment was made), whenever it is confirmed.
+    `UPDATE ledger_transfers SET status = 'posted', posted_at = now(), posted_by = COALESCE($2, posted_by), awaiting_farm_id = NULL WHERE id = $1`,
     { bind: [id, postedBy], transaction: tx },
   );
   return { row: (await findTransfer(tx, id))!, changed: true };
