@@ -69,6 +69,7 @@ export function TopBar({ coopName, personName, roleLabel, farmId, onSignOut, isS
                   <NavLink
                     to={area.to}
                     end={area.end}
+                    title={area.label}
                     className={({ isActive }) =>
                       [
                         'inline-flex min-h-11 items-center gap-2 rounded-lg px-3 font-medium whitespace-nowrap focus-visible:outline-straw',
@@ -77,7 +78,8 @@ export function TopBar({ coopName, personName, roleLabel, farmId, onSignOut, isS
                     }
                   >
                     <area.icon className="size-5" aria-hidden="true" />
-                    {area.label}
+                    {/* Seven areas (an admin who sees the Ledger) fit a laptop's bar as icons; the names come back on a wide screen. */}
+                    <span className={areas.length > 6 ? 'sr-only xl:not-sr-only' : undefined}>{area.label}</span>
                     {area.badge && <CountBadge count={area.badge.count} label={area.badge.label} />}
                   </NavLink>
                 </li>

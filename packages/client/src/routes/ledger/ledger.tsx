@@ -54,7 +54,9 @@ export function LedgerPage() {
       <BalanceCards summary={summary} />
       {summary.awaitingYourConfirmation > 0 && (
         <p className="rounded-xl border-2 border-straw bg-straw/20 px-4 py-3 font-semibold">
-          {summary.awaitingYourConfirmation} payment{summary.awaitingYourConfirmation === 1 ? '' : 's'} or correction{summary.awaitingYourConfirmation === 1 ? '' : 's'} wait for your confirmation below.
+          {summary.awaitingYourConfirmation === 1
+            ? 'A payment or correction waits for your confirmation in the transfers below.'
+            : `${summary.awaitingYourConfirmation} payments or corrections wait for your confirmation in the transfers below.`}
         </p>
       )}
       <div className="grid gap-6 lg:grid-cols-2">
