@@ -111,11 +111,11 @@ await timed(`bulk-loaded ${TOTAL - POSTS} more transfers with SQL, balances reco
   await database().query(
     `WITH accounts AS (SELECT array_agg(id ORDER BY id) AS ids FROM ledger_accounts WHERE farm_id IS NOT NULL),
      picks AS (
-       SELECT g, 1 + (g * 7919) % array_length(a.ids, 1) AS d, 1 + (g * 104729 + 13) % array_length(a.ids, 1) AS c, a.ids FROM generate_series($1::int, $2::int) g, accounts a
+       SELECT g, (1 + (g * 7919) % array_length(a.ids, 1))::int AS d, (1 + (g * 104729 + 13) % array_length(a.ids, 1))::int AS c, a.ids FROM generate_series($1::bigint, $2::bigint) g, accounts a
      )
      INSERT INTO ledger_transfers (coop_id, id, kind, status, debit_account_id, credit_account_id, amount_cents, memo, booked_on, posted_at)
      SELECT current_coop_id(), 'bulk:' || g, (ARRAY['stud_fee','processing_fee','shared_cost','sale','payment'])[1 + g % 5], 'posted', ids[d],
-       ids[CASE WHEN c = d THEN 1 + c % array_length(ids, 1) ELSE c END], 100 + (g * 37) % 20000, 'Bench bulk', DATE '2026-01-01' + (g % 365), now()
+       ids[CASE WHEN c = d THEN 1 + c % array_length(ids, 1) ELSE c END], 100 + (g * 37) % 20000, 'Bench bulk', DATE '2026-01-01' + (g % 365)::int, now()
      FROM picks`,
     { bind: [POSTS, TOTAL - 1], transaction: tx },
   );
