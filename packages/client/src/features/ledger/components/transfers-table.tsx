@@ -17,11 +17,18 @@ import { kindLabels } from '../ledger-format';
 const PAGE_SIZE = 20;
 const column = createColumnHelper<TransferDto>();
 
-/** How a transfer reads from the account's side: who the other party is and whether it credits (+) or charges (−). */
+/**
+ * How a transfer reads from the farm's side: who the other party is and whether it credits (+) or charges (−).
+ * In the whole co-op's list (no farm) it reads as who owes whom, unsigned.
+ */
 function sideOf(t: TransferDto, ownFarmId: string | null) {
-  const credited = ownFarmId ? t.credit.farmId === ownFarmId : t.credit.farmId === null;
+  if (!ownFarmId) return { other: `${t.debit.name} → ${t.credit.name}`, sign: 0 };
+  const credited = t.credit.farmId === ownFarmId;
   return { other: credited ? t.debit.name : t.credit.name, sign: credited ? 1 : -1 };
 }
+
+const amountClass = (sign: number) => (sign > 0 ? 'text-moss-deep' : sign < 0 ? 'text-clay' : 'text-bark');
+const signText = (sign: number) => (sign > 0 ? '+' : sign < 0 ? '−' : '');
 
 const statusTone = { pending: 'straw', posted: 'moss', voided: 'neutral' } as const;
 
@@ -62,15 +69,15 @@ export function TransfersTable({ ownFarmId, farmId, counterparties }: { ownFarmI
   const { data, isFetching, error } = useTransfers(filters);
   const columns = useMemo(
     () => [
-      column.accessor('bookedOn', { header: 'Date', enableSorting: false }),
+      column.accessor('bookedOn', { header: 'Date', enableSorting: false, cell: (c) => <span className="whitespace-nowrap">{c.getValue()}</span> }),
       column.accessor('kind', { header: 'Kind', enableSorting: false, cell: (c) => kindLabels[c.getValue()] }),
-      column.display({ id: 'other', header: 'With', cell: (c) => sideOf(c.row.original, ownFarmId).other }),
+      column.display({ id: 'other', header: ownFarmId ? 'With' : 'Owes → owed', cell: (c) => sideOf(c.row.original, ownFarmId).other }),
       column.accessor('memo', { header: 'Memo', enableSorting: false, cell: (c) => c.getValue() || c.row.original.correctionReason || '' }),
       column.display({
         id: 'amount', header: 'Amount',
         cell: (c) => {
           const { sign } = sideOf(c.row.original, ownFarmId);
-          return <span className={sign > 0 ? 'font-semibold text-moss-deep' : 'font-semibold text-clay'}>{sign > 0 ? '+' : '−'}{money(c.row.original.amountCents)}</span>;
+          return <span className={`font-semibold whitespace-nowrap ${amountClass(sign)}`}>{signText(sign)}{money(c.row.original.amountCents)}</span>;
         },
       }),
       column.accessor('status', { header: 'Status', enableSorting: false, cell: (c) => <Badge tone={statusTone[c.getValue()]}>{c.getValue()}</Badge> }),
@@ -105,7 +112,7 @@ export function TransfersTable({ ownFarmId, farmId, counterparties }: { ownFarmI
             <div className="space-y-2">
               <div className="flex items-baseline justify-between gap-3">
                 <span className="font-semibold">{kindLabels[t.kind]} · {other}</span>
-                <span className={sign > 0 ? 'text-lg font-bold text-moss-deep' : 'text-lg font-bold text-clay'}>{sign > 0 ? '+' : '−'}{money(t.amountCents)}</span>
+                <span className={`text-lg font-bold whitespace-nowrap ${amountClass(sign)}`}>{signText(sign)}{money(t.amountCents)}</span>
               </div>
               <div className="flex flex-wrap items-center gap-2 text-sm text-grey-600">
                 <span>{t.bookedOn}</span>
