@@ -11,7 +11,7 @@ import { publish } from '../../lib/realtime';
 import type { SessionUser } from '../../lib/session-user';
 import { getCoop } from '../coops/coops.service';
 import { authorize, canSeeMoney } from '../farms/farm-access';
-import { farmDirectoryOf } from '../farms/farms.service';
+import { farmDirectoryOf, findFarmRefs } from '../farms/farms.service';
 import {
   accountOf, accountsByIds, allAccounts, cents, coopAccountOf, findTransfer, insertTransfer, postPendingTransfer, selectRows,
   TRANSFER_COLUMNS, uncorrectedCents, voidPendingTransfer, type AccountRow, type NewTransfer, type TransferRow,
@@ -134,9 +134,12 @@ function permissionsFor(actor: SessionUser | null, row: TransferRow, accounts: M
 // Presenting
 // ---------------------------------------------------------------------------------------------
 
+/** Names of the accounts given and of their farms only (a post presents two accounts, not the whole co-op). */
 async function namesFor(tx: Transaction, coopId: string, accountIds: string[]): Promise<LedgerNames> {
-  const directory = await farmDirectoryOf(coopId, tx);
-  return { farmNames: new Map([...directory.values()].map((f) => [f.id, f.name])), accounts: await accountsByIds(tx, accountIds) };
+  const accounts = await accountsByIds(tx, accountIds);
+  const farmIds = [...new Set([...accounts.values()].map((a) => a.farm_id).filter((id): id is string => Boolean(id)))];
+  const refs = await findFarmRefs(coopId, farmIds, tx);
+  return { farmNames: new Map([...refs.values()].map((f) => [f.id, f.name])), accounts };
 }
 
 async function presentRows(tx: Transaction, rows: TransferRow[], actor: SessionUser | null, coopId?: string): Promise<TransferDto[]> {
@@ -447,7 +450,7 @@ export async function settleUpFor(actor: SessionUser): Promise<SettleUpDto> {
       net.set(r.debit_farm, (net.get(r.debit_farm) ?? 0) - cents(r.amount));
     }
     const positions = [...net].map(([farmId, netCents]) => ({ farmId, netCents }));
-    const names = (await namesFor(tx, actor.coopId, [])).farmNames;
+    const names = new Map([...(await farmDirectoryOf(actor.coopId, tx)).values()].map((f) => [f.id, f.name]));
     const name = (id: string) => names.get(id) ?? 'A former farm';
     const payments = settleUp(positions).filter((p) => admin || p.fromFarmId === ownFarm || p.toFarmId === ownFarm);
     return {
