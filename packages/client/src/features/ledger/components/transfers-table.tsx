@@ -99,6 +99,7 @@ export function TransfersTable({ ownFarmId, farmId, counterparties }: { ownFarmI
         <TextField label="From" type="date" value={view.from} onChange={(e) => setView({ from: e.target.value, page: 1 })} />
         <TextField label="To" type="date" value={view.to} onChange={(e) => setView({ to: e.target.value, page: 1 })} />
       </div>
+      {ownFarmId && <p className="text-sm text-grey-600">+ adds to what the farm is owed (a fee it earns, a payment it made); − adds to what it owes (a fee it is charged, a payment it received).</p>}
       {error && <Alert tone="error">{errorText(error)}</Alert>}
       <DataTable
         table={table}
