@@ -78,8 +78,8 @@ export function TopBar({ coopName, personName, roleLabel, farmId, onSignOut, isS
                     }
                   >
                     <area.icon className="size-5" aria-hidden="true" />
-                    {/* Seven areas (an admin who sees the Ledger) fit a laptop's bar as icons (named for assistive tech and on hover); the names show on a wide screen. */}
-                    <span className={areas.length > 6 ? 'sr-only 2xl:not-sr-only' : undefined}>{area.label}</span>
+                    {/* Six or seven areas (with the Ledger) fit a laptop's bar as icons (named for assistive tech and on hover); the names show where there is room. */}
+                    <span className={areas.length > 5 ? 'sr-only 2xl:not-sr-only' : undefined}>{area.label}</span>
                     {area.badge && <CountBadge count={area.badge.count} label={area.badge.label} />}
                   </NavLink>
                 </li>
