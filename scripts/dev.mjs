@@ -1,7 +1,7 @@
 // `npm run dev`: the same services as `npm start`, then Vite with HMR proxied to an API that restarts on change.
 import path from 'node:path';
 import {
-  ensureNodeModules, localSecret, log, onShutdown, root, runTs, startChild, startCluster, startMaildev,
+  ensureNodeModules, fakeCardEnv, localSecret, log, onShutdown, root, runTs, startChild, startCluster, startFakeCardService, startMaildev,
 } from './lib/bootstrap.mjs';
 
 ensureNodeModules();
@@ -16,8 +16,10 @@ const env = {
   SESSION_SECRET: localSecret('session'),
   SMTP_HOST: '127.0.0.1',
   SMTP_PORT: '1025',
+  ...fakeCardEnv(12111, localSecret('card-webhook')),
 };
 await startMaildev({ smtpPort: 1025, webPort: 1080 });
+await startFakeCardService({ port: 12111, accounts: [{ apiKey: env.STRIPE_SECRET_KEY, webhookSecret: env.STRIPE_WEBHOOK_SECRET, webhookUrl: 'http://127.0.0.1:3000/api/card-webhooks' }] });
 runTs('packages/server/src/db/migrate-cli.ts', ['up'], env);
 runTs('seed/load.ts', ['--if-empty'], env);
 startChild('api', process.execPath, [path.join(root, 'node_modules/tsx/dist/cli.mjs'), 'watch', path.join(root, 'packages/server/src/server.ts')], {

@@ -1,11 +1,11 @@
 // `npm start`: installs what is missing, brings up PostgreSQL and maildev, migrates, seeds, builds, serves.
 import path from 'node:path';
 import {
-  buildClient, ensureNodeModules, localSecret, log, onShutdown, root, runTs, startChild, startCluster,
-  startMaildev, waitForHttp,
+  buildClient, ensureNodeModules, fakeCardEnv, localSecret, log, onShutdown, root, runTs, startChild, startCluster,
+  startFakeCardService, startMaildev, waitForHttp,
 } from './lib/bootstrap.mjs';
 
-const PORTS = { postgres: 54320, smtp: 1025, mailWeb: 1080, app: 3000 };
+const PORTS = { postgres: 54320, smtp: 1025, mailWeb: 1080, app: 3000, cardService: 12111 };
 
 ensureNodeModules();
 
@@ -29,6 +29,15 @@ const env = {
   SMTP_PORT: process.env.SMTP_PORT ?? String(PORTS.smtp),
 };
 if (!process.env.SMTP_HOST) await startMaildev({ smtpPort: PORTS.smtp, webPort: PORTS.mailWeb });
+// Card payments go to the local fake unless a real card service is configured.
+if (!process.env.STRIPE_SECRET_KEY) {
+  const card = fakeCardEnv(PORTS.cardService, localSecret('card-webhook'));
+  Object.assign(env, card);
+  await startFakeCardService({
+    port: PORTS.cardService,
+    accounts: [{ apiKey: card.STRIPE_SECRET_KEY, webhookSecret: card.STRIPE_WEBHOOK_SECRET, webhookUrl: `http://127.0.0.1:${env.PORT}/api/card-webhooks` }],
+  });
+}
 
 runTs('packages/server/src/db/migrate-cli.ts', ['up'], env);
 runTs('seed/load.ts', ['--if-empty'], env);
@@ -45,5 +54,6 @@ await waitForHttp(`http://127.0.0.1:${env.PORT}/api/health`, 'the server');
 log('');
 log(`Burrowline is up:  ${env.APP_URL}`);
 if (!process.env.SMTP_HOST) log(`Mail inbox:        http://127.0.0.1:${PORTS.mailWeb}`);
+if (!process.env.STRIPE_SECRET_KEY) log(`Test card page:    http://127.0.0.1:${PORTS.cardService} (the fake card service)`);
 log('Demo accounts (password burrowline-demo): admin@demo.test, member@demo.test, apprentice@demo.test');
-log('Ctrl-C stops the server, the mail server and the database.');
+log('Ctrl-C stops the server, the mail server, the fake card service and the database.');

@@ -4,10 +4,10 @@ import { spawn, spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
 import {
-  CHROMIUM, CLIENT_BUILD, ensureChromium, ensureNodeModules, log, root, runTs, startCluster, startMaildev, stopChildren,
+  CHROMIUM, CLIENT_BUILD, ensureChromium, ensureNodeModules, fakeCardEnv, log, root, runTs, startCluster, startFakeCardService, startMaildev, stopChildren,
 } from './lib/bootstrap.mjs';
 
-const PORTS = { postgres: 54321, smtp: 1026, mailWeb: 1081 };
+const PORTS = { postgres: 54321, smtp: 1026, mailWeb: 1081, cardService: 12112 };
 const started = Date.now();
 const vitestArgs = process.argv.slice(2);
 
@@ -60,6 +60,8 @@ process.on('SIGINT', () => cleanup().then(() => process.exit(130)));
 process.on('SIGTERM', () => cleanup().then(() => process.exit(143)));
 
 await startMaildev({ smtpPort: PORTS.smtp, webPort: PORTS.mailWeb });
+// Each test file's app registers its own account (key, webhook address) with the fake.
+await startFakeCardService({ port: PORTS.cardService });
 
 const env = {
   ...process.env,
@@ -73,6 +75,7 @@ const env = {
   MAILDEV_API: `http://127.0.0.1:${PORTS.mailWeb}`,
   CHROMIUM_PATH: CHROMIUM,
   LOG_LEVEL: 'silent',
+  ...fakeCardEnv(PORTS.cardService),
 };
 runTs('packages/server/src/db/migrate-cli.ts', ['up'], env);
 runTs('seed/load.ts', [], env);

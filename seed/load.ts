@@ -13,6 +13,9 @@ import { loadDemoAlmanac } from './demo-almanac';
 import { loadDemoGrowOut } from './demo-grow-out';
 import { loadDemoHealthYield } from './demo-health-yield';
 import { loadDemoHerds } from './demo-herds';
+import { loadDemoLedger } from './demo-ledger';
+
+const appUrl = (process.env.APP_URL ?? 'http://127.0.0.1:3000').replace(/\/$/, '');
 
 /** The farm the demo apprentice works on: their mentor's. */
 const apprenticeFarmKey = demoFarms.find((f) => f.people.some((p) => p.email === demoApprentice.mentorEmail))?.key;
@@ -40,6 +43,7 @@ export async function loadDemoCoop(): Promise<'loaded' | 'already-present'> {
       await loadDemoAlmanac({ coopId: present.id, farms, keepers, apprenticeId: apprentice?.id ?? null, apprenticeFarmKey }, tx);
       await loadDemoGrowOut({ coopId: present.id, farms, keepers, apprenticeId: apprentice?.id ?? null, apprenticeFarmKey }, tx);
       await loadDemoHealthYield({ coopId: present.id, farms, keepers, apprenticeId: apprentice?.id ?? null, apprenticeFarmKey, temperatureUnits }, tx);
+      await loadDemoLedger({ coopId: present.id, farms, keepers, appUrl }, tx);
     });
     return 'already-present';
   }
@@ -69,6 +73,7 @@ export async function loadDemoCoop(): Promise<'loaded' | 'already-present'> {
     await loadDemoAlmanac({ coopId: coop.id, farms, keepers, apprenticeId: apprentice.id, apprenticeFarmKey }, tx);
     await loadDemoGrowOut({ coopId: coop.id, farms, keepers, apprenticeId: apprentice.id, apprenticeFarmKey }, tx);
     await loadDemoHealthYield({ coopId: coop.id, farms, keepers, apprenticeId: apprentice.id, apprenticeFarmKey, temperatureUnits }, tx);
+    await loadDemoLedger({ coopId: coop.id, farms, keepers, appUrl }, tx);
   });
   return 'loaded';
 }

@@ -10,3 +10,5 @@ export function postgresBinDir(): string;
 export function runTs(entry: string, args?: string[], env?: Record<string, string>): void;
 export function isPortOpen(port: number, host?: string): Promise<boolean>;
 export function waitForHttp(url: string, what: string, timeoutMs?: number): Promise<void>;
+export function startFakeCardService(options: { port: number; accounts?: { apiKey: string; webhookSecret: string; webhookUrl: string }[] }): Promise<void>;
+export function fakeCardEnv(port: number, webhookSecret?: string): Record<string, string>;

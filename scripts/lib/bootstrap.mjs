@@ -253,6 +253,36 @@ export async function startMaildev({ smtpPort, webPort }) {
   log(`maildev: SMTP 127.0.0.1:${smtpPort}, inbox http://127.0.0.1:${webPort}`);
 }
 
+/**
+ * The local stand-in for the card service (scripts/lib/fake-card-service.mjs) on its own port, like
+ * maildev; `accounts` are `{ apiKey, webhookSecret, webhookUrl }` whose webhooks it signs and delivers.
+ */
+export async function startFakeCardService({ port, accounts = [] }) {
+  if (await isPortOpen(port)) {
+    log(`a fake card service already answers on 127.0.0.1:${port}, reusing it`);
+  } else {
+    const args = [path.join(root, 'scripts', 'lib', 'fake-card-service.mjs'), '--port', String(port), '--silent'];
+    startChild('fake card service', process.execPath, args, { stdio: ['ignore', 'ignore', 'inherit'] });
+    await waitForHttp(`http://127.0.0.1:${port}/_fake/health`, 'the fake card service', 30000);
+  }
+  for (const account of accounts) {
+    await fetch(`http://127.0.0.1:${port}/_fake/accounts`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(account) });
+  }
+  log(`fake card service: http://127.0.0.1:${port}`);
+}
+
+/** The card settings the app reads (see config/env.ts) for a fake card service on `port`. */
+export function fakeCardEnv(port, webhookSecret = 'whsec_local_burrowline_fake') {
+  return {
+    STRIPE_SECRET_KEY: 'sk_test_burrowline_local',
+    STRIPE_WEBHOOK_SECRET: webhookSecret,
+    STRIPE_API_HOST: '127.0.0.1',
+    STRIPE_API_PORT: String(port),
+    STRIPE_API_PROTOCOL: 'http',
+    FAKE_CARD_SERVICE_URL: `http://127.0.0.1:${port}`,
+  };
+}
+
 export async function waitForHttp(url, what, timeoutMs = 60000) {
   await waitFor(async () => {
     try {

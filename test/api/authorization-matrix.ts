@@ -48,6 +48,9 @@ export type Target =
   // Herd files: a photo of a fresh farm-A animal, a spreadsheet staged by farm A's member.
   | 'photoA'
   | 'importA'
+  // The Ledger: a posted stud fee (farm A owes farm B), a posted processing charge of farm A to the co-op, a
+  // cash payment farm A recorded to farm B (waiting for B), an open card checkout of farm A, a fresh dues year.
+  | 'ledgerA'
   // A lent buck of farm A with private records of farm A (notes field, note, weigh-in, photo, treatment):
   // at home, lent to farm B (which records its own note, weigh-in and treatment), and back home.
   | LoanStage;
@@ -107,7 +110,14 @@ export type Body =
   | 'feedPurchase'
   | 'feedUse'
   | 'feedPurchaseCorrection'
-  | 'feedUseCorrection';
+  | 'feedUseCorrection'
+  // The Ledger.
+  | 'ledgerTransfer'
+  | 'ledgerCorrection'
+  | 'ledgerPayment'
+  | 'dues'
+  | 'cardCheckout'
+  | 'cardWebhook';
 
 export interface MatrixRow {
   method: 'GET' | 'PATCH' | 'DELETE' | 'POST' | 'PUT';
@@ -259,6 +269,36 @@ export const authorizationMatrix: MatrixRow[] = [
   // Performance: read-only, the signed-in person's farm; another farm's or co-op's tables do not exist (404).
   { method: 'GET', path: '/api/performance', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'GET', path: '/api/performance?period=all&farmId=:farmId', target: 'farmA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  // The Ledger: members see their farm's account, the admin the co-op's books; apprentices no money at all
+  // (403 everywhere); another farm's account or transfer does not exist for a member (404), nor another co-op's.
+  { method: 'GET', path: '/api/ledger/summary', target: 'none', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/ledger/summary?farmId=:farmId', target: 'farmA', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/ledger/coop', target: 'none', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/ledger/transfers', target: 'none', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/ledger/transfers?farmId=:farmId', target: 'farmA', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  // Another co-op's admin names our farms: they are not in that co-op (a field error).
+  { method: 'POST', path: '/api/ledger/transfers', target: 'ledgerA', body: 'ledgerTransfer', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 201, otherCoop: 400 } },
+  { method: 'GET', path: '/api/ledger/transfers/:transferId', target: 'ledgerA', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/ledger/transfers/:coopTransferId', target: 'ledgerA', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  // Only the receiving farm confirms a payment made to it; the payer and the admin may not.
+  { method: 'POST', path: '/api/ledger/transfers/:paymentId/confirmation', target: 'ledgerA', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 200, admin: 403, otherCoop: 404 } },
+  { method: 'POST', path: '/api/ledger/transfers/:paymentId/void', target: 'ledgerA', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/ledger/transfers/:transferId/void', target: 'ledgerA', expect: { anonymous: 401, apprentice: 403, member: 409, otherFarmMember: 409, admin: 409, otherCoop: 404 } },
+  { method: 'POST', path: '/api/ledger/transfers/:transferId/corrections', target: 'ledgerA', body: 'ledgerCorrection', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 201, admin: 201, otherCoop: 404 } },
+  { method: 'POST', path: '/api/ledger/transfers/:coopTransferId/corrections', target: 'ledgerA', body: 'ledgerCorrection', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 404, admin: 201, otherCoop: 404 } },
+  { method: 'POST', path: '/api/ledger/payments', target: 'none', body: 'ledgerPayment', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 201, admin: 201, otherCoop: 201 } },
+  { method: 'GET', path: '/api/ledger/settle-up', target: 'none', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/ledger/statement?from=2026-01-01&to=2026-12-31', target: 'none', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/ledger/statement?from=2026-01-01&to=2026-12-31&format=csv&farmId=:farmId', target: 'farmA', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/ledger/statement?from=2026-01-01&to=2026-12-31&coop=true', target: 'none', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/ledger/fees-by-month', target: 'none', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/ledger/fees-by-month?coop=true', target: 'none', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 200 } },
+  { method: 'PUT', path: '/api/ledger/dues/:year', target: 'ledgerA', body: 'dues', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 200 } },
+  // Each farm owes its co-op a processing charge and pays it by card.
+  { method: 'POST', path: '/api/ledger/card-checkouts', target: 'ledgerA', body: 'cardCheckout', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 201, admin: 201, otherCoop: 201 } },
+  { method: 'GET', path: '/api/ledger/card-checkouts/:checkoutId', target: 'ledgerA', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  // The card service's webhook answers no session: without its signature everyone gets 400.
+  { method: 'POST', path: '/api/card-webhooks', target: 'none', body: 'cardWebhook', expect: { anonymous: 400, apprentice: 400, member: 400, otherFarmMember: 400, admin: 400, otherCoop: 400 } },
   { method: 'DELETE', path: '/api/session', target: 'none', expect: { anonymous: 204, apprentice: 204, member: 204, otherFarmMember: 204, admin: 204, otherCoop: 204 } },
 
   // A lent animal: its private records belong to the farm that recorded them. Farm B sees the pedigree card
@@ -297,6 +337,7 @@ export const matrixAreas = [
   { area: 'almanac', paths: /^\/api\/(almanac|calendar-feeds|services|treatments)\b/ },
   { area: 'litters-and-health', paths: /^\/api\/(litters|litter-events|housing-units|housing-placements|withdrawals|temperature-readings|heat-caution|processing-records|processing-marks)\b/ },
   { area: 'grow-out', paths: /^\/api\/(grow-out|feed|performance)\b/ },
+  { area: 'ledger', paths: /^\/api\/(ledger|card-webhooks)\b/ },
 ] as const;
 
 export type MatrixArea = (typeof matrixAreas)[number]['area'];

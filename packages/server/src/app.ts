@@ -34,6 +34,7 @@ import { housingPlacementRoutes, housingRoutes, litterEventRoutes, litterRoutes 
 import { growOutRoutes } from './modules/grow-out/grow-out.routes';
 import { feedRoutes } from './modules/feed/feed.routes';
 import { performanceRoutes } from './modules/performance/performance.routes';
+import { cardWebhookRoutes, ledgerRoutes } from './modules/ledger/ledger.routes';
 
 const defaultClientDist = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../client/dist');
 
@@ -98,6 +99,8 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
     res.setHeader('Cache-Control', 'no-store');
     next();
   });
+  // The card service's webhooks: signed raw bodies, no session or CSRF header, so before the JSON parser.
+  api.use('/card-webhooks', cardWebhookRoutes(config));
   api.use(express.json({ limit: '100kb' }));
   api.use(session.middleware, enforceAbsoluteLifetime(config), passport.session(), attachAbility);
   api.use(csrfGuard(config.appUrl));
@@ -144,6 +147,8 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
   api.use('/processing-records', processingRecordRoutes());
   api.use('/processing-marks', processingMarkRoutes());
   api.use('/performance', performanceRoutes());
+  // The Ledger: fees and balances between farms and the co-op, statements, dues and card payments.
+  api.use('/ledger', ledgerRoutes(config));
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -32,3 +32,5 @@ export * from './permissions/define-ability';
 export type { RawRuleOf } from '@casl/ability';
 export type { PackRule } from '@casl/ability/extra';
 export * from './text/count-of';
+export * from './schemas/ledger.schema';
+export * from './ledger';

@@ -28,6 +28,10 @@ export const RealtimeEvent = {
   healthChanged: 'health:changed',
   /** A processing record or a mark for processing of the farm changed; to the farm's room. */
   processingChanged: 'processing:changed',
+  /** The Ledger of a farm (to the farm's money room) or of the co-op (to its admins) changed; no amounts travel. */
+  ledgerChanged: 'ledger:changed',
+  /** A card checkout was settled by the card service; to the payer's user room. */
+  cardCheckoutSettled: 'ledger:card-checkout-settled',
 } as const;
 
 export interface ServerToClientEvents {
@@ -45,6 +49,8 @@ export interface ServerToClientEvents {
   [RealtimeEvent.healthChanged]: (payload: { farmId: string }) => void;
   [RealtimeEvent.processingChanged]: (payload: { farmId: string }) => void;
   [RealtimeEvent.growOutChanged]: (payload: { farmId: string; groupId: string | null }) => void;
+  [RealtimeEvent.ledgerChanged]: (payload: { farmIds: string[] }) => void;
+  [RealtimeEvent.cardCheckoutSettled]: (payload: { checkoutId: string; status: 'paid' | 'declined' }) => void;
 }
 
 // eslint-disable-next-line @typescript-eslint/no-empty-object-type
@@ -55,5 +61,7 @@ export const rooms = {
   coop: (coopId: string) => `coop:${coopId}`,
   coopAdmins: (coopId: string) => `coop:${coopId}:admins`,
   farm: (farmId: string) => `farm:${farmId}`,
+  /** A farm's members who may see money (never its apprentices). */
+  farmLedger: (farmId: string) => `farm:${farmId}:ledger`,
   user: (userId: string) => `user:${userId}`,
 };

@@ -196,6 +196,28 @@ const routes: RouteObject[] = [
                   return { loader, Component: HerdImportPage };
                 },
               },
+              // The Ledger: the farm's account, the co-op's books (admin), the card page's way back.
+              {
+                path: 'ledger',
+                lazy: async () => {
+                  const { loader, LedgerPage } = await import('../routes/ledger/ledger');
+                  return { loader, Component: LedgerPage };
+                },
+              },
+              {
+                path: 'ledger/coop',
+                lazy: async () => {
+                  const { loader, CoopLedgerPage } = await import('../routes/ledger/coop');
+                  return { loader, Component: CoopLedgerPage };
+                },
+              },
+              {
+                path: 'ledger/card-return',
+                lazy: async () => {
+                  const { CardReturnPage } = await import('../routes/ledger/card-return');
+                  return { Component: CardReturnPage };
+                },
+              },
               {
                 path: 'herd/new',
                 lazy: async () => {

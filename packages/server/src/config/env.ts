@@ -48,8 +48,14 @@ const envSchema = z.object({
   HERD_IMPORTS_WAITING_PER_FARM: z.coerce.number().int().min(1).default(10),
   /** The Almanac's morning e-mail job (pg-boss) in this process: off for a process that only serves requests. */
   MORNING_EMAIL_JOBS: bool.default(true),
+  /** Card payments (Stripe's API or the local fake): all optional; without a secret key, paying by card is off. */
+  STRIPE_SECRET_KEY: z.string().startsWith('sk_', 'STRIPE_SECRET_KEY starts with sk_').optional(),
+  STRIPE_WEBHOOK_SECRET: z.string().startsWith('whsec_', 'STRIPE_WEBHOOK_SECRET starts with whsec_').optional(),
+  STRIPE_API_HOST: z.string().min(1).optional(),
+  STRIPE_API_PORT: z.coerce.number().int().min(1).max(65535).optional(),
+  STRIPE_API_PROTOCOL: z.enum(['http', 'https']).optional(),
   LOG_LEVEL: z.enum(['debug', 'info', 'warn', 'error', 'silent']).default('info'),
-});
+}).refine((e) => !e.STRIPE_SECRET_KEY || e.STRIPE_WEBHOOK_SECRET, { path: ['STRIPE_WEBHOOK_SECRET'], message: 'STRIPE_WEBHOOK_SECRET is required with STRIPE_SECRET_KEY' });
 
 export type Env = z.infer<typeof envSchema>;
 
@@ -92,7 +98,20 @@ export interface Config {
   uploads: { dir: string; photoMaxBytes: number; photosPerAnimal: number; photosPerUpload: number; importMaxBytes: number; importMaxRows: number; importsWaitingPerFarm: number };
   /** Run the Almanac's morning e-mail schedule and worker in this process (server.ts). */
   morningEmailJobs: boolean;
+  /**
+   * Card payments: the card service's secret key and webhook signing secret, and where its API answers
+   * (the real service when host, port and protocol are left out). Null when no key is set.
+   */
+  card: CardConfig | null;
   logLevel: Env['LOG_LEVEL'];
+}
+
+export interface CardConfig {
+  secretKey: string;
+  webhookSecret: string;
+  apiHost?: string;
+  apiPort?: number;
+  apiProtocol?: 'http' | 'https';
 }
 
 /** Parses the environment once at boot and fails fast with a message naming each bad variable. */
@@ -143,6 +162,9 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
       importsWaitingPerFarm: e.HERD_IMPORTS_WAITING_PER_FARM,
     },
     morningEmailJobs: e.MORNING_EMAIL_JOBS,
+    card: e.STRIPE_SECRET_KEY
+      ? { secretKey: e.STRIPE_SECRET_KEY, webhookSecret: e.STRIPE_WEBHOOK_SECRET!, apiHost: e.STRIPE_API_HOST, apiPort: e.STRIPE_API_PORT, apiProtocol: e.STRIPE_API_PROTOCOL }
+      : null,
     logLevel: e.LOG_LEVEL,
   };
 }

@@ -95,6 +95,14 @@ export async function enqueueJob(queue: string, data: object): Promise<void> {
   });
 }
 
+/**
+ * Queues work in the caller's transaction, so it exists only if the change commits; `startAfter` holds
+ * it until then (a reminder before a due date). The job's handler must be safe to run twice.
+ */
+export async function enqueueJobIn(tx: Transaction, queue: string, data: object, options: { startAfter?: Date } = {}): Promise<void> {
+  await jobWriter.send(queue, data, { retryDelay: settings.retryDelaySeconds, startAfter: options.startAfter, db: onTransaction(tx) });
+}
+
 interface OutboxRow {
   recipient: string;
   subject: string;

@@ -23,6 +23,7 @@ export function roomsFor(user: SessionUser, sessionId: string): string[] {
   const joined = [rooms.user(user.id), `session:${sessionId}`];
   if (ability.can('read', subjectOf('Coop', { id: user.coopId }))) joined.push(rooms.coop(user.coopId));
   if (user.farmId) joined.push(rooms.farm(user.farmId));
+  if (user.farmId && ability.can('read', subjectOf('Money', { coopId: user.coopId, farmId: user.farmId }))) joined.push(rooms.farmLedger(user.farmId));
   if (ability.can('manage', subjectOf('Application', { coopId: user.coopId }))) joined.push(rooms.coopAdmins(user.coopId));
   return joined;
 }

@@ -190,7 +190,8 @@ export function defineAbilityFor(user: AbilityUser | null): AppAbility {
     );
     can('create', 'User', { coopId });
     can('read', 'AuditEvent', { coopId });
-    can('read', 'Ledger', { coopId });
+    // The co-op's books: every farm's account, co-op transfers and corrections, dues.
+    can('manage', 'Ledger', { coopId });
     can('read', 'Money', { coopId });
     can('moderate', 'ChatMessage', { coopId });
     can('manage', 'ProcessingDay', { coopId });

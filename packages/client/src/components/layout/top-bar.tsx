@@ -1,4 +1,4 @@
-import { CalendarDays, LogOut, Rabbit, ShieldCheck, Sprout, Tent, Warehouse, type LucideIcon } from 'lucide-react';
+import { CalendarDays, Coins, LogOut, Rabbit, ShieldCheck, Sprout, Tent, Warehouse, type LucideIcon } from 'lucide-react';
 import { Link, NavLink } from 'react-router-dom';
 import { CountBadge } from '../ui/badge';
 import { BrandMark } from '../ui/brand-mark';
@@ -22,17 +22,20 @@ interface TopBarProps {
   isSigningOut: boolean;
   /** Only for the co-op's admins: their area, with the count of applications they have not opened. */
   admin?: { unreadApplications: number };
+  /** Whether the person sees money (never an apprentice): the Ledger's entry. */
+  ledger?: boolean;
 }
 
 // Whole class names, so Tailwind sees them when it scans this file.
-const columns: Record<number, string> = { 1: 'grid-cols-1', 2: 'grid-cols-2', 3: 'grid-cols-3', 4: 'grid-cols-4', 5: 'grid-cols-5', 6: 'grid-cols-6' };
+const columns: Record<number, string> = { 1: 'grid-cols-1', 2: 'grid-cols-2', 3: 'grid-cols-3', 4: 'grid-cols-4', 5: 'grid-cols-5', 6: 'grid-cols-6', 7: 'grid-cols-7' };
 
-function areasFor({ farmId, admin }: Pick<TopBarProps, 'farmId' | 'admin'>): Area[] {
+function areasFor({ farmId, admin, ledger }: Pick<TopBarProps, 'farmId' | 'admin' | 'ledger'>): Area[] {
   const areas: Area[] = [{ to: '/', label: 'Commons', icon: Tent, end: true }];
   if (farmId) {
     areas.push({ to: '/herd', label: 'Herd', icon: Rabbit });
     areas.push({ to: '/almanac', label: 'Almanac', icon: CalendarDays });
     areas.push({ to: '/grow-out', label: 'Grow-out', icon: Sprout });
+    if (ledger) areas.push({ to: '/ledger', label: 'Ledger', icon: Coins });
     areas.push({ to: `/farms/${farmId}`, label: 'My farm', icon: Warehouse });
   }
   if (admin) areas.push({ to: '/admin', label: 'Admin', icon: ShieldCheck, badge: { count: admin.unreadApplications, label: 'new applications' } });
@@ -43,8 +46,8 @@ function areasFor({ farmId, admin }: Pick<TopBarProps, 'farmId' | 'admin'>): Are
  * Wide screens: the co-op and sign-out on top, the areas in a row beneath. Phones and tablets: the co-op and sign-out on top and
  * the areas in a tab bar at the bottom, where a thumb reaches them with gloves on.
  */
-export function TopBar({ coopName, personName, roleLabel, farmId, onSignOut, isSigningOut, admin }: TopBarProps) {
-  const areas = areasFor({ farmId, admin });
+export function TopBar({ coopName, personName, roleLabel, farmId, onSignOut, isSigningOut, admin, ledger }: TopBarProps) {
+  const areas = areasFor({ farmId, admin, ledger });
   return (
     <>
       <header className="bg-moss text-oat">

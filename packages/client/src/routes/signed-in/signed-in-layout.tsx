@@ -20,6 +20,8 @@ export function SignedInLayout() {
   const ability = useMemo(() => buildAbility(me.rules), [me.rules]);
   const signOut = useSignOut();
   const isAdmin = ability.can('manage', subjectOf('Application', { coopId: me.coop.id }));
+  // Apprentices never see money: no Ledger in their menu.
+  const seesMoney = Boolean(me.user.farmId) && ability.can('read', subjectOf('Money', { coopId: me.coop.id, farmId: me.user.farmId }));
   const unread = useUnreadApplications(isAdmin);
   useRealtimeSync();
 
@@ -35,6 +37,7 @@ export function SignedInLayout() {
           onSignOut={() => signOut.mutate()}
           isSigningOut={signOut.isPending}
           admin={isAdmin ? { unreadApplications: unread.data ?? 0 } : undefined}
+          ledger={seesMoney}
         />
         <main id="main" tabIndex={-1} className="mx-auto max-w-6xl px-4 pt-6 pb-24 focus:outline-none sm:pt-8 lg:pb-8">
           {signOut.isError && (

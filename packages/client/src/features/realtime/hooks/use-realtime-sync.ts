@@ -14,6 +14,7 @@ import { herdKeys } from '../../herd';
 import { litterKeys } from '../../litters';
 import { auditKeys, memberKeys } from '../../members';
 import { performanceKeys } from '../../performance';
+import { ledgerKeys } from '../../ledger';
 
 /**
  * The one place where server events become cache updates. Mounted by the signed-in layout, so the
@@ -75,6 +76,8 @@ export function useRealtimeSync(): void {
       const refreshGroupWeighIns = ({ animalId }: { animalId: string | null }) => {
         if (animalId === null) refreshGrowOut();
       };
+      // The Ledger of the person's farm or (admins) the co-op changed, or a card payment was settled: refetch its figures.
+      const refreshLedger = () => void queryClient.invalidateQueries({ queryKey: ledgerKeys.all });
       const refreshAll = () => {
         refreshFarms();
         refreshLitters();
@@ -84,6 +87,7 @@ export function useRealtimeSync(): void {
         refreshGrowOut();
         refreshHealth();
         refreshProcessing();
+        refreshLedger();
       };
       const endSession = ({ reason }: { reason: string }) =>
         void leaveSignedInArea(
@@ -106,6 +110,8 @@ export function useRealtimeSync(): void {
       socket.on(RealtimeEvent.healthChanged, refreshHealth);
       socket.on(RealtimeEvent.temperatureRecorded, refreshTemperature);
       socket.on(RealtimeEvent.processingChanged, refreshProcessing);
+      socket.on(RealtimeEvent.ledgerChanged, refreshLedger);
+      socket.on(RealtimeEvent.cardCheckoutSettled, refreshLedger);
       socket.on(RealtimeEvent.sessionEnded, endSession);
       // Events sent while the connection was down are lost; refetch what they would have refreshed.
       socket.io.on('reconnect', refreshAll);
@@ -124,6 +130,8 @@ export function useRealtimeSync(): void {
         socket.off(RealtimeEvent.healthChanged, refreshHealth);
         socket.off(RealtimeEvent.temperatureRecorded, refreshTemperature);
         socket.off(RealtimeEvent.processingChanged, refreshProcessing);
+        socket.off(RealtimeEvent.ledgerChanged, refreshLedger);
+        socket.off(RealtimeEvent.cardCheckoutSettled, refreshLedger);
         socket.off(RealtimeEvent.sessionEnded, endSession);
         socket.io.off('reconnect', refreshAll);
         disconnectRealtime();

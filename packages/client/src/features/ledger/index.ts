@@ -1,0 +1,1 @@
+export { ledgerKeys } from './api/keys';

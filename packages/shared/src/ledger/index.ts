@@ -1,0 +1,2 @@
+export * from './settle-up';
+export * from './ledger-dto';
