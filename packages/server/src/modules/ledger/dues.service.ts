@@ -6,7 +6,7 @@ import { enqueueJobIn, handleJobs, queueMail } from '../../lib/mail-outbox';
 import type { SessionUser } from '../../lib/session-user';
 import { getCoop } from '../coops/coops.service';
 import { farmDirectoryOf } from '../farms/farms.service';
-import { listCoopUsers } from '../users/users.service';
+import { activeFarmMembers } from '../users/users.service';
 import { cents, selectRows } from './ledger-books';
 import { coopLedger, duesOfFarms, duesPeriodOf, postTransfer } from './ledger.service';
 import { duesReminderMail } from './ledger.mail';
@@ -87,7 +87,7 @@ export async function sendDuesReminders(job: DuesReminderJob, now: Date = new Da
     const dues = await duesOfFarms(tx, [...directory.keys()]);
     const coop = await getCoop(job.coopId, tx);
     const money = new Intl.NumberFormat('en-US', { style: 'currency', currency: coop?.currency ?? 'USD' });
-    const people = (await listCoopUsers(job.coopId, tx)).filter((u) => u.role !== 'apprentice' && !u.disabledAt && u.farmId && u.passwordHash);
+    const people = await activeFarmMembers(job.coopId, tx);
     let queued = 0;
     for (const [farmId, list] of dues) {
       const owed = list.find((d) => d.year === job.year)?.owedCents ?? 0;

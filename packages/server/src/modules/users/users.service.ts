@@ -66,6 +66,15 @@ export async function usersInOrder(coopId: string, ids: string[], tx: Transactio
   return ids.map((id) => users.get(id)).filter((u): u is User => Boolean(u));
 }
 
+/** The co-op's members and admins who belong to a farm and can sign in (not apprentices, not disabled, not invitees). */
+export async function activeFarmMembers(coopId: string, tx: Transaction): Promise<User[]> {
+  return User.findAll({
+    where: { coopId, role: { [Op.ne]: 'apprentice' }, disabledAt: null, farmId: { [Op.ne]: null }, passwordHash: { [Op.ne]: null } },
+    order: [['name', 'ASC'], ['id', 'ASC']],
+    transaction: tx,
+  });
+}
+
 /** Names by id, for presenting who did what. */
 export async function namesOf(userIds: (string | null | undefined)[], tx: Transaction): Promise<Map<string, string>> {
   const ids = [...new Set(userIds.filter((id): id is string => Boolean(id)))];
