@@ -86,7 +86,7 @@ describe('ledger: a member pays dues by card', () => {
       await apprentice.page.getByRole('link', { name: 'Herd', exact: true }).first().waitFor();
       expect(await apprentice.page.getByRole('link', { name: 'Ledger', exact: true }).count()).toBe(0);
       await apprentice.page.goto(`${server.url}/ledger`);
-      await apprentice.page.getByText('Not yours to see').waitFor();
+      await apprentice.page.getByRole('heading', { name: 'Not open to you' }).waitFor();
       expect(await apprentice.page.getByText('$').count()).toBe(0);
     } finally {
       await apprentice.close();
