@@ -1,6 +1,6 @@
 // `npm test`: a throwaway PostgreSQL cluster and mail server of its own (so it can run beside
 // `npm start`), then type check, lint, and every vitest project: unit, API, reference, browser.
-import { spawn, spawnSync } from 'node:child_process';
+import { spawn } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
 import {
@@ -47,10 +47,18 @@ function clientBuildNeeded() {
 
 ensureNodeModules();
 ensureChromium();
-// The build needs no database: it runs while the cluster starts, migrates and seeds.
+const bin = (name) => path.join(root, 'node_modules', '.bin', name);
+// None of these needs the database: they run while the cluster starts, migrates and seeds, and type check and
+// lint go on beside the tests (each is one process on one core; the tests leave cores idle while they wait).
 const clientBuild = clientBuildNeeded()
   ? (log('building the client (in the background)…'), inBackground('client build', CLIENT_BUILD.command, CLIENT_BUILD.args, { cwd: CLIENT_BUILD.cwd }))
   : null;
+log('type check and lint (in the background)…');
+const checks = [
+  // Incremental: a rerun checks only what changed since the last (the file lives in the gitignored data folder).
+  inBackground('type check', bin('tsc'), ['-p', '.', '--pretty', '--incremental', '--tsBuildInfoFile', '.data/typecheck.tsbuildinfo']),
+  inBackground('lint', bin('eslint'), ['.', '--max-warnings=0']),
+];
 const cluster = await startCluster({ name: 'pg-test', port: PORTS.postgres, fresh: true, fast: true });
 const cleanup = async () => {
   await stopChildren();
@@ -58,7 +66,6 @@ const cleanup = async () => {
 };
 process.on('SIGINT', () => cleanup().then(() => process.exit(130)));
 process.on('SIGTERM', () => cleanup().then(() => process.exit(143)));
-
 await startMaildev({ smtpPort: PORTS.smtp, webPort: PORTS.mailWeb });
 // Each test file's app registers its own account (key, webhook address) with the fake.
 await startFakeCardService({ port: PORTS.cardService });
@@ -80,23 +87,22 @@ const env = {
 runTs('packages/server/src/db/migrate-cli.ts', ['up'], env);
 runTs('seed/load.ts', [], env);
 
-const bin = (name) => path.join(root, 'node_modules', '.bin', name);
-// Type check and lint are each one process on one core: side by side they take the time of the longer.
-log('— type check and lint —');
-const results = await Promise.all([
-  // Incremental: a rerun checks only what changed since the last (the file lives in the gitignored data folder).
-  inBackground('type check', bin('tsc'), ['-p', '.', '--pretty', '--incremental', '--tsBuildInfoFile', '.data/typecheck.tsbuildinfo'], { env }),
-  inBackground('lint', bin('eslint'), ['.', '--max-warnings=0'], { env }),
-  ...(clientBuild ? [clientBuild] : []),
-]);
-for (const r of results) if (r.output.trim()) process.stdout.write(`[${r.name}]\n${r.output}`);
+// The browser tests serve the built client.
+const built = clientBuild ? await clientBuild : null;
+if (built) process.stdout.write(built.output.trim() ? `[${built.name}]\n${built.output}` : '');
 
 log('— tests —');
 const reportFile = path.join(root, '.data', 'vitest-report.json');
 fs.rmSync(reportFile, { force: true }); // a run that dies early must not print the last run's numbers
 const t0 = Date.now();
-const tests = spawnSync(bin('vitest'), ['run', '--reporter=default', '--reporter=json', '--outputFile.json=.data/vitest-report.json', ...vitestArgs], { cwd: root, env, stdio: 'inherit' });
-results.push({ name: 'tests', ok: tests.status === 0, seconds: (Date.now() - t0) / 1000 });
+const tests = await new Promise((resolve) => {
+  const child = spawn(bin('vitest'), ['run', '--reporter=default', '--reporter=json', '--outputFile.json=.data/vitest-report.json', ...vitestArgs], { cwd: root, env, stdio: 'inherit' });
+  child.once('error', () => resolve(1));
+  child.once('close', (code) => resolve(code));
+});
+const results = [...(built ? [built] : []), ...(await Promise.all(checks))];
+for (const r of results.slice(built ? 1 : 0)) if (r.output.trim()) process.stdout.write(`[${r.name}]\n${r.output}`);
+results.push({ name: 'tests', ok: tests === 0, seconds: (Date.now() - t0) / 1000 });
 await cleanup();
 
 log('');
