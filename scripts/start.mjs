@@ -31,7 +31,8 @@ const env = {
 if (!process.env.SMTP_HOST) await startMaildev({ smtpPort: PORTS.smtp, webPort: PORTS.mailWeb });
 // Card payments go to the local fake unless a real card service is configured.
 if (!process.env.STRIPE_SECRET_KEY) {
-  const card = fakeCardEnv(PORTS.cardService, localSecret('card-webhook'));
+  // The SDK's scheme: a webhook secret starts with whsec_.
+  const card = fakeCardEnv(PORTS.cardService, `whsec_${localSecret('card-webhook')}`);
   Object.assign(env, card);
   await startFakeCardService({
     port: PORTS.cardService,
