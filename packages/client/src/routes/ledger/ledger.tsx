@@ -17,6 +17,7 @@ import { SettleUpList } from '../../features/ledger/components/settle-up-card';
 import { StatementDownloads } from '../../features/ledger/components/statement-downloads';
 import { TransfersTable } from '../../features/ledger/components/transfers-table';
 import { useAbility } from '../../lib/ability';
+import { formatDate } from '../../lib/days';
 import { useMoney } from '../../lib/money';
 import { useSession } from '../../lib/session';
 
@@ -66,7 +67,7 @@ export function LedgerPage() {
             <ul className="space-y-1" aria-label="Dues">
               {summary.dues.map((d) => (
                 <li key={d.year} className="flex flex-wrap justify-between gap-2" data-testid={`dues-${d.year}`}>
-                  <span>{d.year} dues, due {d.dueOn}</span>
+                  <span>{d.year} dues, due {formatDate(d.dueOn)}</span>
                   <span className="font-semibold">{d.owedCents > 0 ? `${money(d.owedCents)} owed` : 'Paid'}</span>
                 </li>
               ))}

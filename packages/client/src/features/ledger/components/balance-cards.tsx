@@ -9,8 +9,8 @@ export function BalanceCards({ summary }: { summary: LedgerSummaryDto }) {
     { label: 'You owe', value: money(summary.youOweCents), note: summary.owedToCoopCents > 0 ? `${money(summary.owedToCoopCents)} of it to the co-op` : 'Posted, to farms and the co-op', tone: 'border-clay/60 bg-white' },
     {
       label: 'Expected',
-      value: `+${money(summary.expectedInCents)} / −${money(summary.expectedOutCents)}`,
-      note: 'Pending: not in the balance until posted',
+      value: `${money(summary.expectedInCents)} in · ${money(summary.expectedOutCents)} out`,
+      note: 'Pending fees and payments: not in the balance until posted',
       tone: 'border-straw bg-white',
     },
   ];

@@ -13,7 +13,7 @@ export function CoopLedgerView({ data }: { data: CoopLedgerDto }) {
           <div key={a.id} className="rounded-2xl border border-grey-200 bg-white p-4 shadow-sm">
             <p className="text-sm font-semibold text-grey-600 uppercase">{a.name}</p>
             <p className="mt-1 text-2xl font-bold">{money(a.balanceCents)}</p>
-            {(a.expectedInCents > 0 || a.expectedOutCents > 0) && <p className="text-sm text-grey-600">Expected +{money(a.expectedInCents)} / −{money(a.expectedOutCents)}</p>}
+            {(a.expectedInCents > 0 || a.expectedOutCents > 0) && <p className="text-sm text-grey-600">Expected: {money(a.expectedInCents)} in · {money(a.expectedOutCents)} out</p>}
           </div>
         ))}
       </section>

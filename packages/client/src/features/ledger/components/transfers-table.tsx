@@ -7,6 +7,7 @@ import { Button } from '../../../components/ui/button';
 import { DataTable, Pagination } from '../../../components/ui/data-table';
 import { SelectField } from '../../../components/ui/select-field';
 import { TextField } from '../../../components/ui/text-field';
+import { formatDate } from '../../../lib/days';
 import { errorText } from '../../../lib/form-errors';
 import { useMoney } from '../../../lib/money';
 import { useUrlState } from '../../../lib/url-state';
@@ -69,7 +70,7 @@ export function TransfersTable({ ownFarmId, farmId, counterparties }: { ownFarmI
   const { data, isFetching, error } = useTransfers(filters);
   const columns = useMemo(
     () => [
-      column.accessor('bookedOn', { header: 'Date', enableSorting: false, cell: (c) => <span className="whitespace-nowrap">{c.getValue()}</span> }),
+      column.accessor('bookedOn', { header: 'Date', enableSorting: false, cell: (c) => <span className="whitespace-nowrap">{formatDate(c.getValue())}</span> }),
       column.accessor('kind', { header: 'Kind', enableSorting: false, cell: (c) => kindLabels[c.getValue()] }),
       column.display({ id: 'other', header: ownFarmId ? 'With' : 'Owes → owed', cell: (c) => sideOf(c.row.original, ownFarmId).other }),
       column.accessor('memo', { header: 'Memo', enableSorting: false, cell: (c) => c.getValue() || c.row.original.correctionReason || '' }),
@@ -116,7 +117,7 @@ export function TransfersTable({ ownFarmId, farmId, counterparties }: { ownFarmI
                 <span className={`text-lg font-bold whitespace-nowrap ${amountClass(sign)}`}>{signText(sign)}{money(t.amountCents)}</span>
               </div>
               <div className="flex flex-wrap items-center gap-2 text-sm text-grey-600">
-                <span>{t.bookedOn}</span>
+                <span>{formatDate(t.bookedOn)}</span>
                 <Badge tone={statusTone[t.status]}>{t.status}</Badge>
                 {(t.memo || t.correctionReason) && <span className="break-words">{t.memo || t.correctionReason}</span>}
               </div>
