@@ -1,7 +1,7 @@
-import { getCoreRowModel, useReactTable, type ColumnDef, type SortingState, type Updater } from '@tanstack/react-table';
-import { useMemo } from 'react';
-import type { ApplicationListItemDto, ApplicationListQuery, ApplicationSortKey } from '@burrowline/shared';
+import type { ColumnDef } from '@tanstack/react-table';
+import { applicationSortKeys, type ApplicationListItemDto, type ApplicationListQuery, type ApplicationSortKey } from '@burrowline/shared';
 import { Badge } from '../../../components/ui/badge';
+import { useServerTable } from '../../../components/ui/use-server-table';
 import { DataTable, RowLink } from '../../../components/ui/data-table';
 import { formatInstant } from '../../../lib/dates';
 import { ApplicationStatusBadge } from './application-status-badge';
@@ -67,24 +67,7 @@ interface ApplicationsTableProps {
 
 /** The queue: sorting and paging happen on the server; this table only shows and asks. */
 export function ApplicationsTable({ items, total, query, onSort, isRefreshing, empty }: ApplicationsTableProps) {
-  const sorting = useMemo<SortingState>(() => [{ id: query.sort, desc: query.dir === 'desc' }], [query.sort, query.dir]);
-  const table = useReactTable({
-    data: items,
-    columns,
-    getRowId: (row) => row.id,
-    getCoreRowModel: getCoreRowModel(),
-    manualSorting: true,
-    manualPagination: true,
-    manualFiltering: true,
-    enableSortingRemoval: false,
-    rowCount: total,
-    state: { sorting, pagination: { pageIndex: query.page - 1, pageSize: query.pageSize } },
-    onSortingChange: (updater: Updater<SortingState>) => {
-      const next = typeof updater === 'function' ? updater(sorting) : updater;
-      const first = next[0];
-      if (first) onSort(first.id as ApplicationSortKey, first.desc ? 'desc' : 'asc');
-    },
-  });
+  const table = useServerTable({ rows: items, columns, total, view: query, sortKeys: applicationSortKeys, onSort: onSort, rowId: (row) => row.id });
 
   return (
     <DataTable

@@ -1,7 +1,7 @@
-import { getCoreRowModel, useReactTable, type ColumnDef, type SortingState, type Updater } from '@tanstack/react-table';
-import { useMemo } from 'react';
+import type { ColumnDef } from '@tanstack/react-table';
 import { countOf, litterSortKeys, type LitterListItemDto, type LitterListQuery, type LitterSortKey } from '@burrowline/shared';
 import { Badge } from '../../../components/ui/badge';
+import { useServerTable } from '../../../components/ui/use-server-table';
 import { DataTable, RowLink } from '../../../components/ui/data-table';
 import { formatDate } from '../../../lib/days';
 import { animalName } from '../../../lib/names';
@@ -33,23 +33,7 @@ interface LittersTableProps {
 
 /** The farm's litters: the server sorts and pages; this table only shows and asks. */
 export function LittersTable({ items, total, query, onSort, isRefreshing }: LittersTableProps) {
-  const sorting = useMemo<SortingState>(() => [{ id: query.sort, desc: query.dir === 'desc' }], [query.sort, query.dir]);
-  const table = useReactTable({
-    data: items,
-    columns,
-    getRowId: (row) => row.id,
-    getCoreRowModel: getCoreRowModel(),
-    manualSorting: true,
-    manualPagination: true,
-    manualFiltering: true,
-    enableSortingRemoval: false,
-    rowCount: total,
-    state: { sorting, pagination: { pageIndex: query.page - 1, pageSize: query.pageSize } },
-    onSortingChange: (updater: Updater<SortingState>) => {
-      const first = (typeof updater === 'function' ? updater(sorting) : updater)[0];
-      if (first && (litterSortKeys as readonly string[]).includes(first.id)) onSort(first.id as LitterSortKey, first.desc ? 'desc' : 'asc');
-    },
-  });
+  const table = useServerTable({ rows: items, columns, total, view: query, sortKeys: litterSortKeys, onSort: onSort, rowId: (row) => row.id });
   return (
     <DataTable
       table={table}

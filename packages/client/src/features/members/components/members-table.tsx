@@ -1,6 +1,6 @@
-import { getCoreRowModel, useReactTable, type ColumnDef, type SortingState, type Updater } from '@tanstack/react-table';
-import { useMemo } from 'react';
-import type { MemberDto, MemberListView, MemberSortKey } from '@burrowline/shared';
+import type { ColumnDef } from '@tanstack/react-table';
+import { memberSortKeys, type MemberDto, type MemberListView } from '@burrowline/shared';
+import { useServerTable } from '../../../components/ui/use-server-table';
 import { DataTable, Pagination, RowLink } from '../../../components/ui/data-table';
 import { formatInstantDate, formatInstant } from '../../../lib/dates';
 import { roleLabels } from '../../../lib/role-labels';
@@ -53,23 +53,7 @@ interface MembersTableProps {
 
 /** The roster: the server filters, sorts and pages it; this table only shows and asks, with the view kept in the address. */
 export function MembersTable({ members, total, view, onView, isRefreshing }: MembersTableProps) {
-  const sorting = useMemo<SortingState>(() => [{ id: view.sort, desc: view.dir === 'desc' }], [view.sort, view.dir]);
-  const table = useReactTable({
-    data: members,
-    columns,
-    getRowId: (row) => row.id,
-    getCoreRowModel: getCoreRowModel(),
-    manualSorting: true,
-    manualPagination: true,
-    manualFiltering: true,
-    enableSortingRemoval: false,
-    rowCount: total,
-    state: { sorting, pagination: { pageIndex: view.page - 1, pageSize: view.pageSize } },
-    onSortingChange: (updater: Updater<SortingState>) => {
-      const first = (typeof updater === 'function' ? updater(sorting) : updater)[0];
-      if (first) onView({ sort: first.id as MemberSortKey, dir: first.desc ? 'desc' : 'asc', page: 1 });
-    },
-  });
+  const table = useServerTable({ rows: members, columns, total, view: view, sortKeys: memberSortKeys, onSort: (sort, dir) => onView({ sort, dir, page: 1 }), rowId: (row) => row.id });
   return (
     <div className="space-y-4">
       <DataTable
