@@ -40,9 +40,16 @@ function fromUtcMs(ms: number): string {
 
 /** Today in an IANA time zone, e.g. `todayIn('America/Chicago')` → "2025-04-30". */
 export function todayIn(timeZone: string, now: Date = new Date()): string {
-  const formatted = new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(now);
-  return formatted;
+  let format = dayFormats.get(timeZone);
+  if (!format) {
+    format = new Intl.DateTimeFormat('en-CA', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' });
+    dayFormats.set(timeZone, format);
+  }
+  return format.format(now);
 }
+
+/** One formatter per time zone: building one costs far more than using it, and a request asks several times. */
+const dayFormats = new Map<string, Intl.DateTimeFormat>();
 
 /** Whole days from `from` to `to` (negative when `to` is earlier). */
 export function daysBetween(from: string, to: string): number {
