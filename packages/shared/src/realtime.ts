@@ -32,6 +32,8 @@ export const RealtimeEvent = {
   ledgerChanged: 'ledger:changed',
   /** A card checkout was settled by the card service; to the payer's user room. */
   cardCheckoutSettled: 'ledger:card-checkout-settled',
+  /** A notification arrived for the person, or they read some; to their user room only. */
+  notificationsChanged: 'notifications:changed',
 } as const;
 
 export interface ServerToClientEvents {
@@ -51,6 +53,7 @@ export interface ServerToClientEvents {
   [RealtimeEvent.growOutChanged]: (payload: { farmId: string; groupId: string | null }) => void;
   [RealtimeEvent.ledgerChanged]: (payload: { farmIds: string[] }) => void;
   [RealtimeEvent.cardCheckoutSettled]: (payload: { checkoutId: string; status: 'paid' | 'declined' }) => void;
+  [RealtimeEvent.notificationsChanged]: (payload: { unread: number; title: string | null; link: string | null }) => void;
 }
 
 // eslint-disable-next-line @typescript-eslint/no-empty-object-type
