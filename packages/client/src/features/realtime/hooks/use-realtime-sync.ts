@@ -15,6 +15,7 @@ import { litterKeys } from '../../litters';
 import { auditKeys, memberKeys } from '../../members';
 import { performanceKeys } from '../../performance';
 import { ledgerKeys } from '../../ledger';
+import { notificationKeys, type LatestNotification } from '../../notifications';
 
 /**
  * The one place where server events become cache updates. Mounted by the signed-in layout, so the
@@ -78,7 +79,15 @@ export function useRealtimeSync(): void {
       };
       // The Ledger of the person's farm or (admins) the co-op changed, or a card payment was settled: refetch its figures.
       const refreshLedger = () => void queryClient.invalidateQueries({ queryKey: ledgerKeys.all });
+      // A notification arrived or was read on another screen: the bell's count and list.
+      const refreshNotifications = () => void queryClient.invalidateQueries({ queryKey: notificationKeys.all });
+      const notificationsChanged = ({ unread, title, link }: { unread: number; title: string | null; link: string | null }) => {
+        queryClient.setQueryData(notificationKeys.unread(), { unread });
+        void queryClient.invalidateQueries({ queryKey: notificationKeys.all, predicate: (query) => query.queryKey[1] !== 'unread' });
+        if (title && link) queryClient.setQueryData<LatestNotification>(notificationKeys.latest(), { title, link, at: Date.now() });
+      };
       const refreshAll = () => {
+        refreshNotifications();
         refreshFarms();
         refreshLitters();
         refreshHerd();
@@ -112,6 +121,7 @@ export function useRealtimeSync(): void {
       socket.on(RealtimeEvent.processingChanged, refreshProcessing);
       socket.on(RealtimeEvent.ledgerChanged, refreshLedger);
       socket.on(RealtimeEvent.cardCheckoutSettled, refreshLedger);
+      socket.on(RealtimeEvent.notificationsChanged, notificationsChanged);
       socket.on(RealtimeEvent.sessionEnded, endSession);
       // Events sent while the connection was down are lost; refetch what they would have refreshed.
       socket.io.on('reconnect', refreshAll);
@@ -132,6 +142,7 @@ export function useRealtimeSync(): void {
         socket.off(RealtimeEvent.processingChanged, refreshProcessing);
         socket.off(RealtimeEvent.ledgerChanged, refreshLedger);
         socket.off(RealtimeEvent.cardCheckoutSettled, refreshLedger);
+        socket.off(RealtimeEvent.notificationsChanged, notificationsChanged);
         socket.off(RealtimeEvent.sessionEnded, endSession);
         socket.io.off('reconnect', refreshAll);
         disconnectRealtime();
