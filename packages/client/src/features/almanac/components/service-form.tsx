@@ -15,7 +15,7 @@ import { useBreedingStock } from '../api/get-breeding-stock';
 import { useRecordService } from '../api/record-service';
 
 function doeLabel(d: BreedingStockDto): string {
-  const notes = [d.openService ? `open service from ${formatDate(d.openService.servicedOn)}` : null, d.underTreatment ? 'under treatment' : null].filter(Boolean);
+  const notes = [d.openService ? `served on ${formatDate(d.openService.servicedOn)}` : null, d.underTreatment ? 'under treatment' : null].filter(Boolean);
   return `${animalName(d)}${notes.length ? ` — ${notes.join(', ')}` : ''}`;
 }
 
