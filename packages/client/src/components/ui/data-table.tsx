@@ -1,9 +1,10 @@
 import { flexRender, type Header, type Row, type Table } from '@tanstack/react-table';
 import { ArrowDown, ArrowUp, ArrowUpDown, ChevronLeft, ChevronRight } from 'lucide-react';
-import { useEffect, useRef, useState, type ReactNode } from 'react';
+import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { cn } from '../../lib/cn';
 import { Button } from './button';
+import { useMoreToTheRight } from './use-more-to-the-right';
 
 function SortableHeader<T>({ header }: { header: Header<T, unknown> }) {
   const label = flexRender(header.column.columnDef.header, header.getContext());
@@ -47,26 +48,6 @@ interface DataTableProps<T> {
   empty: ReactNode;
   /** Rows being refetched (filters changed): dim them rather than flash a spinner. */
   isRefreshing?: boolean;
-}
-
-/** Whether a scrolling box has more to its right than it shows (so the table can say so instead of hiding columns). */
-function useMoreToTheRight() {
-  const ref = useRef<HTMLDivElement>(null);
-  const [more, setMore] = useState(false);
-  useEffect(() => {
-    const box = ref.current;
-    if (!box) return;
-    const check = () => setMore(box.scrollWidth - box.clientWidth - box.scrollLeft > 1);
-    check();
-    const observer = new ResizeObserver(check);
-    observer.observe(box);
-    box.addEventListener('scroll', check, { passive: true });
-    return () => {
-      observer.disconnect();
-      box.removeEventListener('scroll', check);
-    };
-  }, []);
-  return { ref, more };
 }
 
 /** A dense table on wide screens and a list of cards on phones, from one TanStack table. */
