@@ -35,3 +35,4 @@ export * from './text/count-of';
 export * from './schemas/ledger.schema';
 export * from './ledger';
 export * from './schemas/stud-share.schema';
+export * from './units/distance';

@@ -8,3 +8,6 @@ export {
   type BreedAnimal, type BreedMakeup, type BreedPurity,
 } from './breed-makeup';
 export { CoopPedigree } from './coop-pedigree';
+export {
+  ancestorDepths, litterMakeupClass, rankStuds, sharedAncestors, STUD_ORDER_EXPLAINED, type LitterMakeupClassOf, type RankedStud, type StudCandidate,
+} from './stud-ranking';

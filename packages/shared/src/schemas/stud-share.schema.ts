@@ -186,6 +186,8 @@ export const farmCoordinatesSchema = z
   .strictObject({
     latitude: z.number().min(-90, 'Latitude is between -90 and 90').max(90, 'Latitude is between -90 and 90').nullable(),
     longitude: z.number().min(-180, 'Longitude is between -180 and 180').max(180, 'Longitude is between -180 and 180').nullable(),
+    /** Let the co-op count this farm's litters in sires' get's records (on unless changed). */
+    sharesGetRecords: z.boolean().optional(),
   })
   .refine((v) => (v.latitude === null) === (v.longitude === null), { path: ['longitude'], message: 'Give both latitude and longitude, or neither' });
 export type FarmCoordinatesInput = z.infer<typeof farmCoordinatesSchema>;
