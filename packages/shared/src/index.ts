@@ -36,3 +36,4 @@ export * from './schemas/ledger.schema';
 export * from './ledger';
 export * from './schemas/stud-share.schema';
 export * from './units/distance';
+export * from './notifications';

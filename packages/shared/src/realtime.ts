@@ -37,6 +37,8 @@ export const RealtimeEvent = {
   studOfferChanged: 'stud-share:offer-changed',
   /** A request or loan changed (requested, answered, handed over, returned…); to the two farms' rooms only (no fees travel). */
   studLoanChanged: 'stud-share:loan-changed',
+  /** A notification arrived for the person, or they read some; to their user room only. */
+  notificationsChanged: 'notifications:changed',
 } as const;
 
 export interface ServerToClientEvents {
@@ -58,6 +60,7 @@ export interface ServerToClientEvents {
   [RealtimeEvent.cardCheckoutSettled]: (payload: { checkoutId: string; status: 'paid' | 'declined' }) => void;
   [RealtimeEvent.studOfferChanged]: (payload: { offerId: string; buckId: string; farmId: string }) => void;
   [RealtimeEvent.studLoanChanged]: (payload: { loanId: string; buckId: string; farmIds: string[]; state: StudLoanState }) => void;
+  [RealtimeEvent.notificationsChanged]: (payload: { unread: number; title: string | null; link: string | null }) => void;
 }
 
 // eslint-disable-next-line @typescript-eslint/no-empty-object-type
