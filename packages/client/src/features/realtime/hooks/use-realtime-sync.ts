@@ -15,6 +15,7 @@ import { litterKeys } from '../../litters';
 import { auditKeys, memberKeys } from '../../members';
 import { performanceKeys } from '../../performance';
 import { ledgerKeys } from '../../ledger';
+import { studShareKeys } from '../../stud-share';
 
 /**
  * The one place where server events become cache updates. Mounted by the signed-in layout, so the
@@ -78,6 +79,20 @@ export function useRealtimeSync(): void {
       };
       // The Ledger of the person's farm or (admins) the co-op changed, or a card payment was settled: refetch its figures.
       const refreshLedger = () => void queryClient.invalidateQueries({ queryKey: ledgerKeys.all });
+      // A buck was offered, changed or withdrawn (co-op room): the buck cards and the finder's ranking.
+      const refreshStudOffers = () => {
+        void queryClient.invalidateQueries({ queryKey: studShareKeys.offers() });
+        void queryClient.invalidateQueries({ queryKey: studShareKeys.finders() });
+      };
+      // A request or loan of one of the person's farms changed (the two farms' rooms): the loans, the buck's
+      // calendar and whereabouts; a hand-over or return also moves him between Herds and plans the quarantine.
+      const refreshStudLoans = ({ state }: { state: string }) => {
+        void queryClient.invalidateQueries({ queryKey: studShareKeys.all });
+        if (state === 'handed_over' || state === 'returned' || state === 'served') {
+          refreshHerd();
+          refreshAlmanac();
+        }
+      };
       const refreshAll = () => {
         refreshFarms();
         refreshLitters();
@@ -88,6 +103,7 @@ export function useRealtimeSync(): void {
         refreshHealth();
         refreshProcessing();
         refreshLedger();
+        void queryClient.invalidateQueries({ queryKey: studShareKeys.all });
       };
       const endSession = ({ reason }: { reason: string }) =>
         void leaveSignedInArea(
@@ -112,6 +128,8 @@ export function useRealtimeSync(): void {
       socket.on(RealtimeEvent.processingChanged, refreshProcessing);
       socket.on(RealtimeEvent.ledgerChanged, refreshLedger);
       socket.on(RealtimeEvent.cardCheckoutSettled, refreshLedger);
+      socket.on(RealtimeEvent.studOfferChanged, refreshStudOffers);
+      socket.on(RealtimeEvent.studLoanChanged, refreshStudLoans);
       socket.on(RealtimeEvent.sessionEnded, endSession);
       // Events sent while the connection was down are lost; refetch what they would have refreshed.
       socket.io.on('reconnect', refreshAll);
@@ -132,6 +150,8 @@ export function useRealtimeSync(): void {
         socket.off(RealtimeEvent.processingChanged, refreshProcessing);
         socket.off(RealtimeEvent.ledgerChanged, refreshLedger);
         socket.off(RealtimeEvent.cardCheckoutSettled, refreshLedger);
+        socket.off(RealtimeEvent.studOfferChanged, refreshStudOffers);
+        socket.off(RealtimeEvent.studLoanChanged, refreshStudLoans);
         socket.off(RealtimeEvent.sessionEnded, endSession);
         socket.io.off('reconnect', refreshAll);
         disconnectRealtime();
