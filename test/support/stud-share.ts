@@ -22,9 +22,9 @@ export const inDays = (n: number) => addDays(farmToday(), n);
  * A buck of farm A (`coop.member`) offered to the co-op, on loan and for service, with fees of 40.00 per
  * loan and 15.00 per service unless `offer` says otherwise.
  */
-export async function offeredBuck(coop: TestCoop, offer: Partial<StudOfferBody> = {}, fields: { name?: string; sireId?: string; damId?: string } = {}) {
+export async function offeredBuck(coop: TestCoop, offer: Partial<StudOfferBody> = {}, fields: { name?: string; sireId?: string; damId?: string; breedId?: string } = {}) {
   connectDatabase(process.env.DATABASE_URL!);
-  const buck = await addAnimalAs(coop.member, { sex: 'buck', name: fields.name ?? `Bramble ${randomUUID().slice(0, 4)}`, birthDate: '2022-11-02', sireId: fields.sireId, damId: fields.damId });
+  const buck = await addAnimalAs(coop.member, { sex: 'buck', name: fields.name ?? `Bramble ${randomUUID().slice(0, 4)}`, birthDate: '2022-11-02', sireId: fields.sireId, damId: fields.damId, breedId: fields.breedId });
   const card: BuckCardDto = await offerBuck(actorOf(coop.member), studOfferSchema.parse({
     buckId: buck.id, loan: true, service: true, loanFeeCents: 4_000, serviceFeeCents: 1_500, longestLoanDays: 42, restDays: 7, ...offer,
   }));
@@ -32,9 +32,9 @@ export async function offeredBuck(coop: TestCoop, offer: Partial<StudOfferBody> 
 }
 
 /** A grown doe kept by the person's farm. */
-export async function doeOf(person: TestPerson, fields: { name?: string; sireId?: string; damId?: string } = {}) {
+export async function doeOf(person: TestPerson, fields: { name?: string; sireId?: string; damId?: string; breedId?: string } = {}) {
   connectDatabase(process.env.DATABASE_URL!);
-  return addAnimalAs(person, { sex: 'doe', name: fields.name ?? `Clover ${randomUUID().slice(0, 4)}`, birthDate: '2023-01-10', sireId: fields.sireId, damId: fields.damId });
+  return addAnimalAs(person, { sex: 'doe', name: fields.name ?? `Clover ${randomUUID().slice(0, 4)}`, birthDate: '2023-01-10', sireId: fields.sireId, damId: fields.damId, breedId: fields.breedId });
 }
 
 /** Farm B's member asks for the offer (a loan over `days` from `from` days ahead unless the body says otherwise). */
