@@ -4,6 +4,7 @@ import { queryClient } from '../../app/query-client';
 import { farmsListQueryOptions, useFarms } from '../../features/farms/api/get-farms';
 import { TodayCards } from '../../features/almanac/components/today-cards';
 import { CommonsHeatCaution } from '../../features/health/components/commons-heat-caution';
+import { OverdueLoans } from '../../features/stud-share';
 import { MembersDirectory } from '../../features/farms/components/members-directory';
 import { NoFarmCard, YourFarmCard } from '../../features/farms/components/your-farm-card';
 import { useSession } from '../../lib/session';
@@ -23,6 +24,7 @@ export function CommonsPage() {
       <PageTitle>Commons</PageTitle>
       <PageHeader title="Commons" lead={`What's going on across ${me.coop.name}.`} />
       <CommonsHeatCaution enabled={Boolean(me.user.farmId)} />
+      <OverdueLoans />
       <TodayCards enabled={Boolean(me.user.farmId)} />
       {ownFarm ? <YourFarmCard farm={ownFarm} /> : <NoFarmCard />}
       <MembersDirectory farms={farms} ownFarmId={me.user.farmId} />

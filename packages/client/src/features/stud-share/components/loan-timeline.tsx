@@ -45,7 +45,7 @@ function stagesOf(loan: StudLoanDto): Stage[] {
 export function LoanStages({ loan }: { loan: StudLoanDto }) {
   const stages = stagesOf(loan);
   return (
-    <ol className="grid gap-2 sm:grid-flow-col sm:auto-cols-fr" aria-label="Where the loan stands" data-testid="loan-stages">
+    <ol className="grid grid-cols-2 gap-2 sm:grid-flow-col sm:auto-cols-fr sm:grid-cols-none" aria-label="Where the loan stands" data-testid="loan-stages">
       {stages.map((s, i) => {
         const done = s.on !== null;
         const stopped = s.key === 'declined' || s.key === 'cancelled';
@@ -53,7 +53,7 @@ export function LoanStages({ loan }: { loan: StudLoanDto }) {
           <li
             key={s.key}
             className={cn(
-              'flex items-start gap-3 rounded-xl border-2 p-3 sm:flex-col sm:gap-2',
+              'flex items-start gap-2 rounded-xl border-2 p-2.5 sm:flex-col sm:p-3',
               stopped ? 'border-clay/50 bg-clay-wash' : done ? 'border-moss bg-moss-wash' : 'border-dashed border-grey-300 bg-white text-grey-600',
             )}
             aria-current={done && stages[i + 1]?.on === null ? 'step' : undefined}

@@ -14,6 +14,7 @@ import { useServerSubmit } from '../../../lib/use-server-submit';
 import { breedingStockQueryOptions } from '../../almanac';
 import { centsFromText } from '../../ledger';
 import { animalPhotosQueryOptions } from '../../photos';
+import { useBuckCards } from '../api/get-buck-cards';
 import { useOfferBuck, useUpdateOffer } from '../api/save-offer';
 
 interface OfferValues {
@@ -103,14 +104,16 @@ export function OfferForm({ card, initialBuckId }: { card?: BuckCardDto; initial
   });
   const [buckId, loan, service] = form.watch(['buckId', 'loan', 'service']);
   const photos = useQuery({ ...animalPhotosQueryOptions(buckId), enabled: Boolean(buckId) });
-  const ownBucks = (stock.data?.bucks ?? []).filter((b) => !b.onLoanFrom);
+  const offered = useBuckCards({ scope: 'mine', page: 1, pageSize: 100 });
+  const offeredIds = new Set((offered.data?.items ?? []).map((c) => c.buck.id));
+  const ownBucks = (stock.data?.bucks ?? []).filter((b) => !b.onLoanFrom && !offeredIds.has(b.id));
 
   return (
     <form noValidate onSubmit={submit} className="space-y-6" aria-label={card ? 'Edit the offer' : 'Offer a buck'}>
       {!card && (
         <SelectField
           label="Buck"
-          hint="Your farm's own breeding bucks."
+          hint="Your farm's own breeding bucks not offered yet."
           error={errors.buckId?.message}
           options={[{ value: '', label: stock.isPending ? 'Reading your bucks…' : 'Choose a buck' }, ...ownBucks.map((b) => ({ value: b.id, label: animalName(b) }))]}
           {...form.register('buckId')}

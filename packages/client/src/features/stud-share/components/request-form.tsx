@@ -108,15 +108,9 @@ export function RequestForm({ card, farmId, today, initialDoeId, onDates }: {
       <div className="grid gap-4 sm:grid-cols-2">
         <TextField label={kind === 'loan' ? 'First day with you' : 'Day of the visit'} type="date" min={today} error={errors.startOn?.message} {...form.register('startOn')} />
         {kind === 'loan' && (
-          <TextField
-            label="Last day with you"
-            type="date"
-            min={today}
-            hint={`His farm lends him for ${card.longestLoanDays} days at most.`}
-            error={errors.endOn?.message}
-            {...form.register('endOn')}
-          />
+          <TextField label="Last day with you" type="date" min={today} error={errors.endOn?.message} {...form.register('endOn')} />
         )}
+        {kind === 'loan' && <p className="text-sm text-grey-600 sm:col-span-2">His farm lends him for {card.longestLoanDays} days at most.</p>}
       </div>
       <TextAreaField label="Message (optional)" rows={3} placeholder="What the doe needs, how you would fetch him…" error={errors.message?.message} {...form.register('message')} />
       {card.feesVisible && (

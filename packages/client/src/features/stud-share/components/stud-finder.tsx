@@ -1,6 +1,6 @@
 import { useQuery } from '@tanstack/react-query';
 import { createColumnHelper, getCoreRowModel, useReactTable } from '@tanstack/react-table';
-import { useMemo } from 'react';
+import { useMemo, useState } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
 import { studFinderSorts, type StudFinderRowDto, type StudFinderSort, type StudKind, type WeightUnit } from '@burrowline/shared';
 import { Alert } from '../../../components/ui/alert';
@@ -99,6 +99,9 @@ export function StudFinder({ damId, unit }: { damId: string; unit: WeightUnit })
   const { query, text, set } = useFinderQuery(damId, imperial);
   const finder = useStudFinder(query);
   const breeds = useQuery(breedsQueryOptions());
+  // Open beside the list on wide screens; on a phone the ranking comes first and the filters fold away.
+  const [filtersOpen, setFiltersOpen] = useState(() => typeof window === 'undefined' || window.matchMedia('(min-width: 768px)').matches);
+  const activeFilters = ['kind', 'breedId', 'from', 'maxDistance', 'maxFee', 'freeOnly'].filter((key) => text(key)).length + (query.sort === 'rank' ? 0 : 1);
   const feesVisible = finder.data?.items.some((r) => r.card.feesVisible) ?? true;
   const linkTo = (row: StudFinderRowDto) => `/stud-share/bucks/${row.card.offerId}?damId=${damId}${query.from ? `&from=${query.from}` : ''}${query.to ? `&to=${query.to}` : ''}`;
   const name = (row: StudFinderRowDto) => row.card.buck.name || row.card.buck.tattoo || 'Unnamed buck';
@@ -137,8 +140,10 @@ export function StudFinder({ damId, unit }: { damId: string; unit: WeightUnit })
 
   return (
     <div className="space-y-4">
-      <details className="rounded-2xl border border-grey-200 bg-white p-4 shadow-sm md:open:pb-5" open>
-        <summary className="min-h-11 cursor-pointer content-center text-lg font-bold">Filters and order</summary>
+      <details className="rounded-2xl border border-grey-200 bg-white p-4 shadow-sm md:open:pb-5" open={filtersOpen} onToggle={(e) => setFiltersOpen(e.currentTarget.open)}>
+        <summary className="min-h-11 cursor-pointer content-center text-lg font-bold">
+          Filters and order{activeFilters > 0 && <span className="font-normal text-grey-600"> ({activeFilters} on)</span>}
+        </summary>
         <div className="grid gap-3 pt-2 sm:grid-cols-2 lg:grid-cols-4">
           <SelectField label="Order" value={query.sort} onChange={(e) => set('sort', e.target.value === 'rank' ? '' : e.target.value)} options={studFinderSorts.map((s) => ({ value: s, label: sortLabels[s] }))} />
           <SelectField label="Loan or service" value={query.kind ?? ''} onChange={(e) => set('kind', e.target.value)} options={[{ value: '', label: 'Either' }, { value: 'loan', label: kindLabels.loan }, { value: 'service', label: kindLabels.service }]} />
