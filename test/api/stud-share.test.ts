@@ -164,11 +164,11 @@ describe('requesting a buck', () => {
       expect(res.status).toBe(400);
       return res.body.error.details as Record<string, string[]>;
     };
-    expect((await refusal(owner, { doeIds: [ownDoe.id], farmId: coop.member.farmId })).offerId[0]).toMatch(/your own farm's buck/);
-    expect((await refusal(borrower, { kind: 'service', endOn: inDays(2) })).kind[0]).toMatch(/not offered for stud service/);
-    expect((await refusal(borrower, { startOn: inDays(-3) })).startOn[0]).toMatch(/from today on/);
-    expect((await refusal(borrower, { endOn: inDays(20) })).endOn[0]).toMatch(/10 days at most/);
-    expect((await refusal(borrower, { doeIds: [ownDoe.id] }))['doeIds.0'][0]).toMatch(/doe your farm keeps/);
+    expect((await refusal(owner, { doeIds: [ownDoe.id], farmId: coop.member.farmId })).offerId?.[0]).toMatch(/your own farm's buck/);
+    expect((await refusal(borrower, { kind: 'service', endOn: inDays(2) })).kind?.[0]).toMatch(/not offered for stud service/);
+    expect((await refusal(borrower, { startOn: inDays(-3) })).startOn?.[0]).toMatch(/from today on/);
+    expect((await refusal(borrower, { endOn: inDays(20) })).endOn?.[0]).toMatch(/10 days at most/);
+    expect((await refusal(borrower, { doeIds: [ownDoe.id] }))['doeIds.0']?.[0]).toMatch(/doe your farm keeps/);
     expect((await borrower.post('/api/stud-share/loans').send({ ...base, farmId: coop.member.farmId })).status).toBe(403);
     const apprenticeAsks = await ownersApprentice.post('/api/stud-share/loans').send({ ...base, farmId: coop.member.farmId });
     expect(apprenticeAsks.status).toBe(403);
