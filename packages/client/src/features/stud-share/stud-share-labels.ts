@@ -56,6 +56,6 @@ export function sideOf(loan: Pick<StudLoanDto, 'owningFarm'>, farmId: string | n
 
 /** A distance in the co-op's usual words: miles for lb/oz farms, kilometres otherwise. */
 export function distanceText(km: number | null, imperial: boolean): string {
-  if (km === null) return 'No coordinates';
+  if (km === null) return 'Not known';
   return imperial ? `${Math.round(km / 1.609344)} mi` : `${Math.round(km)} km`;
 }

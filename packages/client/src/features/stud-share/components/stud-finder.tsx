@@ -60,7 +60,7 @@ function useFinderQuery(damId: string, imperial: boolean) {
 }
 
 function Availability({ row }: { row: StudFinderRowDto }) {
-  if (row.available === null) return <span className="text-grey-600">Give dates to check</span>;
+  if (row.available === null) return <span className="text-sm text-grey-600">No dates given</span>;
   return row.available ? <Badge tone="moss">Free in your dates</Badge> : <Badge tone="clay">Taken in your dates</Badge>;
 }
 
@@ -108,33 +108,33 @@ export function StudFinder({ damId, unit }: { damId: string; unit: WeightUnit })
 
   const columns = useMemo(
     () => [
-      column.accessor('rank', { header: '#', cell: (c) => <span className="font-bold">{c.getValue()}</span> }),
+      column.accessor('rank', { header: '#', enableSorting: false, cell: (c) => <span className="font-bold">{c.getValue()}</span> }),
       column.display({
         id: 'buck', header: 'Buck',
         cell: (c) => (
-          <div className="max-w-72 space-y-0.5">
+          <div className="min-w-48 space-y-0.5">
             <RowLink to={linkTo(c.row.original)}>{name(c.row.original)}</RowLink>
             <p className="text-sm text-grey-600">{c.row.original.card.buck.tattoo} · {breedMakeupText(c.row.original.card.buck.breedMakeup)} · {c.row.original.card.owningFarm.name}</p>
             <p className="text-sm text-bark italic">{c.row.original.explanation}</p>
           </div>
         ),
       }),
-      column.display({ id: 'coi', header: "Litter's COI", cell: (c) => (<div className="space-y-1"><LitterCoi coi={c.row.original.litterCoi} /><Ancestors row={c.row.original} /></div>) }),
-      column.display({ id: 'makeup', header: 'Litter make-up', cell: (c) => (<div className="space-y-1"><Badge tone={makeupTones[c.row.original.makeupClass]}>{makeupLabels[c.row.original.makeupClass]}</Badge><p className="text-sm">{breedMakeupText(c.row.original.litterMakeup)}</p></div>) }),
+      column.display({ id: 'coi', header: "Litter's COI", cell: (c) => (<div className="min-w-32 space-y-1"><LitterCoi coi={c.row.original.litterCoi} />{c.row.original.sharedAncestors.length > 0 && <Ancestors row={c.row.original} />}</div>) }),
+      column.display({ id: 'makeup', header: 'Litter make-up', cell: (c) => (<div className="min-w-36 space-y-1"><Badge tone={makeupTones[c.row.original.makeupClass]}>{makeupLabels[c.row.original.makeupClass]}</Badge><p className="text-sm">{breedMakeupText(c.row.original.litterMakeup)}</p></div>) }),
       column.display({ id: 'get', header: "Get's growth", cell: (c) => <GetGrowth row={c.row.original} unit={unit} /> }),
-      column.display({ id: 'free', header: 'Dates', cell: (c) => <Availability row={c.row.original} /> }),
       column.display({
-        id: 'terms', header: feesVisible ? 'Kind · fee' : 'Kind',
+        id: 'terms', header: 'Offer · your dates',
         cell: (c) => (
-          <span className="text-sm">
-            {[c.row.original.card.loan && kindLabels.loan, c.row.original.card.service && kindLabels.service].filter(Boolean).join(' · ')}
-            {c.row.original.card.feesVisible && <><br />{c.row.original.feeCents ? money(c.row.original.feeCents) : 'No fee'}</>}
-          </span>
+          <div className="min-w-28 space-y-1 text-sm">
+            <p>{[c.row.original.card.loan && kindLabels.loan, c.row.original.card.service && kindLabels.service].filter(Boolean).join(' · ')}</p>
+            {c.row.original.card.feesVisible && <p>{c.row.original.feeCents ? money(c.row.original.feeCents) : 'No fee'}</p>}
+            <Availability row={c.row.original} />
+          </div>
         ),
       }),
-      column.display({ id: 'distance', header: 'Distance', cell: (c) => <span className="whitespace-nowrap">{distanceText(c.row.original.distanceKm, imperial)}</span> }),
+      column.display({ id: 'distance', header: 'Distance', cell: (c) => <span className="text-sm">{distanceText(c.row.original.distanceKm, imperial)}</span> }),
     ],
-    [money, unit, imperial, feesVisible, damId, query.from, query.to],
+    [money, unit, imperial, damId, query.from, query.to],
   );
   const table = useReactTable({ data: finder.data?.items ?? [], columns, getCoreRowModel: getCoreRowModel(), getRowId: (r) => r.card.offerId });
 
