@@ -7,7 +7,10 @@ import { waitForMail } from '../support/mail';
 import {
   acceptAs, doeOf, feeTransfersOf, inDays, noticesOf, offeredBuck, requestAs, thirdFarmMember,
 } from '../support/stud-share';
-import { addAnimalAs } from '../support/herd';
+import { actorOf, addAnimalAs } from '../support/herd';
+import { testImage } from '../support/herd-files';
+import { loadConfig } from '../../packages/server/src/config/env';
+import { addAnimalPhotos } from '../../packages/server/src/modules/photos/photos.service';
 import { serviceAs } from '../support/almanac';
 import { signedInAgent, testApp, type Agent } from '../support/test-app';
 
@@ -246,5 +249,39 @@ describe('requesting a buck', () => {
     const notMine = await owner.get('/api/stud-share/loans?side=requests&pageSize=100').expect(200);
     expect(notMine.body.items.map((l: StudLoanDto) => l.id)).not.toContain(loan.id);
     expect((await owner.get('/api/stud-share/loans?side=sideways')).status).toBe(400);
+  });
+});
+
+describe('photos shown through Stud Share', () => {
+  const limits = () => {
+    const { photoMaxBytes, photosPerAnimal, photosPerUpload } = loadConfig().uploads;
+    return { photoMaxBytes, photosPerAnimal, photosPerUpload };
+  };
+  const photoOf = async (animalId: string, caption: string) =>
+    (await addAnimalPhotos(actorOf(coop.member), animalId, { files: [{ buffer: await testImage('jpeg', { width: 40, height: 40 }) }], caption }, limits()))[0]!.id;
+
+  it('when the owner picks photos for his card, then the co-op opens them while he is offered; a photo he did not pick stays the farm\'s', async () => {
+    const { buck, card } = await offeredBuck(coop);
+    const picked = await photoOf(buck.id, 'On the grooming table');
+    const kept = await photoOf(buck.id, 'Private: the vet visit');
+    const edited = await owner.put(`/api/stud-share/offers/${card.offerId}`).send({ version: card.version, offer: offerBody(buck.id, { photoIds: [picked] }) }).expect(200);
+    expect(edited.body.photos).toEqual([{ id: picked, url: `/api/photos/${picked}` }]);
+    await borrower.get(`/api/photos/${picked}`).expect(200);
+    await borrower.get(`/api/photos/${kept}`).expect(404);
+    const notHis = await owner.put(`/api/stud-share/offers/${card.offerId}`).send({ version: edited.body.version, offer: offerBody(buck.id, { photoIds: [randomUUID()] }) });
+    expect(notHis.status).toBe(400);
+    await owner.post(`/api/stud-share/offers/${card.offerId}/withdraw`).send({ version: edited.body.version }).expect(200);
+    await borrower.get(`/api/photos/${picked}`).expect(404);
+  });
+
+  it('when a hand-over is recorded with a photo, then the other farm opens it and a third farm cannot', async () => {
+    const third = await thirdFarmMember(coop);
+    const { buck, card } = await offeredBuck(coop);
+    const loan = await acceptAs(coop.member, await requestAs(coop.otherFarmMember, card.offerId, [(await doeOf(coop.otherFarmMember)).id], { startOn: inDays(0), endOn: inDays(7) }));
+    const photo = await photoOf(buck.id, 'Leaving home');
+    await owner.post(`/api/stud-share/loans/${loan.id}/hand-over`).send({ version: loan.version, on: inDays(0), photoId: photo }).expect(200);
+    await borrower.get(`/api/photos/${photo}`).expect(200);
+    const thirdAgent = await signedInAgent(third.email, TEST_PASSWORD, handle);
+    await thirdAgent.get(`/api/photos/${photo}`).expect(404);
   });
 });
