@@ -134,4 +134,68 @@ describe('Stud Share: a member borrows a buck from another farm (journey 2)', ()
       await him.close();
     }
   });
+
+  it('when the owner proposes other dates, then the member sees them arrive and takes them, the owner sees her answer live, and his apprentice follows the loan without any fee', async () => {
+    const coop = await createTestCoop();
+    const owner = coop.member;
+    const requester = coop.otherFarmMember;
+    const buck = await addAnimalAs(owner, { sex: 'buck', name: 'Thistle', birthDate: '2022-04-01' });
+    const doe = await addAnimalAs(requester, { sex: 'doe', name: 'Clementine', birthDate: '2023-02-01' });
+    const ownerApi = supertest.agent(app.url).set(CSRF_HEADER, '1');
+    const requesterApi = supertest.agent(app.url).set(CSRF_HEADER, '1');
+    expect((await ownerApi.post('/api/session').send({ email: owner.email, password: TEST_PASSWORD })).status).toBe(200);
+    expect((await requesterApi.post('/api/session').send({ email: requester.email, password: TEST_PASSWORD })).status).toBe(200);
+    const offered = await ownerApi.post('/api/stud-share/offers').send({ buckId: buck.id, loan: true, service: false, loanFeeCents: 4_000, longestLoanDays: 30 });
+    expect(offered.status).toBe(201);
+    const today = farmToday();
+    const asked = await requesterApi.post('/api/stud-share/loans').send({
+      offerId: offered.body.offerId, kind: 'loan', doeIds: [doe.id], farmId: requester.farmId, startOn: addDays(today, 10), endOn: addDays(today, 20), message: '',
+    });
+    expect(asked.status).toBe(201);
+    const loanUrl = `${app.url}/stud-share/loans/${asked.body.id}`;
+
+    const her = await openBrowser();
+    const him = await openBrowser({ width: 390, height: 844 });
+    const apprentice = await openBrowser({ width: 390, height: 844 });
+    const errors = [...collectPageErrors(her.page), ...collectPageErrors(him.page), ...collectPageErrors(apprentice.page)];
+    try {
+      await app.signIn(her.page, requester.email);
+      await app.signIn(him.page, owner.email);
+      await app.signIn(apprentice.page, coop.apprentice.email);
+      await her.page.goto(loanUrl);
+      await her.page.getByTestId('loan-state').getByText('Asked, waiting for the owner').waitFor();
+      await apprentice.page.goto(loanUrl);
+      await apprentice.page.getByTestId('loan-state').getByText('Waiting for your answer').waitFor();
+
+      // He offers two days later instead.
+      await him.page.goto(loanUrl);
+      await him.page.getByRole('button', { name: 'Propose other dates' }).click();
+      await him.page.getByLabel('First day').fill(addDays(today, 12));
+      await him.page.getByLabel('Last day').fill(addDays(today, 22));
+      await him.page.getByRole('button', { name: 'Send these dates' }).click();
+      await him.page.getByTestId('loan-state').getByText('Other dates offered, waiting for them').waitFor();
+      expect(await sidewaysScroll(him.page)).toBe(0);
+
+      // Her page shows his dates without a reload; she takes them.
+      await her.page.getByTestId('loan-state').getByText('Other dates offered: your answer').waitFor(LIVE);
+      await her.page.getByText(/^The owner offers .* instead$/).waitFor();
+      await her.page.getByRole('button', { name: 'Take these dates' }).click();
+      await her.page.getByTestId('loan-state').getByText('Accepted, not yet handed over').waitFor();
+
+      // His phone and the apprentice's follow live; the apprentice can do nothing and sees no money.
+      await him.page.getByTestId('loan-state').getByText('Accepted, not yet handed over').waitFor(LIVE);
+      await apprentice.page.getByTestId('loan-state').getByText('Accepted, not yet handed over').waitFor(LIVE);
+      expect(await apprentice.page.getByTestId('loan-actions').count()).toBe(0);
+      expect(await apprentice.page.getByText('$').count()).toBe(0);
+      expect(await apprentice.page.getByText('Fee', { exact: true }).count()).toBe(0);
+      await her.page.getByText('$40.00').waitFor();
+      const [row] = await asTenant(coop.id, async (c) => (await c.query('SELECT start_on::text, end_on::text, state FROM stud_loans WHERE id = $1', [asked.body.id])).rows);
+      expect(row).toEqual({ start_on: addDays(today, 12), end_on: addDays(today, 22), state: 'accepted' });
+      expect(errors).toEqual([]);
+    } finally {
+      await her.close();
+      await him.close();
+      await apprentice.close();
+    }
+  });
 });

@@ -29,8 +29,8 @@ export function FarmCoordinatesForm({ farm }: { farm: FarmDto }) {
   const { errors } = form.formState;
   const { submit, failure } = useServerSubmit(form, save, { fields: ['latitude', 'longitude', 'sharesGetRecords'] });
   return (
-    <form noValidate onSubmit={submit} className="space-y-4" aria-label="Location and shared records">
-      <h2 className="text-xl font-bold">Location and shared records</h2>
+    <form noValidate onSubmit={submit} className="space-y-4" aria-label="Coordinates and shared records">
+      <h2 className="text-xl font-bold">Coordinates and shared records</h2>
       <p className="text-grey-700">Optional. With both farms' coordinates, Stud Share shows how far a buck would travel.</p>
       <div className="grid gap-3 sm:grid-cols-2">
         <TextField label="Latitude" inputMode="decimal" placeholder="e.g. 38.8951" error={errors.latitude?.message} {...form.register('latitude')} />
@@ -43,7 +43,7 @@ export function FarmCoordinatesForm({ farm }: { farm: FarmDto }) {
       />
       {save.isSuccess && <Alert tone="success">Saved.</Alert>}
       {failure && <Alert tone="error">{failure}</Alert>}
-      <Button type="submit" variant="secondary" isBusy={save.isPending}>Save location and sharing</Button>
+      <Button type="submit" variant="secondary" isBusy={save.isPending}>Save coordinates and sharing</Button>
     </form>
   );
 }
