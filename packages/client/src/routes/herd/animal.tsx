@@ -111,6 +111,12 @@ function FullRecord({ animal }: { animal: AnimalDetailDto }) {
                 Trial mating
               </LinkButton>
             )}
+            {animal.sex === 'buck' && keptHere && animal.owningFarm?.id === me.user.farmId && canEdit && animal.lifecycle === 'breeding' && (
+              <LinkButton to={`/stud-share/offer?buckId=${animal.id}`} variant="secondary">
+                <HeartHandshake className="size-5" aria-hidden="true" />
+                Offer in Stud Share
+              </LinkButton>
+            )}
             {animal.sex === 'doe' && keptHere && (
               <LinkButton to={`/stud-share/find/${animal.id}`} variant="secondary">
                 <Search className="size-5" aria-hidden="true" />
