@@ -14,6 +14,7 @@ import { loadDemoGrowOut } from './demo-grow-out';
 import { loadDemoHealthYield } from './demo-health-yield';
 import { loadDemoHerds } from './demo-herds';
 import { loadDemoLedger } from './demo-ledger';
+import { loadDemoStudShare } from './demo-stud-share';
 
 const appUrl = (process.env.APP_URL ?? 'http://127.0.0.1:3000').replace(/\/$/, '');
 
@@ -45,10 +46,12 @@ export async function loadDemoCoop(): Promise<'loaded' | 'already-present'> {
       await loadDemoHealthYield({ coopId: present.id, farms, keepers, apprenticeId: apprentice?.id ?? null, apprenticeFarmKey, temperatureUnits }, tx);
       await loadDemoLedger({ coopId: present.id, farms, keepers, appUrl }, tx);
     });
+    // Stud Share goes through its services, each in a transaction of its own, once the co-op exists.
+    await loadDemoStudShare(present.id);
     return 'already-present';
   }
   const passwordHash = await hashPassword(DEMO_PASSWORD);
-  await createCooperative(demoCoop, async (coop, tx) => {
+  const coopId = await createCooperative(demoCoop, async (coop, tx) => {
     const userIds = new Map<string, { id: string; farmId: string }>();
     for (const farm of demoFarms) {
       const created = await createFarm(coop.id, farm.profile, tx);
@@ -74,7 +77,9 @@ export async function loadDemoCoop(): Promise<'loaded' | 'already-present'> {
     await loadDemoGrowOut({ coopId: coop.id, farms, keepers, apprenticeId: apprentice.id, apprenticeFarmKey }, tx);
     await loadDemoHealthYield({ coopId: coop.id, farms, keepers, apprenticeId: apprentice.id, apprenticeFarmKey, temperatureUnits }, tx);
     await loadDemoLedger({ coopId: coop.id, farms, keepers, appUrl }, tx);
+    return coop.id;
   });
+  await loadDemoStudShare(coopId);
   return 'loaded';
 }
 

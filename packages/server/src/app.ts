@@ -35,6 +35,7 @@ import { growOutRoutes } from './modules/grow-out/grow-out.routes';
 import { feedRoutes } from './modules/feed/feed.routes';
 import { performanceRoutes } from './modules/performance/performance.routes';
 import { cardWebhookRoutes, ledgerRoutes } from './modules/ledger/ledger.routes';
+import { studShareRoutes } from './modules/stud-share/stud-share.routes';
 import { notificationRoutes } from './modules/notifications/notifications.routes';
 import { configureNotifications } from './modules/notifications/notifications.service';
 
@@ -152,6 +153,7 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
   api.use('/performance', performanceRoutes());
   // The Ledger: fees and balances between farms and the co-op, statements, dues and card payments.
   api.use('/ledger', ledgerRoutes(config));
+  api.use('/stud-share', studShareRoutes());
   api.use('/notifications', notificationRoutes());
   api.use(apiNotFound);
   app.use('/api', api);

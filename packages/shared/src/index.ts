@@ -34,4 +34,6 @@ export type { PackRule } from '@casl/ability/extra';
 export * from './text/count-of';
 export * from './schemas/ledger.schema';
 export * from './ledger';
+export * from './schemas/stud-share.schema';
+export * from './units/distance';
 export * from './notifications';

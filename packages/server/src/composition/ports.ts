@@ -7,6 +7,8 @@ import { groupFeedTotals, processedHeadsOfGroups } from '../modules/grow-out/gro
 import { groupsOfFarm } from '../modules/grow-out/grow-out-facts.service';
 import { kindlingDaysOfDams } from '../modules/litters/litter-facts.service';
 import { processedHeadsOf } from '../modules/processing/processing.service';
+import { photoPublishedTo } from '../modules/photos/photos.service';
+import { isPhotoPublished } from '../modules/stud-share/stud-share-facts.service';
 
 let plugged = false;
 
@@ -25,5 +27,6 @@ export function plugModulePorts(): void {
   damKindlingDays.plug(kindlingDaysOfDams);
   groupFeedTotals.plug(feedTotalsByGroup);
   processedHeadsOfGroups.plug(processedHeadsOf);
+  photoPublishedTo.plug(isPhotoPublished);
   groupNamesOfFarm.plug(async (tx, coopId, farmId) => new Map((await groupsOfFarm(tx, coopId, farmId)).map((g) => [g.id, g.name])));
 }
