@@ -108,7 +108,7 @@ function FullRecord({ animal }: { animal: AnimalDetailDto }) {
             {animal.sex === 'doe' && animal.onFarm && (
               <LinkButton to={`/herd/${animal.id}/trial-mating`} variant="secondary">
                 <HeartHandshake className="size-5" aria-hidden="true" />
-                Trial mating
+                Litter preview
               </LinkButton>
             )}
             {animal.sex === 'buck' && keptHere && animal.owningFarm?.id === me.user.farmId && canEdit && animal.lifecycle === 'breeding' && (
@@ -207,7 +207,7 @@ function CardOnly({ card }: { card: PedigreeCardDto }) {
           card.sex === 'doe' && card.onFarm && (
             <LinkButton to={`/herd/${card.id}/trial-mating`} variant="secondary">
               <HeartHandshake className="size-5" aria-hidden="true" />
-              Trial mating
+              Litter preview
             </LinkButton>
           )
         }
