@@ -369,6 +369,8 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'POST', path: '/api/stud-share/loans/:loanId/return', target: 'studLentA', body: 'studCustodyStep', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
   { method: 'POST', path: '/api/stud-share/loans/:loanId/return/confirm', target: 'studReturnRecordedA', body: 'studLoanVersion', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
   { method: 'POST', path: '/api/stud-share/loans/:loanId/service', target: 'studVisitA', body: 'studLoanVersion', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  // Hutch cards: each person prints their own farm's breeding does.
+  { method: 'GET', path: '/api/hutch-cards?does=breeding', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   // The notification centre: everyone signed in has their own bell; one person's notification is nobody else's.
   { method: 'GET', path: '/api/notifications', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'GET', path: '/api/notifications/unread', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
@@ -384,7 +386,7 @@ export const authorizationMatrix: MatrixRow[] = [
  * no area takes fails authorization-membership.test.ts, which also checks that every area has its file.
  */
 export const matrixAreas = [
-  { area: 'herd-files', paths: /^\/api\/(animals\/:animalId\/photos|photos|farms\/:farmId\/photo|herd-imports|herd-export|pedigree-certificates)\b/ },
+  { area: 'herd-files', paths: /^\/api\/(animals\/:animalId\/photos|photos|farms\/:farmId\/photo|herd-imports|herd-export|pedigree-certificates|hutch-cards)\b/ },
   { area: 'membership', paths: /^\/api\/(me|session|farms|apply|applications|members|invitations|audit-events|coop)\b/ },
   { area: 'herd', paths: /^\/api\/(breeds|animals|weigh-ins|animal-notes|pedigree-cards|trial-matings|outside-animals)\b/ },
   { area: 'almanac', paths: /^\/api\/(almanac|calendar-feeds|services|treatments)\b/ },

@@ -62,3 +62,28 @@ export const binaryParser = ((res: NodeJS.ReadableStream, callback: (error: Erro
   res.on('end', () => callback(null, Buffer.concat(chunks)));
   res.on('error', (error: Error) => callback(error, Buffer.alloc(0)));
 }) as unknown as Parser;
+
+/** The text of every QR code drawn as an image on a PDF's pages, in page order (decoded as a phone's camera would). */
+export async function pdfQrCodes(pdf: Buffer): Promise<string[]> {
+  const { OPS } = await import('pdfjs-dist/legacy/build/pdf.mjs');
+  const jsQR = (await import('jsqr')).default;
+  const standardFontDataUrl = `${path.join(path.dirname(createRequire(import.meta.url).resolve('pdfjs-dist/package.json')), 'standard_fonts')}/`;
+  const document = await getDocument({ data: new Uint8Array(pdf), useSystemFonts: false, isEvalSupported: false, standardFontDataUrl }).promise;
+  const found: string[] = [];
+  for (let n = 1; n <= document.numPages; n++) {
+    const page = await document.getPage(n);
+    const operators = await page.getOperatorList();
+    for (let i = 0; i < operators.fnArray.length; i++) {
+      if (operators.fnArray[i] !== OPS.paintImageXObject) continue;
+      const name = operators.argsArray[i][0] as string;
+      const image = await new Promise<{ width: number; height: number; data: Uint8ClampedArray }>((resolve) => page.objs.get(name, resolve));
+      // pdf.js hands RGB (3 bytes a pixel) or RGBA; the decoder wants RGBA.
+      const pixels = image.width * image.height;
+      const rgba = image.data.length === pixels * 4 ? image.data : new Uint8ClampedArray(pixels * 4).map((_, k) => (k % 4 === 3 ? 255 : image.data[Math.floor(k / 4) * 3 + (k % 4)]!));
+      const code = jsQR(rgba, image.width, image.height);
+      if (code) found.push(code.data);
+    }
+  }
+  await document.destroy();
+  return found;
+}

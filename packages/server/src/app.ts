@@ -25,7 +25,7 @@ import {
   animalNoteRoutes, animalRoutes, outsideAnimalRoutes, pedigreeCardRoutes, trialMatingRoutes, weighInRoutes,
 } from './modules/animals/animals.routes';
 import { breedRoutes } from './modules/breeds/breeds.routes';
-import { herdExportRoutes, herdImportRoutes, pedigreeCertificateRoutes } from './modules/herd-files/herd-files.routes';
+import { herdExportRoutes, herdImportRoutes, hutchCardRoutes, pedigreeCertificateRoutes } from './modules/herd-files/herd-files.routes';
 import { animalPhotoRoutes, farmPhotoRoutes, photoRoutes } from './modules/photos/photos.routes';
 import { almanacRoutes, calendarFeedRoutes, serviceRoutes, treatmentRoutes, withdrawalRoutes } from './modules/almanac/almanac.routes';
 import { heatCautionRoutes, temperatureRoutes } from './modules/health/health.routes';
@@ -126,6 +126,7 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
   api.use('/herd-imports', herdImportRoutes(config));
   api.use('/herd-export', herdExportRoutes());
   api.use('/pedigree-certificates', pedigreeCertificateRoutes());
+  api.use('/hutch-cards', hutchCardRoutes(config));
   api.use('/animals', animalRoutes());
   api.use('/pedigree-cards', pedigreeCardRoutes());
   api.use('/trial-matings', trialMatingRoutes());

@@ -11,7 +11,7 @@ import { LinkButton } from '../../components/ui/link-button';
 import { PageHeader } from '../../components/ui/page-header';
 import { PageTitle } from '../../components/ui/page-title';
 import { PageSpinner } from '../../components/ui/spinner';
-import { PedigreePdfLink } from '../../features/herd-files/components/download-links';
+import { HutchCardsLink, PedigreePdfLink } from '../../features/herd-files/components/download-links';
 import { animalViewQueryOptions, useAnimalView } from '../../features/herd/api/get-animal';
 import { AnimalPhotos } from '../../features/photos/components/photo-gallery';
 import { pedigreeQueryOptions, usePedigree } from '../../features/herd/api/get-pedigree';
@@ -124,6 +124,7 @@ function FullRecord({ animal }: { animal: AnimalDetailDto }) {
               </LinkButton>
             )}
             <PedigreePdfLink animalId={animal.id} />
+            {keptHere && <HutchCardsLink animalIds={[animal.id]}>Hutch card</HutchCardsLink>}
             {canEdit && (
               <LinkButton to={`/herd/${animal.id}/edit`} variant="primary">
                 <Pencil className="size-4" aria-hidden="true" />

@@ -8,7 +8,7 @@ import { LinkButton } from '../../components/ui/link-button';
 import { PageHeader } from '../../components/ui/page-header';
 import { PageTitle } from '../../components/ui/page-title';
 import { PageSpinner } from '../../components/ui/spinner';
-import { ExportCsvLink } from '../../features/herd-files/components/download-links';
+import { ExportCsvLink, HutchCardsLink } from '../../features/herd-files/components/download-links';
 import { breedsQueryOptions, useBreeds } from '../../features/herd/api/get-breeds';
 import { herdQueryOptions, useHerd } from '../../features/herd/api/get-herd';
 import { HerdFilters } from '../../features/herd/components/herd-filters';
@@ -48,6 +48,7 @@ export function HerdPage() {
         actions={
           <>
             <ExportCsvLink query={listQueryOf(view)} />
+            <HutchCardsLink animalIds="breeding-does">Hutch cards</HutchCardsLink>
             {canAdd && (
               <LinkButton to="/herd/import" variant="secondary">
                 <FileUp className="size-5" aria-hidden="true" />

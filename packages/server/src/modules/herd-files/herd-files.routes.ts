@@ -1,4 +1,5 @@
 import { Router, type Request, type Response } from 'express';
+import { z } from 'zod';
 import {
   herdExportQuerySchema, herdImportConfirmSchema, herdImportRowsQuerySchema, uuidParamSchema, type HerdImportStreamLine,
 } from '@burrowline/shared';
@@ -7,7 +8,7 @@ import { actorOf, requireUser } from '../../http/ability';
 import { acceptUpload, uploadedFiles } from '../../http/uploads';
 import { AppError } from '../../lib/app-error';
 import { errorBodyOf } from '../../http/error-handler';
-import { assertCanImport, confirmHerdImport, exportHerdCsv, getHerdImport, pedigreeCertificate, stageHerdImport, type ImportLimits } from './herd-files.service';
+import { assertCanImport, confirmHerdImport, exportHerdCsv, getHerdImport, hutchCards, pedigreeCertificate, stageHerdImport, type ImportLimits } from './herd-files.service';
 
 const NDJSON = 'application/x-ndjson';
 
@@ -90,6 +91,28 @@ export function herdExportRoutes(): Router {
     res.setHeader('Content-Disposition', `attachment; filename="${file.fileName}"`);
     res.setHeader('Cache-Control', 'no-store');
     res.setHeader('X-Row-Count', String(file.rows));
+    res.send(file.body);
+  });
+  return router;
+}
+
+const hutchCardsQuerySchema = z.union([
+  z.strictObject({ does: z.literal('breeding') }).transform(() => ({ does: true as const })),
+  z.strictObject({
+    animalIds: z.string().transform((text) => text.split(',').filter(Boolean)).pipe(z.array(z.uuid({ error: 'That animal was not found' })).min(1, 'Choose at least one animal')),
+  }),
+], { error: 'Choose the animals (animalIds) or every breeding doe (does=breeding)' });
+
+/** /api/hutch-cards: printable hutch cards (PDF) of animals the viewer's farm keeps, with a QR code to each. */
+export function hutchCardRoutes(config: Config): Router {
+  const router = Router();
+  router.use(requireUser);
+  router.get('/', async (req, res) => {
+    const file = await hutchCards(actorOf(req), hutchCardsQuerySchema.parse(req.query), config.appUrl);
+    res.setHeader('Content-Type', 'application/pdf');
+    res.setHeader('Content-Disposition', `inline; filename="${file.fileName}"`);
+    res.setHeader('Content-Length', String(file.body.length));
+    res.setHeader('Cache-Control', 'no-store');
     res.send(file.body);
   });
   return router;

@@ -3,7 +3,7 @@ import path from 'node:path';
 import { setImmediate as yieldToEventLoop } from 'node:timers/promises';
 import { Op, type Transaction } from 'sequelize';
 import {
-  countOf,  createImportChecker, defineAbilityFor, ErrorCode, headerProblem, mapImportHeader, subjectOf, todayIn, type HerdExportQuery, type HerdImportConfirmInput, type HerdImportDto, type HerdImportProgressDto, type HerdImportRowsQuery, type ImportCheckResult,
+  animalListQuerySchema, countOf, createImportChecker, defineAbilityFor, ErrorCode, headerProblem, mapImportHeader, subjectOf, todayIn, type HerdExportQuery, type HerdImportConfirmInput, type HerdImportDto, type HerdImportProgressDto, type HerdImportRowsQuery, type ImportCheckResult,
 } from '@burrowline/shared';
 import { lockUntilCommit } from '../../db/advisory-lock';
 import { withTenant } from '../../db/tenant';
@@ -18,7 +18,7 @@ import { breedsOf } from '../breeds/breeds.service';
 import { getCoop } from '../coops/coops.service';
 import { farmDirectoryOf } from '../farms/farms.service';
 import { ensureCan, farmOf } from '../farms/farm-access';
-import { DEFAULT_FARM_TIME_ZONE, farmTodayIn } from '../farms/farm-clock';
+import { DEFAULT_FARM_TIME_ZONE, farmClockOf, farmTodayIn } from '../farms/farm-clock';
 import { kindlingDaysOfDams } from '../litters/litter-facts.service';
 import { namesOf } from '../users/users.service';
 import { readHerdCsv } from './csv-reading';
@@ -26,6 +26,8 @@ import { herdCsv } from './herd-export';
 import { HerdImport } from './herd-import.model';
 import { presentHerdImport } from './herd-files.presenter';
 import { renderCertificate } from './pedigree-certificate';
+import { renderHutchCards } from './hutch-cards';
+import { nextTasksOfAnimals } from '../almanac/animal-next-tasks.service';
 
 /** Rows checked between two progress reports of a large file. */
 const CHECK_SLICE = 1000;
@@ -298,4 +300,32 @@ export async function pedigreeCertificate(actor: SessionUser, animalId: string):
     issuedOn: todayIn(context.issuer?.timeZone ?? DEFAULT_FARM_TIME_ZONE),
   });
   return { fileName: `pedigree-${animal.tattoo}${animal.name ? `-${slug(animal.name)}` : ''}.pdf`, body };
+}
+
+/** At most this many cards in one sheet (six pages of four). */
+const MAX_HUTCH_CARDS = 24;
+
+/**
+ * Hutch cards (PDF) for animals the actor's farm keeps: the chosen ones, or every doe in the breeding herd.
+ * Each card carries the next Almanac dates and a QR code that opens the animal at `appUrl`.
+ */
+export async function hutchCards(actor: SessionUser, input: { animalIds: string[] } | { does: true }, appUrl: string): Promise<{ fileName: string; body: Buffer }> {
+  const farmId = farmOf(actor);
+  const ids = 'does' in input
+    ? (await listHerd(actor, animalListQuerySchema.parse({ sex: 'doe', status: 'breeding', pageSize: MAX_HUTCH_CARDS }))).items.map((a) => a.id)
+    : [...new Set(input.animalIds)];
+  if (ids.length > MAX_HUTCH_CARDS) throw AppError.validation({ animalIds: [`Choose at most ${MAX_HUTCH_CARDS} animals for one sheet`] });
+  const animals = await Promise.all(ids.map((id) => getAnimal(actor, id)));
+  const { next, farmName } = await withTenant(actor, async (tx) => ({
+    next: await nextTasksOfAnimals(tx, ids),
+    farmName: (await farmClockOf(tx, actor.coopId, farmId)).name,
+  }));
+  const body = await renderHutchCards(
+    animals.map((a) => ({
+      name: a.name, tattoo: a.tattoo, sex: a.sex, birthDate: a.birthDate, breedMakeup: a.breedMakeup,
+      next: next.get(a.id) ?? [], url: `${appUrl}/herd/${a.id}`,
+    })),
+    farmName,
+  );
+  return { fileName: `hutch-cards-${slug(farmName) || 'farm'}.pdf`, body };
 }

@@ -21,7 +21,7 @@ const PANEL = { left: PAGE.margin, width: 196 };
 
 // The standard PDF fonts encode WinAnsi (Windows-1252): keep what it has, strip accents from the rest.
 const WIN_ANSI_EXTRA = new Set('€‚ƒ„…†‡ˆ‰Š‹ŒŽ‘’“”•–—˜™š›œžŸ');
-function printable(text: string): string {
+export function printable(text: string): string {
   let out = '';
   for (const ch of text.normalize('NFC')) {
     const code = ch.codePointAt(0)!;
@@ -46,7 +46,7 @@ export function breedLabel(makeup: BreedMakeupDto): string {
   return `Cross: ${parts.join(', ')}`;
 }
 
-function formatDate(iso: string | null): string {
+export function formatDate(iso: string | null): string {
   if (!iso) return 'unknown';
   const [y, m, d] = iso.split('-').map(Number) as [number, number, number];
   const month = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'][m - 1];

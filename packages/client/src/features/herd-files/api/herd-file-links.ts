@@ -15,3 +15,8 @@ export function herdExportHref(query: Partial<AnimalListQuery>): string {
 export function pedigreeCertificateHref(animalId: string): string {
   return `/api/pedigree-certificates/${encodeURIComponent(animalId)}`;
 }
+
+/** Printable hutch cards with a QR code each: of some animals, or of every breeding doe of the farm. */
+export function hutchCardsHref(animalIds: string[] | 'breeding-does'): string {
+  return animalIds === 'breeding-does' ? '/api/hutch-cards?does=breeding' : `/api/hutch-cards?animalIds=${animalIds.map(encodeURIComponent).join(',')}`;
+}

@@ -1,7 +1,7 @@
-import { FileDown, FileText } from 'lucide-react';
+import { FileDown, FileText, QrCode } from 'lucide-react';
 import type { AnimalListQuery } from '@burrowline/shared';
 import { buttonClasses } from '../../../components/ui/button-styles';
-import { herdExportHref, pedigreeCertificateHref } from '../api/herd-file-links';
+import { herdExportHref, hutchCardsHref, pedigreeCertificateHref } from '../api/herd-file-links';
 
 /** "Export CSV": the herd as the table shows it now (filters and sort), as a spreadsheet file. */
 export function ExportCsvLink({ query }: { query: Partial<AnimalListQuery> }) {
@@ -19,6 +19,16 @@ export function PedigreePdfLink({ animalId }: { animalId: string }) {
     <a href={pedigreeCertificateHref(animalId)} download className={buttonClasses('secondary')}>
       <FileText className="size-5" aria-hidden="true" />
       Pedigree PDF
+    </a>
+  );
+}
+
+/** "Hutch card(s)": a printable sheet of cards to pin on the hutch, each with a QR code that opens the animal. */
+export function HutchCardsLink({ animalIds, children }: { animalIds: string[] | 'breeding-does'; children: string }) {
+  return (
+    <a href={hutchCardsHref(animalIds)} target="_blank" rel="noopener" className={buttonClasses('secondary')}>
+      <QrCode className="size-5" aria-hidden="true" />
+      {children}
     </a>
   );
 }
