@@ -35,3 +35,5 @@ export * from './text/count-of';
 export * from './schemas/ledger.schema';
 export * from './ledger';
 export * from './notifications';
+export * from './schemas/mentorship.schema';
+export * from './mentorship';

@@ -34,6 +34,8 @@ export const RealtimeEvent = {
   cardCheckoutSettled: 'ledger:card-checkout-settled',
   /** A notification arrived for the person, or they read some; to their user room only. */
   notificationsChanged: 'notifications:changed',
+  /** An apprentice's entry was sent, reviewed or a skill marked; to the apprentice's and her mentor's user rooms. */
+  mentorshipChanged: 'mentorship:changed',
 } as const;
 
 export interface ServerToClientEvents {
@@ -54,6 +56,7 @@ export interface ServerToClientEvents {
   [RealtimeEvent.ledgerChanged]: (payload: { farmIds: string[] }) => void;
   [RealtimeEvent.cardCheckoutSettled]: (payload: { checkoutId: string; status: 'paid' | 'declined' }) => void;
   [RealtimeEvent.notificationsChanged]: (payload: { unread: number; title: string | null; link: string | null }) => void;
+  [RealtimeEvent.mentorshipChanged]: (payload: { apprenticeId: string; what: 'submitted' | 'reviewed' | 'skill' }) => void;
 }
 
 // eslint-disable-next-line @typescript-eslint/no-empty-object-type
