@@ -35,6 +35,7 @@ import { growOutRoutes } from './modules/grow-out/grow-out.routes';
 import { feedRoutes } from './modules/feed/feed.routes';
 import { performanceRoutes } from './modules/performance/performance.routes';
 import { cardWebhookRoutes, ledgerRoutes } from './modules/ledger/ledger.routes';
+import { mentorshipRoutes } from './modules/mentorship/mentorship.routes';
 import { notificationRoutes } from './modules/notifications/notifications.routes';
 import { configureNotifications } from './modules/notifications/notifications.service';
 
@@ -153,6 +154,7 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
   // The Ledger: fees and balances between farms and the co-op, statements, dues and card payments.
   api.use('/ledger', ledgerRoutes(config));
   api.use('/notifications', notificationRoutes());
+  api.use('/mentorship', mentorshipRoutes(config));
   api.use(apiNotFound);
   app.use('/api', api);
 

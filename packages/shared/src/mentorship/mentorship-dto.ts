@@ -1,10 +1,7 @@
+import type { PersonRefDto } from '../dto';
 import type { ReviewState } from '../herd/herd-enums';
 import type { ChoreKind, ReviewItemKind, SkillState } from '../schemas/mentorship.schema';
 
-export interface PersonRefDto {
-  id: string;
-  name: string;
-}
 
 export interface ChorePhotoDto {
   id: string;

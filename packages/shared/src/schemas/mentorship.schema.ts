@@ -5,8 +5,7 @@ import { multiLine, recordId, singleLine } from './text';
 const key = z.string().trim().regex(/^[a-z0-9-]{1,60}$/, 'Use lower-case letters, digits and hyphens');
 
 /** A chore the apprentice did on the mentor's farm; a weight or a litter count goes to its own record. */
-export const choreEntrySchema = z
-  .strictObject({
+const choreEntryFields = z.strictObject({
     id: z.uuid({ message: 'Not a valid id' }).optional(),
     kind: key,
     /** Left out: the farm's today. */
@@ -31,8 +30,9 @@ export const choreEntrySchema = z
         cause: multiLine(200).optional(),
       })
       .optional(),
-  })
-  .superRefine((v, ctx) => {
+});
+
+export const choreEntrySchema = choreEntryFields.superRefine((v, ctx) => {
     const targets = [v.animalId, v.litterId, v.groupId].filter(Boolean).length;
     if (targets > 1) ctx.addIssue({ code: 'custom', path: ['animalId'], message: 'One animal, litter or group per entry' });
     if (v.weighing && !v.animalId && !v.groupId) ctx.addIssue({ code: 'custom', path: ['weighing'], message: 'Weigh an animal or a group' });
@@ -45,11 +45,11 @@ export type ChoreEntryBody = z.input<typeof choreEntrySchema>;
 
 /** A returned entry, corrected and sent again (the version guards a second tab). */
 export const choreResubmitSchema = z.strictObject({
-  minutes: choreEntrySchema.innerType().shape.minutes,
+  minutes: choreEntryFields.shape.minutes,
   doneOn: calendarDateSchema,
   notes: multiLine(2000).default(''),
-  weighing: choreEntrySchema.innerType().shape.weighing,
-  litterCount: choreEntrySchema.innerType().shape.litterCount,
+  weighing: choreEntryFields.shape.weighing,
+  litterCount: choreEntryFields.shape.litterCount,
   version: z.number().int().min(0),
 });
 export type ChoreResubmitInput = z.infer<typeof choreResubmitSchema>;
