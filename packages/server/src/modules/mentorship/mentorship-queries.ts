@@ -142,7 +142,9 @@ export function pendingOf(tx: Transaction, coopId: string, apprenticeIds: string
       WHERE t.coop_id = $1 AND t.done_by = ANY($2::uuid[]) AND t.completion_review = 'pending'`,
   };
   const kinds = filter.kind ? [filter.kind] : (Object.keys(parts) as ReviewItemKind[]);
-  const union = kinds.map((k) => `(${parts[k]})`).join(' UNION ALL ');
+  // Column names come from each part's position, so one part alone reads like the union.
+  const names = '(kind, id, apprentice_id, farm_id, submitted_at, "on", title, detail, version)';
+  const union = kinds.map((k) => `SELECT * FROM (${parts[k]}) AS p${names}`).join(' UNION ALL ');
   const byId = filter.id ? 'WHERE q.id = $3::uuid' : '';
   return select<QueueRow>(tx, `SELECT * FROM (${union}) q ${byId} ORDER BY q.submitted_at, q.id LIMIT 500`, filter.id ? [coopId, apprenticeIds, filter.id] : [coopId, apprenticeIds]);
 }
