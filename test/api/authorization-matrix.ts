@@ -349,6 +349,7 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'GET', path: '/api/mentorship', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'GET', path: '/api/mentorship/settings', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'PUT', path: '/api/mentorship/settings', target: 'none', body: 'mentorshipSettings', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/mentorship/choices', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'GET', path: '/api/mentorship/chores', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 403, otherFarmMember: 403, admin: 403, otherCoop: 403 } },
   { method: 'POST', path: '/api/mentorship/chores', target: 'none', body: 'chore', expect: { anonymous: 401, apprentice: 201, member: 403, otherFarmMember: 403, admin: 403, otherCoop: 403 } },
   { method: 'PUT', path: '/api/mentorship/chores/:choreId', target: 'returnedChoreA', body: 'choreResubmit', expect: { anonymous: 401, apprentice: 200, member: 403, otherFarmMember: 403, admin: 403, otherCoop: 403 } },

@@ -9,7 +9,7 @@ import { actorOf, requireUser } from '../../http/ability';
 import { acceptUpload, uploadedFiles } from '../../http/uploads';
 import { acceptMany, decideReviewItem, reviewQueue } from './mentorship-review.service';
 import {
-  addPhotosToChore, assertCanAddChorePhotos, getMentorshipSettings, logChore, mentorshipHome, myChoreLog, resubmitChore, updateMentorshipSettings,
+  addPhotosToChore, assertCanAddChorePhotos, choreChoices, getMentorshipSettings, logChore, mentorshipHome, myChoreLog, resubmitChore, updateMentorshipSettings,
 } from './mentorship.service';
 import { getApprentice, listApprentices, markSkill, recordOfSkillsPdf } from './skills.service';
 
@@ -31,6 +31,9 @@ export function mentorshipRoutes(config: Config): Router {
   });
   router.put('/settings', async (req, res) => {
     res.json(await updateMentorshipSettings(actorOf(req), mentorshipSettingsSchema.parse(req.body)));
+  });
+  router.get('/choices', async (req, res) => {
+    res.json(await choreChoices(actorOf(req)));
   });
   router.get('/chores', async (req, res) => {
     res.json(await myChoreLog(actorOf(req), choreLogQuerySchema.parse(req.query)));

@@ -278,3 +278,35 @@ export async function updateMentorshipSettings(actor: SessionUser, input: Mentor
     return presentSettings(await settingsOf(tx, actor.coopId));
   });
 }
+
+/**
+ * What a chore can be about on the actor's farm (her mentor's for an apprentice): animals kept there, litters
+ * still with their doe or weaned lately, growing groups. Labels only; the full records stay in their areas.
+ */
+export async function choreChoices(actor: SessionUser): Promise<{ animals: { id: string; label: string }[]; litters: { id: string; label: string }[]; groups: { id: string; label: string }[] }> {
+  const farmId = actor.farmId;
+  if (!farmId) return { animals: [], litters: [], groups: [] };
+  return withTenant(actor, async (tx) => {
+    ensureCan(actor, 'read', 'Animal', { owningFarmId: farmId, keepingFarmId: farmId }, 'That farm');
+    const animals = await select<{ id: string; label: string }>(
+      tx,
+      `SELECT id, concat_ws(' ', tattoo, nullif(name, '')) AS label FROM animals
+        WHERE coop_id = $1 AND keeping_farm_id = $2 AND deleted_at IS NULL AND NOT is_outside AND disposition = 'on_farm'
+        ORDER BY lower(coalesce(nullif(name, ''), tattoo)), id LIMIT 500`,
+      [actor.coopId, farmId],
+    );
+    const litters = await select<{ id: string; label: string }>(
+      tx,
+      `SELECT l.id, concat('Litter of ', coalesce(nullif(d.name, ''), d.tattoo), ', ', l.kindled_on::text) AS label
+         FROM litters l JOIN animals d ON d.id = l.dam_id
+        WHERE l.coop_id = $1 AND l.farm_id = $2 AND l.deleted_at IS NULL AND l.kindled_on > current_date - 120
+        ORDER BY l.kindled_on DESC, l.id LIMIT 100`,
+      [actor.coopId, farmId],
+    );
+    const groups = await select<{ id: string; label: string }>(
+      tx, `SELECT id, name AS label FROM grow_out_groups WHERE coop_id = $1 AND farm_id = $2 AND deleted_at IS NULL AND status = 'growing' ORDER BY formed_on DESC, id LIMIT 100`,
+      [actor.coopId, farmId],
+    );
+    return { animals, litters, groups };
+  });
+}

@@ -15,6 +15,7 @@ import { litterKeys } from '../../litters';
 import { auditKeys, memberKeys } from '../../members';
 import { performanceKeys } from '../../performance';
 import { ledgerKeys } from '../../ledger';
+import { mentorshipKeys } from '../../mentorship';
 import { notificationKeys, type LatestNotification } from '../../notifications';
 
 /**
@@ -86,7 +87,10 @@ export function useRealtimeSync(): void {
         void queryClient.invalidateQueries({ queryKey: notificationKeys.all, predicate: (query) => query.queryKey[1] !== 'unread' });
         if (title && link) queryClient.setQueryData<LatestNotification>(notificationKeys.latest(), { title, link, at: Date.now() });
       };
+      // An apprentice's entry was sent or reviewed, or a skill marked: her log, the mentor's queue, the pages.
+      const refreshMentorship = () => void queryClient.invalidateQueries({ queryKey: mentorshipKeys.all });
       const refreshAll = () => {
+        refreshMentorship();
         refreshNotifications();
         refreshFarms();
         refreshLitters();
@@ -122,6 +126,7 @@ export function useRealtimeSync(): void {
       socket.on(RealtimeEvent.ledgerChanged, refreshLedger);
       socket.on(RealtimeEvent.cardCheckoutSettled, refreshLedger);
       socket.on(RealtimeEvent.notificationsChanged, notificationsChanged);
+      socket.on(RealtimeEvent.mentorshipChanged, refreshMentorship);
       socket.on(RealtimeEvent.sessionEnded, endSession);
       // Events sent while the connection was down are lost; refetch what they would have refreshed.
       socket.io.on('reconnect', refreshAll);
@@ -143,6 +148,7 @@ export function useRealtimeSync(): void {
         socket.off(RealtimeEvent.ledgerChanged, refreshLedger);
         socket.off(RealtimeEvent.cardCheckoutSettled, refreshLedger);
         socket.off(RealtimeEvent.notificationsChanged, notificationsChanged);
+        socket.off(RealtimeEvent.mentorshipChanged, refreshMentorship);
         socket.off(RealtimeEvent.sessionEnded, endSession);
         socket.io.off('reconnect', refreshAll);
         disconnectRealtime();
