@@ -200,7 +200,12 @@ export async function myChoreLog(actor: SessionUser, q: ChoreLogQuery): Promise<
 /** Photos for the apprentice's own entry while it waits or after it came back (not once accepted). */
 export async function addPhotosToChore(actor: SessionUser, choreId: string, input: { files: UploadedFile[]; caption: string }, limits: PhotoLimits): Promise<PhotoDto[]> {
   apprenticeFarmOf(actor);
-  return addChorePhotos(actor, (tx) => photoTargetOf(tx, actor, choreId), input, limits);
+  return addChorePhotos(actor, async (tx) => {
+    const target = await photoTargetOf(tx, actor, choreId);
+    // The mentor's open queue shows the photo as it arrives.
+    announceMentorship(tx, actor.id, actor.mentorId, 'submitted');
+    return target;
+  }, input, limits);
 }
 
 async function photoTargetOf(tx: Transaction, actor: SessionUser, choreId: string): Promise<{ id: string; farmId: string }> {
