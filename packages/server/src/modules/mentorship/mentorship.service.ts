@@ -315,3 +315,38 @@ export async function choreChoices(actor: SessionUser): Promise<{ animals: { id:
     return { animals, litters, groups };
   });
 }
+
+/** Has the co-op any chore entries yet (the demo loader adds its history once). */
+export async function coopHasChoreEntries(tx: Transaction, coopId: string): Promise<boolean> {
+  return (await select<{ n: number }>(tx, 'SELECT count(*)::int AS n FROM chore_entries WHERE coop_id = $1', [coopId]))[0]!.n > 0;
+}
+
+/**
+ * Writes past entries and skill marks as they were decided (the demo co-op's weeks of apprenticeship),
+ * inside the caller's transaction. Entries without a figure only: weights go through their own records.
+ */
+export async function recordPastMentorshipIn(
+  tx: Transaction,
+  coopId: string,
+  input: {
+    entries: { apprenticeId: string; farmId: string; kind: string; doneOn: string; minutes: number; notes: string; state: 'pending' | 'accepted' | 'returned'; mentorId: string; comment?: string; submittedAt: Date }[];
+    marks: { apprenticeId: string; skillKey: string; state: 'practising' | 'signed-off' | 'withdrawn'; on: string; comment: string; mentorId: string; at: Date }[];
+  },
+): Promise<void> {
+  for (const e of input.entries) {
+    await run(
+      tx,
+      `INSERT INTO chore_entries (coop_id, farm_id, apprentice_id, kind, done_on, minutes, notes, review_state, reviewed_by, reviewed_at, review_comment, submitted_at, version, created_at)
+       VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10, $11, $12, $13, $12)`,
+      [coopId, e.farmId, e.apprenticeId, e.kind, e.doneOn, e.minutes, e.notes, e.state, e.state === 'pending' ? null : e.mentorId,
+        e.state === 'pending' ? null : new Date(e.submittedAt.getTime() + 6 * 3_600_000), e.comment ?? null, e.submittedAt, e.state === 'pending' ? 0 : 1],
+    );
+  }
+  for (const m of input.marks) {
+    await run(
+      tx,
+      'INSERT INTO skill_events (coop_id, apprentice_id, skill_key, state, on_date, comment, mentor_id, created_at) VALUES ($1, $2, $3, $4, $5, $6, $7, $8)',
+      [coopId, m.apprenticeId, m.skillKey, m.state, m.on, m.comment, m.mentorId, m.at],
+    );
+  }
+}
