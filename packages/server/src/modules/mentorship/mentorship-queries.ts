@@ -123,7 +123,7 @@ export function pendingOf(tx: Transaction, coopId: string, apprenticeIds: string
         concat(c.minutes, ' min', CASE WHEN c.notes <> '' THEN concat(' · ', left(c.notes, 120)) ELSE '' END) AS detail, c.version
       FROM chore_entries c WHERE c.coop_id = $1 AND c.apprentice_id = ANY($2::uuid[]) AND c.review_state = 'pending' AND c.deleted_at IS NULL`,
     'weigh-in': `SELECT 'weigh-in', w.id, w.entered_by, w.farm_id, w.created_at, w.weighed_on::text, 'Weigh-in',
-        concat(coalesce(concat_ws(' ', a.tattoo, nullif(a.name, '')), g.name, w.group_label), ': ', w.total_grams, ' g', CASE WHEN w.head_count > 1 THEN concat(' for ', w.head_count, ' head') ELSE '' END), w.version
+        concat(coalesce(CASE WHEN a.id IS NULL THEN NULL ELSE concat_ws(' ', a.tattoo, nullif(a.name, '')) END, g.name, w.group_label), ': ', w.total_grams, ' g', CASE WHEN w.head_count > 1 THEN concat(' for ', w.head_count, ' head') ELSE '' END), w.version
       FROM weigh_ins w LEFT JOIN animals a ON a.id = w.animal_id LEFT JOIN grow_out_groups g ON g.id = w.group_id
       WHERE w.coop_id = $1 AND w.entered_by = ANY($2::uuid[]) AND w.review_state = 'pending' AND w.deleted_at IS NULL
         AND NOT EXISTS (SELECT 1 FROM chore_entries c WHERE c.weigh_in_id = w.id)`,
