@@ -347,6 +347,13 @@ const routes: RouteObject[] = [
                     },
                   },
                   {
+                    path: 'settings',
+                    lazy: async () => {
+                      const { loader, MentorshipSettingsPage } = await import('../routes/mentorship/settings');
+                      return { loader, Component: MentorshipSettingsPage };
+                    },
+                  },
+                  {
                     path: 'apprentices/:apprenticeId',
                     lazy: async () => {
                       const { loader, ApprenticePage } = await import('../routes/mentorship/apprentice');

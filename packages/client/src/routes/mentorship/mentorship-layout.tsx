@@ -1,4 +1,4 @@
-import { ClipboardCheck, GraduationCap, ListChecks, NotebookPen, Users } from 'lucide-react';
+import { ClipboardCheck, GraduationCap, ListChecks, NotebookPen, Settings, Users } from 'lucide-react';
 import { Outlet } from 'react-router-dom';
 import { CountBadge } from '../../components/ui/badge';
 import { SectionTab as Tab, SectionTabs } from '../../components/ui/section-tabs';
@@ -27,6 +27,7 @@ export function MentorshipLayout() {
               Review
             </Tab>
             <Tab to="/mentorship/apprentices" icon={<Users className="size-5" aria-hidden="true" />}>Apprentices</Tab>
+            {user.role === 'admin' && <Tab to="/mentorship/settings" icon={<Settings className="size-5" aria-hidden="true" />}>Settings</Tab>}
           </>
         )}
       </SectionTabs>

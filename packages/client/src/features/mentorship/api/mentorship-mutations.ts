@@ -1,6 +1,7 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type {
-  AcceptManyInput, ApprenticeDetailDto, ChoreEntryDto, ChoreEntryInput, ChoreResubmitInput, ReviewDecisionInput, ReviewItemKind, SkillMarkInput,
+  AcceptManyInput, ApprenticeDetailDto, ChoreEntryDto, ChoreEntryInput, ChoreResubmitInput, MentorshipSettingsDto, MentorshipSettingsInput, ReviewDecisionInput,
+  ReviewItemKind, SkillMarkInput,
 } from '@burrowline/shared';
 import { apiFetch } from '../../../lib/api-client';
 import { uploadForm } from '../../../lib/upload';
@@ -36,3 +37,6 @@ export const useAcceptMany = () =>
 export const useMarkSkill = (apprenticeId: string, skillKey: string) =>
   useMentorshipMutation((body: SkillMarkInput) =>
     apiFetch<ApprenticeDetailDto>(`/api/mentorship/apprentices/${encodeURIComponent(apprenticeId)}/skills/${encodeURIComponent(skillKey)}`, { method: 'PUT', body }));
+
+export const useSaveMentorshipSettings = () =>
+  useMentorshipMutation((body: MentorshipSettingsInput) => apiFetch<MentorshipSettingsDto>('/api/mentorship/settings', { method: 'PUT', body }));
