@@ -197,6 +197,13 @@ const routes: RouteObject[] = [
                 },
               },
               {
+                path: 'co-op',
+                lazy: async () => {
+                  const { loader, CoopPage } = await import('../routes/co-op/co-op');
+                  return { loader, Component: CoopPage };
+                },
+              },
+              {
                 path: 'notifications',
                 lazy: async () => {
                   const { loader, NotificationsPage } = await import('../routes/notifications/notifications');

@@ -27,8 +27,6 @@ interface TopBarProps {
   ledger?: boolean;
   /** The bell: how many notifications the person has not read. */
   unreadNotifications: number;
-  /** Whether the co-op's shared work (Stud Share, processing days…) has its area yet. */
-  coop?: boolean;
 }
 
 // Whole class names, so Tailwind sees them when it scans this file.
@@ -36,13 +34,16 @@ const columns: Record<number, string> = { 1: 'grid-cols-1', 2: 'grid-cols-2', 3:
 /** A phone's bar holds five places, wide enough for a gloved thumb and a whole word; the rest sit under "More". */
 const PHONE_PLACES = 5;
 
-function areasFor({ farmId, admin, ledger, coop }: Pick<TopBarProps, 'farmId' | 'admin' | 'ledger' | 'coop'>): Area[] {
+function areasFor({ farmId, admin, ledger }: Pick<TopBarProps, 'farmId' | 'admin' | 'ledger'>): Area[] {
   const areas: Area[] = [{ to: '/', label: 'Commons', icon: Tent, end: true }];
   if (farmId) {
     areas.push({ to: '/herd', label: 'Herd', icon: Rabbit });
     areas.push({ to: '/almanac', label: 'Almanac', icon: CalendarDays });
     areas.push({ to: '/grow-out', label: 'Grow-out', icon: Sprout });
-    if (coop) areas.push({ to: '/co-op', label: 'Co-op', icon: Handshake });
+  }
+  // What the farms do together: Stud Share, processing days, chat, mentorship, the co-op's rules.
+  areas.push({ to: '/co-op', label: 'Co-op', icon: Handshake });
+  if (farmId) {
     if (ledger) areas.push({ to: '/ledger', label: 'Ledger', icon: Coins });
     areas.push({ to: `/farms/${farmId}`, label: 'My farm', icon: Warehouse });
   }
@@ -54,8 +55,8 @@ function areasFor({ farmId, admin, ledger, coop }: Pick<TopBarProps, 'farmId' | 
  * Wide screens: the co-op and sign-out on top, the areas in a row beneath. Phones and tablets: the co-op and sign-out on top and
  * the areas in a tab bar at the bottom, where a thumb reaches them with gloves on.
  */
-export function TopBar({ coopName, personName, roleLabel, farmId, onSignOut, isSigningOut, admin, ledger, coop, unreadNotifications }: TopBarProps) {
-  const areas = areasFor({ farmId, admin, ledger, coop });
+export function TopBar({ coopName, personName, roleLabel, farmId, onSignOut, isSigningOut, admin, ledger, unreadNotifications }: TopBarProps) {
+  const areas = areasFor({ farmId, admin, ledger });
   return (
     <>
       <header className="bg-moss text-oat">
