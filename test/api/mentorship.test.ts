@@ -288,4 +288,31 @@ describe('mentorship: skills and the record of skills', () => {
     const home = (await apprentice.get('/api/mentorship')).body as MentorshipHomeDto;
     expect(home).toMatchObject({ role: 'apprentice', today: farmToday(), waiting: 1, returned: 0 });
   });
+
+  it('when the admin edits the checklist, then a removed skill leaves the list but keeps its sign-offs for when it returns, and a removed chore can no longer be logged', async () => {
+    const coop = await createTestCoop();
+    const admin = await agentOf(coop.admin);
+    const mentor = await agentOf(coop.member);
+    const apprentice = await agentOf(coop.apprentice);
+    expect((await mentor.put(`/api/mentorship/apprentices/${coop.apprentice.id}/skills/tattooing`).send({ state: 'signed-off', comment: 'Clean and legible' })).status).toBe(200);
+    const { caution: _caution, ...settings } = (await admin.get('/api/mentorship/settings')).body;
+    const withoutTattooing = {
+      ...settings,
+      choreKinds: settings.choreKinds.filter((k: { key: string }) => k.key !== 'grooming'),
+      skills: settings.skills.filter((k: { key: string }) => k.key !== 'tattooing'),
+    };
+    expect((await admin.put('/api/mentorship/settings').send({ ...withoutTattooing, skills: [...withoutTattooing.skills, withoutTattooing.skills[0]] })).status).toBe(400);
+    const saved = await admin.put('/api/mentorship/settings').send(withoutTattooing);
+    expect(saved.status).toBe(200);
+    expect(saved.body.version).toBe(1);
+    expect((await admin.put('/api/mentorship/settings').send(withoutTattooing)).status).toBe(409);
+    const page = (await mentor.get(`/api/mentorship/apprentices/${coop.apprentice.id}`)).body as ApprenticeDetailDto;
+    expect(page.skills.map((s) => s.key)).not.toContain('tattooing');
+    expect((await apprentice.post('/api/mentorship/chores').send({ kind: 'grooming', minutes: 10 })).status).toBe(400);
+
+    const back = await admin.put('/api/mentorship/settings').send({ ...settings, version: 1 });
+    expect(back.status).toBe(200);
+    const restored = ((await mentor.get(`/api/mentorship/apprentices/${coop.apprentice.id}`)).body as ApprenticeDetailDto).skills.find((s) => s.key === 'tattooing');
+    expect(restored).toMatchObject({ state: 'signed-off', comment: 'Clean and legible' });
+  });
 });
