@@ -104,3 +104,6 @@ export const demoFarms: DemoFarm[] = [
 
 /** The apprentice learns under member@demo.test on Hazelrun Rabbitry. */
 export const demoApprentice = { email: 'apprentice@demo.test', name: 'Juniper Ashgrove', mentorEmail: 'member@demo.test' };
+
+/** A second apprentice, learning under priya@demo.test (her own mentor, so each mentor sees only her own). */
+export const demoSecondApprentice = { email: 'apprentice2@demo.test', name: 'Rowan Thistlewood', mentorEmail: 'priya@demo.test' };

@@ -4,7 +4,7 @@ import { hashPassword } from '../packages/server/src/lib/passwords';
 import { createCooperative, findPublicCoop } from '../packages/server/src/modules/coops/coops.service';
 import { createFarm } from '../packages/server/src/modules/farms/farms.service';
 import { createUser } from '../packages/server/src/modules/users/users.service';
-import { DEMO_PASSWORD, demoApprentice, demoCoop, demoFarms } from './demo-coop';
+import { DEMO_PASSWORD, demoApprentice, demoCoop, demoFarms, demoSecondApprentice } from './demo-coop';
 import { withTenant } from '../packages/server/src/db/tenant';
 import { coopHasAnimals } from '../packages/server/src/modules/animals/herd-import.service';
 import { farmDirectoryOf } from '../packages/server/src/modules/farms/farms.service';
@@ -15,6 +15,7 @@ import { loadDemoHealthYield } from './demo-health-yield';
 import { loadDemoHerds } from './demo-herds';
 import { loadDemoLedger } from './demo-ledger';
 import { loadDemoStudShare } from './demo-stud-share';
+import { loadDemoMentorship } from './demo-mentorship';
 
 const appUrl = (process.env.APP_URL ?? 'http://127.0.0.1:3000').replace(/\/$/, '');
 
@@ -45,6 +46,7 @@ export async function loadDemoCoop(): Promise<'loaded' | 'already-present'> {
       await loadDemoGrowOut({ coopId: present.id, farms, keepers, apprenticeId: apprentice?.id ?? null, apprenticeFarmKey }, tx);
       await loadDemoHealthYield({ coopId: present.id, farms, keepers, apprenticeId: apprentice?.id ?? null, apprenticeFarmKey, temperatureUnits }, tx);
       await loadDemoLedger({ coopId: present.id, farms, keepers, appUrl }, tx);
+      await loadApprenticeship(present.id, tx);
     });
     // Stud Share goes through its services, each in a transaction of its own, once the co-op exists.
     await loadDemoStudShare(present.id);
@@ -77,10 +79,27 @@ export async function loadDemoCoop(): Promise<'loaded' | 'already-present'> {
     await loadDemoGrowOut({ coopId: coop.id, farms, keepers, apprenticeId: apprentice.id, apprenticeFarmKey }, tx);
     await loadDemoHealthYield({ coopId: coop.id, farms, keepers, apprenticeId: apprentice.id, apprenticeFarmKey, temperatureUnits }, tx);
     await loadDemoLedger({ coopId: coop.id, farms, keepers, appUrl }, tx);
+    await loadApprenticeship(coop.id, tx);
     return coop.id;
   });
   await loadDemoStudShare(coopId);
   return 'loaded';
+}
+
+/** The second apprentice (added once) and both apprentices' weeks of chores and skills. */
+async function loadApprenticeship(coopId: string, tx: Parameters<typeof findUserByEmail>[1]) {
+  const mentor = await findUserByEmail(demoSecondApprentice.mentorEmail, tx);
+  let second = await findUserByEmail(demoSecondApprentice.email, tx);
+  if (!second && mentor?.farmId) {
+    second = await createUser(
+      { coopId, farmId: mentor.farmId, mentorId: mentor.id, email: demoSecondApprentice.email, name: demoSecondApprentice.name, role: 'apprentice', passwordHash: await hashPassword(DEMO_PASSWORD) },
+      tx,
+    );
+  }
+  const apprentices = [await findUserByEmail(demoApprentice.email, tx), second]
+    .filter((u): u is NonNullable<typeof u> => Boolean(u?.farmId && u.mentorId))
+    .map((u) => ({ id: u.id, farmId: u.farmId!, mentorId: u.mentorId! }));
+  await loadDemoMentorship({ coopId, apprentices }, tx);
 }
 
 const isMain = process.argv[1] && import.meta.url.endsWith(process.argv[1].split('/').pop()!);

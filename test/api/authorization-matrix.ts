@@ -60,7 +60,12 @@ export type Target =
   // Stud Share: a farm-A buck offered (with a fresh farm-A buck not offered yet, a doe of each farm) and a
   // farm-B request for him: waiting, accepted, hand-over recorded by A, lent, return recorded by B; or an
   // accepted stud-service visit.
-  | StudTarget;
+  | StudTarget
+  // Mentorship: a pending chore entry of farm A's apprentice (her mentor is farm A's member), one returned to
+  // her, the apprentice herself. The admin is of farm A but not her mentor.
+  | 'choreA'
+  | 'returnedChoreA'
+  | 'apprenticeA';
 export type Body =
   | 'farmProfile'
   | 'application'
@@ -136,7 +141,14 @@ export type Body =
   | 'studPropose'
   | 'studProposalAnswer'
   | 'studCustodyStep'
-  | 'farmCoordinates';
+  | 'farmCoordinates'
+  // Mentorship.
+  | 'chore'
+  | 'choreResubmit'
+  | 'reviewAccept'
+  | 'acceptMany'
+  | 'skillMark'
+  | 'mentorshipSettings';
 
 export interface MatrixRow {
   method: 'GET' | 'PATCH' | 'DELETE' | 'POST' | 'PUT';
@@ -378,6 +390,22 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'GET', path: '/api/notifications/preferences', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'PUT', path: '/api/notifications/preferences', target: 'none', body: 'notificationPreferences', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'POST', path: '/api/notifications/:notificationId/read', target: 'notificationA', expect: { anonymous: 401, apprentice: 404, member: 200, otherFarmMember: 404, admin: 404, otherCoop: 404 } },
+  // Mentorship: the apprentice logs and corrects; only her mentor decides; the admin reads every apprentice; other co-ops see nothing.
+  { method: 'GET', path: '/api/mentorship', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/mentorship/settings', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'PUT', path: '/api/mentorship/settings', target: 'none', body: 'mentorshipSettings', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/mentorship/choices', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/mentorship/chores', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 403, otherFarmMember: 403, admin: 403, otherCoop: 403 } },
+  { method: 'POST', path: '/api/mentorship/chores', target: 'none', body: 'chore', expect: { anonymous: 401, apprentice: 201, member: 403, otherFarmMember: 403, admin: 403, otherCoop: 403 } },
+  { method: 'PUT', path: '/api/mentorship/chores/:choreId', target: 'returnedChoreA', body: 'choreResubmit', expect: { anonymous: 401, apprentice: 200, member: 403, otherFarmMember: 403, admin: 403, otherCoop: 403 } },
+  { method: 'POST', path: '/api/mentorship/chores/:choreId/photos', target: 'choreA', body: 'photoUpload', expect: { anonymous: 401, apprentice: 201, member: 403, otherFarmMember: 403, admin: 403, otherCoop: 403 } },
+  { method: 'GET', path: '/api/mentorship/review', target: 'none', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'POST', path: '/api/mentorship/review/accept-many', target: 'choreA', body: 'acceptMany', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 403, otherCoop: 404 } },
+  { method: 'POST', path: '/api/mentorship/review/:kind/:choreId', target: 'choreA', body: 'reviewAccept', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 403, otherCoop: 404 } },
+  { method: 'GET', path: '/api/mentorship/apprentices', target: 'none', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/mentorship/apprentices/:apprenticeId', target: 'apprenticeA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'PUT', path: '/api/mentorship/apprentices/:apprenticeId/skills/:skillKey', target: 'apprenticeA', body: 'skillMark', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 403, otherCoop: 404 } },
+  { method: 'GET', path: '/api/mentorship/apprentices/:apprenticeId/record-of-skills', target: 'apprenticeA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
 ];
 
 /**
@@ -395,6 +423,7 @@ export const matrixAreas = [
   { area: 'ledger', paths: /^\/api\/(ledger|card-webhooks)\b/ },
   { area: 'notifications', paths: /^\/api\/notifications\b/ },
   { area: 'stud-share', paths: /^\/api\/stud-share\b/ },
+  { area: 'mentorship', paths: /^\/api\/mentorship\b/ },
 ] as const;
 
 export type MatrixArea = (typeof matrixAreas)[number]['area'];

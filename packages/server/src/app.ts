@@ -36,6 +36,7 @@ import { feedRoutes } from './modules/feed/feed.routes';
 import { performanceRoutes } from './modules/performance/performance.routes';
 import { cardWebhookRoutes, ledgerRoutes } from './modules/ledger/ledger.routes';
 import { studShareRoutes } from './modules/stud-share/stud-share.routes';
+import { mentorshipRoutes } from './modules/mentorship/mentorship.routes';
 import { notificationRoutes } from './modules/notifications/notifications.routes';
 import { configureNotifications } from './modules/notifications/notifications.service';
 
@@ -156,6 +157,7 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
   api.use('/ledger', ledgerRoutes(config));
   api.use('/stud-share', studShareRoutes());
   api.use('/notifications', notificationRoutes());
+  api.use('/mentorship', mentorshipRoutes(config));
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -37,3 +37,5 @@ export * from './ledger';
 export * from './schemas/stud-share.schema';
 export * from './units/distance';
 export * from './notifications';
+export * from './schemas/mentorship.schema';
+export * from './mentorship';

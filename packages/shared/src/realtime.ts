@@ -39,6 +39,8 @@ export const RealtimeEvent = {
   studLoanChanged: 'stud-share:loan-changed',
   /** A notification arrived for the person, or they read some; to their user room only. */
   notificationsChanged: 'notifications:changed',
+  /** An apprentice's entry was sent, reviewed or a skill marked; to the apprentice's and her mentor's user rooms. */
+  mentorshipChanged: 'mentorship:changed',
 } as const;
 
 export interface ServerToClientEvents {
@@ -61,6 +63,7 @@ export interface ServerToClientEvents {
   [RealtimeEvent.studOfferChanged]: (payload: { offerId: string; buckId: string; farmId: string }) => void;
   [RealtimeEvent.studLoanChanged]: (payload: { loanId: string; buckId: string; farmIds: string[]; state: StudLoanState }) => void;
   [RealtimeEvent.notificationsChanged]: (payload: { unread: number; title: string | null; link: string | null }) => void;
+  [RealtimeEvent.mentorshipChanged]: (payload: { apprenticeId: string; what: 'submitted' | 'reviewed' | 'skill' }) => void;
 }
 
 // eslint-disable-next-line @typescript-eslint/no-empty-object-type

@@ -373,6 +373,62 @@ const routes: RouteObject[] = [
                 children: studShareRoutes,
               },
               {
+                // Mentorship: the apprentice's log and skills; the mentor's review queue and apprentices; the admin reads all.
+                path: 'mentorship',
+                lazy: async () => ({ Component: (await import('../routes/mentorship/mentorship-layout')).MentorshipLayout }),
+                children: [
+                  {
+                    index: true,
+                    lazy: async () => {
+                      const { loader, LogChorePage } = await import('../routes/mentorship/log-chore');
+                      return { loader, Component: LogChorePage };
+                    },
+                  },
+                  {
+                    path: 'log',
+                    lazy: async () => {
+                      const { loader, MyLogPage } = await import('../routes/mentorship/my-log');
+                      return { loader, Component: MyLogPage };
+                    },
+                  },
+                  {
+                    path: 'skills',
+                    lazy: async () => {
+                      const { loader, MySkillsPage } = await import('../routes/mentorship/my-skills');
+                      return { loader, Component: MySkillsPage };
+                    },
+                  },
+                  {
+                    path: 'review',
+                    lazy: async () => {
+                      const { loader, ReviewPage } = await import('../routes/mentorship/review');
+                      return { loader, Component: ReviewPage };
+                    },
+                  },
+                  {
+                    path: 'apprentices',
+                    lazy: async () => {
+                      const { loader, ApprenticesPage } = await import('../routes/mentorship/apprentices');
+                      return { loader, Component: ApprenticesPage };
+                    },
+                  },
+                  {
+                    path: 'settings',
+                    lazy: async () => {
+                      const { loader, MentorshipSettingsPage } = await import('../routes/mentorship/settings');
+                      return { loader, Component: MentorshipSettingsPage };
+                    },
+                  },
+                  {
+                    path: 'apprentices/:apprenticeId',
+                    lazy: async () => {
+                      const { loader, ApprenticePage } = await import('../routes/mentorship/apprentice');
+                      return { loader, Component: ApprenticePage };
+                    },
+                  },
+                ],
+              },
+              {
                 // The co-op admin's area: applications, members, audit log, rules. Its loader turns non-admins away.
                 path: 'admin',
                 lazy: async () => {

@@ -100,7 +100,7 @@ export type HerdImportStreamLine =
   | { type: 'result'; status: number; body: HerdImportDto }
   | { type: 'error'; status: number; body: { error: { code: string; message: string; details?: Record<string, string[]> } } };
 
-export type PhotoSubject = 'animal' | 'farm';
+export type PhotoSubject = 'animal' | 'farm' | 'chore';
 
 export interface PhotoDto {
   id: string;

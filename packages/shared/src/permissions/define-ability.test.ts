@@ -33,7 +33,12 @@ describe('defineAbilityFor (the brief\'s role table)', () => {
     expect(a.can('read', otherCoop('PedigreeCard'))).toBe(false);
     expect(a.can('create', subjectOf('Loan', { coopId }))).toBe(true);
     expect(a.can('book', subjectOf('ProcessingDay', { coopId }))).toBe(true);
-    expect(a.can('review', own('ChoreLog'))).toBe(true);
+    // A mentor reviews her own apprentices' chores; a farm-mate's apprentice is her mentor's to review.
+    expect(a.can('review', own('ChoreLog', { mentorId: member.id }))).toBe(true);
+    expect(a.can('review', own('ChoreLog', { mentorId: 'u-other-member' }))).toBe(false);
+    expect(a.can('review', subjectOf('SkillRecord', { coopId, apprenticeId: apprentice.id, mentorId: member.id }))).toBe(true);
+    expect(a.can('review', subjectOf('SkillRecord', { coopId, apprenticeId: 'u-app-2', mentorId: 'u-other-member' }))).toBe(false);
+    expect(a.can('manage', subjectOf('MentorshipSettings', { coopId }))).toBe(false);
     expect(a.can('read', own('Money'))).toBe(true);
     expect(a.can('manage', subjectOf('Application', { coopId }))).toBe(false);
     expect(a.can('manage', subjectOf('Membership', { coopId }))).toBe(false);
@@ -55,6 +60,8 @@ describe('defineAbilityFor (the brief\'s role table)', () => {
     expect(a.can('create', own('ChoreLog', { authorId: apprentice.id }))).toBe(true);
     expect(a.can('create', own('ChoreLog', { authorId: 'someone-else' }))).toBe(false);
     expect(a.can('review', own('ChoreLog', { authorId: apprentice.id }))).toBe(false);
+    expect(a.can('read', subjectOf('SkillRecord', { coopId, apprenticeId: apprentice.id, mentorId: 'u-member' }))).toBe(true);
+    expect(a.can('review', subjectOf('SkillRecord', { coopId, apprenticeId: apprentice.id, mentorId: 'u-member' }))).toBe(false);
     for (const [action, type] of [
       ['trade', 'Animal'], ['lend', 'Animal'], ['create', 'Trade'], ['create', 'Loan'], ['book', 'ProcessingDay'],
       ['manage', 'Application'], ['manage', 'Membership'], ['read', 'AuditEvent'], ['create', 'User'],

@@ -58,6 +58,10 @@ export type SubjectName =
   | 'ProcessingRecord'
   | 'Performance'
   | 'ChoreLog'
+  /** An apprentice's skills and their sign-offs: `{ apprenticeId, mentorId, coopId }`. */
+  | 'SkillRecord'
+  /** The co-op's chore kinds, skills checklist and roster rule. */
+  | 'MentorshipSettings'
   | 'StudListing'
   | 'Loan'
   | 'Trade'
@@ -135,8 +139,10 @@ export function defineAbilityFor(user: AbilityUser | null): AppAbility {
       // Weigh-ins and notes of their own that wait for the mentor's review.
       can('create', ['WeighIn', 'AnimalNote'], { farmId, enteredBy: user.id });
       can('read', ['WeighIn', 'AnimalNote'], { farmId });
-      can('create', 'ChoreLog', { farmId, authorId: user.id });
+      // Her own chore log and skills; she sends entries for review and corrects returned ones.
+      can(['create', 'update'], 'ChoreLog', { farmId, authorId: user.id });
       can('read', 'ChoreLog', { farmId, authorId: user.id });
+      can('read', 'SkillRecord', { apprenticeId: user.id });
       // The mentor's Almanac and litters: read all of it; tick tasks off and record litter counts, which
       // wait for the mentor's review. No planning (services, settings), no calendar feed, no fostering.
       can('read', ['CycleSettings', 'Service', 'Treatment', 'AlmanacTask', 'Litter', 'LitterEvent', 'HousingUnit'], { farmId });
@@ -164,7 +170,9 @@ export function defineAbilityFor(user: AbilityUser | null): AppAbility {
     can('manage', 'Animal', { owningFarmId: farmId });
     can('read', 'Animal', { keepingFarmId: farmId });
     can(['create', 'read', 'update', 'review'], ['WeighIn', 'AnimalNote'], { farmId });
-    can(['read', 'review'], 'ChoreLog', { farmId });
+    // A mentor reads and reviews her own apprentices' log and skills only, not another member's apprentices.
+    can(['read', 'review'], 'ChoreLog', { farmId, mentorId: user.id });
+    can(['read', 'review'], 'SkillRecord', { mentorId: user.id });
     can('manage', 'StudListing', { farmId });
     // A loan belongs to both farms: the buck's owning farm and the one that asked for him (the service
     // decides which side may take which step).
@@ -207,6 +215,9 @@ export function defineAbilityFor(user: AbilityUser | null): AppAbility {
     can('manage', 'ProcessingDay', { coopId });
     can('create', 'Breed', { coopId });
     can('merge', 'OutsideAnimal', { coopId });
+    // Helps every apprentice of the co-op: reads their logs and skills (the mentor decides), edits the checklist.
+    can('read', ['ChoreLog', 'SkillRecord'], { coopId });
+    can('manage', 'MentorshipSettings', { coopId });
   }
 
   return build();

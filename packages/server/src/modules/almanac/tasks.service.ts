@@ -284,8 +284,14 @@ export async function bulkUpdateTasks(actor: SessionUser, input: TaskBulkInput):
 
 /** A member accepts an apprentice's tick, or returns it with a comment (the task is open again). */
 export async function reviewTask(actor: SessionUser, taskId: string, input: EntryReviewInput): Promise<AlmanacTaskDto> {
+  farmOf(actor);
+  return withTenant(actor, (tx) => reviewTaskIn(tx, actor, taskId, input));
+}
+
+/** The same review inside the caller's transaction (the mentor's queue decides many at once). */
+export async function reviewTaskIn(tx: Transaction, actor: SessionUser, taskId: string, input: EntryReviewInput): Promise<AlmanacTaskDto> {
   const farmId = farmOf(actor);
-  return withTenant(actor, async (tx) => {
+  {
     const [task] = await loadForChange(tx, actor, [taskId]);
     ensureCan(actor, 'review', 'AlmanacTask', { farmId }, 'That task', 'The mentor reviews an apprentice\'s ticks');
     if (task!.version !== input.version) throw AppError.staleVersion();
@@ -304,5 +310,5 @@ export async function reviewTask(actor: SessionUser, taskId: string, input: Entr
     const clock = await farmClockOf(tx, actor.coopId, farmId);
     const [presented] = await presentTasks(tx, actor.coopId, [task!], clock.today);
     return presented!;
-  });
+  }
 }

@@ -56,7 +56,12 @@ async function animalOnActorsFarm(actor: SessionUser, animalId: string, tx: Tran
 
 /** Records a weigh-in of an animal or a group on the actor's farm. */
 export async function createWeighIn(actor: SessionUser, input: WeighInCreateInput): Promise<WeighInDto> {
-  return withTenant(actor, async (tx) => {
+  return withTenant(actor, (tx) => createWeighInIn(tx, actor, input));
+}
+
+/** A weigh-in inside the caller's transaction (an apprentice's chore entry carries one); the same checks. */
+export async function createWeighInIn(tx: Transaction, actor: SessionUser, input: WeighInCreateInput): Promise<WeighInDto> {
+  {
     if (input.id) {
       const existing = await WeighIn.findOne({ where: { id: input.id }, paranoid: false, transaction: tx });
       if (existing && existing.farmId === actor.farmId && existing.enteredBy === actor.id) {
@@ -91,7 +96,7 @@ export async function createWeighIn(actor: SessionUser, input: WeighInCreateInpu
     );
     announceAfterCommit(tx, actor.coopId, { farmIds: [farmId], animalId: weighIn.animalId, figuresChanged: 0 });
     return presentWeighIn(weighIn, await namesOf([actor.id], tx));
-  });
+  }
 }
 
 /**
@@ -152,11 +157,25 @@ async function review<T extends WeighIn | AnimalNote>(
 
 /** The mentor (a member of the farm) accepts or returns an apprentice's weigh-in. */
 export async function reviewWeighIn(actor: SessionUser, weighInId: string, input: EntryReviewInput): Promise<WeighInDto> {
-  return withTenant(actor, async (tx) => {
-    const entry = await WeighIn.findOne({ where: { id: weighInId, coopId: actor.coopId }, transaction: tx, lock: tx.LOCK.UPDATE });
-    const reviewed = await review(actor, tx, entry, 'WeighIn', input);
-    return presentWeighIn(reviewed, await namesOf([reviewed.enteredBy], tx));
+  return withTenant(actor, (tx) => reviewWeighInIn(tx, actor, weighInId, input));
+}
+
+/** The same review inside the caller's transaction (the mentor's queue decides many at once). */
+export async function reviewWeighInIn(tx: Transaction, actor: SessionUser, weighInId: string, input: EntryReviewInput): Promise<WeighInDto> {
+  const entry = await WeighIn.findOne({ where: { id: weighInId, coopId: actor.coopId }, transaction: tx, lock: tx.LOCK.UPDATE });
+  const reviewed = await review(actor, tx, entry, 'WeighIn', input);
+  return presentWeighIn(reviewed, await namesOf([reviewed.enteredBy], tx));
+}
+
+/** Weigh-ins by id as the mentor's queue and the apprentice's log show them (weights and whom they weigh). */
+export async function weighInFactsOf(
+  tx: Transaction, coopId: string, ids: string[],
+): Promise<Map<string, { id: string; totalGrams: number; headCount: number; animalId: string | null; groupId: string | null; reviewState: ReviewState; version: number }>> {
+  if (ids.length === 0) return new Map();
+  const rows = await WeighIn.findAll({
+    where: { coopId, id: { [Op.in]: [...new Set(ids)] } }, attributes: ['id', 'totalGrams', 'headCount', 'animalId', 'groupId', 'reviewState', 'version'], paranoid: false, transaction: tx, raw: true,
   });
+  return new Map(rows.map((r) => [r.id, { id: r.id, totalGrams: r.totalGrams, headCount: r.headCount, animalId: r.animalId ?? null, groupId: r.groupId ?? null, reviewState: r.reviewState, version: r.version }]));
 }
 
 /** A dated note about an animal on the actor's farm; an apprentice's waits for review. */
@@ -177,9 +196,12 @@ export async function createAnimalNote(actor: SessionUser, animalId: string, inp
 }
 
 export async function reviewAnimalNote(actor: SessionUser, noteId: string, input: EntryReviewInput): Promise<AnimalNoteDto> {
-  return withTenant(actor, async (tx) => {
-    const entry = await AnimalNote.findOne({ where: { id: noteId, coopId: actor.coopId }, transaction: tx, lock: tx.LOCK.UPDATE });
-    const reviewed = await review(actor, tx, entry, 'AnimalNote', input);
-    return presentNote(reviewed, await namesOf([reviewed.enteredBy], tx));
-  });
+  return withTenant(actor, (tx) => reviewAnimalNoteIn(tx, actor, noteId, input));
+}
+
+/** The same review inside the caller's transaction (the mentor's queue). */
+export async function reviewAnimalNoteIn(tx: Transaction, actor: SessionUser, noteId: string, input: EntryReviewInput): Promise<AnimalNoteDto> {
+  const entry = await AnimalNote.findOne({ where: { id: noteId, coopId: actor.coopId }, transaction: tx, lock: tx.LOCK.UPDATE });
+  const reviewed = await review(actor, tx, entry, 'AnimalNote', input);
+  return presentNote(reviewed, await namesOf([reviewed.enteredBy], tx));
 }

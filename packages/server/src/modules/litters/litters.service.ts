@@ -205,7 +205,13 @@ async function checkWeaningWeight(
  */
 export async function recordLitterEvent(actor: SessionUser, litterId: string, input: LitterEventCreateInput): Promise<LitterDto> {
   farmOf(actor);
-  return withTenant(actor, async (tx) => {
+  return withTenant(actor, (tx) => recordLitterEventIn(tx, actor, litterId, input));
+}
+
+/** The same event inside the caller's transaction (an apprentice's chore entry carries one); the same checks. */
+export async function recordLitterEventIn(tx: Transaction, actor: SessionUser, litterId: string, input: LitterEventCreateInput): Promise<LitterDto> {
+  farmOf(actor);
+  {
     const litter = await litterFor(tx, actor, litterId, true);
     ensureCan(actor, 'create', 'LitterEvent', { farmId: litter.farmId, enteredBy: actor.id }, 'That litter');
     if (input.id) {
@@ -229,7 +235,7 @@ export async function recordLitterEvent(actor: SessionUser, litterId: string, in
     if (pending.reviewState === 'accepted') await settleEmptiedLitter(tx, litter, record, input.on, input.kind === 'weaned', actor.id);
     announceLitter(tx, [{ farmId: litter.farmId, litterId: litter.id }]);
     return litterDetail(tx, actor, litter);
-  });
+  }
 }
 
 /**
@@ -293,7 +299,13 @@ export async function recordFostering(actor: SessionUser, litterId: string, inpu
 /** A member accepts an apprentice's litter count, or returns it with a comment (then it no longer counts). */
 export async function reviewLitterEvent(actor: SessionUser, eventId: string, input: EntryReviewInput): Promise<LitterDto> {
   farmOf(actor);
-  return withTenant(actor, async (tx) => {
+  return withTenant(actor, (tx) => reviewLitterEventIn(tx, actor, eventId, input));
+}
+
+/** The same review inside the caller's transaction (the mentor's queue decides many at once). */
+export async function reviewLitterEventIn(tx: Transaction, actor: SessionUser, eventId: string, input: EntryReviewInput): Promise<LitterDto> {
+  farmOf(actor);
+  {
     const event = await LitterEvent.findOne({ where: { id: eventId, coopId: actor.coopId }, transaction: tx, lock: tx.LOCK.UPDATE });
     if (!event || event.farmId !== actor.farmId) throw AppError.notFound('That entry');
     ensureCan(actor, 'review', 'LitterEvent', { farmId: event.farmId, enteredBy: event.enteredBy }, 'That entry', "The mentor reviews an apprentice's entries");
@@ -310,7 +322,7 @@ export async function reviewLitterEvent(actor: SessionUser, eventId: string, inp
     }
     announceLitter(tx, [{ farmId: litter!.farmId, litterId: litter!.id }]);
     return litterDetail(tx, actor, litter!);
-  });
+  }
 }
 
 export async function getLitter(actor: SessionUser, litterId: string): Promise<LitterDto> {

@@ -8,6 +8,7 @@ export class Photo extends Model<InferAttributes<Photo>, InferCreationAttributes
   declare farmId: string;
   declare subject: PhotoSubject;
   declare animalId: string | null;
+  declare choreEntryId: CreationOptional<string | null>;
   declare storageKey: string;
   declare thumbnailKey: string;
   declare contentType: string;
@@ -28,6 +29,7 @@ export class Photo extends Model<InferAttributes<Photo>, InferCreationAttributes
         id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
         coopId: { type: DataTypes.UUID, allowNull: false },
         farmId: { type: DataTypes.UUID, allowNull: false },
+        choreEntryId: { type: DataTypes.UUID, allowNull: true },
         subject: { type: DataTypes.TEXT, allowNull: false },
         animalId: { type: DataTypes.UUID, allowNull: true },
         storageKey: { type: DataTypes.TEXT, allowNull: false },

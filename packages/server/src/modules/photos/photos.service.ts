@@ -14,7 +14,7 @@ import { publish } from '../../lib/realtime';
 import { storage } from '../../lib/storage';
 import { animalAccess, privateRecordFarmsOf, type AnimalAccess } from '../animals/animal-facts.service';
 import { findFarmRef } from '../farms/farms.service';
-import { namesOf } from '../users/users.service';
+import { findUser, namesOf } from '../users/users.service';
 import { Photo } from './photo.model';
 import { photoTypes, preparePhoto, type PreparedPhoto } from './photo-images';
 import { presentPhoto } from './photos.presenter';
@@ -204,6 +204,15 @@ async function photoForViewer(actor: SessionUser, photoId: string, tx: Transacti
     if (change && !access.canUpdate) throw new AppError(ErrorCode.forbidden, 403, "Only the animal's own farm changes its photos");
     return { photo, access, label: access.tattoo ?? 'animal' };
   }
+  if (photo.subject === 'chore') {
+    // An apprentice's chore photo: hers, her mentor's and the admin's to see, like her chore log.
+    const apprentice = photo.uploadedBy ? await findUser(photo.uploadedBy, tx) : null;
+    const ability = defineAbilityFor(actor);
+    const record = { coopId: photo.coopId, farmId: photo.farmId, authorId: photo.uploadedBy, mentorId: apprentice?.mentorId ?? null };
+    if (!ability.can('read', subjectOf('ChoreLog', record))) throw AppError.notFound('That photo');
+    if (change) throw new AppError(ErrorCode.forbidden, 403, 'A chore\'s photos stay as they were sent for review');
+    return { photo, access: null, label: 'chore' };
+  }
   await farmFor(actor, photo.farmId, tx, change);
   return { photo, access: null, label: 'farm' };
 }
@@ -312,4 +321,50 @@ export async function removeFarmPhoto(actor: SessionUser, farmId: string): Promi
     removeFilesAfterCommit(tx, photos);
     if (photos.length > 0) tx.afterCommit(() => publish(rooms.coop(actor.coopId), RealtimeEvent.farmUpdated, { farmId: farm.id }));
   });
+}
+
+/** The photos of chore entries, oldest first, by entry. */
+export async function chorePhotoIdsOf(tx: Transaction, coopId: string, choreEntryIds: string[]): Promise<Map<string, string[]>> {
+  const out = new Map<string, string[]>();
+  if (choreEntryIds.length === 0) return out;
+  const rows = await Photo.findAll({
+    where: { coopId, subject: 'chore', choreEntryId: { [Op.in]: [...new Set(choreEntryIds)] } },
+    attributes: ['id', 'choreEntryId'], order: [['createdAt', 'ASC'], ['id', 'ASC']], transaction: tx, raw: true,
+  });
+  for (const r of rows) out.set(r.choreEntryId!, [...(out.get(r.choreEntryId!) ?? []), r.id]);
+  return out;
+}
+
+/**
+ * Adds photos to an apprentice's chore entry: the same checks and re-encoding as an animal's; `entryOf`
+ * (the mentorship module) says inside the transaction whose entry it is and refuses anyone else.
+ */
+export async function addChorePhotos(
+  actor: SessionUser,
+  entryOf: (tx: Transaction) => Promise<{ id: string; farmId: string }>,
+  input: { files: UploadedFile[]; caption: string },
+  limits: PhotoLimits,
+): Promise<PhotoDto[]> {
+  const prepared = await prepareAll(input.files, limits);
+  return storeThen(actor.coopId, prepared, (ids) =>
+    withTenant(actor, async (tx) => {
+      const entry = await entryOf(tx);
+      await lockUntilCommit(tx, `photos:${entry.id}`);
+      const count = await Photo.count({ where: { choreEntryId: entry.id, subject: 'chore' }, transaction: tx });
+      if (count + prepared.length > limits.photosPerUpload) {
+        throw AppError.validation({ photos: [`A chore entry may have at most ${limits.photosPerUpload} photos`] }, `At most ${limits.photosPerUpload} photos per entry`);
+      }
+      const now = Date.now();
+      const rows = await Photo.bulkCreate(
+        prepared.map((photo, i) => ({
+          id: ids[i]!, createdAt: new Date(now + i), coopId: actor.coopId, farmId: entry.farmId, subject: 'chore' as const, animalId: null,
+          choreEntryId: entry.id, ...keysOf(actor.coopId, ids[i]!, photo), contentType: photo.contentType, byteSize: photo.image.length,
+          thumbnailByteSize: photo.thumbnail.length, width: photo.width, height: photo.height, checksum: photo.checksum, caption: input.caption,
+          uploadedBy: actor.id,
+        })),
+        { transaction: tx },
+      );
+      return present(rows, tx);
+    }),
+  );
 }

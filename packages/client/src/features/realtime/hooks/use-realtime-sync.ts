@@ -15,6 +15,7 @@ import { litterKeys } from '../../litters';
 import { auditKeys, memberKeys } from '../../members';
 import { performanceKeys } from '../../performance';
 import { ledgerKeys } from '../../ledger';
+import { mentorshipKeys } from '../../mentorship';
 import { notificationKeys, type LatestNotification } from '../../notifications';
 import { studShareKeys } from '../../stud-share';
 
@@ -101,7 +102,10 @@ export function useRealtimeSync(): void {
           refreshAlmanac();
         }
       };
+      // An apprentice's entry was sent or reviewed, or a skill marked: her log, the mentor's queue, the pages.
+      const refreshMentorship = () => void queryClient.invalidateQueries({ queryKey: mentorshipKeys.all });
       const refreshAll = () => {
+        refreshMentorship();
         refreshNotifications();
         refreshFarms();
         refreshLitters();
@@ -140,6 +144,7 @@ export function useRealtimeSync(): void {
       socket.on(RealtimeEvent.notificationsChanged, notificationsChanged);
       socket.on(RealtimeEvent.studOfferChanged, refreshStudOffers);
       socket.on(RealtimeEvent.studLoanChanged, refreshStudLoans);
+      socket.on(RealtimeEvent.mentorshipChanged, refreshMentorship);
       socket.on(RealtimeEvent.sessionEnded, endSession);
       // Events sent while the connection was down are lost; refetch what they would have refreshed.
       socket.io.on('reconnect', refreshAll);
@@ -163,6 +168,7 @@ export function useRealtimeSync(): void {
         socket.off(RealtimeEvent.notificationsChanged, notificationsChanged);
         socket.off(RealtimeEvent.studOfferChanged, refreshStudOffers);
         socket.off(RealtimeEvent.studLoanChanged, refreshStudLoans);
+        socket.off(RealtimeEvent.mentorshipChanged, refreshMentorship);
         socket.off(RealtimeEvent.sessionEnded, endSession);
         socket.io.off('reconnect', refreshAll);
         disconnectRealtime();

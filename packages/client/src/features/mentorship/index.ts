@@ -1,0 +1,2 @@
+export { mentorshipKeys } from './api/keys';
+export { MentorshipSummary } from './components/mentorship-summary';

@@ -1,0 +1,2 @@
+export * from './mentorship-defaults';
+export * from './mentorship-dto';

@@ -1,0 +1,87 @@
+import { describe, expect, it } from 'vitest';
+import type { GrowOutGroupDto } from '@burrowline/shared';
+import { farmToday } from '../support/almanac';
+import { browserTestApp, collectPageErrors, openBrowser, sidewaysScroll } from '../support/browser';
+import { createTestCoop, TEST_PASSWORD } from '../support/factories';
+import { testImage } from '../support/herd-files';
+import { growingGroupAs } from '../support/mentorship';
+
+const app = browserTestApp(TEST_PASSWORD);
+
+describe('journey 3: an apprentice logs, her mentor reviews and signs off', () => {
+  it('when the apprentice logs a weighing with a photo, then her mentor sees it live, returns it, the apprentice corrects it, and once accepted and signed off the group\'s figures include it', async () => {
+    const coop = await createTestCoop();
+    const group = await growingGroupAs(coop.member);
+    const phone = await openBrowser({ width: 390, height: 844 });
+    const desk = await openBrowser({ width: 1280, height: 900 });
+    const apprentice = phone.page;
+    const mentor = desk.page;
+    const errors = [...collectPageErrors(apprentice), ...collectPageErrors(mentor)];
+    try {
+      await app.signIn(mentor, coop.member.email);
+      await mentor.goto(`${app.url}/mentorship/review`);
+      await mentor.getByRole('heading', { name: 'Review', level: 1 }).waitFor();
+      await mentor.getByText('Nothing waits for review.').waitFor();
+
+      // The apprentice in the barn: the chore, the group, the weight, a photo, send (15 minutes is chosen already).
+      await app.signIn(apprentice, coop.apprentice.email);
+      await apprentice.goto(`${app.url}/mentorship`);
+      await apprentice.getByRole('heading', { name: 'Log a chore', level: 1 }).waitFor();
+      await apprentice.getByRole('button', { name: 'Weighing', exact: true }).click();
+      await apprentice.getByLabel('About').selectOption(`group:${group.id}`);
+      await apprentice.getByLabel('Weight on the scale (g)').fill('7600');
+      await apprentice.getByLabel('Head count').fill('8');
+      await apprentice.getByLabel('Photos').setInputFiles({ name: 'scale.jpg', mimeType: 'image/jpeg', buffer: await testImage('jpeg') });
+      expect(await sidewaysScroll(apprentice)).toBeLessThanOrEqual(0);
+      await apprentice.getByRole('button', { name: 'Send for review' }).click();
+      await apprentice.getByText('Sent to your mentor for review.').waitFor();
+
+      // It arrives on the mentor's open queue without a reload, with its photo.
+      const card = mentor.getByRole('article', { name: `Weighing on ${farmToday()}` });
+      await card.waitFor();
+      await card.getByText('Weight: 7,600 g for 8 head').waitFor();
+      await card.getByRole('img', { name: 'Photo of weighing' }).waitFor();
+      await card.getByRole('button', { name: 'Return…' }).click();
+      await card.getByLabel('What should she correct?').fill('That includes the carrier: weigh them again without it');
+      await card.getByRole('button', { name: 'Return to her' }).click();
+      await card.waitFor({ state: 'detached' });
+
+      // The apprentice reads the comment and corrects the weight.
+      await apprentice.goto(`${app.url}/mentorship/log?state=returned`);
+      const returned = apprentice.getByRole('article', { name: `Weighing on ${farmToday()}` });
+      await returned.getByText('That includes the carrier: weigh them again without it').waitFor();
+      await returned.getByLabel('Corrected weight (g)').fill('7200');
+      await returned.getByRole('button', { name: 'Send corrected entry' }).click();
+      await apprentice.getByText('Nothing here.').waitFor();
+
+      // Back in the mentor's queue, live; accepted, the weight enters the group's figures.
+      await card.getByText('Weight: 7,200 g for 8 head').waitFor();
+      const before = await mentor.request.get(`${app.url}/api/grow-out/groups/${group.id}`);
+      expect(((await before.json()) as GrowOutGroupDto).latest).toBeNull();
+      await card.getByRole('button', { name: 'Accept', exact: true }).click();
+      await card.waitFor({ state: 'detached' });
+      const after = (await (await mentor.request.get(`${app.url}/api/grow-out/groups/${group.id}`)).json()) as GrowOutGroupDto;
+      expect(after.latest).toEqual({ weighedOn: farmToday(), gramsPerHead: 900 });
+
+      // The mentor signs off "weighing and recording" on her apprentice's page.
+      await mentor.goto(`${app.url}/mentorship/apprentices/${coop.apprentice.id}`);
+      const skill = mentor.getByRole('listitem').filter({ has: mentor.getByRole('heading', { name: 'Weighing and recording' }) });
+      await skill.getByRole('button', { name: 'Sign off…' }).click();
+      await skill.getByLabel('Comment').fill('Tares the scale and records the same day');
+      await skill.getByRole('checkbox').first().check();
+      await skill.getByRole('button', { name: 'Sign off', exact: true }).click();
+      await skill.getByText(`Signed off · ${farmToday()}`).waitFor();
+
+      // The apprentice's skills show it; the group's page shows the accepted weight.
+      await apprentice.goto(`${app.url}/mentorship/skills`);
+      await apprentice.getByRole('listitem').filter({ has: apprentice.getByRole('heading', { name: 'Weighing and recording' }) }).getByText(`Signed off · ${farmToday()}`).waitFor();
+      expect(await sidewaysScroll(apprentice)).toBeLessThanOrEqual(0);
+      await mentor.goto(`${app.url}/grow-out`);
+      await mentor.getByText(group.name).first().waitFor();
+      expect(errors).toEqual([]);
+    } finally {
+      await phone.close();
+      await desk.close();
+    }
+  });
+});
