@@ -37,6 +37,8 @@ import { performanceRoutes } from './modules/performance/performance.routes';
 import { cardWebhookRoutes, ledgerRoutes } from './modules/ledger/ledger.routes';
 import { notificationRoutes } from './modules/notifications/notifications.routes';
 import { configureNotifications } from './modules/notifications/notifications.service';
+import { chatRoutes, registerChatSocketEvents } from './modules/chat/chat.routes';
+import { configureChat } from './modules/chat/chat.service';
 
 const defaultClientDist = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../client/dist');
 
@@ -56,6 +58,8 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
   configureMailer(config.smtp);
   configureMailOutbox({ retryDelaySeconds: config.mail.retryDelaySeconds });
   configureNotifications({ appUrl: config.appUrl });
+  configureChat(config.chat);
+  registerChatSocketEvents();
   // Queued e-mail goes out from every process that serves the app (several instances share the queue).
   const stopMailWorker = config.mail.worker ? startMailWorker({ connectionString: config.databaseUrl, pollingIntervalSeconds: config.mail.pollingIntervalSeconds }) : null;
   configureStorage({ dir: config.uploads.dir });
@@ -153,6 +157,8 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
   // The Ledger: fees and balances between farms and the co-op, statements, dues and card payments.
   api.use('/ledger', ledgerRoutes(config));
   api.use('/notifications', notificationRoutes());
+  // Co-op Chat: the channel, topics and the threads beside litters, processing days and loans.
+  api.use('/chat', chatRoutes());
   api.use(apiNotFound);
   app.use('/api', api);
 

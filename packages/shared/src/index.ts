@@ -35,3 +35,4 @@ export * from './text/count-of';
 export * from './schemas/ledger.schema';
 export * from './ledger';
 export * from './notifications';
+export * from './chat';

@@ -7,6 +7,8 @@ import { groupFeedTotals, processedHeadsOfGroups } from '../modules/grow-out/gro
 import { groupsOfFarm } from '../modules/grow-out/grow-out-facts.service';
 import { kindlingDaysOfDams } from '../modules/litters/litter-facts.service';
 import { processedHeadsOf } from '../modules/processing/processing.service';
+import { registerThreadSubject } from '../modules/chat/chat-subjects.service';
+import { litterThreadSubject } from '../modules/litters/litter-thread.service';
 
 let plugged = false;
 
@@ -25,5 +27,7 @@ export function plugModulePorts(): void {
   damKindlingDays.plug(kindlingDaysOfDams);
   groupFeedTotals.plug(feedTotalsByGroup);
   processedHeadsOfGroups.plug(processedHeadsOf);
+  // Co-op Chat's threads beside subjects: who reads the subject reads its thread.
+  registerThreadSubject('litter', litterThreadSubject);
   groupNamesOfFarm.plug(async (tx, coopId, farmId) => new Map((await groupsOfFarm(tx, coopId, farmId)).map((g) => [g.id, g.name])));
 }
