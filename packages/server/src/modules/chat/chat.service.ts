@@ -401,7 +401,7 @@ export async function hideMessage(actor: SessionUser, messageId: string, input: 
     if (message.deleted_at) throw AppError.conflict('That message was removed by its author');
     if (!message.hidden_at) {
       await q(tx, `UPDATE chat_messages SET hidden_at = now(), hidden_by = $2, hidden_reason = $3 WHERE id = $1`, [messageId, actor.id, input.reason]);
-      await recordAudit({ coopId: actor.coopId, actorUserId: actor.id, action: 'chat.message-hidden', subjectType: 'ChatMessage', subjectId: messageId, details: { reason: input.reason, authorId: message.author_id } }, tx);
+      await recordAudit({ coopId: actor.coopId, actorUserId: actor.id, action: 'chat_message.hidden', subjectType: 'ChatMessage', subjectId: messageId, details: { reason: input.reason, authorId: message.author_id } }, tx);
       await notify(tx, {
         coopId: actor.coopId,
         userIds: [message.author_id],
@@ -505,7 +505,7 @@ export async function mutePerson(actor: SessionUser, input: ChatMuteInput): Prom
       tx, `INSERT INTO chat_mutes (coop_id, user_id, muted_by, until, reason) VALUES ($1, $2, $3, now() + make_interval(mins => $4), $5) RETURNING until`,
       [actor.coopId, person.id, actor.id, input.minutes, input.reason],
     );
-    await recordAudit({ coopId: actor.coopId, actorUserId: actor.id, action: 'chat.person-muted', subjectType: 'User', subjectId: person.id, details: { minutes: input.minutes, reason: input.reason } }, tx);
+    await recordAudit({ coopId: actor.coopId, actorUserId: actor.id, action: 'chat_mute.created', subjectType: 'User', subjectId: person.id, details: { minutes: input.minutes, reason: input.reason } }, tx);
     return { userId: person.id, name: person.name, until: mute!.until.toISOString(), reason: input.reason };
   });
 }
@@ -515,7 +515,7 @@ export async function liftMute(actor: SessionUser, userId: string): Promise<{ li
   return withTenant(actor, async (tx) => {
     refuseUnlessModerator(actor);
     const rows = await q<{ id: string }>(tx, `UPDATE chat_mutes SET lifted_at = now() WHERE user_id = $1 AND lifted_at IS NULL AND until > now() RETURNING id`, [userId]);
-    if (rows.length > 0) await recordAudit({ coopId: actor.coopId, actorUserId: actor.id, action: 'chat.person-unmuted', subjectType: 'User', subjectId: userId }, tx);
+    if (rows.length > 0) await recordAudit({ coopId: actor.coopId, actorUserId: actor.id, action: 'chat_mute.lifted', subjectType: 'User', subjectId: userId }, tx);
     return { lifted: rows.length };
   });
 }
