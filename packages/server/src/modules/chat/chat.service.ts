@@ -514,6 +514,8 @@ export async function mutePerson(actor: SessionUser, input: ChatMuteInput): Prom
 export async function liftMute(actor: SessionUser, userId: string): Promise<{ lifted: number }> {
   return withTenant(actor, async (tx) => {
     refuseUnlessModerator(actor);
+    const [person] = await q<{ id: string }>(tx, `SELECT id FROM users WHERE id = $1 AND coop_id = $2`, [userId, actor.coopId]);
+    if (!person) throw AppError.notFound('That person');
     const rows = await q<{ id: string }>(tx, `UPDATE chat_mutes SET lifted_at = now() WHERE user_id = $1 AND lifted_at IS NULL AND until > now() RETURNING id`, [userId]);
     if (rows.length > 0) await recordAudit({ coopId: actor.coopId, actorUserId: actor.id, action: 'chat_mute.lifted', subjectType: 'User', subjectId: userId }, tx);
     return { lifted: rows.length };
