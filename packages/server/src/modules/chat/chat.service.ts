@@ -208,6 +208,20 @@ async function messageRow(tx: Transaction, messageId: string): Promise<MessageRo
 }
 
 /**
+ * The statement of a page: the thread's order index (thread_id, seq) walked from one end, one row more than
+ * the page to tell whether more exist. Public for the bench, which EXPLAINs exactly this statement.
+ */
+export function messagePageQuery(threadId: string, query: ChatMessagesQuery): { sql: string; bind: unknown[] } {
+  const forward = query.after !== undefined;
+  return {
+    sql: forward
+      ? `${MESSAGE_SELECT} WHERE m.thread_id = $1 AND m.seq > $2 ORDER BY m.seq ASC LIMIT $3`
+      : `${MESSAGE_SELECT} WHERE m.thread_id = $1 AND m.seq < $2 ORDER BY m.seq DESC LIMIT $3`,
+    bind: [threadId, forward ? query.after : (query.before ?? Number.MAX_SAFE_INTEGER), query.limit + 1],
+  };
+}
+
+/**
  * A page of the thread: the latest messages, or older ones `before` a seq (keyset paging, never an
  * offset), or what came `after` a seq (catching up after a reconnect). Always oldest first.
  */
@@ -215,18 +229,13 @@ export async function listMessages(actor: SessionUser, threadId: string, query: 
   return withTenant(actor, async (tx) => {
     await readableThread(tx, actor, threadId);
     const forward = query.after !== undefined;
-    const rows = await q<MessageRow>(
-      tx,
-      forward
-        ? `${MESSAGE_SELECT} WHERE m.thread_id = $1 AND m.seq > $2 ORDER BY m.seq ASC LIMIT $3`
-        : `${MESSAGE_SELECT} WHERE m.thread_id = $1 AND m.seq < $2 ORDER BY m.seq DESC LIMIT $3`,
-      [threadId, forward ? query.after : (query.before ?? Number.MAX_SAFE_INTEGER), query.limit + 1],
-    );
+    const page = messagePageQuery(threadId, query);
+    const rows = await q<MessageRow>(tx, page.sql, page.bind);
     const hasMore = rows.length > query.limit;
-    const page = rows.slice(0, query.limit);
-    if (!forward) page.reverse();
+    const items = rows.slice(0, query.limit);
+    if (!forward) items.reverse();
     const viewer = viewerOf(actor);
-    return { items: page.map((row) => presentMessage(row, viewer)), hasMore };
+    return { items: items.map((row) => presentMessage(row, viewer)), hasMore };
   });
 }
 

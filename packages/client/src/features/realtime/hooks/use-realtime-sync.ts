@@ -16,6 +16,7 @@ import { auditKeys, memberKeys } from '../../members';
 import { performanceKeys } from '../../performance';
 import { ledgerKeys } from '../../ledger';
 import { notificationKeys, type LatestNotification } from '../../notifications';
+import { chatKeys } from '../../chat';
 
 /**
  * The one place where server events become cache updates. Mounted by the signed-in layout, so the
@@ -122,11 +123,15 @@ export function useRealtimeSync(): void {
       socket.on(RealtimeEvent.ledgerChanged, refreshLedger);
       socket.on(RealtimeEvent.cardCheckoutSettled, refreshLedger);
       socket.on(RealtimeEvent.notificationsChanged, notificationsChanged);
+      // New chat messages somewhere the person reads (or their own read position moved): unread counts.
+      const refreshChat = () => void queryClient.invalidateQueries({ queryKey: chatKeys.threads() });
+      socket.on(RealtimeEvent.chatActivity, refreshChat);
       socket.on(RealtimeEvent.sessionEnded, endSession);
       // Events sent while the connection was down are lost; refetch what they would have refreshed.
       socket.io.on('reconnect', refreshAll);
       stop = () => {
         socket.off(RealtimeEvent.farmUpdated, refreshFarms);
+        socket.off(RealtimeEvent.chatActivity, refreshChat);
         socket.off(RealtimeEvent.farmCreated, refreshFarms);
         socket.off(RealtimeEvent.applicationCreated, refreshApplications);
         socket.off(RealtimeEvent.applicationUpdated, refreshApplications);
