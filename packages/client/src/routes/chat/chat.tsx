@@ -1,9 +1,22 @@
+import { useSyncExternalStore } from 'react';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import { ChevronLeft } from 'lucide-react';
 import { queryClient } from '../../app/query-client';
 import { PageTitle } from '../../components/ui/page-title';
 import { ChatSearch, ChatThread, ThreadList, useChatThreads } from '../../features/chat';
 import { chatThreadsQueryOptions } from '../../features/chat/api/chat-api';
+
+const wide = typeof window === 'undefined' ? null : window.matchMedia('(min-width: 1024px)');
+/** From 1024 px the list and a thread share the screen (the Tailwind `lg` step). */
+function useWideScreen(): boolean {
+  return useSyncExternalStore(
+    (changed) => {
+      wide?.addEventListener('change', changed);
+      return () => wide?.removeEventListener('change', changed);
+    },
+    () => wide?.matches ?? false,
+  );
+}
 
 export async function loader() {
   await queryClient.ensureQueryData(chatThreadsQueryOptions());
@@ -18,7 +31,9 @@ export function ChatPage() {
   const { threadId } = useParams();
   const navigate = useNavigate();
   const threads = useChatThreads();
-  const shown = threadId ?? threads.data?.items[0]?.id ?? null;
+  const isWide = useWideScreen();
+  // On a phone the list alone shows at /chat: no thread is opened (and so none is marked read) unseen.
+  const shown = threadId ?? (isWide ? (threads.data?.items[0]?.id ?? null) : null);
   const title = threads.data?.items.find((t) => t.id === shown)?.title;
   return (
     <div className="space-y-4">

@@ -22,7 +22,7 @@ function DaySeparator({ iso }: { iso: string }) {
   const key = dayKey(iso);
   const label = key === today ? 'Today' : key === yesterday ? 'Yesterday' : dayLabel.format(new Date(iso));
   return (
-    <li className="sticky top-0 z-[1] my-2 flex justify-center" role="separator" aria-label={label}>
+    <li className="my-2 flex justify-center" role="separator" aria-label={label}>
       <span className="rounded-full bg-grey-100 px-3 py-0.5 text-sm font-semibold text-grey-700">{label}</span>
     </li>
   );
@@ -51,7 +51,8 @@ function ThreadView({ thread, embedded }: ThreadViewProps) {
 
   const markIfAtBottom = useCallback(() => {
     const el = scroller.current;
-    if (!el) return;
+    // A thread not on screen (display: none) has read nothing.
+    if (!el || el.clientHeight === 0) return;
     const atBottom = el.scrollHeight - el.scrollTop - el.clientHeight < NEAR_BOTTOM;
     stick.current = atBottom;
     if (atBottom && lastSeq > lastRead.current && document.visibilityState === 'visible') {

@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { Reply, SmilePlus, Pencil, Trash2, EyeOff, RotateCw, X } from 'lucide-react';
+import { Ellipsis, Reply, SmilePlus, Pencil, Trash2, EyeOff, RotateCw, X } from 'lucide-react';
 import { chatReactionEmoji, chatReactions, CHAT_MESSAGE_MAX, type ChatMessageDto, type ChatReaction } from '@burrowline/shared';
 import { isApiError } from '../../../lib/api-client';
 import { cn } from '../../../lib/cn';
@@ -21,7 +21,7 @@ function Author({ name, farmName, mine }: { name: string; farmName: string | nul
 
 function Quote({ reply }: { reply: NonNullable<ChatMessageDto['replyTo']> }) {
   return (
-    <a href={`#message-${reply.id}`} className="mb-1 block border-l-4 border-grey-300 pl-2 text-sm text-grey-600 hover:text-bark">
+    <a href={`#message-${reply.id}`} className="mb-1 block min-h-11 border-l-4 border-grey-300 py-1 pl-2 text-sm text-grey-600 hover:text-bark">
       <span className="font-semibold">{reply.authorName}</span>: {reply.excerpt ?? <em>message removed</em>}
     </a>
   );
@@ -45,6 +45,7 @@ export function MessageItem({ message, myId, myName, moderates, firstUnread, onR
   const [reason, setReason] = useState('');
   const [error, setError] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
+  const [actionsOpen, setActionsOpen] = useState(false);
 
   const act = async (work: () => Promise<ChatMessageDto>) => {
     setBusy(true);
@@ -52,6 +53,7 @@ export function MessageItem({ message, myId, myName, moderates, firstUnread, onR
     try {
       onChanged(await work());
       setMode('read');
+      setActionsOpen(false);
     } catch (e) {
       setError(isApiError(e) ? e.message : 'That did not work; try again');
     } finally {
@@ -73,10 +75,17 @@ export function MessageItem({ message, myId, myName, moderates, firstUnread, onR
       <article className={cn('group rounded-xl px-3 py-2', message.mentions.some((m) => m.id === myId) && 'bg-straw-wash')} aria-label={`${message.author.name} at ${time.format(new Date(message.createdAt))}`}>
         <header className="flex items-baseline justify-between gap-2">
           <Author name={message.author.name} farmName={message.author.farmName} mine={mine} />
-          <time className="shrink-0 text-sm text-grey-600" dateTime={message.createdAt}>
-            {time.format(new Date(message.createdAt))}
-            {message.editedAt && message.state === 'visible' && <span> · edited</span>}
-          </time>
+          <span className="flex shrink-0 items-center">
+            <time className="text-sm text-grey-600" dateTime={message.createdAt}>
+              {time.format(new Date(message.createdAt))}
+              {message.editedAt && message.state === 'visible' && <span> · edited</span>}
+            </time>
+            {message.state === 'visible' && (
+              <button type="button" className={cn(iconButton, '-my-2 -mr-2')} aria-expanded={actionsOpen} onClick={() => setActionsOpen((open) => !open)} aria-label={`Actions for ${message.author.name}'s message`}>
+                <Ellipsis className="size-5" aria-hidden="true" />
+              </button>
+            )}
+          </span>
         </header>
         {message.replyTo && <Quote reply={message.replyTo} />}
         {message.state === 'deleted' && <p className="text-grey-600 italic">Message removed</p>}
@@ -150,9 +159,9 @@ export function MessageItem({ message, myId, myName, moderates, firstUnread, onR
           </div>
         )}
         {error && <p role="alert" className="mt-1 text-sm text-clay-deep">{error}</p>}
-        {message.state === 'visible' && mode === 'read' && (
+        {message.state === 'visible' && mode === 'read' && actionsOpen && (
           <div className="mt-1 flex flex-wrap gap-0.5">
-            <button type="button" className={iconButton} onClick={() => onReply(message)} aria-label={`Reply to ${message.author.name}`}><Reply className="size-5" aria-hidden="true" /></button>
+            <button type="button" className={iconButton} onClick={() => { setActionsOpen(false); onReply(message); }} aria-label={`Reply to ${message.author.name}`}><Reply className="size-5" aria-hidden="true" /></button>
             <button type="button" className={iconButton} onClick={() => setMode('react')} aria-label="React"><SmilePlus className="size-5" aria-hidden="true" /></button>
             {mine && (
               <>
