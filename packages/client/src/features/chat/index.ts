@@ -1,5 +1,5 @@
 export { chatKeys } from './api/keys';
-export { useChatUnread, useChatThreads } from './api/chat-api';
+export { useChatUnread, useChatThreads, useSubjectUnread } from './api/chat-api';
 export { ChatThread, type ChatThreadProps } from './components/chat-thread';
 export { ChatSummary } from './components/chat-summary';
 export { ThreadList } from './components/thread-list';

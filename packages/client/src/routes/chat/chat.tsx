@@ -1,5 +1,5 @@
 import { useSyncExternalStore } from 'react';
-import { Link, useNavigate, useParams } from 'react-router-dom';
+import { Link, useNavigate, useParams, useSearchParams } from 'react-router-dom';
 import { ChevronLeft } from 'lucide-react';
 import { queryClient } from '../../app/query-client';
 import { PageTitle } from '../../components/ui/page-title';
@@ -31,6 +31,7 @@ export function ChatPage() {
   const { threadId } = useParams();
   const navigate = useNavigate();
   const threads = useChatThreads();
+  const [search] = useSearchParams();
   const isWide = useWideScreen();
   // On a phone the list alone shows at /chat: no thread is opened (and so none is marked read) unseen.
   const shown = threadId ?? (isWide ? (threads.data?.items[0]?.id ?? null) : null);
@@ -53,7 +54,7 @@ export function ChatPage() {
               <ChevronLeft className="size-5" aria-hidden="true" /> All threads
             </Link>
           )}
-          {shown && <ChatThread key={shown} threadId={shown} embedded={false} />}
+          {shown && <ChatThread key={shown} threadId={shown} embedded={false} focusMessageId={search.get('message') ?? undefined} />}
         </div>
       </div>
     </div>

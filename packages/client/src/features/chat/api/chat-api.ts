@@ -19,6 +19,11 @@ export function useChatUnread(): number {
   return useChatThreads().data?.totalUnread ?? 0;
 }
 
+/** Unread messages in a subject's thread (a processing day's card, a loan's row); 0 before anyone wrote. */
+export function useSubjectUnread(subjectType: string, subjectId: string): number {
+  return useChatThreads().data?.items.find((t) => t.subjectType === subjectType && t.subjectId === subjectId)?.unread ?? 0;
+}
+
 export const chatThreadQueryOptions = (threadId: string) =>
   queryOptions({ queryKey: chatKeys.thread(threadId), queryFn: ({ signal }) => apiFetch<ChatThreadDto>(`/api/chat/threads/${enc(threadId)}`, { signal }) });
 

@@ -31,9 +31,11 @@ function DaySeparator({ iso }: { iso: string }) {
 interface ThreadViewProps {
   thread: ChatThreadDto;
   embedded: boolean;
+  /** A message to bring into view once loaded (a mention's or a search hit's link). */
+  focusMessageId?: string;
 }
 
-function ThreadView({ thread, embedded }: ThreadViewProps) {
+function ThreadView({ thread, embedded, focusMessageId }: ThreadViewProps) {
   const me = useSession();
   const ability = useAbility();
   const moderates = ability.can('moderate', subjectOf('ChatMessage', { coopId: me.coop.id }));
@@ -69,6 +71,16 @@ function ThreadView({ thread, embedded }: ThreadViewProps) {
     if (el && (stick.current || pending.length > 0)) el.scrollTop = el.scrollHeight;
     markIfAtBottom();
   }, [messages.length, pending.length, markIfAtBottom]);
+
+  const focused = useRef(false);
+  useEffect(() => {
+    if (!focusMessageId || focused.current || !messages.some((m) => m.id === focusMessageId)) return;
+    focused.current = true;
+    stick.current = false;
+    const el = document.getElementById(`message-${focusMessageId}`);
+    el?.scrollIntoView({ block: 'center' });
+    el?.querySelector('article')?.classList.add('ring-2', 'ring-straw');
+  }, [focusMessageId, messages]);
 
   useEffect(() => {
     const onVisible = () => markIfAtBottom();
@@ -168,14 +180,14 @@ function ThreadView({ thread, embedded }: ThreadViewProps) {
 }
 
 export type ChatThreadProps =
-  | { threadId: string; subject?: never; embedded?: boolean }
-  | { subject: { type: string; id: string }; threadId?: never; embedded?: boolean };
+  | { threadId: string; subject?: never; embedded?: boolean; focusMessageId?: string }
+  | { subject: { type: string; id: string }; threadId?: never; embedded?: boolean; focusMessageId?: never };
 
-function ThreadById({ threadId, embedded }: { threadId: string; embedded: boolean }) {
+function ThreadById({ threadId, embedded, focusMessageId }: { threadId: string; embedded: boolean; focusMessageId?: string }) {
   const thread = useChatThread(threadId);
   if (thread.isPending) return <div className="flex justify-center p-6"><Spinner /></div>;
   if (thread.isError) return <Alert tone="error" title="Thread not found">It may have been another co-op's, or you may not read it.</Alert>;
-  return <ThreadView key={thread.data.id} thread={thread.data} embedded={embedded} />;
+  return <ThreadView key={thread.data.id} thread={thread.data} embedded={embedded} focusMessageId={focusMessageId} />;
 }
 
 function ThreadOfSubject({ type, id, embedded }: { type: string; id: string; embedded: boolean }) {
@@ -192,5 +204,5 @@ function ThreadOfSubject({ type, id, embedded }: { type: string; id: string; emb
 export function ChatThread(props: ChatThreadProps) {
   const embedded = props.embedded ?? Boolean(props.subject);
   if (props.subject) return <ThreadOfSubject type={props.subject.type} id={props.subject.id} embedded={embedded} />;
-  return <ThreadById threadId={props.threadId} embedded={embedded} />;
+  return <ThreadById threadId={props.threadId} embedded={embedded} focusMessageId={props.focusMessageId} />;
 }
