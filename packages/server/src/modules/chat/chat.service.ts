@@ -312,7 +312,9 @@ export interface SentMessage {
 export async function postMessage(actor: SessionUser, threadId: string, raw: ChatMessageInput): Promise<SentMessage> {
   const input = chatMessageInputSchema.parse(raw);
   return withTenant(actor, async (tx) => {
-    const thread = await readableThread(tx, actor, threadId);
+    // The thread's row lock orders its sends: a message's seq is taken after the one before it committed, so a
+    // client catching up "after seq N" can never miss one that commits later with a smaller seq.
+    const thread = await readableThread(tx, actor, threadId, { lock: true });
     const [earlier] = await q<{ id: string; thread_id: string; body: string }>(
       tx, `SELECT id, thread_id, body FROM chat_messages WHERE coop_id = $1 AND author_id = $2 AND client_id = $3`, [actor.coopId, actor.id, input.clientId],
     );
