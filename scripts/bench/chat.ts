@@ -30,6 +30,32 @@ if (!url) {
 }
 connectDatabase(url, 4);
 
+/** Fresh statistics, as autovacuum would gather them soon after such a load (needs the owner's connection). */
+async function analyze() {
+  if (!process.env.DATABASE_OWNER_URL) return;
+  const owner = new pg.Client({ connectionString: process.env.DATABASE_OWNER_URL });
+  await owner.connect();
+  await owner.query('ANALYZE chat_messages; ANALYZE chat_threads; ANALYZE chat_reactions; ANALYZE users;');
+  await owner.end();
+}
+
+/** Every tenth message answers the one before it; every twentieth has three reactions. */
+async function enrich(reader: SessionUser, people: SessionUser[], threadId: string) {
+  await withTenant(reader, async (tx) => {
+    await database().query(
+      `UPDATE chat_messages m SET reply_to_id = x.previous
+         FROM (SELECT id, seq, lag(id) OVER (ORDER BY seq) AS previous FROM chat_messages WHERE thread_id = $1) x
+        WHERE m.id = x.id AND x.seq % 10 = 0 AND x.previous IS NOT NULL`, { bind: [threadId], transaction: tx });
+    await database().query(
+      `INSERT INTO chat_reactions (message_id, user_id, reaction, coop_id)
+       SELECT m.id, u, 'thumbs-up', $2 FROM chat_messages m, unnest($3::uuid[]) u WHERE m.thread_id = $1 AND m.seq % 20 = 0`,
+      { bind: [threadId, reader.coopId, people.slice(2, 5).map((p) => p.id)], transaction: tx });
+    await database().query(
+      `UPDATE chat_threads SET last_seq = (SELECT max(seq) FROM chat_messages WHERE thread_id = $1), last_message_at = now() WHERE id = $1`,
+      { bind: [threadId], transaction: tx });
+  });
+}
+
 // BENCH_CHAT_COOP=<id> measures a co-op an earlier run loaded (loading is the slow part on a busy machine).
 const reused = process.env.BENCH_CHAT_COOP;
 const { people, channel } = reused ? await existingBench(reused) : await loadBench();
@@ -71,20 +97,8 @@ async function loadBench() {
          FROM generate_series(1, $3::int) g, (SELECT $4::uuid[] AS ids, $6::uuid[] AS farms) a`,
       { bind: [reader.coopId, threadId, count, people.map((p) => p.id), words, people.map((p) => p.farmId)], transaction: tx },
     ));
-    await withTenant(reader, async (tx) => {
-      // Every tenth message answers the one before it; every twentieth has reactions.
-      await database().query(
-        `UPDATE chat_messages m SET reply_to_id = x.previous
-           FROM (SELECT id, seq, lag(id) OVER (ORDER BY seq) AS previous FROM chat_messages WHERE thread_id = $1) x
-          WHERE m.id = x.id AND x.seq % 10 = 0 AND x.previous IS NOT NULL`, { bind: [threadId], transaction: tx });
-      await database().query(
-        `INSERT INTO chat_reactions (message_id, user_id, reaction, coop_id)
-         SELECT m.id, u, 'thumbs-up', $2 FROM chat_messages m, unnest($3::uuid[]) u WHERE m.thread_id = $1 AND m.seq % 20 = 0`,
-        { bind: [threadId, reader.coopId, people.slice(2, 5).map((p) => p.id)], transaction: tx });
-      await database().query(
-        `UPDATE chat_threads SET last_seq = (SELECT max(seq) FROM chat_messages WHERE thread_id = $1), last_message_at = now() WHERE id = $1`,
-        { bind: [threadId], transaction: tx });
-    });
+    await analyze();
+    await enrich(reader, people, threadId);
     return performance.now() - t0;
   }
 
@@ -96,12 +110,15 @@ async function loadBench() {
   return { people, channel };
 }
 const reader = people[1]!;
-if (process.env.DATABASE_OWNER_URL) {
-  // Fresh statistics, as autovacuum would gather them soon after such a load.
-  const owner = new pg.Client({ connectionString: process.env.DATABASE_OWNER_URL });
-  await owner.connect();
-  await owner.query('ANALYZE chat_messages; ANALYZE chat_threads; ANALYZE chat_reactions; ANALYZE users;');
-  await owner.end();
+await analyze();
+if (reused) {
+  // A load cut short before its replies and reactions gets them now.
+  const [{ n } = { n: '0' }] = await withTenant(reader, (tx) => database().query<{ n: string }>(
+    `SELECT count(*) AS n FROM chat_messages WHERE thread_id = $1 AND reply_to_id IS NOT NULL`, { bind: [channel.id], type: QueryTypes.SELECT, transaction: tx }));
+  if (Number(n) === 0) {
+    await enrich(reader, people, channel.id);
+    await analyze();
+  }
 }
 const channelSize = Number((await withTenant(reader, (tx) => database().query<{ n: string }>(
   `SELECT count(*) AS n FROM chat_messages WHERE thread_id = $1`, { bind: [channel.id], type: QueryTypes.SELECT, transaction: tx })))[0]!.n);
