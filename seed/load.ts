@@ -16,6 +16,7 @@ import { loadDemoHerds } from './demo-herds';
 import { loadDemoLedger } from './demo-ledger';
 import { loadDemoStudShare } from './demo-stud-share';
 import { loadDemoMentorship } from './demo-mentorship';
+import { loadDemoChat } from './demo-chat';
 
 const appUrl = (process.env.APP_URL ?? 'http://127.0.0.1:3000').replace(/\/$/, '');
 
@@ -47,6 +48,7 @@ export async function loadDemoCoop(): Promise<'loaded' | 'already-present'> {
       await loadDemoHealthYield({ coopId: present.id, farms, keepers, apprenticeId: apprentice?.id ?? null, apprenticeFarmKey, temperatureUnits }, tx);
       await loadDemoLedger({ coopId: present.id, farms, keepers, appUrl }, tx);
       await loadApprenticeship(present.id, tx);
+      await loadDemoChat({ coopId: present.id }, tx);
     });
     // Stud Share goes through its services, each in a transaction of its own, once the co-op exists.
     await loadDemoStudShare(present.id);
@@ -80,6 +82,7 @@ export async function loadDemoCoop(): Promise<'loaded' | 'already-present'> {
     await loadDemoHealthYield({ coopId: coop.id, farms, keepers, apprenticeId: apprentice.id, apprenticeFarmKey, temperatureUnits }, tx);
     await loadDemoLedger({ coopId: coop.id, farms, keepers, appUrl }, tx);
     await loadApprenticeship(coop.id, tx);
+    await loadDemoChat({ coopId: coop.id }, tx);
     return coop.id;
   });
   await loadDemoStudShare(coopId);

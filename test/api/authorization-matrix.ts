@@ -65,7 +65,10 @@ export type Target =
   // her, the apprentice herself. The admin is of farm A but not her mentor.
   | 'choreA'
   | 'returnedChoreA'
-  | 'apprenticeA';
+  | 'apprenticeA'
+  // Co-op Chat: the channel with a message of farm A's member, a litter of farm A with its thread and a
+  // message there, and a member of farm B the admin may mute.
+  | 'chatA';
 export type Body =
   | 'farmProfile'
   | 'application'
@@ -148,7 +151,13 @@ export type Body =
   | 'reviewAccept'
   | 'acceptMany'
   | 'skillMark'
-  | 'mentorshipSettings';
+  | 'mentorshipSettings'
+  | 'chatTopic'
+  | 'chatMessage'
+  | 'chatEdit'
+  | 'chatRead'
+  | 'chatHide'
+  | 'chatMute';
 
 export interface MatrixRow {
   method: 'GET' | 'PATCH' | 'DELETE' | 'POST' | 'PUT';
@@ -406,6 +415,31 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'GET', path: '/api/mentorship/apprentices/:apprenticeId', target: 'apprenticeA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
   { method: 'PUT', path: '/api/mentorship/apprentices/:apprenticeId/skills/:skillKey', target: 'apprenticeA', body: 'skillMark', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 403, otherCoop: 404 } },
   { method: 'GET', path: '/api/mentorship/apprentices/:apprenticeId/record-of-skills', target: 'apprenticeA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  // Co-op Chat: the channel and topics are the whole co-op's; a litter's thread is its farm's (the admin here is of farm A);
+  // only the author edits or removes, only the admin hides and mutes.
+  { method: 'GET', path: '/api/chat/threads', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'POST', path: '/api/chat/threads', target: 'none', body: 'chatTopic', expect: { anonymous: 401, apprentice: 201, member: 201, otherFarmMember: 201, admin: 201, otherCoop: 201 } },
+  { method: 'GET', path: '/api/chat/threads/:channelId', target: 'chatA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/chat/threads/:litterThreadId', target: 'chatA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/chat/threads/:channelId/messages', target: 'chatA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/chat/threads/:litterThreadId/messages', target: 'chatA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/chat/threads/:litterThreadId/people', target: 'chatA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/chat/threads/:channelId/messages', target: 'chatA', body: 'chatMessage', expect: { anonymous: 401, apprentice: 201, member: 201, otherFarmMember: 201, admin: 201, otherCoop: 404 } },
+  { method: 'POST', path: '/api/chat/threads/:litterThreadId/messages', target: 'chatA', body: 'chatMessage', expect: { anonymous: 401, apprentice: 201, member: 201, otherFarmMember: 404, admin: 201, otherCoop: 404 } },
+  { method: 'POST', path: '/api/chat/threads/:litterThreadId/read', target: 'chatA', body: 'chatRead', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/chat/subjects/litter/:litterId/open', target: 'chatA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'PATCH', path: '/api/chat/messages/:messageId', target: 'chatA', body: 'chatEdit', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 403, otherCoop: 404 } },
+  { method: 'PATCH', path: '/api/chat/messages/:litterMessageId', target: 'chatA', body: 'chatEdit', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 403, otherCoop: 404 } },
+  { method: 'DELETE', path: '/api/chat/messages/:messageId', target: 'chatA', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 403, otherCoop: 404 } },
+  { method: 'POST', path: '/api/chat/messages/:messageId/hide', target: 'chatA', body: 'chatHide', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/chat/messages/:litterMessageId/hide', target: 'chatA', body: 'chatHide', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'PUT', path: '/api/chat/messages/:messageId/reactions/heart', target: 'chatA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
+  { method: 'DELETE', path: '/api/chat/messages/:messageId/reactions/heart', target: 'chatA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
+  { method: 'PUT', path: '/api/chat/messages/:litterMessageId/reactions/heart', target: 'chatA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/chat/search?q=matrix', target: 'chatA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/chat/mutes', target: 'none', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 200 } },
+  { method: 'POST', path: '/api/chat/mutes', target: 'chatA', body: 'chatMute', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 201, otherCoop: 404 } },
+  { method: 'DELETE', path: '/api/chat/mutes/:chatMuteUserId', target: 'chatA', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
 ];
 
 /**
@@ -424,6 +458,7 @@ export const matrixAreas = [
   { area: 'notifications', paths: /^\/api\/notifications\b/ },
   { area: 'stud-share', paths: /^\/api\/stud-share\b/ },
   { area: 'mentorship', paths: /^\/api\/mentorship\b/ },
+  { area: 'chat', paths: /^\/api\/chat\b/ },
 ] as const;
 
 export type MatrixArea = (typeof matrixAreas)[number]['area'];

@@ -10,6 +10,17 @@ import { actorOf, addAnimalAs } from '../support/herd';
 import { countingAgentFor, type StatementCount } from '../support/statement-counter';
 import { testApp } from '../support/test-app';
 import { doeOf, offeredBuck, requestAs } from '../support/stud-share';
+import { fillThread } from '../support/chat';
+import { listThreads, openSubjectThread } from '../../packages/server/src/modules/chat/chat.service';
+
+/** The co-op's channel and a litter's thread of farm A, so every read of subjects runs at 10 rows as at 1,000. */
+async function chatArranged(coop: TestCoop) {
+  const member = actorOf(coop.member);
+  const channel = (await listThreads(member)).items.find((t) => t.kind === 'channel')!.id;
+  const { litter } = await litterAs(coop.member, { servicedDaysAgo: 40, kindledDaysAgo: 9, bornAlive: 5 });
+  const litterThread = (await openSubjectThread(member, 'litter', litter.id)).id;
+  return { channel, litterThread };
+}
 
 afterAll(() => testApp().close());
 
@@ -194,6 +205,67 @@ const endpoints: Endpoint[] = [
         url: '/api/stud-share/loans?side=requests&pageSize=10',
         asker: coop.otherFarmMember,
         growTo: grower(coop.id, 'stud_loans', loan.id),
+      };
+    },
+  },
+  {
+    name: "the person's chat threads",
+    async arrange(coop) {
+      const { channel } = await chatArranged(coop);
+      await fillThread(coop.id, channel, coop.otherFarmMember.id, 3);
+      return {
+        url: '/api/chat/threads',
+        asker: coop.member,
+        growTo: async (total) => {
+          const have = await rowCount(coop.id, 'chat_threads', `kind = 'topic'`);
+          await asTenant(coop.id, (c) => c.query(
+            `INSERT INTO chat_threads (coop_id, kind, title, last_message_at) SELECT $1, 'topic', 'Topic ' || g, now() FROM generate_series(1, $2::int) g`,
+            [coop.id, total - have],
+          ), { commit: true });
+          return rowCount(coop.id, 'chat_threads', `kind = 'topic'`);
+        },
+      };
+    },
+  },
+  {
+    name: "a chat thread's latest messages",
+    async arrange(coop) {
+      const { channel } = await chatArranged(coop);
+      return {
+        url: `/api/chat/threads/${channel}/messages?limit=10`,
+        asker: coop.member,
+        growTo: async (total) => {
+          await fillThread(coop.id, channel, coop.otherFarmMember.id, total - (await rowCount(coop.id, 'chat_messages', 'thread_id = $2', [channel])));
+          return rowCount(coop.id, 'chat_messages', 'thread_id = $2', [channel]);
+        },
+      };
+    },
+  },
+  {
+    name: 'a chat thread',
+    async arrange(coop) {
+      const { litterThread } = await chatArranged(coop);
+      return {
+        url: `/api/chat/threads/${litterThread}`,
+        asker: coop.member,
+        growTo: async (total) => {
+          await fillThread(coop.id, litterThread, coop.otherFarmMember.id, total - (await rowCount(coop.id, 'chat_messages', 'thread_id = $2', [litterThread])));
+          return rowCount(coop.id, 'chat_messages', 'thread_id = $2', [litterThread]);
+        },
+      };
+    },
+  },
+  {
+    name: 'a chat search',
+    async arrange(coop) {
+      const { channel } = await chatArranged(coop);
+      return {
+        url: '/api/chat/search?q=hay&limit=10',
+        asker: coop.member,
+        growTo: async (total) => {
+          await fillThread(coop.id, channel, coop.otherFarmMember.id, total - (await rowCount(coop.id, 'chat_messages', 'thread_id = $2', [channel])), 'Who has hay');
+          return rowCount(coop.id, 'chat_messages', 'thread_id = $2', [channel]);
+        },
       };
     },
   },

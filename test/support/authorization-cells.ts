@@ -23,6 +23,7 @@ import { herdBody, herdStateOf, herdTarget } from './herd-matrix';
 import { ledgerBody, ledgerStateOf, ledgerTarget } from './ledger-matrix';
 import { mentorshipBody, mentorshipStateOf, mentorshipTarget } from './mentorship-matrix';
 import { notificationBody, notificationStateOf, notificationTarget } from './notifications-matrix';
+import { chatBody, chatStateOf, chatTarget } from './chat-matrix';
 import { loanTarget, tracesHiddenFrom } from './lent-animal';
 import { studBody, studStateOf, studTarget } from './stud-share-matrix';
 import { agentFor, ROOMY_SIGN_IN, sharedSignedInAgent, signedInAgent, testApp, type Agent } from './test-app';
@@ -125,7 +126,7 @@ export function describeMatrixArea(area: MatrixArea) {
   }
 
   async function freshTarget(target: Target) {
-    return { ...(await membershipTarget(target)), ...(await herdTarget(coop, target)), ...(await almanacTarget(coop, target)), ...(await herdFilesTarget(coop, target)), ...(await loanTarget(coop, target)), ...(await ledgerTarget(coop, target, foreign)), ...(await notificationTarget(coop, target)), ...(await studTarget(coop, target)), ...(await mentorshipTarget(coop, target)) };
+    return { ...(await membershipTarget(target)), ...(await herdTarget(coop, target)), ...(await almanacTarget(coop, target)), ...(await herdFilesTarget(coop, target)), ...(await loanTarget(coop, target)), ...(await ledgerTarget(coop, target, foreign)), ...(await notificationTarget(coop, target)), ...(await studTarget(coop, target)), ...(await mentorshipTarget(coop, target)), ...(await chatTarget(coop, target)) };
   }
   type TargetIds = Awaited<ReturnType<typeof freshTarget>>;
   const readTargets = new Map<Target, Promise<TargetIds>>();
@@ -205,7 +206,7 @@ export function describeMatrixArea(area: MatrixArea) {
           const personaOf = persona === 'otherCoop' ? foreign.admin : persona === 'anonymous' ? null : coop[persona];
           const body = (await bodyFor(row.body, ids, persona)) ?? (await herdBody(coop, row.body, ids))
             ?? (await almanacBody(coop, row.body, ids, personaOf?.coopId ?? coop.id, personaOf?.farmId ?? null)) ?? ledgerBody(coop, row.body, ids) ?? notificationBody(row.body) ?? studBody(coop, row.body, ids)
-            ?? (await mentorshipBody(row.body, ids, personaOf?.coopId ?? coop.id));
+            ?? (await mentorshipBody(row.body, ids, personaOf?.coopId ?? coop.id)) ?? chatBody(row.body, ids);
           const before = await stateOf(ids, persona);
           const herdBefore = await herdStateOf(coop.id, ids);
           const almanacBefore = await almanacStateOf(coop.id);
@@ -214,6 +215,7 @@ export function describeMatrixArea(area: MatrixArea) {
           const notificationsBefore = await notificationStateOf(coop.id);
           const studBefore = await studStateOf(coop.id);
           const mentorshipBefore = await mentorshipStateOf(coop.id);
+          const chatBefore = await chatStateOf(coop.id);
           const method = row.method.toLowerCase() as 'get' | 'patch' | 'delete' | 'post' | 'put';
           const res = await herdFilesSend(agent[method](path), row.body, body);
           expect(res.status).toBe(status);
@@ -239,6 +241,7 @@ export function describeMatrixArea(area: MatrixArea) {
             expect(await notificationStateOf(coop.id)).toEqual(notificationsBefore);
             expect(await studStateOf(coop.id)).toEqual(studBefore);
             expect(await mentorshipStateOf(coop.id)).toEqual(mentorshipBefore);
+            expect(await chatStateOf(coop.id)).toEqual(chatBefore);
           }
         });
       }

@@ -39,6 +39,8 @@ import { studShareRoutes } from './modules/stud-share/stud-share.routes';
 import { mentorshipRoutes } from './modules/mentorship/mentorship.routes';
 import { notificationRoutes } from './modules/notifications/notifications.routes';
 import { configureNotifications } from './modules/notifications/notifications.service';
+import { chatRoutes, registerChatSocketEvents } from './modules/chat/chat.routes';
+import { configureChat } from './modules/chat/chat.service';
 
 const defaultClientDist = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../client/dist');
 
@@ -58,6 +60,8 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
   configureMailer(config.smtp);
   configureMailOutbox({ retryDelaySeconds: config.mail.retryDelaySeconds });
   configureNotifications({ appUrl: config.appUrl });
+  configureChat(config.chat);
+  registerChatSocketEvents();
   // Queued e-mail goes out from every process that serves the app (several instances share the queue).
   const stopMailWorker = config.mail.worker ? startMailWorker({ connectionString: config.databaseUrl, pollingIntervalSeconds: config.mail.pollingIntervalSeconds }) : null;
   configureStorage({ dir: config.uploads.dir });
@@ -158,6 +162,8 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
   api.use('/stud-share', studShareRoutes());
   api.use('/notifications', notificationRoutes());
   api.use('/mentorship', mentorshipRoutes(config));
+  // Co-op Chat: the channel, topics and the threads beside litters, processing days and loans.
+  api.use('/chat', chatRoutes());
   api.use(apiNotFound);
   app.use('/api', api);
 

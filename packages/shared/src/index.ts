@@ -39,3 +39,4 @@ export * from './units/distance';
 export * from './notifications';
 export * from './schemas/mentorship.schema';
 export * from './mentorship';
+export * from './chat';

@@ -30,6 +30,7 @@ export const notificationKinds = {
   'day.reminder': { label: 'Reminders before a processing day', area: 'Processing Days', defaultDelivery: 'immediately' },
   'day.changed': { label: 'A processing day you booked changes', area: 'Processing Days', defaultDelivery: 'immediately' },
   'chat.mention': { label: 'Someone mentions you in Co-op Chat', area: 'Co-op Chat', defaultDelivery: 'digest' },
+  'chat.hidden': { label: 'The admin hides one of your chat messages', area: 'Co-op Chat', defaultDelivery: 'immediately' },
   'swap.offer': { label: 'An offer on one of your listings', area: 'Swap Board', defaultDelivery: 'immediately' },
   'swap.answered': { label: 'Your offer is answered', area: 'Swap Board', defaultDelivery: 'immediately' },
   'mentor.entry-submitted': { label: 'Your apprentice logs work for review', area: 'Mentorship', defaultDelivery: 'digest' },

@@ -1,5 +1,6 @@
 import type { ApplicationStatus } from './schemas/application.schema';
 import type { StudLoanState } from './schemas/stud-share.schema';
+import type { ChatMessageDto } from './chat';
 
 /** Socket.IO event names and payloads; the client maps each to TanStack Query invalidations. */
 export const RealtimeEvent = {
@@ -41,6 +42,10 @@ export const RealtimeEvent = {
   notificationsChanged: 'notifications:changed',
   /** An apprentice's entry was sent, reviewed or a skill marked; to the apprentice's and her mentor's user rooms. */
   mentorshipChanged: 'mentorship:changed',
+  /** A chat message was posted, edited, removed, hidden or reacted to; to the thread's room (joined after the read check). */
+  chatMessage: 'chat:message',
+  /** A thread has new messages (unread counts change); to the co-op room for the channel and topics, else to the subject's people. */
+  chatActivity: 'chat:activity',
 } as const;
 
 export interface ServerToClientEvents {
@@ -64,10 +69,23 @@ export interface ServerToClientEvents {
   [RealtimeEvent.studLoanChanged]: (payload: { loanId: string; buckId: string; farmIds: string[]; state: StudLoanState }) => void;
   [RealtimeEvent.notificationsChanged]: (payload: { unread: number; title: string | null; link: string | null }) => void;
   [RealtimeEvent.mentorshipChanged]: (payload: { apprenticeId: string; what: 'submitted' | 'reviewed' | 'skill' }) => void;
+  [RealtimeEvent.chatMessage]: (payload: ChatMessageDto) => void;
+  [RealtimeEvent.chatActivity]: (payload: { threadId: string; seq: number }) => void;
 }
 
-// eslint-disable-next-line @typescript-eslint/no-empty-object-type
-export interface ClientToServerEvents {}
+/** The answer to a client's request over the socket: like an HTTP response, a refusal carries the error body. */
+export type SocketAck = { ok: true } | { ok: false; error: { code: string; message: string } };
+
+export const ClientEvent = {
+  /** Join a chat thread's room; the server checks the person may read the thread first. */
+  chatJoin: 'chat:join',
+  chatLeave: 'chat:leave',
+} as const;
+
+export interface ClientToServerEvents {
+  [ClientEvent.chatJoin]: (payload: { threadId: string }, ack: (result: SocketAck) => void) => void;
+  [ClientEvent.chatLeave]: (payload: { threadId: string }, ack: (result: SocketAck) => void) => void;
+}
 
 /** Room names: a socket joins only the rooms its ability allows. */
 export const rooms = {
@@ -77,4 +95,6 @@ export const rooms = {
   /** A farm's members who may see money (never its apprentices). */
   farmLedger: (farmId: string) => `farm:${farmId}:ledger`,
   user: (userId: string) => `user:${userId}`,
+  /** A chat thread's readers: joined only through the read check of `chat:join`. */
+  chatThread: (threadId: string) => `chat-thread:${threadId}`,
 };

@@ -258,6 +258,20 @@ const routes: RouteObject[] = [
                 },
               },
               {
+                path: 'chat',
+                lazy: async () => {
+                  const { loader, ChatPage } = await import('../routes/chat/chat');
+                  return { loader, Component: ChatPage };
+                },
+              },
+              {
+                path: 'chat/:threadId',
+                lazy: async () => {
+                  const { loader, ChatPage } = await import('../routes/chat/chat');
+                  return { loader, Component: ChatPage };
+                },
+              },
+              {
                 path: 'notifications',
                 lazy: async () => {
                   const { loader, NotificationsPage } = await import('../routes/notifications/notifications');

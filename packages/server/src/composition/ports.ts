@@ -9,6 +9,8 @@ import { kindlingDaysOfDams } from '../modules/litters/litter-facts.service';
 import { processedHeadsOf } from '../modules/processing/processing.service';
 import { photoPublishedTo } from '../modules/photos/photos.service';
 import { isPhotoPublished } from '../modules/stud-share/stud-share-facts.service';
+import { registerThreadSubject } from '../modules/chat/chat-subjects.service';
+import { litterThreadSubject } from '../modules/litters/litter-thread.service';
 
 let plugged = false;
 
@@ -28,5 +30,7 @@ export function plugModulePorts(): void {
   groupFeedTotals.plug(feedTotalsByGroup);
   processedHeadsOfGroups.plug(processedHeadsOf);
   photoPublishedTo.plug(isPhotoPublished);
+  // Co-op Chat's threads beside subjects: who reads the subject reads its thread.
+  registerThreadSubject('litter', litterThreadSubject);
   groupNamesOfFarm.plug(async (tx, coopId, farmId) => new Map((await groupsOfFarm(tx, coopId, farmId)).map((g) => [g.id, g.name])));
 }

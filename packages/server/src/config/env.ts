@@ -54,6 +54,8 @@ const envSchema = z.object({
   STRIPE_API_HOST: z.string().min(1).optional(),
   STRIPE_API_PORT: z.coerce.number().int().min(1).max(65535).optional(),
   STRIPE_API_PROTOCOL: z.enum(['http', 'https']).optional(),
+  CHAT_RATE_MESSAGES: z.coerce.number().int().min(1).default(20),
+  CHAT_RATE_WINDOW_SECONDS: z.coerce.number().int().min(1).default(10),
   LOG_LEVEL: z.enum(['debug', 'info', 'warn', 'error', 'silent']).default('info'),
 }).refine((e) => !e.STRIPE_SECRET_KEY || e.STRIPE_WEBHOOK_SECRET, { path: ['STRIPE_WEBHOOK_SECRET'], message: 'STRIPE_WEBHOOK_SECRET is required with STRIPE_SECRET_KEY' });
 
@@ -103,6 +105,8 @@ export interface Config {
    * (the real service when host, port and protocol are left out). Null when no key is set.
    */
   card: CardConfig | null;
+  /** Co-op Chat: at most `messages` per person in `windowSeconds` (a flood, a stuck client). */
+  chat: { rateLimit: { messages: number; windowSeconds: number } };
   logLevel: Env['LOG_LEVEL'];
 }
 
@@ -165,6 +169,7 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
     card: e.STRIPE_SECRET_KEY
       ? { secretKey: e.STRIPE_SECRET_KEY, webhookSecret: e.STRIPE_WEBHOOK_SECRET!, apiHost: e.STRIPE_API_HOST, apiPort: e.STRIPE_API_PORT, apiProtocol: e.STRIPE_API_PROTOCOL }
       : null,
+    chat: { rateLimit: { messages: e.CHAT_RATE_MESSAGES, windowSeconds: e.CHAT_RATE_WINDOW_SECONDS } },
     logLevel: e.LOG_LEVEL,
   };
 }

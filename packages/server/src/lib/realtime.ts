@@ -1,7 +1,9 @@
 import type { Server as HttpServer, IncomingMessage } from 'node:http';
 import type { RequestHandler } from 'express';
 import { Server, type Socket } from 'socket.io';
-import { defineAbilityFor, rooms, RealtimeEvent, subjectOf, type ClientToServerEvents, type ServerToClientEvents } from '@burrowline/shared';
+import { ZodError } from 'zod';
+import { defineAbilityFor, ErrorCode, rooms, RealtimeEvent, subjectOf, type ClientToServerEvents, type ServerToClientEvents, type SocketAck } from '@burrowline/shared';
+import { AppError } from './app-error';
 import type { SessionUser } from './session-user';
 import { logger } from './logger';
 
@@ -26,6 +28,30 @@ export function roomsFor(user: SessionUser, sessionId: string): string[] {
   if (user.farmId && ability.can('read', subjectOf('Money', { coopId: user.coopId, farmId: user.farmId }))) joined.push(rooms.farmLedger(user.farmId));
   if (ability.can('manage', subjectOf('Application', { coopId: user.coopId }))) joined.push(rooms.coopAdmins(user.coopId));
   return joined;
+}
+
+/** What a handler of a client's event may do with the socket that sent it. */
+export interface ClientSocket {
+  join(room: string): Promise<void> | void;
+  leave(room: string): Promise<void> | void;
+}
+
+type ClientEventHandler = (user: SessionUser, payload: unknown, socket: ClientSocket) => Promise<void>;
+const clientEventHandlers = new Map<keyof ClientToServerEvents, ClientEventHandler>();
+
+/**
+ * Handles a client's request over the socket like an HTTP request: the session is checked first (socket.use
+ * below), the handler validates the payload and authorizes, and the client's ack gets `{ ok }` or the error body.
+ */
+export function onClientEvent(event: keyof ClientToServerEvents, handler: ClientEventHandler): void {
+  clientEventHandlers.set(event, handler);
+}
+
+function refusalOf(error: unknown): SocketAck {
+  if (error instanceof AppError) return { ok: false, error: { code: error.code, message: error.message } };
+  if (error instanceof ZodError) return { ok: false, error: { code: ErrorCode.validation, message: error.issues[0]?.message ?? 'That request is not valid' } };
+  logger.error('socket event failed', { error: String(error) });
+  return { ok: false, error: { code: ErrorCode.internal, message: 'Something went wrong' } };
 }
 
 export interface RealtimeOptions {
@@ -68,6 +94,16 @@ export function attachRealtime(httpServer: HttpServer, opts: RealtimeOptions): R
     socket.use((_packet, next) => {
       opts.isSessionCurrent(req.sessionID!).then((ok) => (ok ? next() : socket.disconnect(true)), () => socket.disconnect(true));
     });
+    for (const [event, handler] of clientEventHandlers) {
+      socket.on(event, (payload: unknown, ack: unknown) => {
+        if (typeof ack !== 'function') return;
+        const answer = ack as (result: SocketAck) => void;
+        handler(user, payload, { join: (room) => socket.join(room), leave: (room) => socket.leave(room) }).then(
+          () => answer({ ok: true }),
+          (error: unknown) => answer(refusalOf(error)),
+        );
+      });
+    }
     logger.debug('socket connected', { userId: user.id, coopId: user.coopId });
   });
   // Sessions also end silently (idle or absolute timeout): sweep open sockets and drop those.

@@ -18,6 +18,7 @@ import { ledgerKeys } from '../../ledger';
 import { mentorshipKeys } from '../../mentorship';
 import { notificationKeys, type LatestNotification } from '../../notifications';
 import { studShareKeys } from '../../stud-share';
+import { chatKeys } from '../../chat';
 
 /**
  * The one place where server events become cache updates. Mounted by the signed-in layout, so the
@@ -145,11 +146,15 @@ export function useRealtimeSync(): void {
       socket.on(RealtimeEvent.studOfferChanged, refreshStudOffers);
       socket.on(RealtimeEvent.studLoanChanged, refreshStudLoans);
       socket.on(RealtimeEvent.mentorshipChanged, refreshMentorship);
+      // New chat messages somewhere the person reads (or their own read position moved): unread counts.
+      const refreshChat = () => void queryClient.invalidateQueries({ queryKey: chatKeys.threads() });
+      socket.on(RealtimeEvent.chatActivity, refreshChat);
       socket.on(RealtimeEvent.sessionEnded, endSession);
       // Events sent while the connection was down are lost; refetch what they would have refreshed.
       socket.io.on('reconnect', refreshAll);
       stop = () => {
         socket.off(RealtimeEvent.farmUpdated, refreshFarms);
+        socket.off(RealtimeEvent.chatActivity, refreshChat);
         socket.off(RealtimeEvent.farmCreated, refreshFarms);
         socket.off(RealtimeEvent.applicationCreated, refreshApplications);
         socket.off(RealtimeEvent.applicationUpdated, refreshApplications);

@@ -1,0 +1,50 @@
+import { QueryTypes, type Transaction } from 'sequelize';
+import { database } from '../../db/sequelize';
+import type { SessionUser } from '../../lib/session-user';
+import type { ThreadSubject } from '../chat/chat-subjects.service';
+import { ensureCan } from '../farms/farm-access';
+
+interface LitterRow {
+  id: string;
+  farm_id: string;
+  kindled_on: string;
+  dam_name: string;
+}
+
+async function littersOf(tx: Transaction, ids: string[]): Promise<LitterRow[]> {
+  return database().query<LitterRow>(
+    `SELECT l.id, l.farm_id, l.kindled_on::text AS kindled_on, coalesce(nullif(a.name, ''), a.tattoo, 'the doe') AS dam_name
+       FROM litters l LEFT JOIN animals a ON a.id = l.dam_id
+      WHERE l.id = ANY($1::uuid[])`,
+    { bind: [ids], type: QueryTypes.SELECT, transaction: tx },
+  );
+}
+
+function mayReadLitter(actor: SessionUser, farmId: string): boolean {
+  try {
+    ensureCan(actor, 'read', 'Litter', { farmId }, 'That litter');
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+/** A litter's thread: only its farm's people talk about it (a litter is farm-private). */
+export const litterThreadSubject: ThreadSubject = {
+  async mayRead(tx, actor, subjectId) {
+    const [litter] = await littersOf(tx, [subjectId]);
+    return litter !== undefined && mayReadLitter(actor, litter.farm_id);
+  },
+  async readableAmong(tx, actor, subjectIds) {
+    return (await littersOf(tx, subjectIds)).filter((l) => mayReadLitter(actor, l.farm_id)).map((l) => l.id);
+  },
+  async participants(tx, subjectId) {
+    const [litter] = await littersOf(tx, [subjectId]);
+    return { farmIds: litter ? [litter.farm_id] : [], userIds: [] };
+  },
+  async title(tx, subjectId) {
+    const [litter] = await littersOf(tx, [subjectId]);
+    return litter ? `Litter of ${litter.dam_name}, kindled ${litter.kindled_on}` : 'A litter';
+  },
+  link: (subjectId) => `/litters/${subjectId}`,
+};
