@@ -85,15 +85,23 @@ async function captureHerdQuery(): Promise<void> {
   const handle = createApp({ appUrl: url });
   server.on('request', handle.app);
   const cookie = await signIn(url);
-  let captured: { sql: string; bind: unknown[] } | null = null;
-  const hook = (options: { bind?: unknown }, query: { sql?: string }) => {
-    const sql = query.sql ?? '';
-    if (/FROM animals a/.test(sql) && (!captured || sql.length > captured.sql.length)) captured = { sql, bind: (options.bind as unknown[]) ?? [] };
-  };
-  database().addHook('afterQuery', 'bench-capture', hook as never);
+  // Taken where every statement goes out, on pg's client: as text and values, and with its name when
+  // the API sends it as a prepared statement (the bare endpoint then prepares it too).
+  let captured: { sql: string; bind: unknown[]; name?: string } | null = null;
+  const pg = (await import('pg')).default;
+  const send = pg.Client.prototype.query;
+  pg.Client.prototype.query = function capture(this: unknown, ...args: unknown[]) {
+    const [first, second] = args as [string | { text?: string; values?: unknown[]; name?: string }, unknown];
+    const sql = typeof first === 'string' ? first : (first?.text ?? '');
+    const bind = typeof first === 'string' ? (Array.isArray(second) ? second : []) : (first?.values ?? []);
+    if (/FROM animals a/.test(sql) && (!captured || sql.length > captured.sql.length)) {
+      captured = { sql, bind, ...(typeof first === 'object' && first?.name ? { name: first.name } : {}) };
+    }
+    return (send as (...a: unknown[]) => unknown).apply(this, args);
+  } as typeof send;
   const res = await fetch(`${url}/api/animals`, { headers: { cookie } });
   const body = (await res.json()) as { items: unknown[]; total: number };
-  database().removeHook('afterQuery', 'bench-capture');
+  pg.Client.prototype.query = send;
   server.closeAllConnections();
   await new Promise<void>((resolve) => server.close(() => resolve()));
   if (!captured) throw new Error('the herd list sent no SELECT from animals');

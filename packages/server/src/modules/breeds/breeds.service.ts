@@ -36,8 +36,8 @@ const breedsKey = (coopId: string) => `breeds:${coopId}`;
 
 /** Every breed the co-op may use, inside the caller's transaction (for other domains). */
 export async function breedsOf(coopId: string, tx: Transaction): Promise<BreedDto[]> {
-  // Read once per transaction; each caller gets its own array to sort or filter.
-  const breeds = await onceInTransaction(tx, breedsKey(coopId), async () => (await Breed.findAll({ where: visibleTo(coopId), transaction: tx })).map(presentBreed));
+  // Read once per transaction, as plain rows (no model instances); each caller gets its own array to sort or filter.
+  const breeds = await onceInTransaction(tx, breedsKey(coopId), async () => (await Breed.findAll({ where: visibleTo(coopId), transaction: tx, raw: true })).map(presentBreed));
   return [...breeds];
 }
 

@@ -103,7 +103,7 @@ export async function farmDirectoryOf(
   tx: Transaction,
 ): Promise<Map<string, { id: string; name: string; timeZone: string; weightUnit: Farm['weightUnit'] }>> {
   return onceInTransaction(tx, farmDirectoryKey(coopId), async () => {
-    const farms = await Farm.findAll({ where: { coopId }, attributes: ['id', 'name', 'timeZone', 'weightUnit'], transaction: tx });
+    const farms = await Farm.findAll({ where: { coopId }, attributes: ['id', 'name', 'timeZone', 'weightUnit'], transaction: tx, raw: true });
     return new Map(farms.map((f) => [f.id, { id: f.id, name: f.name, timeZone: f.timeZone, weightUnit: f.weightUnit }]));
   });
 }
