@@ -82,7 +82,6 @@ const endpoints: Endpoint[] = [
   },
   {
     name: 'the litters',
-    over: { ownBudget: 7, why: 'each state\'s count (with the total), the page of litters, their events, the dams’ earlier litters, the animals and the breeds they present' },
     async arrange(coop) {
       const { litter } = await litterAs(coop.member, { servicedDaysAgo: 60, kindledDaysAgo: 29, bornAlive: 7 });
       return { url: '/api/litters?pageSize=10', asker: coop.member, growTo: litterGrower(coop.id, litter.id) };
