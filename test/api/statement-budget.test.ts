@@ -97,7 +97,6 @@ const endpoints: Endpoint[] = [
   },
   {
     name: "the Almanac's week",
-    over: { ownBudget: 9, why: 'the tasks three times (in range, overdue, for review), the animals twice, the breeds, the settings, a count' },
     async arrange(coop) {
       const taskId = await openTaskOf(coop);
       return { url: '/api/almanac/summary', asker: coop.member, growTo: taskGrower(coop.id, taskId) };
@@ -105,7 +104,7 @@ const endpoints: Endpoint[] = [
   },
   {
     name: 'the Almanac tasks',
-    over: { ownBudget: 10, why: 'as the week, and who completed the tasks' },
+    over: { ownBudget: 6, why: 'as the week (the clock, the tasks with the count waiting for review, the settings, the animals, the breeds), and who completed the tasks' },
     async arrange(coop) {
       const taskId = await openTaskOf(coop);
       return { url: '/api/almanac/tasks?days=62', asker: coop.member, growTo: taskGrower(coop.id, taskId) };
