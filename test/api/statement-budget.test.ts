@@ -89,7 +89,6 @@ const endpoints: Endpoint[] = [
   },
   {
     name: 'the services',
-    over: { ownBudget: 7, why: 'the total, the cycle settings, the page of services, their palpations, the animals and the breeds they present' },
     async arrange(coop) {
       const { service } = await litterAs(coop.member, { servicedDaysAgo: 60, kindledDaysAgo: 29, bornAlive: 7 });
       return { url: '/api/services?pageSize=10', asker: coop.member, growTo: grower(coop.id, 'services', service.id) };
