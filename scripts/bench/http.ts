@@ -1,7 +1,8 @@
 // HTTP benchmark at co-op scale: a co-op of 50 farms and 50,000 animals (`--200k`: 200,000) built on
 // demand into a cluster of its own under .data (kept, so reruns reuse it), the real API and a bare
 // node:http + pg endpoint running the API's own herd-list SELECT, loaded with autocannon round by
-// round, alternating the two. Prints p50, p99, req/s, the API/bare ratio, the load average, the SQL
+// round, alternating the two. Prints p50, p99, req/s, the API/bare ratio, the CPU a request costs the
+// server and the database (which a busy machine changes far less than latency), the load average, the SQL
 // statements a request sends (pg_stat_statements), the other heavy reads at 10 connections and the
 // plans of the heavy queries. Prints figures; never a timed test.
 // Run: `npm run bench http` (or `npm run bench http -- --200k`). BENCH_PG_PORT (default 54380),
@@ -85,15 +86,23 @@ async function captureHerdQuery(): Promise<void> {
   const handle = createApp({ appUrl: url });
   server.on('request', handle.app);
   const cookie = await signIn(url);
-  let captured: { sql: string; bind: unknown[] } | null = null;
-  const hook = (options: { bind?: unknown }, query: { sql?: string }) => {
-    const sql = query.sql ?? '';
-    if (/FROM animals a/.test(sql) && (!captured || sql.length > captured.sql.length)) captured = { sql, bind: (options.bind as unknown[]) ?? [] };
-  };
-  database().addHook('afterQuery', 'bench-capture', hook as never);
+  // Taken where every statement goes out, on pg's client: as text and values, and with its name when
+  // the API sends it as a prepared statement (the bare endpoint then prepares it too).
+  let captured: { sql: string; bind: unknown[]; name?: string } | null = null;
+  const pg = (await import('pg')).default;
+  const send = pg.Client.prototype.query;
+  pg.Client.prototype.query = function capture(this: unknown, ...args: unknown[]) {
+    const [first, second] = args as [string | { text?: string; values?: unknown[]; name?: string }, unknown];
+    const sql = typeof first === 'string' ? first : (first?.text ?? '');
+    const bind = typeof first === 'string' ? (Array.isArray(second) ? second : []) : (first?.values ?? []);
+    if (/FROM animals a/.test(sql) && (!captured || sql.length > captured.sql.length)) {
+      captured = { sql, bind, ...(typeof first === 'object' && first?.name ? { name: first.name } : {}) };
+    }
+    return (send as (...a: unknown[]) => unknown).apply(this, args);
+  } as typeof send;
   const res = await fetch(`${url}/api/animals`, { headers: { cookie } });
   const body = (await res.json()) as { items: unknown[]; total: number };
-  database().removeHook('afterQuery', 'bench-capture');
+  pg.Client.prototype.query = send;
   server.closeAllConnections();
   await new Promise<void>((resolve) => server.close(() => resolve()));
   if (!captured) throw new Error('the herd list sent no SELECT from animals');
@@ -124,11 +133,51 @@ function startChild(script: string, args: string[]): Promise<{ child: ChildProce
 }
 
 const ms = (value: number) => `${value.toFixed(0)} ms`.padStart(8);
+
+// CPU time (user + system) a process has used, and the database's backends together, from /proc: the cost of
+// a request in CPU holds on a busy machine, where latency and throughput mostly tell how busy it is.
+const ticksPerSecond = Number(spawnSync('getconf', ['CLK_TCK'], { encoding: 'utf8' }).stdout.trim()) || 100;
+function cpuMsOf(pid: number): number {
+  try {
+    const fields = fs.readFileSync(`/proc/${pid}/stat`, 'utf8').replace(/^.*\) /, '').split(' ');
+    return ((Number(fields[11]) + Number(fields[12])) * 1000) / ticksPerSecond;
+  } catch {
+    return 0;
+  }
+}
+const postmasterPid = Number(fs.readFileSync(path.join(root, '.data', name, 'postmaster.pid'), 'utf8').split('\n')[0]);
+/** CPU milliseconds of each backend of the benchmark's cluster, by process id. */
+function databaseCpuMs(): Map<number, number> {
+  const backends = new Map<number, number>();
+  for (const entry of fs.readdirSync('/proc')) {
+    if (!/^\d+$/.test(entry)) continue;
+    try {
+      const ppid = Number(fs.readFileSync(`/proc/${entry}/stat`, 'utf8').replace(/^.*\) /, '').split(' ')[1]);
+      if (ppid === postmasterPid) backends.set(Number(entry), cpuMsOf(Number(entry)));
+    } catch {
+      // the process ended meanwhile
+    }
+  }
+  return backends;
+}
+/** What the backends used between two readings (one that ended meanwhile is left out; one that started counts whole). */
+function databaseCpuSince(before: Map<number, number>): number {
+  let total = 0;
+  for (const [pid, now] of databaseCpuMs()) total += now - (before.get(pid) ?? 0);
+  return total;
+}
+/** Runs `work` and answers the CPU milliseconds a request cost the server process and the database. */
+async function cpuPerRequest<T extends { requests: number }>(serverPid: number, work: () => Promise<T>): Promise<T & { nodeMs: number; databaseMs: number }> {
+  const [node0, db0] = [cpuMsOf(serverPid), databaseCpuMs()];
+  const result = await work();
+  const n = Math.max(result.requests, 1);
+  return { ...result, nodeMs: (cpuMsOf(serverPid) - node0) / n, databaseMs: databaseCpuSince(db0) / n };
+}
 async function load(url: string, connections: number, init: { method?: string; body?: string; headers?: Record<string, string> } = {}, seconds = SECONDS) {
   // A generous timeout: on a busy machine a slow answer is a figure, not an error.
   const result = await autocannon({ url, connections, duration: seconds, timeout: 60, method: init.method ?? 'GET', body: init.body, headers: init.headers });
   const bad = result.non2xx + result.errors + result.timeouts;
-  return { p50: result.latency.p50, p99: result.latency.p99, rps: result.requests.total / result.duration, bad };
+  return { p50: result.latency.p50, p99: result.latency.p99, rps: result.requests.total / result.duration, bad, requests: result.requests.total };
 }
 
 /** SQL statements per request: pg_stat_statements around `n` sequential requests of the API. */
@@ -144,11 +193,11 @@ async function statementsPerRequest(send: () => Promise<Response>, n = 20): Prom
 }
 
 await captureHerdQuery();
-const api = await startChild('api-server.ts', [String(API_PORT)]);
+const apiServer = await startChild('api-server.ts', [String(API_PORT)]);
 const bareServer = await startChild('bare-server.ts', [String(BARE_PORT), queryFile]);
-const apiUrl = `http://127.0.0.1:${api.port}`;
+const apiUrl = `http://127.0.0.1:${apiServer.port}`;
 const bareUrl = `http://127.0.0.1:${bareServer.port}`;
-const stop = () => [api.child, bareServer.child].forEach((child) => child.kill('SIGTERM'));
+const stop = () => [apiServer.child, bareServer.child].forEach((child) => child.kill('SIGTERM'));
 process.on('exit', stop);
 try {
   const cookie = await signIn(apiUrl);
@@ -160,18 +209,20 @@ try {
   for (const connections of [50, 10]) {
     await load(`${apiUrl}/api/animals`, connections, { headers }, 2);
     await load(bareUrl, connections, {}, 2);
-    const api: Awaited<ReturnType<typeof load>>[] = [];
-    const bare: Awaited<ReturnType<typeof load>>[] = [];
+    const api: Awaited<ReturnType<typeof cpuPerRequest<Awaited<ReturnType<typeof load>>>>>[] = [];
+    const bare: typeof api = [];
     for (let round = 0; round < (connections === 50 ? ROUNDS : 1); round++) {
-      api.push(await load(`${apiUrl}/api/animals`, connections, { headers }));
-      bare.push(await load(bareUrl, connections));
+      api.push(await cpuPerRequest(apiServer.child.pid!, () => load(`${apiUrl}/api/animals`, connections, { headers })));
+      bare.push(await cpuPerRequest(bareServer.child.pid!, () => load(bareUrl, connections)));
     }
-    const avg = (list: typeof api, key: 'p50' | 'p99' | 'rps') => list.reduce((sum, r) => sum + r[key], 0) / list.length;
+    const avg = (list: typeof api, key: 'p50' | 'p99' | 'rps' | 'nodeMs' | 'databaseMs') => list.reduce((sum, r) => sum + r[key], 0) / list.length;
+    const cpu = (list: typeof api) => `CPU a request: server ${avg(list, 'nodeMs').toFixed(2)} ms + database ${avg(list, 'databaseMs').toFixed(2)} ms`;
     const [load1] = os.loadavg();
     console.log(`herd list, ${connections} connections, ${api.length} round(s) each (load average ${load1!.toFixed(2)}):`);
-    console.log(`  API   p50 ${ms(avg(api, 'p50'))}  p99 ${ms(avg(api, 'p99'))}  ${avg(api, 'rps').toFixed(1).padStart(6)} req/s${api.some((r) => r.bad) ? `  (${api.reduce((s, r) => s + r.bad, 0)} failed)` : ''}`);
-    console.log(`  bare  p50 ${ms(avg(bare, 'p50'))}  p99 ${ms(avg(bare, 'p99'))}  ${avg(bare, 'rps').toFixed(1).padStart(6)} req/s`);
-    console.log(`  API / bare throughput ${(avg(api, 'rps') / avg(bare, 'rps')).toFixed(2)}`);
+    console.log(`  API   p50 ${ms(avg(api, 'p50'))}  p99 ${ms(avg(api, 'p99'))}  ${avg(api, 'rps').toFixed(1).padStart(6)} req/s;  ${cpu(api)}${api.some((r) => r.bad) ? `  (${api.reduce((s, r) => s + r.bad, 0)} failed)` : ''}`);
+    console.log(`  bare  p50 ${ms(avg(bare, 'p50'))}  p99 ${ms(avg(bare, 'p99'))}  ${avg(bare, 'rps').toFixed(1).padStart(6)} req/s;  ${cpu(bare)}`);
+    const cpuRatio = (avg(bare, 'nodeMs') + avg(bare, 'databaseMs')) / (avg(api, 'nodeMs') + avg(api, 'databaseMs'));
+    console.log(`  API / bare throughput ${(avg(api, 'rps') / avg(bare, 'rps')).toFixed(2)}; by CPU a request (what a quiet machine would give) ${cpuRatio.toFixed(2)}`);
   }
 
   // The other heavy reads, at 10 connections.
@@ -189,7 +240,7 @@ try {
     const first = await fetch(`${apiUrl}${route}`, init as RequestInit);
     if (!first.ok) throw new Error(`${route}: ${first.status} ${(await first.text()).slice(0, 300)}`);
     await load(`${apiUrl}${route}`, 10, init, 2);
-    const r = await load(`${apiUrl}${route}`, 10, init);
+    const r = await cpuPerRequest(apiServer.child.pid!, () => load(`${apiUrl}${route}`, 10, init));
     const statements = await statementsPerRequest(() => fetch(`${apiUrl}${route}`, init as RequestInit), 10);
     // One connection, one request after another: the cost of one answer (and a figure even when none
     // of the loaded requests finished within a round).
@@ -201,7 +252,7 @@ try {
     }
     alone.sort((x, y) => x - y);
     console.log(`  ${label.padEnd(34)} p50 ${ms(r.p50)}  p99 ${ms(r.p99)}  ${r.rps.toFixed(1).padStart(6)} req/s${r.bad ? ` (${r.bad} failed)` : ''};  `
-      + `1 connection: median ${ms(alone[3]!)};  ${statements.toFixed(1)} statements a request`);
+      + `1 connection: median ${ms(alone[3]!)};  ${statements.toFixed(1)} statements a request;  CPU a request: server ${r.nodeMs.toFixed(1)} ms + database ${r.databaseMs.toFixed(1)} ms`);
   }
   const herdStatements = await statementsPerRequest(() => fetch(`${apiUrl}/api/animals`, { headers }));
   console.log(`  herd list: ${herdStatements.toFixed(1)} statements a request (session and transaction included)`);

@@ -96,7 +96,6 @@ const endpoints: Endpoint[] = [
   },
   {
     name: 'the litters',
-    over: { ownBudget: 7, why: 'each state\'s count (with the total), the page of litters, their events, the dams’ earlier litters, the animals and the breeds they present' },
     async arrange(coop) {
       const { litter } = await litterAs(coop.member, { servicedDaysAgo: 60, kindledDaysAgo: 29, bornAlive: 7 });
       return { url: '/api/litters?pageSize=10', asker: coop.member, growTo: litterGrower(coop.id, litter.id) };
@@ -104,7 +103,6 @@ const endpoints: Endpoint[] = [
   },
   {
     name: 'the services',
-    over: { ownBudget: 7, why: 'the total, the cycle settings, the page of services, their palpations, the animals and the breeds they present' },
     async arrange(coop) {
       const { service } = await litterAs(coop.member, { servicedDaysAgo: 60, kindledDaysAgo: 29, bornAlive: 7 });
       return { url: '/api/services?pageSize=10', asker: coop.member, growTo: grower(coop.id, 'services', service.id) };
@@ -112,7 +110,6 @@ const endpoints: Endpoint[] = [
   },
   {
     name: "the Almanac's week",
-    over: { ownBudget: 9, why: 'the tasks three times (in range, overdue, for review), the animals twice, the breeds, the settings, a count' },
     async arrange(coop) {
       const taskId = await openTaskOf(coop);
       return { url: '/api/almanac/summary', asker: coop.member, growTo: taskGrower(coop.id, taskId) };
@@ -120,7 +117,7 @@ const endpoints: Endpoint[] = [
   },
   {
     name: 'the Almanac tasks',
-    over: { ownBudget: 10, why: 'as the week, and who completed the tasks' },
+    over: { ownBudget: 6, why: 'as the week (the clock, the tasks with the count waiting for review, the settings, the animals, the breeds), and who completed the tasks' },
     async arrange(coop) {
       const taskId = await openTaskOf(coop);
       return { url: '/api/almanac/tasks?days=62', asker: coop.member, growTo: taskGrower(coop.id, taskId) };

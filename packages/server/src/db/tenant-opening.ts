@@ -15,6 +15,11 @@ const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 /** The SQL that opens a tenant transaction, waiting on its connection for the first statement. */
 const pendingOpening = new WeakMap<object, string>();
 
+/** Whether the connection's transaction is still to open with the next statement (which then goes as text). */
+export function openingPendingOn(connection: object): boolean {
+  return pendingOpening.has(connection);
+}
+
 /** Transaction options that make Sequelize open the transaction for this co-op with its first statement. */
 export function tenantTransactionOptions(coopId: string): object {
   // Inlined as a literal so it can share a simple-protocol round trip: only a well-formed id is accepted.

@@ -35,15 +35,17 @@ function leanStore(PgStore: typeof connectPgSimple.PGStore, pool: pg.Pool, idleS
 
     override get(sid: string, callback: (err: unknown, session?: session.SessionData | null) => void): void {
       pool
-        .query<SessionRow>(
-          `SELECT s.sess, extract(epoch FROM s.expire::timestamptz)::float8 * 1000 AS expire_ms, u.*
+        .query<SessionRow>({
+          // Named, so each connection plans it once: every request sends it.
+          name: 'session-with-person',
+          text: `SELECT s.sess, extract(epoch FROM s.expire::timestamptz)::float8 * 1000 AS expire_ms, u.*
              FROM user_sessions s
              LEFT JOIN LATERAL auth_user_by_id(
                CASE WHEN s.sess->'passport'->>'user' ~* '^[0-9a-f-]{36}$' THEN (s.sess->'passport'->>'user')::uuid END
              ) u ON true
             WHERE s.sid = $1 AND s.expire >= to_timestamp($2)`,
-          [sid, Math.ceil(Date.now() / 1000)],
-        )
+          values: [sid, Math.ceil(Date.now() / 1000)],
+        })
         .then(({ rows: [row] }) => {
           if (!row) return callback(null, null);
           remember(this.storedExpiry, sid, row.expire_ms);

@@ -102,8 +102,17 @@ export interface AnimalDto extends PedigreeCardDto {
   updatedAt: string;
 }
 
+/**
+ * One row of the herd list: what the herd table and its phone cards show (and what the forms that pick
+ * an animal read), nothing more. The full record is the animal's own page.
+ */
+export type AnimalListItemDto = Pick<
+  AnimalDto,
+  'id' | 'tattoo' | 'name' | 'sex' | 'birthDate' | 'breedMakeup' | 'coi' | 'ageClass' | 'lifecycle' | 'disposition' | 'hutch' | 'custody' | 'latestWeight'
+>;
+
 export interface AnimalListDto {
-  items: AnimalDto[];
+  items: AnimalListItemDto[];
   total: number;
   page: number;
   pageSize: number;

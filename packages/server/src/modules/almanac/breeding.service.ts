@@ -1,4 +1,4 @@
-import { Op, type Transaction } from 'sequelize';
+import { literal, Op, type Transaction } from 'sequelize';
 import {
   checkPalpationDate, checkService, daysBetween, ErrorCode, kindlingStatus, MEDIUM_BREED_FIRST_BREEDING_DAYS,
   planAfterPalpation, planFromService, serviceOutcome, settleServiceTasksOnKindling, type ServiceOutcome, type BreedingCheck, type BreedingStockDto,
@@ -196,22 +196,29 @@ export async function listServices(actor: SessionUser, q: ServiceListQuery): Pro
     const where = { farmId, ...status, ...(q.doeId ? { doeId: q.doeId } : {}) };
     const dir = q.dir === 'desc' ? 'DESC' : 'ASC';
     const offset = (q.page - 1) * q.pageSize;
+    // Each row carries the count of all matching rows and its latest palpation, so neither is a statement of its own.
     const rows = await ServiceRecord.findAll({
       where,
+      attributes: {
+        include: [
+          [literal('count(*) OVER ()'), 'matching'],
+          [literal(`(SELECT p.result FROM palpations p WHERE p.service_id = "ServiceRecord".id ORDER BY p.palpated_on DESC, p.created_at DESC LIMIT 1)`), 'lastPalpation'],
+        ],
+      },
       order: [['servicedOn', dir], ['createdAt', dir], ['id', dir]],
       limit: q.pageSize,
       offset,
       transaction: tx,
     });
-    // A short page that is not past the end tells the total without counting.
-    const total = rows.length < q.pageSize && (rows.length > 0 || offset === 0) ? offset + rows.length : await ServiceRecord.count({ where, transaction: tx });
+    const extra = (r: ServiceRecord) => r.dataValues as unknown as { matching: string | number; lastPalpation: 'positive' | 'negative' | null };
+    // A page past the end has no row to carry the count.
+    const total = rows.length > 0 ? Number(extra(rows[0]!).matching) : offset === 0 ? 0 : await ServiceRecord.count({ where, transaction: tx });
     if (rows.length === 0) return { items: [], total, page: q.page, pageSize: q.pageSize };
     const clock = await farmClockOf(tx, actor.coopId, farmId);
     const { settings } = await settingsOf(tx, farmId);
-    const palpations = await Palpation.findAll({ where: { serviceId: { [Op.in]: rows.map((r) => r.id) } }, order: [['palpatedOn', 'ASC']], transaction: tx });
     const ctx = await presentContextOf(tx, actor.coopId, clock.today, { animalIds: rows.flatMap((r) => [r.doeId, r.buckId]) });
     const items = rows.map((r) =>
-      presentServiceListItem(r, { ...ctx, kindlingStatus: statusOf(r, clock.today, settings), lastPalpation: palpations.filter((p) => p.serviceId === r.id).at(-1)?.result ?? null }));
+      presentServiceListItem(r, { ...ctx, kindlingStatus: statusOf(r, clock.today, settings), lastPalpation: extra(r).lastPalpation ?? null }));
     return { items, total, page: q.page, pageSize: q.pageSize };
   });
 }

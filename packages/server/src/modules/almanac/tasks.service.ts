@@ -1,9 +1,10 @@
-import { Op, type Transaction, type WhereOptions } from 'sequelize';
+import { literal, Op, type Transaction, type WhereOptions } from 'sequelize';
 import {
   addDays, daysBetween, defineAbilityFor, ErrorCode, WEIGH_IN_REACH_DAYS, needsAttention, subjectOf, plannedTaskKinds, type AgendaDto, type AgendaQuery, type AlmanacSummaryDto,
   type AlmanacTaskDto, type EntryReviewInput, type TaskBulkInput, type TaskUpdateInput,
 } from '@burrowline/shared';
 import { accessibleWhere } from '../../db/scope';
+import { database } from '../../db/sequelize';
 import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
@@ -43,8 +44,14 @@ export async function presentContextOf(
 
 /** Tasks as the API shows them, on the farm's today. */
 export async function presentTasks(tx: Transaction, coopId: string, tasks: AlmanacTask[], today: string): Promise<AlmanacTaskDto[]> {
-  const ctx = await presentContextOf(tx, coopId, today, { animalIds: tasks.map((t) => t.animalId), userIds: tasks.map((t) => t.doneBy) });
-  return [...tasks].sort(byDue).map((t) => presentTask(t, ctx));
+  return (await presentTaskLists(tx, coopId, [tasks], today))[0]!;
+}
+
+/** Several lists of tasks presented with one read of the animals and people they name. */
+async function presentTaskLists(tx: Transaction, coopId: string, lists: AlmanacTask[][], today: string): Promise<AlmanacTaskDto[][]> {
+  const all = lists.flat();
+  const ctx = await presentContextOf(tx, coopId, today, { animalIds: all.map((t) => t.animalId), userIds: all.map((t) => t.doneBy) });
+  return lists.map((tasks) => [...tasks].sort(byDue).map((t) => presentTask(t, ctx)));
 }
 
 /** The tasks of some services, litters or arrivals (for their own pages), inside the caller's transaction. */
@@ -66,28 +73,41 @@ export async function openTasksOfAnimal(tx: Transaction, animalId: string, kinds
   });
 }
 
-async function openAndRange(tx: Transaction, actor: SessionUser, farmId: string, from: string, to: string, include: 'open' | 'all') {
+const OPEN_STATES = ['open', 'moved'];
+
+/**
+ * What the agenda and the week's cards show, in one read: the farm's tasks in [from, to] (open ones, or
+ * every state with `include: 'all'`), its open tasks already late, and those due by today (what needs
+ * attention), with the count of ticks waiting for review beside each row.
+ */
+async function agendaOf(tx: Transaction, actor: SessionUser, farmId: string, from: string, to: string, today: string, include: 'open' | 'all') {
   const scope = accessibleWhere(defineAbilityFor(actor), 'read', 'AlmanacTask');
-  const states = include === 'open' ? ['open', 'moved'] : ['open', 'moved', 'done', 'skipped'];
-  const inRange = await AlmanacTask.findAll({
-    where: { [Op.and]: [scope, { farmId, dueOn: { [Op.between]: [from, to] }, state: { [Op.in]: states } }] },
+  const openUntil = to > today ? to : today;
+  const tasks = await AlmanacTask.findAll({
+    where: {
+      [Op.and]: [scope, { farmId }, {
+        [Op.or]: [
+          { state: { [Op.in]: OPEN_STATES }, dueOn: { [Op.lte]: openUntil } },
+          ...(include === 'all' ? [{ state: { [Op.in]: ['done', 'skipped'] }, dueOn: { [Op.between]: [from, to] } }] : []),
+        ],
+      }],
+    },
+    attributes: {
+      include: [[literal(`(SELECT count(*)::int FROM almanac_tasks review WHERE review.farm_id = ${database().escape(farmId)} AND review.completion_review = 'pending')`), 'pendingReview']],
+    },
     transaction: tx,
   });
-  const overdue = await AlmanacTask.findAll({
-    where: { [Op.and]: [scope, { farmId, dueOn: { [Op.lt]: from }, state: { [Op.in]: ['open', 'moved'] } }] },
-    transaction: tx,
-  });
-  return { inRange, overdue };
-}
-
-async function attentionOf(tx: Transaction, farmId: string, today: string) {
-  const open = await AlmanacTask.findAll({ where: { farmId, state: { [Op.in]: ['open', 'moved'] }, dueOn: { [Op.lte]: today } }, transaction: tx });
+  const open = (t: AlmanacTask) => OPEN_STATES.includes(t.state);
+  const pendingReview = tasks.length > 0
+    ? Number((tasks[0]!.dataValues as unknown as { pendingReview: number }).pendingReview)
+    : await AlmanacTask.count({ where: { farmId, completionReview: 'pending' }, transaction: tx });
   const { settings } = await settingsOf(tx, farmId);
-  return needsAttention(open.map(toTaskRecord), today, settings);
-}
-
-async function pendingReviewOf(tx: Transaction, farmId: string): Promise<number> {
-  return AlmanacTask.count({ where: { farmId, completionReview: 'pending' }, transaction: tx });
+  return {
+    inRange: tasks.filter((t) => t.dueOn >= from && t.dueOn <= to),
+    overdue: tasks.filter((t) => open(t) && t.dueOn < from),
+    attention: needsAttention(tasks.filter((t) => open(t) && t.dueOn <= today).map(toTaskRecord), today, settings),
+    pendingReview,
+  };
 }
 
 /**
@@ -102,17 +122,18 @@ export async function listAgenda(actor: SessionUser, q: AgendaQuery): Promise<Ag
     const clock = await farmClockOf(tx, actor.coopId, farmId);
     const from = q.from ?? clock.today;
     const to = q.to ?? addDays(from, (q.days ?? 14) - 1);
-    const { inRange, overdue } = await openAndRange(tx, actor, farmId, from, to, q.include);
+    const { inRange, overdue, attention, pendingReview } = await agendaOf(tx, actor, farmId, from, to, clock.today, q.include);
+    const [tasks, late] = await presentTaskLists(tx, actor.coopId, [inRange, overdue], clock.today);
     return {
       farm: { id: farmId, name: clock.name },
       timeZone: clock.timeZone,
       today: clock.today,
       from,
       to,
-      tasks: await presentTasks(tx, actor.coopId, inRange, clock.today),
-      overdue: await presentTasks(tx, actor.coopId, overdue, clock.today),
-      attention: await attentionOf(tx, farmId, clock.today),
-      pendingReview: await pendingReviewOf(tx, farmId),
+      tasks: tasks!,
+      overdue: late!,
+      attention,
+      pendingReview,
     };
   });
 }
@@ -124,17 +145,17 @@ export async function almanacSummary(actor: SessionUser): Promise<AlmanacSummary
   return withTenant(actor, async (tx) => {
     const clock = await farmClockOf(tx, actor.coopId, farmId);
     const weekEnd = addDays(clock.today, 6);
-    const { inRange, overdue } = await openAndRange(tx, actor, farmId, clock.today, weekEnd, 'open');
-    const presented = await presentTasks(tx, actor.coopId, inRange, clock.today);
+    const { inRange, overdue, attention, pendingReview } = await agendaOf(tx, actor, farmId, clock.today, weekEnd, clock.today, 'open');
+    const [presented, late] = await presentTaskLists(tx, actor.coopId, [inRange, overdue], clock.today);
     return {
       farm: { id: farmId, name: clock.name },
       today: clock.today,
       weekEnd,
-      dueToday: presented.filter((t) => t.dueOn === clock.today),
-      thisWeek: presented.filter((t) => t.dueOn > clock.today),
-      overdue: await presentTasks(tx, actor.coopId, overdue, clock.today),
-      attention: await attentionOf(tx, farmId, clock.today),
-      pendingReview: await pendingReviewOf(tx, farmId),
+      dueToday: presented!.filter((t) => t.dueOn === clock.today),
+      thisWeek: presented!.filter((t) => t.dueOn > clock.today),
+      overdue: late!,
+      attention,
+      pendingReview,
     };
   });
 }

@@ -12,7 +12,7 @@ export function animalSubject(row: { coopId: string; owningFarmId: string | null
   return subjectOf('Animal', { coopId: row.coopId, owningFarmId: row.owningFarmId, keepingFarmId: row.keepingFarmId });
 }
 
-export function subjectOfRow(row: AnimalRow) {
+export function subjectOfRow(row: Pick<AnimalRow, 'coop_id' | 'owning_farm_id' | 'keeping_farm_id'>) {
   return animalSubject({ coopId: row.coop_id, owningFarmId: row.owning_farm_id, keepingFarmId: row.keeping_farm_id });
 }
 

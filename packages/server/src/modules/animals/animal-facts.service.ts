@@ -75,6 +75,7 @@ async function factsOfRows(tx: Transaction, coopId: string, rows: AnimalRow[]): 
 /** Facts of the co-op's animals by id (missing ids, e.g. another co-op's, are simply absent). */
 export async function animalFactsOf(tx: Transaction, coopId: string, ids: string[]): Promise<Map<string, AnimalFacts>> {
   const unique = [...new Set(ids)];
+  if (unique.length === 0) return new Map();
   const facts = await factsOfRows(tx, coopId, await selectAnimals(tx, coopId, 'a.id = ANY($2::uuid[])', [unique]));
   return new Map(facts.map((f) => [f.id, f]));
 }

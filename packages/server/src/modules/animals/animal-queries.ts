@@ -1,5 +1,6 @@
 import { QueryTypes, type Transaction } from 'sequelize';
 import type { Disposition, Lifecycle, Purity, ReviewState, Sex } from '@burrowline/shared';
+import { selectPrepared } from '../../db/prepared';
 import { database } from '../../db/sequelize';
 
 /** An animal with its pedigree figures (and, for full records, its latest weight), as SQL returns it. */
@@ -91,19 +92,28 @@ export async function selectAnimals(
   return database().query<AnimalRow>(sql, { bind: [coopId, ...params], type: QueryTypes.SELECT, transaction: tx });
 }
 
+/** A row of the herd list: only what the list shows and its access check need. */
+export type HerdListRow = Pick<
+  AnimalRow,
+  | 'id' | 'coop_id' | 'owning_farm_id' | 'keeping_farm_id' | 'tattoo' | 'name' | 'sex' | 'breed_id' | 'birth_date' | 'hutch'
+  | 'lifecycle' | 'disposition' | 'coi' | 'makeup_breeds' | 'makeup_unknown' | 'purity' | 'latest_grams' | 'latest_weighed_on' | 'latest_review_state'
+> & { total: number };
+
+const listColumns = `
+  a.id, a.coop_id, a.owning_farm_id, a.keeping_farm_id, a.tattoo, a.name, a.sex, a.breed_id,
+  a.birth_date::text AS birth_date, a.hutch, a.lifecycle, a.disposition, i.coi,
+  m.breeds AS makeup_breeds, m.unknown AS makeup_unknown, m.purity`;
+
 /**
- * The animals of a page (`pageSql` yields `id` and `position`), each with its own figures and latest weight
- * looked up by key: the figures are joined after paging, so the co-op's other rows are never read.
+ * The animals of a page (`pageSql` yields `id`, `position` and `total`), each with its own figures and
+ * latest weight looked up by key: the figures are joined after paging, so the co-op's other rows are never
+ * read. `full` reads whole records (the export), else only what the list shows.
  */
-export async function selectAnimalPage(
-  tx: Transaction,
-  pageSql: string,
-  bind: unknown[],
-  weightsSeenBy: string,
-): Promise<AnimalRow[]> {
+async function selectPage<Row extends object>(tx: Transaction, pageSql: string, bind: unknown[], weightsSeenBy: string, full: boolean): Promise<Row[]> {
   const viewer = `$${bind.length + 1}`;
   const sql = `WITH page AS MATERIALIZED (${pageSql})
-    SELECT ${columns}, w.total_grams AS latest_grams, w.weighed_on::text AS latest_weighed_on, w.review_state AS latest_review_state
+    SELECT ${full ? columns : listColumns}, page.total::int AS total,
+      w.total_grams AS latest_grams, w.weighed_on::text AS latest_weighed_on, w.review_state AS latest_review_state
     FROM page JOIN animals a ON a.id = page.id
     LEFT JOIN LATERAL (SELECT fi.coi FROM animal_inbreeding fi WHERE fi.animal_id = a.id LIMIT 1) i ON true
     LEFT JOIN LATERAL (
@@ -111,7 +121,15 @@ export async function selectAnimalPage(
     ) m ON true
     ${latestWeight(viewer)}
     ORDER BY page.position`;
-  return database().query<AnimalRow>(sql, { bind: [...bind, weightsSeenBy], type: QueryTypes.SELECT, transaction: tx });
+  return selectPrepared<Row>(tx, sql, [...bind, weightsSeenBy]);
+}
+
+export function selectHerdListPage(tx: Transaction, pageSql: string, bind: unknown[], weightsSeenBy: string): Promise<HerdListRow[]> {
+  return selectPage<HerdListRow>(tx, pageSql, bind, weightsSeenBy, false);
+}
+
+export function selectAnimalPage(tx: Transaction, pageSql: string, bind: unknown[], weightsSeenBy: string): Promise<(AnimalRow & { total: number })[]> {
+  return selectPage<AnimalRow & { total: number }>(tx, pageSql, bind, weightsSeenBy, true);
 }
 
 export async function selectAnimalById(tx: Transaction, coopId: string, id: string, opts: { weightsSeenBy?: string | null } = {}) {

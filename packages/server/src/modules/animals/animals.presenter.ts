@@ -1,9 +1,9 @@
 import type { AnimalNote } from './animal-note.model';
 import {
   ageClassOf, daysBetween, type AppAbility, subjectOf, seniorRangeFor, weightAgainstStandard, type AnimalDto, type BreedDto, type BreedMakeupDto,
-  type AnimalNoteDto, type CustodyStatus, type FarmRefDto, type PedigreeCardDto, type WeightUnit,
+  type AnimalListItemDto, type AnimalNoteDto, type CustodyStatus, type FarmRefDto, type PedigreeCardDto, type WeightUnit,
 } from '@burrowline/shared';
-import type { AnimalRow } from './animal-queries';
+import type { AnimalRow, HerdListRow } from './animal-queries';
 
 function animalRowSubject(row: AnimalRow) {
   return subjectOf('Animal', { coopId: row.coop_id, owningFarmId: row.owning_farm_id, keepingFarmId: row.keeping_farm_id });
@@ -40,8 +40,10 @@ export function presentMakeup(row: Pick<AnimalRow, 'makeup_breeds' | 'makeup_unk
   return { breeds, unknown: row.makeup_unknown ?? 0, purity: row.purity };
 }
 
+type BreedFacts = Pick<AnimalRow, 'purity' | 'makeup_breeds' | 'breed_id'>;
+
 /** The breed whose class rule and standard apply: the breed of a purebred, else the declared one. */
-export function standardBreedOf(row: AnimalRow, ctx: PresentContext): BreedDto | null {
+export function standardBreedOf(row: BreedFacts, ctx: Pick<PresentContext, 'breeds'>): BreedDto | null {
   if (row.purity === 'purebred' && row.makeup_breeds) {
     const [only] = Object.keys(row.makeup_breeds);
     if (only) return ctx.breeds.get(only) ?? null;
@@ -50,14 +52,14 @@ export function standardBreedOf(row: AnimalRow, ctx: PresentContext): BreedDto |
 }
 
 /** The class rule of a cross follows its largest share; unknown ancestry uses four classes. */
-function classRuleOf(row: AnimalRow, ctx: PresentContext): 4 | 6 {
+function classRuleOf(row: BreedFacts, ctx: Pick<PresentContext, 'breeds'>): 4 | 6 {
   const standard = standardBreedOf(row, ctx);
   if (standard) return standard.showClassCount;
   const largest = Object.entries(row.makeup_breeds ?? {}).sort((a, b) => b[1] - a[1])[0];
   return (largest && ctx.breeds.get(largest[0])?.showClassCount) || 4;
 }
 
-export function ageClassOfRow(row: AnimalRow, ctx: PresentContext) {
+export function ageClassOfRow(row: BreedFacts & Pick<AnimalRow, 'birth_date'>, ctx: Pick<PresentContext, 'breeds' | 'today'>) {
   return row.birth_date ? ageClassOf(row.birth_date, ctx.today, classRuleOf(row, ctx)) : null;
 }
 
@@ -88,19 +90,41 @@ export function presentCard(row: AnimalRow, ctx: PresentContext): PedigreeCardDt
   };
 }
 
-function custodyFor(row: AnimalRow, viewerFarmId: string | null): CustodyStatus {
+function custodyFor(row: Pick<AnimalRow, 'owning_farm_id' | 'keeping_farm_id'>, viewerFarmId: string | null): CustodyStatus {
   if (row.owning_farm_id === row.keeping_farm_id) return 'at_home';
   return viewerFarmId !== null && viewerFarmId === row.keeping_farm_id ? 'on_loan_here' : 'lent_out';
+}
+
+function latestWeightOf(row: Pick<AnimalRow, 'latest_grams' | 'latest_weighed_on' | 'latest_review_state'>) {
+  return row.latest_grams !== null && row.latest_weighed_on && row.latest_review_state
+    ? { grams: row.latest_grams, weighedOn: row.latest_weighed_on, reviewState: row.latest_review_state }
+    : null;
+}
+
+/** One row of the herd list, straight from its SQL row. */
+export function presentListItem(row: HerdListRow, ctx: Pick<PresentContext, 'breeds' | 'today' | 'viewerFarmId'>): AnimalListItemDto {
+  return {
+    id: row.id,
+    tattoo: row.tattoo,
+    name: row.name,
+    sex: row.sex,
+    birthDate: row.birth_date,
+    breedMakeup: presentMakeup(row, ctx),
+    coi: Math.min(1, Math.max(0, row.coi ?? 0)),
+    ageClass: ageClassOfRow(row, ctx),
+    lifecycle: row.lifecycle,
+    disposition: row.disposition,
+    hutch: row.hutch,
+    custody: custodyFor(row, ctx.viewerFarmId),
+    latestWeight: latestWeightOf(row),
+  };
 }
 
 /** The full record, for the farm that owns or keeps the animal. */
 export function presentAnimal(row: AnimalRow, ctx: PresentContext): AnimalDto {
   const ageClass = ageClassOfRow(row, ctx);
   const standard = standardBreedOf(row, ctx);
-  const latestWeight =
-    row.latest_grams !== null && row.latest_weighed_on && row.latest_review_state
-      ? { grams: row.latest_grams, weighedOn: row.latest_weighed_on, reviewState: row.latest_review_state }
-      : null;
+  const latestWeight = latestWeightOf(row);
   const judged = latestWeight && latestWeight.reviewState === 'accepted' && ageClass === 'senior';
   return {
     ...presentCard(row, ctx),

@@ -1,34 +1,57 @@
-import { defineAbilityFor, ErrorCode, type AnimalDetailDto, type AnimalListDto, type AnimalListQuery } from '@burrowline/shared';
+import type { Transaction } from 'sequelize';
+import { defineAbilityFor, ErrorCode, type AnimalDetailDto, type AnimalDto, type AnimalListDto, type AnimalListQuery } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { presentContextFor } from './animal-context';
-import { query, selectAnimalById, selectAnimalPage } from './animal-queries';
+import { query, selectAnimalById, selectAnimalPage, selectHerdListPage, type HerdListRow } from './animal-queries';
 import { herdPageSql } from './herd-page';
 import { subjectOfRow } from './animal-access';
 import { detailOf } from './animal-detail';
-import { presentAnimal } from './animals.presenter';
+import { presentAnimal, presentListItem, type PresentContext } from './animals.presenter';
 
 /* The herd as its own screens read it: the farm's list and one animal's full record. */
 
-/** The actor's own herd (the animals their farm owns or keeps), filtered, sorted and paged in SQL. */
-export async function listHerd(actor: SessionUser, q: AnimalListQuery): Promise<AnimalListDto> {
+/**
+ * The actor's own herd (the animals their farm owns or keeps), filtered, sorted and paged in SQL; `present`
+ * turns each readable row of the page into what the caller answers.
+ */
+async function herdPage<Row extends HerdListRow, Item>(
+  actor: SessionUser,
+  q: AnimalListQuery,
+  select: (tx: Transaction, pageSql: string, bind: unknown[], weightsSeenBy: string) => Promise<Row[]>,
+  present: (row: Row, ctx: PresentContext) => Item,
+): Promise<{ items: Item[]; total: number; page: number; pageSize: number }> {
   return withTenant(actor, async (tx) => {
     const farmId = actor.farmId;
     if (!farmId) return { items: [], total: 0, page: q.page, pageSize: q.pageSize };
-    const ability = defineAbilityFor(actor);
     const ctx = await presentContextFor(actor, tx);
     const { pageSql, pageBind, countSql, countBind } = herdPageSql(q, actor.coopId, farmId, ctx.today);
-    const rows = await selectAnimalPage(tx, pageSql, pageBind, farmId);
-    const offset = (q.page - 1) * q.pageSize;
-    // A short page that is not past the end tells the total without counting.
-    const total = rows.length < q.pageSize && (rows.length > 0 || offset === 0)
-      ? offset + rows.length
-      : (await query<{ total: number }>(tx, countSql, countBind))[0]!.total;
-    // The SQL scope and the ability must agree row by row (architecture, "Permissions").
-    const items = rows.filter((row) => ability.can('read', subjectOfRow(row))).map((row) => presentAnimal(row, ctx));
+    const rows = await select(tx, pageSql, pageBind, farmId);
+    // Each row carries the count of all matching rows; a page past the end has none to carry it.
+    const total = rows[0]?.total ?? (q.page === 1 ? 0 : (await query<{ total: number }>(tx, countSql, countBind))[0]!.total);
+    // The SQL scope and the ability must agree row by row (architecture, "Permissions"); rows of the same
+    // owning and keeping farm answer alike, so each pair is asked once.
+    const readable = new Map<string, boolean>();
+    const canRead = (row: Row) => {
+      const pair = `${row.coop_id}/${row.owning_farm_id}/${row.keeping_farm_id}`;
+      let can = readable.get(pair);
+      if (can === undefined) readable.set(pair, (can = ctx.ability!.can('read', subjectOfRow(row))));
+      return can;
+    };
+    const items = rows.filter(canRead).map((row) => present(row, ctx));
     return { items, total, page: q.page, pageSize: q.pageSize };
   });
+}
+
+/** The herd list: one page of the farm's animals, each with what the list shows. */
+export function listHerd(actor: SessionUser, q: AnimalListQuery): Promise<AnimalListDto> {
+  return herdPage(actor, q, selectHerdListPage, presentListItem);
+}
+
+/** Whole records of the herd list's animals, in its order (the export of the list). */
+export function listHerdRecords(actor: SessionUser, q: AnimalListQuery): Promise<{ items: AnimalDto[]; total: number }> {
+  return herdPage(actor, q, selectAnimalPage, presentAnimal);
 }
 
 /**

@@ -43,9 +43,10 @@ const classRule = `(SELECT COALESCE(std.show_class_count, largest.show_class_cou
   ) largest ON true)`;
 
 export interface HerdPageSql {
-  /** The page's ids in order (`id`, `position`), to be joined to the figures. */
+  /** The page's ids in order (`id`, `position`) with the count of all matching rows (`total`), to be joined to the figures. */
   pageSql: string;
   pageBind: unknown[];
+  /** The count alone, for a page past the end (which has no row to carry it). */
   countSql: string;
   countBind: unknown[];
 }
@@ -92,10 +93,13 @@ export function herdPageSql(q: AnimalListQuery, coopId: string, farmId: string, 
   const orderBy = [key ? `sort_key ${dir}` : null, `tattoo_key ${dir}`, `id ${dir}`].filter(Boolean).join(', ');
   const limit = param(q.pageSize, '::bigint');
   const offset = param((q.page - 1) * q.pageSize, '::bigint');
-  const pageSql = `SELECT id, row_number() OVER () AS position FROM (
-      ${branch('a.owning_farm_id = $2')}
-      UNION ALL
-      ${branch(lentIn)}
+  // Every matching row is read for the sort anyway, so counting them there spares a statement.
+  const pageSql = `SELECT id, total, row_number() OVER () AS position FROM (
+      SELECT matching.*, count(*) OVER () AS total FROM (
+        ${branch('a.owning_farm_id = $2')}
+        UNION ALL
+        ${branch(lentIn)}
+      ) matching
       ORDER BY ${orderBy} LIMIT ${limit} OFFSET ${offset}
     ) ordered`;
   const countSql = `SELECT ((SELECT count(*) FROM animals a WHERE a.owning_farm_id = $2 AND ${filters})

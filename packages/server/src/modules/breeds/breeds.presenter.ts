@@ -1,7 +1,15 @@
 import type { BreedDto } from '@burrowline/shared';
 import type { Breed } from './breed.model';
 
-export function presentBreed(breed: Breed): BreedDto {
+/** What presenting reads of a breed: a model instance, or a row read with the same names. */
+export type BreedRow = Pick<
+  Breed,
+  | 'id' | 'coopId' | 'name' | 'seniorBuckMinGrams' | 'seniorBuckMaxGrams' | 'seniorDoeMinGrams' | 'seniorDoeMaxGrams' | 'idealWeightGrams'
+  | 'showClassCount' | 'bodyType' | 'sizeClass' | 'doeFirstBreedingMinDays' | 'doeFirstBreedingMaxDays' | 'buckFirstBreedingMinDays'
+  | 'buckFirstBreedingMaxDays' | 'slowGrowing' | 'heavyBoned' | 'meatNotes' | 'sources'
+>;
+
+export function presentBreed(breed: BreedRow): BreedDto {
   return {
     id: breed.id,
     name: breed.name,

@@ -2,12 +2,13 @@ import { ForbiddenError } from '@casl/ability';
 import { Op, type Transaction } from 'sequelize';
 import { defineAbilityFor, ErrorCode, poundsToGrams, subjectOf, type BreedCreateInput, type BreedDto, type SizeClass } from '@burrowline/shared';
 import { lockUntilCommit } from '../../db/advisory-lock';
+import { selectPrepared } from '../../db/prepared';
 import { withTenant } from '../../db/tenant';
 import { forgetInTransaction, onceInTransaction } from '../../db/transaction-memo';
 import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { Breed } from './breed.model';
-import { presentBreed } from './breeds.presenter';
+import { presentBreed, type BreedRow } from './breeds.presenter';
 
 /** UF/IFAS Florida 4-H (pub): an ideal weight of 9 lb or more shows in six classes. */
 const SIX_CLASS_FROM_GRAMS = poundsToGrams(9);
@@ -34,10 +35,18 @@ export async function listBreeds(actor: SessionUser): Promise<BreedDto[]> {
 
 const breedsKey = (coopId: string) => `breeds:${coopId}`;
 
+const breedsSql = `SELECT id, coop_id AS "coopId", name, senior_buck_min_grams AS "seniorBuckMinGrams",
+    senior_buck_max_grams AS "seniorBuckMaxGrams", senior_doe_min_grams AS "seniorDoeMinGrams", senior_doe_max_grams AS "seniorDoeMaxGrams",
+    ideal_weight_grams AS "idealWeightGrams", show_class_count AS "showClassCount", body_type AS "bodyType", size_class AS "sizeClass",
+    doe_first_breeding_min_days AS "doeFirstBreedingMinDays", doe_first_breeding_max_days AS "doeFirstBreedingMaxDays",
+    buck_first_breeding_min_days AS "buckFirstBreedingMinDays", buck_first_breeding_max_days AS "buckFirstBreedingMaxDays",
+    slow_growing AS "slowGrowing", heavy_boned AS "heavyBoned", meat_notes AS "meatNotes", sources
+  FROM breeds WHERE (coop_id IS NULL OR coop_id = $1) AND deleted_at IS NULL`;
+
 /** Every breed the co-op may use, inside the caller's transaction (for other domains). */
 export async function breedsOf(coopId: string, tx: Transaction): Promise<BreedDto[]> {
-  // Read once per transaction; each caller gets its own array to sort or filter.
-  const breeds = await onceInTransaction(tx, breedsKey(coopId), async () => (await Breed.findAll({ where: visibleTo(coopId), transaction: tx })).map(presentBreed));
+  // Read once per transaction, as plain rows (most requests present with them); each caller gets its own array to sort or filter.
+  const breeds = await onceInTransaction(tx, breedsKey(coopId), async () => (await selectPrepared<BreedRow>(tx, breedsSql, [coopId])).map(presentBreed));
   return [...breeds];
 }
 

@@ -3,6 +3,7 @@ import { col, fn, Op, where, type Transaction } from 'sequelize';
 import {
   defineAbilityFor, farmProfileUpdateSchema, RealtimeEvent, rooms, subjectOf, type FarmCoordinatesInput, type FarmDto, type FarmProfileInput,
 } from '@burrowline/shared';
+import { selectPrepared } from '../../db/prepared';
 import { accessibleWhere } from '../../db/scope';
 import { withTenant } from '../../db/tenant';
 import { forgetInTransaction, onceInTransaction } from '../../db/transaction-memo';
@@ -141,7 +142,12 @@ export async function farmDirectoryOf(
   tx: Transaction,
 ): Promise<Map<string, { id: string; name: string; timeZone: string; weightUnit: Farm['weightUnit'] }>> {
   return onceInTransaction(tx, farmDirectoryKey(coopId), async () => {
-    const farms = await Farm.findAll({ where: { coopId }, attributes: ['id', 'name', 'timeZone', 'weightUnit'], transaction: tx });
-    return new Map(farms.map((f) => [f.id, { id: f.id, name: f.name, timeZone: f.timeZone, weightUnit: f.weightUnit }]));
+    // Plain rows: most requests read it, to present farms or to know the farm's today.
+    const farms = await selectPrepared<{ id: string; name: string; timeZone: string; weightUnit: Farm['weightUnit'] }>(
+      tx,
+      'SELECT id, name, time_zone AS "timeZone", weight_unit AS "weightUnit" FROM farms WHERE coop_id = $1 AND deleted_at IS NULL',
+      [coopId],
+    );
+    return new Map(farms.map((f) => [f.id, f]));
   });
 }

@@ -11,9 +11,9 @@ import { animalFactsOf } from '../animals/animal-facts.service';
 import { addMessage, canSeeMoney, ensureCan, farmOf } from '../farms/farm-access';
 import { farmTodayOf } from '../farms/farm-clock';
 import { farmDirectoryOf } from '../farms/farms.service';
-import { groupOfFarm, groupsOfFarm, groupsPresentDuring, kitsInGroupsByLitter } from '../grow-out/grow-out-facts.service';
+import { groupNamesOf, groupOfFarm, groupsPresentDuring, kitsInGroupsByLitter } from '../grow-out/grow-out-facts.service';
 import {
-  farmLitterFactsOf, housingUnitNamesOf, housingUnitOfFarm, placementsDuring, type LitterFacts,
+  farmLitterFactsOf, housingUnitNamesOf, housingUnitOfFarm, litterFactsOf, placementsDuring, type LitterFacts,
 } from '../litters/litter-facts.service';
 import { namesOf } from '../users/users.service';
 import { FeedPurchase, FeedUse, FeedUseShare } from './feed.model';
@@ -78,9 +78,10 @@ async function presentOverview(tx: Transaction, actor: SessionUser, farmId: stri
   const money = canSeeMoney(actor, farmId);
   // Labels are looked up for the page's entries only.
   const shown = usesOnPage(ledger, page);
-  const shownLitterIds = new Set(shown.flatMap((u) => (ledger.sharesByUse.get(u.id) ?? []).map((s) => s.litterId)).filter((x): x is string => Boolean(x)));
-  const groups = new Map((await groupsOfFarm(tx, actor.coopId, farmId)).map((g) => [g.id, g.name]));
-  const litters = new Map((await farmLitterFactsOf(tx, actor.coopId, farmId)).filter((l) => shownLitterIds.has(l.id)).map((l) => [l.id, l]));
+  const shownShares = shown.flatMap((u) => ledger.sharesByUse.get(u.id) ?? []);
+  const present = (ids: (string | null | undefined)[]) => ids.filter((x): x is string => Boolean(x));
+  const groups = await groupNamesOf(tx, actor.coopId, present([...shown.map((u) => u.groupId), ...shownShares.map((s) => s.groupId)]));
+  const litters = await litterFactsOf(tx, actor.coopId, present(shownShares.map((s) => s.litterId)));
   const animals = await animalFactsOf(tx, actor.coopId, [...shown.map((u) => u.doeId), ...[...litters.values()].map((l) => l.damId)].filter((x): x is string => Boolean(x)));
   const units = await housingUnitNamesOf(tx, actor.coopId, shown.map((u) => u.housingUnitId).filter((x): x is string => Boolean(x)));
   const names = await namesOf(shown.map((u) => u.enteredBy), tx);

@@ -64,6 +64,15 @@ export async function groupsOfFarm(tx: Transaction, coopId: string, farmId: stri
   return groups.map((g) => ({ id: g.id, name: g.name, status: g.status, litterIds: members.filter((m) => m.groupId === g.id).map((m) => m.litterId) }));
 }
 
+/** Names of groups by id (another co-op's, and removed ones, are simply absent). */
+export async function groupNamesOf(tx: Transaction, coopId: string, groupIds: string[]): Promise<Map<string, string>> {
+  if (groupIds.length === 0) return new Map();
+  const groups = await GrowOutGroup.findAll({
+    where: { coopId, id: { [Op.in]: [...new Set(groupIds)] } }, attributes: ['id', 'name'], transaction: tx, raw: true,
+  });
+  return new Map(groups.map((g) => [g.id, g.name]));
+}
+
 /** Kits of each litter of a farm taken into groups, with the day they left the doe (the forming date). */
 export async function kitsInGroupsByLitter(tx: Transaction, coopId: string, farmId: string): Promise<Map<string, { on: string; heads: number }[]>> {
   const groups = await GrowOutGroup.findAll({ where: { coopId, farmId }, attributes: ['id', 'formedOn'], transaction: tx });

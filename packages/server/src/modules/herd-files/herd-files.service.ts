@@ -10,7 +10,7 @@ import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { animalAccess } from '../animals/animal-facts.service';
-import { getAnimal, listHerd } from '../animals/animals.service';
+import { getAnimal, listHerd, listHerdRecords } from '../animals/animals.service';
 import { herdRecordsForImport, importSpreadsheet, lockHerdForImport } from '../animals/herd-import.service';
 import { getPedigreeTree } from '../animals/pedigree.service';
 import { recordAudit } from '../audit/audit.service';
@@ -260,7 +260,7 @@ function slug(text: string): string {
  * units. Readable by everyone who reads the herd (apprentices too).
  */
 export async function exportHerdCsv(actor: SessionUser, query: HerdExportQuery): Promise<{ fileName: string; body: string; rows: number }> {
-  const herd = await listHerd(actor, { ...query, page: 1, pageSize: Number.MAX_SAFE_INTEGER });
+  const herd = await listHerdRecords(actor, { ...query, page: 1, pageSize: Number.MAX_SAFE_INTEGER });
   return withTenant(actor, async (tx) => {
     const farms = await farmDirectoryOf(actor.coopId, tx);
     const farm = actor.farmId ? farms.get(actor.farmId) : undefined;

@@ -101,7 +101,12 @@ export function presentEvent(e: LitterEvent, ctx: LitterPresentContext): LitterE
   };
 }
 
-export function presentLitterListItem(litter: Litter, summary: LitterSummary, ctx: LitterPresentContext, serviceId = litter.serviceId): LitterListItemDto {
+export function presentLitterListItem(
+  litter: Pick<Litter, 'id' | 'farmId' | 'damId' | 'sireId' | 'serviceId' | 'kindledOn' | 'bornAlive' | 'bornDead'>,
+  summary: LitterSummary,
+  ctx: LitterPresentContext,
+  serviceId = litter.serviceId,
+): LitterListItemDto {
   return {
     id: litter.id,
     farmId: litter.farmId,

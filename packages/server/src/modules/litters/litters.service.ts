@@ -1,11 +1,11 @@
 import { randomUUID } from 'node:crypto';
-import { literal, Op, QueryTypes, type Transaction } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 import {
   addDays, animalCreateSchema, checkKindlingDate, checkWeightForAge, daysBetween, ErrorCode, planFromKindling, RealtimeEvent, rooms, validateLitter,
   type EntryReviewInput, type FosterCandidateDto, type FosteringCreateInput, type KeeperCreateInput, type KindlingCreateInput,
   type LitterDto, type LitterEventCreateInput, type LitterIssue, type LitterListDto, type LitterListQuery, type LitterRecord,
 } from '@burrowline/shared';
-import { database } from '../../db/sequelize';
+import { selectPrepared } from '../../db/prepared';
 import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
@@ -56,9 +56,17 @@ async function eventsOf(tx: Transaction, litterIds: string[]): Promise<LitterEve
   return LitterEvent.findAll({ where: { litterId: { [Op.in]: litterIds } }, order: [['occurredOn', 'ASC'], ['createdAt', 'ASC']], transaction: tx });
 }
 
-async function presentContextForLitters(tx: Transaction, actor: SessionUser, today: string, litters: Litter[], events: LitterEvent[]): Promise<LitterPresentContext> {
+async function presentContextForLitters(
+  tx: Transaction,
+  actor: SessionUser,
+  today: string,
+  litters: Pick<Litter, 'id' | 'farmId' | 'damId' | 'sireId' | 'kindledOn'>[],
+  events: LitterEvent[],
+): Promise<LitterPresentContext> {
   const otherIds = events.map((e) => e.otherLitterId).filter((id): id is string => Boolean(id));
-  const others = await Litter.findAll({ where: { id: { [Op.in]: otherIds } }, attributes: ['id', 'farmId', 'damId', 'kindledOn'], transaction: tx });
+  const others = otherIds.length === 0
+    ? []
+    : await Litter.findAll({ where: { id: { [Op.in]: otherIds } }, attributes: ['id', 'farmId', 'damId', 'kindledOn'], transaction: tx });
   const ctx = await presentContextOf(tx, actor.coopId, today, {
     animalIds: [...litters.flatMap((l) => [l.damId, l.sireId]), ...others.map((o) => o.damId)],
     userIds: events.map((e) => e.enteredBy),
@@ -334,42 +342,61 @@ export async function getLitter(actor: SessionUser, litterId: string): Promise<L
  * Kits still with the doe of litter `alias`, in SQL: born alive, plus fostered in, less every kit that left,
  * counting the entries that are not returned (the presenter's rule). Looked up per litter by its index.
  */
-function kitsWithDoeSql(alias: string): string {
-  return `(${alias}.born_alive + COALESCE((
-    SELECT sum(CASE e.kind WHEN 'fostered_in' THEN e.kit_count ELSE -e.kit_count END) FROM litter_events e
-    WHERE e.litter_id = ${alias}.id AND e.deleted_at IS NULL AND e.review_state <> 'returned'), 0))`;
-}
-
 const litterOrder: Record<LitterListQuery['sort'], string[]> = {
   kindledOn: ['kindled_on', 'created_at', 'id'],
   bornAlive: ['born_alive', 'kindled_on', 'created_at', 'id'],
 };
+
+type LitterListRow = Pick<Litter, 'id' | 'farmId' | 'serviceId' | 'damId' | 'sireId' | 'kindledOn' | 'bornAlive' | 'bornDead'>;
+type LitterCounts = LitterListDto['counts'];
+
+/**
+ * The farm's litters with the kits each still has on the doe (born alive, fostered in and out, lost, culled
+ * and weaned, unless returned in review), each state's count, and one page of them in the chosen order:
+ * one statement. Every litter of the farm (of one dam) is counted anyway, so the page is taken from the same
+ * rows; the page then joins the litters' own columns. With no row on the page the counts come alone.
+ */
+function litterPageSql(q: LitterListQuery): string {
+  const dir = q.dir === 'desc' ? 'DESC' : 'ASC';
+  const order = litterOrder[q.sort].map((column) => `${column} ${dir}`).join(', ');
+  const status = q.status === 'all' ? 'true' : q.status === 'nursing' ? 'on_doe > 0' : 'on_doe <= 0';
+  return `WITH farm_litters AS MATERIALIZED (
+      SELECT l.id, l.kindled_on, l.born_alive, l.created_at, l.born_alive + COALESCE(ev.delta, 0) AS on_doe
+      FROM litters l
+      LEFT JOIN LATERAL (
+        SELECT sum(CASE e.kind WHEN 'fostered_in' THEN e.kit_count ELSE -e.kit_count END) AS delta FROM litter_events e
+        WHERE e.litter_id = l.id AND e.deleted_at IS NULL AND e.review_state <> 'returned'
+      ) ev ON true
+      WHERE l.farm_id = $1 AND l.deleted_at IS NULL AND ($2::uuid IS NULL OR l.dam_id = $2)
+    ), counts AS (
+      SELECT count(*) FILTER (WHERE on_doe > 0)::int AS nursing, count(*) FILTER (WHERE on_doe <= 0)::int AS weaned, count(*)::int AS "all"
+      FROM farm_litters
+    ), page AS (
+      SELECT id, row_number() OVER (ORDER BY ${order}) AS position FROM farm_litters WHERE ${status}
+      ORDER BY ${order} LIMIT $3::bigint OFFSET $4::bigint
+    )
+    SELECT counts.nursing, counts.weaned, counts."all", l.id, l.farm_id AS "farmId", l.service_id AS "serviceId", l.dam_id AS "damId",
+      l.sire_id AS "sireId", l.kindled_on::text AS "kindledOn", l.born_alive AS "bornAlive", l.born_dead AS "bornDead"
+    FROM counts LEFT JOIN (page JOIN litters l ON l.id = page.id) ON true
+    ORDER BY page.position`;
+}
 
 /** The farm's litters, filtered, sorted and paged in SQL, with the kits still on the doe and each state's count. */
 export async function listLitters(actor: SessionUser, q: LitterListQuery): Promise<LitterListDto> {
   const farmId = farmOf(actor);
   ensureCan(actor, 'read', 'Litter', { farmId }, 'Those litters');
   return withTenant(actor, async (tx) => {
-    const [counts] = await database().query<{ nursing: number; weaned: number; all: number }>(
-      `SELECT count(*) FILTER (WHERE on_doe > 0)::int AS nursing, count(*) FILTER (WHERE on_doe <= 0)::int AS weaned, count(*)::int AS "all"
-       FROM (SELECT ${kitsWithDoeSql('l')} AS on_doe FROM litters l WHERE l.farm_id = $1 AND l.deleted_at IS NULL AND ($2::uuid IS NULL OR l.dam_id = $2)) farm_litters`,
-      { bind: [farmId, q.damId ?? null], type: QueryTypes.SELECT, transaction: tx },
+    const rows = await selectPrepared<LitterCounts & { [K in keyof LitterListRow]: LitterListRow[K] | null }>(
+      tx, litterPageSql(q), [farmId, q.damId ?? null, q.pageSize, (q.page - 1) * q.pageSize],
     );
-    const total = counts![q.status];
-    const statusWhere = q.status === 'all' ? [] : [literal(`${kitsWithDoeSql('"Litter"')} ${q.status === 'nursing' ? '>' : '<='} 0`)];
-    const dir = q.dir === 'desc' ? 'DESC' : 'ASC';
-    const litters = total === 0 ? [] : await Litter.findAll({
-      where: { [Op.and]: [{ farmId }, ...(q.damId ? [{ damId: q.damId }] : []), ...statusWhere] },
-      order: litterOrder[q.sort].map((column) => [literal(`"Litter".${column}`), dir]),
-      limit: q.pageSize,
-      offset: (q.page - 1) * q.pageSize,
-      transaction: tx,
-    });
+    const { nursing, weaned, all } = rows[0]!;
+    const counts = { nursing, weaned, all };
+    const litters = rows.filter((r): r is typeof r & LitterListRow => r.id !== null);
     const clock = await farmClockOf(tx, actor.coopId, farmId);
     const events = await eventsOf(tx, litters.map((l) => l.id));
     const ctx = await presentContextForLitters(tx, actor, clock.today, litters, []);
     const items = litters.map((l) => presentLitterListItem(l, summaryOf(recordOf(l, events.filter((e) => e.litterId === l.id))), ctx));
-    return { items, total, page: q.page, pageSize: q.pageSize, counts: counts! };
+    return { items, total: counts[q.status], page: q.page, pageSize: q.pageSize, counts };
   });
 }
 

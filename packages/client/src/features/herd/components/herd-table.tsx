@@ -1,6 +1,6 @@
 import { createColumnHelper, getCoreRowModel, useReactTable, type SortingState, type VisibilityState } from '@tanstack/react-table';
 import { Link } from 'react-router-dom';
-import { formatWeight, herdColumns, type AnimalDto, type HerdSortKey, type HerdView, type WeightUnit } from '@burrowline/shared';
+import { formatWeight, herdColumns, type AnimalListItemDto, type HerdSortKey, type HerdView, type WeightUnit } from '@burrowline/shared';
 import { Badge } from '../../../components/ui/badge';
 import { DataTable } from '../../../components/ui/data-table';
 import { ageClassLabels, custodyLabels, lifecycleLabels, sexLabels } from '../herd-labels';
@@ -8,10 +8,10 @@ import { breedMakeupText, PurityBadge } from './breed-makeup';
 import { CoiValue } from './coi-badge';
 import { columnLabels } from './herd-filters';
 
-const column = createColumnHelper<AnimalDto>();
+const column = createColumnHelper<AnimalListItemDto>();
 const sortable = new Set<string>(['tattoo', 'name', 'sex', 'breed', 'birthDate', 'lifecycle', 'hutch', 'coi']);
 
-function WeightCell({ animal, unit }: { animal: AnimalDto; unit: WeightUnit }) {
+function WeightCell({ animal, unit }: { animal: AnimalListItemDto; unit: WeightUnit }) {
   if (!animal.latestWeight) return <span className="text-grey-500">—</span>;
   return (
     <span className="whitespace-nowrap">
@@ -51,7 +51,7 @@ function columnsFor(unit: WeightUnit) {
 }
 
 interface HerdTableProps {
-  animals: AnimalDto[];
+  animals: AnimalListItemDto[];
   view: HerdView;
   unit: WeightUnit;
   isRefreshing: boolean;
