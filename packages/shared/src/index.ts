@@ -34,3 +34,5 @@ export type { PackRule } from '@casl/ability/extra';
 export * from './text/count-of';
 export * from './schemas/ledger.schema';
 export * from './ledger';
+export * from './schemas/processing-days.schema';
+export * from './processing-days';

@@ -32,6 +32,8 @@ export const RealtimeEvent = {
   ledgerChanged: 'ledger:changed',
   /** A card checkout was settled by the card service; to the payer's user room. */
   cardCheckoutSettled: 'ledger:card-checkout-settled',
+  /** A processing day was scheduled, changed or closed, or its bookings, roster or capacity changed; to the co-op room. */
+  processingDayChanged: 'processing-day:changed',
 } as const;
 
 export interface ServerToClientEvents {
@@ -51,6 +53,14 @@ export interface ServerToClientEvents {
   [RealtimeEvent.growOutChanged]: (payload: { farmId: string; groupId: string | null }) => void;
   [RealtimeEvent.ledgerChanged]: (payload: { farmIds: string[] }) => void;
   [RealtimeEvent.cardCheckoutSettled]: (payload: { checkoutId: string; status: 'paid' | 'declined' }) => void;
+  [RealtimeEvent.processingDayChanged]: (payload: ProcessingDayChangedPayload) => void;
+}
+
+/** No money and no names travel: the screens refetch the day. */
+export interface ProcessingDayChangedPayload {
+  dayId: string;
+  what: 'scheduled' | 'changed' | 'capacity' | 'roster' | 'closed';
+  capacity: { capacityHead: number; bookedHead: number; offeredHead: number; waitlistedHead: number; freeHead: number };
 }
 
 // eslint-disable-next-line @typescript-eslint/no-empty-object-type
