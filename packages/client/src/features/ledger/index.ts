@@ -1,1 +1,2 @@
 export { ledgerKeys } from './api/keys';
+export { centsFromText } from './components/money-input';

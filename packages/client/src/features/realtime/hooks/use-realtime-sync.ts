@@ -15,6 +15,7 @@ import { litterKeys } from '../../litters';
 import { auditKeys, memberKeys } from '../../members';
 import { performanceKeys } from '../../performance';
 import { ledgerKeys } from '../../ledger';
+import { processingDayKeys } from '../../processing-days';
 
 /**
  * The one place where server events become cache updates. Mounted by the signed-in layout, so the
@@ -78,6 +79,8 @@ export function useRealtimeSync(): void {
       };
       // The Ledger of the person's farm or (admins) the co-op changed, or a card payment was settled: refetch its figures.
       const refreshLedger = () => void queryClient.invalidateQueries({ queryKey: ledgerKeys.all });
+      // A processing day was scheduled or changed, or its places, waiting list or roster moved: its screens refetch.
+      const refreshProcessingDays = () => void queryClient.invalidateQueries({ queryKey: processingDayKeys.all });
       const refreshAll = () => {
         refreshFarms();
         refreshLitters();
@@ -88,6 +91,7 @@ export function useRealtimeSync(): void {
         refreshHealth();
         refreshProcessing();
         refreshLedger();
+        refreshProcessingDays();
       };
       const endSession = ({ reason }: { reason: string }) =>
         void leaveSignedInArea(
@@ -112,6 +116,7 @@ export function useRealtimeSync(): void {
       socket.on(RealtimeEvent.processingChanged, refreshProcessing);
       socket.on(RealtimeEvent.ledgerChanged, refreshLedger);
       socket.on(RealtimeEvent.cardCheckoutSettled, refreshLedger);
+      socket.on(RealtimeEvent.processingDayChanged, refreshProcessingDays);
       socket.on(RealtimeEvent.sessionEnded, endSession);
       // Events sent while the connection was down are lost; refetch what they would have refreshed.
       socket.io.on('reconnect', refreshAll);
@@ -132,6 +137,7 @@ export function useRealtimeSync(): void {
         socket.off(RealtimeEvent.processingChanged, refreshProcessing);
         socket.off(RealtimeEvent.ledgerChanged, refreshLedger);
         socket.off(RealtimeEvent.cardCheckoutSettled, refreshLedger);
+        socket.off(RealtimeEvent.processingDayChanged, refreshProcessingDays);
         socket.off(RealtimeEvent.sessionEnded, endSession);
         socket.io.off('reconnect', refreshAll);
         disconnectRealtime();
