@@ -6,6 +6,8 @@ import { asTenant } from '../support/db';
 import { createTestCoop, TEST_PASSWORD } from '../support/factories';
 import { deliveredMailsTo, mailsTo, queuedMailTo, waitForMail } from '../support/mail';
 import { ROOMY_SIGN_IN, signedInAgent, testApp } from '../support/test-app';
+import { withTenant } from '../../packages/server/src/db/tenant';
+import { notify } from '../../packages/server/src/modules/notifications/notifications.service';
 
 const handle = testApp({ signIn: ROOMY_SIGN_IN });
 const agentOf = (email: string) => signedInAgent(email, TEST_PASSWORD, handle);
@@ -81,6 +83,29 @@ describe('the opt-in morning e-mail (pg-boss job, injectable clock)', { timeout:
     // Nobody else of the co-op asked for it (the job queues its e-mail before it completes).
     expect(await queuedMailTo(coop.admin.email)).toEqual([]);
     expect(await mailsTo(coop.admin.email)).toEqual([]);
+  });
+
+  it('when a person chose the morning e-mail for a kind of notification, then it arrives there once and not at once', async () => {
+    const coop = await createTestCoop();
+    const agent = await agentOf(coop.member.email);
+    await agent.put('/api/almanac/morning-email').send({ enabled: true, hour: 6 });
+    expect((await agent.put('/api/notifications/preferences').send({ preferences: [{ kind: 'stud.answered', delivery: 'digest' }] })).status).toBe(200);
+    await withTenant({ coopId: coop.id }, (tx) => notify(tx, {
+      coopId: coop.id, userIds: [coop.member.id], kind: 'stud.answered', title: 'Fern Gully accepted your request for Thistle',
+      link: '/stud-share/loans/2', mail: { subject: 'Your request is accepted', text: 'Fern Gully accepted.' }, key: `digest-test:${coop.id}`,
+    }));
+    expect(await queuedMailTo(coop.member.email)).toEqual([]);
+
+    const morning = addDays(farmToday(), 1);
+    const s = await scheduler(() => farmInstant(morning, 7, 0));
+    await finished(s, (await s.runNow())!);
+    const mail = await waitForMail(coop.member.email, { subject: /^Almanac for / });
+    expect(mail.text).toContain('From the co-op since yesterday:');
+    expect(mail.text).toContain('• Fern Gully accepted your request for Thistle — http://127.0.0.1:3000/stud-share/loans/2');
+    // The next morning has nothing new to carry, and an empty Almanac: no e-mail.
+    const next = await scheduler(() => farmInstant(addDays(morning, 1), 7, 0));
+    await finished(next, (await next.runNow())!);
+    expect((await queuedMailTo(coop.member.email)).filter((m) => m.subject.startsWith('Almanac for'))).toHaveLength(1);
   });
 
   it('when two app instances each run the job twice that morning, then the e-mail goes out once', async () => {

@@ -53,7 +53,9 @@ export type Target =
   | 'ledgerA'
   // A lent buck of farm A with private records of farm A (notes field, note, weigh-in, photo, treatment):
   // at home, lent to farm B (which records its own note, weigh-in and treatment), and back home.
-  | LoanStage;
+  | LoanStage
+  // A notification of farm A's member.
+  | 'notificationA';
 export type Body =
   | 'farmProfile'
   | 'application'
@@ -117,7 +119,8 @@ export type Body =
   | 'ledgerPayment'
   | 'dues'
   | 'cardCheckout'
-  | 'cardWebhook';
+  | 'cardWebhook'
+  | 'notificationPreferences';
 
 export interface MatrixRow {
   method: 'GET' | 'PATCH' | 'DELETE' | 'POST' | 'PUT';
@@ -323,6 +326,13 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'GET', path: '/api/photos/:photoId', target: 'afterLoan', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
   { method: 'GET', path: '/api/pedigree-certificates/:animalId', target: 'afterLoan', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
   { method: 'GET', path: '/api/treatments?animalId=:animalId', target: 'afterLoan', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  // The notification centre: everyone signed in has their own bell; one person's notification is nobody else's.
+  { method: 'GET', path: '/api/notifications', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/notifications/unread', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'POST', path: '/api/notifications/read', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/notifications/preferences', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'PUT', path: '/api/notifications/preferences', target: 'none', body: 'notificationPreferences', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'POST', path: '/api/notifications/:notificationId/read', target: 'notificationA', expect: { anonymous: 401, apprentice: 404, member: 200, otherFarmMember: 404, admin: 404, otherCoop: 404 } },
 ];
 
 /**
@@ -338,6 +348,7 @@ export const matrixAreas = [
   { area: 'litters-and-health', paths: /^\/api\/(litters|litter-events|housing-units|housing-placements|withdrawals|temperature-readings|heat-caution|processing-records|processing-marks)\b/ },
   { area: 'grow-out', paths: /^\/api\/(grow-out|feed|performance)\b/ },
   { area: 'ledger', paths: /^\/api\/(ledger|card-webhooks)\b/ },
+  { area: 'notifications', paths: /^\/api\/notifications\b/ },
 ] as const;
 
 export type MatrixArea = (typeof matrixAreas)[number]['area'];

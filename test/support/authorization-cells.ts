@@ -21,6 +21,7 @@ import { purchaseAs } from './grow-out';
 import { temperatureAs } from './health-yield';
 import { herdBody, herdStateOf, herdTarget } from './herd-matrix';
 import { ledgerBody, ledgerStateOf, ledgerTarget } from './ledger-matrix';
+import { notificationBody, notificationStateOf, notificationTarget } from './notifications-matrix';
 import { loanTarget, tracesHiddenFrom } from './lent-animal';
 import { agentFor, ROOMY_SIGN_IN, sharedSignedInAgent, signedInAgent, testApp, type Agent } from './test-app';
 
@@ -122,7 +123,7 @@ export function describeMatrixArea(area: MatrixArea) {
   }
 
   async function freshTarget(target: Target) {
-    return { ...(await membershipTarget(target)), ...(await herdTarget(coop, target)), ...(await almanacTarget(coop, target)), ...(await herdFilesTarget(coop, target)), ...(await loanTarget(coop, target)), ...(await ledgerTarget(coop, target, foreign)) };
+    return { ...(await membershipTarget(target)), ...(await herdTarget(coop, target)), ...(await almanacTarget(coop, target)), ...(await herdFilesTarget(coop, target)), ...(await loanTarget(coop, target)), ...(await ledgerTarget(coop, target, foreign)), ...(await notificationTarget(coop, target)) };
   }
   type TargetIds = Awaited<ReturnType<typeof freshTarget>>;
   const readTargets = new Map<Target, Promise<TargetIds>>();
@@ -201,12 +202,13 @@ export function describeMatrixArea(area: MatrixArea) {
           const path = pathWithIds(row.path, { ...ids, coopSlug: coop.slug });
           const personaOf = persona === 'otherCoop' ? foreign.admin : persona === 'anonymous' ? null : coop[persona];
           const body = (await bodyFor(row.body, ids, persona)) ?? (await herdBody(coop, row.body, ids))
-            ?? (await almanacBody(coop, row.body, ids, personaOf?.coopId ?? coop.id, personaOf?.farmId ?? null)) ?? ledgerBody(coop, row.body, ids);
+            ?? (await almanacBody(coop, row.body, ids, personaOf?.coopId ?? coop.id, personaOf?.farmId ?? null)) ?? ledgerBody(coop, row.body, ids) ?? notificationBody(row.body);
           const before = await stateOf(ids, persona);
           const herdBefore = await herdStateOf(coop.id, ids);
           const almanacBefore = await almanacStateOf(coop.id);
           const filesBefore = await herdFilesStateOf(coop.id, ids);
           const ledgerBefore = await ledgerStateOf(coop.id);
+          const notificationsBefore = await notificationStateOf(coop.id);
           const method = row.method.toLowerCase() as 'get' | 'patch' | 'delete' | 'post' | 'put';
           const res = await herdFilesSend(agent[method](path), row.body, body);
           expect(res.status).toBe(status);
@@ -229,6 +231,7 @@ export function describeMatrixArea(area: MatrixArea) {
             expect(await almanacStateOf(coop.id)).toEqual(almanacBefore);
             expect(await herdFilesStateOf(coop.id, ids)).toEqual(filesBefore);
             expect(await ledgerStateOf(coop.id)).toEqual(ledgerBefore);
+            expect(await notificationStateOf(coop.id)).toEqual(notificationsBefore);
           }
         });
       }

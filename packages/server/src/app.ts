@@ -35,6 +35,8 @@ import { growOutRoutes } from './modules/grow-out/grow-out.routes';
 import { feedRoutes } from './modules/feed/feed.routes';
 import { performanceRoutes } from './modules/performance/performance.routes';
 import { cardWebhookRoutes, ledgerRoutes } from './modules/ledger/ledger.routes';
+import { notificationRoutes } from './modules/notifications/notifications.routes';
+import { configureNotifications } from './modules/notifications/notifications.service';
 
 const defaultClientDist = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../client/dist');
 
@@ -53,6 +55,7 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
   connectDatabase(config.databaseUrl, config.databasePoolMax);
   configureMailer(config.smtp);
   configureMailOutbox({ retryDelaySeconds: config.mail.retryDelaySeconds });
+  configureNotifications({ appUrl: config.appUrl });
   // Queued e-mail goes out from every process that serves the app (several instances share the queue).
   const stopMailWorker = config.mail.worker ? startMailWorker({ connectionString: config.databaseUrl, pollingIntervalSeconds: config.mail.pollingIntervalSeconds }) : null;
   configureStorage({ dir: config.uploads.dir });
@@ -149,6 +152,7 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
   api.use('/performance', performanceRoutes());
   // The Ledger: fees and balances between farms and the co-op, statements, dues and card payments.
   api.use('/ledger', ledgerRoutes(config));
+  api.use('/notifications', notificationRoutes());
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -36,3 +36,4 @@ export * from './schemas/ledger.schema';
 export * from './ledger';
 export * from './schemas/processing-days.schema';
 export * from './processing-days';
+export * from './notifications';

@@ -34,6 +34,8 @@ export const RealtimeEvent = {
   cardCheckoutSettled: 'ledger:card-checkout-settled',
   /** A processing day was scheduled, changed or closed, or its bookings, roster or capacity changed; to the co-op room. */
   processingDayChanged: 'processing-day:changed',
+  /** A notification arrived for the person, or they read some; to their user room only. */
+  notificationsChanged: 'notifications:changed',
 } as const;
 
 export interface ServerToClientEvents {
@@ -54,6 +56,7 @@ export interface ServerToClientEvents {
   [RealtimeEvent.ledgerChanged]: (payload: { farmIds: string[] }) => void;
   [RealtimeEvent.cardCheckoutSettled]: (payload: { checkoutId: string; status: 'paid' | 'declined' }) => void;
   [RealtimeEvent.processingDayChanged]: (payload: ProcessingDayChangedPayload) => void;
+  [RealtimeEvent.notificationsChanged]: (payload: { unread: number; title: string | null; link: string | null }) => void;
 }
 
 /** No money and no names travel: the screens refetch the day. */

@@ -48,6 +48,7 @@ export type SubjectName =
   | 'AlmanacTask'
   | 'CalendarFeed'
   | 'DigestSubscription'
+  | 'Notification'
   | 'Litter'
   | 'LitterEvent'
   | 'HousingUnit'
@@ -152,6 +153,7 @@ export function defineAbilityFor(user: AbilityUser | null): AppAbility {
       privateRecordRules(can, cannot, farmId);
     }
     can('manage', 'DigestSubscription', { userId: user.id });
+    can('manage', 'Notification', { userId: user.id });
     cannot('read', 'Money');
     cannot('read', 'Ledger');
     return build();
@@ -184,6 +186,7 @@ export function defineAbilityFor(user: AbilityUser | null): AppAbility {
     privateRecordRules(can, cannot, farmId);
   }
   can('manage', 'DigestSubscription', { userId: user.id });
+  can('manage', 'Notification', { userId: user.id });
   can('create', 'OutsideAnimal', { coopId });
   can('create', 'Loan', { coopId });
   can('create', 'Trade', { coopId });

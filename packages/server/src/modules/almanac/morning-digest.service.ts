@@ -10,6 +10,7 @@ import { queueMail } from '../../lib/mail-outbox';
 import { composeMail, type MailMessage } from '../../lib/mailer';
 import { ensureCan, farmOf } from '../farms/farm-access';
 import { farmClockOf } from '../farms/farm-clock';
+import { takeDigestNotifications } from '../notifications/notifications.service';
 import { settingsOf } from './cycle-settings.service';
 import { DigestSubscription } from './digest-subscription.model';
 import { AlmanacTask } from './task.model';
@@ -70,7 +71,12 @@ function line(task: AlmanacTaskDto): string {
   return `• ${task.title}${who}${window}`;
 }
 
-function compose(recipient: Recipient, farmName: string, today: string, due: AlmanacTaskDto[], overdue: AlmanacTaskDto[], attention: TaskAttention[], appUrl: string): MailMessage {
+interface CoopNews {
+  title: string;
+  link: string;
+}
+
+function compose(recipient: Recipient, farmName: string, today: string, due: AlmanacTaskDto[], overdue: AlmanacTaskDto[], attention: TaskAttention[], news: CoopNews[], appUrl: string): MailMessage {
   // One paragraph per line: the HTML part shows each as its own line, the text part the same.
   const paragraphs: string[] = [];
   if (attention.length > 0) paragraphs.push('Needs attention:', ...attention.map((a) => `• ${a.message}`));
@@ -79,6 +85,7 @@ function compose(recipient: Recipient, farmName: string, today: string, due: Alm
   if (overdue.length > 0) {
     paragraphs.push('Overdue:', ...overdue.map((t) => `${line(t)}, due ${t.dueOn} (${t.daysLate === 1 ? '1 day' : `${t.daysLate} days`} late)`));
   }
+  if (news.length > 0) paragraphs.push('From the co-op since yesterday:', ...news.map((n) => `• ${n.title} — ${appUrl}${n.link}`));
   paragraphs.push('In hot weather, check heavily pregnant does and young litters first: rabbits suffer above about 85 °F (29 °C).');
   const counts = [`${due.length} ${due.length === 1 ? 'task' : 'tasks'} today`, overdue.length > 0 ? `${overdue.length} overdue` : null].filter(Boolean).join(', ');
   return composeMail({
@@ -123,13 +130,14 @@ export async function sendMorningDigests(opts: { now: Date; appUrl: string }): P
           { bind: [recipient.coop_id, recipient.user_id, recipient.farm_id, today, due.length, overdue.length], type: QueryTypes.SELECT, transaction: tx },
         );
         if (claimed.length === 0) return 'already';
-        if (open.length === 0) return 'quiet';
+        const news = await takeDigestNotifications(tx, recipient.user_id);
+        if (open.length === 0 && news.length === 0) return 'quiet';
         const clock = await farmClockOf(tx, recipient.coop_id, recipient.farm_id, opts.now);
         const message = compose(
           recipient, clock.name, today,
           await presentTasks(tx, recipient.coop_id, due, today),
           await presentTasks(tx, recipient.coop_id, overdue, today),
-          attention, opts.appUrl,
+          attention, news, opts.appUrl,
         );
         // Queued with the day's claim: the claim never commits without its e-mail.
         await queueMail(tx, `morning-digest:${recipient.user_id}:${today}`, message);
