@@ -39,7 +39,7 @@ function fieldOf(path: string) {
   return simple[path.split('.')[0] as keyof typeof simple] ?? null;
 }
 
-const DEFAULT_COSTS = [{ label: 'Bags and labels', amount: '' }, { label: 'Ice', amount: '' }, { label: 'Gas for the scald water', amount: '' }, { label: 'Site fee', amount: '' }];
+const DEFAULT_COSTS = ['Bags and labels', 'Ice', 'Gas', 'Site fee'].map((label) => ({ label, amount: '0.00' }));
 
 /**
  * The admin (or a host the admin allows) schedules a day at a site: when, how many head, the deadline, the
