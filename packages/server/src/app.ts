@@ -36,6 +36,7 @@ import { feedRoutes } from './modules/feed/feed.routes';
 import { performanceRoutes } from './modules/performance/performance.routes';
 import { cardWebhookRoutes, ledgerRoutes } from './modules/ledger/ledger.routes';
 import { notificationRoutes } from './modules/notifications/notifications.routes';
+import { processingDayRoutes } from './modules/processing-days/processing-days.routes';
 import { configureNotifications } from './modules/notifications/notifications.service';
 
 const defaultClientDist = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../client/dist');
@@ -153,6 +154,8 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
   // The Ledger: fees and balances between farms and the co-op, statements, dues and card payments.
   api.use('/ledger', ledgerRoutes(config));
   api.use('/notifications', notificationRoutes());
+  // Processing days: sites, scheduled days, bookings with their waitlist, the roster, yields and the day's close.
+  api.use('/processing-days', processingDayRoutes());
   api.use(apiNotFound);
   app.use('/api', api);
 

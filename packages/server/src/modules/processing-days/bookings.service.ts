@@ -319,12 +319,14 @@ export async function checkIn(actor: SessionUser, dayId: string, bookingId: stri
 
 /** Every booking of the day in the waitlist's order, cancelled ones last. */
 export async function listBookings(actor: SessionUser, dayId: string): Promise<BookingListDto> {
-  return withTenant(actor, async (tx) => {
-    const day = await findDay(tx, dayId);
-    const all = await bookingsOfDay(tx, dayId);
-    const ordered = [...all.filter((b) => b.status !== 'cancelled'), ...all.filter((b) => b.status === 'cancelled')];
-    return { items: await presentBookings(tx, actor, day, ordered, all), total: all.length };
-  });
+  return withTenant(actor, (tx) => listBookingsIn(tx, actor, dayId));
+}
+
+export async function listBookingsIn(tx: Transaction, actor: SessionUser, dayId: string): Promise<BookingListDto> {
+  const day = await findDay(tx, dayId);
+  const all = await bookingsOfDay(tx, dayId);
+  const ordered = [...all.filter((b) => b.status !== 'cancelled'), ...all.filter((b) => b.status === 'cancelled')];
+  return { items: await presentBookings(tx, actor, day, ordered, all), total: all.length };
 }
 
 /** What a farm may bring: its growing groups reaching target by the day first (the projection), then its planned culls; withdrawals shown with the day they end. */
@@ -347,7 +349,7 @@ export async function bookingCandidates(actor: SessionUser, dayId: string, farmI
         ...groups.map((g) => {
           const w = withdrawals.groups.get(g.id);
           return {
-            groupId: g.id, animalId: null, label: g.name, headAvailable: Math.max(0, g.headsLeft - (heldHeads.get(g.id) ?? 0)), projectedOn: g.projectedOn,
+            groupId: g.id, animalId: null, label: g.name, headAvailable: Math.max(0, g.headsLeft - (heldHeads.get(g.id) ?? 0)), projectedReadyOn: g.projectedOn,
             readyByDay: ['reached', 'ready', 'likely'].includes(g.readiness), eligibleOn: eligibleOn(w), eligible: !w,
           };
         }),
@@ -355,7 +357,7 @@ export async function bookingCandidates(actor: SessionUser, dayId: string, farmI
           const w = withdrawals.animals.get(c.animalId);
           return {
             groupId: null, animalId: c.animalId, label: animalLabel(animals.get(c.animalId)), headAvailable: heldHeads.has(c.animalId) ? 0 : 1,
-            projectedOn: null, readyByDay: true, eligibleOn: eligibleOn(w), eligible: !w,
+            projectedReadyOn: null, readyByDay: true, eligibleOn: eligibleOn(w), eligible: !w,
           };
         }),
       ],

@@ -1,6 +1,6 @@
 import type { Transaction } from 'sequelize';
 import {
-  addDays, defineAbilityFor, ErrorCode, subjectOf,
+  addDays, ErrorCode,
   type EquipmentItemDto, type ProcessingDayCreateInput, type ProcessingDayDto, type ProcessingDayListDto, type ProcessingDayListQuery,
   type ProcessingDayUpdateInput, type ProcessingFarmSettingsInput, type ProcessingSiteCreateInput, type ProcessingSiteDto,
   type ProcessingSiteUpdateInput, type RosterSignUpInput, type StationDto, type StationInput,
@@ -17,7 +17,7 @@ import { canBookFor, canHost, canSchedule, ensureSchedule, ensureSiteAdmin, isDa
 import { announceDay, noticeDayChanged, noticeDayScheduled } from './day-notices';
 import { presentCapacity, presentDay, presentDayListItem, presentSite } from './processing-days.presenter';
 import {
-  capacityOf, DAY_COLUMNS, findDay, findSite, lockDay, select, SITE_COLUMNS, type BookingRow, type DayRow, type SiteRow,
+  capacityOf, DAY_COLUMNS, findSite, lockDay, select, SITE_COLUMNS, type BookingRow, type DayRow, type SiteRow,
 } from './processing-days-store';
 import { promoteWaitlist } from './bookings.service';
 
@@ -443,9 +443,7 @@ export async function getFarmSettings(actor: SessionUser, farmId: string): Promi
 
 /** The farm's members (the apprentices' mentors) decide whether its apprentices may staff the stations. */
 export async function setFarmSettings(actor: SessionUser, farmId: string, input: ProcessingFarmSettingsInput): Promise<{ farmId: string; apprenticesMayStaff: boolean }> {
-  if (!defineAbilityFor(actor).can('manage', subjectOf('ProcessingBooking', { coopId: actor.coopId, farmId }))) {
-    ensureCan(actor, 'manage', 'ProcessingBooking', { farmId }, 'That farm', 'Only the farm\'s members decide what its apprentices may do');
-  }
+  ensureCan(actor, 'manage', 'ProcessingBooking', { farmId }, 'That farm', 'Only the farm\'s members decide what its apprentices may do');
   return withTenant(actor, async (tx) => {
     if (!(await farmDirectoryOf(actor.coopId, tx)).has(farmId)) throw AppError.notFound('That farm');
     await select(
