@@ -31,28 +31,28 @@ describe('processing days: the admin schedules a day, two farms book, the waitin
       await app.signIn(admin.page, coop.admin.email);
       await admin.page.goto(`${app.url}/processing-days/sites`);
       const siteForm = admin.page.getByRole('form', { name: 'Add a site' });
-      await siteForm.getByLabel('Site name').fill('Hollow barn');
-      await siteForm.getByLabel('Host farm').selectOption(farmA.id);
-      await siteForm.getByLabel('Capacity (head a day)').fill('40');
-      await siteForm.getByLabel('Chill capacity (head at once)').fill('30');
-      await siteForm.getByLabel('Address').fill('12 Bramble Lane, Test County');
+      await siteForm.getByLabel('Site name', { exact: true }).fill('Hollow barn');
+      await siteForm.getByLabel('Host farm', { exact: true }).selectOption(farmA.id);
+      await siteForm.getByLabel('Capacity (head a day)', { exact: true }).fill('40');
+      await siteForm.getByLabel('Chill capacity (head at once)', { exact: true }).fill('30');
+      await siteForm.getByLabel('Address', { exact: true }).fill('12 Bramble Lane, Test County');
       await siteForm.getByRole('button', { name: 'Add the site' }).click();
       await admin.page.getByRole('heading', { name: 'Hollow barn' }).waitFor();
 
       await admin.page.goto(`${app.url}/processing-days`);
       await admin.page.getByRole('link', { name: 'Schedule a day' }).click();
       const schedule = admin.page.getByRole('form', { name: 'Schedule a processing day' });
-      await schedule.getByLabel('Capacity (head)').fill('10');
-      await schedule.getByLabel('Date').fill(dayDate);
-      await schedule.getByLabel('Start time').fill('08:30');
-      await schedule.getByLabel('Sign-up deadline').fill(addDays(farmToday(), 10));
-      await schedule.getByLabel('Fee per head').fill('1.50');
+      await schedule.getByLabel('Capacity (head)', { exact: true }).fill('10');
+      await schedule.getByLabel('Date', { exact: true }).fill(dayDate);
+      await schedule.getByLabel('Start time', { exact: true }).fill('08:30');
+      await schedule.getByLabel('Sign-up deadline', { exact: true }).fill(addDays(farmToday(), 10));
+      await schedule.getByLabel('Fee per head', { exact: true }).fill('1.50');
       await schedule.getByRole('button', { name: 'Schedule the day' }).click();
       await admin.page.waitForURL(/\/processing-days\/[0-9a-f-]{36}$/);
       const dayUrl = admin.page.url();
       const dayId = dayUrl.split('/').pop()!;
       await admin.page.getByTestId('capacity-free').getByText('10', { exact: true }).waitFor();
-      await admin.page.getByTestId('day-cautions').getByText('Gloves when dressing (tularemia)').waitFor();
+      await admin.page.getByTestId('day-cautions').getByRole('listitem').filter({ hasText: 'Gloves when dressing (tularemia)' }).waitFor();
 
       // 2. Both members open the day; neither reloads from here on.
       await app.signIn(hazel.page, coop.member.email);
