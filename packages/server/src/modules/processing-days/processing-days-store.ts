@@ -87,6 +87,11 @@ export async function lockDay(tx: Transaction, dayId: string): Promise<DayRow> {
   return day;
 }
 
+export async function findDayOrNull(tx: Transaction, dayId: string): Promise<DayRow | null> {
+  const [day] = await select<DayRow>(tx, `SELECT ${DAY_COLUMNS} FROM processing_days d WHERE d.id = $1`, [dayId]);
+  return day ?? null;
+}
+
 export async function findDay(tx: Transaction, dayId: string): Promise<DayRow> {
   const [day] = await select<DayRow>(tx, `SELECT ${DAY_COLUMNS} FROM processing_days d WHERE d.id = $1`, [dayId]);
   if (!day) throw AppError.notFound('That processing day');

@@ -7,17 +7,17 @@ import {
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
 import { AppError } from '../../lib/app-error';
-import { enqueueJobIn } from '../../lib/mail-outbox';
+import { enqueueJobIn, handleJobs } from '../../lib/mail-outbox';
 import type { SessionUser } from '../../lib/session-user';
 import { ensureCan } from '../farms/farm-access';
 import { farmTodayIn } from '../farms/farm-clock';
 import { farmDirectoryOf } from '../farms/farms.service';
 import { findUser } from '../users/users.service';
 import { canBookFor, canHost, canSchedule, ensureSchedule, ensureSiteAdmin, isDayAdmin, seesMoney } from './day-access';
-import { announceDay, noticeDayChanged, noticeDayScheduled } from './day-notices';
+import { announceDay, noticeDayChanged, noticeDayScheduled, noticeReminder } from './day-notices';
 import { presentCapacity, presentDay, presentDayListItem, presentSite } from './processing-days.presenter';
 import {
-  capacityOf, DAY_COLUMNS, findSite, lockDay, select, SITE_COLUMNS, type BookingRow, type DayRow, type SiteRow,
+  capacityOf, DAY_COLUMNS, findSite, findDayOrNull, lockDay, select, SITE_COLUMNS, type BookingRow, type DayRow, type SiteRow,
 } from './processing-days-store';
 import { promoteWaitlist } from './bookings.service';
 
@@ -34,6 +34,31 @@ export interface ReminderJob {
 export function reminderInstant(day: Pick<DayRow, 'date' | 'sign_up_deadline'>, which: ReminderJob['which']): Date {
   return new Date(`${addDays(which === 'deadline' ? day.sign_up_deadline : day.date, -1)}T09:00:00Z`);
 }
+
+/**
+ * A reminder run: the farms with places (before the deadline, also those waiting) are told once per person
+ * and day, whichever worker or retry gets there first (the notice's key). A job queued for dates since moved
+ * stays quiet; the job of the current dates does the work.
+ */
+export async function sendDayReminders(job: ReminderJob, now: Date = new Date()): Promise<number> {
+  return withTenant({ coopId: job.coopId }, async (tx) => {
+    const day = await findDayOrNull(tx, job.dayId);
+    if (!day || day.status !== 'scheduled') return 0;
+    if (now < reminderInstant(day, job.which)) return 0;
+    // Too late to remind of a moment already past (a server down for days).
+    if (now.toISOString().slice(0, 10) > (job.which === 'deadline' ? day.sign_up_deadline : day.date)) return 0;
+    const statuses = job.which === 'deadline' ? ['booked', 'offered', 'waitlisted'] : ['booked'];
+    const farms = await select<{ farm_id: string }>(tx, 'SELECT DISTINCT farm_id FROM processing_bookings WHERE day_id = $1 AND status = ANY($2::text[]) ORDER BY farm_id', [day.id, statuses]);
+    if (farms.length === 0) return 0;
+    const site = await findSite(tx, day.site_id);
+    await noticeReminder(tx, { coopId: job.coopId, farmIds: farms.map((f) => f.farm_id), day, siteName: site.name, which: job.which });
+    return farms.length;
+  });
+}
+
+handleJobs<ReminderJob>(REMINDER_QUEUE, async (job) => {
+  await sendDayReminders(job);
+});
 
 async function queueReminders(tx: Transaction, coopId: string, day: DayRow): Promise<void> {
   for (const which of ['deadline', 'day-before'] as const) {
