@@ -55,7 +55,9 @@ export type Target =
   // at home, lent to farm B (which records its own note, weigh-in and treatment), and back home.
   | LoanStage
   // A notification of farm A's member.
-  | 'notificationA';
+  | 'notificationA'
+  // A processing day at a site of farm A in two weeks, with farm A's booking of 2 head and its member on the first station.
+  | 'dayA';
 export type Body =
   | 'farmProfile'
   | 'application'
@@ -120,7 +122,20 @@ export type Body =
   | 'dues'
   | 'cardCheckout'
   | 'cardWebhook'
-  | 'notificationPreferences';
+  | 'notificationPreferences'
+  | 'processingSite'
+  | 'processingSiteEdit'
+  | 'processingFarmSettings'
+  | 'processingDay'
+  | 'processingDayEdit'
+  | 'processingBooking'
+  | 'processingBookingEdit'
+  | 'processingBookingVersion'
+  | 'processingCheckIn'
+  | 'processingRosterMember'
+  | 'processingEquipmentClaim'
+  | 'processingYield'
+  | 'processingDayClose';
 
 export interface MatrixRow {
   method: 'GET' | 'PATCH' | 'DELETE' | 'POST' | 'PUT';
@@ -333,6 +348,32 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'GET', path: '/api/notifications/preferences', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'PUT', path: '/api/notifications/preferences', target: 'none', body: 'notificationPreferences', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'POST', path: '/api/notifications/:notificationId/read', target: 'notificationA', expect: { anonymous: 401, apprentice: 404, member: 200, otherFarmMember: 404, admin: 404, otherCoop: 404 } },
+  // Processing days: the whole co-op reads days and bookings; the admin keeps sites and schedules (the host only when
+  // allowed); a farm's members book for it; the host runs the day; another co-op's days do not exist.
+  { method: 'GET', path: '/api/processing-days/sites', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'POST', path: '/api/processing-days/sites', target: 'none', body: 'processingSite', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 201, otherCoop: 400 } },
+  { method: 'PATCH', path: '/api/processing-days/sites/:siteId', target: 'dayA', body: 'processingSiteEdit', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/processing-days/farm-settings/:farmId', target: 'farmA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'PUT', path: '/api/processing-days/farm-settings/:farmId', target: 'farmA', body: 'processingFarmSettings', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/processing-days', target: 'dayA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'POST', path: '/api/processing-days', target: 'dayA', body: 'processingDay', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 201, otherCoop: 404 } },
+  { method: 'GET', path: '/api/processing-days/:dayId', target: 'dayA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
+  { method: 'PATCH', path: '/api/processing-days/:dayId', target: 'dayA', body: 'processingDayEdit', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/processing-days/:dayId/candidates?farmId=:farmId', target: 'dayA', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/processing-days/:dayId/bookings', target: 'dayA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/processing-days/:dayId/bookings', target: 'dayA', body: 'processingBooking', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 403, admin: 201, otherCoop: 404 } },
+  { method: 'PATCH', path: '/api/processing-days/:dayId/bookings/:bookingId', target: 'dayA', body: 'processingBookingEdit', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/processing-days/:dayId/bookings/:bookingId/cancel', target: 'dayA', body: 'processingBookingVersion', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/processing-days/:dayId/bookings/:bookingId/confirm', target: 'dayA', body: 'processingBookingVersion', expect: { anonymous: 401, apprentice: 403, member: 409, otherFarmMember: 403, admin: 409, otherCoop: 404 } },
+  { method: 'POST', path: '/api/processing-days/:dayId/bookings/:bookingId/check-in', target: 'dayA', body: 'processingCheckIn', expect: { anonymous: 401, apprentice: 403, member: 409, otherFarmMember: 403, admin: 409, otherCoop: 404 } },
+  { method: 'POST', path: '/api/processing-days/:dayId/stations/:stationId/sign-up', target: 'dayA', expect: { anonymous: 401, apprentice: 403, member: 409, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/processing-days/:dayId/stations/:stationId/leave', target: 'dayA', body: 'processingRosterMember', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/processing-days/:dayId/equipment/:itemId/claim', target: 'dayA', body: 'processingEquipmentClaim', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/processing-days/:dayId/equipment/:itemId/release', target: 'dayA', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/processing-days/:dayId/yields', target: 'dayA', body: 'processingYield', expect: { anonymous: 401, apprentice: 403, member: 409, otherFarmMember: 403, admin: 409, otherCoop: 404 } },
+  { method: 'POST', path: '/api/processing-days/:dayId/close', target: 'dayA', body: 'processingDayClose', expect: { anonymous: 401, apprentice: 403, member: 409, otherFarmMember: 403, admin: 409, otherCoop: 404 } },
+  { method: 'GET', path: '/api/processing-days/:dayId/summary', target: 'dayA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/processing-days/:dayId/sheet.pdf', target: 'dayA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
 ];
 
 /**
@@ -349,6 +390,7 @@ export const matrixAreas = [
   { area: 'grow-out', paths: /^\/api\/(grow-out|feed|performance)\b/ },
   { area: 'ledger', paths: /^\/api\/(ledger|card-webhooks)\b/ },
   { area: 'notifications', paths: /^\/api\/notifications\b/ },
+  { area: 'processing-days', paths: /^\/api\/processing-days\b/ },
 ] as const;
 
 export type MatrixArea = (typeof matrixAreas)[number]['area'];

@@ -127,10 +127,14 @@ async function presentBookings(tx: Transaction, actor: SessionUser, day: DayRow,
   const queue = (all ?? (await bookingsOfDay(tx, day.id))).filter((b) => b.status === 'waitlisted').map((b) => b.id);
   const hostToday = farmTodayIn(directory, day.host_farm_id);
   const open = day.status === 'scheduled' && (isDayAdmin(actor) || hostToday <= day.sign_up_deadline);
+  const runsDay = isDayAdmin(actor) || canHost(actor, day);
   return rows.map((row) => {
     const mine = canBookFor(actor, row.farm_id);
     const live = row.status !== 'cancelled';
-    return presentBooking(row, {
+    // Which groups and animals a farm brings is its own business; the host and admin see the labels to run the day.
+    const ownFarm = actor.farmId === row.farm_id;
+    const shown = ownFarm ? row : { ...row, lines: runsDay ? row.lines.map((l) => ({ ...l, groupId: null, animalId: null })) : [] };
+    return presentBooking(shown, {
       farmName: directory.get(row.farm_id)?.name ?? 'A former member farm',
       waitlistPosition: row.status === 'waitlisted' ? queue.indexOf(row.id) + 1 : null,
       feePerHeadCents: seesMoney(actor, row.farm_id) ? cents(day.fee_per_head_cents) : null,

@@ -463,7 +463,10 @@ export async function releaseEquipment(actor: SessionUser, dayId: string, itemId
 
 export async function getFarmSettings(actor: SessionUser, farmId: string): Promise<{ farmId: string; apprenticesMayStaff: boolean }> {
   ensureCan(actor, 'read', 'ProcessingBooking', { farmId }, 'That farm', 'Only the farm\'s people see its settings');
-  return withTenant(actor, async (tx) => ({ farmId, apprenticesMayStaff: await apprenticesMayStaff(tx, farmId) }));
+  return withTenant(actor, async (tx) => {
+    if (!(await farmDirectoryOf(actor.coopId, tx)).has(farmId)) throw AppError.notFound('That farm');
+    return { farmId, apprenticesMayStaff: await apprenticesMayStaff(tx, farmId) };
+  });
 }
 
 /** The farm's members (the apprentices' mentors) decide whether its apprentices may staff the stations. */
