@@ -60,7 +60,7 @@ export function ProcessingDayPage() {
   const { data: day } = useDay(dayId);
   const { data: bookings } = useBookings(dayId);
   if (!day) return null;
-  const mine = bookings?.items.find((b) => b.farmId === me.user.farmId && b.status !== 'cancelled') ?? null;
+  const mine = bookings?.items.filter((b) => b.farmId === me.user.farmId && b.status !== 'cancelled') ?? [];
   return (
     <div className="space-y-6">
       <PageTitle>{`Processing day ${formatDate(day.date)}`}</PageTitle>
@@ -86,7 +86,7 @@ export function ProcessingDayPage() {
             <CapacityBar capacity={day.capacity} />
             {day.canEdit && day.status === 'scheduled' && <CapacityEditor key={day.version} dayId={day.id} capacity={day.capacity.capacityHead} version={day.version} />}
           </Card>
-          {day.status !== 'cancelled' && <MyBooking day={day} booking={mine} farmId={me.user.farmId} />}
+          {day.status !== 'cancelled' && <MyBooking day={day} bookings={mine} farmId={me.user.farmId} />}
         </div>
         <div className="space-y-6">
           <DayCautions cautions={day.cautions} />

@@ -44,10 +44,13 @@ export const useConfirmBooking = (dayId: string) =>
 export const useCheckIn = (dayId: string) =>
   useDayMutation(({ bookingId, ...body }: CheckInInput & { bookingId: string }) => apiFetch<BookingDto>(`${base}/${dayId}/bookings/${bookingId}/check-in`, { method: 'POST', body }));
 
+/** A place at a station for oneself; the admin or the host may name someone else. */
 export const useRosterSignUp = (dayId: string) =>
-  useDayMutation((placeId: string) => apiFetch<ProcessingDayDto>(`${base}/${dayId}/roster/${placeId}/sign-up`, { method: 'POST', body: {} }));
+  useDayMutation(({ stationId, userId }: { stationId: string; userId?: string }) =>
+    apiFetch<ProcessingDayDto>(`${base}/${dayId}/stations/${stationId}/sign-up`, { method: 'POST', body: userId ? { userId } : {} }));
 export const useRosterLeave = (dayId: string) =>
-  useDayMutation((placeId: string) => apiFetch<ProcessingDayDto>(`${base}/${dayId}/roster/${placeId}/leave`, { method: 'POST', body: {} }));
+  useDayMutation(({ stationId, userId }: { stationId: string; userId?: string }) =>
+    apiFetch<ProcessingDayDto>(`${base}/${dayId}/stations/${stationId}/leave`, { method: 'POST', body: userId ? { userId } : {} }));
 export const useClaimEquipment = (dayId: string) =>
   useDayMutation(({ itemId, farmId }: { itemId: string; farmId: string }) => apiFetch<ProcessingDayDto>(`${base}/${dayId}/equipment/${itemId}/claim`, { method: 'POST', body: { farmId } }));
 export const useReleaseEquipment = (dayId: string) =>

@@ -117,7 +117,7 @@ export function BookingForm({ dayId, farmId, candidates, freeHead, booking, onDo
         <Button type="submit" className="min-h-14 grow text-lg sm:grow-0" isBusy={booking ? change.isPending : book.isPending} disabled={total === 0}>
           {booking ? `Save: ${total} head` : waits ? `Join the waiting list: ${total} head` : `Book ${total} head`}
         </Button>
-        {onDone && booking && <Button variant="quiet" onClick={onDone}>Keep as it was</Button>}
+        {onDone && <Button variant="quiet" onClick={onDone}>{booking ? 'Keep as it was' : 'Not now'}</Button>}
       </div>
       {booking?.status === 'booked' && extra > 0 && extra > freeHead && <p className="text-sm text-grey-700">More head than are free: the change may be refused.</p>}
     </form>

@@ -1,10 +1,10 @@
 import { useState } from 'react';
-import { Link } from 'react-router-dom';
 import type { BookingDto, ProcessingDayDto, WeightUnit } from '@burrowline/shared';
 import { Alert } from '../../../components/ui/alert';
 import { Badge } from '../../../components/ui/badge';
 import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
+import { TextLink } from '../../../components/ui/text-link';
 import { errorText } from '../../../lib/form-errors';
 import { useCheckIn } from '../api/processing-day-mutations';
 import { bookingStatusLabels, bookingStatusTone } from '../processing-days-format';
@@ -57,7 +57,7 @@ export function BookingsPanel({ day, bookings, farmId, unit }: BookingsPanelProp
             <li key={b.id} className="space-y-3 rounded-xl border border-grey-200 p-3" data-testid={`booking-${b.farmId}`}>
               <div className="flex flex-wrap items-center justify-between gap-2">
                 <p className="min-w-0 font-semibold">{b.farmName}</p>
-                <span className="flex items-center gap-2">
+                <span className="ml-auto flex items-center gap-2">
                   <span className="text-lg font-bold tabular-nums">{b.head}</span>
                   <Badge tone={bookingStatusTone[b.status]}>{b.status === 'waitlisted' && b.waitlistPosition !== null ? `Waiting · ${b.waitlistPosition}` : bookingStatusLabels[b.status]}</Badge>
                 </span>
@@ -78,7 +78,7 @@ export function BookingsPanel({ day, bookings, farmId, unit }: BookingsPanelProp
         })}
       </ul>
       <p className="text-sm text-grey-700">
-        Yields are saved as each farm's processing records: see them in <Link className="font-semibold text-moss-deep underline" to="/grow-out/processing">Grow-out → Processing</Link>.
+        Yields are saved as each farm's processing records: see them in <TextLink to="/grow-out/processing">Grow-out → Processing</TextLink>.
       </p>
     </Card>
   );

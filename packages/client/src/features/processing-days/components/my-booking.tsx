@@ -17,30 +17,51 @@ import { BookingForm } from './booking-form';
 
 interface MyBookingProps {
   day: ProcessingDayDto;
-  /** The farm's live booking on the day (not cancelled), if any. */
-  booking: BookingDto | null;
+  /** The farm's live bookings on the day (not cancelled): usually one, or one booked and more head waiting. */
+  bookings: BookingDto[];
   farmId: string | null;
 }
 
 /** The reader's farm on this day: book, see her place or her turn on the waiting list, confirm an offered place, change or cancel. */
-export function MyBooking({ day, booking, farmId }: MyBookingProps) {
-  const [changing, setChanging] = useState(false);
-  const [cancelling, setCancelling] = useState(false);
-  const money = useMoney();
-  const confirm = useConfirmBooking(day.id);
-  const cancel = useCancelBooking(day.id);
-  const wantsForm = (!booking && day.canBook) || changing;
+export function MyBooking({ day, bookings, farmId }: MyBookingProps) {
+  const [adding, setAdding] = useState(false);
+  const wantsForm = day.canBook && (bookings.length === 0 || adding);
   const candidates = useCandidates(day.id, farmId, wantsForm);
 
   if (!farmId) return null;
   return (
     <Card className="space-y-4" data-testid="my-booking">
-      <div className="flex flex-wrap items-center justify-between gap-2">
-        <h2 className="text-xl font-bold">My booking</h2>
-        {booking && <Badge tone={bookingStatusTone[booking.status]}>{bookingStatusLabels[booking.status]}</Badge>}
-      </div>
+      <h2 className="text-xl font-bold">{bookings.length > 1 ? 'My bookings' : 'My booking'}</h2>
+      {bookings.map((booking) => <BookingBlock key={booking.id} day={day} booking={booking} farmId={farmId} />)}
+      {bookings.length === 0 && !day.canBook && <p className="text-grey-700">{day.deadlinePassed ? `Sign-up closed on ${formatDate(day.signUpDeadline)}.` : 'Booking is not open to you.'}</p>}
+      {bookings.length > 0 && day.canBook && !adding && <Button variant="quiet" onClick={() => setAdding(true)}>Book more head</Button>}
+      {wantsForm && (candidates.isPending ? (
+        <Spinner />
+      ) : candidates.isError ? (
+        <Alert tone="error">{errorText(candidates.error)}</Alert>
+      ) : (
+        <>
+          {bookings.length === 0 && <p className="text-grey-700">Choose what you bring, ready by the day first. Book by {formatDate(day.signUpDeadline)}.</p>}
+          <BookingForm dayId={day.id} farmId={farmId} candidates={candidates.data.items} freeHead={day.capacity.freeHead} onDone={adding ? () => setAdding(false) : undefined} />
+        </>
+      ))}
+    </Card>
+  );
+}
 
-      {booking?.status === 'offered' && (
+/** One booking of the farm: its head and lines, its place in line, an offer to confirm, change and cancel. */
+function BookingBlock({ day, booking, farmId }: { day: ProcessingDayDto; booking: BookingDto; farmId: string }) {
+  const [changing, setChanging] = useState(false);
+  const [cancelling, setCancelling] = useState(false);
+  const money = useMoney();
+  const confirm = useConfirmBooking(day.id);
+  const cancel = useCancelBooking(day.id);
+  const candidates = useCandidates(day.id, farmId, changing);
+  return (
+    <div className="space-y-3 border-t border-grey-200 pt-3 first-of-type:border-t-0 first-of-type:pt-0" data-testid={`my-booking-${booking.status}`}>
+      <Badge tone={bookingStatusTone[booking.status]}>{bookingStatusLabels[booking.status]}</Badge>
+
+      {booking.status === 'offered' && (
         <div className="space-y-3 rounded-xl border-2 border-clay bg-clay-wash p-4" data-testid="offered-place">
           <p className="flex items-start gap-2 text-lg font-bold text-clay-deep">
             <BellRing className="mt-1 size-5 shrink-0" aria-hidden="true" />
@@ -56,7 +77,7 @@ export function MyBooking({ day, booking, farmId }: MyBookingProps) {
         </div>
       )}
 
-      {booking && !changing && (
+      {!changing && (
         <div className="space-y-2">
           <p className="text-3xl font-bold tabular-nums" data-testid="my-booking-head">
             {booking.head} head
@@ -73,13 +94,13 @@ export function MyBooking({ day, booking, farmId }: MyBookingProps) {
         </div>
       )}
 
-      {booking && !changing && (booking.canChange || booking.canCancel) && !cancelling && (
+      {!changing && (booking.canChange || booking.canCancel) && !cancelling && (
         <div className="flex flex-wrap gap-3">
           {booking.canChange && booking.status !== 'offered' && <Button variant="secondary" onClick={() => setChanging(true)}>Change head</Button>}
           {booking.canCancel && <Button variant="secondary" className="border-clay text-clay-deep hover:bg-clay-wash" onClick={() => setCancelling(true)}>Cancel booking</Button>}
         </div>
       )}
-      {booking && cancelling && (
+      {cancelling && (
         <div className="space-y-3 rounded-xl border-2 border-clay p-4">
           <p className="font-semibold">Cancel your {booking.head} head{booking.status === 'waitlisted' ? ' on the waiting list' : ''}? The place goes to the next farm waiting.</p>
           <div className="flex flex-wrap gap-3">
@@ -91,29 +112,17 @@ export function MyBooking({ day, booking, farmId }: MyBookingProps) {
           {cancel.isError && <Alert tone="error">{errorText(cancel.error)}</Alert>}
         </div>
       )}
-      {booking && !booking.canChange && !booking.canCancel && day.deadlinePassed && day.status === 'scheduled' && (
+      {!booking.canChange && !booking.canCancel && day.deadlinePassed && day.status === 'scheduled' && (
         <p className="text-grey-700">Sign-up closed on {formatDate(day.signUpDeadline)}: changes now go through the co-op's admin.</p>
       )}
 
-      {!booking && !day.canBook && <p className="text-grey-700">{day.deadlinePassed ? `Sign-up closed on ${formatDate(day.signUpDeadline)}.` : 'Booking is not open to you.'}</p>}
-      {wantsForm && (candidates.isPending ? (
+      {changing && (candidates.isPending ? (
         <Spinner />
       ) : candidates.isError ? (
         <Alert tone="error">{errorText(candidates.error)}</Alert>
       ) : (
-        <>
-          {!booking && <p className="text-grey-700">Choose what you bring. Ready by the day first; book by {formatDate(day.signUpDeadline)}.</p>}
-          <BookingForm
-            key={booking?.version ?? 'new'}
-            dayId={day.id}
-            farmId={farmId}
-            candidates={candidates.data.items}
-            freeHead={day.capacity.freeHead}
-            booking={changing ? (booking ?? undefined) : undefined}
-            onDone={changing ? () => setChanging(false) : undefined}
-          />
-        </>
+        <BookingForm key={booking.version} dayId={day.id} farmId={farmId} candidates={candidates.data.items} freeHead={day.capacity.freeHead} booking={booking} onDone={() => setChanging(false)} />
       ))}
-    </Card>
+    </div>
   );
 }

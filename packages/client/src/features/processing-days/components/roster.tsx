@@ -1,5 +1,5 @@
 import { Check, UserPlus, Wrench } from 'lucide-react';
-import type { ProcessingDayDto } from '@burrowline/shared';
+import type { ProcessingDayDto, StationDto } from '@burrowline/shared';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
@@ -12,7 +12,7 @@ interface RosterProps {
   farmId: string | null;
 }
 
-/** The stations with their places, filled and empty, and who brings which piece of equipment. */
+/** The stations: who is on each and how many places are empty (one sign-up button each), and who brings which piece of equipment. */
 export function Roster({ day, userId, farmId }: RosterProps) {
   const signUp = useRosterSignUp(day.id);
   const leave = useRosterLeave(day.id);
@@ -21,6 +21,7 @@ export function Roster({ day, userId, farmId }: RosterProps) {
   const open = day.status === 'scheduled';
   const error = [signUp, leave, claim, release].find((m) => m.isError)?.error;
   const busy = signUp.isPending || leave.isPending;
+  const onStation = (station: StationDto) => station.places.some((p) => p.userId === userId);
   return (
     <Card className="space-y-4" data-testid="roster">
       <h2 className="text-xl font-bold">Stations</h2>
@@ -33,32 +34,33 @@ export function Roster({ day, userId, farmId }: RosterProps) {
               <span className="text-sm text-grey-700 tabular-nums">{station.filled} of {station.places.length}</span>
             </p>
             <ul className="mt-2 space-y-2">
-              {station.places.map((place) => {
+              {station.places.filter((place) => place.userId).map((place) => {
                 const mine = place.userId === userId;
                 return (
-                  <li key={place.id} className="flex min-h-12 items-center justify-between gap-2 rounded-lg bg-oat/70 px-3">
-                    {place.userId ? (
-                      <span className={mine ? 'font-bold text-moss-deep' : 'font-medium'}>
-                        {mine && <Check className="mr-1 inline size-4 align-[-2px]" aria-hidden="true" />}
-                        {mine ? 'You' : place.userName}
-                      </span>
-                    ) : (
-                      <span className="text-grey-600">Empty</span>
-                    )}
-                    {open && !place.userId && (
-                      <Button variant="secondary" className="min-h-11 px-3" disabled={busy} onClick={() => signUp.mutate(place.id)} aria-label={`Sign up for ${station.name}, place ${place.position}`}>
-                        <UserPlus className="size-4" aria-hidden="true" />
-                        Sign up
-                      </Button>
-                    )}
-                    {open && place.userId && (mine || day.canEdit) && (
-                      <Button variant="quiet" className="min-h-11 px-3" disabled={busy} onClick={() => leave.mutate(place.id)} aria-label={mine ? `Leave ${station.name}` : `Take ${place.userName ?? 'them'} off ${station.name}`}>
+                  <li key={place.id} className="flex min-h-12 items-center justify-between gap-2 rounded-lg bg-moss-wash px-3">
+                    <span className={mine ? 'font-bold text-moss-deep' : 'font-medium'}>
+                      {mine && <Check className="mr-1 inline size-4 align-[-2px]" aria-hidden="true" />}
+                      {mine ? 'You' : place.userName}
+                    </span>
+                    {open && (mine || day.canEdit) && (
+                      <Button variant="quiet" className="min-h-11 px-3" disabled={busy} onClick={() => leave.mutate({ stationId: station.id, userId: mine ? undefined : (place.userId ?? undefined) })} aria-label={mine ? `Leave ${station.name}` : `Take ${place.userName ?? 'them'} off ${station.name}`}>
                         {mine ? 'Leave' : 'Remove'}
                       </Button>
                     )}
                   </li>
                 );
               })}
+              {station.filled < station.places.length && (
+                <li className="flex min-h-12 items-center justify-between gap-2 rounded-lg bg-oat/70 px-3">
+                  <span className="text-grey-700">{station.places.length - station.filled} empty</span>
+                  {open && !onStation(station) && (
+                    <Button variant="secondary" className="min-h-11 px-3" disabled={busy} onClick={() => signUp.mutate({ stationId: station.id })} aria-label={`Sign up for ${station.name}`}>
+                      <UserPlus className="size-4" aria-hidden="true" />
+                      Sign up
+                    </Button>
+                  )}
+                </li>
+              )}
             </ul>
           </li>
         ))}
