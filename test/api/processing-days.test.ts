@@ -307,3 +307,25 @@ describe('processing days: the day, its yields, fees and shared costs', () => {
     expect(text).toContain('White spots on the liver');
   });
 });
+
+describe('processing days: in the Almanac', () => {
+  it('when a farm books a day, then it shows in that farm\'s agenda and iCalendar feed (and the host\'s), not in an unbooked farm\'s', async () => {
+    const coop = await createTestCoop();
+    // The site is farm B's, so farm A is only a booker.
+    const site = await siteAs(coop.admin, coop, { hostFarmId: coop.farms[1]!.id });
+    const day = await dayAs(coop.admin, site.id, { date: inDays(8), signUpDeadline: inDays(5), startTime: '06:45' });
+    const member = await agentOf(coop.member.email);
+    const agenda = async (agent: Awaited<ReturnType<typeof agentOf>>) => (await agent.get('/api/almanac/tasks').query({ days: 14 }).expect(200)).body.sharedDays as { id: string; title: string }[];
+    expect(await agenda(member)).toEqual([]);
+    const { group } = await growingGroupAs(coop.member, { kindledDaysAgo: 70, heads: 4 });
+    await member.post(`/api/processing-days/${day.id}/bookings`).send(bookingBody(coop.farms[0]!.id, [{ groupId: group.id, head: 3 }])).expect(201);
+    expect(await agenda(member)).toEqual([expect.objectContaining({ id: day.id, date: inDays(8), title: `Processing day 06:45 at ${site.name} (3 head booked)`, link: `/processing-days/${day.id}` })]);
+    expect((await agenda(await agentOf(coop.otherFarmMember.email))).map((d) => d.title)).toEqual([`Processing day 06:45 at ${site.name}, hosting`]);
+    const made = await member.post('/api/almanac/calendar-feed').expect(201);
+    const feed = await member.get(new URL(made.body.url).pathname).expect(200);
+    const text = feed.text.replace(/\r\n /g, '');
+    expect(text).toContain(`UID:shared-day-${day.id}`);
+    expect(text).toContain(`SUMMARY:Processing day 06:45 at ${site.name} (3 head booked)`);
+    expect(text).toContain(`DTSTART;VALUE=DATE:${inDays(8).replace(/-/g, '')}`);
+  });
+});

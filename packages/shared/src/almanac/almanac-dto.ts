@@ -67,6 +67,8 @@ export interface AgendaDto {
   attention: TaskAttention[];
   /** Apprentices' ticks and litter counts waiting for a member's review. */
   pendingReview: number;
+  /** Shared days the farm booked or hosts (processing days), in the period. */
+  sharedDays: { id: string; date: string; startTime: string; title: string; link: string }[];
 }
 
 /** Commons: what needs doing today and in the days to come. */

@@ -18,6 +18,7 @@ import { presentTask, type AlmanacPresentContext } from './almanac.presenter';
 import { settingsOf } from './cycle-settings.service';
 import { AlmanacTask } from './task.model';
 import { toTaskRecord } from './task-writer.service';
+import { sharedDaysOfFarm } from './shared-days';
 
 const kindOrder = new Map<string, number>(plannedTaskKinds.map((kind, index) => [kind, index]));
 
@@ -113,6 +114,7 @@ export async function listAgenda(actor: SessionUser, q: AgendaQuery): Promise<Ag
       overdue: await presentTasks(tx, actor.coopId, overdue, clock.today),
       attention: await attentionOf(tx, farmId, clock.today),
       pendingReview: await pendingReviewOf(tx, farmId),
+      sharedDays: (await sharedDaysOfFarm(tx, actor.coopId, farmId, from, to)).map((d) => ({ id: d.id, date: d.date, startTime: d.startTime, title: d.title, link: d.link })),
     };
   });
 }

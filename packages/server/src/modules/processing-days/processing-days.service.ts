@@ -485,3 +485,27 @@ export async function setFarmSettings(actor: SessionUser, farmId: string, input:
 }
 
 export { presentCapacity };
+
+// ---------------------------------------------------------------------------------------------
+// For the Almanac, inside the caller's transaction
+// ---------------------------------------------------------------------------------------------
+
+/** The processing days a farm has places on (booked or offered) or hosts, between two dates: its Almanac and calendar feed show them. */
+export async function processingDaysOfFarm(tx: Transaction, _coopId: string, farmId: string, from: string, to: string) {
+  const rows = await select<{ id: string; date: string; start_time: string; version: number; site_name: string; address: string; head: number | null; host: boolean }>(
+    tx,
+    `SELECT d.id, to_char(d.date, 'YYYY-MM-DD') AS date, d.start_time, d.version, s.name AS site_name, s.address,
+            (SELECT sum(b.head)::int FROM processing_bookings b WHERE b.day_id = d.id AND b.farm_id = $1 AND b.status IN ('booked', 'offered')) AS head,
+            d.host_farm_id = $1 AS host
+     FROM processing_days d JOIN processing_sites s ON s.id = d.site_id
+     WHERE d.status <> 'cancelled' AND d.date BETWEEN $2::date AND $3::date
+       AND (d.host_farm_id = $1 OR EXISTS (SELECT 1 FROM processing_bookings b WHERE b.day_id = d.id AND b.farm_id = $1 AND b.status IN ('booked', 'offered')))
+     ORDER BY d.date, d.start_time, d.id`,
+    [farmId, from, to],
+  );
+  return rows.map((r) => ({
+    id: r.id, date: r.date, startTime: r.start_time, version: r.version, link: `/processing-days/${r.id}`,
+    title: `Processing day ${r.start_time} at ${r.site_name}${r.head ? ` (${r.head} head booked)` : ''}${r.host ? ', hosting' : ''}`,
+    description: `Shared processing day at ${r.site_name}, ${r.address}. Starts ${r.start_time}. Gloves when dressing; chill carcasses promptly to 40 °F / 4.4 °C or below.`,
+  }));
+}
