@@ -106,7 +106,7 @@ export function ProcessingDayPage() {
       </div>
 
       <Roster day={day} userId={me.user.id} farmId={me.user.farmId} />
-      <BookingsPanel day={day} bookings={bookings?.items ?? []} farmId={me.user.farmId} unit={unit} />
+      <BookingsPanel day={day} bookings={bookings?.items ?? []} unit={unit} />
       {/* Co-op Chat's thread for the day belongs here once the chat exists. */}
       {day.canClose && (
         <Card className="space-y-4">

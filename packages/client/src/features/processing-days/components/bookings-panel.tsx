@@ -35,7 +35,6 @@ function CheckIn({ dayId, booking }: { dayId: string; booking: BookingDto }) {
 interface BookingsPanelProps {
   day: ProcessingDayDto;
   bookings: BookingDto[];
-  farmId: string | null;
   unit: WeightUnit;
 }
 
@@ -43,7 +42,7 @@ interface BookingsPanelProps {
  * Every farm booked for the day, in turn: head, status, check-in at the gate and, once checked in, the
  * yields of each batch (kept as the farm's processing records).
  */
-export function BookingsPanel({ day, bookings, farmId, unit }: BookingsPanelProps) {
+export function BookingsPanel({ day, bookings, unit }: BookingsPanelProps) {
   const [yieldsOf, setYieldsOf] = useState<string | null>(null);
   const live = bookings.filter((b) => b.status !== 'cancelled');
   return (
@@ -52,7 +51,8 @@ export function BookingsPanel({ day, bookings, farmId, unit }: BookingsPanelProp
       {live.length === 0 && <p className="text-grey-700">No bookings yet.</p>}
       <ul className="space-y-3">
         {live.map((b) => {
-          const mayRecord = day.status === 'scheduled' && b.status === 'booked' && b.headBrought !== null && (day.canEdit || b.canCheckIn || b.farmId === farmId);
+          // The yields name the farm's own group or animal, which only the farm itself is shown.
+          const mayRecord = day.status === 'scheduled' && b.status === 'booked' && b.headBrought !== null && b.lines.length > 0 && b.lines.every((l) => l.groupId ?? l.animalId);
           return (
             <li key={b.id} className="space-y-3 rounded-xl border border-grey-200 p-3" data-testid={`booking-${b.farmId}`}>
               <div className="flex flex-wrap items-center justify-between gap-2">
@@ -77,9 +77,10 @@ export function BookingsPanel({ day, bookings, farmId, unit }: BookingsPanelProp
           );
         })}
       </ul>
-      <p className="text-sm text-grey-700">
-        Yields are saved as each farm's processing records: see them in <TextLink to="/grow-out/processing">Grow-out → Processing</TextLink>.
-      </p>
+      <div className="text-sm text-grey-700">
+        <p>Yields are kept as each farm's own processing records.</p>
+        <TextLink to="/grow-out/processing">My farm's processing records</TextLink>
+      </div>
     </Card>
   );
 }

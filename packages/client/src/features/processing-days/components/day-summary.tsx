@@ -32,10 +32,12 @@ export function DaySummary({ summary }: { summary: ProcessingDaySummaryDto }) {
             <li key={f.farmId} className="rounded-xl border border-grey-200 p-3" data-testid={`summary-farm-${f.farmId}`}>
               <p className="font-semibold">{f.farmName}</p>
               <dl className="mt-1 grid grid-cols-2 gap-x-3 gap-y-1 text-sm">
-                <dt className="text-grey-600">Booked · brought</dt><dd>{f.headBooked} · {f.headBrought}</dd>
+                <dt className="text-grey-600">Booked</dt><dd>{f.headBooked}</dd>
+                <dt className="text-grey-600">Brought</dt><dd>{f.headBrought}</dd>
                 <dt className="text-grey-600">Processed</dt><dd className="font-semibold">{f.headProcessed}</dd>
                 <dt className="text-grey-600">Dress-out</dt><dd>{dressOutText(f.dressOut)}</dd>
-                <dt className="text-grey-600">Trimmed · condemned</dt><dd>{f.trimmedHead} · {f.condemnedHead}</dd>
+                <dt className="text-grey-600">Trimmed</dt><dd>{f.trimmedHead}</dd>
+                <dt className="text-grey-600">Condemned</dt><dd>{f.condemnedHead}</dd>
                 {seesMoney && <><dt className="text-grey-600">Fee</dt><dd>{money(f.feeCents ?? 0)}</dd></>}
                 {seesMoney && <><dt className="text-grey-600">Share of costs</dt><dd>{money(f.sharedCostCents ?? 0)}</dd></>}
               </dl>

@@ -82,15 +82,15 @@ export function YieldsForm({ dayId, booking, unit }: { dayId: string; booking: B
         {!isAnimal && <TextField label="Head in this batch" type="number" inputMode="numeric" min={1} error={errors.heads?.message} {...form.register('heads')} />}
       </div>
       <div className="grid gap-3 md:grid-cols-3">
-        <WeightInput label={isAnimal ? 'Live weight' : 'Live weight, all head'} unit={unit} error={errors.liveMajor?.message} majorProps={form.register('liveMajor')} minorProps={form.register('liveMinor')} />
+        <WeightInput label={isAnimal ? 'Live' : 'Live, all head'} unit={unit} error={errors.liveMajor?.message} majorProps={form.register('liveMajor')} minorProps={form.register('liveMinor')} />
         <WeightInput label="Hot carcass" unit={unit} error={errors.hotMajor?.message} majorProps={form.register('hotMajor')} minorProps={form.register('hotMinor')} />
-        <WeightInput label="Chilled carcass (optional)" unit={unit} error={errors.chilledMajor?.message} majorProps={form.register('chilledMajor')} minorProps={form.register('chilledMinor')} />
+        <WeightInput label="Chilled (optional)" unit={unit} error={errors.chilledMajor?.message} majorProps={form.register('chilledMajor')} minorProps={form.register('chilledMinor')} />
       </div>
       {preview && !preview.invalid && preview.hotPercent !== null && <p aria-live="polite" className="rounded-lg bg-oat/70 px-3 py-2">Dress-out <strong>{preview.hotPercent.toFixed(1)} %</strong></p>}
-      <div className="grid gap-3 sm:grid-cols-3">
+      <div className="grid grid-cols-2 gap-3 sm:grid-cols-[8rem_8rem_minmax(0,1fr)]">
         <TextField label="Trimmed" type="number" inputMode="numeric" min={0} error={errors.trimmed?.message} {...form.register('trimmed')} />
         <TextField label="Condemned" type="number" inputMode="numeric" min={0} error={errors.condemned?.message} {...form.register('condemned')} />
-        <TextField label="Why trimmed or condemned" error={errors.reason?.message} {...form.register('reason')} />
+        <TextField className="col-span-2 sm:col-span-1" label="Why trimmed or condemned" error={errors.reason?.message} {...form.register('reason')} />
       </div>
       {failure && <Alert tone="error">{failure}</Alert>}
       {saved && <Alert tone="success">{saved}</Alert>}
