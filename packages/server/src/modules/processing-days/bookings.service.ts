@@ -180,7 +180,13 @@ async function bookingByKey(tx: Transaction, key: string): Promise<BookingRow | 
  */
 export async function bookPlaces(actor: SessionUser, dayId: string, input: BookingCreateInput): Promise<{ booking: BookingDto; created: boolean }> {
   ensureBookFor(actor, input.farmId);
-  return withTenant(actor, async (tx) => {
+  return withTenant(actor, (tx) => bookPlacesIn(tx, actor, dayId, input));
+}
+
+/** bookPlaces inside the caller's transaction (the demo loader). */
+export async function bookPlacesIn(tx: Transaction, actor: SessionUser, dayId: string, input: BookingCreateInput): Promise<{ booking: BookingDto; created: boolean }> {
+  ensureBookFor(actor, input.farmId);
+  {
     const earlier = await bookingByKey(tx, input.idempotencyKey);
     if (earlier) {
       if (earlier.day_id !== dayId || earlier.farm_id !== input.farmId) throw AppError.idTaken();
@@ -208,7 +214,7 @@ export async function bookPlaces(actor: SessionUser, dayId: string, input: Booki
     });
     announceDay(tx, actor.coopId, { dayId, what: 'capacity', capacity: capacityOf(day, all) });
     return { booking: (await presentBookings(tx, actor, day, [row!], all))[0]!, created: true };
-  });
+  }
 }
 
 /** Changes what a booking brings. A booked farm may grow only into free places; fewer head free places for the waitlist. */
@@ -305,7 +311,12 @@ handleJobs<OfferJob>(OFFER_QUEUE, async (job) => {
 
 /** The host (or admin) checks a farm's batch in on the day: the head actually brought. */
 export async function checkIn(actor: SessionUser, dayId: string, bookingId: string, input: CheckInInput): Promise<BookingDto> {
-  return withTenant(actor, async (tx) => {
+  return withTenant(actor, (tx) => checkInIn(tx, actor, dayId, bookingId, input));
+}
+
+/** checkIn inside the caller's transaction (the demo loader). */
+export async function checkInIn(tx: Transaction, actor: SessionUser, dayId: string, bookingId: string, input: CheckInInput): Promise<BookingDto> {
+  {
     const day = await lockDay(tx, dayId);
     ensureHost(actor, day, 'Only the host or the admin checks batches in');
     const row = await findBooking(tx, dayId, bookingId);
@@ -318,7 +329,7 @@ export async function checkIn(actor: SessionUser, dayId: string, bookingId: stri
     const updated = await updateBooking(tx, row.id, { head_brought: input.headBrought, checked_in_at: new Date() });
     announceDay(tx, actor.coopId, { dayId, what: 'changed', capacity: capacityOf(day, (await bookingsOfDay(tx, dayId)).filter((b) => b.status !== 'cancelled')) });
     return (await presentBookings(tx, actor, day, [updated]))[0]!;
-  });
+  }
 }
 
 /** Every booking of the day in the waitlist's order, cancelled ones last. */

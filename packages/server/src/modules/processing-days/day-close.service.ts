@@ -71,7 +71,12 @@ function headByFarm(bookings: BookingRow[], processed: Map<string, number>): { f
  * (with its withdrawal, head-left and weight checks), linked to the day with any trimmed or condemned carcasses.
  */
 export async function recordDayYield(actor: SessionUser, dayId: string, input: DayYieldCreateInput): Promise<ProcessingRecordDto> {
-  return withTenant(actor, async (tx) => {
+  return withTenant(actor, (tx) => recordDayYieldIn(tx, actor, dayId, input));
+}
+
+/** recordDayYield inside the caller's transaction (the demo loader). */
+export async function recordDayYieldIn(tx: Transaction, actor: SessionUser, dayId: string, input: DayYieldCreateInput): Promise<ProcessingRecordDto> {
+  {
     const day = await lockDay(tx, dayId);
     const booking = await findBooking(tx, dayId, input.bookingId);
     // Bookings are known to the whole co-op: another farm is refused (403), not told it does not exist.
@@ -104,7 +109,7 @@ export async function recordDayYield(actor: SessionUser, dayId: string, input: D
     );
     announceDay(tx, actor.coopId, { dayId, what: 'changed', capacity: capacityOf(day, (await bookingsOfDay(tx, dayId)).filter((b) => b.status !== 'cancelled')) });
     return record;
-  });
+  }
 }
 
 /**
@@ -113,7 +118,12 @@ export async function recordDayYield(actor: SessionUser, dayId: string, input: D
  * waiting are cancelled, and the shared costs are split to the farms by head processed.
  */
 export async function closeDay(actor: SessionUser, dayId: string, input: DayCloseInput): Promise<ProcessingDaySummaryDto> {
-  return withTenant(actor, async (tx) => {
+  return withTenant(actor, (tx) => closeDayIn(tx, actor, dayId, input));
+}
+
+/** closeDay inside the caller's transaction (the demo loader). */
+export async function closeDayIn(tx: Transaction, actor: SessionUser, dayId: string, input: DayCloseInput): Promise<ProcessingDaySummaryDto> {
+  {
     const day = await lockDay(tx, dayId);
     ensureHost(actor, day, 'Only the host or the admin closes the day');
     if (day.version !== input.version) throw AppError.staleVersion();
@@ -169,7 +179,7 @@ export async function closeDay(actor: SessionUser, dayId: string, input: DayClos
     });
     announceDay(tx, actor.coopId, { dayId, what: 'closed', capacity: capacityOf(day, []) });
     return summaryIn(tx, actor, dayId);
-  });
+  }
 }
 
 export async function daySummary(actor: SessionUser, dayId: string): Promise<ProcessingDaySummaryDto> {

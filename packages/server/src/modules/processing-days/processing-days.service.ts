@@ -86,7 +86,13 @@ async function ensureHostFarm(tx: Transaction, coopId: string, farmId: string): 
 /** The admin adds a site: a member farm's place with its capacity a day, chill capacity and water. */
 export async function createSite(actor: SessionUser, input: ProcessingSiteCreateInput): Promise<ProcessingSiteDto> {
   ensureSiteAdmin(actor);
-  return withTenant(actor, async (tx) => {
+  return withTenant(actor, (tx) => createSiteIn(tx, actor, input));
+}
+
+/** createSite inside the caller's transaction (the demo loader). */
+export async function createSiteIn(tx: Transaction, actor: SessionUser, input: ProcessingSiteCreateInput): Promise<ProcessingSiteDto> {
+  ensureSiteAdmin(actor);
+  {
     await ensureHostFarm(tx, actor.coopId, input.hostFarmId);
     const [row] = await select<SiteRow>(
       tx,
@@ -97,7 +103,12 @@ export async function createSite(actor: SessionUser, input: ProcessingSiteCreate
     );
     if (!row) throw AppError.conflict(`A site is already called ${input.name}`);
     return (await presentSites(tx, actor.coopId, [row]))[0]!;
-  });
+  }
+}
+
+/** Whether the co-op has any processing site yet (the demo loader adds its days once). */
+export async function coopHasProcessingSites(tx: Transaction): Promise<boolean> {
+  return (await select<{ id: string }>(tx, 'SELECT id FROM processing_sites LIMIT 1')).length > 0;
 }
 
 export async function updateSite(actor: SessionUser, siteId: string, input: ProcessingSiteUpdateInput): Promise<ProcessingSiteDto> {
