@@ -5,11 +5,13 @@ import { farmToday } from '../support/almanac';
 import { browserTestApp, collectPageErrors, openBrowser, sidewaysScroll } from '../support/browser';
 import { createTestCoop, TEST_PASSWORD } from '../support/factories';
 import { breedLitterAs, groupAs } from '../support/grow-out';
+import { growingGroupAs, treatmentAs } from '../support/health-yield';
 import { catalogueBreeds } from '../support/herd';
+import { dayAs, inDays, moveDay, siteAs } from '../support/processing-days';
 
 const app = browserTestApp(TEST_PASSWORD);
 
-describe('processing days: the admin schedules a day, two farms book, the waiting list moves up', () => {
+describe('processing days: scheduling, booking with a waiting list, the day itself', () => {
   it('when one farm cancels, then the waitlisted farm is offered the place and confirms it, and both day pages show the places change without a reload', async () => {
     const coop = await createTestCoop();
     const [farmA, farmB] = coop.farms as [{ id: string; name: string }, { id: string; name: string }];
@@ -108,6 +110,70 @@ describe('processing days: the admin schedules a day, two farms book, the waitin
       await admin.close();
       await hazel.close();
       await rowan.close();
+    }
+  });
+
+  it('when a group is under a medicine withdrawal on the day, then the phone shows it refused with the date it may go; the other group is booked, checked in at the gate, its yields recorded, and the summary shows its dress-out', async () => {
+    const coop = await createTestCoop();
+    const farmB = coop.farms[1]!;
+    const site = await siteAs(coop.admin, coop);
+    const day = await dayAs(coop.admin, site.id, { date: inDays(14), signUpDeadline: inDays(10), capacityHead: 20 });
+    const { group: sorrel } = await growingGroupAs(coop.otherFarmMember, { kindledDaysAgo: 60, heads: 6, name: 'Sorrel pen' });
+    const { group: birch } = await growingGroupAs(coop.otherFarmMember, { kindledDaysAgo: 70, heads: 8, name: 'Birch pen' });
+    // Last dose yesterday, 20 days' withdrawal: still withdrawn on the day (in 14 days), eligible from day 20.
+    await treatmentAs(coop.otherFarmMember, { groupId: sorrel.id, startedOn: inDays(-3), lastDoseOn: inDays(-1), withdrawalDays: 20 });
+    const eligibleText = new Intl.DateTimeFormat('en-US', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' }).format(new Date(`${inDays(20)}T00:00:00Z`));
+
+    const rowan = await openBrowser({ width: 390, height: 844 });
+    const admin = await openBrowser();
+    const errors = [...collectPageErrors(rowan.page), ...collectPageErrors(admin.page)];
+    try {
+      await app.signIn(rowan.page, coop.otherFarmMember.email);
+      await rowan.page.goto(`${app.url}/processing-days/${day.id}`);
+      const booking = rowan.page.getByTestId('my-booking');
+      const refused = booking.getByTestId(`candidate-${sorrel.id}`);
+      await refused.getByTestId('withdrawal-refusal').getByText(`Medicine withdrawal on the day: may be processed from ${eligibleText}.`).waitFor();
+      expect(await refused.getByRole('spinbutton').count()).toBe(0);
+      expect(await sidewaysScroll(rowan.page)).toBe(0);
+
+      const clear = booking.getByTestId(`candidate-${birch.id}`);
+      await clear.getByRole('button', { name: 'One more from Birch pen' }).click();
+      expect(await clear.getByRole('spinbutton', { name: 'Head from Birch pen' }).inputValue()).toBe('1');
+      await clear.getByRole('spinbutton', { name: 'Head from Birch pen' }).fill('5');
+      await booking.getByRole('button', { name: 'Book 5 head' }).click();
+      await booking.getByTestId('my-booking-head').getByText('5 head').waitFor();
+
+      // The day comes: the host's admin counts five at the gate.
+      await moveDay(coop.id, day.id, { date: farmToday(), deadline: farmToday() });
+      await app.signIn(admin.page, coop.admin.email);
+      await admin.page.goto(`${app.url}/processing-days/${day.id}`);
+      const gate = admin.page.getByTestId(`booking-${farmB.id}`);
+      await gate.getByRole('button', { name: 'Check in' }).click();
+      await gate.getByText('Checked in: 5 head').waitFor();
+      // The admin is not shown the farm's groups, so the farm records its own yields.
+      expect(await gate.getByRole('button', { name: 'Record yields' }).count()).toBe(0);
+
+      await rowan.page.reload();
+      const own = rowan.page.getByTestId(`booking-${farmB.id}`);
+      await own.getByText('Checked in: 5 head').waitFor();
+      await own.getByRole('button', { name: 'Record yields' }).click();
+      const yields = own.getByRole('form', { name: `Yields of ${farmB.name}` });
+      await yields.getByLabel('Head in this batch', { exact: true }).fill('5');
+      await yields.getByLabel('Live, all head (lb)', { exact: true }).fill('25');
+      await yields.getByLabel('Hot carcass (lb)', { exact: true }).fill('14');
+      await yields.getByRole('button', { name: 'Save the yields' }).click();
+      await yields.getByText('Saved: 5 head, dress-out 56.0 %.').waitFor();
+
+      await rowan.page.getByRole('link', { name: 'Summary' }).click();
+      const farmCard = rowan.page.getByTestId(`summary-farm-${farmB.id}`);
+      await farmCard.getByText('56.0 %', { exact: true }).waitFor();
+      await rowan.page.getByRole('img', { name: /^Dress-out per farm: / }).getByText('56.0 %').waitFor();
+      expect(await sidewaysScroll(rowan.page)).toBe(0);
+      await rowan.page.screenshot({ path: '.data/e2e-processing-day-summary-390.png', fullPage: true });
+      expect(errors).toEqual([]);
+    } finally {
+      await rowan.close();
+      await admin.close();
     }
   });
 });

@@ -19,7 +19,7 @@ export function CostLinesField({ legend = 'Shared costs' }: { legend?: string })
   const lines = useFieldArray({ control, name: 'costs' });
   const errors = formState.errors.costs;
   return (
-    <fieldset className="space-y-2">
+    <fieldset className="max-w-2xl space-y-2">
       <legend className="font-medium">{legend}</legend>
       {typeof errors?.message === 'string' && <p className="text-sm font-medium text-clay-deep">{errors.message}</p>}
       {lines.fields.map((field, i) => (

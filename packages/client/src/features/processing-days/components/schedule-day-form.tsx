@@ -105,7 +105,7 @@ export function ScheduleDayForm({ sites, today }: { sites: ProcessingSiteDto[]; 
           <TextField label="Fee per head" inputMode="decimal" placeholder="0.00" error={errors.fee?.message} {...form.register('fee')} />
         </div>
         <CostLinesField legend="Expected shared costs" />
-        <fieldset className="space-y-2">
+        <fieldset className="max-w-2xl space-y-2">
           <legend className="font-medium">Stations and their places</legend>
           {typeof errors.stations?.message === 'string' && <p className="text-sm font-medium text-clay-deep">{errors.stations.message}</p>}
           {stations.fields.map((field, i) => (
