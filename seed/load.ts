@@ -14,6 +14,7 @@ import { loadDemoGrowOut } from './demo-grow-out';
 import { loadDemoHealthYield } from './demo-health-yield';
 import { loadDemoHerds } from './demo-herds';
 import { loadDemoLedger } from './demo-ledger';
+import { loadDemoProcessingDays } from './demo-processing-days';
 
 const appUrl = (process.env.APP_URL ?? 'http://127.0.0.1:3000').replace(/\/$/, '');
 
@@ -44,6 +45,7 @@ export async function loadDemoCoop(): Promise<'loaded' | 'already-present'> {
       await loadDemoGrowOut({ coopId: present.id, farms, keepers, apprenticeId: apprentice?.id ?? null, apprenticeFarmKey }, tx);
       await loadDemoHealthYield({ coopId: present.id, farms, keepers, apprenticeId: apprentice?.id ?? null, apprenticeFarmKey, temperatureUnits }, tx);
       await loadDemoLedger({ coopId: present.id, farms, keepers, appUrl }, tx);
+      await loadDemoProcessingDays({ coopId: present.id, farms, keepers }, tx);
     });
     return 'already-present';
   }
@@ -74,6 +76,7 @@ export async function loadDemoCoop(): Promise<'loaded' | 'already-present'> {
     await loadDemoGrowOut({ coopId: coop.id, farms, keepers, apprenticeId: apprentice.id, apprenticeFarmKey }, tx);
     await loadDemoHealthYield({ coopId: coop.id, farms, keepers, apprenticeId: apprentice.id, apprenticeFarmKey, temperatureUnits }, tx);
     await loadDemoLedger({ coopId: coop.id, farms, keepers, appUrl }, tx);
+    await loadDemoProcessingDays({ coopId: coop.id, farms, keepers }, tx);
   });
   return 'loaded';
 }
