@@ -131,7 +131,7 @@ describe('services and the tasks they plan', () => {
 
     const second = await agent.post('/api/services').send({ doeId: doe.id, buckId: buck.id, servicedOn: daysAgo(1), confirm: true });
     expect(second.status).toBe(400);
-    expect(second.body.error.details.doeId[0]).toBe(`She already has an open service from ${daysAgo(13)}; record its kindling or close it as missed first`);
+    expect(second.body.error.details.doeId[0]).toBe(`She was served on ${daysAgo(13)} and no kindling is recorded yet; record it or close that service as missed first`);
     expect(await almanacCounts(coop.id)).toEqual(before);
 
     const palpation = await agent.post(`/api/services/${first.id}/palpations`).send({ palpatedOn: daysAgo(1), result: 'negative', notes: 'No marbles felt.' });

@@ -109,6 +109,8 @@ describe('pedigree and inbreeding across the co-op', () => {
     expect(byBuck[stranger.id]!.coi).toBe(0);
     expect(byBuck[f.son.id]!.commonAncestors.map((x) => x.id).sort()).toEqual([f.sire.id, f.dam.id].sort());
     expect(byBuck[f.sire.id]!.commonAncestors.map((x) => x.id)).toEqual([f.sire.id]);
+    // In words, as the service form shows them.
+    expect([byBuck[f.son.id]!.relationship, byBuck[f.sire.id]!.relationship, byBuck[stranger.id]!.relationship]).toEqual(['brother', 'her sire', 'no shared ancestor on record']);
     expect(byBuck[stranger.id]!.breedMakeup).toMatchObject({ purity: 'known_cross' });
     expect(byBuck[stranger.id]!.breedMakeup.breeds.map((x) => [x.name, x.fraction]).sort()).toEqual([['Californian', 0.5], ['New Zealand', 0.5]]);
     expect(byBuck[stranger.id]!.sire.currentFarm?.id).toBe(coop.farms[1]!.id);

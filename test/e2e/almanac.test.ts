@@ -159,3 +159,32 @@ describe('Almanac settings in the farm\'s units', () => {
     }
   });
 });
+
+describe('the service form shows kinship', () => {
+  it('when a member picks her buck for a doe he sired, then the litter\'s COI and "her sire" show before she saves; an unrelated buck shows no relation', async () => {
+    const coop = await createTestCoop();
+    const sire = await addAnimalAs(coop.member, { sex: 'buck', name: 'Hawthorn', birthDate: '2021-05-01' });
+    const dam = await addAnimalAs(coop.member, { sex: 'doe', name: 'Sorrel', birthDate: '2021-06-01' });
+    const daughter = await addAnimalAs(coop.member, { sex: 'doe', name: 'Clover', birthDate: '2023-02-01', sireId: sire.id, damId: dam.id });
+    const stranger = await addAnimalAs(coop.member, { sex: 'buck', name: 'Juniper', birthDate: '2022-03-01' });
+    const browser = await openBrowser({ width: 390, height: 844 });
+    const { page } = browser;
+    const errors = collectPageErrors(page);
+    try {
+      await app.signIn(page, coop.member.email);
+      await page.goto(`${app.url}/almanac/services/new?doeId=${daughter.id}`);
+      await page.getByLabel('Buck').selectOption(sire.id);
+      const kinship = page.getByTestId('service-kinship');
+      // Parent × offspring: the litter's COI is 25 % (Falconer & Mackay, Introduction to Quantitative Genetics, 4th ed., ch. 5).
+      await kinship.getByText('25 %').waitFor();
+      await kinship.getByText('He is her sire.').waitFor();
+      await page.getByLabel('Buck').selectOption(stranger.id);
+      await kinship.getByText('No shared ancestor on record.').waitFor();
+      expect(await kinship.getByText('0 %', { exact: true }).count()).toBe(1);
+      expect(await sidewaysScroll(page)).toBeLessThanOrEqual(0);
+      expect(errors).toEqual([]);
+    } finally {
+      await browser.close();
+    }
+  });
+});

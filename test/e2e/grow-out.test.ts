@@ -44,6 +44,8 @@ describe('grow-out: a member weighs a group, records feed and reads the breed co
       await weighForm.getByLabel('Head count').fill('8');
       await weighForm.getByRole('button', { name: /save|record/i }).click();
       await expect.poll(async () => (await projected.textContent())!.trim(), { timeout: 15_000 }).not.toBe(before);
+      // The model and why it was chosen sit behind the disclosure.
+      await page.getByText('How is this worked out?').first().click();
       await page.getByText(/Model: /).first().waitFor();
       const stored = await asTenant(coop.id, async (c) => (await c.query(`SELECT total_grams, head_count FROM weigh_ins WHERE group_id = $1 ORDER BY weighed_on DESC, created_at DESC LIMIT 1`, [group.id])).rows);
       expect(stored).toEqual([{ total_grams: 8165, head_count: 8 }]); // 18 lb = 8,164.66 g (NIST HB44: 1 lb = 453.59237 g)

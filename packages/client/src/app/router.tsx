@@ -196,6 +196,20 @@ const routes: RouteObject[] = [
                   return { loader, Component: HerdImportPage };
                 },
               },
+              {
+                path: 'co-op',
+                lazy: async () => {
+                  const { loader, CoopPage } = await import('../routes/co-op/co-op');
+                  return { loader, Component: CoopPage };
+                },
+              },
+              {
+                path: 'notifications',
+                lazy: async () => {
+                  const { loader, NotificationsPage } = await import('../routes/notifications/notifications');
+                  return { loader, Component: NotificationsPage };
+                },
+              },
               // The Ledger: the farm's account, the co-op's books (admin), the card page's way back.
               {
                 path: 'ledger',

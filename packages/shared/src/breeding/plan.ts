@@ -33,7 +33,7 @@ export const TASK_KIND_LABELS: Readonly<Record<PlannedTaskKind, string>> = Objec
   palpation: 'Palpate',
   nest_box_in: 'Nest box in',
   kindling_due: 'Kindling due',
-  kindling_overdue: 'No kits yet: check the doe',
+  kindling_overdue: 'If no kits by now: check the doe',
   rebreed: 'Rebreed',
   nest_box_out: 'Nest box out',
   weigh_in: 'Weigh the litter',

@@ -129,7 +129,7 @@ export function checkService(input: ServiceCheckInput): BreedingCheck[] {
   if (input.openServiceDate) {
     checks.push({
       level: 'error', code: 'open_service', field: 'doeId',
-      message: `She already has an open service from ${input.openServiceDate}; record its kindling or close it as missed first`,
+      message: `She was served on ${input.openServiceDate} and no kindling is recorded yet; record it or close that service as missed first`,
     });
   }
   if (happened) return checks;

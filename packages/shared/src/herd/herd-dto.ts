@@ -198,6 +198,8 @@ export interface TrialLitterDto {
   breedMakeup: BreedMakeupDto;
   /** Ancestors found on both sides within five generations, nearest first. */
   commonAncestors: { id: string; name: string; tattoo: string | null }[];
+  /** How the buck is related to the doe, in words: "her sire", "half-brother", "no shared ancestor on record". */
+  relationship: string;
 }
 
 export interface TrialMatingDto {

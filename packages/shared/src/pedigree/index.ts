@@ -8,3 +8,4 @@ export {
   type BreedAnimal, type BreedMakeup, type BreedPurity,
 } from './breed-makeup';
 export { CoopPedigree } from './coop-pedigree';
+export { relationshipInWords, type ParentsOf } from './relationship';

@@ -4,6 +4,7 @@ import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { cn } from '../../lib/cn';
 import { Button } from './button';
+import { useMoreToTheRight } from './use-more-to-the-right';
 
 function SortableHeader<T>({ header }: { header: Header<T, unknown> }) {
   const label = flexRender(header.column.columnDef.header, header.getContext());
@@ -14,10 +15,10 @@ function SortableHeader<T>({ header }: { header: Header<T, unknown> }) {
     <button
       type="button"
       onClick={header.column.getToggleSortingHandler()}
-      className="-mx-2 inline-flex min-h-11 items-center gap-1.5 rounded-lg px-2 font-semibold hover:bg-grey-100"
+      className="-mx-2 inline-flex min-h-11 items-center gap-1.5 rounded-lg px-2 text-left font-semibold hover:bg-grey-100"
     >
       {label}
-      <Icon className={cn('size-4', sorted ? 'text-moss-deep' : 'text-grey-400')} aria-hidden="true" />
+      <Icon className={cn('size-4 shrink-0', sorted ? 'text-moss-deep' : 'text-grey-400')} aria-hidden="true" />
     </button>
   );
 }
@@ -52,10 +53,22 @@ interface DataTableProps<T> {
 /** A dense table on wide screens and a list of cards on phones, from one TanStack table. */
 export function DataTable<T>({ table, caption, renderCard, empty, isRefreshing = false }: DataTableProps<T>) {
   const rows = table.getRowModel().rows;
+  const scroller = useMoreToTheRight();
   if (rows.length === 0) return <div className="rounded-2xl border border-dashed border-grey-300 bg-white p-8 text-center text-grey-600">{empty}</div>;
   return (
     <div className={cn('transition-opacity', isRefreshing && 'opacity-60')} aria-busy={isRefreshing || undefined}>
-      <div className="hidden overflow-x-auto rounded-2xl border border-grey-200 bg-white shadow-sm md:block">
+      {scroller.more && (
+        <p className="mb-1 hidden text-right text-sm font-medium text-grey-600 md:block" aria-hidden="true">
+          More columns to the right <ChevronRight className="inline size-4" />
+        </p>
+      )}
+      <div
+        ref={scroller.ref}
+        className={cn(
+          'hidden overflow-x-auto rounded-2xl border border-grey-200 bg-white shadow-sm md:block',
+          scroller.more && '[mask-image:linear-gradient(to_right,black_calc(100%-3rem),transparent)]',
+        )}
+      >
         <table className="w-full text-left">
           <caption className="sr-only">{caption}</caption>
           <thead className="border-b border-grey-200 bg-grey-50 text-sm text-grey-700">
@@ -67,7 +80,7 @@ export function DataTable<T>({ table, caption, renderCard, empty, isRefreshing =
                     <th
                       key={header.id}
                       scope="col"
-                      className="px-4 py-1 font-semibold whitespace-nowrap"
+                      className="px-3 py-1 align-bottom font-semibold"
                       aria-sort={header.column.getCanSort() ? (sorted === 'asc' ? 'ascending' : sorted === 'desc' ? 'descending' : 'none') : undefined}
                     >
                       {header.isPlaceholder ? null : <SortableHeader header={header} />}
@@ -81,7 +94,7 @@ export function DataTable<T>({ table, caption, renderCard, empty, isRefreshing =
             {rows.map((row) => (
               <tr key={row.id} className="align-top hover:bg-oat/60">
                 {row.getVisibleCells().map((cell) => (
-                  <td key={cell.id} className="px-4 py-3">
+                  <td key={cell.id} className="px-3 py-3">
                     {flexRender(cell.column.columnDef.cell, cell.getContext())}
                   </td>
                 ))}

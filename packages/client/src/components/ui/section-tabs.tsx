@@ -1,6 +1,7 @@
 import type { ReactNode } from 'react';
 import { NavLink } from 'react-router-dom';
 import { cn } from '../../lib/cn';
+import { useMoreToTheRight } from './use-more-to-the-right';
 
 /** One tab of an area's own navigation (the admin area, the grow-out area). */
 export function SectionTab({ to, icon, children, badge, end }: { to: string; icon: ReactNode; children: string; badge?: ReactNode; end?: boolean }) {
@@ -24,10 +25,18 @@ export function SectionTab({ to, icon, children, badge, end }: { to: string; ico
   );
 }
 
-/** The row of an area's tabs; scrolls sideways on a phone rather than wrapping into a wall of buttons. */
+/**
+ * The row of an area's tabs; scrolls sideways on a phone rather than wrapping into a wall of buttons, and fades
+ * at the right edge while more tabs sit beyond it.
+ */
 export function SectionTabs({ label, children }: { label: string; children: ReactNode }) {
+  const scroller = useMoreToTheRight<HTMLElement>();
   return (
-    <nav aria-label={label} className="-mx-4 overflow-x-auto px-4 sm:mx-0 sm:px-0">
+    <nav
+      ref={scroller.ref}
+      aria-label={label}
+      className={cn('-mx-4 overflow-x-auto px-4 sm:mx-0 sm:px-0', scroller.more && '[mask-image:linear-gradient(to_right,black_calc(100%-3rem),transparent)]')}
+    >
       <ul className="flex gap-2 sm:flex-wrap">{children}</ul>
     </nav>
   );

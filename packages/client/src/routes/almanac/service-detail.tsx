@@ -22,7 +22,8 @@ export async function loader({ params }: LoaderFunctionArgs) {
   return null;
 }
 
-const statusWords = { open: 'Open', kindled: 'Kindled', empty: 'Palpated empty', missed: 'Closed as missed' } as const;
+// Never "open": to a breeder an open doe is one not bred.
+const statusWords = { open: 'Waiting for kits', kindled: 'Kindled', empty: 'Palpated empty', missed: 'Closed as missed' } as const;
 
 export function ServiceDetailPage() {
   const { data: service } = useService(useIdParam('serviceId'));

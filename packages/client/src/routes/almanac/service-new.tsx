@@ -30,7 +30,7 @@ export function ServiceNewPage() {
       {rights.canPlan ? (
         <>
           <Card>
-            <ServiceForm initialDoeId={params.get('doeId') ?? undefined} />
+            <ServiceForm initialDoeId={params.get('doeId') ?? undefined} initialBuckId={params.get('buckId') ?? undefined} />
           </Card>
           <TreatmentsCard />
         </>

@@ -8,6 +8,7 @@ import type { requireMe } from '../../app/route-guards';
 import { useUnreadApplications } from '../../features/applications/api/get-unread-applications';
 import { useMe } from '../../features/auth/api/get-me';
 import { useSignOut } from '../../features/auth/api/sign-out';
+import { NotificationToast, useUnreadNotifications } from '../../features/notifications';
 import { useRealtimeSync } from '../../features/realtime/hooks/use-realtime-sync';
 import { AbilityContext, buildAbility } from '../../lib/ability';
 import { roleLabels } from '../../lib/role-labels';
@@ -23,6 +24,7 @@ export function SignedInLayout() {
   // Apprentices never see money: no Ledger in their menu.
   const seesMoney = Boolean(me.user.farmId) && ability.can('read', subjectOf('Money', { coopId: me.coop.id, farmId: me.user.farmId }));
   const unread = useUnreadApplications(isAdmin);
+  const unreadNotifications = useUnreadNotifications();
   useRealtimeSync();
 
   return (
@@ -38,6 +40,7 @@ export function SignedInLayout() {
           isSigningOut={signOut.isPending}
           admin={isAdmin ? { unreadApplications: unread.data ?? 0 } : undefined}
           ledger={seesMoney}
+          unreadNotifications={unreadNotifications.data?.unread ?? 0}
         />
         <main id="main" tabIndex={-1} className="mx-auto max-w-6xl px-4 pt-6 pb-24 focus:outline-none sm:pt-8 lg:pb-8">
           {signOut.isError && (
@@ -47,6 +50,7 @@ export function SignedInLayout() {
           )}
           <Outlet />
         </main>
+        <NotificationToast />
       </AbilityContext>
     </SessionContext>
   );

@@ -1,5 +1,6 @@
 import { ForbiddenError } from '@casl/ability';
 import {
+  relationshipInWords,
   combineBreedMakeup, defineAbilityFor, pedigreeCompleteness, subjectOf, type BreedMakeup, type CoopPedigree, type PedigreeCardDto,
   type PedigreeCardListDto, type PedigreeCardQuery, type PedigreeTreeDto, type TrialMatingDto, type TrialMatingInput,
 } from '@burrowline/shared';
@@ -168,6 +169,7 @@ export async function trialMatings(actor: SessionUser, input: TrialMatingInput):
           coi: Math.min(1, Math.max(0, coi.get(sireId) ?? 0)),
           breedMakeup: presentMakeup({ makeup_breeds: makeup.breeds, makeup_unknown: makeup.unknown, purity: makeup.purity }, ctx),
           commonAncestors: common.map((id) => ({ id, name: names.get(id)?.name ?? '', tattoo: names.get(id)?.tattoo ?? null })),
+          relationship: relationshipInWords((id) => pedigree.parentsOf(id), dam.id, sireId),
         };
       }),
     };

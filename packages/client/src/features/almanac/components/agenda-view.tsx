@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import type { AgendaDto, AlmanacTaskDto } from '@burrowline/shared';
-import { relativeDay, formatLongDay } from '../../../lib/days';
+import { formatLongDay, formatWeekdayDay, relativeDay } from '../../../lib/days';
 import { useAlmanacRights } from '../hooks/use-almanac-rights';
 import { isOpen } from '../task-labels';
 import { BulkBar } from './bulk-bar';
@@ -47,7 +47,8 @@ export function AgendaView({ agenda }: { agenda: AgendaDto }) {
         <section key={day} aria-labelledby={`agenda-${day}`} className="space-y-2">
           <h2 id={`agenda-${day}`} className="text-lg font-bold">
             {relativeDay(day, agenda.today)}
-            <span className="ml-2 text-base font-normal text-grey-600">{formatLongDay(day)}</span>
+            {/* Today, tomorrow and yesterday get their date beside them; any other day's name is its date already. */}
+            {relativeDay(day, agenda.today) !== formatWeekdayDay(day) && <span className="ml-2 text-base font-normal text-grey-600">{formatLongDay(day)}</span>}
           </h2>
           <ul className="space-y-2">{tasks.map((t) => item(t))}</ul>
         </section>

@@ -66,8 +66,64 @@ function valuesOf(current: CycleSettingsDto, unit: WeightUnit): CycleSettingsVal
   };
 }
 
-/** The farm's own cycle, each default with its published range and source; saving re-plans open tasks only. */
+/** Where each default comes from: one disclosure under the settings, not a citation under every field. */
+function SettingSources({ current }: { current: CycleSettingsDto }) {
+  return (
+    <details className="rounded-xl border border-grey-200 bg-oat/40 p-3">
+      <summary className="min-h-11 cursor-pointer py-2 font-semibold text-moss-deep">Where do these numbers come from?</summary>
+      <dl className="mt-2 space-y-2 text-sm">
+        {fields.map((f) => (
+          <div key={f.key}>
+            <dt className="font-semibold">{f.label}</dt>
+            <dd>Published: {current.sources[f.key].publishedText}. {sourceText(current.sources[f.key])}</dd>
+          </div>
+        ))}
+        <div>
+          <dt className="font-semibold">Target fryer live weight</dt>
+          <dd>Published: {current.sources.targetLiveWeightGrams.publishedText}. {sourceText(current.sources.targetLiveWeightGrams)}</dd>
+        </div>
+        <div>
+          <dt className="font-semibold">Weigh-in ages</dt>
+          <dd>{sourceText(current.sources.weighInAgesDays)}</dd>
+        </div>
+      </dl>
+    </details>
+  );
+}
+
+/** The farm's cycle as it stands, for those who follow it but do not set it (an apprentice follows the mentor's farm). */
+function CycleSettingsReadOnly({ current, unit }: { current: CycleSettingsDto; unit: WeightUnit }) {
+  return (
+    <div className="space-y-4">
+      <p className="text-grey-700">Your mentor's farm sets these; ask your mentor if one looks wrong.</p>
+      <dl className="grid gap-x-6 gap-y-2 sm:grid-cols-2">
+        {fields.map((f) => (
+          <div key={f.key} className="flex justify-between gap-3 border-b border-grey-100 py-1.5">
+            <dt className="text-grey-700">{f.label}</dt>
+            <dd className="text-right font-semibold">{current.settings[f.key]} {f.unit}</dd>
+          </div>
+        ))}
+        <div className="flex justify-between gap-3 border-b border-grey-100 py-1.5">
+          <dt className="text-grey-700">Target fryer live weight</dt>
+          <dd className="font-semibold">{formatWeight(current.settings.targetLiveWeightGrams, unit)}</dd>
+        </div>
+        <div className="flex justify-between gap-3 border-b border-grey-100 py-1.5">
+          <dt className="text-grey-700">Weigh-in ages</dt>
+          <dd className="font-semibold">{current.settings.weighInAgesDays.join(', ')} days</dd>
+        </div>
+      </dl>
+      <SettingSources current={current} />
+    </div>
+  );
+}
+
+/** The farm's own cycle; the published ranges and sources sit in one disclosure; saving re-plans open tasks only. */
 export function CycleSettingsForm({ current, canEdit, unit }: { current: CycleSettingsDto; canEdit: boolean; unit: WeightUnit }) {
+  if (!canEdit) return <CycleSettingsReadOnly current={current} unit={unit} />;
+  return <CycleSettingsEditor current={current} unit={unit} />;
+}
+
+function CycleSettingsEditor({ current, unit }: { current: CycleSettingsDto; unit: WeightUnit }) {
   const save = useUpdateCycleSettings();
   const limits = CYCLE_SETTING_LIMITS.targetLiveWeightGrams;
   const form = useForm<CycleSettingsValues, unknown, CycleSettings>({
@@ -123,7 +179,6 @@ export function CycleSettingsForm({ current, canEdit, unit }: { current: CycleSe
       {isApiError(save.error, ErrorCode.staleVersion) && <Alert tone="warning">Someone else changed the settings first. Reload the page to see theirs.</Alert>}
       <div className="grid gap-5 md:grid-cols-2">
         {fields.map((f) => {
-          const source = current.sources[f.key];
           const value = Number(form.watch(f.key));
           const range = Number.isFinite(value) ? outsidePublishedRange(f.key, value) : null;
           return (
@@ -132,14 +187,8 @@ export function CycleSettingsForm({ current, canEdit, unit }: { current: CycleSe
               label={`${f.label} (${f.unit})`}
               type="number"
               inputMode="numeric"
-              disabled={!canEdit}
               error={errors[f.key]?.message}
-              hint={
-                <>
-                  Published: {source.publishedText}. Source: {sourceText(source)}
-                  {range === 'below' || range === 'above' ? <strong className="block text-clay-deep">Outside the published range: fine if you know your herd.</strong> : null}
-                </>
-              }
+              hint={range === 'below' || range === 'above' ? <strong className="text-clay-deep">Outside the published range: fine if you know your herd.</strong> : undefined}
               {...form.register(f.key)}
             />
           );
@@ -149,9 +198,9 @@ export function CycleSettingsForm({ current, canEdit, unit }: { current: CycleSe
             label="Target fryer live weight"
             unit={unit}
             error={errors.targetMajor?.message}
-            hint={`Published: ${targetSource.publishedText}${unit === 'kg_g' && targetSource.published ? ` (${formatWeight(targetSource.published.min, unit)} to ${formatWeight(targetSource.published.max, unit)})` : ''}. Source: ${sourceText(targetSource)}`}
-            majorProps={{ disabled: !canEdit, ...form.register('targetMajor') }}
-            minorProps={{ disabled: !canEdit, ...form.register('targetMinor') }}
+            hint={unit === 'kg_g' && targetSource.published ? `Published: ${formatWeight(targetSource.published.min, unit)} to ${formatWeight(targetSource.published.max, unit)}` : undefined}
+            majorProps={form.register('targetMajor')}
+            minorProps={form.register('targetMinor')}
           />
           {(targetRange === 'below' || targetRange === 'above') && (
             <p className="text-sm font-bold text-clay-deep">Outside the published range: fine if you know your herd.</p>
@@ -159,17 +208,14 @@ export function CycleSettingsForm({ current, canEdit, unit }: { current: CycleSe
         </div>
         <TextField
           label="Weigh-in ages (days, youngest first)"
-          disabled={!canEdit}
           error={errors.weighInAgesDays?.message}
-          hint={`Source: ${sourceText(current.sources.weighInAgesDays)}`}
           {...form.register('weighInAgesDays')}
         />
       </div>
-      {canEdit && (
-        <Button type="submit" isBusy={save.isPending}>
-          Save the cycle settings
-        </Button>
-      )}
+      <SettingSources current={current} />
+      <Button type="submit" isBusy={save.isPending}>
+        Save the cycle settings
+      </Button>
     </form>
   );
 }

@@ -81,16 +81,21 @@ export function MonthCalendar({ agenda, month, onMonth, previous, next }: MonthC
                       <span className={cn('inline-flex size-7 items-center justify-center rounded-full text-sm font-semibold', isToday && 'bg-moss text-white')}>
                         {Number(d.slice(8))}
                       </span>
-                      {/* A phone's day is too narrow for words: a dot per task; the chosen day lists them below. */}
+                      {/* A phone's day is too narrow for words: a dot per task (the legend below names the colours); the chosen day lists them below. */}
                       <span className="flex flex-wrap gap-1 sm:hidden" aria-hidden="true">
-                        {tasks.map((t) => (
+                        {tasks.slice(0, 6).map((t) => (
                           <span key={t.id} className={cn('size-2.5 rounded-full', dotTone[t.timing] ?? dotTone.upcoming)} />
                         ))}
+                        {tasks.length > 6 && <span className="text-[0.65rem] leading-none font-semibold">+{tasks.length - 6}</span>}
                       </span>
                       {tasks.slice(0, 3).map((t) => (
-                        <span key={t.id} className={cn('hidden truncate rounded px-1.5 py-0.5 text-xs font-medium sm:block', chipTone[t.timing] ?? chipTone.upcoming)}>
+                        <span
+                          key={t.id}
+                          title={`${t.title}${t.animal?.name ? ` · ${t.animal.name}` : ''}`}
+                          className={cn('hidden rounded px-1.5 py-0.5 text-xs leading-tight font-medium break-words sm:line-clamp-2', chipTone[t.timing] ?? chipTone.upcoming)}
+                        >
+                          {t.animal?.name ? <span className="font-semibold">{t.animal.name}: </span> : null}
                           {t.title}
-                          {t.animal?.name ? ` · ${t.animal.name}` : ''}
                         </span>
                       ))}
                       {tasks.length > 3 && <span className="hidden text-xs font-medium text-grey-600 sm:block">+{tasks.length - 3} more</span>}
@@ -102,6 +107,15 @@ export function MonthCalendar({ agenda, month, onMonth, previous, next }: MonthC
           ))}
         </tbody>
       </table>
+      <ul className="flex flex-wrap gap-x-4 gap-y-1 text-sm text-grey-700 sm:hidden" aria-label="What the dots mean">
+        {[['overdue', 'late'], ['due_today', 'today'], ['upcoming', 'planned'], ['done', 'done']].map(([timing, word]) => (
+          <li key={timing} className="flex items-center gap-1.5">
+            <span className={cn('size-2.5 rounded-full', dotTone[timing!])} aria-hidden="true" />
+            {word}
+          </li>
+        ))}
+        <li>Tap a day to see its tasks.</li>
+      </ul>
       {day && (
         <section aria-labelledby="month-day" className="space-y-2">
           <h2 id="month-day" className="text-lg font-bold">

@@ -36,7 +36,7 @@ export function OpenServices() {
     }, { preventScrollReset: true });
   return (
     <Card className="space-y-3">
-      <h2 className="text-lg font-bold">Open services</h2>
+      <h2 className="text-lg font-bold">Services waiting for kits</h2>
       <ul className="divide-y divide-grey-200">
         {list.map((s) => {
           const status = s.kindlingStatus ? kindlingWords[s.kindlingStatus] : null;
@@ -54,7 +54,7 @@ export function OpenServices() {
           );
         })}
       </ul>
-      <Pagination page={query.page} pageSize={query.pageSize} total={services.data?.total ?? 0} noun="open services" onPage={onPage} />
+      <Pagination page={query.page} pageSize={query.pageSize} total={services.data?.total ?? 0} noun="services waiting for kits" onPage={onPage} />
     </Card>
   );
 }

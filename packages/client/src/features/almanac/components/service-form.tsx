@@ -13,9 +13,11 @@ import { sharedSchemaResolver } from '../../../lib/shared-schema-resolver';
 import { useServerSubmit } from '../../../lib/use-server-submit';
 import { useBreedingStock } from '../api/get-breeding-stock';
 import { useRecordService } from '../api/record-service';
+import { Badge } from '../../../components/ui/badge';
+import { coiLevel, formatCoi, useTrialMatings } from '../../herd';
 
 function doeLabel(d: BreedingStockDto): string {
-  const notes = [d.openService ? `open service from ${formatDate(d.openService.servicedOn)}` : null, d.underTreatment ? 'under treatment' : null].filter(Boolean);
+  const notes = [d.openService ? `served on ${formatDate(d.openService.servicedOn)}` : null, d.underTreatment ? 'under treatment' : null].filter(Boolean);
   return `${animalName(d)}${notes.length ? ` — ${notes.join(', ')}` : ''}`;
 }
 
@@ -29,13 +31,13 @@ interface ServiceValues {
 const resolver = sharedSchemaResolver<ServiceValues, ServiceCreateBody>(serviceCreateSchema, (v) => v);
 
 /** Records a service; warnings (a young doe, one under treatment) are shown and must be confirmed. */
-export function ServiceForm({ initialDoeId }: { initialDoeId?: string }) {
+export function ServiceForm({ initialDoeId, initialBuckId }: { initialDoeId?: string; initialBuckId?: string }) {
   const { data: stock } = useBreedingStock();
   const record = useRecordService();
   const navigate = useNavigate();
   const form = useForm<ServiceValues, unknown, ServiceCreateBody>({
     resolver,
-    defaultValues: { doeId: initialDoeId ?? '', buckId: stock.bucks.length === 1 ? stock.bucks[0]!.id : '', servicedOn: stock.today, notes: '' },
+    defaultValues: { doeId: initialDoeId ?? '', buckId: initialBuckId && stock.bucks.some((b) => b.id === initialBuckId) ? initialBuckId : stock.bucks.length === 1 ? stock.bucks[0]!.id : '', servicedOn: stock.today, notes: '' },
   });
   const { errors } = form.formState;
   const { submit, confirm, warnings, failure } = useServerSubmit(form, record, {
@@ -65,6 +67,7 @@ export function ServiceForm({ initialDoeId }: { initialDoeId?: string }) {
         <TextField label="Date of the service" type="date" max={stock.today} error={errors.servicedOn?.message} {...form.register('servicedOn')} />
         <TextAreaField label="Notes (optional)" rows={2} error={errors.notes?.message} {...form.register('notes')} />
       </div>
+      <Kinship doeId={form.watch('doeId')} buckId={form.watch('buckId')} />
       {doe?.underTreatment && (
         <Alert tone="warning" title="She is under treatment">
           {doe.underTreatment.treatment} until {formatDate(doe.underTreatment.endsOn)}. No drugs are approved for rabbits in the US: ask the veterinarian who
@@ -81,5 +84,25 @@ export function ServiceForm({ initialDoeId }: { initialDoeId?: string }) {
         Save the service
       </Button>
     </form>
+  );
+}
+
+/** Before saving: how related the pair is, as the litter's COI and in words. */
+function Kinship({ doeId, buckId }: { doeId: string; buckId: string }) {
+  const trial = useTrialMatings(doeId, doeId && buckId ? [buckId] : []);
+  const litter = trial.data?.litters[0];
+  if (!doeId || !buckId) return null;
+  if (!litter) return <p className="text-grey-600" aria-live="polite">Working out their kinship…</p>;
+  const level = coiLevel(litter.coi);
+  const words = litter.relationship === 'no shared ancestor on record' ? 'No shared ancestor on record.' : `He is ${litter.relationship.startsWith('her ') ? litter.relationship : `her ${litter.relationship}`}.`;
+  return (
+    <div className="flex flex-wrap items-center gap-x-4 gap-y-2 rounded-xl border border-grey-200 bg-oat/50 p-3" aria-live="polite" data-testid="service-kinship">
+      <p>
+        <span className="text-grey-600">Litter's COI </span>
+        <strong className="text-xl">{formatCoi(litter.coi)}</strong>
+      </p>
+      <Badge tone={level.tone}>{level.label}</Badge>
+      <p className="font-medium">{words}</p>
+    </div>
   );
 }

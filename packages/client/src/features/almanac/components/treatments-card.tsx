@@ -1,34 +1,35 @@
 import { Card } from '../../../components/ui/card';
 import { TextLink } from '../../../components/ui/text-link';
-import { MedicineCaution } from '../../health';
-import { TreatmentForm } from '../../health';
 import { useBreedingStock } from '../api/get-breeding-stock';
 import { useTreatments } from '../api/get-treatments';
 import { formatDate } from '../../../lib/days';
 import { animalName } from '../../../lib/names';
 
-/** Treatments of the farm's breeding stock; a doe under one is flagged before she is bred (a warning, not a block). */
+/**
+ * Beside a service: which breeding animals are under a medicine's withdrawal now (a warning, not a block).
+ * Recording a treatment, and its caution, live in Health.
+ */
 export function TreatmentsCard() {
   const { data: stock } = useBreedingStock();
   const treatments = useTreatments();
   const current = (treatments.data?.treatments ?? []).filter((t) => t.withdrawalEndsOn >= stock.today && t.animal);
   return (
-    <Card className="space-y-4">
-      <h2 className="text-lg font-bold">Treatments</h2>
-      <MedicineCaution />
-      {current.length > 0 && (
+    <Card className="space-y-3">
+      <h2 className="text-lg font-bold">Under withdrawal now</h2>
+      {current.length > 0 ? (
         <ul className="space-y-1">
           {current.map((t) => (
             <li key={t.id}>
-              <strong>{animalName(t.animal!)}</strong>: {t.treatment}, {formatDate(t.startedOn)}, under withdrawal through {formatDate(t.withdrawalEndsOn)}
+              <strong>{animalName(t.animal!)}</strong>: {t.treatment}, through {formatDate(t.withdrawalEndsOn)}
               {t.veterinarian ? ` (${t.veterinarian})` : ''}
             </li>
           ))}
         </ul>
+      ) : (
+        <p className="text-grey-600">No doe or buck is under a medicine's withdrawal.</p>
       )}
-      <TreatmentForm today={stock.today} animals={[...stock.does, ...stock.bucks].map((a) => ({ value: a.id, label: animalName(a) }))} />
       <p className="text-sm">
-        Groups, past treatments and withdrawals: <TextLink to="/grow-out/health">Health</TextLink>
+        Record a treatment in <TextLink to="/grow-out/health">Health</TextLink>.
       </p>
     </Card>
   );

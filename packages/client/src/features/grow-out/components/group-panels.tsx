@@ -70,10 +70,13 @@ export function ProjectionCard({ group, unit }: { group: GrowOutGroupDto; unit: 
           {Math.round(p.interval.level * 100)} % interval: <strong>{formatDate(p.interval.from)}</strong> to <strong>{formatDate(p.interval.to)}</strong>
         </p>
       )}
-      <p>
-        <span className="font-semibold">Model: {p.modelName}.</span> {p.why}
-      </p>
-      <p className="text-sm text-grey-600">{p.model.description}</p>
+      <details className="text-sm">
+        <summary className="min-h-11 cursor-pointer py-2 font-semibold text-moss-deep">How is this worked out?</summary>
+        <p>
+          <span className="font-semibold">Model: {p.modelName}.</span> {p.why}
+        </p>
+        <p className="text-grey-600">{p.model.description}</p>
+      </details>
     </section>
   );
 }

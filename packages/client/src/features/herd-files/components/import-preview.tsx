@@ -172,7 +172,7 @@ export function ImportPreview({ importId }: { importId: string }) {
       <div className="space-y-1">
         <h2 className="text-xl font-bold tracking-tight">Preview of {data.fileName}</h2>
         <p className="text-sm text-grey-600">
-          {plural(s.rows, 'row')} checked against your herd · {number.format(data.byteSize)} bytes · checksum {data.checksum.slice(0, 12)}…
+          {plural(s.rows, 'row')} checked against your herd
         </p>
       </div>
       <Summary preview={data} />

@@ -20,7 +20,21 @@ function whereFrom(card: PedigreeCardDto): string {
   return card.breedingFarm ? `Bred at ${card.breedingFarm.name}` : 'No longer on a farm';
 }
 
-function PedigreeBox({ card, slot, repeats, compact }: { card: PedigreeCardDto | null; slot: number; repeats: number; compact?: boolean }) {
+/** Tattoo and registration number, each named, so a number from papers is never read as a tattoo. */
+function identifiers(card: PedigreeCardDto): string {
+  return [card.tattoo ? `Tattoo ${card.tattoo}` : null, card.registrationNumber ? `Reg. ${card.registrationNumber}` : null].filter(Boolean).join(' · ') || 'No tattoo on record';
+}
+
+/** A repeated ancestor's mark: the same letter wherever it appears, so the eye can follow the line that repeats. */
+function LineMark({ mark }: { mark: string }) {
+  return (
+    <span className="absolute top-1.5 right-1.5 inline-flex size-6 items-center justify-center rounded-md bg-bark text-xs font-bold text-oat" title="Appears more than once in this pedigree">
+      {mark}
+    </span>
+  );
+}
+
+function PedigreeBox({ card, slot, mark, compact }: { card: PedigreeCardDto | null; slot: number; mark: string | null; compact?: boolean }) {
   const role = slotRole(slot);
   if (!card) {
     return (
@@ -31,41 +45,31 @@ function PedigreeBox({ card, slot, repeats, compact }: { card: PedigreeCardDto |
     );
   }
   return (
-    <div
-      className={cn(
-        'relative flex h-full min-h-14 flex-col justify-center rounded-xl border bg-white px-3 py-2 shadow-sm',
-        card.sex === 'buck' ? 'border-l-4 border-grey-200 border-l-moss' : 'border-l-4 border-grey-200 border-l-straw',
-        repeats > 1 && 'ring-2 ring-clay/60',
-      )}
-    >
-      <span className="text-xs font-semibold tracking-wide text-grey-600 uppercase">{role}</span>
+    <div className={cn('relative flex h-full min-h-14 flex-col justify-center rounded-xl border border-grey-200 bg-white px-3 py-2 shadow-sm', mark && 'bg-oat pr-9')}>
+      {mark && <LineMark mark={mark} />}
+      <span className="text-xs font-semibold tracking-wide text-grey-600 uppercase">
+        {role} · {card.sex === 'buck' ? 'buck' : 'doe'}
+      </span>
       <Link to={`/herd/${card.id}`} className="font-semibold text-moss-deep underline decoration-1 underline-offset-2 after:absolute after:inset-0">
         {card.name || card.tattoo || 'Unnamed'}
       </Link>
       {!compact && (
         <>
-          <span className="text-sm text-grey-700">
-            {[card.tattoo, card.registrationNumber].filter(Boolean).join(' · ') || '—'}
-          </span>
+          <span className="text-sm text-grey-700">{identifiers(card)}</span>
           <span className="text-sm">{breedMakeupText(card.breedMakeup)}</span>
         </>
       )}
       <span className="text-sm text-grey-600">{whereFrom(card)}</span>
-      {(card.coi > 0 || repeats > 1) && (
-        <span className="text-sm font-medium text-clay-deep">
-          {card.coi > 0 && `COI ${formatCoi(card.coi)}`}
-          {card.coi > 0 && repeats > 1 && ' · '}
-          {repeats > 1 && `appears ${repeats}×`}
-        </span>
-      )}
+      {card.coi > 0 && <span className="text-sm font-medium text-clay-deep">COI {formatCoi(card.coi)}</span>}
     </div>
   );
 }
 
 /**
- * Our pedigree picture: generations side by side on wide screens (each ancestor spanning the rows of
- * its own ancestors), a list by generation on phones. An ancestor that appears more than once — the
- * source of inbreeding — is ringed in clay.
+ * Our pedigree picture, on the paper convention of the trade (generations left to right, sire above dam):
+ * generations side by side on wide screens (each ancestor spanning the rows of its own ancestors), a list
+ * by generation on phones. An ancestor that appears more than once — the source of inbreeding — carries
+ * the same letter wherever it appears, explained under the picture.
  */
 export function PedigreeTree({ tree }: { tree: PedigreeTreeDto }) {
   const generations = tree.generations;
@@ -75,6 +79,9 @@ export function PedigreeTree({ tree }: { tree: PedigreeTreeDto }) {
     const id = tree.slots[k];
     if (id) repeats.set(id, (repeats.get(id) ?? 0) + 1);
   }
+  const repeated = [...repeats].filter(([, n]) => n > 1).map(([id]) => id);
+  const markOf = new Map(repeated.map((id, i) => [id, String.fromCharCode(65 + (i % 26))]));
+  const markAt = (slot: number) => (tree.slots[slot] ? (markOf.get(tree.slots[slot]!) ?? null) : null);
   const slotsOf = (g: number) => Array.from({ length: 2 ** g }, (_, i) => 2 ** g + i);
   const cardAt = (slot: number) => {
     const id = tree.slots[slot];
@@ -92,7 +99,7 @@ export function PedigreeTree({ tree }: { tree: PedigreeTreeDto }) {
         {Array.from({ length: generations }, (_, i) => i + 1).flatMap((g) =>
           slotsOf(g).map((slot, i) => (
             <div key={slot} role="listitem" style={{ gridColumn: g, gridRow: `${i * (rows / 2 ** g) + 1} / span ${rows / 2 ** g}` }}>
-              <PedigreeBox card={cardAt(slot)} slot={slot} repeats={tree.slots[slot] ? (repeats.get(tree.slots[slot]!) ?? 1) : 1} compact={g === 4} />
+              <PedigreeBox card={cardAt(slot)} slot={slot} mark={markAt(slot)} compact={g === 4} />
             </div>
           )),
         )}
@@ -109,13 +116,25 @@ export function PedigreeTree({ tree }: { tree: PedigreeTreeDto }) {
             <ul className="mt-2 grid grid-cols-1 gap-2 min-[420px]:grid-cols-2">
               {slotsOf(g).map((slot) => (
                 <li key={slot}>
-                  <PedigreeBox card={cardAt(slot)} slot={slot} repeats={tree.slots[slot] ? (repeats.get(tree.slots[slot]!) ?? 1) : 1} />
+                  <PedigreeBox card={cardAt(slot)} slot={slot} mark={markAt(slot)} />
                 </li>
               ))}
             </ul>
           </details>
         ))}
       </div>
+      {repeated.length > 0 && (
+        <ul className="mt-3 space-y-1 text-sm" aria-label="Ancestors that appear more than once">
+          {repeated.map((id) => (
+            <li key={id} className="flex items-center gap-2">
+              <span className="inline-flex size-6 shrink-0 items-center justify-center rounded-md bg-bark text-xs font-bold text-oat">{markOf.get(id)}</span>
+              <span>
+                <strong>{tree.cards[id]?.name || tree.cards[id]?.tattoo || 'An ancestor'}</strong> appears in {repeats.get(id)} places: the litter's inbreeding comes through this line.
+              </span>
+            </li>
+          ))}
+        </ul>
+      )}
     </div>
   );
 }

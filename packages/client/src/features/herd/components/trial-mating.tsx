@@ -70,7 +70,7 @@ export function BuckPicker({ ownFarmId, chosen, onToggle }: BuckPickerProps) {
   );
 }
 
-function LitterCard({ litter, ownFarmId }: { litter: TrialLitterDto; ownFarmId: string | null }) {
+function LitterCard({ litter, damId, ownFarmId }: { litter: TrialLitterDto; damId: string; ownFarmId: string | null }) {
   const level = coiLevel(litter.coi);
   const elsewhere = litter.sire.currentFarm && litter.sire.currentFarm.id !== ownFarmId;
   return (
@@ -92,6 +92,7 @@ function LitterCard({ litter, ownFarmId }: { litter: TrialLitterDto; ownFarmId: 
           <p className="text-sm text-grey-600">Litter's COI</p>
           <p className="text-3xl font-bold">{formatCoi(litter.coi)}</p>
           <Badge tone={level.tone}>{level.label}</Badge>
+          <p className="mt-1">He is {litter.relationship === 'no shared ancestor on record' ? 'no relation on record' : litter.relationship.startsWith('her ') ? litter.relationship : `her ${litter.relationship}`}.</p>
         </div>
         <div className="space-y-2">
           <p className="text-sm text-grey-600">Litter's breed make-up</p>
@@ -114,6 +115,14 @@ function LitterCard({ litter, ownFarmId }: { litter: TrialLitterDto; ownFarmId: 
             </ul>
           )}
         </div>
+        {litter.sire.currentFarm?.id === ownFarmId && (
+          <Link
+            to={`/almanac/services/new?doeId=${encodeURIComponent(damId)}&buckId=${encodeURIComponent(litter.sire.id)}`}
+            className="inline-flex min-h-11 items-center rounded-lg border-2 border-moss px-3 font-semibold text-moss-deep hover:bg-moss-wash"
+          >
+            Record this service
+          </Link>
+        )}
       </Card>
     </li>
   );
@@ -129,7 +138,7 @@ export function TrialResults({ dam, sireIds, ownFarmId }: { dam: PedigreeCardDto
   return (
     <ul aria-label="Trial litters" className="grid gap-4 sm:grid-cols-2 2xl:grid-cols-3">
       {litters.map((litter) => (
-        <LitterCard key={litter.sire.id} litter={litter} ownFarmId={ownFarmId} />
+        <LitterCard key={litter.sire.id} litter={litter} damId={dam.id} ownFarmId={ownFarmId} />
       ))}
     </ul>
   );

@@ -29,9 +29,9 @@ export function DoesTable({ does, unit }: { does: DoeRow[]; unit: WeightUnit }) 
       <span className="whitespace-nowrap">
         {c.getValue()}
         <span className="block text-sm text-grey-600">{decimal(c.row.original.littersPerYear)} a year</span>
+        {c.row.original.kindlingIntervalDays !== null && <span className="block text-sm text-grey-600">every {wholeDays(c.row.original.kindlingIntervalDays)}</span>}
       </span>
     ) }),
-    column.accessor((r) => sortable(r.kindlingIntervalDays), { id: 'interval', header: 'Kindling interval', cell: (c) => <span className="whitespace-nowrap">{wholeDays(c.row.original.kindlingIntervalDays)}</span> }),
     column.accessor((r) => sortable(r.averageBornAlive), { id: 'born', header: 'Born alive → weaned', cell: (c) => (
       <span className="whitespace-nowrap">
         {decimal(c.row.original.averageBornAlive)} → {decimal(c.row.original.averageWeaned)}
@@ -40,7 +40,7 @@ export function DoesTable({ does, unit }: { does: DoeRow[]; unit: WeightUnit }) 
     ) }),
     column.accessor((r) => sortable(r.averageLitterWeaningGrams), { id: 'weight', header: 'Litter at weaning', cell: (c) => <span className="whitespace-nowrap">{weightOrDash(c.row.original.averageLitterWeaningGrams, unit)}</span> }),
     column.accessor((r) => sortable(r.kitsWeanedPerYear), { id: 'kpy', header: 'Weaned a year', cell: (c) => (
-      <span className="whitespace-nowrap">
+      <span className="block max-w-44">
         {decimal(c.row.original.kitsWeanedPerYear)} kits
         {outputNote(c.row.original) && <span className="block text-sm text-grey-600">{outputNote(c.row.original)}</span>}
         <span className="block text-sm text-grey-600">{weightOrDash(c.row.original.carcassGramsPerYear, unit)} carcass</span>
@@ -56,7 +56,7 @@ export function DoesTable({ does, unit }: { does: DoeRow[]; unit: WeightUnit }) 
     column.accessor((r) => sortable(r.conceptionRate), { id: 'conception', header: 'Conception', cell: (c) => (
       <span className="whitespace-nowrap">
         {percent(c.row.original.conceptionRate)}
-        <span className="block text-sm text-grey-600">of {c.row.original.services} services</span>
+        <span className="block text-sm text-grey-600">of {countOf(c.row.original.services, 'service')}</span>
       </span>
     ) }),
   ];

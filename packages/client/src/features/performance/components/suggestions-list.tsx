@@ -1,12 +1,13 @@
 import { Link } from 'react-router-dom';
 import type { SuggestionAction, SuggestionRow } from '@burrowline/shared';
-import { Badge, type BadgeTone } from '../../../components/ui/badge';
+import { cn } from '../../../lib/cn';
 
-const words: Record<SuggestionAction, { label: string; tone: BadgeTone }> = {
-  consider_culling: { label: 'Consider culling', tone: 'clay' },
-  watch: { label: 'Watch', tone: 'straw' },
-  keep: { label: 'Keep', tone: 'moss' },
-  too_early: { label: 'Too early to say', tone: 'neutral' },
+/** What the reasons add up to, said after them in plain words (the breeder weighs the reasons, not a label). */
+const conclusions: Record<SuggestionAction, { words: string; rule: string }> = {
+  consider_culling: { words: 'so she may be worth replacing', rule: 'border-clay' },
+  watch: { words: 'so she is worth watching', rule: 'border-straw-deep' },
+  keep: { words: 'so she is earning her place', rule: 'border-moss' },
+  too_early: { words: 'so it is too early to judge her', rule: 'border-grey-300' },
 };
 
 /**
@@ -16,20 +17,18 @@ const words: Record<SuggestionAction, { label: string; tone: BadgeTone }> = {
 export function SuggestionsList({ suggestions }: { suggestions: SuggestionRow[] }) {
   if (suggestions.length === 0) return <p className="text-grey-600">No does on the farm with records in this period.</p>;
   return (
-    <ul className="divide-y divide-grey-200">
+    <ul>
       {suggestions.map((s) => {
-        const first = words[s.suggestions[0]!.action];
+        const conclusion = conclusions[s.suggestions[0]!.action];
         return (
-          <li key={s.animal.id} className="flex flex-col gap-2 py-3 sm:flex-row sm:items-start sm:gap-4">
-            <div className="flex min-w-48 items-center gap-2">
-              <Badge tone={first.tone}>{first.label}</Badge>
-              <Link to={`/herd/${s.animal.id}`} className="inline-flex min-h-11 items-center font-semibold text-moss-deep underline underline-offset-4">
-                {s.animal.name || 'Unnamed'}{s.animal.tattoo ? ` (${s.animal.tattoo})` : ''}
-              </Link>
-            </div>
-            <ul className="list-disc space-y-1 pl-5 text-bark sm:pt-2">
-              {s.suggestions.map((x) => <li key={x.code}>{x.reason}</li>)}
-            </ul>
+          <li key={s.animal.id} className={cn('my-2 border-l-4 py-1 pl-3', conclusion.rule)}>
+            <Link to={`/herd/${s.animal.id}`} className="inline-flex min-h-11 items-center font-semibold text-moss-deep underline underline-offset-4">
+              {s.animal.name || 'Unnamed'}{s.animal.tattoo ? ` (${s.animal.tattoo})` : ''}
+            </Link>
+            <p className="text-bark">
+              {s.suggestions.map((x) => x.reason.replace(/\.$/, '')).join('; ')}
+              {s.suggestions[0]!.action === 'too_early' ? '.' : <>, <em className="font-semibold not-italic">{conclusion.words}</em>.</>}
+            </p>
           </li>
         );
       })}

@@ -16,6 +16,7 @@ import { auditKeys, memberKeys } from '../../members';
 import { performanceKeys } from '../../performance';
 import { ledgerKeys } from '../../ledger';
 import { processingDayKeys } from '../../processing-days';
+import { notificationKeys, type LatestNotification } from '../../notifications';
 
 /**
  * The one place where server events become cache updates. Mounted by the signed-in layout, so the
@@ -81,7 +82,15 @@ export function useRealtimeSync(): void {
       const refreshLedger = () => void queryClient.invalidateQueries({ queryKey: ledgerKeys.all });
       // A processing day was scheduled or changed, or its places, waiting list or roster moved: its screens refetch.
       const refreshProcessingDays = () => void queryClient.invalidateQueries({ queryKey: processingDayKeys.all });
+      // A notification arrived or was read on another screen: the bell's count and list.
+      const refreshNotifications = () => void queryClient.invalidateQueries({ queryKey: notificationKeys.all });
+      const notificationsChanged = ({ unread, title, link }: { unread: number; title: string | null; link: string | null }) => {
+        queryClient.setQueryData(notificationKeys.unread(), { unread });
+        void queryClient.invalidateQueries({ queryKey: notificationKeys.all, predicate: (query) => query.queryKey[1] !== 'unread' });
+        if (title && link) queryClient.setQueryData<LatestNotification>(notificationKeys.latest(), { title, link, at: Date.now() });
+      };
       const refreshAll = () => {
+        refreshNotifications();
         refreshFarms();
         refreshLitters();
         refreshHerd();
@@ -117,6 +126,7 @@ export function useRealtimeSync(): void {
       socket.on(RealtimeEvent.ledgerChanged, refreshLedger);
       socket.on(RealtimeEvent.cardCheckoutSettled, refreshLedger);
       socket.on(RealtimeEvent.processingDayChanged, refreshProcessingDays);
+      socket.on(RealtimeEvent.notificationsChanged, notificationsChanged);
       socket.on(RealtimeEvent.sessionEnded, endSession);
       // Events sent while the connection was down are lost; refetch what they would have refreshed.
       socket.io.on('reconnect', refreshAll);
@@ -138,6 +148,7 @@ export function useRealtimeSync(): void {
         socket.off(RealtimeEvent.ledgerChanged, refreshLedger);
         socket.off(RealtimeEvent.cardCheckoutSettled, refreshLedger);
         socket.off(RealtimeEvent.processingDayChanged, refreshProcessingDays);
+        socket.off(RealtimeEvent.notificationsChanged, notificationsChanged);
         socket.off(RealtimeEvent.sessionEnded, endSession);
         socket.io.off('reconnect', refreshAll);
         disconnectRealtime();
