@@ -75,7 +75,7 @@ export function ProcessingDayPage() {
           <span className="inline-flex min-w-0 items-center gap-1.5"><MapPin className="size-5 shrink-0" aria-hidden="true" />{day.site.name}, {day.hostFarmName}</span>
         </p>
         <div className="flex flex-wrap gap-3 pt-1">
-          <a className={buttonClasses('secondary')} href={daySheetUrl(day.id)} target="_blank" rel="noreferrer"><FileText className="size-5" aria-hidden="true" />Day sheet (PDF)</a>
+          <a className={buttonClasses('secondary')} href={daySheetUrl(day.id)} download><FileText className="size-5" aria-hidden="true" />Day sheet (PDF)</a>
           <LinkButton to={`/processing-days/${day.id}/summary`}><BarChart3 className="size-5" aria-hidden="true" />Summary</LinkButton>
         </div>
       </header>

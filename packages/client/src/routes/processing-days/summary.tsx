@@ -27,7 +27,7 @@ export function DaySummaryPage() {
       <PageHeader
         title="Day summary"
         lead={formatLongDay(data.date)}
-        actions={<a className={buttonClasses('secondary')} href={daySheetUrl(dayId)} target="_blank" rel="noreferrer"><FileText className="size-5" aria-hidden="true" />Day sheet (PDF)</a>}
+        actions={<a className={buttonClasses('secondary')} href={daySheetUrl(dayId)} download><FileText className="size-5" aria-hidden="true" />Day sheet (PDF)</a>}
       />
       <DaySummary summary={data} />
     </div>
