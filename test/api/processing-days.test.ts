@@ -315,7 +315,7 @@ describe('processing days: in the Almanac', () => {
     const site = await siteAs(coop.admin, coop, { hostFarmId: coop.farms[1]!.id });
     const day = await dayAs(coop.admin, site.id, { date: inDays(8), signUpDeadline: inDays(5), startTime: '06:45' });
     const member = await agentOf(coop.member.email);
-    const agenda = async (agent: Awaited<ReturnType<typeof agentOf>>) => (await agent.get('/api/almanac/tasks').query({ days: 14 }).expect(200)).body.sharedDays as { id: string; title: string }[];
+    const agenda = async (agent: Awaited<ReturnType<typeof agentOf>>) => (await agent.get('/api/almanac/shared-days').query({ days: 14 }).expect(200)).body.days as { id: string; title: string }[];
     expect(await agenda(member)).toEqual([]);
     const { group } = await growingGroupAs(coop.member, { kindledDaysAgo: 70, heads: 4 });
     await member.post(`/api/processing-days/${day.id}/bookings`).send(bookingBody(coop.farms[0]!.id, [{ groupId: group.id, head: 3 }])).expect(201);

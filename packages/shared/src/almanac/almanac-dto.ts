@@ -67,8 +67,13 @@ export interface AgendaDto {
   attention: TaskAttention[];
   /** Apprentices' ticks and litter counts waiting for a member's review. */
   pendingReview: number;
-  /** Shared days the farm booked or hosts (processing days), in the period. */
-  sharedDays: { id: string; date: string; startTime: string; title: string; link: string }[];
+}
+
+/** Shared days the farm booked or hosts (processing days) in a period, shown beside the Almanac's tasks. */
+export interface SharedDaysDto {
+  from: string;
+  to: string;
+  days: { id: string; date: string; startTime: string; title: string; link: string }[];
 }
 
 /** Commons: what needs doing today and in the days to come. */
