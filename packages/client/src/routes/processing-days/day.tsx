@@ -82,7 +82,13 @@ export function ProcessingDayPage() {
 
       <div className="grid gap-6 lg:grid-cols-2">
         <div className="space-y-6">
-          <Card className="space-y-4">
+          {day.status === 'closed' && (
+            <Card className="space-y-3 border-2 border-moss">
+              <p className="text-lg font-semibold">The day is done: yields, fees and the shared costs are in its summary.</p>
+              <LinkButton variant="primary" className="w-full sm:w-auto" to={`/processing-days/${day.id}/summary`}><BarChart3 className="size-5" aria-hidden="true" />The day's summary</LinkButton>
+            </Card>
+          )}
+          <Card className={day.status === 'closed' ? 'hidden' : 'space-y-4'}>
             <CapacityBar capacity={day.capacity} />
             {day.canEdit && day.status === 'scheduled' && <CapacityEditor key={day.version} dayId={day.id} capacity={day.capacity.capacityHead} version={day.version} />}
           </Card>

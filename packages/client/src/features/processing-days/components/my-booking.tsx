@@ -88,7 +88,7 @@ function BookingBlock({ day, booking, farmId }: { day: ProcessingDayDto; booking
           <ul className="text-grey-700">
             {booking.lines.map((l) => <li key={l.groupId ?? l.animalId}>{l.label}: {l.head}</li>)}
           </ul>
-          {booking.feeCents !== undefined && booking.status !== 'waitlisted' && <p className="text-grey-700">Fee {money(booking.feeCents)}, charged after the day for the head processed.</p>}
+          {booking.feeCents !== undefined && booking.status !== 'waitlisted' && <p className="text-grey-700">Fee {money(booking.feeCents)}{day.status === 'closed' ? '' : ', charged after the day for the head processed'}.</p>}
           {booking.status === 'waitlisted' && <p className="text-grey-700">You are told at once, by notice and e-mail, when a place frees up.</p>}
           {booking.headBrought !== null && <p className="font-medium">Checked in: {booking.headBrought} head brought.</p>}
         </div>
