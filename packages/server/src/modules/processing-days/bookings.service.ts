@@ -186,35 +186,33 @@ export async function bookPlaces(actor: SessionUser, dayId: string, input: Booki
 /** bookPlaces inside the caller's transaction (the demo loader). */
 export async function bookPlacesIn(tx: Transaction, actor: SessionUser, dayId: string, input: BookingCreateInput): Promise<{ booking: BookingDto; created: boolean }> {
   ensureBookFor(actor, input.farmId);
-  {
-    const earlier = await bookingByKey(tx, input.idempotencyKey);
-    if (earlier) {
-      if (earlier.day_id !== dayId || earlier.farm_id !== input.farmId) throw AppError.idTaken();
-      return { booking: (await presentBookings(tx, actor, await findDay(tx, dayId), [earlier]))[0]!, created: false };
-    }
-    const day = await lockDay(tx, dayId);
-    await ensureOpenFor(tx, actor, day);
-    const lines = await resolveLines(tx, actor.coopId, day, input.farmId, input.items);
-    const head = lines.reduce((n, l) => n + l.head, 0);
-    const active = (await bookingsOfDay(tx, dayId)).filter((b) => b.status !== 'cancelled');
-    const capacity = capacityOf(day, active);
-    const status = !active.some((b) => b.status === 'waitlisted') && head <= capacity.freeHead ? 'booked' : 'waitlisted';
-    const [row] = await select<BookingRow>(
-      tx,
-      `INSERT INTO processing_bookings AS b (coop_id, day_id, farm_id, idempotency_key, status, head, lines, booked_by)
-       VALUES (current_coop_id(), $1, $2, $3, $4, $5, $6::jsonb, $7) RETURNING ${BOOKING_COLUMNS}`,
-      [dayId, input.farmId, input.idempotencyKey, status, head, JSON.stringify(lines), actor.id],
-    );
-    if (status === 'booked') await postFee(tx, day, row!, actor.id);
-    const all = [...active, row!];
-    await noticeBookingChanged(tx, {
-      coopId: actor.coopId, farmId: input.farmId, actorId: actor.id, bookingId: row!.id, version: row!.version, day,
-      title: `${actor.name} ${status === 'booked' ? 'booked' : 'joined the waitlist with'} ${head} head for ${day.date}`,
-      text: `${actor.name} ${status === 'booked' ? 'booked' : 'put on the waitlist'} ${head} head for the processing day of ${day.date}.`,
-    });
-    announceDay(tx, actor.coopId, { dayId, what: 'capacity', capacity: capacityOf(day, all) });
-    return { booking: (await presentBookings(tx, actor, day, [row!], all))[0]!, created: true };
+  const earlier = await bookingByKey(tx, input.idempotencyKey);
+  if (earlier) {
+    if (earlier.day_id !== dayId || earlier.farm_id !== input.farmId) throw AppError.idTaken();
+    return { booking: (await presentBookings(tx, actor, await findDay(tx, dayId), [earlier]))[0]!, created: false };
   }
+  const day = await lockDay(tx, dayId);
+  await ensureOpenFor(tx, actor, day);
+  const lines = await resolveLines(tx, actor.coopId, day, input.farmId, input.items);
+  const head = lines.reduce((n, l) => n + l.head, 0);
+  const active = (await bookingsOfDay(tx, dayId)).filter((b) => b.status !== 'cancelled');
+  const capacity = capacityOf(day, active);
+  const status = !active.some((b) => b.status === 'waitlisted') && head <= capacity.freeHead ? 'booked' : 'waitlisted';
+  const [row] = await select<BookingRow>(
+    tx,
+    `INSERT INTO processing_bookings AS b (coop_id, day_id, farm_id, idempotency_key, status, head, lines, booked_by)
+     VALUES (current_coop_id(), $1, $2, $3, $4, $5, $6::jsonb, $7) RETURNING ${BOOKING_COLUMNS}`,
+    [dayId, input.farmId, input.idempotencyKey, status, head, JSON.stringify(lines), actor.id],
+  );
+  if (status === 'booked') await postFee(tx, day, row!, actor.id);
+  const all = [...active, row!];
+  await noticeBookingChanged(tx, {
+    coopId: actor.coopId, farmId: input.farmId, actorId: actor.id, bookingId: row!.id, version: row!.version, day,
+    title: `${actor.name} ${status === 'booked' ? 'booked' : 'joined the waitlist with'} ${head} head for ${day.date}`,
+    text: `${actor.name} ${status === 'booked' ? 'booked' : 'put on the waitlist'} ${head} head for the processing day of ${day.date}.`,
+  });
+  announceDay(tx, actor.coopId, { dayId, what: 'capacity', capacity: capacityOf(day, all) });
+  return { booking: (await presentBookings(tx, actor, day, [row!], all))[0]!, created: true };
 }
 
 /** Changes what a booking brings. A booked farm may grow only into free places; fewer head free places for the waitlist. */
@@ -316,20 +314,18 @@ export async function checkIn(actor: SessionUser, dayId: string, bookingId: stri
 
 /** checkIn inside the caller's transaction (the demo loader). */
 export async function checkInIn(tx: Transaction, actor: SessionUser, dayId: string, bookingId: string, input: CheckInInput): Promise<BookingDto> {
-  {
-    const day = await lockDay(tx, dayId);
-    ensureHost(actor, day, 'Only the host or the admin checks batches in');
-    const row = await findBooking(tx, dayId, bookingId);
-    if (row.version !== input.version) throw AppError.staleVersion();
-    if (row.status !== 'booked') throw AppError.conflict(`The booking is ${row.status}; only booked places are checked in`);
-    if (day.status !== 'scheduled') throw AppError.conflict(`The day is ${day.status}`);
-    const hostToday = farmTodayIn(await farmDirectoryOf(actor.coopId, tx), day.host_farm_id);
-    if (hostToday < day.date) throw AppError.conflict(`Check-in opens on the day (${day.date})`);
-    if (input.headBrought > row.head) throw AppError.validation({ headBrought: [`${row.head} head are booked; more cannot be processed on this booking`] });
-    const updated = await updateBooking(tx, row.id, { head_brought: input.headBrought, checked_in_at: new Date() });
-    announceDay(tx, actor.coopId, { dayId, what: 'changed', capacity: capacityOf(day, (await bookingsOfDay(tx, dayId)).filter((b) => b.status !== 'cancelled')) });
-    return (await presentBookings(tx, actor, day, [updated]))[0]!;
-  }
+  const day = await lockDay(tx, dayId);
+  ensureHost(actor, day, 'Only the host or the admin checks batches in');
+  const row = await findBooking(tx, dayId, bookingId);
+  if (row.version !== input.version) throw AppError.staleVersion();
+  if (row.status !== 'booked') throw AppError.conflict(`The booking is ${row.status}; only booked places are checked in`);
+  if (day.status !== 'scheduled') throw AppError.conflict(`The day is ${day.status}`);
+  const hostToday = farmTodayIn(await farmDirectoryOf(actor.coopId, tx), day.host_farm_id);
+  if (hostToday < day.date) throw AppError.conflict(`Check-in opens on the day (${day.date})`);
+  if (input.headBrought > row.head) throw AppError.validation({ headBrought: [`${row.head} head are booked; more cannot be processed on this booking`] });
+  const updated = await updateBooking(tx, row.id, { head_brought: input.headBrought, checked_in_at: new Date() });
+  announceDay(tx, actor.coopId, { dayId, what: 'changed', capacity: capacityOf(day, (await bookingsOfDay(tx, dayId)).filter((b) => b.status !== 'cancelled')) });
+  return (await presentBookings(tx, actor, day, [updated]))[0]!;
 }
 
 /** Every booking of the day in the waitlist's order, cancelled ones last. */

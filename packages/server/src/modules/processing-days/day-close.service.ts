@@ -76,40 +76,38 @@ export async function recordDayYield(actor: SessionUser, dayId: string, input: D
 
 /** recordDayYield inside the caller's transaction (the demo loader). */
 export async function recordDayYieldIn(tx: Transaction, actor: SessionUser, dayId: string, input: DayYieldCreateInput): Promise<ProcessingRecordDto> {
-  {
-    const day = await lockDay(tx, dayId);
-    const booking = await findBooking(tx, dayId, input.bookingId);
-    // Bookings are known to the whole co-op: another farm is refused (403), not told it does not exist.
-    if (actor.farmId !== booking.farm_id) throw new AppError(ErrorCode.forbidden, 403, 'Yields are the farm\'s own processing records: its members record them');
-    ensureCan(actor, 'create', 'ProcessingRecord', { farmId: booking.farm_id }, 'That booking', 'Yields are the farm\'s own processing records: its members record them');
-    if (day.status !== 'scheduled') throw AppError.conflict(`The day is ${day.status}; its yields are final`);
-    if (booking.status !== 'booked' || booking.head_brought === null) throw AppError.conflict('Check the batch in before recording its yields');
-    const line = booking.lines.find((l) => (input.groupId ? l.groupId === input.groupId : l.animalId === input.animalId));
-    if (!line) throw AppError.validation({ [input.groupId ? 'groupId' : 'animalId']: ['Choose a group or animal of this booking'] });
-    if (input.id) {
-      const [existing] = await select<{ record_id: string }>(tx, 'SELECT record_id FROM processing_day_yields WHERE record_id = $1', [input.id]);
-      if (existing) {
-        return recordProcessingIn(tx, actor, { id: input.id, animalId: input.animalId, groupId: input.groupId, processedOn: day.date, headCount: input.headCount, liveGrams: input.liveGrams, hotCarcassGrams: input.hotCarcassGrams, chilledCarcassGrams: input.chilledCarcassGrams, notes: input.notes });
-      }
+  const day = await lockDay(tx, dayId);
+  const booking = await findBooking(tx, dayId, input.bookingId);
+  // Bookings are known to the whole co-op: another farm is refused (403), not told it does not exist.
+  if (actor.farmId !== booking.farm_id) throw new AppError(ErrorCode.forbidden, 403, 'Yields are the farm\'s own processing records: its members record them');
+  ensureCan(actor, 'create', 'ProcessingRecord', { farmId: booking.farm_id }, 'That booking', 'Yields are the farm\'s own processing records: its members record them');
+  if (day.status !== 'scheduled') throw AppError.conflict(`The day is ${day.status}; its yields are final`);
+  if (booking.status !== 'booked' || booking.head_brought === null) throw AppError.conflict('Check the batch in before recording its yields');
+  const line = booking.lines.find((l) => (input.groupId ? l.groupId === input.groupId : l.animalId === input.animalId));
+  if (!line) throw AppError.validation({ [input.groupId ? 'groupId' : 'animalId']: ['Choose a group or animal of this booking'] });
+  if (input.id) {
+    const [existing] = await select<{ record_id: string }>(tx, 'SELECT record_id FROM processing_day_yields WHERE record_id = $1', [input.id]);
+    if (existing) {
+      return recordProcessingIn(tx, actor, { id: input.id, animalId: input.animalId, groupId: input.groupId, processedOn: day.date, headCount: input.headCount, liveGrams: input.liveGrams, hotCarcassGrams: input.hotCarcassGrams, chilledCarcassGrams: input.chilledCarcassGrams, notes: input.notes });
     }
-    const { links, records } = await yieldsOfDay(tx, actor.coopId, dayId);
-    const recorded = links.filter((l) => l.booking_id === booking.id).reduce((n, l) => n + (records.get(l.record_id)?.headCount ?? 0), 0);
-    if (recorded + input.headCount > booking.head_brought) {
-      throw AppError.validation({ headCount: [`${booking.head_brought} head were checked in and ${recorded} are recorded; ${input.headCount} more is too many`] });
-    }
-    const record = await recordProcessingIn(tx, actor, {
-      id: input.id, animalId: input.animalId, groupId: input.groupId, processedOn: day.date, headCount: input.headCount,
-      liveGrams: input.liveGrams, hotCarcassGrams: input.hotCarcassGrams, chilledCarcassGrams: input.chilledCarcassGrams, notes: input.notes,
-    });
-    await select(
-      tx,
-      `INSERT INTO processing_day_yields (record_id, coop_id, day_id, booking_id, farm_id, trimmed_head, condemned_head, outcome_reason)
-       VALUES ($1, current_coop_id(), $2, $3, $4, $5, $6, $7) ON CONFLICT (record_id) DO NOTHING`,
-      [record.id, dayId, booking.id, booking.farm_id, input.trimmedHead, input.condemnedHead, input.outcomeReason],
-    );
-    announceDay(tx, actor.coopId, { dayId, what: 'changed', capacity: capacityOf(day, (await bookingsOfDay(tx, dayId)).filter((b) => b.status !== 'cancelled')) });
-    return record;
   }
+  const { links, records } = await yieldsOfDay(tx, actor.coopId, dayId);
+  const recorded = links.filter((l) => l.booking_id === booking.id).reduce((n, l) => n + (records.get(l.record_id)?.headCount ?? 0), 0);
+  if (recorded + input.headCount > booking.head_brought) {
+    throw AppError.validation({ headCount: [`${booking.head_brought} head were checked in and ${recorded} are recorded; ${input.headCount} more is too many`] });
+  }
+  const record = await recordProcessingIn(tx, actor, {
+    id: input.id, animalId: input.animalId, groupId: input.groupId, processedOn: day.date, headCount: input.headCount,
+    liveGrams: input.liveGrams, hotCarcassGrams: input.hotCarcassGrams, chilledCarcassGrams: input.chilledCarcassGrams, notes: input.notes,
+  });
+  await select(
+    tx,
+    `INSERT INTO processing_day_yields (record_id, coop_id, day_id, booking_id, farm_id, trimmed_head, condemned_head, outcome_reason)
+     VALUES ($1, current_coop_id(), $2, $3, $4, $5, $6, $7) ON CONFLICT (record_id) DO NOTHING`,
+    [record.id, dayId, booking.id, booking.farm_id, input.trimmedHead, input.condemnedHead, input.outcomeReason],
+  );
+  announceDay(tx, actor.coopId, { dayId, what: 'changed', capacity: capacityOf(day, (await bookingsOfDay(tx, dayId)).filter((b) => b.status !== 'cancelled')) });
+  return record;
 }
 
 /**
@@ -123,63 +121,61 @@ export async function closeDay(actor: SessionUser, dayId: string, input: DayClos
 
 /** closeDay inside the caller's transaction (the demo loader). */
 export async function closeDayIn(tx: Transaction, actor: SessionUser, dayId: string, input: DayCloseInput): Promise<ProcessingDaySummaryDto> {
-  {
-    const day = await lockDay(tx, dayId);
-    ensureHost(actor, day, 'Only the host or the admin closes the day');
-    if (day.version !== input.version) throw AppError.staleVersion();
-    if (day.status !== 'scheduled') throw AppError.conflict(`The day is already ${day.status}`);
-    const hostToday = farmTodayIn(await farmDirectoryOf(actor.coopId, tx), day.host_farm_id);
-    if (hostToday < day.date) throw AppError.conflict(`The day is ${day.date}; close it once it has happened`);
-    const bookings = await bookingsOfDay(tx, dayId);
-    const { links, records } = await yieldsOfDay(tx, actor.coopId, dayId);
-    const processed = processedByBooking(bookings, links, records);
-    const fee = cents(day.fee_per_head_cents);
-    for (const b of bookings) {
-      if (b.status === 'waitlisted' || b.status === 'offered') {
-        await updateBooking(tx, b.id, { status: 'cancelled', offer_expires_at: null, cancelled_reason: 'The day took place without these places' });
-        continue;
-      }
-      if (b.status !== 'booked' || fee === 0) continue;
-      const head = processed.get(b.id) ?? 0;
-      if (head === b.head) {
-        await postPending(tx, feeTransferId(b.id, b.fee_revision), actor.id);
-      } else {
-        await voidPending(tx, feeTransferId(b.id, b.fee_revision));
-        if (head > 0) {
-          await postTransfer(tx, {
-            id: finalFeeTransferId(b.id), kind: 'processing_fee', debit: { farmId: b.farm_id }, credit: { coop: 'coop_processing' }, amountCents: head * fee,
-            sourceType: 'processing_booking', sourceId: b.id, memo: `Processing ${head} head on ${day.date}`, postedBy: actor.id,
-          });
-        }
+  const day = await lockDay(tx, dayId);
+  ensureHost(actor, day, 'Only the host or the admin closes the day');
+  if (day.version !== input.version) throw AppError.staleVersion();
+  if (day.status !== 'scheduled') throw AppError.conflict(`The day is already ${day.status}`);
+  const hostToday = farmTodayIn(await farmDirectoryOf(actor.coopId, tx), day.host_farm_id);
+  if (hostToday < day.date) throw AppError.conflict(`The day is ${day.date}; close it once it has happened`);
+  const bookings = await bookingsOfDay(tx, dayId);
+  const { links, records } = await yieldsOfDay(tx, actor.coopId, dayId);
+  const processed = processedByBooking(bookings, links, records);
+  const fee = cents(day.fee_per_head_cents);
+  for (const b of bookings) {
+    if (b.status === 'waitlisted' || b.status === 'offered') {
+      await updateBooking(tx, b.id, { status: 'cancelled', offer_expires_at: null, cancelled_reason: 'The day took place without these places' });
+      continue;
+    }
+    if (b.status !== 'booked' || fee === 0) continue;
+    const head = processed.get(b.id) ?? 0;
+    if (head === b.head) {
+      await postPending(tx, feeTransferId(b.id, b.fee_revision), actor.id);
+    } else {
+      await voidPending(tx, feeTransferId(b.id, b.fee_revision));
+      if (head > 0) {
+        await postTransfer(tx, {
+          id: finalFeeTransferId(b.id), kind: 'processing_fee', debit: { farmId: b.farm_id }, credit: { coop: 'coop_processing' }, amountCents: head * fee,
+          sourceType: 'processing_booking', sourceId: b.id, memo: `Processing ${head} head on ${day.date}`, postedBy: actor.id,
+        });
       }
     }
-    const costs = input.actualCosts ?? day.expected_costs;
-    const total = costTotal(costs);
-    const shares = headByFarm(bookings, processed);
-    const totalHead = shares.reduce((n, s) => n + s.head, 0);
-    if (total > 0 && totalHead === 0) throw AppError.conflict('No head were processed: there is nothing to split the shared costs by');
-    for (const [farmId, amountCents] of splitSharedCosts(total, shares)) {
-      if (amountCents === 0) continue;
-      const head = shares.find((s) => s.farmId === farmId)!.head;
-      await postTransfer(tx, {
-        id: sharedCostTransferId(dayId, farmId), kind: 'shared_cost', debit: { farmId }, credit: { coop: 'coop_processing' }, amountCents,
-        sourceType: 'processing_day', sourceId: dayId, memo: `Shared costs of the processing day of ${day.date}: ${head} of ${totalHead} head`, postedBy: actor.id,
-      });
-    }
-    const [closed] = await select<DayRow>(
-      tx,
-      `UPDATE processing_days SET status = 'closed', actual_costs = $2::jsonb, closed_at = now(), version = version + 1, updated_at = now() WHERE id = $1
-       RETURNING id, to_char(date, 'YYYY-MM-DD') AS date, start_time, version`,
-      [dayId, JSON.stringify(costs)],
-    );
-    const site = await findSite(tx, day.site_id);
-    await noticeDayChanged(tx, {
-      coopId: actor.coopId, farmIds: shares.map((s) => s.farmId), actorId: actor.id, day: { ...day, ...closed! }, siteName: site.name,
-      what: 'closed: the fees and shared costs are posted to the Ledger',
-    });
-    announceDay(tx, actor.coopId, { dayId, what: 'closed', capacity: capacityOf(day, []) });
-    return summaryIn(tx, actor, dayId);
   }
+  const costs = input.actualCosts ?? day.expected_costs;
+  const total = costTotal(costs);
+  const shares = headByFarm(bookings, processed);
+  const totalHead = shares.reduce((n, s) => n + s.head, 0);
+  if (total > 0 && totalHead === 0) throw AppError.conflict('No head were processed: there is nothing to split the shared costs by');
+  for (const [farmId, amountCents] of splitSharedCosts(total, shares)) {
+    if (amountCents === 0) continue;
+    const head = shares.find((s) => s.farmId === farmId)!.head;
+    await postTransfer(tx, {
+      id: sharedCostTransferId(dayId, farmId), kind: 'shared_cost', debit: { farmId }, credit: { coop: 'coop_processing' }, amountCents,
+      sourceType: 'processing_day', sourceId: dayId, memo: `Shared costs of the processing day of ${day.date}: ${head} of ${totalHead} head`, postedBy: actor.id,
+    });
+  }
+  const [closed] = await select<DayRow>(
+    tx,
+    `UPDATE processing_days SET status = 'closed', actual_costs = $2::jsonb, closed_at = now(), version = version + 1, updated_at = now() WHERE id = $1
+     RETURNING id, to_char(date, 'YYYY-MM-DD') AS date, start_time, version`,
+    [dayId, JSON.stringify(costs)],
+  );
+  const site = await findSite(tx, day.site_id);
+  await noticeDayChanged(tx, {
+    coopId: actor.coopId, farmIds: shares.map((s) => s.farmId), actorId: actor.id, day: { ...day, ...closed! }, siteName: site.name,
+    what: 'closed: the fees and shared costs are posted to the Ledger',
+  });
+  announceDay(tx, actor.coopId, { dayId, what: 'closed', capacity: capacityOf(day, []) });
+  return summaryIn(tx, actor, dayId);
 }
 
 export async function daySummary(actor: SessionUser, dayId: string): Promise<ProcessingDaySummaryDto> {

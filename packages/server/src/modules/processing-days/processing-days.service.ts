@@ -92,18 +92,16 @@ export async function createSite(actor: SessionUser, input: ProcessingSiteCreate
 /** createSite inside the caller's transaction (the demo loader). */
 export async function createSiteIn(tx: Transaction, actor: SessionUser, input: ProcessingSiteCreateInput): Promise<ProcessingSiteDto> {
   ensureSiteAdmin(actor);
-  {
-    await ensureHostFarm(tx, actor.coopId, input.hostFarmId);
-    const [row] = await select<SiteRow>(
-      tx,
-      `INSERT INTO processing_sites (coop_id, host_farm_id, name, address, capacity_head_per_day, chill_capacity_head, water, host_may_schedule, notes)
-       VALUES (current_coop_id(), $1, $2, $3, $4, $5, $6, $7, $8)
-       ON CONFLICT (coop_id, lower(name)) DO NOTHING RETURNING ${SITE_COLUMNS}`,
-      [input.hostFarmId, input.name, input.address, input.capacityHeadPerDay, input.chillCapacityHead, input.water, input.hostMaySchedule, input.notes],
-    );
-    if (!row) throw AppError.conflict(`A site is already called ${input.name}`);
-    return (await presentSites(tx, actor.coopId, [row]))[0]!;
-  }
+  await ensureHostFarm(tx, actor.coopId, input.hostFarmId);
+  const [row] = await select<SiteRow>(
+    tx,
+    `INSERT INTO processing_sites (coop_id, host_farm_id, name, address, capacity_head_per_day, chill_capacity_head, water, host_may_schedule, notes)
+     VALUES (current_coop_id(), $1, $2, $3, $4, $5, $6, $7, $8)
+     ON CONFLICT (coop_id, lower(name)) DO NOTHING RETURNING ${SITE_COLUMNS}`,
+    [input.hostFarmId, input.name, input.address, input.capacityHeadPerDay, input.chillCapacityHead, input.water, input.hostMaySchedule, input.notes],
+  );
+  if (!row) throw AppError.conflict(`A site is already called ${input.name}`);
+  return (await presentSites(tx, actor.coopId, [row]))[0]!;
 }
 
 /** Whether the co-op has any processing site yet (the demo loader adds its days once). */
