@@ -15,6 +15,7 @@ import { loadDemoHealthYield } from './demo-health-yield';
 import { loadDemoHerds } from './demo-herds';
 import { loadDemoLedger } from './demo-ledger';
 import { loadDemoProcessingDays } from './demo-processing-days';
+import { loadDemoStudShare } from './demo-stud-share';
 
 const appUrl = (process.env.APP_URL ?? 'http://127.0.0.1:3000').replace(/\/$/, '');
 
@@ -47,10 +48,12 @@ export async function loadDemoCoop(): Promise<'loaded' | 'already-present'> {
       await loadDemoLedger({ coopId: present.id, farms, keepers, appUrl }, tx);
       await loadDemoProcessingDays({ coopId: present.id, farms, keepers }, tx);
     });
+    // Stud Share goes through its services, each in a transaction of its own, once the co-op exists.
+    await loadDemoStudShare(present.id);
     return 'already-present';
   }
   const passwordHash = await hashPassword(DEMO_PASSWORD);
-  await createCooperative(demoCoop, async (coop, tx) => {
+  const coopId = await createCooperative(demoCoop, async (coop, tx) => {
     const userIds = new Map<string, { id: string; farmId: string }>();
     for (const farm of demoFarms) {
       const created = await createFarm(coop.id, farm.profile, tx);
@@ -77,7 +80,9 @@ export async function loadDemoCoop(): Promise<'loaded' | 'already-present'> {
     await loadDemoHealthYield({ coopId: coop.id, farms, keepers, apprenticeId: apprentice.id, apprenticeFarmKey, temperatureUnits }, tx);
     await loadDemoLedger({ coopId: coop.id, farms, keepers, appUrl }, tx);
     await loadDemoProcessingDays({ coopId: coop.id, farms, keepers }, tx);
+    return coop.id;
   });
+  await loadDemoStudShare(coopId);
   return 'loaded';
 }
 

@@ -1,4 +1,5 @@
 import type { LoanStage } from '../support/lent-animal';
+import type { StudTarget } from '../support/stud-share-matrix';
 
 /**
  * Who may call what, against whose object → expected status. The generated tests in
@@ -57,7 +58,11 @@ export type Target =
   // A notification of farm A's member.
   | 'notificationA'
   // A processing day at a site of farm A in two weeks, with farm A's booking of 2 head and its member on the first station.
-  | 'dayA';
+  | 'dayA'
+  // Stud Share: a farm-A buck offered (with a fresh farm-A buck not offered yet, a doe of each farm) and a
+  // farm-B request for him: waiting, accepted, hand-over recorded by A, lent, return recorded by B; or an
+  // accepted stud-service visit.
+  | StudTarget;
 export type Body =
   | 'farmProfile'
   | 'application'
@@ -135,7 +140,18 @@ export type Body =
   | 'processingRosterMember'
   | 'processingEquipmentClaim'
   | 'processingYield'
-  | 'processingDayClose';
+  | 'processingDayClose'
+  // Stud Share.
+  | 'studOffer'
+  | 'studOfferUpdate'
+  | 'studOfferVersion'
+  | 'studRequest'
+  | 'studLoanVersion'
+  | 'studDecline'
+  | 'studPropose'
+  | 'studProposalAnswer'
+  | 'studCustodyStep'
+  | 'farmCoordinates';
 
 export interface MatrixRow {
   method: 'GET' | 'PATCH' | 'DELETE' | 'POST' | 'PUT';
@@ -342,6 +358,33 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'GET', path: '/api/photos/:photoId', target: 'afterLoan', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
   { method: 'GET', path: '/api/pedigree-certificates/:animalId', target: 'afterLoan', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
   { method: 'GET', path: '/api/treatments?animalId=:animalId', target: 'afterLoan', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  // Stud Share: buck cards are the co-op's; only the buck's farm offers him (never apprentices); a loan is the two
+  // farms' (a third farm, another co-op: 404), each step taken by its side; apprentices follow, never act.
+  { method: 'PUT', path: '/api/farms/:farmId/coordinates', target: 'farmA', body: 'farmCoordinates', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/stud-share/offers', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/stud-share/offers?scope=mine', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'POST', path: '/api/stud-share/offers', target: 'studRequestA', body: 'studOffer', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 403, admin: 201, otherCoop: 404 } },
+  { method: 'GET', path: '/api/stud-share/offers/:offerId', target: 'studRequestA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
+  { method: 'PUT', path: '/api/stud-share/offers/:offerId', target: 'studRequestA', body: 'studOfferUpdate', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/stud-share/offers/:offerId/withdraw', target: 'studRequestA', body: 'studOfferVersion', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/stud-share/offers/:offerId/publish', target: 'studRequestA', body: 'studOfferVersion', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/stud-share/offers/:offerId/availability?from=2026-01-01&to=2026-06-30', target: 'studRequestA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/stud-share/finder?damId=:doeBId', target: 'studRequestA', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 200, admin: 403, otherCoop: 404 } },
+  { method: 'GET', path: '/api/stud-share/finder?damId=:doeAId', target: 'studRequestA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/stud-share/loans', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/stud-share/loans?side=offers&open=true', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'POST', path: '/api/stud-share/loans', target: 'studRequestA', body: 'studRequest', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 201, admin: 403, otherCoop: 404 } },
+  { method: 'GET', path: '/api/stud-share/loans/:loanId', target: 'studRequestA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/stud-share/loans/:loanId/accept', target: 'studRequestA', body: 'studLoanVersion', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/stud-share/loans/:loanId/decline', target: 'studRequestA', body: 'studDecline', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/stud-share/loans/:loanId/propose', target: 'studRequestA', body: 'studPropose', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/stud-share/loans/:loanId/proposal-answer', target: 'studRequestA', body: 'studProposalAnswer', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 409, admin: 403, otherCoop: 404 } },
+  { method: 'POST', path: '/api/stud-share/loans/:loanId/cancel', target: 'studAcceptedA', body: 'studLoanVersion', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 200, admin: 403, otherCoop: 404 } },
+  { method: 'POST', path: '/api/stud-share/loans/:loanId/hand-over', target: 'studAcceptedA', body: 'studCustodyStep', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/stud-share/loans/:loanId/hand-over/confirm', target: 'studHandOverRecordedA', body: 'studLoanVersion', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 200, admin: 403, otherCoop: 404 } },
+  { method: 'POST', path: '/api/stud-share/loans/:loanId/return', target: 'studLentA', body: 'studCustodyStep', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/stud-share/loans/:loanId/return/confirm', target: 'studReturnRecordedA', body: 'studLoanVersion', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/stud-share/loans/:loanId/service', target: 'studVisitA', body: 'studLoanVersion', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
   // The notification centre: everyone signed in has their own bell; one person's notification is nobody else's.
   { method: 'GET', path: '/api/notifications', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'GET', path: '/api/notifications/unread', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
@@ -392,6 +435,7 @@ export const matrixAreas = [
   { area: 'ledger', paths: /^\/api\/(ledger|card-webhooks)\b/ },
   { area: 'notifications', paths: /^\/api\/notifications\b/ },
   { area: 'processing-days', paths: /^\/api\/processing-days\b/ },
+  { area: 'stud-share', paths: /^\/api\/stud-share\b/ },
 ] as const;
 
 export type MatrixArea = (typeof matrixAreas)[number]['area'];

@@ -1,14 +1,17 @@
 import { afterAll, describe, expect, it } from 'vitest';
+import { studFinderQuerySchema } from '@burrowline/shared';
+import { findStuds } from '../../packages/server/src/modules/stud-share/stud-finder.service';
 import { copyLitter, copyRow, rowCount } from '../support/bulk-rows';
 import { asTenant } from '../support/db';
 import { createTestApplication, createTestCoop, TEST_PASSWORD, type TestCoop, type TestPerson } from '../support/factories';
 import { daysAgo, farmToday, litterAs } from '../support/almanac';
 import { groupAs, purchaseAs } from '../support/grow-out';
 import { growingGroupAs } from '../support/health-yield';
-import { addAnimalAs } from '../support/herd';
+import { actorOf, addAnimalAs } from '../support/herd';
 import { bookingBody, dayAs, siteAs } from '../support/processing-days';
 import { countingAgentFor, type StatementCount } from '../support/statement-counter';
 import { testApp } from '../support/test-app';
+import { doeOf, offeredBuck, requestAs } from '../support/stud-share';
 
 afterAll(() => testApp().close());
 
@@ -193,6 +196,37 @@ const endpoints: Endpoint[] = [
       };
     },
   },
+  {
+    name: 'the buck cards',
+    async arrange(coop) {
+      const { card } = await offeredBuck(coop);
+      return { url: '/api/stud-share/offers?pageSize=10', asker: coop.otherFarmMember, growTo: offerGrower(coop.id, card.offerId) };
+    },
+  },
+  {
+    name: 'the Stud Share finder',
+    over: { ownBudget: 7, why: 'the offers, the farms, breeds and animals they present, the kept pedigree\'s version, the get\'s records, the farms\' places (and, when the page names shared ancestors, their cards: one more)' },
+    async arrange(coop) {
+      const { card } = await offeredBuck(coop);
+      const doe = await doeOf(coop.otherFarmMember);
+      // The co-op's pedigree is read into memory once per process; count the requests after that.
+      await findStuds(actorOf(coop.otherFarmMember), studFinderQuerySchema.parse({ damId: doe.id }));
+      return { url: `/api/stud-share/finder?damId=${doe.id}&pageSize=10`, asker: coop.otherFarmMember, growTo: offerGrower(coop.id, card.offerId) };
+    },
+  },
+  {
+    name: 'the stud requests',
+    over: { ownBudget: 6, why: 'the page with its total, the steps of its requests, the farms, breeds and animals they present, the co-op\'s quarantine rule (and, once hand-overs are recorded, who recorded them: one more)' },
+    async arrange(coop) {
+      const { card } = await offeredBuck(coop);
+      const loan = await requestAs(coop.otherFarmMember, card.offerId, [(await doeOf(coop.otherFarmMember)).id]);
+      return {
+        url: '/api/stud-share/loans?side=requests&pageSize=10',
+        asker: coop.otherFarmMember,
+        growTo: grower(coop.id, 'stud_loans', loan.id),
+      };
+    },
+  },
 ];
 
 /** A day with one booking of farm A's member (its copies make the many bookings). */
@@ -204,6 +238,28 @@ async function dayWithBooking(coop: TestCoop): Promise<{ dayId: string; bookingI
   const res = await counting.agent.post(`/api/processing-days/${day.id}/bookings`).send(bookingBody(coop.farms[0]!.id, [{ groupId: group.id, head: 2 }]));
   if (res.status !== 201) throw new Error(`booking refused: ${res.status} ${JSON.stringify(res.body)}`);
   return { dayId: day.id, bookingId: res.body.id as string };
+}
+
+/** Offers of copies of the template's buck (one offer per buck). */
+function offerGrower(coopId: string, offerId: string) {
+  return async (total: number) => {
+    const count = async () => asTenant(coopId, async (c) => (await c.query('SELECT count(*)::int AS n FROM stud_offers')).rows[0].n as number);
+    const missing = total - (await count());
+    if (missing > 0) {
+      await asTenant(coopId, (c) => c.query(
+        `WITH template AS (SELECT * FROM stud_offers WHERE id = $1),
+         bucks AS (
+           INSERT INTO animals
+             SELECT (jsonb_populate_record(NULL::animals, to_jsonb(a) || jsonb_build_object('id', gen_random_uuid(), 'tattoo', a.tattoo || '-' || left(md5(random()::text), 8)))).*
+               FROM animals a, generate_series(1, $2::int) WHERE a.id = (SELECT buck_id FROM template)
+           RETURNING id)
+         INSERT INTO stud_offers
+           SELECT (jsonb_populate_record(NULL::stud_offers, to_jsonb(t) || jsonb_build_object('id', gen_random_uuid(), 'buck_id', b.id))).* FROM template t, bucks b`,
+        [offerId, missing],
+      ), { commit: true });
+    }
+    return count();
+  };
 }
 
 async function firstWeighIn(person: TestPerson, animalId: string): Promise<string> {

@@ -60,9 +60,9 @@ describe.each([
       await expect.poll(() => pedigree.getByText(/From papers/).filter({ visible: true }).first().isVisible()).toBe(true);
       await page.screenshot({ path: `.data/e2e-herd-animal-${label}.png`, fullPage: true });
 
-      // A trial mating with Saltbush Meadow's buck.
-      await page.getByRole('link', { name: 'Trial mating' }).click();
-      await page.getByRole('heading', { name: 'Trial matings for Clementine' }).waitFor();
+      // A litter preview with Saltbush Meadow's buck.
+      await page.getByRole('link', { name: 'Litter preview' }).click();
+      await page.getByRole('heading', { name: 'Litter preview for Clementine' }).waitFor();
       await page.getByRole('button', { name: 'Across the co-op' }).click();
       await page.getByLabel('Find a buck').fill('Tobin');
       await page.getByRole('button', { name: /Tobin/ }).click();

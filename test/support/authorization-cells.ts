@@ -24,6 +24,7 @@ import { ledgerBody, ledgerStateOf, ledgerTarget } from './ledger-matrix';
 import { notificationBody, notificationStateOf, notificationTarget } from './notifications-matrix';
 import { processingDayBody, processingDaysStateOf, processingDayTarget } from './processing-days-matrix';
 import { loanTarget, tracesHiddenFrom } from './lent-animal';
+import { studBody, studStateOf, studTarget } from './stud-share-matrix';
 import { agentFor, ROOMY_SIGN_IN, sharedSignedInAgent, signedInAgent, testApp, type Agent } from './test-app';
 
 /**
@@ -124,7 +125,7 @@ export function describeMatrixArea(area: MatrixArea) {
   }
 
   async function freshTarget(target: Target) {
-    return { ...(await membershipTarget(target)), ...(await herdTarget(coop, target)), ...(await almanacTarget(coop, target)), ...(await herdFilesTarget(coop, target)), ...(await loanTarget(coop, target)), ...(await ledgerTarget(coop, target, foreign)), ...(await notificationTarget(coop, target)), ...(await processingDayTarget(coop, target)) };
+    return { ...(await membershipTarget(target)), ...(await herdTarget(coop, target)), ...(await almanacTarget(coop, target)), ...(await herdFilesTarget(coop, target)), ...(await loanTarget(coop, target)), ...(await ledgerTarget(coop, target, foreign)), ...(await notificationTarget(coop, target)), ...(await studTarget(coop, target)), ...(await processingDayTarget(coop, target)) };
   }
   type TargetIds = Awaited<ReturnType<typeof freshTarget>>;
   const readTargets = new Map<Target, Promise<TargetIds>>();
@@ -203,7 +204,8 @@ export function describeMatrixArea(area: MatrixArea) {
           const path = pathWithIds(row.path, { ...ids, coopSlug: coop.slug });
           const personaOf = persona === 'otherCoop' ? foreign.admin : persona === 'anonymous' ? null : coop[persona];
           const body = (await bodyFor(row.body, ids, persona)) ?? (await herdBody(coop, row.body, ids))
-            ?? (await almanacBody(coop, row.body, ids, personaOf?.coopId ?? coop.id, personaOf?.farmId ?? null)) ?? ledgerBody(coop, row.body, ids) ?? notificationBody(row.body) ?? processingDayBody(coop, row.body, ids);
+            ?? (await almanacBody(coop, row.body, ids, personaOf?.coopId ?? coop.id, personaOf?.farmId ?? null)) ?? ledgerBody(coop, row.body, ids) ?? notificationBody(row.body) ?? studBody(coop, row.body, ids)
+            ?? processingDayBody(coop, row.body, ids);
           const before = await stateOf(ids, persona);
           const herdBefore = await herdStateOf(coop.id, ids);
           const almanacBefore = await almanacStateOf(coop.id);
@@ -211,6 +213,7 @@ export function describeMatrixArea(area: MatrixArea) {
           const ledgerBefore = await ledgerStateOf(coop.id);
           const notificationsBefore = await notificationStateOf(coop.id);
           const daysBefore = await processingDaysStateOf(coop.id);
+          const studBefore = await studStateOf(coop.id);
           const method = row.method.toLowerCase() as 'get' | 'patch' | 'delete' | 'post' | 'put';
           const res = await herdFilesSend(agent[method](path), row.body, body);
           expect(res.status).toBe(status);
@@ -235,6 +238,7 @@ export function describeMatrixArea(area: MatrixArea) {
             expect(await ledgerStateOf(coop.id)).toEqual(ledgerBefore);
             expect(await notificationStateOf(coop.id)).toEqual(notificationsBefore);
             expect(await processingDaysStateOf(coop.id)).toEqual(daysBefore);
+            expect(await studStateOf(coop.id)).toEqual(studBefore);
           }
         });
       }

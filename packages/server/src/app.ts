@@ -35,6 +35,7 @@ import { growOutRoutes } from './modules/grow-out/grow-out.routes';
 import { feedRoutes } from './modules/feed/feed.routes';
 import { performanceRoutes } from './modules/performance/performance.routes';
 import { cardWebhookRoutes, ledgerRoutes } from './modules/ledger/ledger.routes';
+import { studShareRoutes } from './modules/stud-share/stud-share.routes';
 import { notificationRoutes } from './modules/notifications/notifications.routes';
 import { processingDayRoutes } from './modules/processing-days/processing-days.routes';
 import { configureNotifications } from './modules/notifications/notifications.service';
@@ -153,6 +154,7 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
   api.use('/performance', performanceRoutes());
   // The Ledger: fees and balances between farms and the co-op, statements, dues and card payments.
   api.use('/ledger', ledgerRoutes(config));
+  api.use('/stud-share', studShareRoutes());
   api.use('/notifications', notificationRoutes());
   // Processing days: sites, scheduled days, bookings with their waitlist, the roster, yields and the day's close.
   api.use('/processing-days', processingDayRoutes());

@@ -15,6 +15,11 @@ export interface FarmDto {
   temperatureUnit: TemperatureUnit;
   breedsKept: string[];
   description: string;
+  /** Optional coordinates (WGS84 degrees) for distances between farms; both or neither. */
+  latitude: number | null;
+  longitude: number | null;
+  /** Lets the co-op count the farm's litters in a sire's get's record (Stud Share). */
+  sharesGetRecords: boolean;
   version: number;
   members: { id: string; name: string; role: Role }[];
   updatedAt: string;

@@ -36,4 +36,6 @@ export * from './schemas/ledger.schema';
 export * from './ledger';
 export * from './schemas/processing-days.schema';
 export * from './processing-days';
+export * from './schemas/stud-share.schema';
+export * from './units/distance';
 export * from './notifications';

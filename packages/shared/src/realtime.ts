@@ -1,4 +1,5 @@
 import type { ApplicationStatus } from './schemas/application.schema';
+import type { StudLoanState } from './schemas/stud-share.schema';
 
 /** Socket.IO event names and payloads; the client maps each to TanStack Query invalidations. */
 export const RealtimeEvent = {
@@ -34,6 +35,10 @@ export const RealtimeEvent = {
   cardCheckoutSettled: 'ledger:card-checkout-settled',
   /** A processing day was scheduled, changed or closed, or its bookings, roster or capacity changed; to the co-op room. */
   processingDayChanged: 'processing-day:changed',
+  /** A buck was offered, his offer changed or was withdrawn; to the co-op room (buck cards are co-op-wide; no fees travel). */
+  studOfferChanged: 'stud-share:offer-changed',
+  /** A request or loan changed (requested, answered, handed over, returned…); to the two farms' rooms only (no fees travel). */
+  studLoanChanged: 'stud-share:loan-changed',
   /** A notification arrived for the person, or they read some; to their user room only. */
   notificationsChanged: 'notifications:changed',
 } as const;
@@ -56,6 +61,8 @@ export interface ServerToClientEvents {
   [RealtimeEvent.ledgerChanged]: (payload: { farmIds: string[] }) => void;
   [RealtimeEvent.cardCheckoutSettled]: (payload: { checkoutId: string; status: 'paid' | 'declined' }) => void;
   [RealtimeEvent.processingDayChanged]: (payload: ProcessingDayChangedPayload) => void;
+  [RealtimeEvent.studOfferChanged]: (payload: { offerId: string; buckId: string; farmId: string }) => void;
+  [RealtimeEvent.studLoanChanged]: (payload: { loanId: string; buckId: string; farmIds: string[]; state: StudLoanState }) => void;
   [RealtimeEvent.notificationsChanged]: (payload: { unread: number; title: string | null; link: string | null }) => void;
 }
 

@@ -118,6 +118,60 @@ const adminRoutes: RouteObject[] = [
   },
 ];
 
+/** Stud Share: buck cards, the finder from a doe, a buck's page and offer, my requests and offers, a loan's page. */
+const studShareRoutes: RouteObject[] = [
+  {
+    index: true,
+    lazy: async () => {
+      const { loader, BucksPage } = await import('../routes/stud-share/bucks');
+      return { loader, Component: BucksPage };
+    },
+  },
+  {
+    path: 'find/:damId',
+    lazy: async () => {
+      const { loader, FinderPage } = await import('../routes/stud-share/finder');
+      return { loader, Component: FinderPage };
+    },
+  },
+  {
+    path: 'bucks/:offerId',
+    lazy: async () => {
+      const { loader, BuckPage } = await import('../routes/stud-share/buck');
+      return { loader, Component: BuckPage };
+    },
+  },
+  {
+    path: 'bucks/:offerId/edit',
+    lazy: async () => {
+      const { loader, OfferEditPage } = await import('../routes/stud-share/offer-edit');
+      return { loader, Component: OfferEditPage };
+    },
+  },
+  {
+    path: 'offer',
+    lazy: async () => {
+      const { loader, OfferNewPage } = await import('../routes/stud-share/offer-new');
+      return { loader, Component: OfferNewPage };
+    },
+  },
+  {
+    path: 'offers',
+    lazy: async () => ({ Component: (await import('../routes/stud-share/my-offers')).MyOffersPage }),
+  },
+  {
+    path: 'requests',
+    lazy: async () => ({ Component: (await import('../routes/stud-share/requests')).RequestsPage }),
+  },
+  {
+    path: 'loans/:loanId',
+    lazy: async () => {
+      const { loader, LoanPage } = await import('../routes/stud-share/loan');
+      return { loader, Component: LoanPage };
+    },
+  },
+];
+
 const routes: RouteObject[] = [
   {
     Component: RootLayout,
@@ -348,6 +402,11 @@ const routes: RouteObject[] = [
                   const { loader, DaySummaryPage } = await import('../routes/processing-days/summary');
                   return { loader, Component: DaySummaryPage };
                 },
+              },
+              {
+                path: 'stud-share',
+                lazy: async () => ({ Component: (await import('../routes/stud-share/stud-share-layout')).StudShareLayout }),
+                children: studShareRoutes,
               },
               {
                 // The co-op admin's area: applications, members, audit log, rules. Its loader turns non-admins away.

@@ -9,6 +9,8 @@ import { kindlingDaysOfDams } from '../modules/litters/litter-facts.service';
 import { processedHeadsOf } from '../modules/processing/processing.service';
 import { sharedDaysOfFarm } from '../modules/almanac/shared-days';
 import { processingDaysOfFarm } from '../modules/processing-days/processing-days.service';
+import { photoPublishedTo } from '../modules/photos/photos.service';
+import { isPhotoPublished } from '../modules/stud-share/stud-share-facts.service';
 
 let plugged = false;
 
@@ -29,5 +31,6 @@ export function plugModulePorts(): void {
   groupFeedTotals.plug(feedTotalsByGroup);
   processedHeadsOfGroups.plug(processedHeadsOf);
   sharedDaysOfFarm.plug(processingDaysOfFarm);
+  photoPublishedTo.plug(isPhotoPublished);
   groupNamesOfFarm.plug(async (tx, coopId, farmId) => new Map((await groupsOfFarm(tx, coopId, farmId)).map((g) => [g.id, g.name])));
 }

@@ -48,3 +48,13 @@ export function isPrimaryKeyClash(error: unknown): boolean {
   if (typeof constraint === 'string') return constraint.endsWith('_pkey');
   return Object.keys(error.fields ?? {}).length === 1 && 'id' in (error.fields ?? {});
 }
+
+/** An exclusion constraint refused the row (e.g. two bookings of one buck over the same days); answers its name. */
+export function exclusionViolationOf(error: unknown): string | null {
+  for (const candidate of causesOf(error)) {
+    if (codeOf(candidate) !== '23P01') continue;
+    const constraint = (candidate as { constraint?: unknown }).constraint;
+    return typeof constraint === 'string' ? constraint : '';
+  }
+  return null;
+}

@@ -3,7 +3,7 @@ import { ForbiddenError } from '@casl/ability';
 import { OptimisticLockError, UniqueConstraintError } from 'sequelize';
 import { ZodError } from 'zod';
 import { ErrorCode, type ErrorBody } from '@burrowline/shared';
-import { isLostConnection, isPrimaryKeyClash } from '../db/database-errors';
+import { exclusionViolationOf, isLostConnection, isPrimaryKeyClash } from '../db/database-errors';
 import { AppError } from '../lib/app-error';
 import { logger } from '../lib/logger';
 
@@ -35,6 +35,10 @@ function toAppError(error: unknown): AppError {
   // hid it from the service's own look-up. It answers exactly as an id taken in the actor's co-op does.
   if (isPrimaryKeyClash(error)) return AppError.idTaken();
   if (error instanceof UniqueConstraintError) return new AppError(ErrorCode.conflict, 409, 'That already exists');
+  // A buck's days are held by the database (see 0064): a service planned with him while he is lent out lands here.
+  if (exclusionViolationOf(error)?.startsWith('stud_bookings_')) {
+    return new AppError(ErrorCode.conflict, 409, 'That buck is lent out or booked on that day; choose another day or another buck');
+  }
   const bodyError = error as { type?: string; status?: number };
   if (bodyError.type === 'entity.too.large') return new AppError(ErrorCode.payloadTooLarge, 413, 'The request is too large');
   if (bodyError.type === 'entity.parse.failed') return new AppError(ErrorCode.validation, 400, 'The request body is not valid JSON');

@@ -9,3 +9,6 @@ export {
 } from './breed-makeup';
 export { CoopPedigree } from './coop-pedigree';
 export { relationshipInWords, type ParentsOf } from './relationship';
+export {
+  ancestorDepths, litterMakeupClass, rankStuds, sharedAncestors, STUD_ORDER_EXPLAINED, type LitterMakeupClassOf, type RankedStud, type StudCandidate,
+} from './stud-ranking';

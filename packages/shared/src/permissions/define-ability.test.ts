@@ -65,6 +65,23 @@ describe('defineAbilityFor (the brief\'s role table)', () => {
     expect(a.can('create', subjectOf('ChatMessage', { coopId }))).toBe(true);
   });
 
+  it('when a loan of a buck is between two farms, then their members act on it, their apprentices only read it, and a third farm neither', () => {
+    const loan = (ownerFarmId: string, borrowerFarmId: string) => subjectOf('Loan', { coopId, ownerFarmId, borrowerFarmId });
+    const m = defineAbilityFor(member);
+    const app = defineAbilityFor(apprentice);
+    for (const subject of [loan(farmId, 'farm-2'), loan('farm-2', farmId)]) {
+      expect(m.can('update', subject)).toBe(true);
+      expect(app.can('read', subject)).toBe(true);
+      expect(app.can('update', subject)).toBe(false);
+    }
+    expect(m.can('read', loan('farm-2', 'farm-3'))).toBe(false);
+    expect(app.can('read', loan('farm-2', 'farm-3'))).toBe(false);
+    expect(defineAbilityFor(admin).can('read', loan('farm-2', 'farm-3'))).toBe(false);
+    expect(m.can('manage', own('StudListing'))).toBe(true);
+    expect(app.can('update', own('StudListing'))).toBe(false);
+    expect(app.can('read', own('StudListing'))).toBe(true);
+  });
+
   it('when an admin, then co-op powers on top of their own farm, but no editing of other farms\' herds', () => {
     const a = defineAbilityFor(admin);
     expect(a.can('manage', subjectOf('Application', { coopId }))).toBe(true);

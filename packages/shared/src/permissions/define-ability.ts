@@ -150,6 +150,9 @@ export function defineAbilityFor(user: AbilityUser | null): AppAbility {
       can('read', ['GrowOutGroup', 'FeedRecord', 'TemperatureReading', 'ProcessingRecord', 'Performance'], { farmId });
       can('create', 'TemperatureReading', { farmId });
       can('read', 'ProcessingBooking', { farmId });
+      // Stud Share: the loans of the mentor's farm (either side), to see who is away or visiting; never act on them.
+      can('read', 'Loan', { ownerFarmId: farmId });
+      can('read', 'Loan', { borrowerFarmId: farmId });
       privateRecordRules(can, cannot, farmId);
     }
     can('manage', 'DigestSubscription', { userId: user.id });
@@ -168,6 +171,10 @@ export function defineAbilityFor(user: AbilityUser | null): AppAbility {
     can(['create', 'read', 'update', 'review'], ['WeighIn', 'AnimalNote'], { farmId });
     can(['read', 'review'], 'ChoreLog', { farmId });
     can('manage', 'StudListing', { farmId });
+    // A loan belongs to both farms: the buck's owning farm and the one that asked for him (the service
+    // decides which side may take which step).
+    can(['read', 'update'], 'Loan', { ownerFarmId: farmId });
+    can(['read', 'update'], 'Loan', { borrowerFarmId: farmId });
     can('lend', 'Animal', { owningFarmId: farmId });
     can('trade', 'Animal', { owningFarmId: farmId });
     can('read', 'Money', { farmId });

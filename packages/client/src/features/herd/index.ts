@@ -2,4 +2,9 @@
 export { herdKeys } from './api/herd-keys';
 export { herdQueryOptions } from './api/get-herd';
 export { useTrialMatings } from './api/run-trial-matings';
-export { coiLevel, formatCoi } from './herd-labels';
+// Pedigree figures other features show beside their own (Stud Share's buck cards and finder).
+export { BreedMakeupBar, breedMakeupText, PurityBadge } from './components/breed-makeup';
+export { CoiValue } from './components/coi-badge';
+export { coiLevel, formatCoi, purityLabels } from './herd-labels';
+export { breedsQueryOptions } from './api/get-breeds';
+export { useWeightUnit } from './hooks/use-weight-unit';

@@ -4,6 +4,7 @@ import { Card } from '../../components/ui/card';
 import { PageHeader } from '../../components/ui/page-header';
 import { PageTitle } from '../../components/ui/page-title';
 import { coopSettingsQueryOptions, useCoopSettings } from '../../features/members/api/get-coop-settings';
+import { StudShareSummary } from '../../features/stud-share';
 import { formatInstantDate } from '../../lib/dates';
 import { useSession } from '../../lib/session';
 
@@ -20,6 +21,9 @@ export function CoopPage() {
     <div className="space-y-8">
       <PageTitle>Co-op</PageTitle>
       <PageHeader title="Co-op" lead={`What the farms of ${me.coop.name} do together.`} />
+      <div className="grid gap-6 lg:grid-cols-2">
+        <StudShareSummary />
+      </div>
       <Card className="space-y-3" aria-labelledby="coop-rules">
         <h2 id="coop-rules" className="flex items-center gap-2 text-xl font-bold">
           <BookOpen className="size-5 text-moss" aria-hidden="true" />

@@ -6,6 +6,7 @@ import { farmsListQueryOptions, useFarms } from '../../features/farms/api/get-fa
 import { TodayCards } from '../../features/almanac/components/today-cards';
 import { CommonsHeatCaution } from '../../features/health/components/commons-heat-caution';
 import { FirstSteps } from '../../features/farms/components/first-steps';
+import { OverdueLoans } from '../../features/stud-share';
 import { MembersDirectory } from '../../features/farms/components/members-directory';
 import { herdQueryOptions } from '../../features/herd/api/get-herd';
 import { NoFarmCard, YourFarmCard } from '../../features/farms/components/your-farm-card';
@@ -30,6 +31,7 @@ export function CommonsPage() {
       <PageTitle>Commons</PageTitle>
       <PageHeader title="Commons" lead={`What's going on across ${me.coop.name}.`} />
       {emptyHerd && <FirstSteps />}
+      <OverdueLoans />
       <TodayCards enabled={Boolean(me.user.farmId)} />
       <CommonsHeatCaution enabled={Boolean(me.user.farmId)} />
       {ownFarm ? <YourFarmCard farm={ownFarm} /> : <NoFarmCard />}

@@ -1,4 +1,4 @@
-import { ArrowLeft, HeartHandshake, Pencil } from 'lucide-react';
+import { ArrowLeft, HeartHandshake, Pencil, Search } from 'lucide-react';
 import { formatDate } from '../../lib/days';
 import type { ReactNode } from 'react';
 import type { LoaderFunctionArgs } from 'react-router-dom';
@@ -108,7 +108,19 @@ function FullRecord({ animal }: { animal: AnimalDetailDto }) {
             {animal.sex === 'doe' && animal.onFarm && (
               <LinkButton to={`/herd/${animal.id}/trial-mating`} variant="secondary">
                 <HeartHandshake className="size-5" aria-hidden="true" />
-                Trial mating
+                Litter preview
+              </LinkButton>
+            )}
+            {animal.sex === 'buck' && keptHere && animal.owningFarm?.id === me.user.farmId && canEdit && animal.lifecycle === 'breeding' && (
+              <LinkButton to={`/stud-share/offer?buckId=${animal.id}`} variant="secondary">
+                <HeartHandshake className="size-5" aria-hidden="true" />
+                Offer in Stud Share
+              </LinkButton>
+            )}
+            {animal.sex === 'doe' && keptHere && (
+              <LinkButton to={`/stud-share/find/${animal.id}`} variant="secondary">
+                <Search className="size-5" aria-hidden="true" />
+                Find a stud buck
               </LinkButton>
             )}
             <PedigreePdfLink animalId={animal.id} />
@@ -195,7 +207,7 @@ function CardOnly({ card }: { card: PedigreeCardDto }) {
           card.sex === 'doe' && card.onFarm && (
             <LinkButton to={`/herd/${card.id}/trial-mating`} variant="secondary">
               <HeartHandshake className="size-5" aria-hidden="true" />
-              Trial mating
+              Litter preview
             </LinkButton>
           )
         }

@@ -28,7 +28,7 @@ export function TrialMatingPage() {
   const chosen = state.bucks.split(',').filter(Boolean);
   if (!view.data) return <PageSpinner />;
   const dam: PedigreeCardDto = view.data.kind === 'record' ? view.data.animal : view.data.card;
-  const title = `Trial matings for ${dam.name || dam.tattoo}`;
+  const title = `Litter preview for ${dam.name || dam.tattoo}`;
   const toggle = (buckId: string) => {
     const next = chosen.includes(buckId) ? chosen.filter((id) => id !== buckId) : [...chosen, buckId];
     setState({ bucks: next.join(',') }, { replace: true });
@@ -46,7 +46,7 @@ export function TrialMatingPage() {
         lead={`${dam.tattoo} · ${breedMakeupText(dam.breedMakeup)} · her own COI ${formatCoi(dam.coi)}. Pick bucks from your farm or any other; nothing is booked.`}
       />
       {dam.sex !== 'doe' ? (
-        <Alert tone="error">A trial mating starts from a doe.</Alert>
+        <Alert tone="error">A litter preview starts from a doe.</Alert>
       ) : (
         <div className="grid gap-6 lg:grid-cols-[22rem_minmax(0,1fr)]">
           <section aria-labelledby="pick-bucks" className="space-y-3">

@@ -52,6 +52,16 @@ export async function moveAnimal(actor: SessionUser, animalId: string, input: Cu
   });
 }
 
+/**
+ * A move made inside another module's workflow (a Stud Share hand-over or return), whose service has
+ * already checked that the actor's farm is party to it. The same rules and history as `moveAnimal`.
+ */
+export async function moveAnimalInTransaction(tx: Transaction, actor: SessionUser, animalId: string, input: CustodyMoveInput): Promise<void> {
+  const animal = await Animal.findOne({ where: { id: animalId, coopId: actor.coopId }, transaction: tx, lock: tx.LOCK.UPDATE });
+  if (!animal) throw AppError.notFound('That animal');
+  await applyCustodyMove(tx, actor, animal, input, await presentContextFor(actor, tx));
+}
+
 export async function applyCustodyMove(tx: Transaction, actor: SessionUser, animal: Animal, input: CustodyMoveInput, ctx: PresentContext): Promise<void> {
   const errors: FieldMessages = {};
   const from = animal.keepingFarmId!;

@@ -1,8 +1,10 @@
 import { ForbiddenError } from '@casl/ability';
+import type { Transaction } from 'sequelize';
 import {
   relationshipInWords,
-  combineBreedMakeup, defineAbilityFor, pedigreeCompleteness, subjectOf, type BreedMakeup, type CoopPedigree, type PedigreeCardDto,
-  type PedigreeCardListDto, type PedigreeCardQuery, type PedigreeTreeDto, type TrialMatingDto, type TrialMatingInput,
+  ancestorDepths, combineBreedMakeup, defineAbilityFor, pedigreeCompleteness, sharedAncestors, subjectOf, type BreedMakeup, type CoopPedigree,
+  type PedigreeCardDto, type PedigreeCardListDto, type PedigreeCardQuery, type PedigreeTreeDto, type Sex, type TrialMatingDto,
+  type TrialMatingInput,
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../lib/session-user';
@@ -89,26 +91,6 @@ export async function getPedigreeTree(actor: SessionUser, animalId: string, gene
   });
 }
 
-/** Ancestors of `id` up to `depth` generations, each with the generation it is first met in. */
-function ancestorDepths(pedigree: CoopPedigree, id: string, depth: number): Map<string, number> {
-  const found = new Map<string, number>();
-  let frontier = [id];
-  for (let g = 1; g <= depth && frontier.length > 0; g++) {
-    const next: string[] = [];
-    for (const current of frontier) {
-      const row = pedigree.parentsOf(current);
-      for (const parent of [row?.sireId, row?.damId]) {
-        if (parent && !found.has(parent)) {
-          found.set(parent, g);
-          next.push(parent);
-        }
-      }
-    }
-    frontier = next;
-  }
-  return found;
-}
-
 /** The stored breed make-up of an animal (computed with the pedigree, in the same transaction). */
 function storedMakeup(row: AnimalRow): BreedMakeup | null {
   if (!row.makeup_breeds || row.makeup_unknown === null || !row.purity) return null;
@@ -142,20 +124,8 @@ export async function trialMatings(actor: SessionUser, input: TrialMatingInput):
     const coi = pedigree.offspringInbreedingMany(dam.id, sireIds);
     const damMakeup = storedMakeup(dam);
     const damAncestors = ancestorDepths(pedigree, dam.id, 5);
-    damAncestors.set(dam.id, 0);
     const names = new Map<string, { name: string; tattoo: string | null }>();
-    const commonOf = (sireId: string) => {
-      const sireAncestors = ancestorDepths(pedigree, sireId, 5);
-      sireAncestors.set(sireId, 0);
-      const common = [...sireAncestors.keys()].filter((id) => damAncestors.has(id));
-      // Keep the nearest: drop an ancestor that is a parent of another shared one (it is behind it).
-      const isParentOf = (parent: string, child: string) => {
-        const parents = pedigree.parentsOf(child);
-        return parents?.sireId === parent || parents?.damId === parent;
-      };
-      const nearest = common.filter((id) => !common.some((other) => other !== id && isParentOf(id, other)));
-      return nearest.sort((a, b) => sireAncestors.get(a)! + damAncestors.get(a)! - (sireAncestors.get(b)! + damAncestors.get(b)!)).slice(0, 6);
-    };
+    const commonOf = (sireId: string) => sharedAncestors(pedigree, damAncestors, sireId, 5, 6);
     const litters = sireIds.map((sireId) => ({ sireId, common: commonOf(sireId) }));
     const commonIds = [...new Set(litters.flatMap((l) => l.common))];
     for (const row of await selectAnimalsByIds(tx, actor.coopId, commonIds)) names.set(row.id, { name: row.name, tattoo: row.tattoo });
@@ -174,4 +144,38 @@ export async function trialMatings(actor: SessionUser, input: TrialMatingInput):
       }),
     };
   });
+}
+
+/** An animal's pedigree card with the facts other modules decide on (who owns and keeps it, its make-up). */
+export interface PedigreeCardFacts {
+  card: PedigreeCardDto;
+  sex: Sex;
+  owningFarmId: string | null;
+  keepingFarmId: string | null;
+  onFarm: boolean;
+  makeup: BreedMakeup | null;
+  label: string;
+}
+
+/** Pedigree cards of animals of the co-op by id, inside the caller's transaction (absent ids are left out). */
+export async function pedigreeCardsIn(tx: Transaction, actor: SessionUser, ids: string[]): Promise<Map<string, PedigreeCardFacts>> {
+  const unique = [...new Set(ids)];
+  if (unique.length === 0) return new Map();
+  const ctx = await presentContextFor(actor, tx);
+  const rows = await selectAnimalsByIds(tx, actor.coopId, unique);
+  return new Map(rows.map((row) => [row.id, {
+    card: presentCard(row, ctx), sex: row.sex, owningFarmId: row.owning_farm_id, keepingFarmId: row.keeping_farm_id,
+    onFarm: !row.is_outside && row.disposition === 'on_farm', makeup: storedMakeup(row), label: labelOf(row),
+  }]));
+}
+
+/** The co-op's pedigree kept in memory (see coop-pedigree-cache.ts), as of the caller's transaction. */
+export async function coopPedigreeIn(tx: Transaction, coopId: string): Promise<CoopPedigree> {
+  return coopPedigreeOf(coopId, tx);
+}
+
+/** Presents breed make-ups (a litter's, computed) with the co-op's breed names, inside the caller's transaction. */
+export async function makeupPresenterIn(tx: Transaction, actor: SessionUser): Promise<(makeup: BreedMakeup) => PedigreeCardDto['breedMakeup']> {
+  const ctx = await presentContextFor(actor, tx);
+  return (makeup) => presentMakeup({ makeup_breeds: makeup.breeds, makeup_unknown: makeup.unknown, purity: makeup.purity }, ctx);
 }

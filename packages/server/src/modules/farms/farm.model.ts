@@ -13,6 +13,9 @@ export class Farm extends Model<InferAttributes<Farm>, InferCreationAttributes<F
   declare temperatureUnit: CreationOptional<TemperatureUnit>;
   declare breedsKept: CreationOptional<string[]>;
   declare description: CreationOptional<string>;
+  declare latitude: CreationOptional<number | null>;
+  declare longitude: CreationOptional<number | null>;
+  declare sharesGetRecords: CreationOptional<boolean>;
   declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -31,6 +34,9 @@ export class Farm extends Model<InferAttributes<Farm>, InferCreationAttributes<F
         temperatureUnit: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'F' },
         breedsKept: { type: DataTypes.ARRAY(DataTypes.TEXT), allowNull: false, defaultValue: [] },
         description: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
+        latitude: { type: DataTypes.DOUBLE, allowNull: true },
+        longitude: { type: DataTypes.DOUBLE, allowNull: true },
+        sharesGetRecords: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,

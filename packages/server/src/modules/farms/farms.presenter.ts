@@ -11,6 +11,9 @@ export function presentFarm(farm: Farm): FarmDto {
     temperatureUnit: farm.temperatureUnit,
     breedsKept: farm.breedsKept,
     description: farm.description,
+    latitude: farm.latitude ?? null,
+    longitude: farm.longitude ?? null,
+    sharesGetRecords: farm.sharesGetRecords ?? true,
     version: farm.version,
     members: (farm.members ?? [])
       .filter((m) => !m.disabledAt)

@@ -1,7 +1,7 @@
 import { Router } from 'express';
-import { uuidParamSchema } from '@burrowline/shared';
+import { farmCoordinatesSchema, uuidParamSchema } from '@burrowline/shared';
 import { actorOf, requireUser } from '../../http/ability';
-import { getFarm, listFarms, updateFarmProfile } from './farms.service';
+import { getFarm, listFarms, setFarmCoordinates, updateFarmProfile } from './farms.service';
 
 export function farmRoutes(): Router {
   const router = Router();
@@ -18,6 +18,11 @@ export function farmRoutes(): Router {
   router.patch('/:farmId', async (req, res) => {
     const farmId = uuidParamSchema.parse(req.params.farmId);
     res.json(await updateFarmProfile(actorOf(req), farmId, req.body));
+  });
+
+  router.put('/:farmId/coordinates', async (req, res) => {
+    const farmId = uuidParamSchema.parse(req.params.farmId);
+    res.json(await setFarmCoordinates(actorOf(req), farmId, farmCoordinatesSchema.parse(req.body)));
   });
 
   return router;

@@ -1,6 +1,8 @@
 import { ForbiddenError } from '@casl/ability';
 import { col, fn, Op, where, type Transaction } from 'sequelize';
-import { defineAbilityFor, farmProfileUpdateSchema, RealtimeEvent, rooms, subjectOf, type FarmDto, type FarmProfileInput } from '@burrowline/shared';
+import {
+  defineAbilityFor, farmProfileUpdateSchema, RealtimeEvent, rooms, subjectOf, type FarmCoordinatesInput, type FarmDto, type FarmProfileInput,
+} from '@burrowline/shared';
 import { accessibleWhere } from '../../db/scope';
 import { withTenant } from '../../db/tenant';
 import { forgetInTransaction, onceInTransaction } from '../../db/transaction-memo';
@@ -67,6 +69,42 @@ export async function updateFarmProfile(actor: SessionUser, farmId: string, body
     }
     await farm.reload({ include: [withMembers], transaction: tx });
     return presentFarm(farm);
+  });
+}
+
+/**
+ * Sets a farm's coordinates (for distances in the Stud Share finder) and whether its litters count in
+ * sires' get's records. Only the farm's own members; kept in the record's history, announced to the co-op.
+ */
+export async function setFarmCoordinates(actor: SessionUser, farmId: string, input: FarmCoordinatesInput): Promise<FarmDto> {
+  return withTenant(actor, async (tx) => {
+    const farm = await Farm.findOne({ where: { id: farmId, coopId: actor.coopId }, transaction: tx, lock: tx.LOCK.UPDATE });
+    if (!farm) throw AppError.notFound('That farm');
+    ForbiddenError.from(defineAbilityFor(actor)).throwUnlessCan('update', subjectOf('Farm', { id: farm.id, coopId: farm.coopId }));
+    const next = { latitude: input.latitude, longitude: input.longitude, sharesGetRecords: input.sharesGetRecords ?? farm.sharesGetRecords };
+    const changes: Record<string, [unknown, unknown]> = {};
+    for (const key of ['latitude', 'longitude', 'sharesGetRecords'] as const) {
+      if (farm.get(key) !== next[key]) changes[key] = [farm.get(key), next[key]];
+    }
+    if (Object.keys(changes).length > 0) {
+      farm.set(next);
+      await farm.save({ transaction: tx });
+      await recordChanges({ coopId: actor.coopId, tableName: 'farms', recordId: farm.id, actorUserId: actor.id, changes }, tx);
+      tx.afterCommit(() => publish(rooms.coop(actor.coopId), RealtimeEvent.farmUpdated, { farmId: farm.id }));
+    }
+    await farm.reload({ include: [withMembers], transaction: tx });
+    return presentFarm(farm);
+  });
+}
+
+/** Coordinates and get's-record sharing of the co-op's farms, inside the caller's transaction. */
+export async function farmStudFactsOf(
+  coopId: string,
+  tx: Transaction,
+): Promise<Map<string, { latitude: number | null; longitude: number | null; sharesGetRecords: boolean }>> {
+  return onceInTransaction(tx, `farm-stud-facts:${coopId}`, async () => {
+    const farms = await Farm.findAll({ where: { coopId }, attributes: ['id', 'latitude', 'longitude', 'sharesGetRecords'], transaction: tx, raw: true });
+    return new Map(farms.map((f) => [f.id, { latitude: f.latitude ?? null, longitude: f.longitude ?? null, sharesGetRecords: f.sharesGetRecords }]));
   });
 }
 

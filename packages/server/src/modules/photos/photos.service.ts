@@ -8,6 +8,7 @@ import {
 import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
+import { port } from '../../lib/port';
 import { logger } from '../../lib/logger';
 import { publish } from '../../lib/realtime';
 import { storage } from '../../lib/storage';
@@ -180,15 +181,26 @@ export async function addAnimalPhotos(
   );
 }
 
+/**
+ * Whether another module published this photo to the viewer (a buck card's photos to the co-op, a loan's
+ * hand-over photo to the other farm). Stud Share reads photos, so it is plugged in at the composition root.
+ */
+export const photoPublishedTo = port<(tx: Transaction, actor: SessionUser, photoId: string) => Promise<boolean>>('photo published', async () => false);
+
 async function photoForViewer(actor: SessionUser, photoId: string, tx: Transaction, change: boolean): Promise<{ photo: Photo; access: AnimalAccess | null; label: string }> {
   const photo = await Photo.findOne({ where: { id: photoId, coopId: actor.coopId }, transaction: tx, lock: change ? tx.LOCK.UPDATE : undefined });
   if (!photo) throw AppError.notFound('That photo');
   if (photo.subject === 'animal') {
+    // Only looked up where the usual rules refuse, so an ordinary photo costs nothing more.
+    const refuse = async () => {
+      if (!change && (await photoPublishedTo(tx, actor, photo.id))) return { photo, access: null, label: 'animal' };
+      throw AppError.notFound('That photo');
+    };
     const access = await animalAccess(actor, photo.animalId!, tx);
     // Someone who may not see the animal learns nothing about its photos, not even that they exist.
-    if (!access || !access.canRead) throw AppError.notFound('That photo');
+    if (!access || !access.canRead) return refuse();
     // Photos belong to the farm that took them: a borrower never opens the lender's, nor the other way round.
-    if (!(await privateRecordFarmsOf(actor, access, 'Photo', tx)).includes(photo.farmId)) throw AppError.notFound('That photo');
+    if (!(await privateRecordFarmsOf(actor, access, 'Photo', tx)).includes(photo.farmId)) return refuse();
     if (change && !access.canUpdate) throw new AppError(ErrorCode.forbidden, 403, "Only the animal's own farm changes its photos");
     return { photo, access, label: access.tattoo ?? 'animal' };
   }

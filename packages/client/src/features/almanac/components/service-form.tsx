@@ -7,6 +7,7 @@ import { ConfirmWarnings } from '../../../components/ui/confirm-warnings';
 import { SelectField } from '../../../components/ui/select-field';
 import { TextAreaField } from '../../../components/ui/text-area-field';
 import { TextField } from '../../../components/ui/text-field';
+import { TextLink } from '../../../components/ui/text-link';
 import { animalName } from '../../../lib/names';
 import { formatDate } from '../../../lib/days';
 import { sharedSchemaResolver } from '../../../lib/shared-schema-resolver';
@@ -68,6 +69,12 @@ export function ServiceForm({ initialDoeId, initialBuckId }: { initialDoeId?: st
         <TextAreaField label="Notes (optional)" rows={2} error={errors.notes?.message} {...form.register('notes')} />
       </div>
       <Kinship doeId={form.watch('doeId')} buckId={form.watch('buckId')} />
+      {doe && (
+        <p className="text-grey-700">
+          No buck here suits her?{' '}
+          <TextLink to={`/stud-share/find/${doe.id}`}>Find a stud buck across the co-op for {doe.name || doe.tattoo}</TextLink>
+        </p>
+      )}
       {doe?.underTreatment && (
         <Alert tone="warning" title="She is under treatment">
           {doe.underTreatment.treatment} until {formatDate(doe.underTreatment.endsOn)}. No drugs are approved for rabbits in the US: ask the veterinarian who

@@ -9,6 +9,7 @@ import { PageHeader } from '../../../components/ui/page-header';
 import { PageTitle } from '../../../components/ui/page-title';
 import { farmDetailQueryOptions, useFarm } from '../api/get-farm';
 import { useCanEditFarm } from '../hooks/use-can-edit-farm';
+import { FarmCoordinatesForm } from './farm-coordinates-form';
 import { FarmProfileForm } from './farm-profile-form';
 
 /**
@@ -37,16 +38,21 @@ export function FarmProfileEditor({ farmId }: { farmId: string }) {
       <PageTitle>{`Edit ${startingPoint.name}`}</PageTitle>
       <PageHeader title="Edit farm profile" lead={startingPoint.name} />
       {canEdit ? (
-        <Card>
-          <FarmProfileForm
-            key={startingPoint.version}
-            farm={startingPoint}
-            latestVersion={latest.version}
-            onReload={() => void reload()}
-            isReloading={isReloading}
-            onSaved={(saved) => void navigate(`/farms/${saved.id}`, { state: { saved: true } })}
-          />
-        </Card>
+        <>
+          <Card>
+            <FarmProfileForm
+              key={startingPoint.version}
+              farm={startingPoint}
+              latestVersion={latest.version}
+              onReload={() => void reload()}
+              isReloading={isReloading}
+              onSaved={(saved) => void navigate(`/farms/${saved.id}`, { state: { saved: true } })}
+            />
+          </Card>
+          <Card>
+            <FarmCoordinatesForm farm={latest} />
+          </Card>
+        </>
       ) : (
         <Alert
           tone="error"

@@ -17,6 +17,7 @@ import { performanceKeys } from '../../performance';
 import { ledgerKeys } from '../../ledger';
 import { processingDayKeys } from '../../processing-days';
 import { notificationKeys, type LatestNotification } from '../../notifications';
+import { studShareKeys } from '../../stud-share';
 
 /**
  * The one place where server events become cache updates. Mounted by the signed-in layout, so the
@@ -89,6 +90,20 @@ export function useRealtimeSync(): void {
         void queryClient.invalidateQueries({ queryKey: notificationKeys.all, predicate: (query) => query.queryKey[1] !== 'unread' });
         if (title && link) queryClient.setQueryData<LatestNotification>(notificationKeys.latest(), { title, link, at: Date.now() });
       };
+      // A buck was offered, changed or withdrawn (co-op room): the buck cards and the finder's ranking.
+      const refreshStudOffers = () => {
+        void queryClient.invalidateQueries({ queryKey: studShareKeys.offers() });
+        void queryClient.invalidateQueries({ queryKey: studShareKeys.finders() });
+      };
+      // A request or loan of one of the person's farms changed (the two farms' rooms): the loans, the buck's
+      // calendar and whereabouts; a hand-over or return also moves him between Herds and plans the quarantine.
+      const refreshStudLoans = ({ state }: { state: string }) => {
+        void queryClient.invalidateQueries({ queryKey: studShareKeys.all });
+        if (state === 'handed_over' || state === 'returned' || state === 'served') {
+          refreshHerd();
+          refreshAlmanac();
+        }
+      };
       const refreshAll = () => {
         refreshNotifications();
         refreshFarms();
@@ -101,6 +116,7 @@ export function useRealtimeSync(): void {
         refreshProcessing();
         refreshLedger();
         refreshProcessingDays();
+        void queryClient.invalidateQueries({ queryKey: studShareKeys.all });
       };
       const endSession = ({ reason }: { reason: string }) =>
         void leaveSignedInArea(
@@ -127,6 +143,8 @@ export function useRealtimeSync(): void {
       socket.on(RealtimeEvent.cardCheckoutSettled, refreshLedger);
       socket.on(RealtimeEvent.processingDayChanged, refreshProcessingDays);
       socket.on(RealtimeEvent.notificationsChanged, notificationsChanged);
+      socket.on(RealtimeEvent.studOfferChanged, refreshStudOffers);
+      socket.on(RealtimeEvent.studLoanChanged, refreshStudLoans);
       socket.on(RealtimeEvent.sessionEnded, endSession);
       // Events sent while the connection was down are lost; refetch what they would have refreshed.
       socket.io.on('reconnect', refreshAll);
@@ -149,6 +167,8 @@ export function useRealtimeSync(): void {
         socket.off(RealtimeEvent.cardCheckoutSettled, refreshLedger);
         socket.off(RealtimeEvent.processingDayChanged, refreshProcessingDays);
         socket.off(RealtimeEvent.notificationsChanged, notificationsChanged);
+        socket.off(RealtimeEvent.studOfferChanged, refreshStudOffers);
+        socket.off(RealtimeEvent.studLoanChanged, refreshStudLoans);
         socket.off(RealtimeEvent.sessionEnded, endSession);
         socket.io.off('reconnect', refreshAll);
         disconnectRealtime();
