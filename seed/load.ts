@@ -14,6 +14,7 @@ import { loadDemoGrowOut } from './demo-grow-out';
 import { loadDemoHealthYield } from './demo-health-yield';
 import { loadDemoHerds } from './demo-herds';
 import { loadDemoLedger } from './demo-ledger';
+import { loadDemoProcessingDays } from './demo-processing-days';
 import { loadDemoStudShare } from './demo-stud-share';
 import { loadDemoMentorship } from './demo-mentorship';
 import { loadDemoChat } from './demo-chat';
@@ -49,6 +50,7 @@ export async function loadDemoCoop(): Promise<'loaded' | 'already-present'> {
       await loadDemoLedger({ coopId: present.id, farms, keepers, appUrl }, tx);
       await loadApprenticeship(present.id, tx);
       await loadDemoChat({ coopId: present.id }, tx);
+      await loadDemoProcessingDays({ coopId: present.id, farms, keepers }, tx);
     });
     // Stud Share goes through its services, each in a transaction of its own, once the co-op exists.
     await loadDemoStudShare(present.id);
@@ -83,6 +85,7 @@ export async function loadDemoCoop(): Promise<'loaded' | 'already-present'> {
     await loadDemoLedger({ coopId: coop.id, farms, keepers, appUrl }, tx);
     await loadApprenticeship(coop.id, tx);
     await loadDemoChat({ coopId: coop.id }, tx);
+    await loadDemoProcessingDays({ coopId: coop.id, farms, keepers }, tx);
     return coop.id;
   });
   await loadDemoStudShare(coopId);

@@ -57,6 +57,8 @@ export type Target =
   | LoanStage
   // A notification of farm A's member.
   | 'notificationA'
+  // A processing day at a site of farm A in two weeks, with farm A's booking of 2 head and its member on the first station.
+  | 'dayA'
   // Stud Share: a farm-A buck offered (with a fresh farm-A buck not offered yet, a doe of each farm) and a
   // farm-B request for him: waiting, accepted, hand-over recorded by A, lent, return recorded by B; or an
   // accepted stud-service visit.
@@ -134,6 +136,19 @@ export type Body =
   | 'cardCheckout'
   | 'cardWebhook'
   | 'notificationPreferences'
+  | 'processingSite'
+  | 'processingSiteEdit'
+  | 'processingFarmSettings'
+  | 'processingDay'
+  | 'processingDayEdit'
+  | 'processingBooking'
+  | 'processingBookingEdit'
+  | 'processingBookingVersion'
+  | 'processingCheckIn'
+  | 'processingRosterMember'
+  | 'processingEquipmentClaim'
+  | 'processingYield'
+  | 'processingDayClose'
   // Stud Share.
   | 'studOffer'
   | 'studOfferUpdate'
@@ -229,6 +244,7 @@ export const authorizationMatrix: MatrixRow[] = [
   // The calendar feed is public at its secret address (a phone calendar has no session).
   { method: 'GET', path: '/api/almanac/tasks', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'GET', path: '/api/almanac/summary', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/almanac/shared-days', target: 'dayA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'GET', path: '/api/almanac/settings', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'PATCH', path: '/api/almanac/settings', target: 'none', body: 'cycleSettings', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'GET', path: '/api/almanac/breeding-stock', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
@@ -440,6 +456,32 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'GET', path: '/api/chat/mutes', target: 'none', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 200 } },
   { method: 'POST', path: '/api/chat/mutes', target: 'chatA', body: 'chatMute', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 201, otherCoop: 404 } },
   { method: 'DELETE', path: '/api/chat/mutes/:chatMuteUserId', target: 'chatA', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  // Processing days: the whole co-op reads days and bookings; the admin keeps sites and schedules (the host only when
+  // allowed); a farm's members book for it; the host runs the day; another co-op's days do not exist.
+  { method: 'GET', path: '/api/processing-days/sites', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'POST', path: '/api/processing-days/sites', target: 'none', body: 'processingSite', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 201, otherCoop: 400 } },
+  { method: 'PATCH', path: '/api/processing-days/sites/:siteId', target: 'dayA', body: 'processingSiteEdit', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/processing-days/farm-settings/:farmId', target: 'farmA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'PUT', path: '/api/processing-days/farm-settings/:farmId', target: 'farmA', body: 'processingFarmSettings', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/processing-days', target: 'dayA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'POST', path: '/api/processing-days', target: 'dayA', body: 'processingDay', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 201, otherCoop: 404 } },
+  { method: 'GET', path: '/api/processing-days/:dayId', target: 'dayA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
+  { method: 'PATCH', path: '/api/processing-days/:dayId', target: 'dayA', body: 'processingDayEdit', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/processing-days/:dayId/candidates?farmId=:farmId', target: 'dayA', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/processing-days/:dayId/bookings', target: 'dayA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/processing-days/:dayId/bookings', target: 'dayA', body: 'processingBooking', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 403, admin: 201, otherCoop: 404 } },
+  { method: 'PATCH', path: '/api/processing-days/:dayId/bookings/:bookingId', target: 'dayA', body: 'processingBookingEdit', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/processing-days/:dayId/bookings/:bookingId/cancel', target: 'dayA', body: 'processingBookingVersion', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/processing-days/:dayId/bookings/:bookingId/confirm', target: 'dayA', body: 'processingBookingVersion', expect: { anonymous: 401, apprentice: 403, member: 409, otherFarmMember: 403, admin: 409, otherCoop: 404 } },
+  { method: 'POST', path: '/api/processing-days/:dayId/bookings/:bookingId/check-in', target: 'dayA', body: 'processingCheckIn', expect: { anonymous: 401, apprentice: 403, member: 409, otherFarmMember: 403, admin: 409, otherCoop: 404 } },
+  { method: 'POST', path: '/api/processing-days/:dayId/stations/:stationId/sign-up', target: 'dayA', expect: { anonymous: 401, apprentice: 403, member: 409, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/processing-days/:dayId/stations/:stationId/leave', target: 'dayA', body: 'processingRosterMember', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/processing-days/:dayId/equipment/:itemId/claim', target: 'dayA', body: 'processingEquipmentClaim', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/processing-days/:dayId/equipment/:itemId/release', target: 'dayA', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/processing-days/:dayId/yields', target: 'dayA', body: 'processingYield', expect: { anonymous: 401, apprentice: 403, member: 409, otherFarmMember: 403, admin: 409, otherCoop: 404 } },
+  { method: 'POST', path: '/api/processing-days/:dayId/close', target: 'dayA', body: 'processingDayClose', expect: { anonymous: 401, apprentice: 403, member: 409, otherFarmMember: 403, admin: 409, otherCoop: 404 } },
+  { method: 'GET', path: '/api/processing-days/:dayId/summary', target: 'dayA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/processing-days/:dayId/sheet.pdf', target: 'dayA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
 ];
 
 /**
@@ -456,6 +498,7 @@ export const matrixAreas = [
   { area: 'grow-out', paths: /^\/api\/(grow-out|feed|performance)\b/ },
   { area: 'ledger', paths: /^\/api\/(ledger|card-webhooks)\b/ },
   { area: 'notifications', paths: /^\/api\/notifications\b/ },
+  { area: 'processing-days', paths: /^\/api\/processing-days\b/ },
   { area: 'stud-share', paths: /^\/api\/stud-share\b/ },
   { area: 'mentorship', paths: /^\/api\/mentorship\b/ },
   { area: 'chat', paths: /^\/api\/chat\b/ },

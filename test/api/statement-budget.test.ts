@@ -6,7 +6,9 @@ import { asTenant } from '../support/db';
 import { createTestApplication, createTestCoop, TEST_PASSWORD, type TestCoop, type TestPerson } from '../support/factories';
 import { daysAgo, farmToday, litterAs } from '../support/almanac';
 import { groupAs, purchaseAs } from '../support/grow-out';
+import { growingGroupAs } from '../support/health-yield';
 import { actorOf, addAnimalAs } from '../support/herd';
+import { bookingBody, dayAs, siteAs } from '../support/processing-days';
 import { countingAgentFor, type StatementCount } from '../support/statement-counter';
 import { testApp } from '../support/test-app';
 import { doeOf, offeredBuck, requestAs } from '../support/stud-share';
@@ -175,6 +177,34 @@ const endpoints: Endpoint[] = [
     },
   },
   {
+    name: 'the processing days list',
+    async arrange(coop) {
+      const site = await siteAs(coop.admin, coop);
+      const day = await dayAs(coop.admin, site.id);
+      return { url: '/api/processing-days?pageSize=10', asker: coop.member, growTo: grower(coop.id, 'processing_days', day.id) };
+    },
+  },
+  {
+    name: "a processing day's bookings",
+    async arrange(coop) {
+      const { dayId, bookingId } = await dayWithBooking(coop);
+      return {
+        url: `/api/processing-days/${dayId}/bookings`, asker: coop.member,
+        growTo: grower(coop.id, 'processing_bookings', bookingId, { idempotency_key: 'gen_random_uuid()', queue_number: 't.queue_number + g' }),
+      };
+    },
+  },
+  {
+    name: "a processing day's page",
+    async arrange(coop) {
+      const { dayId, bookingId } = await dayWithBooking(coop);
+      return {
+        url: `/api/processing-days/${dayId}`, asker: coop.member,
+        growTo: grower(coop.id, 'processing_bookings', bookingId, { idempotency_key: 'gen_random_uuid()', queue_number: 't.queue_number + g' }),
+      };
+    },
+  },
+  {
     name: 'the buck cards',
     async arrange(coop) {
       const { card } = await offeredBuck(coop);
@@ -267,6 +297,17 @@ const endpoints: Endpoint[] = [
     },
   },
 ];
+
+/** A day with one booking of farm A's member (its copies make the many bookings). */
+async function dayWithBooking(coop: TestCoop): Promise<{ dayId: string; bookingId: string }> {
+  const site = await siteAs(coop.admin, coop);
+  const day = await dayAs(coop.admin, site.id);
+  const { group } = await growingGroupAs(coop.member, { kindledDaysAgo: 70, heads: 4 });
+  const counting = await countingAgentFor(coop.member.email, TEST_PASSWORD);
+  const res = await counting.agent.post(`/api/processing-days/${day.id}/bookings`).send(bookingBody(coop.farms[0]!.id, [{ groupId: group.id, head: 2 }]));
+  if (res.status !== 201) throw new Error(`booking refused: ${res.status} ${JSON.stringify(res.body)}`);
+  return { dayId: day.id, bookingId: res.body.id as string };
+}
 
 /** Offers of copies of the template's buck (one offer per buck). */
 function offerGrower(coopId: string, offerId: string) {

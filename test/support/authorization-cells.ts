@@ -24,6 +24,7 @@ import { ledgerBody, ledgerStateOf, ledgerTarget } from './ledger-matrix';
 import { mentorshipBody, mentorshipStateOf, mentorshipTarget } from './mentorship-matrix';
 import { notificationBody, notificationStateOf, notificationTarget } from './notifications-matrix';
 import { chatBody, chatStateOf, chatTarget } from './chat-matrix';
+import { processingDayBody, processingDaysStateOf, processingDayTarget } from './processing-days-matrix';
 import { loanTarget, tracesHiddenFrom } from './lent-animal';
 import { studBody, studStateOf, studTarget } from './stud-share-matrix';
 import { agentFor, ROOMY_SIGN_IN, sharedSignedInAgent, signedInAgent, testApp, type Agent } from './test-app';
@@ -126,7 +127,7 @@ export function describeMatrixArea(area: MatrixArea) {
   }
 
   async function freshTarget(target: Target) {
-    return { ...(await membershipTarget(target)), ...(await herdTarget(coop, target)), ...(await almanacTarget(coop, target)), ...(await herdFilesTarget(coop, target)), ...(await loanTarget(coop, target)), ...(await ledgerTarget(coop, target, foreign)), ...(await notificationTarget(coop, target)), ...(await studTarget(coop, target)), ...(await mentorshipTarget(coop, target)), ...(await chatTarget(coop, target)) };
+    return { ...(await membershipTarget(target)), ...(await herdTarget(coop, target)), ...(await almanacTarget(coop, target)), ...(await herdFilesTarget(coop, target)), ...(await loanTarget(coop, target)), ...(await ledgerTarget(coop, target, foreign)), ...(await notificationTarget(coop, target)), ...(await studTarget(coop, target)), ...(await mentorshipTarget(coop, target)), ...(await chatTarget(coop, target)), ...(await processingDayTarget(coop, target)) };
   }
   type TargetIds = Awaited<ReturnType<typeof freshTarget>>;
   const readTargets = new Map<Target, Promise<TargetIds>>();
@@ -206,13 +207,15 @@ export function describeMatrixArea(area: MatrixArea) {
           const personaOf = persona === 'otherCoop' ? foreign.admin : persona === 'anonymous' ? null : coop[persona];
           const body = (await bodyFor(row.body, ids, persona)) ?? (await herdBody(coop, row.body, ids))
             ?? (await almanacBody(coop, row.body, ids, personaOf?.coopId ?? coop.id, personaOf?.farmId ?? null)) ?? ledgerBody(coop, row.body, ids) ?? notificationBody(row.body) ?? studBody(coop, row.body, ids)
-            ?? (await mentorshipBody(row.body, ids, personaOf?.coopId ?? coop.id)) ?? chatBody(row.body, ids);
+            ?? (await mentorshipBody(row.body, ids, personaOf?.coopId ?? coop.id)) ?? chatBody(row.body, ids)
+            ?? processingDayBody(coop, row.body, ids);
           const before = await stateOf(ids, persona);
           const herdBefore = await herdStateOf(coop.id, ids);
           const almanacBefore = await almanacStateOf(coop.id);
           const filesBefore = await herdFilesStateOf(coop.id, ids);
           const ledgerBefore = await ledgerStateOf(coop.id);
           const notificationsBefore = await notificationStateOf(coop.id);
+          const daysBefore = await processingDaysStateOf(coop.id);
           const studBefore = await studStateOf(coop.id);
           const mentorshipBefore = await mentorshipStateOf(coop.id);
           const chatBefore = await chatStateOf(coop.id);
@@ -239,6 +242,7 @@ export function describeMatrixArea(area: MatrixArea) {
             expect(await herdFilesStateOf(coop.id, ids)).toEqual(filesBefore);
             expect(await ledgerStateOf(coop.id)).toEqual(ledgerBefore);
             expect(await notificationStateOf(coop.id)).toEqual(notificationsBefore);
+            expect(await processingDaysStateOf(coop.id)).toEqual(daysBefore);
             expect(await studStateOf(coop.id)).toEqual(studBefore);
             expect(await mentorshipStateOf(coop.id)).toEqual(mentorshipBefore);
             expect(await chatStateOf(coop.id)).toEqual(chatBefore);

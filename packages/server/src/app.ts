@@ -38,6 +38,7 @@ import { cardWebhookRoutes, ledgerRoutes } from './modules/ledger/ledger.routes'
 import { studShareRoutes } from './modules/stud-share/stud-share.routes';
 import { mentorshipRoutes } from './modules/mentorship/mentorship.routes';
 import { notificationRoutes } from './modules/notifications/notifications.routes';
+import { processingDayRoutes } from './modules/processing-days/processing-days.routes';
 import { configureNotifications } from './modules/notifications/notifications.service';
 import { chatRoutes, registerChatSocketEvents } from './modules/chat/chat.routes';
 import { configureChat } from './modules/chat/chat.service';
@@ -164,6 +165,8 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
   api.use('/mentorship', mentorshipRoutes(config));
   // Co-op Chat: the channel, topics and the threads beside litters, processing days and loans.
   api.use('/chat', chatRoutes());
+  // Processing days: sites, scheduled days, bookings with their waitlist, the roster, yields and the day's close.
+  api.use('/processing-days', processingDayRoutes());
   api.use(apiNotFound);
   app.use('/api', api);
 

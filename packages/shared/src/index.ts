@@ -34,6 +34,8 @@ export type { PackRule } from '@casl/ability/extra';
 export * from './text/count-of';
 export * from './schemas/ledger.schema';
 export * from './ledger';
+export * from './schemas/processing-days.schema';
+export * from './processing-days';
 export * from './schemas/stud-share.schema';
 export * from './units/distance';
 export * from './notifications';

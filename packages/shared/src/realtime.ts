@@ -34,6 +34,8 @@ export const RealtimeEvent = {
   ledgerChanged: 'ledger:changed',
   /** A card checkout was settled by the card service; to the payer's user room. */
   cardCheckoutSettled: 'ledger:card-checkout-settled',
+  /** A processing day was scheduled, changed or closed, or its bookings, roster or capacity changed; to the co-op room. */
+  processingDayChanged: 'processing-day:changed',
   /** A buck was offered, his offer changed or was withdrawn; to the co-op room (buck cards are co-op-wide; no fees travel). */
   studOfferChanged: 'stud-share:offer-changed',
   /** A request or loan changed (requested, answered, handed over, returned…); to the two farms' rooms only (no fees travel). */
@@ -65,6 +67,7 @@ export interface ServerToClientEvents {
   [RealtimeEvent.growOutChanged]: (payload: { farmId: string; groupId: string | null }) => void;
   [RealtimeEvent.ledgerChanged]: (payload: { farmIds: string[] }) => void;
   [RealtimeEvent.cardCheckoutSettled]: (payload: { checkoutId: string; status: 'paid' | 'declined' }) => void;
+  [RealtimeEvent.processingDayChanged]: (payload: ProcessingDayChangedPayload) => void;
   [RealtimeEvent.studOfferChanged]: (payload: { offerId: string; buckId: string; farmId: string }) => void;
   [RealtimeEvent.studLoanChanged]: (payload: { loanId: string; buckId: string; farmIds: string[]; state: StudLoanState }) => void;
   [RealtimeEvent.notificationsChanged]: (payload: { unread: number; title: string | null; link: string | null }) => void;
@@ -86,6 +89,14 @@ export interface ClientToServerEvents {
   [ClientEvent.chatJoin]: (payload: { threadId: string }, ack: (result: SocketAck) => void) => void;
   [ClientEvent.chatLeave]: (payload: { threadId: string }, ack: (result: SocketAck) => void) => void;
 }
+
+/** No money and no names travel: the screens refetch the day. */
+export interface ProcessingDayChangedPayload {
+  dayId: string;
+  what: 'scheduled' | 'changed' | 'capacity' | 'roster' | 'closed';
+  capacity: { capacityHead: number; bookedHead: number; offeredHead: number; waitlistedHead: number; freeHead: number };
+}
+
 
 /** Room names: a socket joins only the rooms its ability allows. */
 export const rooms = {

@@ -381,6 +381,42 @@ const routes: RouteObject[] = [
                 lazy: async () => ({ Component: (await import('../routes/grow-out/grow-out-layout')).GrowOutLayout }),
                 children: growOutRoutes,
               },
+              // Processing days: the upcoming days, one day's page, its summary, scheduling and the sites (admin).
+              {
+                path: 'processing-days',
+                lazy: async () => {
+                  const { loader, ProcessingDaysPage } = await import('../routes/processing-days/processing-days');
+                  return { loader, Component: ProcessingDaysPage };
+                },
+              },
+              {
+                path: 'processing-days/new',
+                lazy: async () => {
+                  const { loader, ScheduleDayPage } = await import('../routes/processing-days/schedule');
+                  return { loader, Component: ScheduleDayPage };
+                },
+              },
+              {
+                path: 'processing-days/sites',
+                lazy: async () => {
+                  const { loader, SitesPage } = await import('../routes/processing-days/sites');
+                  return { loader, Component: SitesPage };
+                },
+              },
+              {
+                path: 'processing-days/:dayId',
+                lazy: async () => {
+                  const { loader, ProcessingDayPage } = await import('../routes/processing-days/day');
+                  return { loader, Component: ProcessingDayPage };
+                },
+              },
+              {
+                path: 'processing-days/:dayId/summary',
+                lazy: async () => {
+                  const { loader, DaySummaryPage } = await import('../routes/processing-days/summary');
+                  return { loader, Component: DaySummaryPage };
+                },
+              },
               {
                 path: 'stud-share',
                 lazy: async () => ({ Component: (await import('../routes/stud-share/stud-share-layout')).StudShareLayout }),

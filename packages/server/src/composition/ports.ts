@@ -7,6 +7,8 @@ import { groupFeedTotals, processedHeadsOfGroups } from '../modules/grow-out/gro
 import { groupsOfFarm } from '../modules/grow-out/grow-out-facts.service';
 import { kindlingDaysOfDams } from '../modules/litters/litter-facts.service';
 import { processedHeadsOf } from '../modules/processing/processing.service';
+import { sharedDaysOfFarm } from '../modules/almanac/shared-days';
+import { processingDaysOfFarm } from '../modules/processing-days/processing-days.service';
 import { photoPublishedTo } from '../modules/photos/photos.service';
 import { isPhotoPublished } from '../modules/stud-share/stud-share-facts.service';
 import { registerThreadSubject } from '../modules/chat/chat-subjects.service';
@@ -20,7 +22,8 @@ let plugged = false;
  * reach the Almanac here; the feed book reads grow-out, so grow-out's feed totals come in here; grow-out
  * reads the Almanac, so the Almanac's treatments learn the farm's groups here; processing reads grow-out,
  * so the heads processed from a group reach grow-out's head count here; litters build on the herd, so a
- * dam's kindling days reach the herd's kit birth-date check here.
+ * dam's kindling days reach the herd's kit birth-date check here; processing days build on the Almanac's
+ * withdrawals, so the days a farm booked reach its Almanac here.
  */
 export function plugModulePorts(): void {
   if (plugged) return;
@@ -29,6 +32,7 @@ export function plugModulePorts(): void {
   damKindlingDays.plug(kindlingDaysOfDams);
   groupFeedTotals.plug(feedTotalsByGroup);
   processedHeadsOfGroups.plug(processedHeadsOf);
+  sharedDaysOfFarm.plug(processingDaysOfFarm);
   photoPublishedTo.plug(isPhotoPublished);
   // Co-op Chat's threads beside subjects: who reads the subject reads its thread.
   registerThreadSubject('litter', litterThreadSubject);

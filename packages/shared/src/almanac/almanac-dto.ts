@@ -69,6 +69,13 @@ export interface AgendaDto {
   pendingReview: number;
 }
 
+/** Shared days the farm booked or hosts (processing days) in a period, shown beside the Almanac's tasks. */
+export interface SharedDaysDto {
+  from: string;
+  to: string;
+  days: { id: string; date: string; startTime: string; title: string; link: string }[];
+}
+
 /** Commons: what needs doing today and in the days to come. */
 export interface AlmanacSummaryDto {
   farm: FarmRefDto;

@@ -288,3 +288,29 @@ describe('defineAbilityFor: a lent animal\'s private records belong to the farm 
     expect(buyer.can('read', animal('farm-2'), 'notes')).toBe(true);
   });
 });
+
+describe('defineAbilityFor: processing days', () => {
+  const day = (hostFarmId: string, hostMaySchedule: boolean) => subjectOf('ProcessingDay', { coopId, hostFarmId, hostMaySchedule });
+  it('when a member of the site\'s host farm, then they host days there and schedule them only when the admin allows it', () => {
+    const a = defineAbilityFor(member);
+    expect(a.can('host', day(farmId, false))).toBe(true);
+    expect(a.can('create', day(farmId, false))).toBe(false);
+    expect(a.can('create', day(farmId, true))).toBe(true);
+    expect(a.can('update', day(farmId, true))).toBe(true);
+    expect(a.can('host', day('farm-2', true))).toBe(false);
+    expect(a.can('create', day('farm-2', true))).toBe(false);
+  });
+
+  it('when a member, then they book for their own farm only; the admin for any farm; the apprentice reads its bookings and books none', () => {
+    expect(defineAbilityFor(member).can('manage', own('ProcessingBooking'))).toBe(true);
+    expect(defineAbilityFor(member).can('manage', otherFarm('ProcessingBooking'))).toBe(false);
+    expect(defineAbilityFor(admin).can('manage', otherFarm('ProcessingBooking'))).toBe(true);
+    expect(defineAbilityFor(admin).can('host', day('farm-2', false))).toBe(true);
+    expect(defineAbilityFor(admin).can('manage', otherCoop('ProcessingBooking'))).toBe(false);
+    const a = defineAbilityFor(apprentice);
+    expect(a.can('read', own('ProcessingBooking'))).toBe(true);
+    expect(a.can('create', own('ProcessingBooking'))).toBe(false);
+    expect(a.can('book', subjectOf('ProcessingDay', { coopId }))).toBe(false);
+    expect(a.can('host', day(farmId, true))).toBe(false);
+  });
+});

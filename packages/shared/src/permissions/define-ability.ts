@@ -16,7 +16,9 @@ export type Action =
   | 'trade'
   | 'merge'
   /** Ticking an Almanac task off (an apprentice's tick waits for the mentor's review). */
-  | 'complete';
+  | 'complete'
+  /** Running a processing day at one's own site: check-in, yields of the day, closing it. */
+  | 'host';
 
 /**
  * Subjects of the brief's role table. `Money` stands for prices, costs, fees and balances;
@@ -66,6 +68,8 @@ export type SubjectName =
   | 'Loan'
   | 'Trade'
   | 'ProcessingDay'
+  /** A farm's booking of head on a processing day: { farmId }. */
+  | 'ProcessingBooking'
   | 'Booking'
   | 'ChatMessage'
   | 'Money'
@@ -151,6 +155,7 @@ export function defineAbilityFor(user: AbilityUser | null): AppAbility {
       // Grow-out and results: read them (without money); weigh groups (pending review) and log the barn's temperature.
       can('read', ['GrowOutGroup', 'FeedRecord', 'TemperatureReading', 'ProcessingRecord', 'Performance'], { farmId });
       can('create', 'TemperatureReading', { farmId });
+      can('read', 'ProcessingBooking', { farmId });
       // Stud Share: the loans of the mentor's farm (either side), to see who is away or visiting; never act on them.
       can('read', 'Loan', { ownerFarmId: farmId });
       can('read', 'Loan', { borrowerFarmId: farmId });
@@ -188,6 +193,11 @@ export function defineAbilityFor(user: AbilityUser | null): AppAbility {
     can('manage', ['CycleSettings', 'Service', 'Treatment', 'AlmanacTask', 'CalendarFeed', 'Litter', 'LitterEvent', 'HousingUnit'], { farmId });
     // Grow-out groups, feed bought and given, temperature readings, processing records, performance tables.
     can('manage', ['GrowOutGroup', 'FeedRecord', 'TemperatureReading', 'ProcessingRecord', 'Performance'], { farmId });
+    // Processing days: the farm's own bookings; a host farm runs days at its site, and schedules them there
+    // when the admin allows it (the site's setting travels in the subject).
+    can('manage', 'ProcessingBooking', { farmId });
+    can('host', 'ProcessingDay', { hostFarmId: farmId });
+    can(['create', 'update'], 'ProcessingDay', { hostFarmId: farmId, hostMaySchedule: true });
     privateRecordRules(can, cannot, farmId);
   }
   can('manage', 'DigestSubscription', { userId: user.id });
@@ -213,6 +223,7 @@ export function defineAbilityFor(user: AbilityUser | null): AppAbility {
     can('read', 'Money', { coopId });
     can('moderate', 'ChatMessage', { coopId });
     can('manage', 'ProcessingDay', { coopId });
+    can('manage', 'ProcessingBooking', { coopId });
     can('create', 'Breed', { coopId });
     can('merge', 'OutsideAnimal', { coopId });
     // Helps every apprentice of the co-op: reads their logs and skills (the mentor decides), edits the checklist.

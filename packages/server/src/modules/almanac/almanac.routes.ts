@@ -10,7 +10,7 @@ import { breedingStock, closeService, getService, listServices, recordPalpation,
 import { calendarFeedFor, calendarFeedStatus, feedNotFound, renewCalendarFeed, revokeCalendarFeed } from './calendar-feed.service';
 import { getCycleSettings, updateCycleSettings } from './cycle-settings.service';
 import { getDigestPreference, setDigestPreference } from './morning-digest.service';
-import { almanacSummary, bulkUpdateTasks, listAgenda, reviewTask, updateTask } from './tasks.service';
+import { almanacSummary, bulkUpdateTasks, listAgenda, listSharedDays, reviewTask, updateTask } from './tasks.service';
 import { listTreatments, listWithdrawals, recordTreatment } from './treatments.service';
 
 const id = (value: unknown) => uuidParamSchema.parse(value);
@@ -21,6 +21,9 @@ export function almanacRoutes(config: Pick<Config, 'appUrl'>): Router {
   router.use(requireUser);
   router.get('/tasks', async (req, res) => {
     res.json(await listAgenda(actorOf(req), agendaQuerySchema.parse(req.query)));
+  });
+  router.get('/shared-days', async (req, res) => {
+    res.json(await listSharedDays(actorOf(req), agendaQuerySchema.parse(req.query)));
   });
   router.get('/summary', async (req, res) => {
     res.json(await almanacSummary(actorOf(req)));

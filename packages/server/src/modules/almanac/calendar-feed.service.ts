@@ -14,6 +14,7 @@ import { farmClockOf } from '../farms/farm-clock';
 import { animalLabel } from './almanac.presenter';
 import { CalendarFeedToken } from './calendar-feed-token.model';
 import { AlmanacTask } from './task.model';
+import { sharedDaysOfFarm } from './shared-days';
 import { presentContextOf } from './tasks.service';
 
 /** How far back and ahead the feed reaches (a phone calendar keeps what it has already seen). */
@@ -152,6 +153,13 @@ export async function calendarFeedFor(token: string, opts: { appUrl: string; now
         summary: `${task.state === 'done' ? '✓ ' : ''}${title}${subject ? `: ${subject}` : ''}`,
         description: lines.join('\n'),
         url: `${opts.appUrl}${link}`,
+      });
+    }
+    const from = addDays(clock.today, -FEED_DAYS_BACK);
+    for (const day of await sharedDaysOfFarm(tx, row.coopId, row.farmId, from, addDays(clock.today, FEED_DAYS_AHEAD))) {
+      calendar.createEvent({
+        id: `shared-day-${day.id}`, sequence: day.version, start: day.date, end: addDays(day.date, 1), allDay: true, stamp: now,
+        summary: day.title, description: day.description, url: `${opts.appUrl}${day.link}`,
       });
     }
     return calendar.toString();

@@ -1,7 +1,7 @@
 import { literal, Op, type Transaction, type WhereOptions } from 'sequelize';
 import {
   addDays, daysBetween, defineAbilityFor, ErrorCode, WEIGH_IN_REACH_DAYS, needsAttention, subjectOf, plannedTaskKinds, type AgendaDto, type AgendaQuery, type AlmanacSummaryDto,
-  type AlmanacTaskDto, type EntryReviewInput, type TaskBulkInput, type TaskUpdateInput,
+  type AlmanacTaskDto, type EntryReviewInput, type TaskBulkInput, type TaskUpdateInput, type SharedDaysDto
 } from '@burrowline/shared';
 import { accessibleWhere } from '../../db/scope';
 import { database } from '../../db/sequelize';
@@ -19,6 +19,7 @@ import { presentTask, type AlmanacPresentContext } from './almanac.presenter';
 import { settingsOf } from './cycle-settings.service';
 import { AlmanacTask } from './task.model';
 import { toTaskRecord } from './task-writer.service';
+import { sharedDaysOfFarm } from './shared-days';
 
 const kindOrder = new Map<string, number>(plannedTaskKinds.map((kind, index) => [kind, index]));
 
@@ -135,6 +136,22 @@ export async function listAgenda(actor: SessionUser, q: AgendaQuery): Promise<Ag
       attention,
       pendingReview,
     };
+  });
+}
+
+/**
+ * The shared days (processing days) the farm booked or hosts between two dates on its clock: the Almanac
+ * shows them beside its tasks. Default: today and the next 13 days, as the agenda.
+ */
+export async function listSharedDays(actor: SessionUser, q: AgendaQuery): Promise<SharedDaysDto> {
+  const farmId = farmOf(actor);
+  ensureCan(actor, 'read', 'AlmanacTask', { farmId }, 'That Almanac');
+  return withTenant(actor, async (tx) => {
+    const clock = await farmClockOf(tx, actor.coopId, farmId);
+    const from = q.from ?? clock.today;
+    const to = q.to ?? addDays(from, (q.days ?? 14) - 1);
+    const days = await sharedDaysOfFarm(tx, actor.coopId, farmId, from, to);
+    return { from, to, days: days.map((d) => ({ id: d.id, date: d.date, startTime: d.startTime, title: d.title, link: d.link })) };
   });
 }
 

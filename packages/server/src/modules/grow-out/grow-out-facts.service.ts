@@ -1,9 +1,10 @@
 import { Op, type Transaction } from 'sequelize';
-import { addDays, daysBetween, gompertzWeight, referenceCurve } from '@burrowline/shared';
+import { addDays, daysBetween, gompertzWeight, readyBy, referenceCurve, type Readiness } from '@burrowline/shared';
 import { acceptedGroupWeightsOf } from '../animals/group-weigh-ins.service';
 import { litterParentsOf } from '../litters/litter-facts.service';
 import { GrowOutGroup } from './grow-out-group.model';
 import { contextOf, groupFeedTotals, headsOn, membersOf } from './grow-out-context';
+import { projectionOf } from './grow-out.presenter';
 import { groupBy } from '../../lib/group-by';
 
 export { groupHeadsOn } from './grow-out.presenter';
@@ -121,3 +122,33 @@ export async function groupsPresentDuring(
   }).filter((g) => g.headDays > 0);
 }
 
+
+export interface GroupReadiness {
+  id: string;
+  name: string;
+  /** Heads the group has on `today`. */
+  headsLeft: number;
+  readiness: Readiness;
+  projectedOn: string | null;
+  crossLabel: string;
+}
+
+/** The farm's growing groups ranked by the projection: those reaching the target by `date` first (booking a processing day). */
+export async function growingGroupsReadyBy(tx: Transaction, coopId: string, farmId: string, date: string, today: string): Promise<GroupReadiness[]> {
+  const groups = await GrowOutGroup.findAll({ where: { coopId, farmId, status: 'growing' }, order: [['formedOn', 'ASC'], ['id', 'ASC']], transaction: tx });
+  if (groups.length === 0) return [];
+  const ctx = await contextOf(tx, coopId, groups);
+  const ranked = readyBy(groups.map((g) => ({ g, projection: projectionOf(ctx.info(g)) })), date);
+  return ranked.map((e) => ({
+    id: e.group.g.id, name: e.group.g.name, headsLeft: headsOn(ctx.info(e.group.g), today), readiness: e.readiness,
+    projectedOn: e.projectedOn, crossLabel: ctx.info(e.group.g).cross.label,
+  }));
+}
+
+/** The breed or cross label of groups (growing or closed), by id. */
+export async function crossLabelsOfGroups(tx: Transaction, coopId: string, groupIds: string[]): Promise<Map<string, { name: string; crossLabel: string }>> {
+  if (groupIds.length === 0) return new Map();
+  const groups = await GrowOutGroup.findAll({ where: { coopId, id: { [Op.in]: groupIds } }, transaction: tx });
+  const ctx = await contextOf(tx, coopId, groups);
+  return new Map(groups.map((g) => [g.id, { name: g.name, crossLabel: ctx.info(g).cross.label }]));
+}

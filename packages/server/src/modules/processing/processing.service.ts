@@ -306,3 +306,30 @@ export async function processedHeadsOf(tx: Transaction, coopId: string, groupIds
   });
   return rows.map((r) => ({ groupId: r.groupId!, processedOn: r.processedOn, headCount: r.headCount }));
 }
+
+/** The farm's animals planned for processing (individual culls), for booking a shared day. */
+export async function plannedAnimalMarksOf(tx: Transaction, coopId: string, farmId: string): Promise<{ animalId: string; plannedOn: string }[]> {
+  const rows = await ProcessingMark.findAll({
+    where: { coopId, farmId, status: 'planned', animalId: { [Op.ne]: null } },
+    attributes: ['animalId', 'plannedOn'],
+    order: [['plannedOn', 'ASC'], ['id', 'ASC']],
+    transaction: tx,
+    raw: true,
+  });
+  return rows.map((r) => ({ animalId: r.animalId!, plannedOn: r.plannedOn }));
+}
+
+/** Processing records by id (a shared day's yields), as plain facts. */
+export async function processingFactsByIds(tx: Transaction, coopId: string, ids: string[]): Promise<ProcessingFacts[]> {
+  if (ids.length === 0) return [];
+  const rows = await ProcessingRecord.findAll({
+    where: { coopId, id: { [Op.in]: ids } },
+    attributes: ['id', 'farmId', 'processedOn', 'animalId', 'groupId', 'headCount', 'liveGrams', 'hotCarcassGrams', 'chilledCarcassGrams', 'ageDays'],
+    transaction: tx,
+    raw: true,
+  });
+  return rows.map((r) => ({
+    id: r.id, farmId: r.farmId, processedOn: r.processedOn, animalId: r.animalId, groupId: r.groupId, headCount: r.headCount,
+    liveGrams: r.liveGrams, hotCarcassGrams: r.hotCarcassGrams, chilledCarcassGrams: r.chilledCarcassGrams, ageDays: r.ageDays,
+  }));
+}

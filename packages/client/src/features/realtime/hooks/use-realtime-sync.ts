@@ -16,6 +16,7 @@ import { auditKeys, memberKeys } from '../../members';
 import { performanceKeys } from '../../performance';
 import { ledgerKeys } from '../../ledger';
 import { mentorshipKeys } from '../../mentorship';
+import { processingDayKeys } from '../../processing-days';
 import { notificationKeys, type LatestNotification } from '../../notifications';
 import { studShareKeys } from '../../stud-share';
 import { chatKeys } from '../../chat';
@@ -82,6 +83,8 @@ export function useRealtimeSync(): void {
       };
       // The Ledger of the person's farm or (admins) the co-op changed, or a card payment was settled: refetch its figures.
       const refreshLedger = () => void queryClient.invalidateQueries({ queryKey: ledgerKeys.all });
+      // A processing day was scheduled or changed, or its places, waiting list or roster moved: its screens refetch.
+      const refreshProcessingDays = () => void queryClient.invalidateQueries({ queryKey: processingDayKeys.all });
       // A notification arrived or was read on another screen: the bell's count and list.
       const refreshNotifications = () => void queryClient.invalidateQueries({ queryKey: notificationKeys.all });
       const notificationsChanged = ({ unread, title, link }: { unread: number; title: string | null; link: string | null }) => {
@@ -117,6 +120,7 @@ export function useRealtimeSync(): void {
         refreshHealth();
         refreshProcessing();
         refreshLedger();
+        refreshProcessingDays();
         void queryClient.invalidateQueries({ queryKey: studShareKeys.all });
       };
       const endSession = ({ reason }: { reason: string }) =>
@@ -142,6 +146,7 @@ export function useRealtimeSync(): void {
       socket.on(RealtimeEvent.processingChanged, refreshProcessing);
       socket.on(RealtimeEvent.ledgerChanged, refreshLedger);
       socket.on(RealtimeEvent.cardCheckoutSettled, refreshLedger);
+      socket.on(RealtimeEvent.processingDayChanged, refreshProcessingDays);
       socket.on(RealtimeEvent.notificationsChanged, notificationsChanged);
       socket.on(RealtimeEvent.studOfferChanged, refreshStudOffers);
       socket.on(RealtimeEvent.studLoanChanged, refreshStudLoans);
@@ -170,6 +175,7 @@ export function useRealtimeSync(): void {
         socket.off(RealtimeEvent.processingChanged, refreshProcessing);
         socket.off(RealtimeEvent.ledgerChanged, refreshLedger);
         socket.off(RealtimeEvent.cardCheckoutSettled, refreshLedger);
+        socket.off(RealtimeEvent.processingDayChanged, refreshProcessingDays);
         socket.off(RealtimeEvent.notificationsChanged, notificationsChanged);
         socket.off(RealtimeEvent.studOfferChanged, refreshStudOffers);
         socket.off(RealtimeEvent.studLoanChanged, refreshStudLoans);

@@ -1,0 +1,2 @@
+export * from './processing-days-dto';
+export * from './cautions';
