@@ -13,6 +13,8 @@ import { photoPublishedTo } from '../modules/photos/photos.service';
 import { isPhotoPublished } from '../modules/stud-share/stud-share-facts.service';
 import { registerThreadSubject } from '../modules/chat/chat-subjects.service';
 import { litterThreadSubject } from '../modules/litters/litter-thread.service';
+import { processingDayThreadSubject } from '../modules/processing-days/day-thread.service';
+import { loanThreadSubject } from '../modules/stud-share/loan-thread.service';
 
 let plugged = false;
 
@@ -36,5 +38,7 @@ export function plugModulePorts(): void {
   photoPublishedTo.plug(isPhotoPublished);
   // Co-op Chat's threads beside subjects: who reads the subject reads its thread.
   registerThreadSubject('litter', litterThreadSubject);
+  registerThreadSubject('processing-day', processingDayThreadSubject);
+  registerThreadSubject('loan', loanThreadSubject);
   groupNamesOfFarm.plug(async (tx, coopId, farmId) => new Map((await groupsOfFarm(tx, coopId, farmId)).map((g) => [g.id, g.name])));
 }

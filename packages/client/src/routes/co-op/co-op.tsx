@@ -4,7 +4,9 @@ import { Card } from '../../components/ui/card';
 import { PageHeader } from '../../components/ui/page-header';
 import { PageTitle } from '../../components/ui/page-title';
 import { coopSettingsQueryOptions, useCoopSettings } from '../../features/members/api/get-coop-settings';
+import { ChatSummary } from '../../features/chat';
 import { MentorshipSummary } from '../../features/mentorship';
+import { ProcessingDaysSummary } from '../../features/processing-days';
 import { StudShareSummary } from '../../features/stud-share';
 import { formatInstantDate } from '../../lib/dates';
 import { useSession } from '../../lib/session';
@@ -23,7 +25,9 @@ export function CoopPage() {
       <PageTitle>Co-op</PageTitle>
       <PageHeader title="Co-op" lead={`What the farms of ${me.coop.name} do together.`} />
       <div className="grid gap-6 lg:grid-cols-2">
+        <ProcessingDaysSummary />
         <StudShareSummary />
+        <ChatSummary />
         <MentorshipSummary />
       </div>
       <Card className="space-y-3" aria-labelledby="coop-rules">

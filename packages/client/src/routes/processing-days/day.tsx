@@ -25,6 +25,7 @@ import { errorText } from '../../lib/form-errors';
 import { useMoney } from '../../lib/money';
 import { useSession } from '../../lib/session';
 import { idFrom, useIdParam } from '../almanac/id-param';
+import { ChatThread } from '../../features/chat';
 
 export async function loader({ params }: LoaderFunctionArgs) {
   const dayId = idFrom(params, 'dayId');
@@ -113,7 +114,10 @@ export function ProcessingDayPage() {
 
       <Roster day={day} userId={me.user.id} farmId={me.user.farmId} />
       <BookingsPanel day={day} bookings={bookings?.items ?? []} unit={unit} />
-      {/* Co-op Chat's thread for the day belongs here once the chat exists. */}
+      <section aria-labelledby="day-thread" className="space-y-3">
+        <h2 id="day-thread" className="text-xl font-bold">Talk about the day</h2>
+        <ChatThread subject={{ type: 'processing-day', id: day.id }} />
+      </section>
       {day.canClose && (
         <Card className="space-y-4">
           <h2 className="text-xl font-bold">Close the day</h2>

@@ -22,6 +22,7 @@ import { errorText } from '../../lib/form-errors';
 import { useMoney } from '../../lib/money';
 import { useSession } from '../../lib/session';
 import { idFrom, useIdParam } from './stud-share-params';
+import { ChatThread } from '../../features/chat';
 
 export async function loader({ params }: LoaderFunctionArgs) {
   await queryClient.ensureQueryData(loanQueryOptions(idFrom(params, 'loanId')));
@@ -93,6 +94,10 @@ export function LoanPage() {
       <Card className="space-y-4">
         <h2 className="text-xl font-bold">History</h2>
         <LoanHistory loan={l} />
+      </Card>
+      <Card className="space-y-3">
+        <h2 className="text-xl font-bold">Talk between the two farms</h2>
+        <ChatThread subject={{ type: 'loan', id: l.id }} />
       </Card>
     </div>
   );

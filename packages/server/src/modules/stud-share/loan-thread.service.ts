@@ -1,0 +1,45 @@
+import { QueryTypes, type Transaction } from 'sequelize';
+import { defineAbilityFor, subjectOf } from '@burrowline/shared';
+import { database } from '../../db/sequelize';
+import type { SessionUser } from '../../lib/session-user';
+import type { ThreadSubject } from '../chat/chat-subjects.service';
+
+interface LoanRow {
+  id: string;
+  coop_id: string;
+  owner_farm_id: string;
+  borrower_farm_id: string;
+  buck_name: string;
+}
+
+async function loansOf(tx: Transaction, ids: string[]): Promise<LoanRow[]> {
+  return database().query<LoanRow>(
+    `SELECT l.id, l.coop_id, l.owner_farm_id, l.borrower_farm_id, coalesce(nullif(a.name, ''), a.tattoo, 'the buck') AS buck_name
+       FROM stud_loans l LEFT JOIN animals a ON a.id = l.buck_id
+      WHERE l.id = ANY($1::uuid[])`,
+    { bind: [ids], type: QueryTypes.SELECT, transaction: tx },
+  );
+}
+
+const mayReadLoan = (actor: SessionUser, loan: LoanRow) =>
+  defineAbilityFor(actor).can('read', subjectOf('Loan', { coopId: loan.coop_id, ownerFarmId: loan.owner_farm_id, borrowerFarmId: loan.borrower_farm_id }));
+
+/** A loan's thread: only its two farms talk about it (their apprentices follow, as they follow the loan). */
+export const loanThreadSubject: ThreadSubject = {
+  async mayRead(tx, actor, subjectId) {
+    const [loan] = await loansOf(tx, [subjectId]);
+    return loan !== undefined && mayReadLoan(actor, loan);
+  },
+  async readableAmong(tx, actor, subjectIds) {
+    return (await loansOf(tx, subjectIds)).filter((loan) => mayReadLoan(actor, loan)).map((loan) => loan.id);
+  },
+  async participants(tx, subjectId) {
+    const [loan] = await loansOf(tx, [subjectId]);
+    return { farmIds: loan ? [loan.owner_farm_id, loan.borrower_farm_id] : [], userIds: [] };
+  },
+  async title(tx, subjectId) {
+    const [loan] = await loansOf(tx, [subjectId]);
+    return loan ? `Loan of ${loan.buck_name}` : 'A loan';
+  },
+  link: (subjectId) => `/stud-share/loans/${subjectId}`,
+};
