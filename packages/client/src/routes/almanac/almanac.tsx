@@ -12,6 +12,7 @@ import { useAgenda, type AgendaRange } from '../../features/almanac/api/get-agen
 import { firstOfMonth, shiftMonth } from '../../lib/days';
 import { AgendaView } from '../../features/almanac/components/agenda-view';
 import { AttentionList } from '../../features/almanac/components/attention-list';
+import { OverdueLoans } from '../../features/stud-share';
 import { MonthCalendar } from '../../features/almanac/components/month-calendar';
 import { OpenServices } from '../../features/almanac/components/open-services';
 import { useAlmanacRights } from '../../features/almanac/hooks/use-almanac-rights';
@@ -90,6 +91,7 @@ export function AlmanacPage() {
         }
       />
       {rights.isApprentice && <Alert tone="info">You see your mentor's Almanac. Tasks you tick off wait for your mentor's review.</Alert>}
+      <OverdueLoans />
       {data && <AttentionList items={data.attention} />}
       {data && data.pendingReview > 0 && rights.canReview && (
         <Alert tone="info">

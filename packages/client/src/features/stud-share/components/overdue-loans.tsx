@@ -5,7 +5,7 @@ import { useSession } from '../../../lib/session';
 import { useLoans } from '../api/get-loans';
 import { sideOf } from '../stud-share-labels';
 
-/** On Commons: a buck past his loan's last day, seen by both farms until his return is recorded. */
+/** On Commons and the Almanac: a buck past his loan's last day, seen by both farms until his return is recorded. */
 export function OverdueLoans() {
   const me = useSession();
   const enabled = Boolean(me.user.farmId);
