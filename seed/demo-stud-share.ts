@@ -45,6 +45,8 @@ export async function loadDemoStudShare(coopId: string): Promise<void> {
        FROM litters l JOIN services s ON s.id = l.service_id JOIN animals b ON b.id = l.sire_id
       WHERE l.deleted_at IS NULL AND b.owning_farm_id <> l.farm_id AND b.disposition = 'on_farm' AND b.keeping_farm_id = b.owning_farm_id
         AND s.serviced_on < $1::date - 60
+        -- His own farm's services with him hold their days: the past loan must fit between them.
+        AND NOT EXISTS (SELECT 1 FROM stud_bookings sb WHERE sb.buck_id = l.sire_id AND sb.during && daterange(s.serviced_on - 20, s.serviced_on + 30, '[]'))
       ORDER BY s.serviced_on DESC LIMIT 1`,
     [today],
   ));
