@@ -24,7 +24,7 @@ export function CoopPage() {
     <div className="space-y-8">
       <PageTitle>Co-op</PageTitle>
       <PageHeader title="Co-op" lead={`What the farms of ${me.coop.name} do together.`} />
-      <div className="grid gap-6 lg:grid-cols-2">
+      <div className="grid grid-cols-1 gap-6 lg:grid-cols-2 [&>*]:min-w-0">
         <ProcessingDaysSummary />
         <StudShareSummary />
         <ChatSummary />

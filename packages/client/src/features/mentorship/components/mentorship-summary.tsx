@@ -1,3 +1,4 @@
+import { countOf } from '@burrowline/shared';
 import { GraduationCap } from 'lucide-react';
 import { Card } from '../../../components/ui/card';
 import { LinkButton } from '../../../components/ui/link-button';
@@ -12,9 +13,9 @@ export function MentorshipSummary() {
     h.role === 'apprentice'
       ? [h.returned > 0 ? `${h.returned} returned to correct · ${h.waiting} waiting` : `${h.waiting} waiting for your mentor`, h.returned > 0 ? 'Correct returned' : 'Log a chore', h.returned > 0 ? '/mentorship/log?state=returned' : '/mentorship']
       : h.role === 'mentor'
-        ? [`${h.waiting} waiting for your review · ${h.apprentices.filter((a) => a.mentor).length} apprentices`, 'Review', '/mentorship/review']
+        ? [`${h.waiting} waiting for your review · ${countOf(h.apprentices.filter((a) => a.mentor).length, 'apprentice')}`, 'Review', '/mentorship/review']
         : h.role === 'admin'
-          ? [`${h.apprentices.length} apprentices in the co-op`, 'Apprentices', '/mentorship/apprentices']
+          ? [`${countOf(h.apprentices.length, 'apprentice')} in the co-op`, 'Apprentices', '/mentorship/apprentices']
           : ['Apprentices learn the trade on a mentor\'s farm.', 'Mentorship', '/mentorship/apprentices'];
   return (
     <Card className="space-y-3">
