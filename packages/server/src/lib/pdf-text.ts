@@ -1,7 +1,6 @@
 /**
  * Text for PDFKit's standard fonts, which encode WinAnsi (Windows-1252): keeps what it has and strips
- * accents from the rest, so a name never prints as garbage. (The pedigree certificate keeps its own copy
- * for now; it can move here when that module is next changed.)
+ * accents from the rest, so a name never prints as garbage.
  */
 const WIN_ANSI_EXTRA = new Set('€‚ƒ„…†‡ˆ‰Š‹ŒŽ‘’“”•–—˜™š›œžŸ');
 

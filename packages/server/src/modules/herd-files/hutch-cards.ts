@@ -1,6 +1,7 @@
 import PDFDocument from 'pdfkit';
 import QRCode from 'qrcode';
-import { breedLabel, formatDate, printable } from './pedigree-certificate';
+import { pdfSafe as printable } from '../../lib/pdf-text';
+import { breedLabel, formatDate } from './pedigree-certificate';
 import type { BreedMakeupDto } from '@burrowline/shared';
 
 export interface HutchCard {

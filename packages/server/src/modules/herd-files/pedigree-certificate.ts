@@ -1,4 +1,5 @@
 import PDFDocument from 'pdfkit';
+import { pdfSafe } from '../../lib/pdf-text';
 import type { AnimalDetailDto, BreedMakeupDto, PedigreeCardDto, PedigreeTreeDto } from '@burrowline/shared';
 
 /** What the certificate shows; gathered by the service, drawn here. */
@@ -19,20 +20,7 @@ const GENERATIONS = 4;
 const TREE = { left: 250, top: 96, bottom: 560, gap: 10 };
 const PANEL = { left: PAGE.margin, width: 196 };
 
-// The standard PDF fonts encode WinAnsi (Windows-1252): keep what it has, strip accents from the rest.
-const WIN_ANSI_EXTRA = new Set('€‚ƒ„…†‡ˆ‰Š‹ŒŽ‘’“”•–—˜™š›œžŸ');
-export function printable(text: string): string {
-  let out = '';
-  for (const ch of text.normalize('NFC')) {
-    const code = ch.codePointAt(0)!;
-    if (code === 0x0a || (code >= 0x20 && code <= 0x7e) || (code >= 0xa0 && code <= 0xff) || WIN_ANSI_EXTRA.has(ch)) out += ch;
-    else {
-      const plain = ch.normalize('NFKD').replace(/[\u0300-\u036f]/g, '');
-      out += /^[\x20-\x7e]+$/.test(plain) ? plain : '?';
-    }
-  }
-  return out;
-}
+const printable = pdfSafe;
 
 function percent(fraction: number): string {
   return `${(fraction * 100).toFixed(2).replace(/\.?0+$/, '')}%`;
