@@ -36,7 +36,8 @@ async function historySeenBy(agent: Agent, buck: LentBuck) {
     noteLog: ids(detail.body.noteLog),
     latestWeighedOn: detail.body.latestWeight?.weighedOn ?? null,
     herdLatestWeighedOn: inHerd?.latestWeight?.weighedOn ?? null,
-    herdNotesField: inHerd?.notes ?? null,
+    // The herd list's rows carry no notes at all: a farm's notes are read on the animal's own record only.
+    herdNotesField: inHerd && 'notes' in inHerd ? inHerd.notes : 'not in the list',
     weighIns: ids(weighIns.body.weighIns),
     photos: ids(photos.body.photos),
     treatments: ids(treatments.body.treatments),
@@ -49,7 +50,7 @@ describe('a lent animal\'s private history stays with the farm that recorded it'
     const { lender: a, borrower: b } = { lender: buck.lender, borrower: buck.borrower! };
 
     expect(await historySeenBy(borrower, buck)).toEqual({
-      notesField: '', noteLog: [b.noteId], latestWeighedOn: '2024-02-10', herdLatestWeighedOn: '2024-02-10', herdNotesField: '',
+      notesField: '', noteLog: [b.noteId], latestWeighedOn: '2024-02-10', herdLatestWeighedOn: '2024-02-10', herdNotesField: 'not in the list',
       weighIns: [b.weighInId], photos: [], treatments: [b.treatmentId],
     });
     await borrower.get(`/api/photos/${a.photoId}`).expect(404);

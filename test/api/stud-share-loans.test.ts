@@ -113,7 +113,10 @@ describe('hand-over to return', () => {
     expect(confirmed.body).toMatchObject({ state: 'handed_over', handOver: { on: farmToday(), weightGrams: 4_650, confirmedBy: { id: coop.otherFarmMember.id } } });
 
     const herd = await borrower.get('/api/animals?pageSize=200').expect(200);
-    expect(herd.body.items.find((a: AnimalDto) => a.id === buck.id)).toMatchObject({ custody: 'on_loan_here', owningFarm: { id: coop.member.farmId }, keepingFarm: { id: coop.otherFarmMember.farmId } });
+    // The herd list's row says "on loan here"; his record names both farms.
+    expect(herd.body.items.find((a: AnimalDto) => a.id === buck.id)).toMatchObject({ custody: 'on_loan_here' });
+    const record = await borrower.get(`/api/animals/${buck.id}`).expect(200);
+    expect(record.body).toMatchObject({ custody: 'on_loan_here', owningFarm: { id: coop.member.farmId }, keepingFarm: { id: coop.otherFarmMember.farmId } });
     const stock = await borrower.get('/api/almanac/breeding-stock').expect(200);
     expect(stock.body.bucks.find((b: { id: string }) => b.id === buck.id)).toMatchObject({ onLoanFrom: { id: coop.member.farmId } });
     const custody = await asTenant(coop.id, async (c) => (await c.query(`SELECT kind, to_farm_id FROM animal_custody_events WHERE animal_id = $1 ORDER BY created_at`, [buck.id])).rows);
