@@ -99,7 +99,7 @@ describe('the Almanac: a member records a service and follows the plan to the li
       await page.getByRole('heading', { name: 'Almanac', level: 1 }).waitFor();
       await expect.poll(() => page.locator('section[aria-labelledby="agenda-overdue"]').getByText(/Palpate · Marigold/).count()).toBe(0);
       await page.goto(`${app.url}/almanac?view=month&month=${addDays(farmToday(), 21).slice(0, 7)}-01`);
-      await expect.poll(() => page.getByRole('button', { name: /tasks?$/ }).filter({ hasText: 'Nest box out · Marigold' }).count()).toBe(1);
+      await expect.poll(() => page.getByRole('button', { name: /tasks?$/ }).filter({ hasText: 'Marigold: Nest box out' }).count()).toBe(1);
       await page.screenshot({ path: '.data/e2e-almanac-month.png', fullPage: true });
       expect(errors).toEqual([]);
     } finally {
