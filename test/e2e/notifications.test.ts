@@ -16,6 +16,8 @@ describe('the bell', () => {
       await app.signIn(page, coop.member.email);
       const bell = page.getByRole('link', { name: /^Notifications/ });
       await expect.poll(() => bell.textContent()).not.toMatch(/\d/);
+      // Live once the page's socket has joined her rooms.
+      await page.locator('html[data-live="connected"]').waitFor({ state: 'attached' });
 
       await withTenant({ coopId: coop.id }, (tx) => notify(tx, {
         coopId: coop.id, farmIds: [coop.farms[0]!.id], kind: 'stud.requested', title: 'Wren Hollow asks for Bramble, 3–17 March',

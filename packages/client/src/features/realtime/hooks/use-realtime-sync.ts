@@ -157,6 +157,18 @@ export function useRealtimeSync(): void {
       socket.on(RealtimeEvent.sessionEnded, endSession);
       // Events sent while the connection was down are lost; refetch what they would have refreshed.
       socket.io.on('reconnect', refreshAll);
+      // The page says whether it is live (a person's screen, and the browser tests, can tell); a notification
+      // told before the first connection is counted again once connected.
+      const connected = () => {
+        document.documentElement.dataset.live = 'connected';
+        void queryClient.invalidateQueries({ queryKey: notificationKeys.unread() });
+      };
+      const disconnected = () => {
+        document.documentElement.dataset.live = 'disconnected';
+      };
+      socket.on('connect', connected);
+      socket.on('disconnect', disconnected);
+      if (socket.connected) connected();
       stop = () => {
         socket.off(RealtimeEvent.farmUpdated, refreshFarms);
         socket.off(RealtimeEvent.chatActivity, refreshChat);
@@ -182,6 +194,9 @@ export function useRealtimeSync(): void {
         socket.off(RealtimeEvent.mentorshipChanged, refreshMentorship);
         socket.off(RealtimeEvent.sessionEnded, endSession);
         socket.io.off('reconnect', refreshAll);
+        socket.off('connect', connected);
+        socket.off('disconnect', disconnected);
+        delete document.documentElement.dataset.live;
         disconnectRealtime();
       };
     });
