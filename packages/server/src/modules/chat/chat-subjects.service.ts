@@ -55,3 +55,34 @@ export async function readableSubjects(tx: Transaction, actor: SessionUser, type
   for (const id of ids) if (await subject.mayRead(tx, actor, id)) readable.push(id);
   return readable;
 }
+
+/**
+ * A subject whose facts come from one read of its rows by id: the read, who may read one row, its farms,
+ * its title and its page. `mayRead`, `readableAmong`, `participants` and `title` all follow from these.
+ */
+export function subjectFromRows<Row extends { id: string }>(spec: {
+  rowsOf: (tx: Transaction, ids: string[]) => Promise<Row[]>;
+  mayRead: (actor: SessionUser, row: Row) => boolean;
+  participants: (tx: Transaction, row: Row) => Promise<ThreadParticipants> | ThreadParticipants;
+  title: (row: Row | undefined) => string;
+  link: (subjectId: string) => string;
+}): ThreadSubject {
+  const one = async (tx: Transaction, id: string) => (await spec.rowsOf(tx, [id]))[0];
+  return {
+    async mayRead(tx, actor, subjectId) {
+      const row = await one(tx, subjectId);
+      return row !== undefined && spec.mayRead(actor, row);
+    },
+    async readableAmong(tx, actor, subjectIds) {
+      return (await spec.rowsOf(tx, subjectIds)).filter((row) => spec.mayRead(actor, row)).map((row) => row.id);
+    },
+    async participants(tx, subjectId) {
+      const row = await one(tx, subjectId);
+      return row ? spec.participants(tx, row) : { farmIds: [], userIds: [] };
+    },
+    async title(tx, subjectId) {
+      return spec.title(await one(tx, subjectId));
+    },
+    link: spec.link,
+  };
+}

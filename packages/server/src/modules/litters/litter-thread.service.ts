@@ -1,7 +1,7 @@
 import { QueryTypes, type Transaction } from 'sequelize';
 import { database } from '../../db/sequelize';
 import type { SessionUser } from '../../lib/session-user';
-import type { ThreadSubject } from '../chat/chat-subjects.service';
+import { subjectFromRows } from '../chat/chat-subjects.service';
 import { ensureCan } from '../farms/farm-access';
 
 interface LitterRow {
@@ -30,21 +30,10 @@ function mayReadLitter(actor: SessionUser, farmId: string): boolean {
 }
 
 /** A litter's thread: only its farm's people talk about it (a litter is farm-private). */
-export const litterThreadSubject: ThreadSubject = {
-  async mayRead(tx, actor, subjectId) {
-    const [litter] = await littersOf(tx, [subjectId]);
-    return litter !== undefined && mayReadLitter(actor, litter.farm_id);
-  },
-  async readableAmong(tx, actor, subjectIds) {
-    return (await littersOf(tx, subjectIds)).filter((l) => mayReadLitter(actor, l.farm_id)).map((l) => l.id);
-  },
-  async participants(tx, subjectId) {
-    const [litter] = await littersOf(tx, [subjectId]);
-    return { farmIds: litter ? [litter.farm_id] : [], userIds: [] };
-  },
-  async title(tx, subjectId) {
-    const [litter] = await littersOf(tx, [subjectId]);
-    return litter ? `Litter of ${litter.dam_name}, kindled ${litter.kindled_on}` : 'A litter';
-  },
+export const litterThreadSubject = subjectFromRows<LitterRow>({
+  rowsOf: littersOf,
+  mayRead: (actor, litter) => mayReadLitter(actor, litter.farm_id),
+  participants: (_tx, litter) => ({ farmIds: [litter.farm_id], userIds: [] }),
+  title: (litter) => (litter ? `Litter of ${litter.dam_name}, kindled ${litter.kindled_on}` : 'A litter'),
   link: (subjectId) => `/litters/${subjectId}`,
-};
+});

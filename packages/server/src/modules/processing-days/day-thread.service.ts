@@ -2,7 +2,7 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import { defineAbilityFor, subjectOf } from '@burrowline/shared';
 import { database } from '../../db/sequelize';
 import type { SessionUser } from '../../lib/session-user';
-import type { ThreadSubject } from '../chat/chat-subjects.service';
+import { subjectFromRows } from '../chat/chat-subjects.service';
 
 interface DayRow {
   id: string;
@@ -27,26 +27,16 @@ const mayReadDay = (actor: SessionUser, day: DayRow) => defineAbilityFor(actor).
  * A processing day's thread: the whole co-op reads it, as it reads the day; the host and the farms with a place
  * (booked, offered or waiting) are its people, told of new messages.
  */
-export const processingDayThreadSubject: ThreadSubject = {
-  async mayRead(tx, actor, subjectId) {
-    const [day] = await daysOf(tx, [subjectId]);
-    return day !== undefined && mayReadDay(actor, day);
-  },
-  async readableAmong(tx, actor, subjectIds) {
-    return (await daysOf(tx, subjectIds)).filter((day) => mayReadDay(actor, day)).map((day) => day.id);
-  },
-  async participants(tx, subjectId) {
-    const [day] = await daysOf(tx, [subjectId]);
-    if (!day) return { farmIds: [], userIds: [] };
+export const processingDayThreadSubject = subjectFromRows<DayRow>({
+  rowsOf: daysOf,
+  mayRead: mayReadDay,
+  async participants(tx, day) {
     const booked = await database().query<{ farm_id: string }>(
       `SELECT DISTINCT farm_id FROM processing_bookings WHERE day_id = $1 AND status <> 'cancelled'`,
-      { bind: [subjectId], type: QueryTypes.SELECT, transaction: tx },
+      { bind: [day.id], type: QueryTypes.SELECT, transaction: tx },
     );
     return { farmIds: [...new Set([day.host_farm_id, ...booked.map((b) => b.farm_id)])], userIds: [] };
   },
-  async title(tx, subjectId) {
-    const [day] = await daysOf(tx, [subjectId]);
-    return day ? `Processing day ${day.date} at ${day.site_name}` : 'A processing day';
-  },
+  title: (day) => (day ? `Processing day ${day.date} at ${day.site_name}` : 'A processing day'),
   link: (subjectId) => `/processing-days/${subjectId}`,
-};
+});

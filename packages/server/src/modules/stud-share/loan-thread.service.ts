@@ -2,7 +2,7 @@ import { QueryTypes, type Transaction } from 'sequelize';
 import { defineAbilityFor, subjectOf } from '@burrowline/shared';
 import { database } from '../../db/sequelize';
 import type { SessionUser } from '../../lib/session-user';
-import type { ThreadSubject } from '../chat/chat-subjects.service';
+import { subjectFromRows } from '../chat/chat-subjects.service';
 
 interface LoanRow {
   id: string;
@@ -25,21 +25,10 @@ const mayReadLoan = (actor: SessionUser, loan: LoanRow) =>
   defineAbilityFor(actor).can('read', subjectOf('Loan', { coopId: loan.coop_id, ownerFarmId: loan.owner_farm_id, borrowerFarmId: loan.borrower_farm_id }));
 
 /** A loan's thread: only its two farms talk about it (their apprentices follow, as they follow the loan). */
-export const loanThreadSubject: ThreadSubject = {
-  async mayRead(tx, actor, subjectId) {
-    const [loan] = await loansOf(tx, [subjectId]);
-    return loan !== undefined && mayReadLoan(actor, loan);
-  },
-  async readableAmong(tx, actor, subjectIds) {
-    return (await loansOf(tx, subjectIds)).filter((loan) => mayReadLoan(actor, loan)).map((loan) => loan.id);
-  },
-  async participants(tx, subjectId) {
-    const [loan] = await loansOf(tx, [subjectId]);
-    return { farmIds: loan ? [loan.owner_farm_id, loan.borrower_farm_id] : [], userIds: [] };
-  },
-  async title(tx, subjectId) {
-    const [loan] = await loansOf(tx, [subjectId]);
-    return loan ? `Loan of ${loan.buck_name}` : 'A loan';
-  },
+export const loanThreadSubject = subjectFromRows<LoanRow>({
+  rowsOf: loansOf,
+  mayRead: mayReadLoan,
+  participants: (_tx, loan) => ({ farmIds: [loan.owner_farm_id, loan.borrower_farm_id], userIds: [] }),
+  title: (loan) => (loan ? `Loan of ${loan.buck_name}` : 'A loan'),
   link: (subjectId) => `/stud-share/loans/${subjectId}`,
-};
+});
