@@ -88,7 +88,8 @@ export function useRealtimeSync(): void {
       // A notification arrived or was read on another screen: the bell's count and list.
       const refreshNotifications = () => void queryClient.invalidateQueries({ queryKey: notificationKeys.all });
       const notificationsChanged = ({ unread, title, link }: { unread: number; title: string | null; link: string | null }) => {
-        queryClient.setQueryData(notificationKeys.unread(), { unread });
+        // The server's count at the event is the latest: a count asked for just before it must not land after it.
+        void queryClient.cancelQueries({ queryKey: notificationKeys.unread() }).then(() => queryClient.setQueryData(notificationKeys.unread(), { unread }));
         void queryClient.invalidateQueries({ queryKey: notificationKeys.all, predicate: (query) => query.queryKey[1] !== 'unread' });
         if (title && link) queryClient.setQueryData<LatestNotification>(notificationKeys.latest(), { title, link, at: Date.now() });
       };
