@@ -155,7 +155,8 @@ const { breedsOf } = await import('../../packages/server/src/modules/breeds/bree
 const { importHerd } = await import('../../packages/server/src/modules/animals/herd-import.service');
 const { importServices } = await import('../../packages/server/src/modules/almanac/almanac-import.service');
 const { importLitters } = await import('../../packages/server/src/modules/litters/litters-import.service');
-const { feedKeyOf } = await import('../../packages/server/src/modules/feed/feed-totals.service');
+const { refreshFeedBook } = await import('../../packages/server/src/modules/feed/feed-totals.service');
+const { feedKeyOf } = await import('@burrowline/shared');
 
 connectDatabase(process.env.DATABASE_URL);
 const password = `bench-${randomUUID()}`;
@@ -248,6 +249,8 @@ async function loadFarm(): Promise<{ coopId: string; farmId: string }> {
         [chunk.map(() => c), chunk.map((u) => u.id), chunk.map((u) => u.groupId), chunk.map((u) => u.litterId), chunk.map((u) => u.grams)],
       );
     }
+    // Rows loaded in bulk: the book's stored figures worked out once, as every change through the service does.
+    await refreshFeedBook(tx, c, f);
   });
   return loaded;
 }

@@ -3,6 +3,8 @@ import type { FeedOverviewDto } from '@burrowline/shared';
 import { daysAgo } from '../support/almanac';
 import { createTestCoop, TEST_PASSWORD, type TestCoop } from '../support/factories';
 import { feedAs, growOutCounts, purchaseAs } from '../support/grow-out';
+import { asTenant } from '../support/db';
+import { figuresOfBook, type BookPurchase, type BookShare, type BookUse } from '@burrowline/shared';
 import { addAnimalAs } from '../support/herd';
 import { ROOMY_SIGN_IN, signedInAgent, testApp, type Agent } from '../support/test-app';
 
@@ -67,5 +69,64 @@ describe('the feed book pages the feed given', () => {
     }
     expect((await member.get('/api/feed').query({ sort: 'grams' })).status).toBe(400);
     expect(await growOutCounts(coop.id)).toEqual(before);
+  });
+});
+
+describe('the feed book keeps its worked figures beside its rows', () => {
+  /** The stored figures of a farm's book, and the same worked anew from its rows. */
+  async function storedAndWorked(coopId: string, farmId: string) {
+    return asTenant(coopId, async (c) => {
+      const purchases = (await c.query(
+        `SELECT id, product_name AS "productName", bought_on::text AS "boughtOn", bag_grams AS "bagGrams", bags, price_cents::int AS "priceCents", grams_left::int AS "gramsLeft"
+         FROM feed_purchases WHERE farm_id = $1 AND deleted_at IS NULL`, [farmId])).rows as (BookPurchase & { gramsLeft: number })[];
+      const uses = (await c.query(
+        `SELECT id, feed_key AS "feedKey", given_on::text AS "givenOn", grams, cost_cents::int AS "costCents" FROM feed_uses WHERE farm_id = $1 AND deleted_at IS NULL`, [farmId])).rows as (BookUse & { costCents: number | null })[];
+      const shares = (await c.query(
+        `SELECT s.id::text AS id, s.feed_use_id AS "feedUseId", s.grams, s.cost_cents::int AS "costCents" FROM feed_use_shares s JOIN feed_uses u ON u.id = s.feed_use_id
+         WHERE u.farm_id = $1 AND u.deleted_at IS NULL ORDER BY s.id`, [farmId])).rows as (BookShare & { costCents: number })[];
+      const worked = figuresOfBook(purchases, uses, shares);
+      return {
+        stored: { left: purchases.map((p) => [p.id, p.gramsLeft]), costs: uses.map((u) => [u.id, u.costCents]), shares: shares.map((s) => [s.id, s.costCents]) },
+        worked: {
+          left: purchases.map((p) => [p.id, worked.gramsLeftByPurchase.get(p.id)]), costs: uses.map((u) => [u.id, worked.costByUse.get(u.id)]),
+          shares: shares.map((s) => [s.id, worked.costByShare.get(s.id)]),
+        },
+        totalCost: uses.reduce((n, u) => n + (u.costCents ?? 0), 0),
+      };
+    });
+  }
+
+  it('when feed is given back-dated, a purchase is corrected and an entry removed, then the stored stock and costs equal the whole book worked anew', async () => {
+    const coop = await createTestCoop();
+    const farmId = coop.member.farmId!;
+    const doe = await addAnimalAs(coop.member, { sex: 'doe', name: 'Clover', birthDate: '2023-02-01' });
+    // Two bags at different prices: 10 kg for 1,000 cents (0.1 cent a gram), then 10 kg for 3,000 cents (0.3).
+    await purchaseAs(coop.member, { boughtOn: daysAgo(40), productName: 'Doe ration', bagGrams: 10_000, bags: 1, priceCents: 1000 });
+    await purchaseAs(coop.member, { boughtOn: daysAgo(20), productName: 'Doe ration', bagGrams: 10_000, bags: 1, priceCents: 3000 });
+    await feedAs(coop.member, { givenOn: daysAgo(10), grams: 6000, productName: 'Doe ration', target: 'doe', doeId: doe.id });
+    let now = await storedAndWorked(coop.id, farmId);
+    expect(now.stored).toEqual(now.worked);
+    expect(now.totalCost).toBe(600);
+    // 6 kg more given earlier: it takes the cheap bag first, so the later entry now draws 2 kg of the dear one.
+    await feedAs(coop.member, { givenOn: daysAgo(15), grams: 6000, productName: 'Doe ration', target: 'doe', doeId: doe.id });
+    now = await storedAndWorked(coop.id, farmId);
+    expect(now.stored).toEqual(now.worked);
+    // 10 kg at 0.1 + 2 kg at 0.3 cents a gram.
+    expect(now.totalCost).toBe(1000 + 600);
+    const member = await signedInAgent(coop.member.email, TEST_PASSWORD, handle);
+    const opened = await book(member);
+    const cheap = opened.purchases.find((p) => p.priceCents === 1000)!;
+    expect(opened.purchases.map((p) => p.gramsLeft)).toEqual([8000, 0]);
+    const corrected = await member.put(`/api/feed/purchases/${cheap.id}`).send({ boughtOn: cheap.boughtOn, productName: 'Doe ration', bagGrams: 10_000, bags: 1, priceCents: 2000, version: cheap.version });
+    expect(corrected.status).toBe(200);
+    now = await storedAndWorked(coop.id, farmId);
+    expect(now.stored).toEqual(now.worked);
+    expect(now.totalCost).toBe(2000 + 600);
+    const earlier = (corrected.body as FeedOverviewDto).uses.find((u) => u.givenOn === daysAgo(15))!;
+    expect((await member.delete(`/api/feed/uses/${earlier.id}?version=${earlier.version}`)).status).toBe(200);
+    now = await storedAndWorked(coop.id, farmId);
+    expect(now.stored).toEqual(now.worked);
+    expect(now.totalCost).toBe(1200);
+    expect((await book(member)).products).toEqual([{ name: 'Doe ration', gramsLeft: 14_000 }]);
   });
 });

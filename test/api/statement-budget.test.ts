@@ -5,7 +5,7 @@ import { copyLitter, copyRow, rowCount } from '../support/bulk-rows';
 import { asTenant } from '../support/db';
 import { createTestApplication, createTestCoop, TEST_PASSWORD, type TestCoop, type TestPerson } from '../support/factories';
 import { daysAgo, farmToday, litterAs } from '../support/almanac';
-import { groupAs, purchaseAs } from '../support/grow-out';
+import { feedAs, groupAs, purchaseAs } from '../support/grow-out';
 import { growingGroupAs } from '../support/health-yield';
 import { actorOf, addAnimalAs } from '../support/herd';
 import { bookingBody, dayAs, siteAs } from '../support/processing-days';
@@ -131,6 +131,16 @@ const endpoints: Endpoint[] = [
       await purchaseAs(coop.member, { boughtOn: daysAgo(30), productName: 'Grower', bagGrams: 10_000, bags: 1, priceCents: 1000 });
       const purchaseId = await onlyRowOf(coop.id, 'feed_purchases');
       return { url: '/api/feed', asker: coop.member, growTo: grower(coop.id, 'feed_purchases', purchaseId) };
+    },
+  },
+  {
+    name: "the feed book's feed given",
+    async arrange(coop) {
+      const doe = await addAnimalAs(coop.member, { sex: 'doe' });
+      await purchaseAs(coop.member, { boughtOn: daysAgo(30), productName: 'Grower', bagGrams: 25_000, bags: 100, priceCents: 100_000 });
+      await feedAs(coop.member, { givenOn: daysAgo(2), grams: 500, productName: 'Grower', target: 'doe', doeId: doe.id });
+      const useId = await onlyRowOf(coop.id, 'feed_uses');
+      return { url: '/api/feed?pageSize=10', asker: coop.member, growTo: grower(coop.id, 'feed_uses', useId) };
     },
   },
   {

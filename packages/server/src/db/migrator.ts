@@ -1,11 +1,13 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
-import { Sequelize } from 'sequelize';
+import { QueryTypes, Sequelize } from 'sequelize';
 import { SequelizeStorage, Umzug } from 'umzug';
 
 export interface MigrationContext {
   sql: (statement: string) => Promise<unknown>;
+  /** A statement with bound parameters, answering its rows (for migrations that work data out in code). */
+  rows: <T>(statement: string, bind: unknown[]) => Promise<T[]>;
   /** The role the app connects as; migrations grant it exactly what it needs. */
   appRole: string;
 }
@@ -34,12 +36,14 @@ export function createMigrator(ownerUrl: string, appUrl: string) {
           const migration = await load();
           await sequelize.transaction(async (transaction) => {
             const sql = (statement: string) => sequelize.query(statement, { transaction });
-            await migration[direction]({ context: { sql, appRole } });
+            const rows = async <T>(statement: string, bind: unknown[]) =>
+              (await sequelize.query(statement, { bind, transaction, type: QueryTypes.SELECT })) as T[];
+            await migration[direction]({ context: { sql, rows, appRole } });
           });
         };
         return { name: file.replace(/\.ts$/, ''), up: inTransaction('up'), down: inTransaction('down') };
       }),
-    context: { sql: (s: string) => sequelize.query(s), appRole },
+    context: { sql: (s: string) => sequelize.query(s), rows: async <T>(s: string, bind: unknown[]) => (await sequelize.query(s, { bind, type: QueryTypes.SELECT })) as T[], appRole },
     storage: new SequelizeStorage({ sequelize, tableName: 'schema_migrations' }),
     logger: undefined,
   });

@@ -8,3 +8,4 @@ export * from './suggestions';
 export * from './comparison';
 export * from './cross-label';
 export * from './performance-tables';
+export * from './feed-book';

@@ -2,9 +2,8 @@ import { ForbiddenError } from '@casl/ability';
 import { Op, type Transaction } from 'sequelize';
 import { defineAbilityFor, ErrorCode, poundsToGrams, subjectOf, type BreedCreateInput, type BreedDto, type SizeClass } from '@burrowline/shared';
 import { lockUntilCommit } from '../../db/advisory-lock';
-import { selectPrepared } from '../../db/prepared';
 import { withTenant } from '../../db/tenant';
-import { forgetInTransaction, onceInTransaction } from '../../db/transaction-memo';
+import { coopDirectoryOf, forgetCoopDirectory } from '../../db/coop-directory';
 import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { Breed } from './breed.model';
@@ -33,21 +32,10 @@ export async function listBreeds(actor: SessionUser): Promise<BreedDto[]> {
   return withTenant(actor, async (tx) => (await breedsOf(actor.coopId, tx)).sort((a, b) => a.name.localeCompare(b.name)));
 }
 
-const breedsKey = (coopId: string) => `breeds:${coopId}`;
-
-const breedsSql = `SELECT id, coop_id AS "coopId", name, senior_buck_min_grams AS "seniorBuckMinGrams",
-    senior_buck_max_grams AS "seniorBuckMaxGrams", senior_doe_min_grams AS "seniorDoeMinGrams", senior_doe_max_grams AS "seniorDoeMaxGrams",
-    ideal_weight_grams AS "idealWeightGrams", show_class_count AS "showClassCount", body_type AS "bodyType", size_class AS "sizeClass",
-    doe_first_breeding_min_days AS "doeFirstBreedingMinDays", doe_first_breeding_max_days AS "doeFirstBreedingMaxDays",
-    buck_first_breeding_min_days AS "buckFirstBreedingMinDays", buck_first_breeding_max_days AS "buckFirstBreedingMaxDays",
-    slow_growing AS "slowGrowing", heavy_boned AS "heavyBoned", meat_notes AS "meatNotes", sources
-  FROM breeds WHERE (coop_id IS NULL OR coop_id = $1) AND deleted_at IS NULL`;
-
 /** Every breed the co-op may use, inside the caller's transaction (for other domains). */
 export async function breedsOf(coopId: string, tx: Transaction): Promise<BreedDto[]> {
-  // Read once per transaction, as plain rows (most requests present with them); each caller gets its own array to sort or filter.
-  const breeds = await onceInTransaction(tx, breedsKey(coopId), async () => (await selectPrepared<BreedRow>(tx, breedsSql, [coopId])).map(presentBreed));
-  return [...breeds];
+  // Read once per transaction with the farms, as plain rows; each caller gets its own array to sort or filter.
+  return (await coopDirectoryOf(tx, coopId)).breeds.map((b) => presentBreed(b as BreedRow));
 }
 
 export async function breedMapOf(coopId: string, tx: Transaction): Promise<Map<string, BreedDto>> {
@@ -79,7 +67,7 @@ export async function createBreed(actor: SessionUser, input: BreedCreateInput): 
     const doeMin = input.doeFirstBreedingMinDays ?? defaults.doe;
     const buckMin = input.buckFirstBreedingMinDays ?? defaults.buck;
     const given = { source: input.source, confidence: 'mem' as const };
-    forgetInTransaction(tx, breedsKey(actor.coopId));
+    forgetCoopDirectory(tx, actor.coopId);
     const breed = await Breed.create(
       {
         coopId: actor.coopId,

@@ -3,10 +3,10 @@ import { col, fn, Op, where, type Transaction } from 'sequelize';
 import {
   defineAbilityFor, farmProfileUpdateSchema, RealtimeEvent, rooms, subjectOf, type FarmCoordinatesInput, type FarmDto, type FarmProfileInput,
 } from '@burrowline/shared';
-import { selectPrepared } from '../../db/prepared';
 import { accessibleWhere } from '../../db/scope';
 import { withTenant } from '../../db/tenant';
-import { forgetInTransaction, onceInTransaction } from '../../db/transaction-memo';
+import { onceInTransaction } from '../../db/transaction-memo';
+import { coopDirectoryOf, forgetCoopDirectory } from '../../db/coop-directory';
 import { AppError } from '../../lib/app-error';
 import { publish } from '../../lib/realtime';
 import type { SessionUser } from '../../lib/session-user';
@@ -64,7 +64,7 @@ export async function updateFarmProfile(actor: SessionUser, farmId: string, body
     if (Object.keys(changes).length > 0) {
       farm.set(fields);
       await farm.save({ transaction: tx });
-      forgetInTransaction(tx, farmDirectoryKey(actor.coopId));
+      forgetCoopDirectory(tx, actor.coopId);
       await recordChanges({ coopId: actor.coopId, tableName: 'farms', recordId: farm.id, actorUserId: actor.id, changes }, tx);
       tx.afterCommit(() => publish(rooms.coop(actor.coopId), RealtimeEvent.farmUpdated, { farmId: farm.id }));
     }
@@ -111,7 +111,7 @@ export async function farmStudFactsOf(
 
 /** Creates a farm inside the caller's tenant transaction (co-op set-up, admission of a member). */
 export async function createFarm(coopId: string, profile: FarmProfileInput, tx: Transaction): Promise<Farm> {
-  forgetInTransaction(tx, farmDirectoryKey(coopId));
+  forgetCoopDirectory(tx, coopId);
   return Farm.create({ coopId, ...profile }, { transaction: tx });
 }
 
@@ -133,21 +133,12 @@ export async function findFarmRef(coopId: string, farmId: string, tx: Transactio
   return (await findFarmRefs(coopId, [farmId], tx)).get(farmId) ?? null;
 }
 
-/** Every farm of the co-op with what the Herd needs to present them (name, clock, units), inside the caller's transaction. */
-const farmDirectoryKey = (coopId: string) => `farm-directory:${coopId}`;
-
 /** The co-op's farms with their names, clocks and units, read once per transaction (farm-clock.ts reads it too). */
 export async function farmDirectoryOf(
   coopId: string,
   tx: Transaction,
 ): Promise<Map<string, { id: string; name: string; timeZone: string; weightUnit: Farm['weightUnit'] }>> {
-  return onceInTransaction(tx, farmDirectoryKey(coopId), async () => {
-    // Plain rows: most requests read it, to present farms or to know the farm's today.
-    const farms = await selectPrepared<{ id: string; name: string; timeZone: string; weightUnit: Farm['weightUnit'] }>(
-      tx,
-      'SELECT id, name, time_zone AS "timeZone", weight_unit AS "weightUnit" FROM farms WHERE coop_id = $1 AND deleted_at IS NULL',
-      [coopId],
-    );
-    return new Map(farms.map((f) => [f.id, f]));
-  });
+  // Read once per transaction with the breeds: most requests read it, to present farms or to know the farm's today.
+  const { farms } = await coopDirectoryOf(tx, coopId);
+  return new Map(farms.map((f) => [f.id, f as { id: string; name: string; timeZone: string; weightUnit: Farm['weightUnit'] }]));
 }

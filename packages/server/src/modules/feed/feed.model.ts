@@ -14,6 +14,8 @@ export class FeedPurchase extends Model<InferAttributes<FeedPurchase>, InferCrea
   declare crudeProteinPercent: number | null;
   declare note: CreationOptional<string>;
   declare enteredBy: string;
+  /** Stock left, first bought first used: stored by feed-book-figures after every change to the book. */
+  declare gramsLeft: CreationOptional<number | null>;
   declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
@@ -41,6 +43,7 @@ export class FeedPurchase extends Model<InferAttributes<FeedPurchase>, InferCrea
         },
         note: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
         enteredBy: { type: DataTypes.UUID, allowNull: false },
+        gramsLeft: { type: DataTypes.BIGINT, allowNull: true, get() { const v = this.getDataValue('gramsLeft') as unknown; return v === null || v === undefined ? null : Number(v); } },
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,

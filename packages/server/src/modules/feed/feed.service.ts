@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import type { Transaction } from 'sequelize';
 import {
-  addDays, allocateByHeadDays, allocateByLiveWeight, checkFeedUses, daysBetween, defineAbilityFor, formatWeight, gompertzWeight, MATURE_WEIGHT_PRIORS, RealtimeEvent, referenceCurve, rooms, subjectOf, feedBookQuerySchema, type FeedBookQuery, type FeedOverviewDto, type FeedPurchaseCreateInput, type FeedPurchaseUpdateInput, type FeedUseCreateInput, type FeedUseUpdateInput,
+  addDays, allocateByHeadDays, feedKeyOf, purchaseFact, useFact, allocateByLiveWeight, checkFeedUses, daysBetween, defineAbilityFor, formatWeight, gompertzWeight, MATURE_WEIGHT_PRIORS, RealtimeEvent, referenceCurve, rooms, subjectOf, feedBookQuerySchema, type FeedBookQuery, type FeedOverviewDto, type FeedPurchaseCreateInput, type FeedPurchaseUpdateInput, type FeedUseCreateInput, type FeedUseUpdateInput,
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../lib/session-user';
@@ -17,8 +17,9 @@ import {
 } from '../litters/litter-facts.service';
 import { namesOf } from '../users/users.service';
 import { FeedPurchase, FeedUse, FeedUseShare } from './feed.model';
-import { presentFeedOverview, usesOnPage } from './feed.presenter';
-import { feedKeyOf, feedLedgerOf, feedTotalsByLitter, purchaseFact, useFact } from './feed-totals.service';
+import { presentFeedOverview, type FeedBookPage } from './feed.presenter';
+import { feedLedgerOf, feedTotalsByLitter, refreshFeedBook } from './feed-totals.service';
+import { selectPrepared } from '../../db/prepared';
 import { lockUntilCommit } from '../../db/advisory-lock';
 import { recordChanges } from '../audit/audit.service';
 
@@ -38,7 +39,9 @@ async function farmWeightShown(tx: Transaction, coopId: string, farmId: string):
   return (grams) => formatWeight(grams, unit);
 }
 
-function announce(tx: Transaction, farmId: string): void {
+/** After any change to the book: its stored figures worked anew, and the farm's screens told once committed. */
+async function bookChanged(tx: Transaction, coopId: string, farmId: string): Promise<void> {
+  await refreshFeedBook(tx, coopId, farmId);
   tx.afterCommit(() => publish(rooms.farm(farmId), RealtimeEvent.growOutChanged, { farmId, groupId: null }));
 }
 
@@ -73,19 +76,45 @@ const nursingIn = (l: LitterFacts, from: string, to: string, inGroups: KitsInGro
 /** The first page, as a change answers with it (the screen goes back to the latest entries). */
 const firstPage = feedBookQuerySchema.parse({});
 
+/** A page of the book, latest feed given first, read with the figures stored beside its rows. */
+async function feedBookPage(tx: Transaction, coopId: string, farmId: string, page: FeedBookQuery): Promise<FeedBookPage> {
+  const purchases = await FeedPurchase.findAll({ where: { coopId, farmId }, order: [['boughtOn', 'DESC'], ['createdAt', 'DESC']], transaction: tx });
+  // The page's shares ride along with each entry, in the order they were written.
+  const pageSql = `SELECT u.id, u.given_on::text AS "givenOn", u.from_on::text AS "fromOn", u.grams, u.feed_key AS "feedKey", u.purchase_id AS "purchaseId",
+      u.target, u.group_id AS "groupId", u.housing_unit_id AS "housingUnitId", u.doe_id AS "doeId", u.allocation, u.version, u.entered_by AS "enteredBy", u.note,
+      u.cost_cents AS "costCents", count(*) OVER () AS total,
+      (SELECT coalesce(json_agg(json_build_object('groupId', s.group_id, 'litterId', s.litter_id, 'grams', s.grams) ORDER BY s.id), '[]')
+       FROM feed_use_shares s WHERE s.coop_id = u.coop_id AND s.feed_use_id = u.id) AS shares
+    FROM feed_uses u WHERE u.coop_id = $1 AND u.farm_id = $2 AND u.deleted_at IS NULL
+    ORDER BY u.given_on DESC, u.created_at DESC LIMIT $3 OFFSET $4`;
+  type Shares = FeedBookPage['sharesByUse'] extends Map<string, infer S> ? S : never;
+  const rows = await selectPrepared<FeedBookPage['uses'][number] & { costCents: string | null; total: string; shares: Shares }>(
+    tx, pageSql, [coopId, farmId, page.pageSize, (page.page - 1) * page.pageSize],
+  );
+  // Each row carries the count of all; a page past the end has none to carry it.
+  const usesTotal = rows.length > 0 ? Number(rows[0]!.total)
+    : page.page === 1 ? 0 : await FeedUse.count({ where: { coopId, farmId }, transaction: tx });
+  return {
+    purchases,
+    uses: rows.map(({ total: _total, shares: _shares, costCents, ...u }) => ({ ...u, costCents: costCents === null ? null : Number(costCents) })),
+    usesTotal,
+    sharesByUse: new Map(rows.map((r) => [r.id, r.shares])),
+  };
+}
+
 async function presentOverview(tx: Transaction, actor: SessionUser, farmId: string, page: FeedBookQuery = firstPage): Promise<FeedOverviewDto> {
-  const ledger = await feedLedgerOf(tx, actor.coopId, farmId);
+  const book = await feedBookPage(tx, actor.coopId, farmId, page);
   const money = canSeeMoney(actor, farmId);
   // Labels are looked up for the page's entries only.
-  const shown = usesOnPage(ledger, page);
-  const shownShares = shown.flatMap((u) => ledger.sharesByUse.get(u.id) ?? []);
+  const shown = book.uses;
+  const shownShares = [...book.sharesByUse.values()].flat();
   const present = (ids: (string | null | undefined)[]) => ids.filter((x): x is string => Boolean(x));
   const groups = await groupNamesOf(tx, actor.coopId, present([...shown.map((u) => u.groupId), ...shownShares.map((s) => s.groupId)]));
   const litters = await litterFactsOf(tx, actor.coopId, present(shownShares.map((s) => s.litterId)));
   const animals = await animalFactsOf(tx, actor.coopId, [...shown.map((u) => u.doeId), ...[...litters.values()].map((l) => l.damId)].filter((x): x is string => Boolean(x)));
   const units = await housingUnitNamesOf(tx, actor.coopId, shown.map((u) => u.housingUnitId).filter((x): x is string => Boolean(x)));
   const names = await namesOf(shown.map((u) => u.enteredBy), tx);
-  return presentFeedOverview(ledger, page, {
+  return presentFeedOverview(book, page, {
     groups, litters, animals, units, names, canSeeMoney: money,
     canEdit: defineAbilityFor(actor).can('create', subjectOf('FeedRecord', { coopId: actor.coopId, farmId })),
   });
@@ -124,7 +153,7 @@ export async function recordFeedPurchaseIn(tx: Transaction, actor: SessionUser, 
       },
       { transaction: tx },
     );
-    announce(tx, farmId);
+    await bookChanged(tx, actor.coopId, farmId);
   }
 }
 
@@ -245,7 +274,7 @@ export async function recordFeedUseIn(tx: Transaction, actor: SessionUser, input
       { transaction: tx },
     );
     if (shares.length > 0) await FeedUseShare.bulkCreate(shares.map((s) => ({ coopId: actor.coopId, feedUseId: useId, ...s })), { transaction: tx });
-    announce(tx, farmId);
+    await bookChanged(tx, actor.coopId, farmId);
   }
 }
 
@@ -308,7 +337,7 @@ export async function correctFeedPurchase(actor: SessionUser, purchaseId: string
     const problems = await uncoveredBy(tx, actor.coopId, farmId, () => purchase.update(corrected, { transaction: tx }));
     if (problems.length > 0) throw AppError.validation({ grams: problems });
     if (Object.keys(changes).length > 0) await recordChanges({ coopId: actor.coopId, tableName: 'feed_purchases', recordId: purchase.id, actorUserId: actor.id, changes }, tx);
-    announce(tx, farmId);
+    await bookChanged(tx, actor.coopId, farmId);
     return presentOverview(tx, actor, farmId);
   });
 }
@@ -321,7 +350,7 @@ export async function removeFeedPurchase(actor: SessionUser, purchaseId: string,
     const purchase = await purchaseToChange(tx, actor, farmId, purchaseId, version);
     const problems = await uncoveredBy(tx, actor.coopId, farmId, () => purchase.destroy({ transaction: tx }));
     if (problems.length > 0) throw AppError.conflict('Feed given draws on this purchase: correct or remove that feed given first', { purchase: problems });
-    announce(tx, farmId);
+    await bookChanged(tx, actor.coopId, farmId);
     return presentOverview(tx, actor, farmId);
   });
 }
@@ -349,7 +378,7 @@ export async function removeFeedUse(actor: SessionUser, useId: string, version: 
   return withTenant(actor, async (tx) => {
     const use = await useToChange(tx, actor, farmId, useId, version);
     await use.destroy({ transaction: tx });
-    announce(tx, farmId);
+    await bookChanged(tx, actor.coopId, farmId);
     return presentOverview(tx, actor, farmId);
   });
 }
