@@ -165,7 +165,18 @@ export async function privateRecordFarmsOf(
     'SELECT DISTINCT owning_farm_id AS farm_id FROM animal_custody_events WHERE animal_id = $1 AND owning_farm_id IS NOT NULL',
     [animal.id],
   );
-  const ownerFarms = new Set([...owners.map((o) => o.farm_id), ...(animal.owningFarmId ? [animal.owningFarmId] : [])]);
+  return privateRecordFarmsGiven(actor, animal, kind, owners.map((o) => o.farm_id));
+}
+
+/** privateRecordFarmsOf when the caller already read the farms that ever owned the animal (its custody history). */
+export function privateRecordFarmsGiven(
+  actor: SessionUser,
+  animal: { owningFarmId: string | null },
+  kind: PrivateRecordKind,
+  formerOwners: (string | null)[],
+): string[] {
+  if (!actor.farmId) return [];
+  const ownerFarms = new Set([...formerOwners.filter((f): f is string => Boolean(f)), ...(animal.owningFarmId ? [animal.owningFarmId] : [])]);
   const ability = defineAbilityFor(actor);
   return [...new Set([actor.farmId, ...ownerFarms])].filter((farmId) =>
     ability.can('read', subjectOf(kind, { coopId: actor.coopId, farmId, animalOwningFarmId: animal.owningFarmId, byAnOwner: ownerFarms.has(farmId) })),

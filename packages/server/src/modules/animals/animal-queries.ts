@@ -159,6 +159,22 @@ export async function selectAncestorIds(tx: Transaction, coopId: string, id: str
   return rows.map((r) => r.id);
 }
 
+/** An animal with its ancestors to `generations` back, each as id and parents, in one statement. */
+export async function selectAncestry(tx: Transaction, coopId: string, id: string, generations: number): Promise<{ id: string; sire_id: string | null; dam_id: string | null }[]> {
+  return database().query(
+    `WITH RECURSIVE anc(id, depth) AS (
+       SELECT $2::uuid, 0
+       UNION
+       SELECT p.parent_id, anc.depth + 1
+       FROM anc JOIN animals a ON a.id = anc.id AND a.coop_id = $1
+       CROSS JOIN LATERAL (VALUES (a.sire_id), (a.dam_id)) AS p(parent_id)
+       WHERE p.parent_id IS NOT NULL AND anc.depth < $3
+     )
+     SELECT id, sire_id, dam_id FROM animals WHERE coop_id = $1 AND id IN (SELECT id FROM anc)`,
+    { bind: [coopId, id, generations], type: QueryTypes.SELECT, transaction: tx },
+  );
+}
+
 export async function query<T extends object>(tx: Transaction, sql: string, bind: unknown[] = []): Promise<T[]> {
   return database().query<T>(sql, { bind, type: QueryTypes.SELECT, transaction: tx });
 }

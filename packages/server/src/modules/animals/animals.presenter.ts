@@ -156,7 +156,10 @@ export function labelOf(row: Pick<AnimalRow, 'name' | 'tattoo'>): string {
 }
 
 /** A note in the animal's log, with who entered it and its review state. */
-export function presentNote(n: AnimalNote, names: Map<string, string>): AnimalNoteDto {
+export function presentNote(
+  n: Pick<AnimalNote, 'id' | 'animalId' | 'body' | 'notedOn' | 'enteredBy' | 'reviewState' | 'reviewComment' | 'version'>,
+  names: Map<string, string>,
+): AnimalNoteDto {
   return {
     id: n.id,
     animalId: n.animalId,

@@ -60,12 +60,12 @@ export function listHerdRecords(actor: SessionUser, q: AnimalListQuery): Promise
  */
 export async function getAnimal(actor: SessionUser, animalId: string): Promise<AnimalDetailDto> {
   return withTenant(actor, async (tx) => {
-    const row = await selectAnimalById(tx, actor.coopId, animalId);
+    const row = await selectAnimalById(tx, actor.coopId, animalId, { weightsSeenBy: actor.farmId });
     if (!row || row.is_outside) throw AppError.notFound('That animal');
     if (!defineAbilityFor(actor).can('read', subjectOfRow(row))) {
       throw new AppError(ErrorCode.forbidden, 403, "Only the animal's own farm sees its full record; its pedigree card is open to the co-op");
     }
-    return detailOf(tx, actor, await presentContextFor(actor, tx), animalId);
+    return detailOf(tx, actor, await presentContextFor(actor, tx), animalId, row);
   });
 }
 
