@@ -73,7 +73,6 @@ const endpoints: Endpoint[] = [
   },
   {
     name: "an animal's detail",
-    over: { ownBudget: 13, why: 'the animal three times, its status and custody events, both parents, the ancestors, notes, who recorded them' },
     async arrange(coop) {
       const doe = await addAnimalAs(coop.member, { sex: 'doe' });
       const weighInId = await firstWeighIn(coop.member, doe.id);
