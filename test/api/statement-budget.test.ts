@@ -144,7 +144,7 @@ const endpoints: Endpoint[] = [
   },
   {
     name: 'the grow-out groups',
-    over: { ownBudget: 10, why: 'the groups, their litters, the litters’ events, animals, breeds, weigh-ins, processing, the settings' },
+    over: { ownBudget: 9, why: 'the groups, their litters, the litters’ events, animals, weigh-ins, processing, the settings (breeds and farms come in one)' },
     async arrange(coop) {
       const { litter } = await litterAs(coop.member, { servicedDaysAgo: 80, kindledDaysAgo: 49, bornAlive: 7 });
       const group = await groupAs(coop.member, { name: 'Fryers', formedOn: farmToday(), targetGrams: 2270, litters: [{ litterId: litter.id, heads: 7 }] });
@@ -153,7 +153,7 @@ const endpoints: Endpoint[] = [
   },
   {
     name: 'the performance tables',
-    over: { ownBudget: 11, why: 'one bulk read per table the figures use (services, litters, events, feed, groups, processing...)' },
+    over: { ownBudget: 9, why: 'one bulk read per table the figures use (services, litters, events, feed, groups, processing...)' },
     async arrange(coop) {
       const { litter } = await litterAs(coop.member, { servicedDaysAgo: 60, kindledDaysAgo: 29, bornAlive: 7 });
       return { url: '/api/performance', asker: coop.member, growTo: litterGrower(coop.id, litter.id) };
