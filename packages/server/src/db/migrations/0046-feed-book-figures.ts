@@ -17,8 +17,12 @@ export const up: MigrationFn = async ({ context: { sql, rows, appRole } }) => {
     GRANT UPDATE (cost_cents) ON feed_use_shares TO ${appRole};
     GRANT USAGE ON SEQUENCE feed_use_shares_id_seq TO ${appRole};
   `);
-  const books = await rows<{ coop_id: string; farm_id: string }>('SELECT DISTINCT coop_id, farm_id FROM feed_purchases', []);
-  for (const book of books) await storeFeedBookFigures((statement, bind) => rows(statement, bind), book.coop_id, book.farm_id);
+  // Row-level security binds the owner too: each co-op's books are read as that co-op.
+  for (const { id: coopId } of await rows<{ id: string }>('SELECT id FROM cooperatives', [])) {
+    await rows("SELECT set_config('app.coop_id', $1, true)", [coopId]);
+    const farms = await rows<{ farm_id: string }>('SELECT DISTINCT farm_id FROM feed_purchases WHERE coop_id = $1', [coopId]);
+    for (const { farm_id: farmId } of farms) await storeFeedBookFigures((statement, bind) => rows(statement, bind), coopId, farmId);
+  }
 };
 
 export const down: MigrationFn = async ({ context: { sql } }) => {
