@@ -86,13 +86,18 @@ function nextEvent<T>(socket: Socket, event: string, matches: (payload: T) => bo
 }
 
 describe('two app instances on one database', { timeout: 120_000 }, () => {
-  it('when a person signs in through A, then the session is valid on B, and signing out on B ends it on A too', async () => {
+  it('when a person signs in through A, then the session is valid on B, and signing out on B ends it on A too, its live connection to A included', async () => {
     const cookie = await signIn(a, coop.member);
     const onB = await as(b, cookie).get('/api/me');
     expect(onB.status).toBe(200);
     expect(onB.body.user).toMatchObject({ id: coop.member.id });
+    const socketOnA = await socketOn(a, cookie);
+    const ended = nextEvent<{ reason: string }>(socketOnA, RealtimeEvent.sessionEnded, () => true);
+    const dropped = new Promise<string>((resolve) => socketOnA.once('disconnect', (reason) => resolve(reason)));
     expect((await as(b, cookie).delete('/api/session')).status).toBeLessThan(300);
     expect((await as(a, cookie).get('/api/me')).status).toBe(401);
+    expect(await ended).toHaveProperty('reason');
+    expect(await dropped).toBe('io server disconnect');
   });
 
   it('when a member connected to B is asked for a buck through A, then the request reaches B live, and a person of another co-op on B hears nothing', async () => {
@@ -186,8 +191,7 @@ describe('two app instances on one database', { timeout: 120_000 }, () => {
     // Eight requests in flight at all times; A dies the moment it has answered ten.
     let sent = 0;
     const lane = async () => {
-      while (!killed || a.process) {
-        if (killed) break;
+      while (!killed) {
         const n = (sent += 1);
         try {
           const res = await addThrough(a, n);
