@@ -104,10 +104,12 @@ export async function startInstance(port: number, env: Record<string, string>): 
   });
   const exited = child;
   // Loading the server through tsx takes seconds on a quiet machine and far longer on a busy one.
-  await waitUntil(async () => {
-    if (exited.exitCode !== null) throw new Error(`the instance on :${port} exited with ${exited.exitCode}`);
-    return (await fetch(`${url}/api/health`, { signal: AbortSignal.timeout(5000) })).ok;
-  }, `the instance on :${port} did not answer`, 90_000);
+  const exitedEarly = new Promise<never>((_resolve, reject) => exited.once('exit', (code) => reject(new Error(`the instance on :${port} exited with ${code}`))));
+  exitedEarly.catch(() => undefined);
+  await Promise.race([
+    waitUntil(async () => (await fetch(`${url}/api/health`, { signal: AbortSignal.timeout(5000) })).ok, `the instance on :${port} did not answer`, 90_000),
+    exitedEarly,
+  ]);
   return {
     url,
     port,
