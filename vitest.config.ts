@@ -14,8 +14,8 @@ const apiSettings = {
   hookTimeout: 30_000,
   pool: 'forks' as const,
 };
-/** Points its process at another database, so it keeps a process of its own. */
-const ownProcessFiles = ['test/api/database-down.test.ts'];
+/** Point their process at another database, so each keeps a process of its own. */
+const ownProcessFiles = ['test/api/database-down.test.ts', 'test/api/several-instances.test.ts'];
 
 export default defineConfig({
   test: {

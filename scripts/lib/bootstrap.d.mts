@@ -12,3 +12,7 @@ export function isPortOpen(port: number, host?: string): Promise<boolean>;
 export function waitForHttp(url: string, what: string, timeoutMs?: number): Promise<void>;
 export function startFakeCardService(options: { port: number; accounts?: { apiKey: string; webhookSecret: string; webhookUrl: string }[] }): Promise<void>;
 export function fakeCardEnv(port: number, webhookSecret?: string): Record<string, string>;
+export function startFakeS3(options: { port: number; dir: string; bucket?: string }): Promise<void>;
+export function fakeS3Env(port: number, bucket?: string): Record<string, string>;
+export function startRoundRobinProxy(options: { port: number; upstreams: number[] }): Promise<void>;
+export function stopChildren(): Promise<void>;

@@ -283,6 +283,41 @@ export function fakeCardEnv(port, webhookSecret = 'whsec_local_burrowline_fake')
   };
 }
 
+/**
+ * The local stand-in for an S3-compatible object store (scripts/lib/fake-s3.mjs) on its own port and data folder,
+ * with the bucket made; like maildev, one already answering on the port is reused.
+ */
+export async function startFakeS3({ port, dir, bucket = 'burrowline' }) {
+  if (await isPortOpen(port)) {
+    log(`an S3 service already answers on 127.0.0.1:${port}, reusing it`);
+    return;
+  }
+  const args = [path.join(root, 'scripts', 'lib', 'fake-s3.mjs'), '--port', String(port), '--dir', dir, '--bucket', bucket, '--silent'];
+  startChild('fake S3', process.execPath, args, { stdio: ['ignore', 'ignore', 'inherit'] });
+  await waitFor(() => isPortOpen(port), 'the fake S3 service');
+  log(`fake S3: http://127.0.0.1:${port} (bucket ${bucket}, files in ${path.relative(root, dir)})`);
+}
+
+/** The storage settings the app reads (see config/env.ts) for the fake S3 service on `port` (its fixed key pair). */
+export function fakeS3Env(port, bucket = 'burrowline') {
+  return {
+    STORAGE_DRIVER: 's3',
+    S3_ENDPOINT: `http://127.0.0.1:${port}`,
+    S3_REGION: 'us-east-1',
+    S3_BUCKET: bucket,
+    S3_ACCESS_KEY_ID: 'S3RVER',
+    S3_SECRET_ACCESS_KEY: 'S3RVER',
+    S3_FORCE_PATH_STYLE: 'true',
+  };
+}
+
+/** The plain-Node round-robin proxy (scripts/lib/round-robin-proxy.mjs) on `port` in front of the instances' ports. */
+export async function startRoundRobinProxy({ port, upstreams }) {
+  const args = [path.join(root, 'scripts', 'lib', 'round-robin-proxy.mjs'), '--port', String(port), ...upstreams.flatMap((p) => ['--upstream', String(p)])];
+  startChild('proxy', process.execPath, args);
+  await waitFor(() => isPortOpen(port), 'the proxy');
+}
+
 export async function waitForHttp(url, what, timeoutMs = 60000) {
   await waitFor(async () => {
     try {

@@ -65,7 +65,7 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
   registerChatSocketEvents();
   // Queued e-mail goes out from every process that serves the app (several instances share the queue).
   const stopMailWorker = config.mail.worker ? startMailWorker({ connectionString: config.databaseUrl, pollingIntervalSeconds: config.mail.pollingIntervalSeconds }) : null;
-  configureStorage({ dir: config.uploads.dir });
+  configureStorage({ dir: config.uploads.dir, objectStore: config.objectStore });
   const passport = configurePassport();
   const session = createSessionMiddleware(config);
 
@@ -188,6 +188,7 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
       appUrl: config.appUrl,
       isSessionCurrent: sessionChecker(session.store, config),
       sessionCheckSeconds: config.socketSessionCheckSeconds,
+      acrossInstances: config.realtimeAcrossInstances ? { connectionString: config.databaseUrl } : null,
     },
     close: async () => {
       await stopMailWorker?.();

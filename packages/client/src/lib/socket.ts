@@ -5,9 +5,13 @@ export type RealtimeSocket = Socket<ServerToClientEvents, ClientToServerEvents>;
 
 let socket: RealtimeSocket | null = null;
 
-/** One connection per tab, opened only while someone is signed in (the session cookie authenticates it). */
+/**
+ * One connection per tab, opened only while someone is signed in (the session cookie authenticates it).
+ * WebSocket from the start: with several app instances behind a load balancer, long-polling's requests of one
+ * connection would have to reach the same instance (sticky sessions); one WebSocket stays on one by itself.
+ */
 export function connectRealtime(): RealtimeSocket {
-  socket ??= io({ path: '/socket.io', withCredentials: true, autoConnect: false });
+  socket ??= io({ path: '/socket.io', withCredentials: true, autoConnect: false, transports: ['websocket'] });
   if (!socket.connected) socket.connect();
   return socket;
 }

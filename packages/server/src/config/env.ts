@@ -40,6 +40,16 @@ const envSchema = z.object({
   MAIL_RETRY_DELAY_SECONDS: z.coerce.number().int().min(1).default(5),
   CLIENT_DIST: z.string().optional(),
   UPLOADS_DIR: z.string().min(1).optional(),
+  /** Where uploaded files live: this server's disk (one instance) or an S3-compatible object store (several). */
+  STORAGE_DRIVER: z.enum(['local', 's3']).default('local'),
+  S3_ENDPOINT: z.url().optional(),
+  S3_REGION: z.string().min(1).default('us-east-1'),
+  S3_BUCKET: z.string().min(3).optional(),
+  S3_ACCESS_KEY_ID: z.string().min(1).optional(),
+  S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
+  S3_FORCE_PATH_STYLE: bool.default(true),
+  /** Live events reach sockets on every app instance (Socket.IO's PostgreSQL adapter) instead of this one only. */
+  REALTIME_ACROSS_INSTANCES: bool.default(false),
   PHOTO_MAX_BYTES: z.coerce.number().int().min(1024).default(8 * 1024 * 1024),
   PHOTOS_PER_ANIMAL: z.coerce.number().int().min(1).max(100).default(12),
   PHOTOS_PER_UPLOAD: z.coerce.number().int().min(1).max(20).default(6),
@@ -57,7 +67,9 @@ const envSchema = z.object({
   CHAT_RATE_MESSAGES: z.coerce.number().int().min(1).default(20),
   CHAT_RATE_WINDOW_SECONDS: z.coerce.number().int().min(1).default(10),
   LOG_LEVEL: z.enum(['debug', 'info', 'warn', 'error', 'silent']).default('info'),
-}).refine((e) => !e.STRIPE_SECRET_KEY || e.STRIPE_WEBHOOK_SECRET, { path: ['STRIPE_WEBHOOK_SECRET'], message: 'STRIPE_WEBHOOK_SECRET is required with STRIPE_SECRET_KEY' });
+}).refine((e) => !e.STRIPE_SECRET_KEY || e.STRIPE_WEBHOOK_SECRET, { path: ['STRIPE_WEBHOOK_SECRET'], message: 'STRIPE_WEBHOOK_SECRET is required with STRIPE_SECRET_KEY' })
+  .refine((e) => e.STORAGE_DRIVER !== 's3' || e.S3_BUCKET, { path: ['S3_BUCKET'], message: 'S3_BUCKET is required with STORAGE_DRIVER=s3' })
+  .refine((e) => !e.S3_ACCESS_KEY_ID === !e.S3_SECRET_ACCESS_KEY, { path: ['S3_SECRET_ACCESS_KEY'], message: 'S3_ACCESS_KEY_ID and S3_SECRET_ACCESS_KEY go together' });
 
 export type Env = z.infer<typeof envSchema>;
 
@@ -98,6 +110,10 @@ export interface Config {
    * bytes and rows per herd spreadsheet.
    */
   uploads: { dir: string; photoMaxBytes: number; photosPerAnimal: number; photosPerUpload: number; importMaxBytes: number; importMaxRows: number; importsWaitingPerFarm: number };
+  /** The S3-compatible object store when `STORAGE_DRIVER=s3`; null keeps files under `uploads.dir`. */
+  objectStore: ObjectStoreConfig | null;
+  /** Carry live events to the other app instances through PostgreSQL (LISTEN/NOTIFY). */
+  realtimeAcrossInstances: boolean;
   /** Run the Almanac's morning e-mail schedule and worker in this process (server.ts). */
   morningEmailJobs: boolean;
   /**
@@ -108,6 +124,16 @@ export interface Config {
   /** Co-op Chat: at most `messages` per person in `windowSeconds` (a flood, a stuck client). */
   chat: { rateLimit: { messages: number; windowSeconds: number } };
   logLevel: Env['LOG_LEVEL'];
+}
+
+export interface ObjectStoreConfig {
+  /** Left out for Amazon S3 itself; any S3-compatible service's address otherwise. */
+  endpoint?: string;
+  region: string;
+  bucket: string;
+  /** Left out to use the SDK's own chain (AWS_* variables, an instance role). */
+  credentials?: { accessKeyId: string; secretAccessKey: string };
+  forcePathStyle: boolean;
 }
 
 export interface CardConfig {
@@ -165,6 +191,17 @@ export function loadConfig(source: NodeJS.ProcessEnv = process.env): Config {
       importMaxRows: e.HERD_IMPORT_MAX_ROWS,
       importsWaitingPerFarm: e.HERD_IMPORTS_WAITING_PER_FARM,
     },
+    objectStore:
+      e.STORAGE_DRIVER === 's3'
+        ? {
+            endpoint: e.S3_ENDPOINT,
+            region: e.S3_REGION,
+            bucket: e.S3_BUCKET!,
+            credentials: e.S3_ACCESS_KEY_ID ? { accessKeyId: e.S3_ACCESS_KEY_ID, secretAccessKey: e.S3_SECRET_ACCESS_KEY! } : undefined,
+            forcePathStyle: e.S3_FORCE_PATH_STYLE,
+          }
+        : null,
+    realtimeAcrossInstances: e.REALTIME_ACROSS_INSTANCES,
     morningEmailJobs: e.MORNING_EMAIL_JOBS,
     card: e.STRIPE_SECRET_KEY
       ? { secretKey: e.STRIPE_SECRET_KEY, webhookSecret: e.STRIPE_WEBHOOK_SECRET!, apiHost: e.STRIPE_API_HOST, apiPort: e.STRIPE_API_PORT, apiProtocol: e.STRIPE_API_PROTOCOL }

@@ -6,6 +6,7 @@ import { defineAbilityFor, ErrorCode, rooms, RealtimeEvent, subjectOf, type Clie
 import { AppError } from './app-error';
 import type { SessionUser } from './session-user';
 import { logger } from './logger';
+import { postgresAdapter } from './realtime-across-instances';
 
 type RealtimeServer = Server<ClientToServerEvents, ServerToClientEvents>;
 let io: RealtimeServer | null = null;
@@ -59,9 +60,12 @@ export interface RealtimeOptions {
   appUrl: string;
   isSessionCurrent: (sessionId: string) => Promise<boolean>;
   sessionCheckSeconds: number;
+  /** Several app instances: carry every event to the others through this PostgreSQL database. */
+  acrossInstances?: { connectionString: string } | null;
 }
 
 let sweeper: NodeJS.Timeout | null = null;
+let closeAdapter: (() => Promise<void>) | null = null;
 
 /** Attaches Socket.IO to the HTTP server, reusing the app's session and passport middleware. */
 export function attachRealtime(httpServer: HttpServer, opts: RealtimeOptions): RealtimeServer {
@@ -76,6 +80,11 @@ export function attachRealtime(httpServer: HttpServer, opts: RealtimeOptions): R
       callback(null, !origin || origin === allowedOrigin);
     },
   });
+  if (opts.acrossInstances) {
+    const shared = postgresAdapter(opts.acrossInstances.connectionString);
+    server.adapter(shared.adapter);
+    closeAdapter = shared.close;
+  }
   for (const middleware of opts.handshake) server.engine.use(onlyForHandshake(middleware));
   server.engine.use(
     onlyForHandshake(((req: HandshakeRequest, res: import('node:http').ServerResponse, next: () => void) => {
@@ -141,4 +150,6 @@ export async function closeRealtime() {
   sweeper = null;
   if (io) await io.close();
   io = null;
+  await closeAdapter?.().catch(() => undefined);
+  closeAdapter = null;
 }
