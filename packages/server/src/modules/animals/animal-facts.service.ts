@@ -160,12 +160,17 @@ export async function privateRecordFarmsOf(
   tx: Transaction,
 ): Promise<string[]> {
   if (!actor.farmId) return [];
-  const owners = await query<{ farm_id: string }>(
+  const owners = await query<{ farm_id: string; notes_stay: boolean }>(
     tx,
-    'SELECT DISTINCT owning_farm_id AS farm_id FROM animal_custody_events WHERE animal_id = $1 AND owning_farm_id IS NOT NULL',
+    `SELECT e.owning_farm_id AS farm_id,
+            EXISTS (SELECT 1 FROM animal_custody_events s WHERE s.animal_id = e.animal_id AND s.from_farm_id = e.owning_farm_id
+                     AND s.kind = 'transferred' AND NOT s.notes_travel) AS notes_stay
+       FROM animal_custody_events e WHERE e.animal_id = $1 AND e.owning_farm_id IS NOT NULL GROUP BY e.animal_id, e.owning_farm_id`,
     [animal.id],
   );
-  const ownerFarms = new Set([...owners.map((o) => o.farm_id), ...(animal.owningFarmId ? [animal.owningFarmId] : [])]);
+  // A farm that sold the animal through the Swap Board keeps its notes: the buyer reads its weights and photos only.
+  const formerOwners = owners.filter((o) => !(kind === 'AnimalNote' && o.notes_stay && o.farm_id !== animal.owningFarmId));
+  const ownerFarms = new Set([...formerOwners.map((o) => o.farm_id), ...(animal.owningFarmId ? [animal.owningFarmId] : [])]);
   const ability = defineAbilityFor(actor);
   return [...new Set([actor.farmId, ...ownerFarms])].filter((farmId) =>
     ability.can('read', subjectOf(kind, { coopId: actor.coopId, farmId, animalOwningFarmId: animal.owningFarmId, byAnOwner: ownerFarms.has(farmId) })),
