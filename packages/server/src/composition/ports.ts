@@ -17,6 +17,7 @@ import { processingDayThreadSubject } from '../modules/processing-days/day-threa
 import { loanThreadSubject } from '../modules/stud-share/loan-thread.service';
 import { listingThreadSubject } from '../modules/swap-board/listing-thread.service';
 import { closeListingsOfAnimal } from '../modules/swap-board/swap-listings.service';
+import { isPhotoListed } from '../modules/swap-board/swap-board-facts.service';
 
 let plugged = false;
 
@@ -39,7 +40,8 @@ export function plugModulePorts(): void {
   groupFeedTotals.plug(feedTotalsByGroup);
   processedHeadsOfGroups.plug(processedHeadsOf);
   sharedDaysOfFarm.plug(processingDaysOfFarm);
-  photoPublishedTo.plug(isPhotoPublished);
+  // A photo is published by a buck card or a loan's hand-over (Stud Share), or by a listing (Swap Board).
+  photoPublishedTo.plug(async (tx, actor, photoId) => (await isPhotoPublished(tx, actor, photoId)) || isPhotoListed(tx, actor, photoId));
   // Co-op Chat's threads beside subjects: who reads the subject reads its thread.
   registerThreadSubject('litter', litterThreadSubject);
   registerThreadSubject('processing-day', processingDayThreadSubject);
