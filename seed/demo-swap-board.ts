@@ -26,14 +26,14 @@ async function actorFor(coopId: string, farmKey: string): Promise<SessionUser> {
 }
 
 /** The farm's own grown animals of a sex that are at home and not offered at stud, best candidates first. */
-async function candidatesOf(coopId: string, farmId: string, sex: 'doe' | 'buck', taken: Set<string>): Promise<string[]> {
+async function candidatesOf(coopId: string, farmId: string, sex: 'doe' | 'buck', taken: Set<string>, grown = false): Promise<string[]> {
   const found = await withTenant({ coopId }, (tx) => rows<{ id: string }>(
     tx,
     `SELECT a.id FROM animals a
       WHERE a.owning_farm_id = $1 AND a.keeping_farm_id = $1 AND a.sex = $2 AND a.disposition = 'on_farm' AND a.deleted_at IS NULL
         AND a.lifecycle IN ('junior', 'breeding') AND NOT EXISTS (SELECT 1 FROM stud_offers o WHERE o.buck_id = a.id)
-      ORDER BY a.lifecycle DESC, a.birth_date DESC NULLS LAST, a.id`,
-    [farmId, sex],
+      ORDER BY (a.lifecycle = $3) DESC, a.birth_date DESC NULLS LAST, a.id`,
+    [farmId, sex, grown ? 'breeding' : 'junior'],
   ));
   return found.map((r) => r.id).filter((id) => !taken.has(id));
 }
@@ -64,10 +64,10 @@ export async function loadDemoSwapBoard(coopId: string): Promise<void> {
   for (const farm of demoFarms) actors.set(farm.key, await actorFor(coopId, farm.key));
   const at = (key: string) => actors.get(key)!;
   const taken = new Set<string>();
-  const candidates = (key: string, sex: 'doe' | 'buck') => candidatesOf(coopId, at(key).farmId!, sex, taken);
+  const candidates = (key: string, sex: 'doe' | 'buck', grown = false) => candidatesOf(coopId, at(key).farmId!, sex, taken, grown);
 
   // A sale, completed: Quillfeather's doe to Hazelrun for $55, collected.
-  const sold = await listFirst(at('quillfeather'), await candidates('quillfeather', 'doe'), {
+  const sold = await listFirst(at('quillfeather'), await candidates('quillfeather', 'doe', true), {
     kind: 'breeding_stock', title: 'Proven doe, steady litters of eight', description: 'Calm in the hand, a good nest builder. Moving her on to make room for her daughters.',
     priceMode: 'price', priceCents: 6_000, collectPlace: 'Quillfeather gate, any evening', validUntil: addDays(today, 20),
   }, taken);
@@ -81,7 +81,7 @@ export async function loadDemoSwapBoard(coopId: string): Promise<void> {
   const traded = await listFirst(at('wrenfield'), await candidates('wrenfield', 'doe'), {
     kind: 'breeding_stock', title: 'Junior doe for a trade', description: 'Looking to swap for a buck of another line.', priceMode: 'trade', validUntil: addDays(today, 30),
   }, taken);
-  const tradeBuck = (await candidates('saltbush', 'buck'))[0];
+  const tradeBuck = (await candidates('saltbush', 'buck', true))[0];
   if (traded && tradeBuck) {
     try {
       const { offer } = await makeOffer(at('saltbush'), swapOfferSchema.parse({ id: randomUUID(), listingId: traded.id, tradeAnimalIds: [tradeBuck], message: 'Our junior buck, from a different line.', validUntil: addDays(today, 7) }));
@@ -102,7 +102,7 @@ export async function loadDemoSwapBoard(coopId: string): Promise<void> {
   await listFirst(at('cobble-creek'), await candidates('cobble-creek', 'buck'), {
     kind: 'breeding_stock', title: 'Buck for trade, new blood for your line', priceMode: 'trade', collectPlace: 'Cobble Creek', validUntil: addDays(today, 21),
   }, taken);
-  const forOffers = await listFirst(at('saltbush'), await candidates('saltbush', 'doe'), {
+  const forOffers = await listFirst(at('saltbush'), await candidates('saltbush', 'doe', true), {
     kind: 'breeding_stock', title: 'Senior doe, offers welcome', description: 'Retiring her from our program; still a fine mother.', priceMode: 'offers', validUntil: addDays(today, 14),
   }, taken);
   if (forOffers) {

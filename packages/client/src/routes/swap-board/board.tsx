@@ -33,8 +33,13 @@ function Filters({ query, setQuery, wanted }: { query: SwapListingQuery; setQuer
   const stock = useQuery({ ...breedingStockQueryOptions(), enabled: Boolean(me.user.farmId) });
   const mine = [...(stock.data?.does ?? []), ...(stock.data?.bucks ?? [])];
   const set = (patch: Partial<SwapListingQuery>) => setQuery({ ...patch, page: 1 });
+  const active = [query.kind, query.sex, query.breedId, query.maxPriceCents, query.minCompleteness, query.mateWith].filter((v) => v !== undefined).length;
   return (
-    <div className="grid grid-cols-1 gap-3 sm:grid-cols-2 lg:grid-cols-3 xl:grid-cols-6 [&>*]:min-w-0">
+    <details className="rounded-xl border border-grey-200 bg-white p-3" open={active > 0}>
+      <summary className="min-h-11 cursor-pointer content-center font-semibold text-moss-deep">
+        {active > 0 ? `Filters (${active} on)` : 'Filter the board'}
+      </summary>
+    <div className="grid grid-cols-1 gap-3 pt-3 sm:grid-cols-2 lg:grid-cols-3 xl:grid-cols-6 [&>*]:min-w-0">
       {!wanted && (
         <SelectField label="Kind" value={query.kind ?? ''} onChange={(e) => set({ kind: (e.target.value || undefined) as SwapListingQuery['kind'] })}
           options={[{ value: '', label: 'Stock and grow-out' }, { value: 'breeding_stock', label: 'Breeding stock' }, { value: 'grow_out', label: 'Grow-out' }]} />
@@ -57,6 +62,7 @@ function Filters({ query, setQuery, wanted }: { query: SwapListingQuery; setQuer
         </>
       )}
     </div>
+    </details>
   );
 }
 

@@ -119,7 +119,7 @@ export function ListingPage() {
           <p className="text-sm text-grey-600">Have one? List it and tell them in the conversation below.</p>
         </Section>
       )}
-      <div className="grid grid-cols-1 gap-6 lg:grid-cols-2 [&>*]:min-w-0">
+      <div className={`grid grid-cols-1 gap-6 [&>*]:min-w-0 ${listing.animals.length > 1 ? '2xl:grid-cols-2' : ''}`}>
         {listing.animals.map((a) => (
           <ListedAnimal key={a.card.id} animal={a} />
         ))}
@@ -132,7 +132,7 @@ export function ListingPage() {
           ))}
         </section>
       )}
-      {listing.canOffer && (
+      {listing.canOffer && !offers.some((o) => o.side === 'buyer' && o.state === 'open') && (
         <Section title="Make an offer">
           <OfferForm listingId={listing.id} today={today} lastDay={listing.validUntil} />
         </Section>

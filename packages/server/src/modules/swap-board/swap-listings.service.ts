@@ -168,6 +168,8 @@ export async function listListings(actor: SessionUser, q: SwapListingQuery): Pro
       where.push(q.state && q.state !== 'draft' ? `l.state = ${param(q.state)}` : LIVE);
     }
     if (q.kind) where.push(`l.kind = ${param(q.kind)}`);
+    // The board shows what is offered; wanted posts have their own tab (the farm's own list shows all).
+    else if (!q.mine) where.push(`l.kind <> 'wanted'`);
     const first = '(SELECT a FROM animals a WHERE a.id = l.animal_ids[1])';
     if (q.sex) where.push(`(l.wanted_sex = ${param(q.sex)} OR ${first}.sex = $${bind.length})`);
     if (q.breedId) {

@@ -57,8 +57,8 @@ export function ListingCard({ listing }: { listing: SwapListingDto }) {
       {photo ? (
         <img src={`/api/photos/${photo}/thumbnail`} alt={`Photo of ${listing.title}`} className="aspect-[4/3] w-full object-cover" loading="lazy" />
       ) : (
-        <div className="flex aspect-[4/3] w-full items-center justify-center bg-oat text-moss" aria-hidden="true">
-          <Rabbit className="size-16" />
+        <div className="flex h-20 w-full items-center justify-center bg-oat text-moss" aria-hidden="true">
+          <Rabbit className="size-10" />
         </div>
       )}
       <div className="space-y-3 p-4">

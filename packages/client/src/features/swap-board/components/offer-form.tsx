@@ -35,8 +35,8 @@ function TermsFields<TBody>({ form, tradeFromMyHerd }: { form: UseFormReturn<Ter
     <>
       <TextField label="Price (leave empty for a trade only)" inputMode="decimal" placeholder="65.00" error={errors.price?.message} {...form.register('price')} />
       {tradeFromMyHerd && (
-        <fieldset className="space-y-1">
-          <legend className="font-medium">Animals of your herd in trade (optional)</legend>
+        <details className="rounded-lg border border-grey-200 p-3" open={form.getValues('tradeAnimalIds').length > 0}>
+          <summary className="min-h-11 cursor-pointer content-center font-medium">Animals of your herd in trade (optional)</summary>
           {animals.length === 0 ? (
             <p className="text-sm text-grey-600">{stock.isPending ? 'Reading your herd…' : 'No breeding stock on record.'}</p>
           ) : (
@@ -47,7 +47,7 @@ function TermsFields<TBody>({ form, tradeFromMyHerd }: { form: UseFormReturn<Ter
             </div>
           )}
           {errors.tradeAnimalIds && <p className="text-sm font-medium text-clay-deep">{errors.tradeAnimalIds.message ?? errors.tradeAnimalIds.root?.message}</p>}
-        </fieldset>
+        </details>
       )}
       <TextField label="The offer stands until" type="date" error={errors.validUntil?.message} {...form.register('validUntil')} />
       <TextAreaField label="Message (optional)" rows={3} placeholder="When you could collect, what you would like to know…" error={errors.message?.message} {...form.register('message')} />
