@@ -138,7 +138,7 @@ export function ListingForm({ today, groups }: { today: string; groups: { id: st
       {kind !== 'wanted' && (
         <div className="grid gap-4 sm:grid-cols-2">
           <SelectField label="Price" error={errors.priceMode?.message} options={(['price', 'trade', 'offers'] as const).map((m) => ({ value: m, label: priceModeLabels[m] }))} {...form.register('priceMode')} />
-          {priceMode === 'price' && <TextField label="Asking price" inputMode="decimal" placeholder="65.00" error={errors.price?.message} {...form.register('price')} />}
+          {priceMode === 'price' && <TextField label="Asking price" inputMode="decimal" placeholder="e.g. 65.00" error={errors.price?.message} {...form.register('price')} />}
         </div>
       )}
       <div className="grid gap-4 sm:grid-cols-2">

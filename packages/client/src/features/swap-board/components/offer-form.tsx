@@ -33,7 +33,7 @@ function TermsFields<TBody>({ form, tradeFromMyHerd }: { form: UseFormReturn<Ter
   const { errors } = form.formState;
   return (
     <>
-      <TextField label="Price (leave empty for a trade only)" inputMode="decimal" placeholder="65.00" error={errors.price?.message} {...form.register('price')} />
+      <TextField label="Price (leave empty for a trade only)" inputMode="decimal" placeholder="e.g. 60.00" error={errors.price?.message} {...form.register('price')} />
       {tradeFromMyHerd && (
         <details className="rounded-lg border border-grey-200 p-3" open={form.getValues('tradeAnimalIds').length > 0}>
           <summary className="min-h-11 cursor-pointer content-center font-medium">Animals of your herd in trade (optional)</summary>
