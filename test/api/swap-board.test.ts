@@ -8,11 +8,13 @@ import { createTestCoop, TEST_PASSWORD, type TestCoop } from '../support/factori
 import { growingGroupAs, treatmentAs } from '../support/health-yield';
 import { addAnimalAs, catalogueBreeds } from '../support/herd';
 import { deliveredMailsTo, queuedMailTo } from '../support/mail';
-import { doeOf, offeredBuck, requestAs, acceptAs, custodyStep } from '../support/stud-share';
+import { doeOf, offeredBuck, requestAs, acceptAs, custodyStep, thirdFarmMember } from '../support/stud-share';
 import {
   custodyOf, inDays, listAs, listedDoe, offerAs, quarantinesOf, saleTransfersOf, stockOf, swapCounts,
 } from '../support/swap-board';
 import { signedInAgent, testApp, type Agent } from '../support/test-app';
+import { makeOffer } from '../../packages/server/src/modules/swap-board/swap-offers.service';
+import { actorOf as serviceActor } from '../support/herd';
 
 const handle = testApp();
 let coop: TestCoop;
@@ -242,5 +244,26 @@ describe('offers and the sale', () => {
     expect((await apprentice.post(`/api/swap-board/offers/${offer.id}/accept`).send({ version: offer.version, key: randomUUID() })).status).toBe(403);
     expect((await apprentice.post('/api/swap-board/listings').send({ kind: 'wanted', title: 'A Rex buck', priceMode: 'offers', validUntil: inDays(9) })).status).toBe(403);
     expect(await swapCounts(coop.id)).toEqual(before);
+  });
+
+  it('when a third farm of the co-op asks for an offer it is not party to, then it does not exist for it, and the listing page shows it no offers', async () => {
+    const { listing } = await listedDoe(coop.member);
+    const offer = await offerAs(coop.otherFarmMember, listing.id);
+    const third = await thirdFarmMember(coop);
+    const outsider = await signedInAgent(third.email, TEST_PASSWORD, handle);
+    expect((await outsider.get(`/api/swap-board/offers/${offer.id}`)).status).toBe(404);
+    const page = await outsider.get(`/api/swap-board/listings/${listing.id}`).expect(200);
+    expect(page.body.offers).toEqual([]);
+    expect(JSON.stringify(page.body)).not.toContain(offer.id);
+  });
+
+  it('when a wanted post is on the board, then it shows under its own tab, not among what is offered, and takes no offers', async () => {
+    const wanted = await listAs(coop.otherFarmMember, { kind: 'wanted', title: 'Wanted: a Rex doe', priceMode: 'offers', priceCents: null, wantedSex: 'doe' });
+    const board = await seller.get('/api/swap-board/listings?pageSize=50').expect(200);
+    expect(board.body.items.map((l: SwapListingDto) => l.id)).not.toContain(wanted.id);
+    const posts = await seller.get('/api/swap-board/listings?kind=wanted&pageSize=50').expect(200);
+    expect(posts.body.items.map((l: SwapListingDto) => l.id)).toContain(wanted.id);
+    await expect(makeOffer(serviceActor(coop.member), { listingId: wanted.id, priceCents: 1_000, tradeAnimalIds: [], message: '', validUntil: inDays(3) }))
+      .rejects.toMatchObject({ status: 409, message: expect.stringMatching(/A wanted post takes no offers/) });
   });
 });
