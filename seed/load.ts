@@ -16,6 +16,7 @@ import { loadDemoHerds } from './demo-herds';
 import { loadDemoLedger } from './demo-ledger';
 import { loadDemoProcessingDays } from './demo-processing-days';
 import { loadDemoStudShare } from './demo-stud-share';
+import { loadDemoSwapBoard } from './demo-swap-board';
 import { loadDemoMentorship } from './demo-mentorship';
 import { loadDemoChat } from './demo-chat';
 
@@ -54,6 +55,7 @@ export async function loadDemoCoop(): Promise<'loaded' | 'already-present'> {
     });
     // Stud Share goes through its services, each in a transaction of its own, once the co-op exists.
     await loadDemoStudShare(present.id);
+    await loadDemoSwapBoard(present.id);
     return 'already-present';
   }
   const passwordHash = await hashPassword(DEMO_PASSWORD);
@@ -89,6 +91,7 @@ export async function loadDemoCoop(): Promise<'loaded' | 'already-present'> {
     return coop.id;
   });
   await loadDemoStudShare(coopId);
+  await loadDemoSwapBoard(coopId);
   return 'loaded';
 }
 

@@ -1,5 +1,6 @@
 import type { LoanStage } from '../support/lent-animal';
 import type { StudTarget } from '../support/stud-share-matrix';
+import type { SwapTarget } from '../support/swap-board-matrix';
 
 /**
  * Who may call what, against whose object → expected status. The generated tests in
@@ -63,6 +64,8 @@ export type Target =
   // farm-B request for him: waiting, accepted, hand-over recorded by A, lent, return recorded by B; or an
   // accepted stud-service visit.
   | StudTarget
+  // Swap Board: a farm-A doe listed as a draft, or open with farm B's offer waiting for the seller, or that offer accepted.
+  | SwapTarget
   // Mentorship: a pending chore entry of farm A's apprentice (her mentor is farm A's member), one returned to
   // her, the apprentice herself. The admin is of farm A but not her mentor.
   | 'choreA'
@@ -172,7 +175,16 @@ export type Body =
   | 'chatEdit'
   | 'chatRead'
   | 'chatHide'
-  | 'chatMute';
+  | 'chatMute'
+  // Swap Board.
+  | 'swapWanted'
+  | 'swapOffer'
+  | 'swapListingVersion'
+  | 'swapListingReason'
+  | 'swapCounter'
+  | 'swapAccept'
+  | 'swapOfferVersion'
+  | 'swapOfferReason';
 
 export interface MatrixRow {
   method: 'GET' | 'PATCH' | 'DELETE' | 'POST' | 'PUT';
@@ -406,6 +418,27 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'POST', path: '/api/stud-share/loans/:loanId/return', target: 'studLentA', body: 'studCustodyStep', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
   { method: 'POST', path: '/api/stud-share/loans/:loanId/return/confirm', target: 'studReturnRecordedA', body: 'studLoanVersion', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
   { method: 'POST', path: '/api/stud-share/loans/:loanId/service', target: 'studVisitA', body: 'studLoanVersion', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  // Swap Board: the board is the co-op's (apprentices see it without prices); only the listing farm changes its
+  // listing; an offer is the two farms' (another co-op: 404), each answer taken by the side whose turn it is;
+  // apprentices follow, never act.
+  { method: 'GET', path: '/api/swap-board/listings', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/swap-board/listings?mine=true', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/swap-board/summary', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'POST', path: '/api/swap-board/listings', target: 'none', body: 'swapWanted', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 201, admin: 201, otherCoop: 201 } },
+  { method: 'GET', path: '/api/swap-board/listings/:swapListingId', target: 'swapOfferedA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/swap-board/listings/:swapListingId', target: 'swapDraftA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/swap-board/listings/:swapListingId/publish', target: 'swapDraftA', body: 'swapListingVersion', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/swap-board/listings/:swapListingId/withdraw', target: 'swapOfferedA', body: 'swapListingReason', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/swap-board/offers', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/swap-board/offers?side=received&open=true', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'POST', path: '/api/swap-board/offers', target: 'swapOfferedA', body: 'swapOffer', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 201, admin: 403, otherCoop: 404 } },
+  { method: 'GET', path: '/api/swap-board/offers/:swapOfferId', target: 'swapOfferedA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/swap-board/offers/:swapOfferId/counter', target: 'swapOfferedA', body: 'swapCounter', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/swap-board/offers/:swapOfferId/accept', target: 'swapOfferedA', body: 'swapAccept', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/swap-board/offers/:swapOfferId/decline', target: 'swapOfferedA', body: 'swapOfferReason', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/swap-board/offers/:swapOfferId/withdraw', target: 'swapOfferedA', body: 'swapOfferReason', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 200, admin: 403, otherCoop: 404 } },
+  { method: 'POST', path: '/api/swap-board/offers/:swapOfferId/collected', target: 'swapAcceptedA', body: 'swapOfferVersion', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 200, admin: 403, otherCoop: 404 } },
+  { method: 'POST', path: '/api/swap-board/offers/:swapOfferId/hand-over-failed', target: 'swapAcceptedA', body: 'swapOfferReason', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
   // Hutch cards: each person prints their own farm's breeding does.
   { method: 'GET', path: '/api/hutch-cards?does=breeding', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   // The notification centre: everyone signed in has their own bell; one person's notification is nobody else's.
@@ -500,6 +533,7 @@ export const matrixAreas = [
   { area: 'notifications', paths: /^\/api\/notifications\b/ },
   { area: 'processing-days', paths: /^\/api\/processing-days\b/ },
   { area: 'stud-share', paths: /^\/api\/stud-share\b/ },
+  { area: 'swap-board', paths: /^\/api\/swap-board\b/ },
   { area: 'mentorship', paths: /^\/api\/mentorship\b/ },
   { area: 'chat', paths: /^\/api\/chat\b/ },
 ] as const;

@@ -12,6 +12,7 @@ import { bookingBody, dayAs, siteAs } from '../support/processing-days';
 import { countingAgentFor, type StatementCount } from '../support/statement-counter';
 import { testApp } from '../support/test-app';
 import { doeOf, offeredBuck, requestAs } from '../support/stud-share';
+import { listedDoe, offerAs } from '../support/swap-board';
 import { fillThread } from '../support/chat';
 import { listThreads, openSubjectThread } from '../../packages/server/src/modules/chat/chat.service';
 
@@ -242,6 +243,31 @@ const endpoints: Endpoint[] = [
         asker: coop.otherFarmMember,
         growTo: grower(coop.id, 'stud_loans', loan.id),
       };
+    },
+  },
+  {
+    name: 'the Swap Board',
+    over: { ownBudget: 6, why: 'the page with its total, the farms, breeds and listed animals it presents, the kept pedigree\'s version (completeness and COI), the sellers\' latest weights' },
+    async arrange(coop) {
+      const { listing } = await listedDoe(coop.member);
+      return { url: '/api/swap-board/listings?pageSize=10', asker: coop.otherFarmMember, growTo: grower(coop.id, 'swap_listings', listing.id) };
+    },
+  },
+  {
+    name: 'a Swap Board listing with its offers',
+    over: { ownBudget: 8, why: 'the listing, its offers and their thread, the farms, breeds and animals (listed and in trade) they present, the kept pedigree\'s version, the seller\'s latest weights' },
+    async arrange(coop) {
+      const { listing } = await listedDoe(coop.member);
+      const offer = await offerAs(coop.otherFarmMember, listing.id);
+      return { url: `/api/swap-board/listings/${listing.id}`, asker: coop.member, growTo: grower(coop.id, 'swap_offers', offer.id) };
+    },
+  },
+  {
+    name: 'the offers on my listings',
+    async arrange(coop) {
+      const { listing } = await listedDoe(coop.member);
+      const offer = await offerAs(coop.otherFarmMember, listing.id);
+      return { url: '/api/swap-board/offers?side=received&pageSize=10', asker: coop.member, growTo: grower(coop.id, 'swap_offers', offer.id) };
     },
   },
   {

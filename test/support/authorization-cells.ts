@@ -27,6 +27,7 @@ import { chatBody, chatStateOf, chatTarget } from './chat-matrix';
 import { processingDayBody, processingDaysStateOf, processingDayTarget } from './processing-days-matrix';
 import { loanTarget, tracesHiddenFrom } from './lent-animal';
 import { studBody, studStateOf, studTarget } from './stud-share-matrix';
+import { swapBody, swapStateOf, swapTarget } from './swap-board-matrix';
 import { agentFor, ROOMY_SIGN_IN, sharedSignedInAgent, signedInAgent, testApp, type Agent } from './test-app';
 
 /**
@@ -127,7 +128,7 @@ export function describeMatrixArea(area: MatrixArea) {
   }
 
   async function freshTarget(target: Target) {
-    return { ...(await membershipTarget(target)), ...(await herdTarget(coop, target)), ...(await almanacTarget(coop, target)), ...(await herdFilesTarget(coop, target)), ...(await loanTarget(coop, target)), ...(await ledgerTarget(coop, target, foreign)), ...(await notificationTarget(coop, target)), ...(await studTarget(coop, target)), ...(await mentorshipTarget(coop, target)), ...(await chatTarget(coop, target)), ...(await processingDayTarget(coop, target)) };
+    return { ...(await membershipTarget(target)), ...(await herdTarget(coop, target)), ...(await almanacTarget(coop, target)), ...(await herdFilesTarget(coop, target)), ...(await loanTarget(coop, target)), ...(await ledgerTarget(coop, target, foreign)), ...(await notificationTarget(coop, target)), ...(await studTarget(coop, target)), ...(await mentorshipTarget(coop, target)), ...(await chatTarget(coop, target)), ...(await processingDayTarget(coop, target)), ...(await swapTarget(coop, target)) };
   }
   type TargetIds = Awaited<ReturnType<typeof freshTarget>>;
   const readTargets = new Map<Target, Promise<TargetIds>>();
@@ -208,7 +209,7 @@ export function describeMatrixArea(area: MatrixArea) {
           const body = (await bodyFor(row.body, ids, persona)) ?? (await herdBody(coop, row.body, ids))
             ?? (await almanacBody(coop, row.body, ids, personaOf?.coopId ?? coop.id, personaOf?.farmId ?? null)) ?? ledgerBody(coop, row.body, ids) ?? notificationBody(row.body) ?? studBody(coop, row.body, ids)
             ?? (await mentorshipBody(row.body, ids, personaOf?.coopId ?? coop.id)) ?? chatBody(row.body, ids)
-            ?? processingDayBody(coop, row.body, ids);
+            ?? processingDayBody(coop, row.body, ids) ?? swapBody(row.body, ids);
           const before = await stateOf(ids, persona);
           const herdBefore = await herdStateOf(coop.id, ids);
           const almanacBefore = await almanacStateOf(coop.id);
@@ -219,6 +220,7 @@ export function describeMatrixArea(area: MatrixArea) {
           const studBefore = await studStateOf(coop.id);
           const mentorshipBefore = await mentorshipStateOf(coop.id);
           const chatBefore = await chatStateOf(coop.id);
+          const swapBefore = await swapStateOf(coop.id);
           const method = row.method.toLowerCase() as 'get' | 'patch' | 'delete' | 'post' | 'put';
           const res = await herdFilesSend(agent[method](path), row.body, body);
           expect(res.status).toBe(status);
@@ -246,6 +248,7 @@ export function describeMatrixArea(area: MatrixArea) {
             expect(await studStateOf(coop.id)).toEqual(studBefore);
             expect(await mentorshipStateOf(coop.id)).toEqual(mentorshipBefore);
             expect(await chatStateOf(coop.id)).toEqual(chatBefore);
+            expect(await swapStateOf(coop.id)).toEqual(swapBefore);
           }
         });
       }

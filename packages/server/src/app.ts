@@ -36,6 +36,7 @@ import { feedRoutes } from './modules/feed/feed.routes';
 import { performanceRoutes } from './modules/performance/performance.routes';
 import { cardWebhookRoutes, ledgerRoutes } from './modules/ledger/ledger.routes';
 import { studShareRoutes } from './modules/stud-share/stud-share.routes';
+import { swapBoardRoutes } from './modules/swap-board/swap-board.routes';
 import { mentorshipRoutes } from './modules/mentorship/mentorship.routes';
 import { notificationRoutes } from './modules/notifications/notifications.routes';
 import { processingDayRoutes } from './modules/processing-days/processing-days.routes';
@@ -161,6 +162,7 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
   // The Ledger: fees and balances between farms and the co-op, statements, dues and card payments.
   api.use('/ledger', ledgerRoutes(config));
   api.use('/stud-share', studShareRoutes());
+  api.use('/swap-board', swapBoardRoutes());
   api.use('/notifications', notificationRoutes());
   api.use('/mentorship', mentorshipRoutes(config));
   // Co-op Chat: the channel, topics and the threads beside litters, processing days and loans.

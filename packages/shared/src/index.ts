@@ -37,6 +37,7 @@ export * from './ledger';
 export * from './schemas/processing-days.schema';
 export * from './processing-days';
 export * from './schemas/stud-share.schema';
+export * from './schemas/swap-board.schema';
 export * from './units/distance';
 export * from './notifications';
 export * from './schemas/mentorship.schema';

@@ -1,5 +1,6 @@
 import type { ApplicationStatus } from './schemas/application.schema';
 import type { StudLoanState } from './schemas/stud-share.schema';
+import type { SwapListingState, SwapOfferState } from './schemas/swap-board.schema';
 import type { ChatMessageDto } from './chat';
 
 /** Socket.IO event names and payloads; the client maps each to TanStack Query invalidations. */
@@ -40,6 +41,10 @@ export const RealtimeEvent = {
   studOfferChanged: 'stud-share:offer-changed',
   /** A request or loan changed (requested, answered, handed over, returned…); to the two farms' rooms only (no fees travel). */
   studLoanChanged: 'stud-share:loan-changed',
+  /** A Swap Board listing was published, changed or closed; to the co-op room (no prices travel). */
+  swapListingChanged: 'swap-board:listing-changed',
+  /** An offer was made, countered, answered or its hand-over recorded; to the two farms' rooms only (no prices travel). */
+  swapOfferChanged: 'swap-board:offer-changed',
   /** A notification arrived for the person, or they read some; to their user room only. */
   notificationsChanged: 'notifications:changed',
   /** An apprentice's entry was sent, reviewed or a skill marked; to the apprentice's and her mentor's user rooms. */
@@ -70,6 +75,8 @@ export interface ServerToClientEvents {
   [RealtimeEvent.processingDayChanged]: (payload: ProcessingDayChangedPayload) => void;
   [RealtimeEvent.studOfferChanged]: (payload: { offerId: string; buckId: string; farmId: string }) => void;
   [RealtimeEvent.studLoanChanged]: (payload: { loanId: string; buckId: string; farmIds: string[]; state: StudLoanState }) => void;
+  [RealtimeEvent.swapListingChanged]: (payload: { listingId: string; farmId: string; state: SwapListingState }) => void;
+  [RealtimeEvent.swapOfferChanged]: (payload: { offerId: string; listingId: string; farmIds: string[]; state: SwapOfferState }) => void;
   [RealtimeEvent.notificationsChanged]: (payload: { unread: number; title: string | null; link: string | null }) => void;
   [RealtimeEvent.mentorshipChanged]: (payload: { apprenticeId: string; what: 'submitted' | 'reviewed' | 'skill' }) => void;
   [RealtimeEvent.chatMessage]: (payload: ChatMessageDto) => void;

@@ -172,6 +172,40 @@ const studShareRoutes: RouteObject[] = [
   },
 ];
 
+/** Swap Board: the board, wanted posts, my listings and offers, a listing's page and the form to list. */
+const swapBoardRoutes: RouteObject[] = [
+  {
+    index: true,
+    lazy: async () => {
+      const { loader, BoardPage } = await import('../routes/swap-board/board');
+      return { loader, Component: BoardPage };
+    },
+  },
+  {
+    path: 'wanted',
+    lazy: async () => ({ Component: (await import('../routes/swap-board/board')).WantedPage }),
+  },
+  {
+    path: 'mine',
+    lazy: async () => ({ Component: (await import('../routes/swap-board/my-listings')).MyListingsPage }),
+  },
+  {
+    path: 'offers',
+    lazy: async () => ({ Component: (await import('../routes/swap-board/my-offers')).MyOffersPage }),
+  },
+  {
+    path: 'new',
+    lazy: async () => ({ Component: (await import('../routes/swap-board/new-listing')).NewListingPage }),
+  },
+  {
+    path: 'listings/:listingId',
+    lazy: async () => {
+      const { loader, ListingPage } = await import('../routes/swap-board/listing');
+      return { loader, Component: ListingPage };
+    },
+  },
+];
+
 const routes: RouteObject[] = [
   {
     Component: RootLayout,
@@ -421,6 +455,11 @@ const routes: RouteObject[] = [
                 path: 'stud-share',
                 lazy: async () => ({ Component: (await import('../routes/stud-share/stud-share-layout')).StudShareLayout }),
                 children: studShareRoutes,
+              },
+              {
+                path: 'swap-board',
+                lazy: async () => ({ Component: (await import('../routes/swap-board/swap-board-layout')).SwapBoardLayout }),
+                children: swapBoardRoutes,
               },
               {
                 // Mentorship: the apprentice's log and skills; the mentor's review queue and apprentices; the admin reads all.

@@ -1,7 +1,7 @@
 import { planArrivalQuarantine } from '../modules/almanac/quarantine.service';
 import { groupNamesOfFarm } from '../modules/almanac/treatments.service';
 import { damKindlingDays } from '../modules/animals/animal-validation';
-import { onArrival } from '../modules/animals/custody-moves.service';
+import { onArrival, onOwnershipEnded } from '../modules/animals/custody-moves.service';
 import { feedTotalsByGroup } from '../modules/feed/feed-totals.service';
 import { groupFeedTotals, processedHeadsOfGroups } from '../modules/grow-out/grow-out-context';
 import { groupsOfFarm } from '../modules/grow-out/grow-out-facts.service';
@@ -15,6 +15,9 @@ import { registerThreadSubject } from '../modules/chat/chat-subjects.service';
 import { litterThreadSubject } from '../modules/litters/litter-thread.service';
 import { processingDayThreadSubject } from '../modules/processing-days/day-thread.service';
 import { loanThreadSubject } from '../modules/stud-share/loan-thread.service';
+import { listingThreadSubject } from '../modules/swap-board/listing-thread.service';
+import { closeListingsOfAnimal } from '../modules/swap-board/swap-listings.service';
+import { isPhotoListed } from '../modules/swap-board/swap-board-facts.service';
 
 let plugged = false;
 
@@ -31,14 +34,18 @@ export function plugModulePorts(): void {
   if (plugged) return;
   plugged = true;
   onArrival.plug(planArrivalQuarantine);
+  // The Swap Board builds on the herd: an animal leaving its farm closes that farm's listings of it.
+  onOwnershipEnded.plug(closeListingsOfAnimal);
   damKindlingDays.plug(kindlingDaysOfDams);
   groupFeedTotals.plug(feedTotalsByGroup);
   processedHeadsOfGroups.plug(processedHeadsOf);
   sharedDaysOfFarm.plug(processingDaysOfFarm);
-  photoPublishedTo.plug(isPhotoPublished);
+  // A photo is published by a buck card or a loan's hand-over (Stud Share), or by a listing (Swap Board).
+  photoPublishedTo.plug(async (tx, actor, photoId) => (await isPhotoPublished(tx, actor, photoId)) || isPhotoListed(tx, actor, photoId));
   // Co-op Chat's threads beside subjects: who reads the subject reads its thread.
   registerThreadSubject('litter', litterThreadSubject);
   registerThreadSubject('processing-day', processingDayThreadSubject);
   registerThreadSubject('loan', loanThreadSubject);
+  registerThreadSubject('swap-listing', listingThreadSubject);
   groupNamesOfFarm.plug(async (tx, coopId, farmId) => new Map((await groupsOfFarm(tx, coopId, farmId)).map((g) => [g.id, g.name])));
 }

@@ -179,6 +179,9 @@ export function defineAbilityFor(user: AbilityUser | null): AppAbility {
     can(['read', 'review'], 'ChoreLog', { farmId, mentorId: user.id });
     can(['read', 'review'], 'SkillRecord', { mentorId: user.id });
     can('manage', 'StudListing', { farmId });
+    // Swap Board listings and offers of the farm: `{ farmId }` is the seller's farm on a listing, the
+    // farm's side (seller or buyer) on an offer.
+    can('manage', 'Trade', { farmId });
     // A loan belongs to both farms: the buck's owning farm and the one that asked for him (the service
     // decides which side may take which step).
     can(['read', 'update'], 'Loan', { ownerFarmId: farmId });

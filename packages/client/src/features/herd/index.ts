@@ -8,3 +8,6 @@ export { CoiValue } from './components/coi-badge';
 export { coiLevel, formatCoi, purityLabels } from './herd-labels';
 export { breedsQueryOptions } from './api/get-breeds';
 export { useWeightUnit } from './hooks/use-weight-unit';
+// The pedigree picture of an animal, for the Swap Board's listing page.
+export { PedigreeTree } from './components/pedigree-tree';
+export { pedigreeQueryOptions } from './api/get-pedigree';

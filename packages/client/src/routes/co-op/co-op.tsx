@@ -8,6 +8,7 @@ import { ChatSummary } from '../../features/chat';
 import { MentorshipSummary } from '../../features/mentorship';
 import { ProcessingDaysSummary } from '../../features/processing-days';
 import { StudShareSummary } from '../../features/stud-share';
+import { SwapBoardSummary } from '../../features/swap-board';
 import { formatInstantDate } from '../../lib/dates';
 import { useSession } from '../../lib/session';
 
@@ -27,6 +28,7 @@ export function CoopPage() {
       <div className="grid grid-cols-1 gap-6 lg:grid-cols-2 [&>*]:min-w-0">
         <ProcessingDaysSummary />
         <StudShareSummary />
+        <SwapBoardSummary />
         <ChatSummary />
         <MentorshipSummary />
       </div>

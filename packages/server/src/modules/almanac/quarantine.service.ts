@@ -1,4 +1,5 @@
-import type { Transaction } from 'sequelize';
+import { QueryTypes, type Transaction } from 'sequelize';
+import { database } from '../../db/sequelize';
 import { planQuarantine } from '@burrowline/shared';
 import { getCoop } from '../coops/coops.service';
 import { announceAlmanac } from './almanac-events.service';
@@ -26,4 +27,22 @@ export async function planArrivalQuarantine(tx: Transaction, arrival: Arrival): 
   if (planned.length === 0) return;
   await insertPlannedTasks(tx, { coopId: arrival.coopId, farmId: arrival.farmId, sourceId: arrival.animalId, animalId: arrival.animalId }, planned);
   announceAlmanac(tx, [arrival.farmId]);
+}
+
+/**
+ * The arrival quarantines covering a date, by animal: its last day (the Swap Board refuses to list an
+ * animal still isolated after arriving). A quarantine ticked off as done ends it early.
+ */
+export async function quarantinesCovering(tx: Transaction, animalIds: string[], date: string): Promise<Map<string, string>> {
+  const out = new Map<string, string>();
+  if (animalIds.length === 0) return out;
+  const rows = await database().query<{ animal_id: string; ends_on: string }>(
+    `SELECT animal_id, max(due_on)::text AS ends_on FROM almanac_tasks
+      WHERE kind = 'quarantine_end' AND animal_id = ANY($1::uuid[]) AND state IN ('open', 'moved')
+        AND coalesce(window_start, anchor_date) <= $2::date AND due_on > $2::date
+      GROUP BY animal_id`,
+    { bind: [animalIds, date], type: QueryTypes.SELECT, transaction: tx },
+  );
+  for (const row of rows) out.set(row.animal_id, row.ends_on);
+  return out;
 }

@@ -18,7 +18,7 @@ const historiesSql = `SELECT
    FROM animal_status_events e LEFT JOIN users u ON u.id = e.recorded_by WHERE e.coop_id = $1 AND e.animal_id = $2) AS status,
   (SELECT coalesce(json_agg(json_build_object('id', c.id, 'kind', c.kind, 'fromFarmId', c.from_farm_id, 'toFarmId', c.to_farm_id,
       'owningFarmId', c.owning_farm_id, 'keepingFarmId', c.keeping_farm_id, 'movedOn', c.moved_on, 'tattooBefore', c.tattoo_before,
-      'tattooAfter', c.tattoo_after, 'note', c.note) ORDER BY c.moved_on, c.created_at), '[]')
+      'tattooAfter', c.tattoo_after, 'note', c.note, 'notesTravel', c.notes_travel) ORDER BY c.moved_on, c.created_at), '[]')
    FROM animal_custody_events c WHERE c.coop_id = $1 AND c.animal_id = $2) AS custody,
   (SELECT coalesce(json_agg(json_build_object('id', n.id, 'animalId', n.animal_id, 'farmId', n.farm_id, 'body', n.body, 'notedOn', n.noted_on,
       'enteredBy', n.entered_by, 'enteredByName', u.name, 'reviewState', n.review_state, 'reviewComment', n.review_comment, 'version', n.version)
@@ -27,7 +27,7 @@ const historiesSql = `SELECT
 
 interface Histories {
   status: (Pick<AnimalStatusEvent, 'id' | 'kind' | 'value' | 'cause' | 'effectiveOn' | 'farmId' | 'recordedBy'> & { recordedByName: string | null })[];
-  custody: Pick<CustodyEvent, 'id' | 'kind' | 'fromFarmId' | 'toFarmId' | 'owningFarmId' | 'keepingFarmId' | 'movedOn' | 'tattooBefore' | 'tattooAfter' | 'note'>[];
+  custody: (Pick<CustodyEvent, 'id' | 'kind' | 'fromFarmId' | 'toFarmId' | 'owningFarmId' | 'keepingFarmId' | 'movedOn' | 'tattooBefore' | 'tattooAfter' | 'note'> & { notesTravel: boolean })[];
   notes: (Pick<AnimalNote, 'id' | 'animalId' | 'farmId' | 'body' | 'notedOn' | 'enteredBy' | 'reviewState' | 'reviewComment' | 'version'> & { enteredByName: string | null })[];
 }
 
@@ -42,7 +42,7 @@ export async function detailOf(tx: Transaction, actor: SessionUser, ctx: Present
   const [histories] = await selectRows<Histories>(tx, historiesSql, [actor.coopId, animalId]);
   const { status: statusEvents, custody: custodyEvents } = histories!;
   // The notes of farms whose records of it the viewer reads (RLS keeps the co-op; this keeps the farm).
-  const noteFarms = new Set(privateRecordFarmsGiven(actor, { owningFarmId: row.owning_farm_id }, 'AnimalNote', custodyEvents.map((e) => e.owningFarmId)));
+  const noteFarms = new Set(privateRecordFarmsGiven(actor, { owningFarmId: row.owning_farm_id }, 'AnimalNote', custodyEvents));
   const notes = histories!.notes.filter((n) => noteFarms.has(n.farmId));
   const parentIds = [row.sire_id, row.dam_id].filter((id): id is string => Boolean(id));
   const relatives = await selectAnimals(tx, actor.coopId, 'a.sire_id = $2 OR a.dam_id = $2 OR a.id = ANY($3::uuid[])', [animalId, parentIds], { orderBy: 'a.birth_date DESC, a.tattoo' });

@@ -160,23 +160,31 @@ export async function privateRecordFarmsOf(
   tx: Transaction,
 ): Promise<string[]> {
   if (!actor.farmId) return [];
-  const owners = await query<{ farm_id: string }>(
+  const custody = await query<CustodyOwnership>(
     tx,
-    'SELECT DISTINCT owning_farm_id AS farm_id FROM animal_custody_events WHERE animal_id = $1 AND owning_farm_id IS NOT NULL',
+    `SELECT owning_farm_id AS "owningFarmId", from_farm_id AS "fromFarmId", kind, notes_travel AS "notesTravel"
+       FROM animal_custody_events WHERE animal_id = $1`,
     [animal.id],
   );
-  return privateRecordFarmsGiven(actor, animal, kind, owners.map((o) => o.farm_id));
+  return privateRecordFarmsGiven(actor, animal, kind, custody);
 }
 
-/** privateRecordFarmsOf when the caller already read the farms that ever owned the animal (its custody history). */
+/** What of an animal's custody history decides whose private records of it a viewer reads. */
+export interface CustodyOwnership { owningFarmId: string | null; fromFarmId: string | null; kind: string; notesTravel: boolean }
+
+/** privateRecordFarmsOf when the caller already read the animal's custody history. */
 export function privateRecordFarmsGiven(
   actor: SessionUser,
   animal: { owningFarmId: string | null },
   kind: PrivateRecordKind,
-  formerOwners: (string | null)[],
+  custody: CustodyOwnership[],
 ): string[] {
   if (!actor.farmId) return [];
-  const ownerFarms = new Set([...formerOwners.filter((f): f is string => Boolean(f)), ...(animal.owningFarmId ? [animal.owningFarmId] : [])]);
+  // A farm that sold the animal through the Swap Board keeps its notes: the buyer reads its weights and photos only.
+  const notesStay = (farmId: string) => custody.some((e) => e.fromFarmId === farmId && e.kind === 'transferred' && !e.notesTravel);
+  const formerOwners = [...new Set(custody.map((e) => e.owningFarmId).filter((f): f is string => Boolean(f)))]
+    .filter((farmId) => !(kind === 'AnimalNote' && farmId !== animal.owningFarmId && notesStay(farmId)));
+  const ownerFarms = new Set([...formerOwners, ...(animal.owningFarmId ? [animal.owningFarmId] : [])]);
   const ability = defineAbilityFor(actor);
   return [...new Set([actor.farmId, ...ownerFarms])].filter((farmId) =>
     ability.can('read', subjectOf(kind, { coopId: actor.coopId, farmId, animalOwningFarmId: animal.owningFarmId, byAnOwner: ownerFarms.has(farmId) })),

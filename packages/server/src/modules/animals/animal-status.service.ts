@@ -11,6 +11,7 @@ import { animalForChange } from './animal-access';
 import { detailOf } from './animal-detail';
 import { hasMessages, type FieldMessages } from '../farms/farm-access';
 import { CustodyEvent } from './custody-event.model';
+import { onOwnershipEnded } from './custody-moves.service';
 
 /* Dated lifecycle and disposition changes; processing calls applyStatusEvent inside its transaction. */
 
@@ -75,6 +76,9 @@ export async function applyStatusEvent(tx: Transaction, actor: SessionUser, anim
         },
         { transaction: tx },
       );
+    }
+    if (input.kind === 'disposition' && input.value !== 'on_farm' && animal.owningFarmId) {
+      await onOwnershipEnded(tx, { coopId: actor.coopId, animalId, formerFarmId: animal.owningFarmId });
     }
     await recordChanges({ coopId: actor.coopId, tableName: 'animals', recordId: animal.id, actorUserId: actor.id, changes }, tx);
     // Leaving or returning changes the card's "on farm" and current farm for everyone.

@@ -15,6 +15,8 @@ export class CustodyEvent extends Model<InferAttributes<CustodyEvent>, InferCrea
   declare tattooBefore: CreationOptional<string | null>;
   declare tattooAfter: CreationOptional<string | null>;
   declare note: CreationOptional<string>;
+  /** False when the former owner's private notes stay with it (a Swap Board sale). */
+  declare notesTravel: CreationOptional<boolean>;
   declare recordedBy: string | null;
   declare createdAt: CreationOptional<Date>;
 
@@ -33,6 +35,7 @@ export class CustodyEvent extends Model<InferAttributes<CustodyEvent>, InferCrea
         tattooBefore: { type: DataTypes.TEXT, allowNull: true },
         tattooAfter: { type: DataTypes.TEXT, allowNull: true },
         note: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
+        notesTravel: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: true },
         recordedBy: { type: DataTypes.UUID, allowNull: true },
         createdAt: DataTypes.DATE,
       },

@@ -36,6 +36,25 @@ export interface Arrival {
  */
 export const onArrival = port<(tx: Transaction, arrival: Arrival) => Promise<void>>('animal arrival');
 
+/** An animal no longer belonging to a farm (transferred to another, sold, died, culled). */
+export interface OwnershipEnd {
+  coopId: string;
+  animalId: string;
+  formerFarmId: string;
+}
+
+/**
+ * What else happens when a farm's ownership of an animal ends (the Swap Board closes its listings). The
+ * Swap Board builds on the herd, so the herd cannot import it; the composition root plugs it in.
+ */
+export const onOwnershipEnded = port<(tx: Transaction, end: OwnershipEnd) => Promise<void>>('animal ownership ended', async () => {});
+
+/** How a move made by another module's workflow differs from a plain one. */
+export interface MoveOptions {
+  /** The former owner's private notes stay with it (a sale through the Swap Board). */
+  notesStay?: boolean;
+}
+
 /**
  * Moves an animal between farms of the co-op and keeps the move in its custody history: a transfer
  * of ownership, a loan out, or its return home. An arrival whose tattoo clashes with one the
@@ -56,13 +75,15 @@ export async function moveAnimal(actor: SessionUser, animalId: string, input: Cu
  * A move made inside another module's workflow (a Stud Share hand-over or return), whose service has
  * already checked that the actor's farm is party to it. The same rules and history as `moveAnimal`.
  */
-export async function moveAnimalInTransaction(tx: Transaction, actor: SessionUser, animalId: string, input: CustodyMoveInput): Promise<void> {
+export async function moveAnimalInTransaction(tx: Transaction, actor: SessionUser, animalId: string, input: CustodyMoveInput, options: MoveOptions = {}): Promise<void> {
   const animal = await Animal.findOne({ where: { id: animalId, coopId: actor.coopId }, transaction: tx, lock: tx.LOCK.UPDATE });
   if (!animal) throw AppError.notFound('That animal');
-  await applyCustodyMove(tx, actor, animal, input, await presentContextFor(actor, tx));
+  await applyCustodyMove(tx, actor, animal, input, await presentContextFor(actor, tx), options);
 }
 
-export async function applyCustodyMove(tx: Transaction, actor: SessionUser, animal: Animal, input: CustodyMoveInput, ctx: PresentContext): Promise<void> {
+export async function applyCustodyMove(
+  tx: Transaction, actor: SessionUser, animal: Animal, input: CustodyMoveInput, ctx: PresentContext, options: MoveOptions = {},
+): Promise<void> {
   const errors: FieldMessages = {};
   const from = animal.keepingFarmId!;
   const to = input.kind === 'returned' ? animal.owningFarmId! : input.toFarmId!;
@@ -88,7 +109,8 @@ export async function applyCustodyMove(tx: Transaction, actor: SessionUser, anim
 
   const before = { owningFarmId: animal.owningFarmId, keepingFarmId: animal.keepingFarmId, tattoo: animal.tattoo, hutch: animal.hutch };
   // A hutch number means something only on the farm that assigned it.
-  if (input.kind === 'transferred') animal.set({ owningFarmId: to, keepingFarmId: to, hutch: '' });
+  // The owner-only notes of a sale whose notes stay are not the buyer's to read.
+  if (input.kind === 'transferred') animal.set({ owningFarmId: to, keepingFarmId: to, hutch: '', ...(options.notesStay ? { notes: '' } : {}) });
   else animal.set({ keepingFarmId: to, hutch: input.kind === 'lent' ? '' : animal.hutch });
   animal.tattoo = tattoo;
   await animal.save({ transaction: tx });
@@ -106,12 +128,14 @@ export async function applyCustodyMove(tx: Transaction, actor: SessionUser, anim
       tattooBefore: tattoo !== before.tattoo ? before.tattoo : null,
       tattooAfter: tattoo !== before.tattoo ? tattoo : null,
       note: input.note,
+      notesTravel: !options.notesStay,
       recordedBy: actor.id,
     },
     { transaction: tx },
   );
   // Arriving at a farm (traded, lent to it, back home from a loan): the Almanac plans its quarantine there.
   await onArrival(tx, { coopId: actor.coopId, farmId: to, animalId: animal.id, arrivedOn: input.movedOn });
+  if (input.kind === 'transferred' && before.owningFarmId) await onOwnershipEnded(tx, { coopId: actor.coopId, animalId: animal.id, formerFarmId: before.owningFarmId });
   if (input.kind === 'transferred') {
     await AnimalStatusEvent.bulkCreate(
       [

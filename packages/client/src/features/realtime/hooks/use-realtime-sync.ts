@@ -19,6 +19,7 @@ import { mentorshipKeys } from '../../mentorship';
 import { processingDayKeys } from '../../processing-days';
 import { notificationKeys, type LatestNotification } from '../../notifications';
 import { studShareKeys } from '../../stud-share';
+import { swapBoardKeys } from '../../swap-board';
 import { chatKeys } from '../../chat';
 
 /**
@@ -107,6 +108,10 @@ export function useRealtimeSync(): void {
           refreshAlmanac();
         }
       };
+      // A listing was published, changed or closed (co-op room), or an offer of one of the person's farms moved
+      // (the two farms' rooms): the board, the listing pages and the offers. An accepted offer also moves animals
+      // between Herds, which their own herd events refresh.
+      const refreshSwapBoard = () => void queryClient.invalidateQueries({ queryKey: swapBoardKeys.all });
       // An apprentice's entry was sent or reviewed, or a skill marked: her log, the mentor's queue, the pages.
       const refreshMentorship = () => void queryClient.invalidateQueries({ queryKey: mentorshipKeys.all });
       const refreshAll = () => {
@@ -123,6 +128,7 @@ export function useRealtimeSync(): void {
         refreshLedger();
         refreshProcessingDays();
         void queryClient.invalidateQueries({ queryKey: studShareKeys.all });
+        refreshSwapBoard();
       };
       const endSession = ({ reason }: { reason: string }) =>
         void leaveSignedInArea(
@@ -152,6 +158,8 @@ export function useRealtimeSync(): void {
       socket.on(RealtimeEvent.studOfferChanged, refreshStudOffers);
       socket.on(RealtimeEvent.studLoanChanged, refreshStudLoans);
       socket.on(RealtimeEvent.mentorshipChanged, refreshMentorship);
+      socket.on(RealtimeEvent.swapListingChanged, refreshSwapBoard);
+      socket.on(RealtimeEvent.swapOfferChanged, refreshSwapBoard);
       // New chat messages somewhere the person reads (or their own read position moved): unread counts.
       const refreshChat = () => void queryClient.invalidateQueries({ queryKey: chatKeys.threads() });
       socket.on(RealtimeEvent.chatActivity, refreshChat);
@@ -193,6 +201,8 @@ export function useRealtimeSync(): void {
         socket.off(RealtimeEvent.studOfferChanged, refreshStudOffers);
         socket.off(RealtimeEvent.studLoanChanged, refreshStudLoans);
         socket.off(RealtimeEvent.mentorshipChanged, refreshMentorship);
+        socket.off(RealtimeEvent.swapListingChanged, refreshSwapBoard);
+        socket.off(RealtimeEvent.swapOfferChanged, refreshSwapBoard);
         socket.off(RealtimeEvent.sessionEnded, endSession);
         socket.io.off('reconnect', refreshAll);
         socket.off('connect', connected);

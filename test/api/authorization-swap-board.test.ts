@@ -1,0 +1,3 @@
+import { describeMatrixArea } from '../support/authorization-cells';
+
+describeMatrixArea('swap-board');
