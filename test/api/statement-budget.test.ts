@@ -72,6 +72,18 @@ const endpoints: Endpoint[] = [
     },
   },
   {
+    name: 'the doe board',
+    async arrange(coop) {
+      const { service } = await litterAs(coop.member, { servicedDaysAgo: 40, kindledDaysAgo: 9, bornAlive: 6 });
+      const farm = coop.member.farmId;
+      return {
+        url: '/api/almanac/doe-board?pageSize=10',
+        asker: coop.member,
+        growTo: grower(coop.id, 'animals', service.doe.id, { tattoo: `t.tattoo || '-' || left(md5(random()::text), 8)` }, `keeping_farm_id = $2 AND sex = 'doe'`, [farm]),
+      };
+    },
+  },
+  {
     name: "an animal's detail",
     over: { ownBudget: 13, why: 'the animal three times, its status and custody events, both parents, the ancestors, notes, who recorded them' },
     async arrange(coop) {
