@@ -48,7 +48,7 @@ function LitterChart({ record }: { record: BreedingRecordDto }) {
             <CartesianGrid vertical={false} stroke="#e0dbd1" />
             <XAxis dataKey="name" tick={{ fill: '#3b2f2a', fontSize: 12 }} />
             <YAxis allowDecimals={false} tick={{ fill: '#5a544d', fontSize: 12 }} />
-            <Legend wrapperStyle={{ fontSize: 13 }} />
+            <Legend wrapperStyle={{ fontSize: 13 }} formatter={(value) => <span style={{ color: '#3b2f2a' }}>{value}</span>} />
             <Bar dataKey="weaned" name="Weaned" stackId="kits" fill="#2f5d50" isAnimationActive={false} />
             <Bar dataKey="onDoe" name="With her" stackId="kits" fill="#7fa89b" isAnimationActive={false} />
             <Bar dataKey="away" name="Fostered away" stackId="kits" fill="#c9c1b3" isAnimationActive={false} />

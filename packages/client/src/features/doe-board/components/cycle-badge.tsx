@@ -15,9 +15,9 @@ const tones: Record<DoeCycleState['state'], BadgeTone> = {
 };
 
 /** Where a doe stands, in words ("Serviced, day 9"); the tint only helps. */
-export function CycleBadge({ cycle, className }: { cycle: DoeCycleState; className?: string }) {
+export function CycleBadge({ cycle, className, wrap = false }: { cycle: DoeCycleState; className?: string; wrap?: boolean }) {
   return (
-    <Badge tone={tones[cycle.state]} className={className}>
+    <Badge tone={tones[cycle.state]} className={className} wrap={wrap}>
       {cycle.label}
     </Badge>
   );

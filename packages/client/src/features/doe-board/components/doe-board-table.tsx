@@ -13,8 +13,9 @@ function columnsFor(today: string) {
       cell: (info) => <RowLink to={`/herd/${info.row.original.id}`}>{info.getValue() || '—'}</RowLink>,
     }),
     column.accessor('name', { id: 'name', header: 'Name', enableSorting: true, cell: (info) => info.getValue() || <span className="text-grey-500">—</span> }),
-    column.display({ id: 'state', header: 'In her cycle', enableSorting: true, cell: (info) => <CycleBadge cycle={info.row.original.cycle} /> }),
-    column.display({ id: 'due', header: 'Next, and when', enableSorting: true, cell: (info) => <NextAction next={info.row.original.cycle.next} today={today} /> }),
+    // Accessors (not display columns) so their headers sort; the server does the sorting.
+    column.accessor((d) => d.cycle.state, { id: 'state', header: 'In her cycle', enableSorting: true, cell: (info) => <CycleBadge cycle={info.row.original.cycle} /> }),
+    column.accessor((d) => d.cycle.next?.on ?? '', { id: 'due', header: 'Next, and when', enableSorting: true, cell: (info) => <NextAction next={info.row.original.cycle.next} today={today} /> }),
     column.accessor('hutch', { id: 'hutch', header: 'Hutch', enableSorting: false, cell: (info) => info.getValue() || <span className="text-grey-500">—</span> }),
   ];
 }

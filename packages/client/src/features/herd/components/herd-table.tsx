@@ -44,7 +44,7 @@ function columnsFor(unit: WeightUnit) {
     column.accessor('ageClass', { id: 'ageClass', header: columnLabels.ageClass, cell: (info) => (info.getValue() ? ageClassLabels[info.getValue()!] : '—') }),
     column.accessor('birthDate', { id: 'birthDate', header: columnLabels.birthDate, cell: (info) => <span className="whitespace-nowrap">{info.getValue()}</span> }),
     column.accessor('lifecycle', { id: 'lifecycle', header: columnLabels.lifecycle, cell: (info) => lifecycleLabels[info.getValue()] }),
-    column.display({ id: 'cycle', header: columnLabels.cycle, cell: (info) => (info.row.original.cycle ? <CycleBadge cycle={info.row.original.cycle} /> : <span className="text-grey-500">—</span>) }),
+    column.display({ id: 'cycle', header: columnLabels.cycle, cell: (info) => (info.row.original.cycle ? <CycleBadge cycle={info.row.original.cycle} className="min-w-36 max-w-48" wrap /> : <span className="text-grey-500">—</span>) }),
     column.accessor('hutch', { id: 'hutch', header: columnLabels.hutch }),
     column.accessor('coi', { id: 'coi', header: columnLabels.coi, cell: (info) => <CoiValue coi={info.getValue()} /> }),
     column.display({ id: 'weight', header: columnLabels.weight, cell: (info) => <WeightCell animal={info.row.original} unit={unit} /> }),
