@@ -84,6 +84,13 @@ const endpoints: Endpoint[] = [
     },
   },
   {
+    name: "a doe's breeding record",
+    async arrange(coop) {
+      const { doe, litter } = await litterAs(coop.member, { servicedDaysAgo: 60, kindledDaysAgo: 29, bornAlive: 7 });
+      return { url: `/api/almanac/does/${doe.id}/breeding-record`, asker: coop.member, growTo: litterGrower(coop.id, litter.id) };
+    },
+  },
+  {
     name: "an animal's detail",
     over: { ownBudget: 13, why: 'the animal three times, its status and custody events, both parents, the ancestors, notes, who recorded them' },
     async arrange(coop) {
