@@ -73,8 +73,11 @@ export function LitterEventForm({ litter, today, isApprentice, unit }: { litter:
         <SelectField label="What happened" options={kinds} error={errors.kind?.message} {...form.register('kind')} />
         <TextField label="On" type="date" max={today} error={errors.on?.message} {...form.register('on')} />
         <TextField label="Kits" type="number" inputMode="numeric" min={1} error={errors.count?.message} {...form.register('count')} />
-        {kind === 'lost' && <SelectField label="Why they died" options={deathCauseOptions} error={errors.deathCause?.message} {...form.register('deathCause')} />}
-        {kind !== 'weaned' && <TextField label={kind === 'lost' ? 'What happened (optional)' : 'Reason (optional)'} error={errors.cause?.message} {...form.register('cause')} />}
+        {/* A loss with neither a listed cause nor words is refused on its words; the list is where to answer it. */}
+        {kind === 'lost' && (
+          <SelectField label="Why they died" options={deathCauseOptions} error={errors.deathCause?.message ?? errors.cause?.message} {...form.register('deathCause')} />
+        )}
+        {kind !== 'weaned' && <TextField label={kind === 'lost' ? 'In your words (optional)' : 'Reason (optional)'} error={kind === 'lost' ? undefined : errors.cause?.message} {...form.register('cause')} />}
       </div>
       {kind === 'weaned' && (
         <fieldset className="space-y-2">
