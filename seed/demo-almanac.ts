@@ -31,7 +31,12 @@ export interface DemoAlmanacContext {
   apprenticeFarmKey?: string;
 }
 
-const lossCauses = ['Chilled outside the nest', 'Crushed in the nest box', 'Found dead, cause unknown', 'Born weak, did not nurse'];
+const lossCauses = [
+  { cause: 'Chilled outside the nest', deathCause: 'chilled' },
+  { cause: 'Crushed in the nest box', deathCause: 'trampled' },
+  { cause: 'Found dead, cause unknown', deathCause: 'unknown' },
+  { cause: 'Born weak, did not nurse', deathCause: 'born_weak' },
+] as const;
 
 /** Where a current doe stands today: days since her service, and whether she palpated positive. */
 const scenarios = [
@@ -153,7 +158,7 @@ export async function loadDemoAlmanac(ctx: DemoAlmanacContext, tx: Transaction):
     const keeper = l.recordedBy;
     const losses = Math.min(spare(l), pick([0, 0, 0, 1, 1, 1, 2, 2, 3]));
     if (losses > 0 && addDays(l.kindledOn, 2) <= today) {
-      events.push({ id: randomUUID(), litterId: l.id, kind: 'lost', on: addDays(l.kindledOn, int(1, 2)), count: losses, cause: pick(lossCauses), enteredBy: keeper });
+      events.push({ id: randomUUID(), litterId: l.id, kind: 'lost', on: addDays(l.kindledOn, int(1, 2)), count: losses, ...pick(lossCauses), enteredBy: keeper });
       onDoe.set(l.id, onDoe.get(l.id)! - losses);
     }
     if (spare(l) > 0 && random() < 0.08 && addDays(l.kindledOn, 10) <= today) {
@@ -199,7 +204,7 @@ export async function loadDemoAlmanac(ctx: DemoAlmanacContext, tx: Transaction):
   const apprenticeFarm = ctx.farms.get(ctx.apprenticeFarmKey ?? 'hazelrun');
   const nursing = litters.find((l) => l.farmId === apprenticeFarm && !weanedOn.has(l.id) && spare(l) > 0 && daysBetween(l.kindledOn, today) >= 3);
   if (ctx.apprenticeId && nursing) {
-    events.push({ id: randomUUID(), litterId: nursing.id, kind: 'lost', on: addDays(today, -1), count: 1, cause: 'Found outside the nest box, cold', enteredBy: ctx.apprenticeId, reviewState: 'pending' });
+    events.push({ id: randomUUID(), litterId: nursing.id, kind: 'lost', on: addDays(today, -1), count: 1, cause: 'Found outside the nest box, cold', deathCause: 'chilled', enteredBy: ctx.apprenticeId, reviewState: 'pending' });
   }
 
   // Tasks, planned as the Almanac plans them, with the states the history left them in.

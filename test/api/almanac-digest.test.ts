@@ -76,6 +76,8 @@ describe('the opt-in morning e-mail (pg-boss job, injectable clock)', { timeout:
     expect(mail.text).toContain('Overdue:');
     expect(mail.text).toMatch(new RegExp(`• Palpate — Bluebell \\(T\\d+-\\w+\\), due ${addDays(morning, -3)} \\(3 days late\\)`));
     expect(mail.text).toContain('Palpation 3 days late');
+    // The alert names the doe it is about.
+    expect(mail.text).toMatch(/Bluebell \(T\d+-\w+\): Palpation 3 days late/);
     expect(mail.text).toContain('http://127.0.0.1:3000/almanac');
     expect(mail.html).toContain('Open the Almanac');
     const delivery = await asTenant(coop.id, async (c) => (await c.query('SELECT local_date::text AS local_date, task_count, overdue_count FROM almanac_digest_deliveries WHERE user_id = $1', [coop.member.id])).rows);

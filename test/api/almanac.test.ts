@@ -290,7 +290,10 @@ describe('tasks: done, moved, skipped, one by one or several at once', () => {
     expect(summary.dueToday.map((t) => [t.kind, t.animal?.id])).toEqual([['palpation', a.doe.id]]);
     expect(summary.thisWeek.map((t) => [t.kind, t.animal?.id, t.dueOn])).toEqual([['palpation', c.doe.id, addDays(farmToday(), 3)]]);
     expect(summary.overdue.map((t) => [t.kind, t.animal?.id, t.daysLate])).toEqual([['palpation', b.doe.id, 3]]);
-    expect(summary.attention).toEqual([expect.objectContaining({ kind: 'missed_palpation', daysLate: 3, message: 'Palpation 3 days late' })]);
+    // The attention names the doe it is about and carries her for the banner's link.
+    expect(summary.attention).toEqual([expect.objectContaining({
+      kind: 'missed_palpation', daysLate: 3, message: `Late (${b.doe.tattoo}): Palpation 3 days late`, doe: { id: b.doe.id, name: 'Late', tattoo: b.doe.tattoo },
+    })]);
     // Apprentices see the mentor's; another farm sees nothing of it.
     const apprentice = (await (await agentOf(coop.apprentice.email)).get('/api/almanac/summary')).body as AlmanacSummaryDto;
     expect(apprentice.dueToday.map((t) => t.id)).toEqual(summary.dueToday.map((t) => t.id));

@@ -259,6 +259,9 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'GET', path: '/api/almanac/shared-days', target: 'dayA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'GET', path: '/api/almanac/settings', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'PATCH', path: '/api/almanac/settings', target: 'none', body: 'cycleSettings', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  // The doe board is each farm's own (an apprentice's: her mentor's); a doe's breeding record is her farm's: another farm knows her card only.
+  { method: 'GET', path: '/api/almanac/doe-board', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'GET', path: '/api/almanac/does/:doeId/breeding-record', target: 'breedingPairA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
   { method: 'GET', path: '/api/almanac/breeding-stock', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'GET', path: '/api/almanac/calendar-feed', target: 'none', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'POST', path: '/api/almanac/calendar-feed', target: 'none', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 201, admin: 201, otherCoop: 201 } },

@@ -73,6 +73,25 @@ const endpoints: Endpoint[] = [
     },
   },
   {
+    name: 'the doe board',
+    async arrange(coop) {
+      const { service } = await litterAs(coop.member, { servicedDaysAgo: 40, kindledDaysAgo: 9, bornAlive: 6 });
+      const farm = coop.member.farmId;
+      return {
+        url: '/api/almanac/doe-board?pageSize=10',
+        asker: coop.member,
+        growTo: grower(coop.id, 'animals', service.doe.id, { tattoo: `t.tattoo || '-' || left(md5(random()::text), 8)` }, `keeping_farm_id = $2 AND sex = 'doe'`, [farm]),
+      };
+    },
+  },
+  {
+    name: "a doe's breeding record",
+    async arrange(coop) {
+      const { doe, litter } = await litterAs(coop.member, { servicedDaysAgo: 60, kindledDaysAgo: 29, bornAlive: 7 });
+      return { url: `/api/almanac/does/${doe.id}/breeding-record`, asker: coop.member, growTo: litterGrower(coop.id, litter.id) };
+    },
+  },
+  {
     name: "an animal's detail",
     async arrange(coop) {
       const doe = await addAnimalAs(coop.member, { sex: 'doe' });

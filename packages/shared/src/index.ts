@@ -21,6 +21,7 @@ export * from './schemas/health.schema';
 export * from './schemas/processing.schema';
 export * from './health';
 export * from './schemas/litter.schema';
+export * from './schemas/doe-board.schema';
 export * from './schemas/performance.schema';
 export * from './almanac';
 export * from './herd-files';

@@ -277,6 +277,14 @@ const routes: RouteObject[] = [
                 },
               },
               {
+                // The doe board: every doe of the farm with where she stands in her cycle and her next job.
+                path: 'herd/does',
+                lazy: async () => {
+                  const { loader, DoeBoardPage } = await import('../routes/herd/doe-board');
+                  return { loader, Component: DoeBoardPage };
+                },
+              },
+              {
                 // Herd records in: a spreadsheet staged, checked row by row, then confirmed.
                 path: 'herd/import',
                 lazy: async () => {

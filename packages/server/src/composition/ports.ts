@@ -8,6 +8,8 @@ import { groupsOfFarm } from '../modules/grow-out/grow-out-facts.service';
 import { kindlingDaysOfDams } from '../modules/litters/litter-facts.service';
 import { processedHeadsOf } from '../modules/processing/processing.service';
 import { sharedDaysOfFarm } from '../modules/almanac/shared-days';
+import { doeCyclesOf } from '../modules/almanac/doe-board.service';
+import { doeCyclesOfPage } from '../modules/animals/animals.service';
 import { processingDaysOfFarm } from '../modules/processing-days/processing-days.service';
 import { photoPublishedTo } from '../modules/photos/photos.service';
 import { isPhotoPublished } from '../modules/stud-share/stud-share-facts.service';
@@ -42,6 +44,8 @@ export function plugModulePorts(): void {
   sharedDaysOfFarm.plug(processingDaysOfFarm);
   // A photo is published by a buck card or a loan's hand-over (Stud Share), or by a listing (Swap Board).
   photoPublishedTo.plug(async (tx, actor, photoId) => (await isPhotoPublished(tx, actor, photoId)) || isPhotoListed(tx, actor, photoId));
+  // The herd list shows each doe's place in her cycle, which the Almanac reads.
+  doeCyclesOfPage.plug(doeCyclesOf);
   // Co-op Chat's threads beside subjects: who reads the subject reads its thread.
   registerThreadSubject('litter', litterThreadSubject);
   registerThreadSubject('processing-day', processingDayThreadSubject);

@@ -2,6 +2,7 @@ import type { CycleSettings, CycleSettingSource } from '../breeding/cycle-settin
 import type { LitterEventKind, LitterSummary } from '../breeding/litter-count';
 import type { KindlingStatus, PlannedTaskKind, TaskAnchor, TaskAttention, TaskState, TaskTiming } from '../breeding/plan';
 import type { BreedingCheck } from '../breeding/validate';
+import type { KitDeathCause } from '../breeding/breeding-record';
 import type { PersonRefDto } from '../dto';
 import type { FarmRefDto } from '../herd/herd-dto';
 import type { ReviewState, Sex } from '../herd/herd-enums';
@@ -194,6 +195,8 @@ export interface LitterEventDto {
   on: string;
   count: number;
   cause: string | null;
+  /** Lost kits: why they died, from the shared list (null for other events). */
+  deathCause: KitDeathCause | null;
   /** A weaning: the total live weight of the kits weaned, when weighed (grams). */
   weaningWeightGrams: number | null;
   /** For a fostering: the other litter, with its farm (the other litter's details are that farm's). */

@@ -1,1 +1,2 @@
 export type * from './almanac-dto';
+export type * from './doe-board-dto';

@@ -141,6 +141,16 @@ describe('tasks that surface by themselves', () => {
     expect(needsAttention(palpated, '2026-04-07', DEFAULT_CYCLE_SETTINGS)).toMatchObject([{ kind: 'kindling_missed', daysLate: 5 }]);
   });
 
+  it('when the doe of an overdue kindling is known, then the message names her and carries her for the link', () => {
+    const palpated = service.map((t) => ({ ...t, animalId: 'doe-1', ...(t.kind === 'palpation' || t.kind === 'nest_box_in' ? { state: 'done' as const } : {}) }));
+    const does = new Map([['doe-1', { id: 'doe-1', name: 'Clover', tattoo: 'HR-2' }]]);
+    // Serviced 2026-03-02: 2026-04-04 is day 33.
+    expect(needsAttention(palpated, '2026-04-04', DEFAULT_CYCLE_SETTINGS, does)).toMatchObject([{
+      kind: 'kindling_overdue', doe: { id: 'doe-1', name: 'Clover', tattoo: 'HR-2' },
+      message: 'Clover (HR-2): day 33 after service and no kits recorded: check her; the vet may induce',
+    }]);
+  });
+
   it('when the weaning date passes, then a late weaning surfaces, with the 6-week weigh-in of the same day as an overdue task', () => {
     const litter = stored(planFromKindling('2026-04-02', DEFAULT_CYCLE_SETTINGS), 'l1').map((t) => (t.dueOn < '2026-05-14' ? { ...t, state: 'done' as const } : t));
     const attention = needsAttention(litter, '2026-05-17', DEFAULT_CYCLE_SETTINGS);

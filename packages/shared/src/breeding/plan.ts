@@ -140,6 +140,8 @@ export interface TaskRecord {
   state: TaskState;
   windowStart?: string | null;
   windowEnd?: string | null;
+  /** The doe (or the litter's dam) the task is about, when it names one. */
+  animalId?: string | null;
 }
 
 export interface TaskChange {
@@ -291,6 +293,20 @@ export interface TaskAttention {
   taskKind: PlannedTaskKind;
   daysLate: number;
   message: string;
+  /** The doe it is about, named and linked by the banner (when the caller knows her). */
+  doe?: AttentionDoe;
+}
+
+export interface AttentionDoe {
+  id: string;
+  name: string;
+  tattoo: string | null;
+}
+
+/** "Clover (HR-2)", or whichever of name and tattoo the doe has. */
+export function doeLabel(doe: Pick<AttentionDoe, 'name' | 'tattoo'>): string {
+  if (doe.name && doe.tattoo) return `${doe.name} (${doe.tattoo})`;
+  return doe.name || doe.tattoo || 'The doe';
 }
 
 /**
@@ -298,28 +314,40 @@ export interface TaskAttention {
  * kindlings overdue or past the window, weanings late, and any other open task past its date. Most late
  * first. The kindling check reads the service date, so it holds even if nobody opened the Almanac.
  */
-export function needsAttention(tasks: ReadonlyArray<TaskRecord>, today: string, settings: CycleSettings): TaskAttention[] {
+export function needsAttention(
+  tasks: ReadonlyArray<TaskRecord>,
+  today: string,
+  settings: CycleSettings,
+  does?: ReadonlyMap<string, AttentionDoe>,
+): TaskAttention[] {
   const out: TaskAttention[] = [];
   for (const t of tasks) {
     if (t.state === 'done' || t.state === 'skipped') continue;
     if (t.kind === 'kindling_overdue') continue; // the kindling_due task carries the alert
     const { daysLate } = taskTiming(t, today);
-    const base = { taskId: t.id, sourceId: t.sourceId, taskKind: t.kind };
+    const doe = t.animalId ? does?.get(t.animalId) : undefined;
+    const base = { taskId: t.id, sourceId: t.sourceId, taskKind: t.kind, ...(doe ? { doe } : {}) };
+    // Named, the message says whose; unnamed (no doe given) it reads as before.
+    const whose = doe ? `${doeLabel(doe)}: ` : '';
     if (t.kind === 'kindling_due') {
       const status = kindlingStatus(t.anchorDate, today, settings);
       const day = daysBetween(t.anchorDate, today);
       if (status === 'overdue') {
-        out.push({ ...base, kind: 'kindling_overdue', daysLate: Math.max(daysLate, 0), message: `Day ${day} after service and no kits recorded: check the doe; the vet may induce` });
+        const message = doe
+          ? `${whose}day ${day} after service and no kits recorded: check her; the vet may induce`
+          : `Day ${day} after service and no kits recorded: check the doe; the vet may induce`;
+        out.push({ ...base, kind: 'kindling_overdue', daysLate: Math.max(daysLate, 0), message });
       } else if (status === 'missed') {
-        out.push({ ...base, kind: 'kindling_missed', daysLate: Math.max(daysLate, 0), message: `Day ${day} after service, past the kindling window: record the kindling or close the service as missed` });
+        const message = `${doe ? `${whose}day` : 'Day'} ${day} after service, past the kindling window: record the kindling or close the service as missed`;
+        out.push({ ...base, kind: 'kindling_missed', daysLate: Math.max(daysLate, 0), message });
       }
       continue;
     }
     if (daysLate <= 0) continue;
     const days = daysLate === 1 ? '1 day' : `${daysLate} days`;
-    if (t.kind === 'palpation') out.push({ ...base, kind: 'missed_palpation', daysLate, message: `Palpation ${days} late` });
-    else if (t.kind === 'weaning') out.push({ ...base, kind: 'late_weaning', daysLate, message: `Weaning ${days} late` });
-    else out.push({ ...base, kind: 'overdue_task', daysLate, message: `${TASK_KIND_LABELS[t.kind]}: ${days} late` });
+    if (t.kind === 'palpation') out.push({ ...base, kind: 'missed_palpation', daysLate, message: `${whose}Palpation ${days} late` });
+    else if (t.kind === 'weaning') out.push({ ...base, kind: 'late_weaning', daysLate, message: `${whose}Weaning ${days} late` });
+    else out.push({ ...base, kind: 'overdue_task', daysLate, message: `${whose}${TASK_KIND_LABELS[t.kind]}: ${days} late` });
   }
   return out.sort((a, b) => b.daysLate - a.daysLate || a.taskId.localeCompare(b.taskId));
 }

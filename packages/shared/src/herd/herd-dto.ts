@@ -1,3 +1,4 @@
+import type { DoeCycleState } from '../breeding/doe-cycle';
 import type { AgeClass } from './age-class';
 import type { WeightAgainstStandard, WeightRange } from './breed-standard';
 import type {
@@ -109,7 +110,10 @@ export interface AnimalDto extends PedigreeCardDto {
 export type AnimalListItemDto = Pick<
   AnimalDto,
   'id' | 'tattoo' | 'name' | 'sex' | 'birthDate' | 'breedMakeup' | 'coi' | 'ageClass' | 'lifecycle' | 'disposition' | 'hutch' | 'custody' | 'latestWeight'
->;
+> & {
+  /** A doe the farm keeps: where she stands in her cycle (as on the doe board); null for others. */
+  cycle: DoeCycleState | null;
+};
 
 export interface AnimalListDto {
   items: AnimalListItemDto[];

@@ -221,9 +221,9 @@ export const outsideMergeSchema = z.strictObject({
 });
 
 /** Columns the Herd table can show; the choice is kept in the address (`cols`, comma-separated). */
-export const herdColumns = ['tattoo', 'name', 'sex', 'breed', 'purity', 'ageClass', 'birthDate', 'lifecycle', 'hutch', 'coi', 'weight', 'custody'] as const;
+export const herdColumns = ['tattoo', 'name', 'sex', 'breed', 'purity', 'ageClass', 'birthDate', 'lifecycle', 'cycle', 'hutch', 'coi', 'weight', 'custody'] as const;
 export type HerdColumn = (typeof herdColumns)[number];
-export const defaultHerdColumns: readonly HerdColumn[] = ['tattoo', 'name', 'sex', 'breed', 'purity', 'ageClass', 'lifecycle', 'coi', 'weight'];
+export const defaultHerdColumns: readonly HerdColumn[] = ['tattoo', 'name', 'sex', 'breed', 'purity', 'ageClass', 'lifecycle', 'cycle', 'coi', 'weight'];
 
 /** The Herd screen's address: the list query plus the chosen columns. */
 export const herdViewSchema = animalListQuerySchema.extend({

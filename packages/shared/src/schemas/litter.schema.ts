@@ -3,6 +3,7 @@ import { multiLine, singleLine, recordId } from './text';
 import { sexes } from '../herd/herd-enums';
 import { calendarDateSchema, tattooSchema } from './animal.schema';
 import { pageSchema, pageSizeSchema } from './application.schema';
+import { kitDeathCauses } from '../breeding/breeding-record';
 
 /**
  * Inputs for litters. A litter's kit count is never typed in: the kindling gives born alive and
@@ -42,6 +43,9 @@ export const litterEventCreateSchema = z
     kind: z.enum(['lost', 'culled', 'weaned'], { message: 'Choose lost, culled or weaned' }),
     on: calendarDateSchema,
     count: kitCount('Kits', 1),
+    /** Lost kits only: why they died, from the list the doe's record counts. */
+    deathCause: z.enum(kitDeathCauses, { message: 'Choose why the kits died (cause unknown is a cause)' }).optional(),
+    /** What happened, in words (a lost kit's note beside its cause; a cull's reason). */
     cause: noteText(200).optional(),
     /**
      * A weaning only: the total live weight of the kits weaned, in grams (optional). Its weight a kit
@@ -58,8 +62,11 @@ export const litterEventCreateSchema = z
     confirm: z.boolean().optional(),
   })
   .superRefine((v, ctx) => {
-    if (v.kind === 'lost' && !v.cause?.trim()) {
+    if (v.kind === 'lost' && !v.deathCause && !v.cause?.trim()) {
       ctx.addIssue({ code: 'custom', path: ['cause'], message: 'Say what happened (cause unknown is a cause)' });
+    }
+    if (v.kind !== 'lost' && v.deathCause) {
+      ctx.addIssue({ code: 'custom', path: ['deathCause'], message: 'A cause of death goes with lost kits only' });
     }
     if (v.kind !== 'weaned' && v.weaningWeightGrams != null) {
       ctx.addIssue({ code: 'custom', path: ['weaningWeightGrams'], message: 'A litter weight goes with a weaning only' });

@@ -11,9 +11,9 @@ const tones: Record<BadgeTone, string> = {
 };
 
 /** A short status word on a tinted ground; the word carries the meaning, the colour only helps. */
-export function Badge({ tone = 'neutral', children, className }: { tone?: BadgeTone; children: ReactNode; className?: string }) {
+export function Badge({ tone = 'neutral', children, className, wrap = false }: { tone?: BadgeTone; children: ReactNode; className?: string; wrap?: boolean }) {
   return (
-    <span className={cn('inline-flex items-center rounded-md px-2 py-0.5 text-sm font-semibold whitespace-nowrap', tones[tone], className)}>
+    <span className={cn('inline-flex items-center rounded-md px-2 py-0.5 text-sm font-semibold', wrap ? 'whitespace-normal' : 'whitespace-nowrap', tones[tone], className)}>
       {children}
     </span>
   );

@@ -27,6 +27,7 @@ import { useAbility } from '../../lib/ability';
 import { useSession } from '../../lib/session';
 import { animalIdFrom, useAnimalIdParam } from './animal-id-param';
 import { ProcessingActions } from '../../features/processing/components/processing-actions';
+import { BreedingRecord } from '../../features/doe-board/components/breeding-record';
 
 export async function loader({ params }: LoaderFunctionArgs) {
   const animalId = animalIdFrom(params);
@@ -139,6 +140,11 @@ function FullRecord({ animal }: { animal: AnimalDetailDto }) {
       <Section title="Details">
         <AnimalFacts animal={animal} unit={unit} />
       </Section>
+      {animal.sex === 'doe' && (
+        <Section title="Breeding record">
+          <BreedingRecord doeId={animal.id} unit={unit} />
+        </Section>
+      )}
       <Section title="Photos">
         <AnimalPhotos animalId={animal.id} name={title} />
       </Section>

@@ -17,6 +17,7 @@ import { useWeightUnit } from '../../features/herd/hooks/use-weight-unit';
 import { useAbility } from '../../lib/ability';
 import { useSession } from '../../lib/session';
 import { readUrlState, useUrlState } from '../../lib/url-state';
+import { HerdTabs } from './herd-tabs';
 
 function listQueryOf(view: HerdView): AnimalListQuery {
   const { cols: _cols, ...query } = view;
@@ -64,6 +65,7 @@ export function HerdPage() {
           </>
         }
       />
+      <HerdTabs />
       {me.user.role === 'apprentice' && (
         <Alert tone="info">You are reading your mentor's herd. Weights and notes you add wait for their review.</Alert>
       )}

@@ -1,6 +1,6 @@
 import { Router } from 'express';
 import {
-  agendaQuerySchema, cycleSettingsPatchSchema, digestPreferenceSchema, entryReviewSchema, palpationCreateSchema,
+  agendaQuerySchema, cycleSettingsPatchSchema, doeBoardQuerySchema, digestPreferenceSchema, entryReviewSchema, palpationCreateSchema,
   serviceClosureSchema, serviceCreateSchema, serviceListQuerySchema, taskBulkSchema, taskUpdateSchema, treatmentCreateSchema, treatmentListQuerySchema, withdrawalQuerySchema,
   uuidParamSchema,
 } from '@burrowline/shared';
@@ -9,6 +9,7 @@ import { actorOf, requireUser } from '../../http/ability';
 import { breedingStock, closeService, getService, listServices, recordPalpation, recordService } from './breeding.service';
 import { calendarFeedFor, calendarFeedStatus, feedNotFound, renewCalendarFeed, revokeCalendarFeed } from './calendar-feed.service';
 import { getCycleSettings, updateCycleSettings } from './cycle-settings.service';
+import { breedingRecord, doeBoard } from './doe-board.service';
 import { getDigestPreference, setDigestPreference } from './morning-digest.service';
 import { almanacSummary, bulkUpdateTasks, listAgenda, listSharedDays, reviewTask, updateTask } from './tasks.service';
 import { listTreatments, listWithdrawals, recordTreatment } from './treatments.service';
@@ -36,6 +37,12 @@ export function almanacRoutes(config: Pick<Config, 'appUrl'>): Router {
   });
   router.post('/tasks/:taskId/review', async (req, res) => {
     res.json(await reviewTask(actorOf(req), id(req.params.taskId), entryReviewSchema.parse(req.body)));
+  });
+  router.get('/doe-board', async (req, res) => {
+    res.json(await doeBoard(actorOf(req), doeBoardQuerySchema.parse(req.query)));
+  });
+  router.get('/does/:animalId/breeding-record', async (req, res) => {
+    res.json(await breedingRecord(actorOf(req), id(req.params.animalId)));
   });
   router.get('/settings', async (req, res) => {
     res.json(await getCycleSettings(actorOf(req)));

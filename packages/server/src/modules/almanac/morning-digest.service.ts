@@ -8,6 +8,7 @@ import type { SessionUser } from '../../lib/session-user';
 import { logger } from '../../lib/logger';
 import { queueMail } from '../../lib/mail-outbox';
 import { composeMail, type MailMessage } from '../../lib/mailer';
+import { animalFactsOf } from '../animals/animal-facts.service';
 import { ensureCan, farmOf } from '../farms/farm-access';
 import { farmClockOf } from '../farms/farm-clock';
 import { takeDigestNotifications } from '../notifications/notifications.service';
@@ -123,7 +124,10 @@ export async function sendMorningDigests(opts: { now: Date; appUrl: string }): P
         const due = open.filter((t) => t.dueOn === today);
         const overdue = open.filter((t) => t.dueOn < today);
         const { settings } = await settingsOf(tx, recipient.farm_id);
-        const attention = needsAttention(open.map(toTaskRecord), today, settings);
+        // The e-mail names the doe of each alert, as the banner does.
+        const animals = await animalFactsOf(tx, recipient.coop_id, open.flatMap((t) => (t.animalId ? [t.animalId] : [])));
+        const does = new Map([...animals.values()].map((a) => [a.id, { id: a.id, name: a.name, tattoo: a.tattoo }]));
+        const attention = needsAttention(open.map(toTaskRecord), today, settings, does);
         const claimed = await database().query(
           `INSERT INTO almanac_digest_deliveries (coop_id, user_id, farm_id, local_date, task_count, overdue_count)
            VALUES ($1, $2, $3, $4, $5, $6) ON CONFLICT (user_id, local_date) DO NOTHING RETURNING id`,

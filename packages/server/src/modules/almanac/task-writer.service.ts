@@ -54,6 +54,7 @@ export function toTaskRecord(task: AlmanacTask): TaskRecord {
     state: task.state,
     windowStart: task.windowStart,
     windowEnd: task.windowEnd,
+    animalId: task.animalId,
   };
 }
 

@@ -1,7 +1,7 @@
 import { literal, Op, type Transaction, type WhereOptions } from 'sequelize';
 import {
   addDays, daysBetween, defineAbilityFor, ErrorCode, WEIGH_IN_REACH_DAYS, needsAttention, subjectOf, plannedTaskKinds, type AgendaDto, type AgendaQuery, type AlmanacSummaryDto,
-  type AlmanacTaskDto, type EntryReviewInput, type TaskBulkInput, type TaskUpdateInput, type SharedDaysDto
+  type AlmanacTaskDto, type CycleSettings, type EntryReviewInput, type TaskAttention, type TaskBulkInput, type TaskUpdateInput, type SharedDaysDto
 } from '@burrowline/shared';
 import { accessibleWhere } from '../../db/scope';
 import { database } from '../../db/sequelize';
@@ -50,9 +50,24 @@ export async function presentTasks(tx: Transaction, coopId: string, tasks: Alman
 
 /** Several lists of tasks presented with one read of the animals and people they name. */
 async function presentTaskLists(tx: Transaction, coopId: string, lists: AlmanacTask[][], today: string): Promise<AlmanacTaskDto[][]> {
+  return (await presentWithAttention(tx, coopId, lists, null, today)).lists;
+}
+
+/**
+ * Lists of tasks and what needs attention, presented with one read of the animals and people they name:
+ * the attention names the doe it is about, so the banner can say whom to check and link to her.
+ */
+async function presentWithAttention(
+  tx: Transaction, coopId: string, lists: AlmanacTask[][], attention: { tasks: AlmanacTask[]; settings: CycleSettings } | null, today: string,
+): Promise<{ lists: AlmanacTaskDto[][]; attention: TaskAttention[] }> {
   const all = lists.flat();
-  const ctx = await presentContextOf(tx, coopId, today, { animalIds: all.map((t) => t.animalId), userIds: all.map((t) => t.doneBy) });
-  return lists.map((tasks) => [...tasks].sort(byDue).map((t) => presentTask(t, ctx)));
+  const named = [...all, ...(attention?.tasks ?? [])];
+  const ctx = await presentContextOf(tx, coopId, today, { animalIds: named.map((t) => t.animalId), userIds: all.map((t) => t.doneBy) });
+  const does = new Map([...ctx.animals.values()].map((a) => [a.id, { id: a.id, name: a.name, tattoo: a.tattoo }]));
+  return {
+    lists: lists.map((tasks) => [...tasks].sort(byDue).map((t) => presentTask(t, ctx))),
+    attention: attention ? needsAttention(attention.tasks.map(toTaskRecord), today, attention.settings, does) : [],
+  };
 }
 
 /** The tasks of some services, litters or arrivals (for their own pages), inside the caller's transaction. */
@@ -106,7 +121,7 @@ async function agendaOf(tx: Transaction, actor: SessionUser, farmId: string, fro
   return {
     inRange: tasks.filter((t) => t.dueOn >= from && t.dueOn <= to),
     overdue: tasks.filter((t) => open(t) && t.dueOn < from),
-    attention: needsAttention(tasks.filter((t) => open(t) && t.dueOn <= today).map(toTaskRecord), today, settings),
+    attention: { tasks: tasks.filter((t) => open(t) && t.dueOn <= today), settings },
     pendingReview,
   };
 }
@@ -123,8 +138,11 @@ export async function listAgenda(actor: SessionUser, q: AgendaQuery): Promise<Ag
     const clock = await farmClockOf(tx, actor.coopId, farmId);
     const from = q.from ?? clock.today;
     const to = q.to ?? addDays(from, (q.days ?? 14) - 1);
-    const { inRange, overdue, attention, pendingReview } = await agendaOf(tx, actor, farmId, from, to, clock.today, q.include);
-    const [tasks, late] = await presentTaskLists(tx, actor.coopId, [inRange, overdue], clock.today);
+    const agenda = await agendaOf(tx, actor, farmId, from, to, clock.today, q.include);
+    const { pendingReview } = agenda;
+    const presented = await presentWithAttention(tx, actor.coopId, [agenda.inRange, agenda.overdue], agenda.attention, clock.today);
+    const [tasks, late] = presented.lists;
+    const { attention } = presented;
     return {
       farm: { id: farmId, name: clock.name },
       timeZone: clock.timeZone,
@@ -162,8 +180,11 @@ export async function almanacSummary(actor: SessionUser): Promise<AlmanacSummary
   return withTenant(actor, async (tx) => {
     const clock = await farmClockOf(tx, actor.coopId, farmId);
     const weekEnd = addDays(clock.today, 6);
-    const { inRange, overdue, attention, pendingReview } = await agendaOf(tx, actor, farmId, clock.today, weekEnd, clock.today, 'open');
-    const [presented, late] = await presentTaskLists(tx, actor.coopId, [inRange, overdue], clock.today);
+    const agenda = await agendaOf(tx, actor, farmId, clock.today, weekEnd, clock.today, 'open');
+    const { pendingReview } = agenda;
+    const both = await presentWithAttention(tx, actor.coopId, [agenda.inRange, agenda.overdue], agenda.attention, clock.today);
+    const [presented, late] = both.lists;
+    const { attention } = both;
     return {
       farm: { id: farmId, name: clock.name },
       today: clock.today,

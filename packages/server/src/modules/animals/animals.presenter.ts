@@ -102,7 +102,8 @@ function latestWeightOf(row: Pick<AnimalRow, 'latest_grams' | 'latest_weighed_on
 }
 
 /** One row of the herd list, straight from its SQL row. */
-export function presentListItem(row: HerdListRow, ctx: Pick<PresentContext, 'breeds' | 'today' | 'viewerFarmId'>): AnimalListItemDto {
+/** A row of the herd list; a doe's place in her cycle is the Almanac's, added by the service (null here). */
+export function presentListItem(row: HerdListRow, ctx: Pick<PresentContext, 'breeds' | 'today' | 'viewerFarmId'>, cycle: AnimalListItemDto['cycle'] = null): AnimalListItemDto {
   return {
     id: row.id,
     tattoo: row.tattoo,
@@ -117,6 +118,7 @@ export function presentListItem(row: HerdListRow, ctx: Pick<PresentContext, 'bre
     hutch: row.hutch,
     custody: custodyFor(row, ctx.viewerFarmId),
     latestWeight: latestWeightOf(row),
+    cycle,
   };
 }
 

@@ -1,6 +1,7 @@
 import type { Transaction } from 'sequelize';
-import { defineAbilityFor, ErrorCode, type AnimalDetailDto, type AnimalDto, type AnimalListDto, type AnimalListQuery } from '@burrowline/shared';
+import { defineAbilityFor, ErrorCode, type DoeCycleState, type AnimalDetailDto, type AnimalDto, type AnimalListDto, type AnimalListQuery } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
+import { port } from '../../lib/port';
 import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { presentContextFor } from './animal-context';
@@ -12,6 +13,11 @@ import { presentAnimal, presentListItem, type PresentContext } from './animals.p
 
 /* The herd as its own screens read it: the farm's list and one animal's full record. */
 
+/** Where does stand in their cycle: the Almanac's reading (services, litters, the farm's settings), plugged in by the composition root. */
+export const doeCyclesOfPage = port<(tx: Transaction, coopId: string, farmId: string, doeIds: string[], today: string) => Promise<Map<string, DoeCycleState>>>(
+  'doe cycles of the herd list',
+);
+
 /**
  * The actor's own herd (the animals their farm owns or keeps), filtered, sorted and paged in SQL; `present`
  * turns each readable row of the page into what the caller answers.
@@ -20,7 +26,8 @@ async function herdPage<Row extends HerdListRow, Item>(
   actor: SessionUser,
   q: AnimalListQuery,
   select: (tx: Transaction, pageSql: string, bind: unknown[], weightsSeenBy: string) => Promise<Row[]>,
-  present: (row: Row, ctx: PresentContext) => Item,
+  present: (row: Row, ctx: PresentContext, cycles: Map<string, DoeCycleState>) => Item,
+  withCycles = false,
 ): Promise<{ items: Item[]; total: number; page: number; pageSize: number }> {
   return withTenant(actor, async (tx) => {
     const farmId = actor.farmId;
@@ -39,14 +46,18 @@ async function herdPage<Row extends HerdListRow, Item>(
       if (can === undefined) readable.set(pair, (can = ctx.ability!.can('read', subjectOfRow(row))));
       return can;
     };
-    const items = rows.filter(canRead).map((row) => present(row, ctx));
+    const shown = rows.filter(canRead);
+    // The does this farm keeps carry where they stand in their cycle: one statement for the page's does.
+    const does = withCycles ? shown.filter((r) => r.sex === 'doe' && r.keeping_farm_id === farmId && r.disposition === 'on_farm').map((r) => r.id) : [];
+    const cycles = does.length > 0 ? await doeCyclesOfPage(tx, actor.coopId, farmId, does, ctx.today) : new Map<string, DoeCycleState>();
+    const items = shown.map((row) => present(row, ctx, cycles));
     return { items, total, page: q.page, pageSize: q.pageSize };
   });
 }
 
 /** The herd list: one page of the farm's animals, each with what the list shows. */
 export function listHerd(actor: SessionUser, q: AnimalListQuery): Promise<AnimalListDto> {
-  return herdPage(actor, q, selectHerdListPage, presentListItem);
+  return herdPage(actor, q, selectHerdListPage, (row, ctx, cycles) => presentListItem(row, ctx, cycles.get(row.id) ?? null), true);
 }
 
 /** Whole records of the herd list's animals, in its order (the export of the list). */

@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
-import type { LitterEventKind, ReviewState } from '@burrowline/shared';
+import type { KitDeathCause, LitterEventKind, ReviewState } from '@burrowline/shared';
 import { reviewColumns } from '../../db/review-columns';
 
 /** A dated change of a litter's kit count; a fostering is two of these sharing a pair id. */
@@ -12,6 +12,8 @@ export class LitterEvent extends Model<InferAttributes<LitterEvent>, InferCreati
   declare occurredOn: string;
   declare kitCount: number;
   declare cause: string | null;
+  /** Lost kits: why they died, from the shared list. */
+  declare deathCause: CreationOptional<KitDeathCause | null>;
   declare otherLitterId: string | null;
   declare pairId: string | null;
   /** Total live weight of the kits weaned (a 'weaned' event only), when weighed. */
@@ -37,6 +39,7 @@ export class LitterEvent extends Model<InferAttributes<LitterEvent>, InferCreati
         occurredOn: { type: DataTypes.DATEONLY, allowNull: false },
         kitCount: { type: DataTypes.INTEGER, allowNull: false },
         cause: { type: DataTypes.TEXT, allowNull: true },
+        deathCause: { type: DataTypes.TEXT, allowNull: true },
         otherLitterId: { type: DataTypes.UUID, allowNull: true },
         pairId: { type: DataTypes.UUID, allowNull: true },
         weaningWeightGrams: { type: DataTypes.INTEGER, allowNull: true },

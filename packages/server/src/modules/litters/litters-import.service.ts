@@ -1,5 +1,5 @@
 import type { Transaction } from 'sequelize';
-import { checkFosterPairs, checkKindlingDate, checkWeightForAge, daysBetween, hasBreedingErrors, validateLitter, type LitterEventKind } from '@burrowline/shared';
+import { checkFosterPairs, checkKindlingDate, checkWeightForAge, daysBetween, hasBreedingErrors, validateLitter, type KitDeathCause, type LitterEventKind } from '@burrowline/shared';
 import { ImportRefused, markServicesKindled } from '../almanac/almanac-import.service';
 import { LitterEvent } from './litter-event.model';
 import { Litter } from './litter.model';
@@ -32,6 +32,8 @@ export interface ImportedLitterEvent {
   on: string;
   count: number;
   cause?: string | null;
+  /** Lost kits: why they died, from the shared list. */
+  deathCause?: KitDeathCause | null;
   otherLitterId?: string | null;
   pairId?: string | null;
   enteredBy: string | null;
@@ -45,6 +47,7 @@ export async function importLitters(tx: Transaction, coopId: string, today: stri
   const toModel = (e: ImportedLitterEvent, farmId: string) =>
     LitterEvent.build({
       id: e.id, coopId, farmId, litterId: e.litterId, kind: e.kind, occurredOn: e.on, kitCount: e.count, cause: e.cause ?? null,
+      deathCause: e.kind === 'lost' ? e.deathCause ?? null : null,
       otherLitterId: e.otherLitterId ?? null, pairId: e.pairId ?? null, enteredBy: e.enteredBy, reviewState: e.reviewState ?? 'accepted',
       weaningWeightGrams: e.kind === 'weaned' ? e.weaningWeightGrams ?? null : null,
     });

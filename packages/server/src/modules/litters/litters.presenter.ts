@@ -83,6 +83,7 @@ export function presentEvent(e: LitterEvent, ctx: LitterPresentContext): LitterE
     on: e.occurredOn,
     count: e.kitCount,
     cause: e.cause,
+    deathCause: e.deathCause ?? null,
     weaningWeightGrams: e.weaningWeightGrams ?? null,
     otherLitter: e.otherLitterId
       ? {

@@ -1,7 +1,7 @@
 import { randomUUID } from 'node:crypto';
 import { Op, type Transaction } from 'sequelize';
 import {
-  addDays, animalCreateSchema, checkKindlingDate, checkWeightForAge, daysBetween, ErrorCode, planFromKindling, RealtimeEvent, rooms, validateLitter,
+  addDays, animalCreateSchema, checkKindlingDate, checkWeightForAge, daysBetween, ErrorCode, KIT_DEATH_CAUSE_LABELS, planFromKindling, RealtimeEvent, rooms, validateLitter,
   type EntryReviewInput, type FosterCandidateDto, type FosteringCreateInput, type KeeperCreateInput, type KindlingCreateInput,
   type LitterDto, type LitterEventCreateInput, type LitterIssue, type LitterListDto, type LitterListQuery, type LitterRecord,
 } from '@burrowline/shared';
@@ -205,6 +205,13 @@ async function checkWeaningWeight(
   refuseOrConfirm(errors, warnings, confirm);
 }
 
+/** A loss's words: the breeder's own, else the chosen cause's label (a loss always says what happened). */
+function lossWords(input: LitterEventCreateInput): string | null {
+  const words = input.cause?.trim();
+  if (words) return words;
+  return input.kind === 'lost' && input.deathCause ? KIT_DEATH_CAUSE_LABELS[input.deathCause] : null;
+}
+
 /**
  * A dated change of the kit count with no other litter: lost (with a cause), culled, weaned. Refused,
  * nothing written, when more kits would leave than were with the doe on that date (born alive + fostered
@@ -232,7 +239,8 @@ export async function recordLitterEventIn(tx: Transaction, actor: SessionUser, l
     const weaningWeightGrams = input.kind === 'weaned' ? input.weaningWeightGrams ?? null : null;
     const pending = LitterEvent.build({
       id: input.id ?? randomUUID(), coopId: actor.coopId, farmId: litter.farmId, litterId: litter.id, kind: input.kind, occurredOn: input.on,
-      kitCount: input.count, cause: input.cause?.trim() || null, otherLitterId: null, pairId: null, enteredBy: actor.id,
+      kitCount: input.count, cause: lossWords(input), deathCause: input.kind === 'lost' ? input.deathCause ?? 'other' : null,
+      otherLitterId: null, pairId: null, enteredBy: actor.id,
       weaningWeightGrams, reviewState: actor.role === 'apprentice' ? 'pending' : 'accepted',
     });
     const record = recordOf(litter, [...events, pending]);

@@ -39,6 +39,9 @@ export function TodayCards({ enabled }: { enabled: boolean }) {
             </h2>
             <span className="text-grey-600">{formatLongDay(s.today)}</span>
           </div>
+          <LinkButton to="/herd/does" variant="secondary" className="w-full sm:w-auto">
+            Doe board: the morning's round
+          </LinkButton>
           <TaskList tasks={s.dueToday} empty="Nothing planned for today." />
           {s.overdue.length > 0 && (
             <div className="space-y-2">

@@ -8,7 +8,7 @@ import { ageClassLabels, purityLabels } from '../herd-labels';
 
 export const columnLabels: Record<HerdColumn, string> = {
   tattoo: 'Tattoo', name: 'Name', sex: 'Sex', breed: 'Breed make-up', purity: 'Purity', ageClass: 'Age class', birthDate: 'Born',
-  lifecycle: 'Status', hutch: 'Hutch', coi: 'COI', weight: 'Latest weight', custody: 'Custody',
+  lifecycle: 'Status', cycle: 'In her cycle', hutch: 'Hutch', coi: 'COI', weight: 'Latest weight', custody: 'Custody',
 };
 
 const statusOptions = [

@@ -2,6 +2,7 @@ import { createColumnHelper, getCoreRowModel, useReactTable, type SortingState, 
 import { Link } from 'react-router-dom';
 import { formatWeight, herdColumns, type AnimalListItemDto, type HerdSortKey, type HerdView, type WeightUnit } from '@burrowline/shared';
 import { Badge } from '../../../components/ui/badge';
+import { CycleBadge } from '../../doe-board';
 import { DataTable } from '../../../components/ui/data-table';
 import { ageClassLabels, custodyLabels, lifecycleLabels, sexLabels } from '../herd-labels';
 import { breedMakeupText, PurityBadge } from './breed-makeup';
@@ -43,6 +44,7 @@ function columnsFor(unit: WeightUnit) {
     column.accessor('ageClass', { id: 'ageClass', header: columnLabels.ageClass, cell: (info) => (info.getValue() ? ageClassLabels[info.getValue()!] : '—') }),
     column.accessor('birthDate', { id: 'birthDate', header: columnLabels.birthDate, cell: (info) => <span className="whitespace-nowrap">{info.getValue()}</span> }),
     column.accessor('lifecycle', { id: 'lifecycle', header: columnLabels.lifecycle, cell: (info) => lifecycleLabels[info.getValue()] }),
+    column.display({ id: 'cycle', header: columnLabels.cycle, cell: (info) => (info.row.original.cycle ? <CycleBadge cycle={info.row.original.cycle} className="min-w-36 max-w-48" wrap /> : <span className="text-grey-500">—</span>) }),
     column.accessor('hutch', { id: 'hutch', header: columnLabels.hutch }),
     column.accessor('coi', { id: 'coi', header: columnLabels.coi, cell: (info) => <CoiValue coi={info.getValue()} /> }),
     column.display({ id: 'weight', header: columnLabels.weight, cell: (info) => <WeightCell animal={info.row.original} unit={unit} /> }),
@@ -102,6 +104,7 @@ export function HerdTable({ animals, view, unit, isRefreshing, onSort }: HerdTab
             <p>{breedMakeupText(a.breedMakeup)}</p>
             <div className="flex flex-wrap items-center gap-2">
               <PurityBadge makeup={a.breedMakeup} />
+              {a.cycle && visible.has('cycle') && <CycleBadge cycle={a.cycle} />}
               {a.custody !== 'at_home' && <Badge tone="straw">{custodyLabels[a.custody]}</Badge>}
               <WeightCell animal={a} unit={unit} />
             </div>

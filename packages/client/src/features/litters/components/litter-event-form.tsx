@@ -1,5 +1,7 @@
 import { useForm } from 'react-hook-form';
-import { litterEventCreateSchema, weightInputToGrams, type LitterDto, type LitterEventCreateInput, type WeightUnit } from '@burrowline/shared';
+import {
+  KIT_DEATH_CAUSE_LABELS, kitDeathCauses, litterEventCreateSchema, weightInputToGrams, type KitDeathCause, type LitterDto, type LitterEventCreateInput, type WeightUnit,
+} from '@burrowline/shared';
 import { Button } from '../../../components/ui/button';
 import { ConfirmWarnings } from '../../../components/ui/confirm-warnings';
 import { SelectField } from '../../../components/ui/select-field';
@@ -15,10 +17,14 @@ const kinds = [
   { value: 'culled', label: 'Culled' },
 ] as const;
 
+const deathCauseOptions = [{ value: '', label: 'Choose why' }, ...kitDeathCauses.map((c) => ({ value: c, label: KIT_DEATH_CAUSE_LABELS[c] }))];
+
 interface LitterEventValues {
   kind: 'weaned' | 'lost' | 'culled';
   on: string;
   count: string;
+  /** Lost kits: why they died, from the list the doe's record counts. */
+  deathCause: KitDeathCause | '';
   cause: string;
   /** The litter weight in the farm's units: pounds and ounces, or kilograms and grams. */
   weightMajor: string;
@@ -26,7 +32,7 @@ interface LitterEventValues {
 }
 
 /** The body's weight in grams goes back to the first weight box. */
-const fieldOf = (path: string) => (path === 'weaningWeightGrams' ? 'weightMajor' : (['kind', 'on', 'count', 'cause'] as const).find((f) => f === path) ?? null);
+const fieldOf = (path: string) => (path === 'weaningWeightGrams' ? 'weightMajor' : (['kind', 'on', 'count', 'deathCause', 'cause'] as const).find((f) => f === path) ?? null);
 
 /**
  * Kits leaving the doe on a date: weaned, lost (with a cause) or culled. The count follows from these. A
@@ -45,19 +51,20 @@ export function LitterEventForm({ litter, today, isApprentice, unit }: { litter:
           kind: v.kind,
           on: v.on,
           count: typedNumber(v.count),
+          ...(v.kind === 'lost' && v.deathCause ? { deathCause: v.deathCause } : {}),
           ...(v.cause && v.kind !== 'weaned' ? { cause: v.cause } : {}),
           ...(weaningWeightGrams ? { weaningWeightGrams } : {}),
         };
       },
       fieldOf,
     ),
-    defaultValues: { kind: 'weaned', on: today, count: String(litter.onDoe || ''), cause: '', weightMajor: '', weightMinor: '' },
+    defaultValues: { kind: 'weaned', on: today, count: String(litter.onDoe || ''), deathCause: '', cause: '', weightMajor: '', weightMinor: '' },
   });
   const { errors } = form.formState;
   const kind = form.watch('kind');
   const { submit, confirm, warnings, failure } = useServerSubmit(form, record, {
     fields: fieldOf,
-    onSuccess: () => form.reset({ ...form.getValues(), cause: '', weightMajor: '', weightMinor: '' }),
+    onSuccess: () => form.reset({ ...form.getValues(), deathCause: '', cause: '', weightMajor: '', weightMinor: '' }),
   });
   const weightError = errors.weightMajor?.message;
   return (
@@ -66,7 +73,11 @@ export function LitterEventForm({ litter, today, isApprentice, unit }: { litter:
         <SelectField label="What happened" options={kinds} error={errors.kind?.message} {...form.register('kind')} />
         <TextField label="On" type="date" max={today} error={errors.on?.message} {...form.register('on')} />
         <TextField label="Kits" type="number" inputMode="numeric" min={1} error={errors.count?.message} {...form.register('count')} />
-        {kind !== 'weaned' && <TextField label={kind === 'lost' ? 'Cause' : 'Reason (optional)'} error={errors.cause?.message} {...form.register('cause')} />}
+        {/* A loss with neither a listed cause nor words is refused on its words; the list is where to answer it. */}
+        {kind === 'lost' && (
+          <SelectField label="Why they died" options={deathCauseOptions} error={errors.deathCause?.message ?? errors.cause?.message} {...form.register('deathCause')} />
+        )}
+        {kind !== 'weaned' && <TextField label={kind === 'lost' ? 'In your words (optional)' : 'Reason (optional)'} error={kind === 'lost' ? undefined : errors.cause?.message} {...form.register('cause')} />}
       </div>
       {kind === 'weaned' && (
         <fieldset className="space-y-2">

@@ -1,11 +1,18 @@
 import { Link } from 'react-router-dom';
-import { formatWeight, type LitterDto, type LitterEventDto, type WeightUnit } from '@burrowline/shared';
+import { formatWeight, KIT_DEATH_CAUSE_LABELS, type LitterDto, type LitterEventDto, type WeightUnit } from '@burrowline/shared';
 import { Badge } from '../../../components/ui/badge';
 import { Button } from '../../../components/ui/button';
 import { animalName } from '../../../lib/names';
 import { formatDate } from '../../../lib/days';
 import { errorText } from '../../../lib/form-errors';
 import { useReviewLitterEvent } from '../api/review-litter-event';
+
+/** A loss names its cause from the list, then the breeder's words when they say more. */
+function lossWords(e: Pick<LitterEventDto, 'cause' | 'deathCause'>): string {
+  const listed = e.deathCause ? KIT_DEATH_CAUSE_LABELS[e.deathCause] : null;
+  const parts = [listed, e.cause && e.cause !== listed ? e.cause : null].filter(Boolean);
+  return parts.length > 0 ? ` — ${parts.join(': ')}` : '';
+}
 
 const words: Record<LitterEventDto['kind'], string> = {
   fostered_in: 'Fostered in',
@@ -42,7 +49,7 @@ export function LitterEventsList({ litter, canReview, unit }: { litter: LitterDt
                     </Link>
                   </>
                 ) : target ? ` ${target}` : ''}
-                {e.cause ? ` — ${e.cause}` : ''}
+                {lossWords(e)}
                 {e.weaningWeightGrams ? ` · ${formatWeight(e.weaningWeightGrams, unit)} together (${formatWeight(e.weaningWeightGrams / e.count, unit)} a kit)` : ''}
                 {e.enteredBy ? <span className="text-sm text-grey-600"> · {e.fromOtherFarm ? `recorded at the other farm by ${e.enteredBy.name}` : e.enteredBy.name}</span> : null}
               </span>

@@ -55,6 +55,8 @@ export function useRealtimeSync(): void {
       const refreshPerformance = () => void queryClient.invalidateQueries({ queryKey: performanceKeys.all });
       const refreshAlmanac = () => {
         void queryClient.invalidateQueries({ queryKey: almanacKeys.all });
+        // The herd list shows where each doe stands in her cycle, read from services and litters.
+        void queryClient.invalidateQueries({ queryKey: [...herdKeys.all, 'animals', 'list'] });
         refreshPerformance();
       };
       const refreshLitters = () => {
