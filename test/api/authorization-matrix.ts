@@ -294,6 +294,10 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'POST', path: '/api/animals/:animalId/photos', target: 'animalA', body: 'photoUpload', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 404, admin: 201, otherCoop: 404 } },
   { method: 'GET', path: '/api/photos/:photoId', target: 'photoA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
   { method: 'GET', path: '/api/photos/:photoId/thumbnail', target: 'photoA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  // A photo in a message of farm A's litter thread: the thread's readers alone see it; nobody edits it on its own.
+  { method: 'GET', path: '/api/photos/:chatPhotoId', target: 'chatA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/photos/:chatPhotoId/thumbnail', target: 'chatA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'DELETE', path: '/api/photos/:chatPhotoId', target: 'chatA', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 404, admin: 403, otherCoop: 404 } },
   { method: 'PATCH', path: '/api/photos/:photoId', target: 'photoA', body: 'photoCaption', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
   { method: 'DELETE', path: '/api/photos/:photoId', target: 'photoA', expect: { anonymous: 401, apprentice: 403, member: 204, otherFarmMember: 404, admin: 204, otherCoop: 404 } },
   { method: 'GET', path: '/api/farms/:farmId/photo', target: 'farmA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
@@ -442,6 +446,9 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'GET', path: '/api/chat/threads/:litterThreadId/people', target: 'chatA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
   { method: 'POST', path: '/api/chat/threads/:channelId/messages', target: 'chatA', body: 'chatMessage', expect: { anonymous: 401, apprentice: 201, member: 201, otherFarmMember: 201, admin: 201, otherCoop: 404 } },
   { method: 'POST', path: '/api/chat/threads/:litterThreadId/messages', target: 'chatA', body: 'chatMessage', expect: { anonymous: 401, apprentice: 201, member: 201, otherFarmMember: 404, admin: 201, otherCoop: 404 } },
+  // Photos are shared in a thread by who may write there; each image is served only to the thread's readers.
+  { method: 'POST', path: '/api/chat/threads/:channelId/attachments', target: 'chatA', body: 'photoUpload', expect: { anonymous: 401, apprentice: 201, member: 201, otherFarmMember: 201, admin: 201, otherCoop: 404 } },
+  { method: 'POST', path: '/api/chat/threads/:litterThreadId/attachments', target: 'chatA', body: 'photoUpload', expect: { anonymous: 401, apprentice: 201, member: 201, otherFarmMember: 404, admin: 201, otherCoop: 404 } },
   { method: 'POST', path: '/api/chat/threads/:litterThreadId/read', target: 'chatA', body: 'chatRead', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
   { method: 'POST', path: '/api/chat/subjects/litter/:litterId/open', target: 'chatA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
   { method: 'PATCH', path: '/api/chat/messages/:messageId', target: 'chatA', body: 'chatEdit', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 403, otherCoop: 404 } },

@@ -9,9 +9,10 @@ import { kindlingDaysOfDams } from '../modules/litters/litter-facts.service';
 import { processedHeadsOf } from '../modules/processing/processing.service';
 import { sharedDaysOfFarm } from '../modules/almanac/shared-days';
 import { processingDaysOfFarm } from '../modules/processing-days/processing-days.service';
-import { photoPublishedTo } from '../modules/photos/photos.service';
+import { chatPhotoReadable, photoPublishedTo } from '../modules/photos/photos.service';
 import { isPhotoPublished } from '../modules/stud-share/stud-share-facts.service';
 import { registerThreadSubject } from '../modules/chat/chat-subjects.service';
+import { mayReadChatPhoto } from '../modules/chat/chat.service';
 import { litterThreadSubject } from '../modules/litters/litter-thread.service';
 import { processingDayThreadSubject } from '../modules/processing-days/day-thread.service';
 import { loanThreadSubject } from '../modules/stud-share/loan-thread.service';
@@ -36,6 +37,7 @@ export function plugModulePorts(): void {
   processedHeadsOfGroups.plug(processedHeadsOf);
   sharedDaysOfFarm.plug(processingDaysOfFarm);
   photoPublishedTo.plug(isPhotoPublished);
+  chatPhotoReadable.plug(mayReadChatPhoto);
   // Co-op Chat's threads beside subjects: who reads the subject reads its thread.
   registerThreadSubject('litter', litterThreadSubject);
   registerThreadSubject('processing-day', processingDayThreadSubject);
