@@ -168,9 +168,9 @@ function ThreadView({ thread, embedded, focusMessageId }: ThreadViewProps) {
           replyTo={replyTo}
           onCancelReply={() => setReplyTo(null)}
           sticky={!embedded}
-          onSend={(body, mentions) => {
+          onSend={(body, mentions, photos) => {
             stick.current = true;
-            live.send(body, mentions, replyTo);
+            live.send(body, mentions, replyTo, photos);
             setReplyTo(null);
           }}
         />
