@@ -13,7 +13,7 @@ import type { SessionUser } from '../../lib/session-user';
 import { recordAudit } from '../audit/audit.service';
 import { notify } from '../notifications/notifications.service';
 import { addChatPhotos, attachChatPhotosIn, removeChatPhotosIn, unsentChatPhotosIn, type PhotoLimits, type UploadedFile } from '../photos/photos.service';
-import { readableSubjects, threadSubjectOf, type ThreadParticipants } from './chat-subjects.service';
+import { readableSubjectThreads, threadSubjectOf, type ThreadParticipants } from './chat-subjects.service';
 import { presentMessage, presentThread, type MessageRow, type MessageViewer, type ThreadRow } from './chat.presenter';
 
 let rateLimit = { messages: 20, windowSeconds: 10 };
@@ -60,19 +60,7 @@ async function readableThread(tx: Transaction, actor: SessionUser, threadId: str
 }
 
 /** The subject threads among the co-op's that the actor may read, by id. */
-async function readableSubjectThreadIds(tx: Transaction, actor: SessionUser): Promise<string[]> {
-  const rows = await q<{ id: string; subject_type: string; subject_id: string }>(
-    tx, `SELECT id, subject_type, subject_id FROM chat_threads WHERE coop_id = $1 AND kind = 'subject'`, [actor.coopId],
-  );
-  const byType = new Map<string, typeof rows>();
-  for (const row of rows) byType.set(row.subject_type, [...(byType.get(row.subject_type) ?? []), row]);
-  const ids: string[] = [];
-  for (const [type, threads] of byType) {
-    const readable = new Set(await readableSubjects(tx, actor, type, threads.map((t) => t.subject_id)));
-    for (const t of threads) if (readable.has(t.subject_id)) ids.push(t.id);
-  }
-  return ids;
-}
+const readableSubjectThreadIds = readableSubjectThreads;
 
 const THREAD_COLUMNS = `
   t.id, t.kind, t.subject_type, t.subject_id, t.title, t.last_message_at, t.last_seq,
