@@ -1,6 +1,4 @@
-import { QueryTypes, type Transaction } from 'sequelize';
 import { defineAbilityFor, subjectOf } from '@burrowline/shared';
-import { database } from '../../db/sequelize';
 import type { SessionUser } from '../../lib/session-user';
 import { subjectFromRows } from '../chat/chat-subjects.service';
 
