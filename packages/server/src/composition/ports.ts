@@ -8,7 +8,8 @@ import { groupsOfFarm } from '../modules/grow-out/grow-out-facts.service';
 import { kindlingDaysOfDams } from '../modules/litters/litter-facts.service';
 import { processedHeadsOf } from '../modules/processing/processing.service';
 import { sharedDaysOfFarm } from '../modules/almanac/shared-days';
-import { processingDaysOfFarm } from '../modules/processing-days/processing-days.service';
+import { processingDaysOfFarm, stationRefusal } from '../modules/processing-days/processing-days.service';
+import { stationRefusalFor } from '../modules/mentorship/mentorship-facts.service';
 import { chatPhotoReadable, photoPublishedTo } from '../modules/photos/photos.service';
 import { isPhotoPublished } from '../modules/stud-share/stud-share-facts.service';
 import { registerThreadSubject } from '../modules/chat/chat-subjects.service';
@@ -38,6 +39,8 @@ export function plugModulePorts(): void {
   sharedDaysOfFarm.plug(processingDaysOfFarm);
   photoPublishedTo.plug(isPhotoPublished);
   chatPhotoReadable.plug(mayReadChatPhoto);
+  // A dangerous station on a processing day's roster waits for the apprentice's sign-off when the co-op asks.
+  stationRefusal.plug(stationRefusalFor);
   // Co-op Chat's threads beside subjects: who reads the subject reads its thread.
   registerThreadSubject('litter', litterThreadSubject);
   registerThreadSubject('processing-day', processingDayThreadSubject);
