@@ -135,7 +135,8 @@ export function Composer({ threadId, replyTo, onCancelReply, onSend, sticky }: C
             multiple
             className="sr-only"
             tabIndex={-1}
-            aria-label="Choose photos to send"
+            // The "Attach a photo" button opens it; screen readers use that button.
+            aria-hidden="true"
             onChange={(e) => {
               const files = [...(e.target.files ?? [])];
               e.target.value = '';
