@@ -7,7 +7,12 @@ import type { SwapTarget } from '../support/swap-board-matrix';
  * authorization-<area>.test.ts run every cell, one file per area of `matrixAreas` below. Personas: `member` and `apprentice` and `admin` belong to
  * farm A; `otherFarmMember` to farm B of the same co-op; `otherCoop` is an admin of another co-op.
  */
-export type Persona = 'anonymous' | 'apprentice' | 'member' | 'otherFarmMember' | 'admin' | 'otherCoop';
+export type Persona = 'anonymous' | 'apprentice' | 'member' | 'otherFarmMember' | 'admin' | 'otherCoop' | 'farmMateNotMentor';
+/**
+ * Every row names these; `farmMateNotMentor` (a second member of farm A, who is not the apprentice's mentor)
+ * is asked where being the mentor matters: reviews, the apprentice's record and skills.
+ */
+export type CorePersona = Exclude<Persona, 'farmMateNotMentor'>;
 /**
  * Objects a row acts on. Membership targets are made fresh for every cell (a pending application,
  * a member of farm B, a turned-off member, one without a password yet, a pending invitee), so a
@@ -191,7 +196,7 @@ export interface MatrixRow {
   path: string;
   target: Target;
   body?: Body;
-  expect: Record<Persona, number>;
+  expect: Record<CorePersona, number> & { farmMateNotMentor?: number };
 }
 
 export const authorizationMatrix: MatrixRow[] = [
@@ -241,8 +246,9 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'POST', path: '/api/animals/:animalId/custody-events', target: 'animalA', body: 'custodyMove', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 403, admin: 201, otherCoop: 404 } },
   { method: 'POST', path: '/api/animals/:animalId/notes', target: 'animalA', body: 'note', expect: { anonymous: 401, apprentice: 201, member: 201, otherFarmMember: 403, admin: 201, otherCoop: 404 } },
   { method: 'POST', path: '/api/weigh-ins', target: 'animalA', body: 'weighIn', expect: { anonymous: 401, apprentice: 201, member: 201, otherFarmMember: 403, admin: 201, otherCoop: 404 } },
-  { method: 'POST', path: '/api/weigh-ins/:weighInId/review', target: 'weighInA', body: 'review', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
-  { method: 'POST', path: '/api/animal-notes/:noteId/review', target: 'noteA', body: 'review', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  // Only the apprentice's mentor (farm A's member) reviews her entries: the admin of farm A is not her mentor.
+  { method: 'POST', path: '/api/weigh-ins/:weighInId/review', target: 'weighInA', body: 'review', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 403, otherCoop: 404, farmMateNotMentor: 403 } },
+  { method: 'POST', path: '/api/animal-notes/:noteId/review', target: 'noteA', body: 'review', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 403, otherCoop: 404, farmMateNotMentor: 403 } },
   { method: 'GET', path: '/api/pedigree-cards', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'GET', path: '/api/pedigree-cards/:animalId', target: 'animalB', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
   // Another co-op's ids are not there, so its trial names no doe: a field error, like any unknown id.
@@ -272,7 +278,7 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'PATCH', path: '/api/almanac/tasks/:taskId', target: 'serviceA', body: 'taskDone', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
   { method: 'PATCH', path: '/api/almanac/tasks/:taskId', target: 'serviceA', body: 'taskSkip', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
   { method: 'POST', path: '/api/almanac/tasks/bulk', target: 'serviceA', body: 'taskBulk', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
-  { method: 'POST', path: '/api/almanac/tasks/:taskId/review', target: 'pendingTaskA', body: 'taskReview', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/almanac/tasks/:taskId/review', target: 'pendingTaskA', body: 'taskReview', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 403, otherCoop: 404, farmMateNotMentor: 403 } },
   { method: 'GET', path: '/api/services', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'POST', path: '/api/services', target: 'breedingPairA', body: 'service', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 400, admin: 201, otherCoop: 400 } },
   { method: 'GET', path: '/api/services/:serviceId', target: 'serviceA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
@@ -297,7 +303,7 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'GET', path: '/api/litters/:litterId/foster-candidates', target: 'litterA', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
   { method: 'POST', path: '/api/litters/:litterId/fosterings', target: 'litterA', body: 'fostering', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 404, admin: 201, otherCoop: 404 } },
   { method: 'POST', path: '/api/litters/:litterId/keepers', target: 'litterA', body: 'keeper', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 404, admin: 201, otherCoop: 404 } },
-  { method: 'POST', path: '/api/litter-events/:eventId/review', target: 'litterEventA', body: 'litterReview', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'POST', path: '/api/litter-events/:eventId/review', target: 'litterEventA', body: 'litterReview', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 403, otherCoop: 404, farmMateNotMentor: 403 } },
   { method: 'GET', path: '/api/housing-units', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'POST', path: '/api/housing-units', target: 'none', body: 'housingUnit', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 201, admin: 201, otherCoop: 201 } },
   { method: 'POST', path: '/api/housing-units/:unitId/placements', target: 'housingA', body: 'placement', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 404, admin: 201, otherCoop: 404 } },
@@ -309,6 +315,10 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'POST', path: '/api/animals/:animalId/photos', target: 'animalA', body: 'photoUpload', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 404, admin: 201, otherCoop: 404 } },
   { method: 'GET', path: '/api/photos/:photoId', target: 'photoA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
   { method: 'GET', path: '/api/photos/:photoId/thumbnail', target: 'photoA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  // A photo in a message of farm A's litter thread: the thread's readers alone see it; nobody edits it on its own.
+  { method: 'GET', path: '/api/photos/:chatPhotoId', target: 'chatA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/photos/:chatPhotoId/thumbnail', target: 'chatA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'DELETE', path: '/api/photos/:chatPhotoId', target: 'chatA', expect: { anonymous: 401, apprentice: 403, member: 403, otherFarmMember: 404, admin: 403, otherCoop: 404 } },
   { method: 'PATCH', path: '/api/photos/:photoId', target: 'photoA', body: 'photoCaption', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
   { method: 'DELETE', path: '/api/photos/:photoId', target: 'photoA', expect: { anonymous: 401, apprentice: 403, member: 204, otherFarmMember: 404, admin: 204, otherCoop: 404 } },
   { method: 'GET', path: '/api/farms/:farmId/photo', target: 'farmA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
@@ -460,13 +470,13 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'POST', path: '/api/mentorship/chores', target: 'none', body: 'chore', expect: { anonymous: 401, apprentice: 201, member: 403, otherFarmMember: 403, admin: 403, otherCoop: 403 } },
   { method: 'PUT', path: '/api/mentorship/chores/:choreId', target: 'returnedChoreA', body: 'choreResubmit', expect: { anonymous: 401, apprentice: 200, member: 403, otherFarmMember: 403, admin: 403, otherCoop: 403 } },
   { method: 'POST', path: '/api/mentorship/chores/:choreId/photos', target: 'choreA', body: 'photoUpload', expect: { anonymous: 401, apprentice: 201, member: 403, otherFarmMember: 403, admin: 403, otherCoop: 403 } },
-  { method: 'GET', path: '/api/mentorship/review', target: 'none', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
-  { method: 'POST', path: '/api/mentorship/review/accept-many', target: 'choreA', body: 'acceptMany', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 403, otherCoop: 404 } },
-  { method: 'POST', path: '/api/mentorship/review/:kind/:choreId', target: 'choreA', body: 'reviewAccept', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 403, otherCoop: 404 } },
+  { method: 'GET', path: '/api/mentorship/review', target: 'none', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200, farmMateNotMentor: 200 } },
+  { method: 'POST', path: '/api/mentorship/review/accept-many', target: 'choreA', body: 'acceptMany', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 403, otherCoop: 404, farmMateNotMentor: 403 } },
+  { method: 'POST', path: '/api/mentorship/review/:kind/:choreId', target: 'choreA', body: 'reviewAccept', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 403, otherCoop: 404, farmMateNotMentor: 403 } },
   { method: 'GET', path: '/api/mentorship/apprentices', target: 'none', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
-  { method: 'GET', path: '/api/mentorship/apprentices/:apprenticeId', target: 'apprenticeA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
-  { method: 'PUT', path: '/api/mentorship/apprentices/:apprenticeId/skills/:skillKey', target: 'apprenticeA', body: 'skillMark', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 403, otherCoop: 404 } },
-  { method: 'GET', path: '/api/mentorship/apprentices/:apprenticeId/record-of-skills', target: 'apprenticeA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/mentorship/apprentices/:apprenticeId', target: 'apprenticeA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404, farmMateNotMentor: 403 } },
+  { method: 'PUT', path: '/api/mentorship/apprentices/:apprenticeId/skills/:skillKey', target: 'apprenticeA', body: 'skillMark', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 403, otherCoop: 404, farmMateNotMentor: 403 } },
+  { method: 'GET', path: '/api/mentorship/apprentices/:apprenticeId/record-of-skills', target: 'apprenticeA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404, farmMateNotMentor: 403 } },
   // Co-op Chat: the channel and topics are the whole co-op's; a litter's thread is its farm's (the admin here is of farm A);
   // only the author edits or removes, only the admin hides and mutes.
   { method: 'GET', path: '/api/chat/threads', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
@@ -478,6 +488,9 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'GET', path: '/api/chat/threads/:litterThreadId/people', target: 'chatA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
   { method: 'POST', path: '/api/chat/threads/:channelId/messages', target: 'chatA', body: 'chatMessage', expect: { anonymous: 401, apprentice: 201, member: 201, otherFarmMember: 201, admin: 201, otherCoop: 404 } },
   { method: 'POST', path: '/api/chat/threads/:litterThreadId/messages', target: 'chatA', body: 'chatMessage', expect: { anonymous: 401, apprentice: 201, member: 201, otherFarmMember: 404, admin: 201, otherCoop: 404 } },
+  // Photos are shared in a thread by who may write there; each image is served only to the thread's readers.
+  { method: 'POST', path: '/api/chat/threads/:channelId/attachments', target: 'chatA', body: 'photoUpload', expect: { anonymous: 401, apprentice: 201, member: 201, otherFarmMember: 201, admin: 201, otherCoop: 404 } },
+  { method: 'POST', path: '/api/chat/threads/:litterThreadId/attachments', target: 'chatA', body: 'photoUpload', expect: { anonymous: 401, apprentice: 201, member: 201, otherFarmMember: 404, admin: 201, otherCoop: 404 } },
   { method: 'POST', path: '/api/chat/threads/:litterThreadId/read', target: 'chatA', body: 'chatRead', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
   { method: 'POST', path: '/api/chat/subjects/litter/:litterId/open', target: 'chatA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
   { method: 'PATCH', path: '/api/chat/messages/:messageId', target: 'chatA', body: 'chatEdit', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 403, otherCoop: 404 } },

@@ -16,6 +16,7 @@ import { apprenticeOf, growingGroupAs } from '../support/mentorship';
 import { queuedMailTo } from '../support/mail';
 import { heardEverythingSoFar, liveTestServer } from '../support/sockets';
 import { ROOMY_SIGN_IN } from '../support/test-app';
+import { dayAs, siteAs } from '../support/processing-days';
 
 const server = liveTestServer({ signIn: ROOMY_SIGN_IN });
 
@@ -314,5 +315,31 @@ describe('mentorship: skills and the record of skills', () => {
     expect(back.status).toBe(200);
     const restored = ((await mentor.get(`/api/mentorship/apprentices/${coop.apprentice.id}`)).body as ApprenticeDetailDto).skills.find((s) => s.key === 'tattooing');
     expect(restored).toMatchObject({ state: 'signed-off', comment: 'Clean and legible' });
+  });
+});
+
+describe('dangerous stations on a processing day', () => {
+  it('when the co-op requires a sign-off, then an apprentice takes Dispatch only once her mentor signed off humane dispatch, and Packing at any time', async () => {
+    const coop = await createTestCoop();
+    const day = await dayAs(coop.admin, (await siteAs(coop.admin, coop)).id);
+    const stationId = (name: string) => day.stations.find((s) => s.name === name)!.id;
+    const mentor = await agentOf(coop.member);
+    const apprentice = await agentOf(coop.apprentice);
+    expect((await mentor.put(`/api/processing-days/farm-settings/${coop.farms[0]!.id}`).send({ apprenticesMayStaff: true })).status).toBe(200);
+    const rosterOf = async () => (await asTenant(coop.id, (c) => c.query('SELECT station_id FROM processing_day_roster WHERE day_id = $1 AND user_id = $2', [day.id, coop.apprentice.id]))).rows;
+
+    const refused = await apprentice.post(`/api/processing-days/${day.id}/stations/${stationId('Dispatch')}/sign-up`).send({});
+    expect(refused.status).toBe(403);
+    expect(refused.body.error.message).toMatch(/^Humane dispatch must be signed off by the mentor before an apprentice takes this station\. Dangerous work/);
+    // Her mentor cannot put her there either, nor on Evisceration (the skinning and evisceration skill).
+    expect((await mentor.post(`/api/processing-days/${day.id}/stations/${stationId('Evisceration')}/sign-up`).send({ userId: coop.apprentice.id })).status).toBe(403);
+    expect(await rosterOf()).toEqual([]);
+
+    expect((await apprentice.post(`/api/processing-days/${day.id}/stations/${stationId('Packing')}/sign-up`).send({})).status).toBe(200);
+    expect((await apprentice.post(`/api/processing-days/${day.id}/stations/${stationId('Packing')}/leave`).send({})).status).toBe(200);
+
+    expect((await mentor.put(`/api/mentorship/apprentices/${coop.apprentice.id}/skills/dispatch`).send({ state: 'signed-off', comment: 'Calm and quick under supervision' })).status).toBe(200);
+    expect((await apprentice.post(`/api/processing-days/${day.id}/stations/${stationId('Dispatch')}/sign-up`).send({})).status).toBe(200);
+    expect(await rosterOf()).toEqual([{ station_id: stationId('Dispatch') }]);
   });
 });

@@ -213,6 +213,8 @@ describe('processing days: roster and equipment', () => {
     expect((await apprentice.post(`${url}/${skinning!.id}/sign-up`).send({})).status).toBe(403);
     await member.put(`/api/processing-days/farm-settings/${coop.farms[0]!.id}`).send({ apprenticesMayStaff: true }).expect(200);
     expect((await other.put(`/api/processing-days/farm-settings/${coop.farms[0]!.id}`).send({ apprenticesMayStaff: false })).status).toBe(404);
+    // Skinning is dangerous work: the co-op's rule wants her mentor's sign-off first (its own test is in mentorship.test.ts).
+    await member.put(`/api/mentorship/apprentices/${coop.apprentice.id}/skills/skinning`).send({ state: 'signed-off', comment: 'Clean cuts, safe knife work' }).expect(200);
     const page = (await apprentice.post(`${url}/${skinning!.id}/sign-up`).send({}).expect(200)).body as ProcessingDayDto;
     expect(page.stations.map((s) => [s.name, s.filled, s.places.map((p) => p.userId)])).toEqual([
       ['Dispatch', 1, [coop.member.id]], ['Skinning', 1, [coop.apprentice.id, null]],

@@ -15,6 +15,14 @@ import { doeOf, offeredBuck, requestAs } from '../support/stud-share';
 import { listedDoe, offerAs } from '../support/swap-board';
 import { fillThread } from '../support/chat';
 import { listThreads, openSubjectThread } from '../../packages/server/src/modules/chat/chat.service';
+import { choreEntrySchema } from '@burrowline/shared';
+import { logChore } from '../../packages/server/src/modules/mentorship/mentorship.service';
+
+/** A chore entry of farm A's apprentice, waiting for her mentor (farm A's member). */
+async function choreArranged(coop: TestCoop) {
+  const entry = await logChore(actorOf(coop.apprentice), choreEntrySchema.parse({ kind: 'feeding', minutes: 15, notes: 'Hay and pellets' }));
+  return grower(coop.id, 'chore_entries', entry.id, {}, `review_state = 'pending'`);
+}
 
 /** The co-op's channel and a litter's thread of farm A, so every read of subjects runs at 10 rows as at 1,000. */
 async function chatArranged(coop: TestCoop) {
@@ -288,6 +296,37 @@ const endpoints: Endpoint[] = [
       const offer = await offerAs(coop.otherFarmMember, listing.id);
       return { url: '/api/swap-board/offers?side=received&pageSize=10', asker: coop.member, growTo: grower(coop.id, 'swap_offers', offer.id) };
     },
+  },
+  {
+    name: "the mentor's review queue",
+    async arrange(coop) {
+      return { url: '/api/mentorship/review', asker: coop.member, growTo: await choreArranged(coop) };
+    },
+  },
+  {
+    name: "the apprentice's own log",
+    async arrange(coop) {
+      return { url: '/api/mentorship/chores', asker: coop.apprentice, growTo: await choreArranged(coop) };
+    },
+  },
+  {
+    name: "the co-op's apprentices (the admin's list)",
+    async arrange(coop) {
+      const growChores = await choreArranged(coop);
+      await growChores(5);
+      return {
+        url: '/api/mentorship/apprentices',
+        asker: coop.admin,
+        growTo: grower(coop.id, 'users', coop.apprentice.id, { email: `'copy-' || gen_random_uuid() || '@example.test'` }, `role = 'apprentice'`),
+      };
+    },
+  },
+  {
+    name: "an apprentice's page (skills, hours, entries)",
+    async arrange(coop) {
+      return { url: `/api/mentorship/apprentices/${coop.apprentice.id}`, asker: coop.member, growTo: await choreArranged(coop) };
+    },
+    over: { ownBudget: 8, why: 'the apprentice, the checklist, what waits, her figures, her skill marks, her hours by kind and week, her latest entries and their photos: one statement each' },
   },
   {
     name: "the person's chat threads",

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import type { GrowOutGroupDto } from '@burrowline/shared';
+import { formatWeight, gramsToWeightInput, type GrowOutGroupDto } from '@burrowline/shared';
 import { farmToday } from '../support/almanac';
 import { browserTestApp, collectPageErrors, openBrowser, sidewaysScroll } from '../support/browser';
 import { createTestCoop, TEST_PASSWORD } from '../support/factories';
@@ -29,7 +29,10 @@ describe('journey 3: an apprentice logs, her mentor reviews and signs off', () =
       await apprentice.getByRole('heading', { name: 'Log a chore', level: 1 }).waitFor();
       await apprentice.getByRole('button', { name: 'Weighing', exact: true }).click();
       await apprentice.getByLabel('About').selectOption(`group:${group.id}`);
-      await apprentice.getByLabel('Weight on the scale (g)').fill('7600');
+      // The test farms weigh in pounds and ounces: 7,600 g typed as the scale shows it.
+      const scale = gramsToWeightInput(7600, 'lb_oz');
+      await apprentice.getByLabel('Weight on the scale (lb)').fill(scale.major);
+      await apprentice.getByLabel('Weight on the scale (oz)').fill(scale.minor);
       await apprentice.getByLabel('Head count').fill('8');
       await apprentice.getByLabel('Photos').setInputFiles({ name: 'scale.jpg', mimeType: 'image/jpeg', buffer: await testImage('jpeg') });
       expect(await sidewaysScroll(apprentice)).toBeLessThanOrEqual(0);
@@ -39,7 +42,7 @@ describe('journey 3: an apprentice logs, her mentor reviews and signs off', () =
       // It arrives on the mentor's open queue without a reload, with its photo.
       const card = mentor.getByRole('article', { name: `Weighing on ${farmToday()}` });
       await card.waitFor();
-      await card.getByText('Weight: 7,600 g for 8 head').waitFor();
+      await card.getByText(`Weight: ${formatWeight(7600, 'lb_oz')} for 8 head`).waitFor();
       await card.getByRole('img', { name: 'Photo of weighing' }).waitFor();
       await card.getByRole('button', { name: 'Return…' }).click();
       await card.getByLabel('What should she correct?').fill('That includes the carrier: weigh them again without it');
@@ -50,12 +53,14 @@ describe('journey 3: an apprentice logs, her mentor reviews and signs off', () =
       await apprentice.goto(`${app.url}/mentorship/log?state=returned`);
       const returned = apprentice.getByRole('article', { name: `Weighing on ${farmToday()}` });
       await returned.getByText('That includes the carrier: weigh them again without it').waitFor();
-      await returned.getByLabel('Corrected weight (g)').fill('7200');
+      const corrected = gramsToWeightInput(7200, 'lb_oz');
+      await returned.getByLabel('Corrected weight (lb)').fill(corrected.major);
+      await returned.getByLabel('Corrected weight (oz)').fill(corrected.minor);
       await returned.getByRole('button', { name: 'Send corrected entry' }).click();
       await apprentice.getByText('Nothing here.').waitFor();
 
       // Back in the mentor's queue, live; accepted, the weight enters the group's figures.
-      await card.getByText('Weight: 7,200 g for 8 head').waitFor();
+      await card.getByText(`Weight: ${formatWeight(7200, 'lb_oz')} for 8 head`).waitFor();
       const before = await mentor.request.get(`${app.url}/api/grow-out/groups/${group.id}`);
       expect(((await before.json()) as GrowOutGroupDto).latest).toBeNull();
       await card.getByRole('button', { name: 'Accept', exact: true }).click();

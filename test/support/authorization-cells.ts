@@ -69,16 +69,20 @@ export function describeMatrixArea(area: MatrixArea) {
   });
   let coop: TestCoop;
   let foreign: TestCoop;
+  /** A second member of farm A: not the apprentice's mentor (farm A's first member is). */
+  let farmMate: TestPerson;
+  const personOf = (persona: Exclude<Persona, 'anonymous' | 'otherCoop'>): TestPerson => (persona === 'farmMateNotMentor' ? farmMate : coop[persona]);
 
   beforeAll(async () => {
     [coop, foreign] = await Promise.all([createTestCoop(), createTestCoop()]);
+    farmMate = await createTestMember(coop, { farmIndex: 0 });
     await recordPrivateRows(coop.member);
     await recordPrivateRows(coop.otherFarmMember);
   });
 
   /** Ids of the test co-op's farm-private rows that `persona` may not read: the other farm's, or all for another co-op. */
   async function othersPrivateIds(persona: Persona): Promise<string[]> {
-    const ownFarms = persona === 'otherCoop' || persona === 'anonymous' ? [] : [coop[persona].farmId].filter((id): id is string => Boolean(id));
+    const ownFarms = persona === 'otherCoop' || persona === 'anonymous' ? [] : [personOf(persona).farmId].filter((id): id is string => Boolean(id));
     const rows = await asTenant(coop.id, (c) => c.query<{ id: string }>(FARM_PRIVATE_ROWS, [coop.id, ownFarms]));
     return rows.rows.map((r) => r.id);
   }
@@ -89,7 +93,7 @@ export function describeMatrixArea(area: MatrixArea) {
   /** Each persona signs in once per file; a cell that ends its session signs in afresh so the others keep theirs. */
   async function agentOf(persona: Persona, row: MatrixRow): Promise<Agent> {
     if (persona === 'anonymous') return agentFor(handle);
-    const person = persona === 'otherCoop' ? foreign.admin : coop[persona];
+    const person = persona === 'otherCoop' ? foreign.admin : personOf(persona);
     const endsSession = row.method === 'DELETE' && row.path === '/api/session';
     if (endsSession) return signedInAgent(person.email, TEST_PASSWORD, handle);
     return sharedSignedInAgent(person.email, TEST_PASSWORD, handle);
@@ -205,7 +209,7 @@ export function describeMatrixArea(area: MatrixArea) {
           const farmId = row.target === 'farmA' ? coop.farms[0]!.id : row.target === 'farmB' ? coop.farms[1]!.id : '';
           const ids = { farmId, ...(await targetOf(row)) };
           const path = pathWithIds(row.path, { ...ids, coopSlug: coop.slug });
-          const personaOf = persona === 'otherCoop' ? foreign.admin : persona === 'anonymous' ? null : coop[persona];
+          const personaOf = persona === 'otherCoop' ? foreign.admin : persona === 'anonymous' ? null : personOf(persona);
           const body = (await bodyFor(row.body, ids, persona)) ?? (await herdBody(coop, row.body, ids))
             ?? (await almanacBody(coop, row.body, ids, personaOf?.coopId ?? coop.id, personaOf?.farmId ?? null)) ?? ledgerBody(coop, row.body, ids) ?? notificationBody(row.body) ?? studBody(coop, row.body, ids)
             ?? (await mentorshipBody(row.body, ids, personaOf?.coopId ?? coop.id)) ?? chatBody(row.body, ids)

@@ -1,10 +1,11 @@
 import { randomUUID } from 'node:crypto';
 import { connectDatabase } from '../../packages/server/src/composition/database';
-import { listThreads, openSubjectThread } from '../../packages/server/src/modules/chat/chat.service';
+import { listThreads, openSubjectThread, shareChatPhotos } from '../../packages/server/src/modules/chat/chat.service';
 import { litterAs } from './almanac';
 import { asTenant } from './db';
 import { createTestMember, type TestCoop } from './factories';
 import { actorOf } from './herd';
+import { testImage } from './herd-files';
 
 /** Objects of Co-op Chat's rows, made fresh for every cell that may change them. */
 export interface ChatIds {
@@ -17,15 +18,18 @@ export interface ChatIds {
   litterMessageId?: string;
   /** A member of farm B whom the admin may mute. */
   chatMuteUserId?: string;
+  /** A photo in a message of the litter's thread (its farm's people alone see it). */
+  chatPhotoId?: string;
 }
 
-async function storedMessage(coop: TestCoop, threadId: string, body: string): Promise<string> {
+async function storedMessage(coop: TestCoop, threadId: string, body: string, photo?: { id: string; width: number; height: number }): Promise<string> {
   return asTenant(coop.id, async (c) => {
     const { rows } = await c.query(
-      `INSERT INTO chat_messages (coop_id, thread_id, author_id, author_farm_id, client_id, body, created_at)
-       VALUES ($1, $2, $3, $4, $5, $6, now() - interval '1 hour') RETURNING id, seq`,
-      [coop.id, threadId, coop.member.id, coop.member.farmId, randomUUID(), body],
+      `INSERT INTO chat_messages (coop_id, thread_id, author_id, author_farm_id, client_id, body, attachments, created_at)
+       VALUES ($1, $2, $3, $4, $5, $6, $7::jsonb, now() - interval '1 hour') RETURNING id, seq`,
+      [coop.id, threadId, coop.member.id, coop.member.farmId, randomUUID(), body, JSON.stringify(photo ? [photo] : [])],
     );
+    if (photo) await c.query(`UPDATE photos SET chat_message_id = $2 WHERE id = $1`, [photo.id, rows[0].id]);
     await c.query(`UPDATE chat_threads SET last_seq = $2, last_message_at = now() WHERE id = $1`, [threadId, rows[0].seq]);
     return rows[0].id as string;
   }, { commit: true });
@@ -41,8 +45,10 @@ export async function chatTarget(coop: TestCoop, target: string): Promise<ChatId
   // Written straight in the database: a cell per persona would soon pass the member's rate limit.
   const messageId = await storedMessage(coop, channel.id, 'Checked by the authorization matrix: hay');
   const litterMessageId = await storedMessage(coop, thread.id, 'Checked by the authorization matrix: kits');
+  const [photo] = await shareChatPhotos(member, thread.id, [{ buffer: await testImage('png', { width: 40, height: 30 }) }], { photoMaxBytes: 1_000_000, photosPerAnimal: 4, photosPerUpload: 4 });
+  await storedMessage(coop, thread.id, 'Checked by the authorization matrix: a photo', { id: photo!.id, width: photo!.width, height: photo!.height });
   const muted = await createTestMember(coop);
-  return { channelId: channel.id, messageId, litterId: litter.id, litterThreadId: thread.id, litterMessageId, chatMuteUserId: muted.id };
+  return { channelId: channel.id, messageId, litterId: litter.id, litterThreadId: thread.id, litterMessageId, chatMuteUserId: muted.id, chatPhotoId: photo!.id };
 }
 
 export function chatBody(body: string | undefined, ids: ChatIds): object | undefined {

@@ -166,7 +166,7 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
   api.use('/notifications', notificationRoutes());
   api.use('/mentorship', mentorshipRoutes(config));
   // Co-op Chat: the channel, topics and the threads beside litters, processing days and loans.
-  api.use('/chat', chatRoutes());
+  api.use('/chat', chatRoutes(config));
   // Processing days: sites, scheduled days, bookings with their waitlist, the roster, yields and the day's close.
   api.use('/processing-days', processingDayRoutes());
   api.use(apiNotFound);

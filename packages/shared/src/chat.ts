@@ -3,6 +3,8 @@ import { z } from 'zod';
 /** The most a message may say: long enough for a careful note, short enough to read in a thread. */
 export const CHAT_MESSAGE_MAX = 4000;
 export const CHAT_PAGE_SIZE = 50;
+/** Photos one message may carry. */
+export const CHAT_ATTACHMENTS_MAX = 4;
 
 /** The small fixed set of reactions; the client shows each as its emoji. */
 export const chatReactions = ['thumbs-up', 'heart', 'laugh', 'wow', 'thanks', 'check'] as const;
@@ -22,20 +24,25 @@ export const chatUserIdSchema = uuid('That person');
 /** A subject's type as registered by the module that owns it: "litter", "processing-day", "loan". */
 export const chatSubjectTypeSchema = z.string().regex(/^[a-z][a-z-]{1,39}$/, 'That kind of thread does not exist');
 
-const messageBody = z
-  .string()
-  .trim()
-  .min(1, 'Write something first')
-  .max(CHAT_MESSAGE_MAX, `A message holds up to ${CHAT_MESSAGE_MAX.toLocaleString('en-US')} characters`);
+const bodyText = z.string().trim().max(CHAT_MESSAGE_MAX, `A message holds up to ${CHAT_MESSAGE_MAX.toLocaleString('en-US')} characters`);
+const messageBody = bodyText.min(1, 'Write something first');
 
-export const chatMessageInputSchema = z.strictObject({
-  /** Chosen by the client before the first try: the same id again is the same message (a retry never duplicates). */
-  clientId: z.uuid({ error: 'A message needs its client id' }),
-  body: messageBody,
-  replyToId: z.uuid({ error: 'That message was not found' }).nullish(),
-  /** The people the text names with "@Name"; only those are told. */
-  mentions: z.array(z.uuid({ error: 'That person was not found' })).max(20, 'Mention at most 20 people').default([]),
-});
+export const chatMessageInputSchema = z
+  .strictObject({
+    /** Chosen by the client before the first try: the same id again is the same message (a retry never duplicates). */
+    clientId: z.uuid({ error: 'A message needs its client id' }),
+    body: bodyText.default(''),
+    replyToId: z.uuid({ error: 'That message was not found' }).nullish(),
+    /** The people the text names with "@Name"; only those are told. */
+    mentions: z.array(z.uuid({ error: 'That person was not found' })).max(20, 'Mention at most 20 people').default([]),
+    /** Photos uploaded to the thread beforehand (POST …/attachments), in the order to show them. */
+    attachmentIds: z
+      .array(z.uuid({ error: 'That photo was not found' }))
+      .max(CHAT_ATTACHMENTS_MAX, `A message carries at most ${CHAT_ATTACHMENTS_MAX} photos`)
+      .refine((ids) => new Set(ids).size === ids.length, 'A photo is attached once')
+      .default([]),
+  })
+  .refine((m) => m.body.length > 0 || m.attachmentIds.length > 0, { message: 'Write something first', path: ['body'] });
 export type ChatMessageInput = z.input<typeof chatMessageInputSchema>;
 
 export const chatMessageEditSchema = z.strictObject({
@@ -104,6 +111,15 @@ export interface ChatReplyDto {
   excerpt: string | null;
 }
 
+/** A photo of a message, served only to who may read its thread. */
+export interface ChatAttachmentDto {
+  id: string;
+  url: string;
+  thumbnailUrl: string;
+  width: number;
+  height: number;
+}
+
 export interface ChatMessageDto {
   id: string;
   clientId: string;
@@ -119,6 +135,8 @@ export interface ChatMessageDto {
   mentions: { id: string; name: string }[];
   replyTo: ChatReplyDto | null;
   reactions: ChatReactionDto[];
+  /** Its photos (none once removed or hidden). */
+  attachments: ChatAttachmentDto[];
   createdAt: string;
   editedAt: string | null;
 }

@@ -10,10 +10,12 @@ import { processedHeadsOf } from '../modules/processing/processing.service';
 import { sharedDaysOfFarm } from '../modules/almanac/shared-days';
 import { doeCyclesOf } from '../modules/almanac/doe-board.service';
 import { doeCyclesOfPage } from '../modules/animals/animals.service';
-import { processingDaysOfFarm } from '../modules/processing-days/processing-days.service';
-import { photoPublishedTo } from '../modules/photos/photos.service';
+import { processingDaysOfFarm, stationRefusal } from '../modules/processing-days/processing-days.service';
+import { stationRefusalFor } from '../modules/mentorship/mentorship-facts.service';
+import { chatPhotoReadable, photoPublishedTo } from '../modules/photos/photos.service';
 import { isPhotoPublished } from '../modules/stud-share/stud-share-facts.service';
 import { registerThreadSubject } from '../modules/chat/chat-subjects.service';
+import { mayReadChatPhoto } from '../modules/chat/chat.service';
 import { litterThreadSubject } from '../modules/litters/litter-thread.service';
 import { processingDayThreadSubject } from '../modules/processing-days/day-thread.service';
 import { loanThreadSubject } from '../modules/stud-share/loan-thread.service';
@@ -44,8 +46,11 @@ export function plugModulePorts(): void {
   sharedDaysOfFarm.plug(processingDaysOfFarm);
   // A photo is published by a buck card or a loan's hand-over (Stud Share), or by a listing (Swap Board).
   photoPublishedTo.plug(async (tx, actor, photoId) => (await isPhotoPublished(tx, actor, photoId)) || isPhotoListed(tx, actor, photoId));
+  chatPhotoReadable.plug(mayReadChatPhoto);
   // The herd list shows each doe's place in her cycle, which the Almanac reads.
   doeCyclesOfPage.plug(doeCyclesOf);
+  // A dangerous station on a processing day's roster waits for the apprentice's sign-off when the co-op asks.
+  stationRefusal.plug(stationRefusalFor);
   // Co-op Chat's threads beside subjects: who reads the subject reads its thread.
   registerThreadSubject('litter', litterThreadSubject);
   registerThreadSubject('processing-day', processingDayThreadSubject);

@@ -100,13 +100,14 @@ export type HerdImportStreamLine =
   | { type: 'result'; status: number; body: HerdImportDto }
   | { type: 'error'; status: number; body: { error: { code: string; message: string; details?: Record<string, string[]> } } };
 
-export type PhotoSubject = 'animal' | 'farm' | 'chore';
+export type PhotoSubject = 'animal' | 'farm' | 'chore' | 'chat';
 
 export interface PhotoDto {
   id: string;
   subject: PhotoSubject;
   animalId: string | null;
-  farmId: string;
+  /** The farm that took it; null for a chat photo shared by someone without a farm. */
+  farmId: string | null;
   caption: string;
   width: number;
   height: number;

@@ -136,6 +136,12 @@ describe('defineAbilityFor: the Herd', () => {
     expect(a.can('create', weighIn(farmId, member.id))).toBe(true);
     expect(a.can('review', weighIn(farmId, apprentice.id))).toBe(true);
     expect(a.can('review', weighIn('farm-2', 'x'))).toBe(false);
+    // Only the apprentice's own mentor reviews her entries, not another member of the farm.
+    for (const type of ['WeighIn', 'AnimalNote', 'LitterEvent', 'AlmanacTask'] as const) {
+      expect(a.can('review', subjectOf(type, { coopId, farmId, enteredBy: apprentice.id, mentorId: member.id }))).toBe(true);
+      expect(a.can('review', subjectOf(type, { coopId, farmId, enteredBy: 'u-app-2', mentorId: 'u-other-member' }))).toBe(false);
+      expect(a.can('review', subjectOf(type, { coopId, farmId, enteredBy: member.id, mentorId: null }))).toBe(false);
+    }
     expect(a.can('create', subjectOf('OutsideAnimal', { coopId }))).toBe(true);
     expect(a.can('merge', subjectOf('OutsideAnimal', { coopId }))).toBe(false);
     expect(a.can('create', subjectOf('Breed', { coopId }))).toBe(false);

@@ -202,6 +202,10 @@ export function defineAbilityFor(user: AbilityUser | null): AppAbility {
     can('host', 'ProcessingDay', { hostFarmId: farmId });
     can(['create', 'update'], 'ProcessingDay', { hostFarmId: farmId, hostMaySchedule: true });
     privateRecordRules(can, cannot, farmId);
+    // An apprentice's entries are her mentor's to review, not another member's of the farm (nor the admin's).
+    // The server names the author's mentor on every review; a subject without one is a farm-wide question.
+    cannot('review', ['WeighIn', 'AnimalNote', 'LitterEvent', 'AlmanacTask'], { mentorId: { $exists: true, $ne: user.id } })
+      .because("Only her mentor reviews an apprentice's work");
   }
   can('manage', 'DigestSubscription', { userId: user.id });
   can('manage', 'Notification', { userId: user.id });

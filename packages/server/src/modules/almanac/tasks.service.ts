@@ -11,7 +11,7 @@ import { AppError } from '../../lib/app-error';
 import { recordChanges } from '../audit/audit.service';
 import { animalFactsOf } from '../animals/animal-facts.service';
 import { farmDirectoryOf } from '../farms/farms.service';
-import { namesOf } from '../users/users.service';
+import { mentorIdOf, namesOf } from '../users/users.service';
 import { ensureCan, farmOf } from '../farms/farm-access';
 import { announceAlmanac } from './almanac-events.service';
 import { farmClockOf, type FarmClock } from '../farms/farm-clock';
@@ -352,7 +352,8 @@ export async function reviewTaskIn(tx: Transaction, actor: SessionUser, taskId: 
   const farmId = farmOf(actor);
   {
     const [task] = await loadForChange(tx, actor, [taskId]);
-    ensureCan(actor, 'review', 'AlmanacTask', { farmId }, 'That task', 'The mentor reviews an apprentice\'s ticks');
+    const mentorId = await mentorIdOf(task!.doneBy, tx);
+    ensureCan(actor, 'review', 'AlmanacTask', { farmId, mentorId }, 'That task', 'Only her mentor reviews an apprentice\'s ticks');
     if (task!.version !== input.version) throw AppError.staleVersion();
     if (task!.completionReview !== 'pending') throw new AppError(ErrorCode.conflict, 409, 'That tick was already reviewed');
     if (task!.doneBy === actor.id) throw new AppError(ErrorCode.forbidden, 403, 'Someone else reviews your own ticks');

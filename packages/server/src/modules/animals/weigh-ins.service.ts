@@ -9,7 +9,7 @@ import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { recordChanges } from '../audit/audit.service';
-import { namesOf } from '../users/users.service';
+import { mentorIdOf, namesOf } from '../users/users.service';
 import { announceAfterCommit, presentContextFor } from './animal-context';
 import { AnimalNote } from './animal-note.model';
 import { Animal } from './animal.model';
@@ -132,7 +132,8 @@ async function review<T extends WeighIn | AnimalNote>(
   input: EntryReviewInput,
 ): Promise<T> {
   if (!entry) throw AppError.notFound('That entry');
-  ForbiddenError.from(defineAbilityFor(actor)).throwUnlessCan('review', subjectOf(subjectName, { coopId: entry.coopId, farmId: entry.farmId, enteredBy: entry.enteredBy }));
+  const mentorId = await mentorIdOf(entry.enteredBy, tx);
+  ForbiddenError.from(defineAbilityFor(actor)).throwUnlessCan('review', subjectOf(subjectName, { coopId: entry.coopId, farmId: entry.farmId, enteredBy: entry.enteredBy, mentorId }));
   if (entry.version !== input.version) throw AppError.staleVersion();
   if (entry.reviewState !== 'pending') throw new AppError(ErrorCode.conflict, 409, 'That entry was already reviewed');
   if (entry.enteredBy === actor.id) throw new AppError(ErrorCode.forbidden, 403, 'Someone else reviews your own entries');

@@ -10,6 +10,7 @@ export interface MessageRow {
   author_farm_id: string | null;
   author_farm_name: string | null;
   body: string;
+  attachments: { id: string; width: number; height: number }[];
   created_at: Date;
   edited_at: Date | null;
   deleted_at: Date | null;
@@ -43,6 +44,9 @@ export function presentMessage(row: MessageRow, viewer: MessageViewer | null): C
     mentions: state === 'visible' ? row.mention_people : [],
     replyTo: row.reply_id ? { id: row.reply_id, authorName: row.reply_author_name ?? '', excerpt: row.reply_excerpt } : null,
     reactions: state === 'visible' ? row.reactions : [],
+    attachments: state === 'visible'
+      ? row.attachments.map((a) => ({ id: a.id, url: `/api/photos/${a.id}`, thumbnailUrl: `/api/photos/${a.id}/thumbnail`, width: a.width, height: a.height }))
+      : [],
     createdAt: row.created_at.toISOString(),
     editedAt: row.edited_at ? row.edited_at.toISOString() : null,
   };

@@ -3,22 +3,25 @@ import { z } from 'zod';
 import {
   chatHideSchema, chatMessageEditSchema, chatMessageIdSchema, chatMessageInputSchema, chatMessagesQuerySchema, chatMuteSchema,
   chatPeopleQuerySchema, chatReactions, chatReadSchema, chatSearchQuerySchema, chatSubjectTypeSchema, chatThreadIdSchema, chatTopicSchema,
-  chatUserIdSchema,
+  chatUserIdSchema, CHAT_ATTACHMENTS_MAX,
   ClientEvent, rooms,
 } from '@burrowline/shared';
+import type { Config } from '../../config/env';
 import { onClientEvent } from '../../lib/realtime';
 import { actorOf, requireUser } from '../../http/ability';
+import { acceptUpload, uploadedFiles } from '../../http/uploads';
 import {
-  deleteMessage, editMessage, getThread, hideMessage, liftMute, listMessages, listMutes, listThreads, markRead, mentionablePeople,
-  mayJoinThread, mutePerson, openSubjectThread, postMessage, searchMessages, setReaction, startTopic,
+  assertCanShareChatPhotos, deleteMessage, editMessage, getThread, hideMessage, liftMute, listMessages, listMutes, listThreads, markRead, mentionablePeople,
+  mayJoinThread, mutePerson, openSubjectThread, postMessage, searchMessages, setReaction, shareChatPhotos, startTopic,
 } from './chat.service';
 
 const reactionSchema = z.enum(chatReactions, { error: 'That reaction is not one of the set' });
 const subjectIdSchema = z.uuid({ error: 'That thread was not found' });
 
 /** /api/chat: the co-op's channel, topics and the threads beside subjects; messages, reads, search, moderation. */
-export function chatRoutes(): Router {
+export function chatRoutes(config: Config): Router {
   const router = Router();
+  const limits = { photoMaxBytes: config.uploads.photoMaxBytes, photosPerAnimal: config.uploads.photosPerAnimal, photosPerUpload: CHAT_ATTACHMENTS_MAX };
   router.use(requireUser);
   router.get('/threads', async (req, res) => {
     res.json(await listThreads(actorOf(req)));
@@ -39,6 +42,18 @@ export function chatRoutes(): Router {
     const sent = await postMessage(actorOf(req), chatThreadIdSchema.parse(req.params.threadId), chatMessageInputSchema.parse(req.body));
     res.status(sent.created ? 201 : 200).json(sent.message);
   });
+  router.post(
+    '/threads/:threadId/attachments',
+    // Who may share photos here is settled before a byte of the file is read.
+    async (req, _res, next) => {
+      await assertCanShareChatPhotos(actorOf(req), chatThreadIdSchema.parse(req.params.threadId));
+      next();
+    },
+    acceptUpload({ field: 'photos', maxFiles: CHAT_ATTACHMENTS_MAX, maxBytes: limits.photoMaxBytes, noun: 'photo' }),
+    async (req, res) => {
+      res.status(201).json({ photos: await shareChatPhotos(actorOf(req), chatThreadIdSchema.parse(req.params.threadId), uploadedFiles(req), limits) });
+    },
+  );
   router.post('/threads/:threadId/read', async (req, res) => {
     res.json(await markRead(actorOf(req), chatThreadIdSchema.parse(req.params.threadId), chatReadSchema.parse(req.body).seq));
   });

@@ -3,7 +3,7 @@ import {
   chatMessageEditSchema, chatMessageInputSchema, defineAbilityFor, ErrorCode, RealtimeEvent, rooms, subjectOf,
   type ChatHideInput, type ChatMessageDto, type ChatMessageEdit, type ChatMessageInput, type ChatMessagePageDto, type ChatMessagesQuery,
   type ChatMuteDto, type ChatMuteInput, type ChatPersonDto, type ChatReaction, type ChatSearchHitDto, type ChatSearchQuery,
-  type ChatThreadDto, type ChatThreadListDto, type ChatTopicInput,
+  type ChatThreadDto, type ChatThreadListDto, type ChatTopicInput, type PhotoDto,
 } from '@burrowline/shared';
 import { database } from '../../db/sequelize';
 import { withTenant } from '../../db/tenant';
@@ -12,7 +12,8 @@ import { publish } from '../../lib/realtime';
 import type { SessionUser } from '../../lib/session-user';
 import { recordAudit } from '../audit/audit.service';
 import { notify } from '../notifications/notifications.service';
-import { readableSubjects, threadSubjectOf, type ThreadParticipants } from './chat-subjects.service';
+import { addChatPhotos, attachChatPhotosIn, removeChatPhotosIn, unsentChatPhotosIn, type PhotoLimits, type UploadedFile } from '../photos/photos.service';
+import { readableSubjectThreads, threadSubjectOf, type ThreadParticipants } from './chat-subjects.service';
 import { presentMessage, presentThread, type MessageRow, type MessageViewer, type ThreadRow } from './chat.presenter';
 
 let rateLimit = { messages: 20, windowSeconds: 10 };
@@ -59,19 +60,7 @@ async function readableThread(tx: Transaction, actor: SessionUser, threadId: str
 }
 
 /** The subject threads among the co-op's that the actor may read, by id. */
-async function readableSubjectThreadIds(tx: Transaction, actor: SessionUser): Promise<string[]> {
-  const rows = await q<{ id: string; subject_type: string; subject_id: string }>(
-    tx, `SELECT id, subject_type, subject_id FROM chat_threads WHERE coop_id = $1 AND kind = 'subject'`, [actor.coopId],
-  );
-  const byType = new Map<string, typeof rows>();
-  for (const row of rows) byType.set(row.subject_type, [...(byType.get(row.subject_type) ?? []), row]);
-  const ids: string[] = [];
-  for (const [type, threads] of byType) {
-    const readable = new Set(await readableSubjects(tx, actor, type, threads.map((t) => t.subject_id)));
-    for (const t of threads) if (readable.has(t.subject_id)) ids.push(t.id);
-  }
-  return ids;
-}
+const readableSubjectThreadIds = readableSubjectThreads;
 
 const THREAD_COLUMNS = `
   t.id, t.kind, t.subject_type, t.subject_id, t.title, t.last_message_at, t.last_seq,
@@ -87,7 +76,8 @@ const THREAD_FROM = `
   LEFT JOIN chat_read_positions rp ON rp.thread_id = t.id AND rp.user_id = $2
   LEFT JOIN LATERAL (
     SELECT u.name AS author_name,
-           CASE WHEN m.deleted_at IS NULL AND m.hidden_at IS NULL THEN left(m.body, 120) ELSE 'Message removed' END AS excerpt
+           CASE WHEN m.deleted_at IS NOT NULL OR m.hidden_at IS NOT NULL THEN 'Message removed'
+                WHEN m.body = '' THEN 'Sent a photo' ELSE left(m.body, 120) END AS excerpt
       FROM chat_messages m JOIN users u ON u.id = m.author_id
      WHERE m.thread_id = t.id ORDER BY m.seq DESC LIMIT 1) lm ON true`;
 
@@ -187,11 +177,11 @@ export async function openSubjectThread(actor: SessionUser, subjectType: string,
 
 const MESSAGE_SELECT = `
   SELECT m.id, m.client_id, m.thread_id, m.seq, m.author_id, u.name AS author_name, m.author_farm_id, f.name AS author_farm_name,
-         m.body, m.created_at, m.edited_at, m.deleted_at, m.hidden_at, m.hidden_reason,
+         m.body, m.attachments, m.created_at, m.edited_at, m.deleted_at, m.hidden_at, m.hidden_reason,
          (SELECT coalesce(json_agg(json_build_object('id', mu.id, 'name', mu.name) ORDER BY mu.name), '[]'::json)
             FROM users mu WHERE mu.id = ANY(m.mentions)) AS mention_people,
          r.id AS reply_id, ru.name AS reply_author_name,
-         CASE WHEN r.deleted_at IS NULL AND r.hidden_at IS NULL THEN left(r.body, 160) END AS reply_excerpt,
+         CASE WHEN r.deleted_at IS NULL AND r.hidden_at IS NULL THEN CASE WHEN r.body = '' THEN 'Photo' ELSE left(r.body, 160) END END AS reply_excerpt,
          (SELECT coalesce(json_agg(json_build_object('reaction', x.reaction, 'userIds', x.user_ids) ORDER BY x.first_at), '[]'::json)
             FROM (SELECT reaction, array_agg(user_id ORDER BY created_at) AS user_ids, min(created_at) AS first_at
                     FROM chat_reactions WHERE message_id = m.id GROUP BY reaction) x) AS reactions
@@ -336,13 +326,15 @@ export async function postMessage(actor: SessionUser, threadId: string, raw: Cha
       if (!target) throw AppError.validation({ replyToId: ['That message is not in this thread'] });
     }
     const mentions = await checkedMentions(tx, actor, thread, input.mentions, input.body);
+    const attachments = await unsentChatPhotosIn(tx, actor, threadId, input.attachmentIds);
     const [inserted] = await q<{ id: string; seq: string }>(
       tx,
-      `INSERT INTO chat_messages (coop_id, thread_id, author_id, author_farm_id, client_id, body, reply_to_id, mentions)
-       VALUES ($1, $2, $3, $4, $5, $6, $7, $8::uuid[]) RETURNING id, seq`,
-      [actor.coopId, threadId, actor.id, actor.farmId, input.clientId, input.body, input.replyToId ?? null, mentions],
+      `INSERT INTO chat_messages (coop_id, thread_id, author_id, author_farm_id, client_id, body, reply_to_id, mentions, attachments)
+       VALUES ($1, $2, $3, $4, $5, $6, $7, $8::uuid[], $9::jsonb) RETURNING id, seq`,
+      [actor.coopId, threadId, actor.id, actor.farmId, input.clientId, input.body, input.replyToId ?? null, mentions, JSON.stringify(attachments)],
     );
     const seq = inserted!.seq;
+    await attachChatPhotosIn(tx, inserted!.id, input.attachmentIds);
     await q(tx, `UPDATE chat_threads SET last_seq = GREATEST(last_seq, $2), last_message_at = now() WHERE id = $1`, [threadId, seq]);
     // One's own message is read.
     await q(
@@ -397,7 +389,10 @@ export async function deleteMessage(actor: SessionUser, messageId: string): Prom
   return withTenant(actor, async (tx) => {
     const { message, thread } = await readableMessage(tx, actor, messageId, true);
     if (message.author_id !== actor.id) throw new AppError(ErrorCode.forbidden, 403, 'Only its author removes a message; the admin may hide it');
-    if (!message.deleted_at) await q(tx, `UPDATE chat_messages SET body = '', mentions = '{}', deleted_at = now() WHERE id = $1`, [messageId]);
+    if (!message.deleted_at) {
+      await q(tx, `UPDATE chat_messages SET body = '', mentions = '{}', attachments = '[]', deleted_at = now() WHERE id = $1`, [messageId]);
+      await removeChatPhotosIn(tx, actor.coopId, messageId);
+    }
     const row = await messageRow(tx, messageId);
     announce(tx, actor, thread, row, null, false);
     return presentMessage(row, viewerOf(actor));
@@ -550,4 +545,40 @@ export async function listMutes(actor: SessionUser): Promise<ChatMuteDto[]> {
 /** The socket's request to join a thread's room: allowed exactly when the person may read the thread. */
 export async function mayJoinThread(actor: SessionUser, threadId: string): Promise<void> {
   await withTenant(actor, (tx) => readableThread(tx, actor, threadId));
+}
+
+/**
+ * Whether the viewer may see a chat photo: it is in a live message of a thread they read (a hidden message's
+ * only to the admins, who keep it for the audit); a photo not sent yet is its uploader's alone.
+ */
+export async function mayReadChatPhoto(tx: Transaction, actor: SessionUser, photo: { threadId: string; messageId: string | null; uploadedBy: string | null }): Promise<boolean> {
+  try {
+    await readableThread(tx, actor, photo.threadId);
+  } catch {
+    return false;
+  }
+  if (photo.messageId === null) return photo.uploadedBy === actor.id;
+  const [message] = await q<{ deleted_at: Date | null; hidden_at: Date | null }>(tx, `SELECT deleted_at, hidden_at FROM chat_messages WHERE id = $1`, [photo.messageId]);
+  if (!message || message.deleted_at) return false;
+  return !message.hidden_at || moderates(actor);
+}
+
+/** Who may share photos in the thread: who may write there (reads it, and is not muted in the channel). */
+async function writableThread(tx: Transaction, actor: SessionUser, threadId: string): Promise<ThreadRecord> {
+  const thread = await readableThread(tx, actor, threadId);
+  if (thread.kind !== 'subject') await refuseIfMuted(tx, actor);
+  return thread;
+}
+
+/** Settles before an upload is read whether the person may share photos in the thread. */
+export async function assertCanShareChatPhotos(actor: SessionUser, threadId: string): Promise<void> {
+  await withTenant(actor, (tx) => writableThread(tx, actor, threadId));
+}
+
+/**
+ * Photos for a message not yet sent, through the photo pipeline (checked by content, re-encoded without
+ * metadata, with thumbnails). The message that carries them names their ids.
+ */
+export async function shareChatPhotos(actor: SessionUser, threadId: string, files: UploadedFile[], limits: PhotoLimits): Promise<PhotoDto[]> {
+  return addChatPhotos(actor, (tx) => writableThread(tx, actor, threadId), { files }, limits);
 }

@@ -1,5 +1,3 @@
-import { QueryTypes, type Transaction } from 'sequelize';
-import { database } from '../../db/sequelize';
 import type { SessionUser } from '../../lib/session-user';
 import { subjectFromRows } from '../chat/chat-subjects.service';
 import { ensureCan } from '../farms/farm-access';
@@ -11,14 +9,10 @@ interface LitterRow {
   dam_name: string;
 }
 
-async function littersOf(tx: Transaction, ids: string[]): Promise<LitterRow[]> {
-  return database().query<LitterRow>(
-    `SELECT l.id, l.farm_id, l.kindled_on::text AS kindled_on, coalesce(nullif(a.name, ''), a.tattoo, 'the doe') AS dam_name
-       FROM litters l LEFT JOIN animals a ON a.id = l.dam_id
-      WHERE l.id = ANY($1::uuid[])`,
-    { bind: [ids], type: QueryTypes.SELECT, transaction: tx },
-  );
-}
+const littersSql = (ids: string) =>
+  `SELECT l.id, l.farm_id, l.kindled_on::text AS kindled_on, coalesce(nullif(a.name, ''), a.tattoo, 'the doe') AS dam_name
+     FROM litters l LEFT JOIN animals a ON a.id = l.dam_id
+    WHERE l.id = ANY(${ids})`;
 
 function mayReadLitter(actor: SessionUser, farmId: string): boolean {
   try {
@@ -31,7 +25,7 @@ function mayReadLitter(actor: SessionUser, farmId: string): boolean {
 
 /** A litter's thread: only its farm's people talk about it (a litter is farm-private). */
 export const litterThreadSubject = subjectFromRows<LitterRow>({
-  rowsOf: littersOf,
+  rowsSql: littersSql,
   mayRead: (actor, litter) => mayReadLitter(actor, litter.farm_id),
   participants: (_tx, litter) => ({ farmIds: [litter.farm_id], userIds: [] }),
   title: (litter) => (litter ? `Litter of ${litter.dam_name}, kindled ${litter.kindled_on}` : 'A litter'),

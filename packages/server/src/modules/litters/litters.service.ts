@@ -26,6 +26,7 @@ import { currentHousingOfLitter } from './housing.service';
 import { LitterEvent } from './litter-event.model';
 import { Litter } from './litter.model';
 import { countingEvents, presentLitter, presentLitterListItem, recordOf, summaryOf, type LitterPresentContext } from './litters.presenter';
+import { mentorIdOf } from '../users/users.service';
 
 /** Fostering is done between litters of about the same age: kindled within this many days of each other (common practice). */
 const FOSTER_AGE_GAP_DAYS = 7;
@@ -324,7 +325,8 @@ export async function reviewLitterEventIn(tx: Transaction, actor: SessionUser, e
   {
     const event = await LitterEvent.findOne({ where: { id: eventId, coopId: actor.coopId }, transaction: tx, lock: tx.LOCK.UPDATE });
     if (!event || event.farmId !== actor.farmId) throw AppError.notFound('That entry');
-    ensureCan(actor, 'review', 'LitterEvent', { farmId: event.farmId, enteredBy: event.enteredBy }, 'That entry', "The mentor reviews an apprentice's entries");
+    const mentorId = await mentorIdOf(event.enteredBy, tx);
+    ensureCan(actor, 'review', 'LitterEvent', { farmId: event.farmId, enteredBy: event.enteredBy, mentorId }, 'That entry', "Only her mentor reviews an apprentice's entries");
     if (event.version !== input.version) throw AppError.staleVersion();
     if (event.reviewState !== 'pending') throw new AppError(ErrorCode.conflict, 409, 'That entry was already reviewed');
     if (event.enteredBy === actor.id) throw new AppError(ErrorCode.forbidden, 403, 'Someone else reviews your own entries');

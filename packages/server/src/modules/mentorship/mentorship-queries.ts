@@ -194,13 +194,3 @@ export function acceptedMinutesOf(tx: Transaction, coopId: string, apprenticeIds
   );
 }
 
-/** Entries waiting and returned per apprentice. */
-export function stateCountsOf(tx: Transaction, coopId: string, apprenticeIds: string[]): Promise<{ apprentice_id: string; review_state: ReviewState; n: number }[]> {
-  if (apprenticeIds.length === 0) return Promise.resolve([]);
-  return select(
-    tx,
-    `SELECT apprentice_id, review_state, count(*)::int AS n FROM chore_entries
-      WHERE coop_id = $1 AND apprentice_id = ANY($2::uuid[]) AND deleted_at IS NULL GROUP BY apprentice_id, review_state`,
-    [coopId, apprenticeIds],
-  );
-}

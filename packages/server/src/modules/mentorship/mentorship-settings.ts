@@ -13,10 +13,16 @@ export interface Settings {
 /** The co-op's chore kinds, checklist and roster rule; the defaults until the admin first saves them. */
 export function settingsOf(tx: Transaction, coopId: string): Promise<Settings> {
   return onceInTransaction(tx, `mentorship-settings:${coopId}`, async () => {
-    const [row] = await select<{ chore_kinds: ChoreKind[]; require_dangerous_sign_off: boolean; version: number }>(
-      tx, 'SELECT chore_kinds, require_dangerous_sign_off, version FROM mentorship_settings WHERE coop_id = $1', [coopId],
+    // One statement for both: every Mentorship page reads them.
+    const [both] = await select<{ settings: { chore_kinds: ChoreKind[]; require_dangerous_sign_off: boolean; version: number } | null; skills: SkillRow[] }>(
+      tx,
+      `SELECT (SELECT to_jsonb(ms) FROM (SELECT chore_kinds, require_dangerous_sign_off, version FROM mentorship_settings WHERE coop_id = $1) ms) AS settings,
+              coalesce((SELECT jsonb_agg(to_jsonb(s) ORDER BY s.position, s.key)
+                          FROM (SELECT key, name, area, signed_off_means, dangerous, position, retired_at FROM skills WHERE coop_id = $1) s), '[]'::jsonb) AS skills`,
+      [coopId],
     );
-    const skills = await select<SkillRow>(tx, 'SELECT key, name, area, signed_off_means, dangerous, position, retired_at FROM skills WHERE coop_id = $1 ORDER BY position, key', [coopId]);
+    const row = both?.settings ?? undefined;
+    const skills = both?.skills ?? [];
     return {
       choreKinds: row?.chore_kinds ?? defaultChoreKinds,
       skills: skills.length > 0

@@ -44,8 +44,8 @@ async function minutesByKindOf(tx: Transaction, coopId: string, apprenticeId: st
 
 async function detailOf(tx: Transaction, actor: SessionUser, person: PersonRow): Promise<ApprenticeDetailDto & { entries: Awaited<ReturnType<typeof presentChores>> }> {
   const settings = await settingsOf(tx, actor.coopId);
-  const [summary] = await apprenticeSummariesOf(tx, actor.coopId, null, settings, [person]);
   const events = await skillEventsOf(tx, actor.coopId, [person.id]);
+  const [summary] = await apprenticeSummariesOf(tx, actor.coopId, null, settings, [person], events);
   const hours = await minutesByKindOf(tx, actor.coopId, person.id, settings);
   const rows = await choresWhere(tx, 'c.coop_id = $1 AND c.apprentice_id = $2', [actor.coopId, person.id], 'ORDER BY c.done_on DESC, c.submitted_at DESC, c.id LIMIT 60');
   return {

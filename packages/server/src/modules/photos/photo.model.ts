@@ -1,14 +1,16 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
 import type { PhotoSubject } from '@burrowline/shared';
 
-/** A photo of an animal or a farm profile; its files are in the storage module under server-made keys. */
+/** A photo of an animal, a farm profile, a chore or a chat message; its files are in the storage module under server-made keys. */
 export class Photo extends Model<InferAttributes<Photo>, InferCreationAttributes<Photo>> {
   declare id: CreationOptional<string>;
   declare coopId: string;
-  declare farmId: string;
+  declare farmId: string | null;
   declare subject: PhotoSubject;
   declare animalId: string | null;
   declare choreEntryId: CreationOptional<string | null>;
+  declare chatThreadId: CreationOptional<string | null>;
+  declare chatMessageId: CreationOptional<string | null>;
   declare storageKey: string;
   declare thumbnailKey: string;
   declare contentType: string;
@@ -28,8 +30,10 @@ export class Photo extends Model<InferAttributes<Photo>, InferCreationAttributes
       {
         id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
         coopId: { type: DataTypes.UUID, allowNull: false },
-        farmId: { type: DataTypes.UUID, allowNull: false },
+        farmId: { type: DataTypes.UUID, allowNull: true },
         choreEntryId: { type: DataTypes.UUID, allowNull: true },
+        chatThreadId: { type: DataTypes.UUID, allowNull: true },
+        chatMessageId: { type: DataTypes.UUID, allowNull: true },
         subject: { type: DataTypes.TEXT, allowNull: false },
         animalId: { type: DataTypes.UUID, allowNull: true },
         storageKey: { type: DataTypes.TEXT, allowNull: false },

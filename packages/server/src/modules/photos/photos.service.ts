@@ -185,6 +185,14 @@ export async function addAnimalPhotos(
  * Whether another module published this photo to the viewer (a buck card's photos to the co-op, a loan's
  * hand-over photo to the other farm). Stud Share reads photos, so it is plugged in at the composition root.
  */
+/**
+ * Whether the viewer may see a chat photo: who reads its thread, once it is in a live message; before that,
+ * its uploader only. Co-op Chat reads photos, so its answer is plugged in at the composition root.
+ */
+export const chatPhotoReadable = port<(tx: Transaction, actor: SessionUser, photo: { threadId: string; messageId: string | null; uploadedBy: string | null }) => Promise<boolean>>(
+  'chat photo readable', async () => false,
+);
+
 export const photoPublishedTo = port<(tx: Transaction, actor: SessionUser, photoId: string) => Promise<boolean>>('photo published', async () => false);
 
 async function photoForViewer(actor: SessionUser, photoId: string, tx: Transaction, change: boolean): Promise<{ photo: Photo; access: AnimalAccess | null; label: string }> {
@@ -200,7 +208,7 @@ async function photoForViewer(actor: SessionUser, photoId: string, tx: Transacti
     // Someone who may not see the animal learns nothing about its photos, not even that they exist.
     if (!access || !access.canRead) return refuse();
     // Photos belong to the farm that took them: a borrower never opens the lender's, nor the other way round.
-    if (!(await privateRecordFarmsOf(actor, access, 'Photo', tx)).includes(photo.farmId)) return refuse();
+    if (!photo.farmId || !(await privateRecordFarmsOf(actor, access, 'Photo', tx)).includes(photo.farmId)) return refuse();
     if (change && !access.canUpdate) throw new AppError(ErrorCode.forbidden, 403, "Only the animal's own farm changes its photos");
     return { photo, access, label: access.tattoo ?? 'animal' };
   }
@@ -213,7 +221,14 @@ async function photoForViewer(actor: SessionUser, photoId: string, tx: Transacti
     if (change) throw new AppError(ErrorCode.forbidden, 403, 'A chore\'s photos stay as they were sent for review');
     return { photo, access: null, label: 'chore' };
   }
-  await farmFor(actor, photo.farmId, tx, change);
+  if (photo.subject === 'chat') {
+    // Who reads the thread sees its photos (Co-op Chat decides); anyone else learns nothing of them.
+    const readable = await chatPhotoReadable(tx, actor, { threadId: photo.chatThreadId!, messageId: photo.chatMessageId, uploadedBy: photo.uploadedBy });
+    if (!readable) throw AppError.notFound('That photo');
+    if (change) throw new AppError(ErrorCode.forbidden, 403, 'A chat photo goes when its message is removed');
+    return { photo, access: null, label: 'chat' };
+  }
+  await farmFor(actor, photo.farmId!, tx, change);
   return { photo, access: null, label: 'farm' };
 }
 
@@ -367,4 +382,62 @@ export async function addChorePhotos(
       return present(rows, tx);
     }),
   );
+}
+
+/**
+ * Photos shared in a chat thread, uploaded before the message that carries them: the same checks and
+ * re-encoding as every photo; `threadOf` (Co-op Chat) refuses, inside the transaction, who may not write there.
+ */
+export async function addChatPhotos(
+  actor: SessionUser,
+  threadOf: (tx: Transaction) => Promise<{ id: string }>,
+  input: { files: UploadedFile[] },
+  limits: PhotoLimits,
+): Promise<PhotoDto[]> {
+  const prepared = await prepareAll(input.files, limits);
+  return storeThen(actor.coopId, prepared, (ids) =>
+    withTenant(actor, async (tx) => {
+      const thread = await threadOf(tx);
+      const now = Date.now();
+      const rows = await Photo.bulkCreate(
+        prepared.map((photo, i) => ({
+          id: ids[i]!, createdAt: new Date(now + i), coopId: actor.coopId, farmId: actor.farmId, subject: 'chat' as const, animalId: null,
+          chatThreadId: thread.id, ...keysOf(actor.coopId, ids[i]!, photo), contentType: photo.contentType, byteSize: photo.image.length,
+          thumbnailByteSize: photo.thumbnail.length, width: photo.width, height: photo.height, checksum: photo.checksum, caption: '',
+          uploadedBy: actor.id,
+        })),
+        { transaction: tx },
+      );
+      return present(rows, tx);
+    }),
+  );
+}
+
+/**
+ * The photos a message is about to carry, locked: its author uploaded them to the thread and has not sent
+ * them yet. Anything else (another thread's, another person's, one already sent) is refused.
+ */
+export async function unsentChatPhotosIn(
+  tx: Transaction, actor: SessionUser, threadId: string, photoIds: string[],
+): Promise<{ id: string; width: number; height: number }[]> {
+  if (photoIds.length === 0) return [];
+  const rows = await Photo.findAll({
+    where: { id: { [Op.in]: photoIds }, coopId: actor.coopId, subject: 'chat', chatThreadId: threadId, uploadedBy: actor.id, chatMessageId: null },
+    transaction: tx, lock: tx.LOCK.UPDATE,
+  });
+  if (rows.length !== photoIds.length) throw AppError.validation({ attachmentIds: ['Attach photos you uploaded to this thread and have not sent yet'] });
+  const byId = new Map(rows.map((p) => [p.id, p]));
+  return photoIds.map((id) => ({ id, width: byId.get(id)!.width, height: byId.get(id)!.height }));
+}
+
+/** Marks the photos (from `unsentChatPhotosIn`) as the message's. */
+export async function attachChatPhotosIn(tx: Transaction, messageId: string, photoIds: string[]): Promise<void> {
+  if (photoIds.length > 0) await Photo.update({ chatMessageId: messageId }, { where: { id: { [Op.in]: photoIds } }, transaction: tx });
+}
+
+/** A removed message's photos go too: rows kept as removed, files deleted once that is committed. */
+export async function removeChatPhotosIn(tx: Transaction, coopId: string, messageId: string): Promise<void> {
+  const photos = await Photo.findAll({ where: { coopId, subject: 'chat', chatMessageId: messageId }, transaction: tx, lock: tx.LOCK.UPDATE });
+  for (const photo of photos) await photo.destroy({ transaction: tx });
+  removeFilesAfterCommit(tx, photos);
 }

@@ -1,4 +1,4 @@
-import { QueryTypes, type Transaction } from 'sequelize';
+import { QueryTypes } from 'sequelize';
 import { defineAbilityFor, subjectOf } from '@burrowline/shared';
 import { database } from '../../db/sequelize';
 import type { SessionUser } from '../../lib/session-user';
@@ -12,14 +12,10 @@ interface DayRow {
   site_name: string;
 }
 
-async function daysOf(tx: Transaction, ids: string[]): Promise<DayRow[]> {
-  return database().query<DayRow>(
-    `SELECT d.id, d.coop_id, d.host_farm_id, d.date::text AS date, s.name AS site_name
-       FROM processing_days d JOIN processing_sites s ON s.id = d.site_id
-      WHERE d.id = ANY($1::uuid[])`,
-    { bind: [ids], type: QueryTypes.SELECT, transaction: tx },
-  );
-}
+const daysSql = (ids: string) =>
+  `SELECT d.id, d.coop_id, d.host_farm_id, d.date::text AS date, s.name AS site_name
+     FROM processing_days d JOIN processing_sites s ON s.id = d.site_id
+    WHERE d.id = ANY(${ids})`;
 
 const mayReadDay = (actor: SessionUser, day: DayRow) => defineAbilityFor(actor).can('read', subjectOf('ProcessingDay', { coopId: day.coop_id }));
 
@@ -28,7 +24,7 @@ const mayReadDay = (actor: SessionUser, day: DayRow) => defineAbilityFor(actor).
  * (booked, offered or waiting) are its people, told of new messages.
  */
 export const processingDayThreadSubject = subjectFromRows<DayRow>({
-  rowsOf: daysOf,
+  rowsSql: daysSql,
   mayRead: mayReadDay,
   async participants(tx, day) {
     const booked = await database().query<{ farm_id: string }>(

@@ -13,6 +13,7 @@ import { ensureCan } from '../farms/farm-access';
 import { farmTodayIn } from '../farms/farm-clock';
 import { farmDirectoryOf } from '../farms/farms.service';
 import { findUser } from '../users/users.service';
+import { port } from '../../lib/port';
 import { canBookFor, canHost, canSchedule, ensureSchedule, ensureSiteAdmin, isDayAdmin, seesMoney } from './day-access';
 import { announceDay, noticeDayChanged, noticeDayScheduled, noticeReminder } from './day-notices';
 import { presentCapacity, presentDay, presentDayListItem, presentSite } from './processing-days.presenter';
@@ -392,6 +393,14 @@ async function apprenticesMayStaff(tx: Transaction, farmId: string): Promise<boo
 }
 
 /**
+ * Why an apprentice may not take a station yet, or null: the co-op's sign-off rule for dangerous stations,
+ * from Mentorship (which builds on the herd, so it is plugged in at the composition root).
+ */
+export const stationRefusal = port<(tx: Transaction, coopId: string, apprenticeId: string, stationName: string) => Promise<string | null>>(
+  'station refusal', async () => null,
+);
+
+/**
  * A person takes the first empty place of a station (one place a day each). Apprentices only when their
  * farm lets its apprentices staff the stations. The admin or host may put someone of the co-op on it.
  */
@@ -411,6 +420,8 @@ export async function signUpForStation(actor: SessionUser, dayId: string, statio
     if (person.role === 'apprentice' && !(person.farmId && (await apprenticesMayStaff(tx, person.farmId)))) {
       throw new AppError(ErrorCode.forbidden, 403, 'Apprentices staff the stations only when their farm allows it');
     }
+    const refusal = person.role === 'apprentice' ? await stationRefusal(tx, actor.coopId, person.id, station.name) : null;
+    if (refusal) throw new AppError(ErrorCode.forbidden, 403, refusal);
     const taken = await select<{ position: number; user_id: string; station_id: string }>(tx, 'SELECT position, user_id, station_id FROM processing_day_roster WHERE day_id = $1', [dayId]);
     const own = taken.find((t) => t.user_id === person.id);
     if (own) throw AppError.conflict(own.station_id === stationId ? 'Already on this station' : 'Already on another station this day; leave it first');

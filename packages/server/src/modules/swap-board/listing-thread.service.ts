@@ -1,6 +1,4 @@
-import { QueryTypes, type Transaction } from 'sequelize';
 import { defineAbilityFor, subjectOf } from '@burrowline/shared';
-import { database } from '../../db/sequelize';
 import type { SessionUser } from '../../lib/session-user';
 import { subjectFromRows } from '../chat/chat-subjects.service';
 
@@ -13,14 +11,10 @@ interface ListingThreadRow {
   buyer_farm_ids: string[];
 }
 
-async function listingsOf(tx: Transaction, ids: string[]): Promise<ListingThreadRow[]> {
-  return database().query<ListingThreadRow>(
-    `SELECT l.id, l.coop_id, l.farm_id, l.state, l.title,
-            coalesce((SELECT array_agg(DISTINCT o.buyer_farm_id) FROM swap_offers o WHERE o.listing_id = l.id), '{}') AS buyer_farm_ids
-       FROM swap_listings l WHERE l.id = ANY($1::uuid[])`,
-    { bind: [ids], type: QueryTypes.SELECT, transaction: tx },
-  );
-}
+const listingsSql = (ids: string) =>
+  `SELECT l.id, l.coop_id, l.farm_id, l.state, l.title,
+          coalesce((SELECT array_agg(DISTINCT o.buyer_farm_id) FROM swap_offers o WHERE o.listing_id = l.id), '{}') AS buyer_farm_ids
+     FROM swap_listings l WHERE l.id = ANY(${ids})`;
 
 /** Who reads the listing reads its thread: the co-op, except a draft, which only its farm sees. */
 const mayReadListing = (actor: SessionUser, listing: ListingThreadRow) =>
@@ -29,7 +23,7 @@ const mayReadListing = (actor: SessionUser, listing: ListingThreadRow) =>
 
 /** A listing's thread: questions before an offer, arranging the collection after; the seller and the farms that offered are told. */
 export const listingThreadSubject = subjectFromRows<ListingThreadRow>({
-  rowsOf: listingsOf,
+  rowsSql: listingsSql,
   mayRead: mayReadListing,
   participants: (_tx, listing) => ({ farmIds: [listing.farm_id, ...listing.buyer_farm_ids], userIds: [] }),
   title: (listing) => (listing ? `Swap Board: ${listing.title}` : 'A Swap Board listing'),

@@ -22,6 +22,16 @@ export async function findUser(userId: string, tx: Transaction, opts: { lock?: b
   return User.findByPk(userId, { transaction: tx, lock: opts.lock ? tx.LOCK.UPDATE : undefined });
 }
 
+/**
+ * The mentor of the person who wrote an entry: named on every review, since only an apprentice's own mentor
+ * reviews her work. Null for anyone who is not an apprentice (or no one).
+ */
+export async function mentorIdOf(authorId: string | null, tx: Transaction): Promise<string | null> {
+  if (!authorId) return null;
+  const user = await User.findByPk(authorId, { attributes: ['id', 'mentorId'], transaction: tx });
+  return user?.mentorId ?? null;
+}
+
 /** Sets a new password hash and ends every session that began before now. */
 export async function replacePassword(user: User, passwordHash: string, tx: Transaction): Promise<void> {
   user.passwordHash = passwordHash;

@@ -3,7 +3,9 @@ import type {
   ChatMessageDto, ChatMessageInput, ChatMessagePageDto, ChatMuteDto, ChatMuteInput, ChatPersonDto, ChatReaction, ChatSearchHitDto,
   ChatThreadDto, ChatThreadListDto,
 } from '@burrowline/shared';
+import type { PhotoDto } from '@burrowline/shared';
 import { apiFetch } from '../../../lib/api-client';
+import { uploadForm } from '../../../lib/upload';
 import { chatKeys } from './keys';
 
 const enc = encodeURIComponent;
@@ -46,6 +48,13 @@ export function fetchMessages(threadId: string, params: { before?: number; after
 
 export const sendMessage = (threadId: string, body: ChatMessageInput) =>
   apiFetch<ChatMessageDto>(`/api/chat/threads/${enc(threadId)}/messages`, { method: 'POST', body });
+
+/** Uploads photos for the message being written; the message names them by id when it is sent. */
+export function shareChatPhotos(threadId: string, files: File[], onUpload?: (sent: number, total: number) => void) {
+  const form = new FormData();
+  for (const file of files) form.append('photos', file);
+  return uploadForm<{ photos: PhotoDto[] }>(`/api/chat/threads/${enc(threadId)}/attachments`, form, { onUpload });
+}
 
 export const markThreadRead = (threadId: string, seq: number) =>
   apiFetch<ChatThreadDto>(`/api/chat/threads/${enc(threadId)}/read`, { method: 'POST', body: { seq } });

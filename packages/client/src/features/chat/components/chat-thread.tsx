@@ -72,6 +72,18 @@ function ThreadView({ thread, embedded, focusMessageId }: ThreadViewProps) {
     markIfAtBottom();
   }, [messages.length, pending.length, markIfAtBottom]);
 
+  // The box and its photos and web font settle after the first layout: stay at the bottom while the reader is there.
+  useEffect(() => {
+    const el = scroller.current;
+    if (!el || typeof ResizeObserver === 'undefined') return;
+    const keep = new ResizeObserver(() => {
+      if (stick.current) el.scrollTop = el.scrollHeight;
+    });
+    keep.observe(el);
+    for (const child of el.children) keep.observe(child);
+    return () => keep.disconnect();
+  }, []);
+
   const focused = useRef(false);
   useEffect(() => {
     if (!focusMessageId || focused.current || !messages.some((m) => m.id === focusMessageId)) return;
@@ -168,9 +180,9 @@ function ThreadView({ thread, embedded, focusMessageId }: ThreadViewProps) {
           replyTo={replyTo}
           onCancelReply={() => setReplyTo(null)}
           sticky={!embedded}
-          onSend={(body, mentions) => {
+          onSend={(body, mentions, photos) => {
             stick.current = true;
-            live.send(body, mentions, replyTo);
+            live.send(body, mentions, replyTo, photos);
             setReplyTo(null);
           }}
         />

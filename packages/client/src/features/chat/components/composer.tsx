@@ -1,7 +1,11 @@
 import { useRef, useState } from 'react';
-import { SendHorizontal, X } from 'lucide-react';
-import { CHAT_MESSAGE_MAX, type ChatMessageDto, type ChatPersonDto } from '@burrowline/shared';
-import { useMentionCandidates } from '../api/chat-api';
+import { ImagePlus, SendHorizontal, X } from 'lucide-react';
+import { CHAT_ATTACHMENTS_MAX, CHAT_MESSAGE_MAX, type ChatMessageDto, type ChatPersonDto } from '@burrowline/shared';
+import { isApiError } from '../../../lib/api-client';
+import { shareChatPhotos, useMentionCandidates } from '../api/chat-api';
+import type { ChatDraftPhoto } from '../hooks/use-live-thread';
+
+const PHOTO_TYPES = ['image/jpeg', 'image/png', 'image/webp'];
 
 /** The "@word" being typed just before the caret, if any. */
 function mentionQuery(text: string, caret: number): { start: number; query: string } | null {
@@ -15,7 +19,7 @@ interface ComposerProps {
   threadId: string;
   replyTo: ChatMessageDto | null;
   onCancelReply: () => void;
-  onSend: (body: string, mentions: ChatPersonDto[]) => void;
+  onSend: (body: string, mentions: ChatPersonDto[], photos: ChatDraftPhoto[]) => void;
   /** Sticks above the phone's bottom bar on a full page; embedded on another page it stays in its box. */
   sticky: boolean;
 }
@@ -29,7 +33,11 @@ export function Composer({ threadId, replyTo, onCancelReply, onSend, sticky }: C
   const [text, setText] = useState('');
   const [mentions, setMentions] = useState<ChatPersonDto[]>([]);
   const [typing, setTyping] = useState<{ start: number; query: string } | null>(null);
+  const [photos, setPhotos] = useState<ChatDraftPhoto[]>([]);
+  const [uploading, setUploading] = useState<number | null>(null);
+  const [photoError, setPhotoError] = useState<string | null>(null);
   const area = useRef<HTMLTextAreaElement>(null);
+  const picker = useRef<HTMLInputElement>(null);
   const candidates = useMentionCandidates(threadId, typing ? typing.query : null);
   const people = typing ? (candidates.data ?? []) : [];
 
@@ -47,13 +55,31 @@ export function Composer({ threadId, replyTo, onCancelReply, onSend, sticky }: C
     });
   };
 
+  const attach = async (chosen: File[]) => {
+    setPhotoError(null);
+    const room = CHAT_ATTACHMENTS_MAX - photos.length;
+    if (chosen.length > room) return setPhotoError(`A message carries at most ${CHAT_ATTACHMENTS_MAX} photos.`);
+    const odd = chosen.find((f) => f.type && !PHOTO_TYPES.includes(f.type));
+    if (odd) return setPhotoError(`${odd.name} is not a JPEG, PNG or WebP photo.`);
+    setUploading(0);
+    try {
+      const { photos: stored } = await shareChatPhotos(threadId, chosen, (sent, total) => setUploading(total > 0 ? Math.round((sent / total) * 100) : 0));
+      setPhotos((list) => [...list, ...stored.map((p) => ({ id: p.id, thumbnailUrl: p.thumbnailUrl }))]);
+    } catch (e) {
+      setPhotoError(isApiError(e) ? e.message : 'The photo was not sent: check the connection');
+    } finally {
+      setUploading(null);
+    }
+  };
+
   const submit = () => {
     const body = text.trim();
-    if (!body || body.length > CHAT_MESSAGE_MAX) return;
-    onSend(body, mentions.filter((p) => body.includes(`@${p.name}`)));
+    if ((!body && photos.length === 0) || body.length > CHAT_MESSAGE_MAX || uploading !== null) return;
+    onSend(body, mentions.filter((p) => body.includes(`@${p.name}`)), photos);
     setText('');
     setMentions([]);
     setTyping(null);
+    setPhotos([]);
   };
 
   return (
@@ -87,7 +113,45 @@ export function Composer({ threadId, replyTo, onCancelReply, onSend, sticky }: C
             ))}
           </ul>
         )}
+        {(photos.length > 0 || uploading !== null) && (
+          <ul className="mb-2 flex flex-wrap gap-2" aria-label="Photos to send">
+            {photos.map((photo, i) => (
+              <li key={photo.id} className="relative">
+                <img src={photo.thumbnailUrl} alt={`Photo ${i + 1} to send`} className="size-16 rounded-lg border border-grey-200 object-cover" />
+                <button type="button" onClick={() => setPhotos((list) => list.filter((p) => p.id !== photo.id))} className="absolute -top-2 -right-2 inline-flex size-8 items-center justify-center rounded-full bg-bark text-white" aria-label={`Leave out photo ${i + 1}`}>
+                  <X className="size-4" aria-hidden="true" />
+                </button>
+              </li>
+            ))}
+            {uploading !== null && <li className="flex size-16 items-center justify-center rounded-lg bg-grey-100 text-sm text-grey-700" role="status">{uploading}%</li>}
+          </ul>
+        )}
+        {photoError && <p role="alert" className="mb-2 text-sm text-clay-deep">{photoError}</p>}
         <div className="flex items-end gap-2">
+          <input
+            ref={picker}
+            type="file"
+            accept={PHOTO_TYPES.join(',')}
+            multiple
+            className="sr-only"
+            tabIndex={-1}
+            // The "Attach a photo" button opens it; screen readers use that button.
+            aria-hidden="true"
+            onChange={(e) => {
+              const files = [...(e.target.files ?? [])];
+              e.target.value = '';
+              if (files.length > 0) void attach(files);
+            }}
+          />
+          <button
+            type="button"
+            onClick={() => picker.current?.click()}
+            disabled={uploading !== null || photos.length >= CHAT_ATTACHMENTS_MAX}
+            className="inline-flex size-11 shrink-0 items-center justify-center rounded-lg border border-grey-300 text-moss-deep disabled:opacity-50"
+            aria-label="Attach a photo"
+          >
+            <ImagePlus className="size-5" aria-hidden="true" />
+          </button>
           <label htmlFor={`composer-${threadId}`} className="sr-only">Write a message</label>
           <textarea
             id={`composer-${threadId}`}
@@ -109,7 +173,7 @@ export function Composer({ threadId, replyTo, onCancelReply, onSend, sticky }: C
             }}
             className="max-h-40 min-h-11 min-w-0 flex-1 resize-none rounded-lg border border-grey-300 px-3 py-2 text-base [field-sizing:content]"
           />
-          <button type="submit" disabled={text.trim().length === 0} className="inline-flex size-11 shrink-0 items-center justify-center rounded-lg bg-moss text-white disabled:opacity-50" aria-label="Send">
+          <button type="submit" disabled={(text.trim().length === 0 && photos.length === 0) || uploading !== null} className="inline-flex size-11 shrink-0 items-center justify-center rounded-lg bg-moss text-white disabled:opacity-50" aria-label="Send">
             <SendHorizontal className="size-5" aria-hidden="true" />
           </button>
         </div>

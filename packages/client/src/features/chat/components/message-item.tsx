@@ -5,6 +5,7 @@ import { isApiError } from '../../../lib/api-client';
 import { cn } from '../../../lib/cn';
 import { deleteMessage, editMessage, hideMessage, setReaction } from '../api/chat-api';
 import type { PendingMessage } from '../hooks/use-live-thread';
+import { MessagePhotos } from './message-photos';
 import { MessageText } from './message-text';
 
 const time = new Intl.DateTimeFormat(undefined, { hour: 'numeric', minute: '2-digit' });
@@ -94,11 +95,12 @@ export function MessageItem({ message, myId, myName, moderates, firstUnread, onR
             Hidden by the co-op's admin{message.hiddenReason ? `: ${message.hiddenReason}` : ''}
           </p>
         )}
-        {message.state === 'visible' && mode !== 'edit' && (
+        {message.state === 'visible' && mode !== 'edit' && message.body && (
           <p className="break-words whitespace-pre-wrap text-bark">
-            <MessageText text={message.body ?? ''} mentions={message.mentions} myName={myName} />
+            <MessageText text={message.body} mentions={message.mentions} myName={myName} />
           </p>
         )}
+        {message.state === 'visible' && <MessagePhotos photos={message.attachments} authorName={message.author.name} />}
         {mode === 'edit' && (
           <form
             className="mt-1 space-y-2"
@@ -192,7 +194,14 @@ export function PendingItem({ message, myName, onRetry, onDiscard }: { message: 
           <span className="text-sm text-grey-600">{message.status === 'sending' ? 'Sending…' : 'Not sent'}</span>
         </header>
         {message.replyTo && <Quote reply={{ id: message.replyTo.id, authorName: message.replyTo.author.name, excerpt: message.replyTo.body }} />}
-        <p className="break-words whitespace-pre-wrap text-bark"><MessageText text={message.body} mentions={message.mentions} myName={myName} /></p>
+        {message.body && <p className="break-words whitespace-pre-wrap text-bark"><MessageText text={message.body} mentions={message.mentions} myName={myName} /></p>}
+        {message.photos.length > 0 && (
+          <ul className="mt-1 flex flex-wrap gap-2" aria-label="Photos">
+            {message.photos.map((photo) => (
+              <li key={photo.id}><img src={photo.thumbnailUrl} alt="" className="size-32 rounded-lg border border-grey-200 object-cover sm:size-40" /></li>
+            ))}
+          </ul>
+        )}
         {message.status === 'failed' && (
           <div className="mt-1 flex flex-wrap items-center gap-2">
             <p role="alert" className="text-sm text-clay-deep">{message.error}</p>

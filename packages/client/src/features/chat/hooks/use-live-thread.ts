@@ -6,9 +6,16 @@ import { newIdempotencyKey } from '../../../lib/idempotency';
 import { fetchMessages, markThreadRead, sendMessage } from '../api/chat-api';
 import { chatKeys } from '../api/keys';
 
+/** A photo uploaded for a message being written (its thumbnail is served to the uploader alone until sent). */
+export interface ChatDraftPhoto {
+  id: string;
+  thumbnailUrl: string;
+}
+
 export interface PendingMessage {
   clientId: string;
   body: string;
+  photos: ChatDraftPhoto[];
   mentions: ChatPersonDto[];
   replyTo: ChatMessageDto | null;
   status: 'sending' | 'failed';
@@ -128,6 +135,7 @@ export function useLiveThread(threadId: string, myId: string) {
         body: message.body,
         replyToId: message.replyTo?.id ?? null,
         mentions: message.mentions.filter((p) => message.body.includes(`@${p.name}`)).map((p) => p.id),
+        attachmentIds: message.photos.map((p) => p.id),
       });
       take([stored]);
       void queryClient.invalidateQueries({ queryKey: chatKeys.threads() });
@@ -137,8 +145,8 @@ export function useLiveThread(threadId: string, myId: string) {
     }
   }, [threadId, take, queryClient]);
 
-  const send = useCallback((body: string, mentions: ChatPersonDto[], replyTo: ChatMessageDto | null) => {
-    const message: PendingMessage = { clientId: newIdempotencyKey(), body, mentions, replyTo, status: 'sending', error: null, createdAt: new Date().toISOString() };
+  const send = useCallback((body: string, mentions: ChatPersonDto[], replyTo: ChatMessageDto | null, photos: ChatDraftPhoto[] = []) => {
+    const message: PendingMessage = { clientId: newIdempotencyKey(), body, photos, mentions, replyTo, status: 'sending', error: null, createdAt: new Date().toISOString() };
     setPending((list) => [...list, message]);
     void deliver(message);
   }, [deliver]);

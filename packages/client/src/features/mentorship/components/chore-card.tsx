@@ -1,6 +1,7 @@
 import type { ReactNode } from 'react';
-import type { ChoreEntryDto } from '@burrowline/shared';
+import { formatWeight, type ChoreEntryDto } from '@burrowline/shared';
 import { Badge } from '../../../components/ui/badge';
+import { useWeightUnit } from '../../herd';
 
 const stateBadge = {
   pending: <Badge tone="straw">Waiting for review</Badge>,
@@ -13,6 +14,7 @@ export const hoursText = (minutes: number) => `${(minutes / 60).toFixed(1)} h`;
 /** One chore entry as a card: what, when, how long, about what, the figure it carries, its photos and review. */
 export function ChoreCard({ entry, showApprentice = false, children }: { entry: ChoreEntryDto; showApprentice?: boolean; children?: ReactNode }) {
   const about = entry.animal?.label ?? entry.group?.label ?? entry.litter?.label ?? null;
+  const unit = useWeightUnit();
   return (
     <article className="space-y-2 rounded-xl border border-grey-200 bg-white p-4" aria-label={`${entry.kindLabel} on ${entry.doneOn}`}>
       <div className="flex flex-wrap items-start justify-between gap-2">
@@ -27,7 +29,7 @@ export function ChoreCard({ entry, showApprentice = false, children }: { entry: 
       </div>
       {entry.weighing && (
         <p className="font-semibold text-bark">
-          Weight: {entry.weighing.totalGrams.toLocaleString('en-US')} g{entry.weighing.headCount > 1 && ` for ${entry.weighing.headCount} head`}
+          Weight: {formatWeight(entry.weighing.totalGrams, unit)}{entry.weighing.headCount > 1 && ` for ${entry.weighing.headCount} head`}
           {entry.reviewState !== 'accepted' && <span className="font-normal text-grey-600"> (unverified until accepted)</span>}
         </p>
       )}

@@ -1,14 +1,16 @@
 import { useState } from 'react';
 import { useForm } from 'react-hook-form';
-import { choreEntrySchema, dangerousSkillCaution, type ChoreEntryInput, type ChoreKind } from '@burrowline/shared';
+import { choreEntrySchema, dangerousSkillCaution, weightInputToGrams, type ChoreEntryInput, type ChoreKind } from '@burrowline/shared';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
 import { SelectField } from '../../../components/ui/select-field';
 import { TextAreaField } from '../../../components/ui/text-area-field';
 import { TextField } from '../../../components/ui/text-field';
+import { WeightInput } from '../../../components/ui/weight-input';
 import { cn } from '../../../lib/cn';
 import { sharedSchemaResolver } from '../../../lib/shared-schema-resolver';
 import { useServerSubmit } from '../../../lib/use-server-submit';
+import { useWeightUnit } from '../../herd';
 import { useLogChore } from '../api/mentorship-mutations';
 import type { ChoreChoices } from '../api/mentorship-queries';
 
@@ -18,7 +20,9 @@ interface Values {
   doneOn: string;
   target: string;
   notes: string;
-  grams: string;
+  /** The weight in the farm's units: pounds and ounces, or kilograms and grams. */
+  major: string;
+  minor: string;
   heads: string;
   litterKind: '' | 'lost' | 'culled' | 'weaned';
   litterCount: string;
@@ -51,6 +55,7 @@ function Chip({ active, onClick, children }: { active: boolean; onClick: () => v
  */
 export function LogChoreForm({ kinds, today, choices, onLogged }: { kinds: ChoreKind[]; today: string; choices: ChoreChoices; onLogged?: () => void }) {
   const log = useLogChore();
+  const unit = useWeightUnit();
   const [photos, setPhotos] = useState<File[]>([]);
   const form = useForm<Values, unknown, ChoreEntryInput>({
     resolver: sharedSchemaResolver<Values, ChoreEntryInput>(choreEntrySchema, (v) => {
@@ -63,16 +68,16 @@ export function LogChoreForm({ kinds, today, choices, onLogged }: { kinds: Chore
         litterId: targetKind === 'litter' ? targetId : undefined,
         groupId: targetKind === 'group' ? targetId : undefined,
         notes: v.notes,
-        weighing: v.grams.trim() ? { totalGrams: whole(v.grams), headCount: whole(v.heads) ?? 1 } : undefined,
+        weighing: v.major.trim() || v.minor.trim() ? { totalGrams: weightInputToGrams(v.major, v.minor, unit) ?? NaN, headCount: whole(v.heads) ?? 1 } : undefined,
         litterCount: v.litterKind ? { kind: v.litterKind, count: whole(v.litterCount), cause: v.cause || undefined } : undefined,
       } as ChoreEntryInput;
     }, (path) => {
-      if (path.startsWith('weighing')) return 'grams';
+      if (path.startsWith('weighing')) return 'major';
       if (path.startsWith('litterCount')) return 'litterCount';
       if (path === 'animalId' || path === 'litterId' || path === 'groupId') return 'target';
       return (['kind', 'minutes', 'doneOn', 'notes'] as const).find((f) => f === path) ?? null;
     }),
-    defaultValues: { kind: '', minutes: '15', doneOn: today, target: '', notes: '', grams: '', heads: '1', litterKind: '', litterCount: '', cause: '' },
+    defaultValues: { kind: '', minutes: '15', doneOn: today, target: '', notes: '', major: '', minor: '', heads: '1', litterKind: '', litterCount: '', cause: '' },
   });
   // The photos travel beside the body: the entry is created first, then they are uploaded to it.
   const withPhotos = { mutate: (body: ChoreEntryInput, opts?: Parameters<typeof log.mutate>[1]) => log.mutate({ ...body, photos }, opts), reset: log.reset, error: log.error };
@@ -80,9 +85,9 @@ export function LogChoreForm({ kinds, today, choices, onLogged }: { kinds: Chore
     form,
     withPhotos,
     {
-      fields: ['kind', 'minutes', 'doneOn', 'target', 'notes', 'grams', 'litterCount'],
+      fields: ['kind', 'minutes', 'doneOn', 'target', 'notes', 'major', 'litterCount'],
       onSuccess: () => {
-        form.reset({ ...form.getValues(), kind: '', notes: '', grams: '', litterKind: '', litterCount: '', cause: '', target: '' });
+        form.reset({ ...form.getValues(), kind: '', notes: '', major: '', minor: '', litterKind: '', litterCount: '', cause: '', target: '' });
         setPhotos([]);
         onLogged?.();
       },
@@ -134,9 +139,16 @@ export function LogChoreForm({ kinds, today, choices, onLogged }: { kinds: Chore
         <div className="grid gap-4 sm:grid-cols-2">
           <SelectField label="About" options={targetOptions} error={errors.target?.message} {...form.register('target')} />
           <TextField label="Date" type="date" max={today} error={errors.doneOn?.message} {...form.register('doneOn')} />
-          {(weighs || form.watch('grams')) && (
+          {(weighs || form.watch('major') || form.watch('minor')) && (
             <>
-              <TextField label="Weight on the scale (g)" inputMode="numeric" error={errors.grams?.message} hint="Whole grams; the group's total for a group" {...form.register('grams')} />
+              <WeightInput
+                label="Weight on the scale"
+                unit={unit}
+                error={errors.major?.message}
+                hint="The group's total for a group"
+                majorProps={form.register('major')}
+                minorProps={form.register('minor')}
+              />
               {target.startsWith('group:') && <TextField label="Head count" inputMode="numeric" {...form.register('heads')} />}
             </>
           )}
