@@ -230,10 +230,9 @@ async function writeRound(tx: Transaction, actor: SessionUser, farmId: string, i
     }
     if (birthDate && input.weighedOn < birthDate) return addMessage(errors, `${field}.grams`, `That is before it was born (${birthDate})`);
     const ageOn = (date: string) => (birthDate && date >= birthDate ? daysBetween(birthDate, date) : null);
-    const check = checkRoundWeight({
-      gramsPerHead: e.grams, ageDays: ageOn(input.weighedOn), sizeClass, weighedOn: input.weighedOn,
-      last: last ? { ...last, ageDays: ageOn(last.weighedOn) } : null,
-    });
+    // A kit is not told apart from its litter-mates, so only an animal's own last weight can show a drop.
+    const own = e.animalId && last ? { ...last, ageDays: ageOn(last.weighedOn) } : null;
+    const check = checkRoundWeight({ gramsPerHead: e.grams, ageDays: ageOn(input.weighedOn), sizeClass, weighedOn: input.weighedOn, last: own });
     if (check?.level === 'error') addMessage(errors, `${field}.grams`, check.message);
     else if (check && !e.confirmed) addMessage(warnings, `${field}.grams`, check.message);
   });
