@@ -2,6 +2,8 @@ import { planArrivalQuarantine } from '../modules/almanac/quarantine.service';
 import { groupNamesOfFarm } from '../modules/almanac/treatments.service';
 import { damKindlingDays } from '../modules/animals/animal-validation';
 import { onArrival } from '../modules/animals/custody-moves.service';
+import { moveIntoHutch } from '../modules/animals/animal-edits.service';
+import { moveAnimalIntoHutchIn } from '../modules/litters/housing.service';
 import { feedTotalsByGroup } from '../modules/feed/feed-totals.service';
 import { groupFeedTotals, processedHeadsOfGroups } from '../modules/grow-out/grow-out-context';
 import { groupsOfFarm } from '../modules/grow-out/grow-out-facts.service';
@@ -31,6 +33,7 @@ export function plugModulePorts(): void {
   if (plugged) return;
   plugged = true;
   onArrival.plug(planArrivalQuarantine);
+  moveIntoHutch.plug(moveAnimalIntoHutchIn);
   damKindlingDays.plug(kindlingDaysOfDams);
   groupFeedTotals.plug(feedTotalsByGroup);
   processedHeadsOfGroups.plug(processedHeadsOf);
