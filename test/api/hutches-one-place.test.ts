@@ -1,6 +1,9 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import type { HousingUnitDto } from '@burrowline/shared';
+import { randomUUID } from 'node:crypto';
 import { up as hutchesFromAnimalField } from '../../packages/server/src/db/migrations/0117-hutches-from-animal-field';
+import { withTenant } from '../../packages/server/src/db/tenant';
+import { importHerd } from '../../packages/server/src/modules/animals/herd-import.service';
 import { daysAgo, farmToday } from '../support/almanac';
 import { asTenant, ownerDb } from '../support/db';
 import { createTestCoop, TEST_PASSWORD } from '../support/factories';
@@ -93,5 +96,20 @@ describe('one place an animal lives: its hutch', () => {
     const cards = await agent.get('/api/hutch-cards').query({ animalIds: keeper.id });
     expect(cards.status).toBe(200);
     expect(cards.headers['content-type']).toMatch(/application\/pdf/);
+  });
+
+  it('when a herd is loaded with written hutches, then each name becomes one hutch of the farm with the loaded animals in it', async () => {
+    const coop = await createTestCoop();
+    await addAnimalAs(coop.member, { name: 'Ivy', sex: 'doe' });
+    const farmId = coop.farms[0]!.id;
+    const loaded = ['Juno', 'Kale'].map((name, i) => ({
+      id: randomUUID(), farmId, breedingFarmId: farmId, tattoo: `IMP-${randomUUID().slice(0, 6)}`, name, sex: 'doe' as const, breedId: null,
+      birthDate: '2024-01-0' + (i + 1), sireId: null, damId: null, hutch: i === 0 ? 'D4' : 'd4', lifecycle: 'breeding' as const,
+    }));
+    await withTenant({ coopId: coop.id }, (tx) => importHerd(coop.id, loaded, coop.member.id, tx));
+    const units = (await (await agentOf(coop.member.email)).get('/api/housing-units').expect(200)).body.units as HousingUnitDto[];
+    expect(units.map((u) => u.name)).toEqual(['D4']);
+    expect(occupants(units, 'D4')?.sort()).toEqual(loaded.map((a) => a.id).sort());
+    expect(await hutchField(coop.id, loaded[1]!.id)).toBe('D4');
   });
 });

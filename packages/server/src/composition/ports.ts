@@ -2,8 +2,8 @@ import { planArrivalQuarantine } from '../modules/almanac/quarantine.service';
 import { groupNamesOfFarm } from '../modules/almanac/treatments.service';
 import { damKindlingDays } from '../modules/animals/animal-validation';
 import { onArrival } from '../modules/animals/custody-moves.service';
-import { moveIntoHutch } from '../modules/animals/animal-edits.service';
-import { moveAnimalIntoHutchIn } from '../modules/litters/housing.service';
+import { moveIntoHutch, placeByWrittenHutch } from '../modules/animals/animal-edits.service';
+import { moveAnimalIntoHutchIn, placeByWrittenHutchIn } from '../modules/litters/housing.service';
 import { feedTotalsByGroup } from '../modules/feed/feed-totals.service';
 import { groupFeedTotals, processedHeadsOfGroups } from '../modules/grow-out/grow-out-context';
 import { groupsOfFarm } from '../modules/grow-out/grow-out-facts.service';
@@ -34,6 +34,7 @@ export function plugModulePorts(): void {
   plugged = true;
   onArrival.plug(planArrivalQuarantine);
   moveIntoHutch.plug(moveAnimalIntoHutchIn);
+  placeByWrittenHutch.plug(placeByWrittenHutchIn);
   damKindlingDays.plug(kindlingDaysOfDams);
   groupFeedTotals.plug(feedTotalsByGroup);
   processedHeadsOfGroups.plug(processedHeadsOf);

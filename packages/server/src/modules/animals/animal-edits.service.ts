@@ -28,6 +28,9 @@ import { port } from '../../lib/port';
  */
 export const moveIntoHutch = port<(tx: Transaction, move: { coopId: string; farmId: string; animalId: string; hutch: string; on: string; actorId: string }) => Promise<string>>('herd hutch placement');
 
+/** Animals loaded with a written hutch are placed in the farm's hutch of that name in one pass (litters' housing). */
+export const placeByWrittenHutch = port<(tx: Transaction, coopId: string, animalIds: string[]) => Promise<void>>('herd import hutch placement');
+
 /** The hutch field mirrors the current placement (written by housing when an animal moves on the Hutches screen). */
 export async function setAnimalHutchIn(tx: Transaction, animalId: string, hutch: string): Promise<void> {
   await query(tx, 'UPDATE animals SET hutch = $2 WHERE id = $1 AND hutch IS DISTINCT FROM $2 RETURNING id', [animalId, hutch]);

@@ -190,3 +190,30 @@ export async function moveAnimalIntoHutchIn(
   announceHousing(tx, move.farmId);
   return unit.name;
 }
+
+/**
+ * Animals loaded with a written hutch (a spreadsheet import) are placed the same way in one pass: a hutch
+ * per new name of each farm, and a placement from the farm's today for each animal not placed yet.
+ */
+export async function placeByWrittenHutchIn(tx: Transaction, coopId: string, animalIds: string[]): Promise<void> {
+  if (animalIds.length === 0) return;
+  const run = (sql: string) => HousingUnit.sequelize!.query(sql, { bind: [coopId, animalIds], transaction: tx });
+  const written = `FROM animals a WHERE a.coop_id = $1 AND a.id = ANY($2::uuid[]) AND btrim(a.hutch) <> '' AND a.keeping_farm_id IS NOT NULL AND a.disposition = 'on_farm'`;
+  const sameName = `u.farm_id = a.keeping_farm_id AND lower(u.name) = lower(left(btrim(a.hutch), 40)) AND u.deleted_at IS NULL`;
+  await run(`INSERT INTO housing_units (coop_id, farm_id, name, kind, notes)
+    SELECT DISTINCT ON (a.keeping_farm_id, lower(left(btrim(a.hutch), 40))) a.coop_id, a.keeping_farm_id, left(btrim(a.hutch), 40), 'hutch', ''
+    ${written} AND NOT EXISTS (SELECT 1 FROM housing_units u WHERE ${sameName})
+    ORDER BY a.keeping_farm_id, lower(left(btrim(a.hutch), 40))`);
+  // A hutch written over another (an import's update) moves the animal: its placement elsewhere ends today.
+  await run(`UPDATE housing_placements p SET ended_on = GREATEST(p.placed_on, (now() AT TIME ZONE f.time_zone)::date)
+    FROM animals a JOIN farms f ON f.id = a.keeping_farm_id, housing_units u
+    WHERE a.coop_id = $1 AND a.id = ANY($2::uuid[]) AND btrim(a.hutch) <> '' AND p.animal_id = a.id AND p.ended_on IS NULL
+      AND u.id = p.unit_id AND lower(u.name) <> lower(left(btrim(a.hutch), 40))`);
+  await run(`INSERT INTO housing_placements (coop_id, farm_id, unit_id, animal_id, placed_on, note)
+    SELECT a.coop_id, a.keeping_farm_id, u.id, a.id, (now() AT TIME ZONE f.time_zone)::date, ''
+    FROM animals a JOIN farms f ON f.id = a.keeping_farm_id JOIN housing_units u ON ${sameName}
+    WHERE a.coop_id = $1 AND a.id = ANY($2::uuid[]) AND btrim(a.hutch) <> '' AND a.disposition = 'on_farm'
+      AND NOT EXISTS (SELECT 1 FROM housing_placements p WHERE p.animal_id = a.id AND p.ended_on IS NULL)`);
+  await run(`UPDATE animals a SET hutch = u.name FROM housing_placements p JOIN housing_units u ON u.id = p.unit_id
+    WHERE a.coop_id = $1 AND a.id = ANY($2::uuid[]) AND p.animal_id = a.id AND p.ended_on IS NULL AND a.hutch IS DISTINCT FROM u.name`);
+}
