@@ -1,7 +1,7 @@
 import { useState } from 'react';
 import { Delete } from 'lucide-react';
 import {
-  checkRoundWeight, ErrorCode, formatWeight, gramsToWeightInput, type EntryCheck, type WeighingRoundCandidateDto, type WeighingRoundCandidatesDto, type WeightUnit,
+  checkRoundWeight, DROP_WARNING_FRACTION, ErrorCode, formatWeight, gramsToWeightInput, type EntryCheck, type WeighingRoundCandidateDto, type WeighingRoundCandidatesDto, type WeightUnit,
 } from '@burrowline/shared';
 import { Alert } from '../../../components/ui/alert';
 import { Button } from '../../../components/ui/button';
@@ -19,9 +19,23 @@ interface Weighed { grams: number; confirmed: boolean }
 
 const KEYS = ['1', '2', '3', '4', '5', '6', '7', '8', '9', '.', '0', '⌫'] as const;
 
-/** The check the server makes, on the phone first: a kit's litter-mates are not told apart, so only an animal's own last weight shows a drop. */
-function checkOf(c: WeighingRoundCandidateDto, grams: number, today: string): EntryCheck | null {
-  return checkRoundWeight({ gramsPerHead: grams, ageDays: c.ageDays, sizeClass: c.sizeClass, weighedOn: today, last: c.kind === 'animal' ? c.last : null });
+/**
+ * The check the server makes, on the phone first (a kit's litter-mates are not told apart, so only an
+ * animal's own last weight shows a drop), said in the farm's units.
+ */
+function checkOf(c: WeighingRoundCandidateDto, grams: number, today: string, w: (g: number) => string): EntryCheck | null {
+  const last = c.kind === 'animal' ? c.last : null;
+  const check = checkRoundWeight({ gramsPerHead: grams, ageDays: c.ageDays, sizeClass: c.sizeClass, weighedOn: today, last });
+  if (!check) return null;
+  const age = c.ageDays !== null ? ` at ${c.ageDays} days` : '';
+  if (check.level === 'error') {
+    return { level: 'error', message: `${w(grams)} is not possible${age}${c.band ? ` (about ${w(c.band.expectedGrams)} is usual)` : ''}; check the scale and weigh again` };
+  }
+  if (last && grams < last.gramsPerHead * (1 - DROP_WARNING_FRACTION)) {
+    return { level: 'warning', message: `${w(grams)} is ${w(last.gramsPerHead - grams)} less than on ${formatDate(last.weighedOn)} (${w(last.gramsPerHead)})` };
+  }
+  const light = c.band !== null && grams < c.band.lowGrams;
+  return { level: 'warning', message: `${w(grams)} is ${light ? 'light' : 'heavy'}${age}${c.band ? `: ${w(c.band.lowGrams)} – ${w(c.band.highGrams)} is usual` : ''}` };
 }
 
 function entryOf(c: WeighingRoundCandidateDto, w: Weighed) {
@@ -64,7 +78,7 @@ export function WeighingRound({ round, unit, isApprentice, doneHref }: { round: 
   const next = () => {
     if (!current) return;
     if (grams === null) return setProblem({ level: 'error', message: 'Type the weight, or skip this one' });
-    const check = checkOf(current, grams, round.today);
+    const check = checkOf(current, grams, round.today, w);
     if (check?.level === 'error') return setProblem(check);
     if (check) return setProblem(check);
     record({ grams, confirmed: false });
