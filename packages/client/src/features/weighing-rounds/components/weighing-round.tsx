@@ -134,8 +134,28 @@ export function WeighingRound({ round, unit, isApprentice, doneHref }: { round: 
     const count = weighed.size;
     return (
       <div className="space-y-4">
-        <Card className="space-y-3">
+        {/* The save comes first: a long round's list need not be scrolled to reach it. */}
+        <div>
           <h2 className="text-xl font-semibold">Check and save</h2>
+          <p className="text-grey-600">{count} weighed, {candidates.length - count} skipped. Tap a name to weigh it again.</p>
+        </div>
+        {save.isError && !isApiError(save.error, ErrorCode.confirmationRequired) && <Alert tone="error">{save.error.message}</Alert>}
+        {serverWarnings.size > 0 && (
+          <Alert tone="warning" title="Some weights look unusual">Weigh them again, or keep them as they are.</Alert>
+        )}
+        <div className="flex flex-wrap gap-3">
+          {candidates.length > 0 && (
+            <Button variant="secondary" onClick={() => (setReviewing(false), show(Math.min(index, candidates.length - 1)))}>
+              Back to weighing
+            </Button>
+          )}
+          {count > 0 && (
+            <Button isBusy={save.isPending} onClick={() => submit(serverWarnings.size > 0)}>
+              {serverWarnings.size > 0 ? 'Keep them and save' : `Save ${count} weight${count === 1 ? '' : 's'}`}
+            </Button>
+          )}
+        </div>
+        <Card className="space-y-3">
           {candidates.length === 0 && <p className="text-grey-600">Nothing to weigh here.</p>}
           <ul className="divide-y divide-grey-100" aria-label="Weights of this round">
             {candidates.map((c, i) => {
@@ -154,22 +174,6 @@ export function WeighingRound({ round, unit, isApprentice, doneHref }: { round: 
             })}
           </ul>
         </Card>
-        {save.isError && !isApiError(save.error, ErrorCode.confirmationRequired) && <Alert tone="error">{save.error.message}</Alert>}
-        {serverWarnings.size > 0 && (
-          <Alert tone="warning" title="Some weights look unusual">Weigh them again, or keep them as they are.</Alert>
-        )}
-        <div className="flex flex-wrap gap-3">
-          {candidates.length > 0 && (
-            <Button variant="secondary" onClick={() => (setReviewing(false), show(Math.min(index, candidates.length - 1)))}>
-              Back to weighing
-            </Button>
-          )}
-          {count > 0 && (
-            <Button isBusy={save.isPending} onClick={() => submit(serverWarnings.size > 0)}>
-              {serverWarnings.size > 0 ? 'Keep them and save' : `Save ${count} weight${count === 1 ? '' : 's'}`}
-            </Button>
-          )}
-        </div>
       </div>
     );
   }
