@@ -132,6 +132,7 @@ export type Body =
   | 'growOutGroup'
   | 'groupWeighIn'
   | 'groupClose'
+  | 'weighingRound'
   | 'feedPurchase'
   | 'feedUse'
   | 'feedPurchaseCorrection'
@@ -337,6 +338,11 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'POST', path: '/api/grow-out/groups', target: 'groupA', body: 'growOutGroup', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 400, admin: 201, otherCoop: 400 } },
   { method: 'GET', path: '/api/grow-out/groups/:groupId', target: 'groupA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
   { method: 'POST', path: '/api/grow-out/groups/:groupId/weigh-ins', target: 'groupA', body: 'groupWeighIn', expect: { anonymous: 401, apprentice: 201, member: 201, otherFarmMember: 404, admin: 201, otherCoop: 404 } },
+  // A weighing round: the farm's heads to weigh and one batch of their weights; an apprentice's wait for review;
+  // another farm's or co-op's group is not theirs to list (404) or weigh (400).
+  { method: 'GET', path: '/api/weighing-rounds/candidates?set=group&groupId=:groupId', target: 'groupA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'GET', path: '/api/weighing-rounds/candidates?set=growing', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
+  { method: 'POST', path: '/api/weighing-rounds', target: 'groupA', body: 'weighingRound', expect: { anonymous: 401, apprentice: 201, member: 201, otherFarmMember: 400, admin: 201, otherCoop: 400 } },
   { method: 'POST', path: '/api/grow-out/groups/:groupId/close', target: 'groupA', body: 'groupClose', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
   { method: 'GET', path: '/api/feed', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'POST', path: '/api/feed/purchases', target: 'none', body: 'feedPurchase', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 201, admin: 201, otherCoop: 201 } },
@@ -544,7 +550,7 @@ export const matrixAreas = [
   { area: 'herd', paths: /^\/api\/(breeds|animals|weigh-ins|animal-notes|pedigree-cards|trial-matings|outside-animals)\b/ },
   { area: 'almanac', paths: /^\/api\/(almanac|calendar-feeds|services|treatments)\b/ },
   { area: 'litters-and-health', paths: /^\/api\/(litters|litter-events|housing-units|housing-placements|withdrawals|temperature-readings|heat-caution|processing-records|processing-marks)\b/ },
-  { area: 'grow-out', paths: /^\/api\/(grow-out|feed|performance)\b/ },
+  { area: 'grow-out', paths: /^\/api\/(grow-out|feed|performance|weighing-rounds)\b/ },
   { area: 'ledger', paths: /^\/api\/(ledger|card-webhooks)\b/ },
   { area: 'notifications', paths: /^\/api\/notifications\b/ },
   { area: 'processing-days', paths: /^\/api\/processing-days\b/ },

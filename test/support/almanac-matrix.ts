@@ -110,6 +110,8 @@ export async function almanacBody(coop: TestCoop, body: string | undefined, ids:
       return { name: 'Matrix group', formedOn: farmToday(), targetGrams: 2270, litters: [{ litterId: ids.litterId, heads: 1 }] };
     case 'groupWeighIn':
       return { weighedOn: farmToday(), totalGrams: 3 * 1250, headCount: 3 };
+    case 'weighingRound':
+      return { id: randomUUID(), weighedOn: farmToday(), entries: [1250, 1300, 1200].map((grams) => ({ groupId: ids.groupId, grams })) };
     case 'groupClose':
       return { closedOn: farmToday(), version: await version('grow_out_groups', ids.groupId) };
     case 'feedPurchase':

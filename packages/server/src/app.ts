@@ -25,6 +25,7 @@ import {
   animalNoteRoutes, animalRoutes, outsideAnimalRoutes, pedigreeCardRoutes, trialMatingRoutes, weighInRoutes,
 } from './modules/animals/animals.routes';
 import { breedRoutes } from './modules/breeds/breeds.routes';
+import { weighingRoundRoutes } from './modules/weighing-rounds/weighing-rounds.routes';
 import { herdExportRoutes, herdImportRoutes, hutchCardRoutes, pedigreeCertificateRoutes } from './modules/herd-files/herd-files.routes';
 import { animalPhotoRoutes, farmPhotoRoutes, photoRoutes } from './modules/photos/photos.routes';
 import { almanacRoutes, calendarFeedRoutes, serviceRoutes, treatmentRoutes, withdrawalRoutes } from './modules/almanac/almanac.routes';
@@ -138,6 +139,7 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
   api.use('/pedigree-cards', pedigreeCardRoutes());
   api.use('/trial-matings', trialMatingRoutes());
   api.use('/weigh-ins', weighInRoutes());
+  api.use('/weighing-rounds', weighingRoundRoutes());
   api.use('/animal-notes', animalNoteRoutes());
   api.use('/outside-animals', outsideAnimalRoutes());
   // The Almanac and litters. The calendar feed answers a phone calendar with no session (secret address).

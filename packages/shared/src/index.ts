@@ -12,6 +12,7 @@ export * from './herd';
 export * from './schemas/animal.schema';
 export * from './schemas/breed.schema';
 export * from './schemas/weigh-in.schema';
+export * from './schemas/weighing-round.schema';
 export * from './breeding';
 export * from './growth';
 export * from './yield';

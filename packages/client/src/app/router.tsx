@@ -404,6 +404,14 @@ const routes: RouteObject[] = [
                 },
               },
               {
+                // A weighing round: many weights on a phone, one after another, saved as one batch.
+                path: 'weighing-round',
+                lazy: async () => {
+                  const { loader, WeighingRoundPage } = await import('../routes/weighing/weighing-round');
+                  return { loader, Component: WeighingRoundPage };
+                },
+              },
+              {
                 path: 'litters',
                 lazy: async () => {
                   const { loader, LittersPage } = await import('../routes/litters/litters');

@@ -52,3 +52,13 @@ export function monthGrid(first: string): string[][] {
 }
 
 export const weekdayNames = Array.from({ length: 7 }, (_, i) => fmt({ weekday: 'short' }).format(asDate(addDays('2024-01-01', i))));
+
+/** An age in the words a breeder uses: weeks for kits, months for juniors, years and months for stock. */
+export function ageWords(birthDate: string, today: string): string {
+  const days = Math.round((asDate(today).getTime() - asDate(birthDate).getTime()) / 86_400_000);
+  if (days < 0) return 'not born yet';
+  if (days < 98) return `${Math.floor(days / 7)} wk`;
+  const months = Math.floor(days / 30.4375);
+  if (months < 24) return `${months} mo`;
+  return `${Math.floor(months / 12)} yr${months % 12 ? ` ${months % 12} mo` : ''}`;
+}

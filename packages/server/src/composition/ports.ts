@@ -2,6 +2,8 @@ import { planArrivalQuarantine } from '../modules/almanac/quarantine.service';
 import { groupNamesOfFarm } from '../modules/almanac/treatments.service';
 import { damKindlingDays } from '../modules/animals/animal-validation';
 import { onArrival, onOwnershipEnded } from '../modules/animals/custody-moves.service';
+import { moveIntoHutch, placeByWrittenHutch } from '../modules/animals/animal-edits.service';
+import { moveAnimalIntoHutchIn, placeByWrittenHutchIn } from '../modules/litters/housing.service';
 import { feedTotalsByGroup } from '../modules/feed/feed-totals.service';
 import { groupFeedTotals, processedHeadsOfGroups } from '../modules/grow-out/grow-out-context';
 import { groupsOfFarm } from '../modules/grow-out/grow-out-facts.service';
@@ -40,6 +42,8 @@ export function plugModulePorts(): void {
   onArrival.plug(planArrivalQuarantine);
   // The Swap Board builds on the herd: an animal leaving its farm closes that farm's listings of it.
   onOwnershipEnded.plug(closeListingsOfAnimal);
+  moveIntoHutch.plug(moveAnimalIntoHutchIn);
+  placeByWrittenHutch.plug(placeByWrittenHutchIn);
   damKindlingDays.plug(kindlingDaysOfDams);
   groupFeedTotals.plug(feedTotalsByGroup);
   processedHeadsOfGroups.plug(processedHeadsOf);

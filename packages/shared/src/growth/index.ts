@@ -4,3 +4,4 @@ export * from './projection';
 export * from './plausibility';
 export * from './weigh-in-schedule';
 export { studentTQuantile, studentTCdf } from './stats';
+export * from './weighing-checks';

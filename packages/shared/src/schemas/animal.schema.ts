@@ -61,7 +61,7 @@ const animalFields = {
   sireFromPapers: fromPapersSchema.optional(),
   damFromPapers: fromPapersSchema.optional(),
   registrationNumber: registrationSchema,
-  hutch: singleLine('The hutch', 0, 30),
+  hutch: singleLine('The hutch', 0, 40),
   notes: noteText(2000),
 };
 

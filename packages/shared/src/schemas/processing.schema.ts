@@ -24,6 +24,8 @@ export const processingRecordCreateSchema = z
     hotCarcassGrams: grams('hot carcass weight'),
     chilledCarcassGrams: grams('chilled carcass weight').nullable().default(null),
     notes: z.string().trim().max(1000, 'Keep it under 1,000 characters').default(''),
+    /** The breeder saw the warning (a live weight far from the last weigh-in) and keeps the figures. */
+    confirm: z.boolean().optional(),
   })
   .superRefine((v, ctx) => {
     if (Boolean(v.animalId) === Boolean(v.groupId)) {

@@ -1,4 +1,4 @@
-import { ArrowLeft } from 'lucide-react';
+import { ArrowLeft, Scale } from 'lucide-react';
 import { countOf } from '@burrowline/shared';
 import type { LoaderFunctionArgs } from 'react-router-dom';
 import { queryClient } from '../../app/query-client';
@@ -17,6 +17,7 @@ import { useWeightUnit } from '../../features/herd/hooks/use-weight-unit';
 import { groupQueryOptions, useGroup } from '../../features/grow-out/api/get-group';
 import { GrowthChart } from '../../features/grow-out/components/growth-chart';
 import { CloseGroupForm, FeedPanel, GainsPanel, GroupWeighInForm, GroupWeighInsList, ProjectionCard, WeighInSchedule } from '../../features/grow-out/components/group-panels';
+import { weighingRoundLink } from '../../features/weighing-rounds';
 import { weight } from '../../lib/weights';
 import { idFrom, useIdParam } from '../almanac/id-param';
 
@@ -66,7 +67,15 @@ export function GroupDetailPage() {
       </div>
       <div className="grid gap-6 lg:grid-cols-2">
         <Card>
-          <h2 className="mb-3 text-lg font-semibold">Weigh the group</h2>
+          <div className="mb-3 flex flex-wrap items-center justify-between gap-2">
+            <h2 className="text-lg font-semibold">Weigh the group</h2>
+            {group.status === 'growing' && (
+              <LinkButton to={weighingRoundLink({ groupId: group.id })} variant="secondary">
+                <Scale className="size-5" aria-hidden="true" />
+                Weigh kit by kit
+              </LinkButton>
+            )}
+          </div>
           <WeighInSchedule group={group} />
           {group.status === 'growing' ? <GroupWeighInForm group={group} unit={unit} isApprentice={isApprentice} /> : <p className="text-grey-600">The group is closed.</p>}
         </Card>

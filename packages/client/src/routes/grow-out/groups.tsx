@@ -1,4 +1,4 @@
-import { Plus } from 'lucide-react';
+import { Plus, Scale } from 'lucide-react';
 import { useSearchParams } from 'react-router-dom';
 import { isIsoDate } from '@burrowline/shared';
 import { queryClient } from '../../app/query-client';
@@ -42,12 +42,20 @@ export function GroupsPage() {
       <PageHeader
         title="Grow-out groups"
         lead="Kits raised together after weaning toward a target live weight, with the day each group should get there."
-        actions={data?.canEdit ? (
-          <LinkButton to="/grow-out/groups/new" variant="primary">
-            <Plus className="size-5" aria-hidden="true" />
-            Form a group
-          </LinkButton>
-        ) : undefined}
+        actions={(
+          <>
+            <LinkButton to="/weighing-round" variant="secondary">
+              <Scale className="size-5" aria-hidden="true" />
+              Weighing round
+            </LinkButton>
+            {data?.canEdit && (
+              <LinkButton to="/grow-out/groups/new" variant="primary">
+                <Plus className="size-5" aria-hidden="true" />
+                Form a group
+              </LinkButton>
+            )}
+          </>
+        )}
       />
       <div className="flex flex-wrap items-end gap-4">
         <SegmentedFilter

@@ -22,7 +22,7 @@ export function HousingPage() {
         <ArrowLeft className="size-4" aria-hidden="true" />
         Back to the Almanac
       </LinkButton>
-      <PageHeader title="Hutches and pens" lead="Where each animal and litter lives, from which day." />
+      <PageHeader title="Hutches and pens" lead="Where each animal and litter lives, from which day. The hutch on an animal’s record is the one it is in here." />
       <HousingBoard today={stock.today} canEdit={rights.canPlan} />
     </div>
   );

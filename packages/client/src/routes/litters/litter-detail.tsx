@@ -7,6 +7,7 @@ import { Badge } from '../../components/ui/badge';
 import { Card } from '../../components/ui/card';
 import { LinkButton } from '../../components/ui/link-button';
 import { PageHeader } from '../../components/ui/page-header';
+import { weighingRoundLink } from '../../features/weighing-rounds';
 import { PageTitle } from '../../components/ui/page-title';
 import { formatDate } from '../../lib/days';
 import { animalName } from '../../lib/names';
@@ -54,7 +55,12 @@ export function LitterDetailPage() {
       <PageHeader
         title={title}
         lead={`By ${animalName(litter.sire)} · kindled ${formatDate(litter.kindledOn)} (served ${formatDate(litter.servicedOn)}) · ${countOf(litter.ageDays, 'day')} old`}
-        actions={<Badge tone={litter.status === 'nursing' ? 'straw' : 'neutral'}>{litter.status === 'nursing' ? 'With the doe' : 'Weaned'}</Badge>}
+        actions={(
+          <>
+            <Badge tone={litter.status === 'nursing' ? 'straw' : 'neutral'}>{litter.status === 'nursing' ? 'With the doe' : 'Weaned'}</Badge>
+            <LinkButton to={weighingRoundLink({ litterId: litter.id })} variant="secondary">Weigh the kits</LinkButton>
+          </>
+        )}
       />
       {kindled && <Alert tone="success">Kindling saved. Nest box out, weigh-ins, weaning and breeding back are planned from {formatDate(litter.kindledOn)}.</Alert>}
       <Card className="space-y-4">

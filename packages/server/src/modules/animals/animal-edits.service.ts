@@ -19,6 +19,22 @@ import { type PresentContext } from './animals.presenter';
 import { CustodyEvent } from './custody-event.model';
 import { findOrCreateOutside } from './outside-animals.service';
 import { loadPedigreeRows, lockCoopPedigree, recomputePedigreeFigures } from './pedigree-figures';
+import { port } from '../../lib/port';
+
+/**
+ * Where an animal lives is its placement in one of the farm's hutches (litters' housing, plugged in by the
+ * composition root): a hutch typed on the record is found by name or made, the animal moved into it from
+ * `on`, and an empty one ends its placement. Answers the hutch's own spelling ('' when none).
+ */
+export const moveIntoHutch = port<(tx: Transaction, move: { coopId: string; farmId: string; animalId: string; hutch: string; on: string; actorId: string }) => Promise<string>>('herd hutch placement');
+
+/** Animals loaded with a written hutch are placed in the farm's hutch of that name in one pass (litters' housing). */
+export const placeByWrittenHutch = port<(tx: Transaction, coopId: string, animalIds: string[]) => Promise<void>>('herd import hutch placement');
+
+/** The hutch field mirrors the current placement (written by housing when an animal moves on the Hutches screen). */
+export async function setAnimalHutchIn(tx: Transaction, animalId: string, hutch: string): Promise<void> {
+  await query(tx, 'UPDATE animals SET hutch = $2 WHERE id = $1 AND hutch IS DISTINCT FROM $2 RETURNING id', [animalId, hutch]);
+}
 
 /* Adding and editing animals; litters call createAnimal for a kit given its own record. */
 
@@ -148,6 +164,10 @@ export async function createAnimal(actor: SessionUser, input: AnimalCreateInput)
     );
     // An arrival is isolated under the co-op's quarantine rule: the Almanac plans its quarantine.
     if (arrived) await onArrival(tx, { coopId: actor.coopId, farmId, animalId: animal.id, arrivedOn: startsOn });
+    if (input.hutch) {
+      const hutch = await moveIntoHutch(tx, { coopId: actor.coopId, farmId, animalId: animal.id, hutch: input.hutch, on: ctx.today, actorId: actor.id });
+      if (hutch !== animal.hutch) await setAnimalHutchIn(tx, animal.id, hutch);
+    }
     await recordChanges(
       { coopId: actor.coopId, tableName: 'animals', recordId: animal.id, actorUserId: actor.id, changes: { created: [null, arrived ? 'arrived' : 'born here'] } },
       tx,
@@ -236,6 +256,10 @@ export async function updateAnimal(actor: SessionUser, animalId: string, input: 
       animal.set(Object.fromEntries(Object.entries(changes).map(([k, [, v]]) => [k, v])));
       await animal.save({ transaction: tx });
       await recordChanges({ coopId: actor.coopId, tableName: 'animals', recordId: animal.id, actorUserId: actor.id, changes }, tx);
+    }
+    if ('hutch' in changes && animal.keepingFarmId && animal.keepingFarmId === actor.farmId && animal.disposition === 'on_farm' && !animal.isOutside) {
+      const hutch = await moveIntoHutch(tx, { coopId: actor.coopId, farmId: animal.keepingFarmId, animalId: animal.id, hutch: next('hutch'), on: ctx.today, actorId: actor.id });
+      if (hutch !== next('hutch')) await setAnimalHutchIn(tx, animal.id, hutch);
     }
     const figuresChanged = ['sireId', 'damId', 'breedId'].some((f) => f in changes) ? await recomputePedigreeFigures(actor.coopId, tx, [animal.id, next('sireId'), next('damId')].filter((id): id is string => Boolean(id))) : 0;
     if (Object.keys(changes).length > 0) {

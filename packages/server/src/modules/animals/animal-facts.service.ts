@@ -90,6 +90,16 @@ export async function farmBreedingStockOf(tx: Transaction, coopId: string, farmI
   return factsOfRows(tx, coopId, rows);
 }
 
+/** The young animals (kits and juniors) a farm keeps today, for a weighing round of growing stock. */
+export async function farmGrowingAnimalsOf(tx: Transaction, coopId: string, farmId: string): Promise<AnimalFacts[]> {
+  const rows = await selectAnimals(
+    tx, coopId,
+    `NOT a.is_outside AND a.keeping_farm_id = $2 AND a.disposition = 'on_farm' AND a.lifecycle IN ('kit', 'junior')`,
+    [farmId], { orderBy: 'a.birth_date, a.tattoo, a.name' },
+  );
+  return factsOfRows(tx, coopId, rows);
+}
+
 /** Animals born of these parents on these dates (a litter's kits that were given their own records). */
 export async function animalsBornOf(tx: Transaction, coopId: string, litters: { sireId: string; damId: string; birthDate: string }[]): Promise<AnimalFacts[]> {
   if (litters.length === 0) return [];

@@ -1,3 +1,4 @@
+import { placeByWrittenHutch } from './animal-edits.service';
 import { authorize } from '../farms/farm-access';
 import { animalRecord } from './animal-access';
 import type { CreationAttributes, Transaction } from 'sequelize';
@@ -177,6 +178,8 @@ export async function importHerd(
   }
   await insertMany(tx, 'animal_status_events', statusColumns, statusRows);
   await insertMany(tx, 'animal_custody_events', custodyColumns, custodyRows);
+  // A written hutch is where the animal lives: the farm's hutch of that name, made when new.
+  await placeByWrittenHutch(tx, coopId, animals.filter((a) => a.farmId && a.hutch?.trim()).map((a) => a.id));
   // A caller that writes more in the same transaction recomputes once at the end instead.
   const ids = animals.map((a) => a.id);
   if (opts.recompute !== false) await recomputePedigreeFigures(coopId, tx, ids);
@@ -355,6 +358,7 @@ export async function importSpreadsheet(
     }
   }
   await recordChangesMany(history, tx);
+  await placeByWrittenHutch(tx, actor.coopId, updates.filter((u) => typeof u.changes.hutch === 'string' && u.changes.hutch.trim() !== '').map((u) => u.animalId));
   await importWeighIns(
     actor.coopId,
     plan.weighIns.map((w) => ({ farmId, animalId: w.animalId, totalGrams: w.grams, weighedOn: w.weighedOn, enteredBy: actor.id, reviewState: 'accepted' as const })),

@@ -56,8 +56,16 @@ export async function listPedigreeCards(actor: SessionUser, q: PedigreeCardQuery
        WHERE a.coop_id = $1 AND a.deleted_at IS NULL AND (${clause})`,
       [actor.coopId, ...bind],
     )) as [{ count: string }];
-    const rows = await selectAnimals(tx, actor.coopId, clause, bind, {
-      orderBy: `a.is_outside, (a.name = ''), lower(a.name), a.tattoo, a.id`,
+    // A typed tattoo, name or registration that matches whole comes first ("HR-2" above "HR-25"), then those it begins.
+    const rankBind = q.search ? [q.search.toLowerCase(), `${q.search.toLowerCase().replace(/[\\%_]/g, '\\$&')}%`] : [];
+    const exact = `$${bind.length + 2}`;
+    const prefix = `$${bind.length + 3}`;
+    const rank = q.search
+      ? `CASE WHEN lower(a.tattoo) = ${exact} OR lower(a.name) = ${exact} OR lower(a.registration_number) = ${exact} THEN 0
+              WHEN lower(a.tattoo) LIKE ${prefix} OR lower(a.name) LIKE ${prefix} OR lower(a.registration_number) LIKE ${prefix} THEN 1 ELSE 2 END, `
+      : '';
+    const rows = await selectAnimals(tx, actor.coopId, clause, [...bind, ...rankBind], {
+      orderBy: `${rank}a.is_outside, (a.name = ''), lower(a.name), a.tattoo, a.id`,
       limit: q.pageSize,
       offset: (q.page - 1) * q.pageSize,
     });

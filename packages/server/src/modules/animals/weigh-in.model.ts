@@ -10,6 +10,10 @@ export class WeighIn extends Model<InferAttributes<WeighIn>, InferCreationAttrib
   declare animalId: string | null;
   declare groupId: CreationOptional<string | null>;
   declare groupLabel: string | null;
+  /** A litter weighed kit by kit in a weighing round. */
+  declare litterId: CreationOptional<string | null>;
+  /** The weighing round that saved it, if any. */
+  declare roundId: CreationOptional<string | null>;
   declare totalGrams: number;
   declare headCount: number;
   declare weighedOn: string;
@@ -35,6 +39,8 @@ export class WeighIn extends Model<InferAttributes<WeighIn>, InferCreationAttrib
         animalId: { type: DataTypes.UUID, allowNull: true },
         groupId: { type: DataTypes.UUID, allowNull: true },
         groupLabel: { type: DataTypes.TEXT, allowNull: true },
+        litterId: { type: DataTypes.UUID, allowNull: true },
+        roundId: { type: DataTypes.UUID, allowNull: true },
         totalGrams: { type: DataTypes.INTEGER, allowNull: false },
         headCount: { type: DataTypes.INTEGER, allowNull: false },
         weighedOn: { type: DataTypes.DATEONLY, allowNull: false },

@@ -16,6 +16,7 @@ import { Animal } from './animal.model';
 import { WeighIn } from './weigh-in.model';
 import { privateRecordFarmsOf } from './animal-facts.service';
 import { presentNote } from './animals.presenter';
+import { query } from './animal-queries';
 
 /** An apprentice's entry waits for the mentor's review; a member's stands as entered. */
 function initialReviewState(actor: SessionUser): ReviewState {
@@ -205,4 +206,45 @@ export async function reviewAnimalNoteIn(tx: Transaction, actor: SessionUser, no
   const entry = await AnimalNote.findOne({ where: { id: noteId, coopId: actor.coopId }, transaction: tx, lock: tx.LOCK.UPDATE });
   const reviewed = await review(actor, tx, entry, 'AnimalNote', input);
   return presentNote(reviewed, await namesOf([reviewed.enteredBy], tx));
+}
+
+// ---------------------------------------------------------------------------------------------------
+// Weighing rounds: many weights saved in one transaction by modules/weighing-rounds.
+
+/** The latest weight per head of each animal or litter on a farm (returned entries left out; pending ones are the latest word). */
+export async function latestWeightsOf(
+  tx: Transaction, coopId: string, farmId: string, column: 'animal_id' | 'litter_id', ids: string[],
+): Promise<Map<string, { gramsPerHead: number; weighedOn: string }>> {
+  if (ids.length === 0) return new Map();
+  const rows = await query<{ subject_id: string; total_grams: number; head_count: number; weighed_on: string }>(
+    tx,
+    `SELECT DISTINCT ON (${column}) ${column} AS subject_id, total_grams, head_count, weighed_on::text AS weighed_on
+       FROM weigh_ins
+      WHERE coop_id = $1 AND farm_id = $2 AND ${column} = ANY($3::uuid[]) AND deleted_at IS NULL AND review_state <> 'returned'
+      ORDER BY ${column}, weighed_on DESC, created_at DESC`,
+    [coopId, farmId, [...new Set(ids)]],
+  );
+  return new Map(rows.map((r) => [r.subject_id, { gramsPerHead: Math.round(r.total_grams / r.head_count), weighedOn: r.weighed_on }]));
+}
+
+/** Writes a round's weigh-ins of animals and litters at once (the caller has checked each). */
+export async function insertRoundWeighIns(
+  tx: Transaction,
+  rows: { coopId: string; farmId: string; roundId: string; animalId: string | null; litterId: string | null; groupLabel: string | null;
+    totalGrams: number; headCount: number; kitWeights: { label: string | null; grams: number }[] | null; weighedOn: string; enteredBy: string; reviewState: ReviewState }[],
+): Promise<void> {
+  if (rows.length === 0) return;
+  await WeighIn.bulkCreate(rows.map((r) => ({ ...r, note: '' })), { transaction: tx });
+}
+
+/** Marks weigh-ins another module wrote (a grow-out group's) as part of a round. */
+export async function attachWeighInsToRound(tx: Transaction, weighInIds: string[], roundId: string): Promise<void> {
+  if (weighInIds.length === 0) return;
+  await WeighIn.update({ roundId }, { where: { id: { [Op.in]: weighInIds } }, transaction: tx });
+}
+
+/** The weigh-ins a round saved, in the order they were written. */
+export async function roundWeighInsOf(tx: Transaction, roundId: string): Promise<{ id: string; animalId: string | null; groupId: string | null; litterId: string | null; totalGrams: number; headCount: number; reviewState: ReviewState }[]> {
+  const rows = await WeighIn.findAll({ where: { roundId }, attributes: ['id', 'animalId', 'groupId', 'litterId', 'totalGrams', 'headCount', 'reviewState', 'createdAt'], order: [['createdAt', 'ASC'], ['id', 'ASC']], transaction: tx, raw: true });
+  return rows.map((r) => ({ id: r.id, animalId: r.animalId ?? null, groupId: r.groupId ?? null, litterId: r.litterId ?? null, totalGrams: r.totalGrams, headCount: r.headCount, reviewState: r.reviewState }));
 }

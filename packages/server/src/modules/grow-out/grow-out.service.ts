@@ -310,3 +310,26 @@ export async function closeGroupIn(tx: Transaction, actor: SessionUser, groupId:
     return group;
   }
 }
+
+/**
+ * A farm's growing groups (or the ones asked for) as a weighing round weighs them: heads on the day, the
+ * kits' mean birth date, breed size and last weight per head (pending weigh-ins are the latest word).
+ */
+export async function groupsToWeigh(
+  tx: Transaction, coopId: string, farmId: string, on: string, groupIds?: string[],
+): Promise<{ id: string; name: string; status: 'growing' | 'closed'; formedOn: string; birthDate: string; sizeClass: 'small' | 'medium' | 'large' | 'giant'; heads: number; last: { gramsPerHead: number; weighedOn: string } | null }[]> {
+  const groups = await GrowOutGroup.findAll({
+    where: { coopId, farmId, ...(groupIds ? { id: { [Op.in]: groupIds } } : { status: 'growing' }) },
+    order: [['formedOn', 'ASC'], ['name', 'ASC']],
+    transaction: tx,
+  });
+  const ctx = await contextOf(tx, coopId, groups);
+  return groups.map((g) => {
+    const info = ctx.info(g);
+    const last = info.all.at(-1);
+    return {
+      id: g.id, name: g.name, status: g.status, formedOn: g.formedOn, birthDate: info.birthDate, sizeClass: info.sizeClass, heads: headsLeftOn(info, on),
+      last: last ? { gramsPerHead: Math.round(last.totalGrams / last.headCount), weighedOn: last.weighedOn } : null,
+    };
+  });
+}

@@ -10,6 +10,7 @@ import { publish } from '../../lib/realtime';
 import { addMessage, ensureCan, farmOf, type FieldMessages } from '../farms/farm-access';
 import { farmClockOf } from '../farms/farm-clock';
 import { presentAnimalRef } from '../animals/animal-facts.service';
+import { setAnimalHutchIn } from '../animals/animal-edits.service';
 import { presentContextOf } from '../almanac/tasks.service';
 import { HousingPlacement } from './housing-placement.model';
 import { HousingUnit } from './housing-unit.model';
@@ -39,6 +40,12 @@ async function present(tx: Transaction, coopId: string, today: string, units: Ho
       note: p.note,
     };
   };
+  // An animal sold, lent away, processed or dead no longer lives here, whatever its last placement says.
+  const livesHere = (p: HousingPlacement) => {
+    if (!p.animalId) return true;
+    const a = ctx.animals.get(p.animalId);
+    return Boolean(a && a.keepingFarmId === p.farmId && a.disposition === 'on_farm');
+  };
   return units.map((u) => ({
     id: u.id,
     farmId: u.farmId,
@@ -46,7 +53,7 @@ async function present(tx: Transaction, coopId: string, today: string, units: Ho
     kind: u.kind,
     capacity: u.capacity,
     notes: u.notes,
-    current: placements.filter((p) => p.unitId === u.id).map(placementDto),
+    current: placements.filter((p) => p.unitId === u.id && livesHere(p)).map(placementDto),
     version: u.version,
   }));
 }
@@ -118,6 +125,7 @@ export async function placeInUnit(actor: SessionUser, unitId: string, input: Pla
       { coopId: actor.coopId, farmId, unitId, animalId: input.animalId ?? null, litterId: input.litterId ?? null, placedOn: input.placedOn, note: input.note, recordedBy: actor.id },
       { transaction: tx },
     );
+    if (input.animalId) await setAnimalHutchIn(tx, input.animalId, unit.name);
     announceHousing(tx, farmId);
     return (await present(tx, actor.coopId, clock.today, [unit]))[0]!;
   });
@@ -136,6 +144,7 @@ export async function endPlacement(actor: SessionUser, placementId: string, inpu
     if (input.endedOn < placement.placedOn) throw AppError.validation({ endedOn: [`It was placed there on ${placement.placedOn}`] });
     placement.endedOn = input.endedOn;
     await placement.save({ transaction: tx });
+    if (placement.animalId) await setAnimalHutchIn(tx, placement.animalId, '');
     announceHousing(tx, farmId);
     const unit = await HousingUnit.findByPk(placement.unitId, { transaction: tx });
     return (await present(tx, actor.coopId, clock.today, [unit!]))[0]!;
@@ -148,4 +157,63 @@ export async function currentHousingOfLitter(tx: Transaction, litterId: string):
   if (!placement) return null;
   const unit = await HousingUnit.findByPk(placement.unitId, { transaction: tx });
   return { unitId: placement.unitId, unitName: unit?.name ?? '', placedOn: placement.placedOn };
+}
+
+/**
+ * The hutch typed on an animal's record, as a placement (the herd's port): found by name on the farm
+ * (without case) or made, the animal moved into it from `on` (its previous placement ends then); an empty
+ * name ends its placement. Answers the hutch's own spelling, or '' when the animal lives in none.
+ */
+export async function moveAnimalIntoHutchIn(
+  tx: Transaction, move: { coopId: string; farmId: string; animalId: string; hutch: string; on: string; actorId: string },
+): Promise<string> {
+  const name = move.hutch.trim().slice(0, 40);
+  const previous = await HousingPlacement.findOne({ where: { animalId: move.animalId, endedOn: { [Op.is]: null } }, transaction: tx, lock: tx.LOCK.UPDATE });
+  const endPrevious = async () => {
+    if (!previous) return;
+    previous.endedOn = previous.placedOn > move.on ? previous.placedOn : move.on;
+    await previous.save({ transaction: tx });
+  };
+  if (name === '') {
+    await endPrevious();
+    announceHousing(tx, move.farmId);
+    return '';
+  }
+  let unit = await HousingUnit.findOne({ where: { farmId: move.farmId, [Op.and]: [where(fn('lower', col('name')), name.toLowerCase())] }, transaction: tx });
+  unit ??= await HousingUnit.create({ coopId: move.coopId, farmId: move.farmId, name, kind: 'hutch', capacity: null, notes: '' }, { transaction: tx });
+  if (previous?.unitId === unit.id) return unit.name;
+  await endPrevious();
+  await HousingPlacement.create(
+    { coopId: move.coopId, farmId: move.farmId, unitId: unit.id, animalId: move.animalId, litterId: null, placedOn: move.on, note: '', recordedBy: move.actorId },
+    { transaction: tx },
+  );
+  announceHousing(tx, move.farmId);
+  return unit.name;
+}
+
+/**
+ * Animals loaded with a written hutch (a spreadsheet import) are placed the same way in one pass: a hutch
+ * per new name of each farm, and a placement from the farm's today for each animal not placed yet.
+ */
+export async function placeByWrittenHutchIn(tx: Transaction, coopId: string, animalIds: string[]): Promise<void> {
+  if (animalIds.length === 0) return;
+  const run = (sql: string) => HousingUnit.sequelize!.query(sql, { bind: [coopId, animalIds], transaction: tx });
+  const written = `FROM animals a WHERE a.coop_id = $1 AND a.id = ANY($2::uuid[]) AND btrim(a.hutch) <> '' AND a.keeping_farm_id IS NOT NULL AND a.disposition = 'on_farm'`;
+  const sameName = `u.farm_id = a.keeping_farm_id AND lower(u.name) = lower(left(btrim(a.hutch), 40)) AND u.deleted_at IS NULL`;
+  await run(`INSERT INTO housing_units (coop_id, farm_id, name, kind, notes)
+    SELECT DISTINCT ON (a.keeping_farm_id, lower(left(btrim(a.hutch), 40))) a.coop_id, a.keeping_farm_id, left(btrim(a.hutch), 40), 'hutch', ''
+    ${written} AND NOT EXISTS (SELECT 1 FROM housing_units u WHERE ${sameName})
+    ORDER BY a.keeping_farm_id, lower(left(btrim(a.hutch), 40))`);
+  // A hutch written over another (an import's update) moves the animal: its placement elsewhere ends today.
+  await run(`UPDATE housing_placements p SET ended_on = GREATEST(p.placed_on, (now() AT TIME ZONE f.time_zone)::date)
+    FROM animals a JOIN farms f ON f.id = a.keeping_farm_id, housing_units u
+    WHERE a.coop_id = $1 AND a.id = ANY($2::uuid[]) AND btrim(a.hutch) <> '' AND p.animal_id = a.id AND p.ended_on IS NULL
+      AND u.id = p.unit_id AND lower(u.name) <> lower(left(btrim(a.hutch), 40))`);
+  await run(`INSERT INTO housing_placements (coop_id, farm_id, unit_id, animal_id, placed_on, note)
+    SELECT a.coop_id, a.keeping_farm_id, u.id, a.id, (now() AT TIME ZONE f.time_zone)::date, ''
+    FROM animals a JOIN farms f ON f.id = a.keeping_farm_id JOIN housing_units u ON ${sameName}
+    WHERE a.coop_id = $1 AND a.id = ANY($2::uuid[]) AND btrim(a.hutch) <> '' AND a.disposition = 'on_farm'
+      AND NOT EXISTS (SELECT 1 FROM housing_placements p WHERE p.animal_id = a.id AND p.ended_on IS NULL)`);
+  await run(`UPDATE animals a SET hutch = u.name FROM housing_placements p JOIN housing_units u ON u.id = p.unit_id
+    WHERE a.coop_id = $1 AND a.id = ANY($2::uuid[]) AND p.animal_id = a.id AND p.ended_on IS NULL AND a.hutch IS DISTINCT FROM u.name`);
 }

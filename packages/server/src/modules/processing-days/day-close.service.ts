@@ -88,7 +88,7 @@ export async function recordDayYieldIn(tx: Transaction, actor: SessionUser, dayI
   if (input.id) {
     const [existing] = await select<{ record_id: string }>(tx, 'SELECT record_id FROM processing_day_yields WHERE record_id = $1', [input.id]);
     if (existing) {
-      return recordProcessingIn(tx, actor, { id: input.id, animalId: input.animalId, groupId: input.groupId, processedOn: day.date, headCount: input.headCount, liveGrams: input.liveGrams, hotCarcassGrams: input.hotCarcassGrams, chilledCarcassGrams: input.chilledCarcassGrams, notes: input.notes });
+      return recordProcessingIn(tx, actor, { id: input.id, animalId: input.animalId, groupId: input.groupId, processedOn: day.date, headCount: input.headCount, liveGrams: input.liveGrams, hotCarcassGrams: input.hotCarcassGrams, chilledCarcassGrams: input.chilledCarcassGrams, notes: input.notes, confirm: true });
     }
   }
   const { links, records } = await yieldsOfDay(tx, actor.coopId, dayId);
@@ -96,9 +96,10 @@ export async function recordDayYieldIn(tx: Transaction, actor: SessionUser, dayI
   if (recorded + input.headCount > booking.head_brought) {
     throw AppError.validation({ headCount: [`${booking.head_brought} head were checked in and ${recorded} are recorded; ${input.headCount} more is too many`] });
   }
+  // The day's yields are read off the station's scale in front of the crew: the farm's last weigh-in does not question them.
   const record = await recordProcessingIn(tx, actor, {
     id: input.id, animalId: input.animalId, groupId: input.groupId, processedOn: day.date, headCount: input.headCount,
-    liveGrams: input.liveGrams, hotCarcassGrams: input.hotCarcassGrams, chilledCarcassGrams: input.chilledCarcassGrams, notes: input.notes,
+    liveGrams: input.liveGrams, hotCarcassGrams: input.hotCarcassGrams, chilledCarcassGrams: input.chilledCarcassGrams, notes: input.notes, confirm: true,
   });
   await select(
     tx,

@@ -1,6 +1,6 @@
 import { Op, type Transaction } from 'sequelize';
 import {
-  addDays, checkWeightForAge, daysBetween, dressOut, ErrorCode, groupBirthDate, RealtimeEvent, rooms, usdaClass,
+  addDays, checkLiveWeightAgainstLast, checkWeightForAge, daysBetween, dressOut, ErrorCode, groupBirthDate, RealtimeEvent, rooms, usdaClass,
   type ProcessingListDto, type ProcessingMarkCreateInput, type ProcessingMarkDto, type ProcessingRecordCreateInput,
   type ProcessingRecordDto, type YieldFlag,
 } from '@burrowline/shared';
@@ -9,7 +9,8 @@ import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { publish } from '../../lib/realtime';
-import { addMessage, ensureCan, farmOf, type FieldMessages } from '../farms/farm-access';
+import { addMessage, ensureCan, farmOf, refuseOrConfirm, type FieldMessages } from '../farms/farm-access';
+import { latestWeightsOf } from '../animals/weigh-ins.service';
 import { farmClockOf } from '../farms/farm-clock';
 import { presentAnimalRef } from '../animals/animal-facts.service';
 import { presentContextOf } from '../almanac/tasks.service';
@@ -60,6 +61,12 @@ export async function processingFactsOfFarm(tx: Transaction, coopId: string, far
 // ---------------------------------------------------------------------------------------------
 
 /** A group's birth date: the head-weighted mean of its litters' kindlings (as the grow-out screens count its age). */
+/** A group's last accepted weigh-in, a head. */
+function lastGroupWeight(group: GrowOutFacts): { gramsPerHead: number; weighedOn: string } | null {
+  const last = group.weighIns.at(-1);
+  return last ? { gramsPerHead: last.totalGrams / last.headCount, weighedOn: last.weighedOn } : null;
+}
+
 function birthOfGroup(group: GrowOutFacts): string | null {
   return group.litters.length > 0 ? groupBirthDate(group.litters) : null;
 }
@@ -176,6 +183,15 @@ export async function recordProcessingIn(tx: Transaction, actor: SessionUser, in
   const yieldOf = dressOut({ liveGrams: input.liveGrams, hotCarcassGrams: input.hotCarcassGrams, chilledCarcassGrams: input.chilledCarcassGrams });
   for (const flag of yieldOf.flags) if (flag.level === 'error') addMessage(errors, flag.field, flag.message);
   if (Object.keys(errors).length > 0) throw AppError.validation(errors);
+  // The live weight against the last weigh-in carried forward to the day: a slip of the scale or the head count asks to confirm.
+  const lastWeight = subject.group
+    ? lastGroupWeight(subject.group)
+    : subject.animal ? (await latestWeightsOf(tx, actor.coopId, farmId, 'animal_id', [subject.animal.id])).get(subject.animal.id) ?? null : null;
+  const farFromLast = lastWeight && checkLiveWeightAgainstLast({
+    liveGramsPerHead: perHead, processedOn: input.processedOn,
+    last: { ...lastWeight, ageDays: subject.birthDate && lastWeight.weighedOn >= subject.birthDate ? daysBetween(subject.birthDate, lastWeight.weighedOn) : null },
+  });
+  refuseOrConfirm({}, farFromLast ? { liveGrams: [farFromLast.message] } : {}, input.confirm);
 
   const classed = usdaClass({
     birthDate: subject.birthDate, processedOn: input.processedOn,

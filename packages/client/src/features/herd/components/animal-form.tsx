@@ -15,7 +15,8 @@ import { useServerSubmit } from '../../../lib/use-server-submit';
 import { useSaveAnimal } from '../api/save-animal';
 import { ParentPicker, type ParentChoice } from './parent-picker';
 import { useFarmToday } from '../../farms';
-import { useDamKindlingDays } from '../../litters';
+import { useQuery } from '@tanstack/react-query';
+import { housingUnitsQueryOptions, useDamKindlingDays } from '../../litters';
 import { formatDate } from '../../../lib/days';
 import { animalName } from '../../../lib/names';
 
@@ -89,6 +90,9 @@ export function AnimalForm({ animal, breeds }: { animal: AnimalDetailDto | null;
   const today = useFarmToday();
   // The chosen dam's kindling days, read by the resolver: a kit is born on one of them (the server's rule).
   const damKindlings = useRef<{ damId: string; label: string; days: string[] } | null>(null);
+  // The hutch is one of the farm's hutches (a new name makes one): the same list the Hutches screen keeps.
+  const units = useQuery(housingUnitsQueryOptions());
+  const hutchNames = (units.data?.units ?? []).filter((u) => u.kind === 'hutch' || u.kind === 'pen').map((u) => u.name);
   const form = useForm<AnimalValues, unknown, AnimalBody>({
     resolver: sharedSchemaResolver(
       animal ? animalUpdateSchema : animalCreateSchema,
@@ -168,7 +172,17 @@ export function AnimalForm({ animal, breeds }: { animal: AnimalDetailDto | null;
         />
         <TextField label="Colour or variety" error={err('colour')} {...form.register('colour')} />
         <TextField label="Registration number" error={err('registrationNumber')} {...form.register('registrationNumber')} />
-        <TextField label="Hutch" error={err('hutch')} {...form.register('hutch')} />
+        <TextField
+          label="Hutch"
+          list="farm-hutches"
+          autoComplete="off"
+          hint={hutchNames.length > 0 ? 'One of the farm’s hutches; a new name adds a hutch on the Hutches screen.' : 'A new name adds a hutch on the Hutches screen.'}
+          error={err('hutch')}
+          {...form.register('hutch')}
+        />
+        <datalist id="farm-hutches">
+          {hutchNames.map((name) => <option key={name} value={name} />)}
+        </datalist>
       </div>
 
       {!animal && (

@@ -1,7 +1,8 @@
 import { X } from 'lucide-react';
 import { useState } from 'react';
 import type { BreedDto, PedigreeCardDto, Sex } from '@burrowline/shared';
-import { formatDate } from '../../../lib/days';
+import { ageWords, formatDate } from '../../../lib/days';
+import { useFarmToday } from '../../farms';
 import { Button } from '../../../components/ui/button';
 import { SearchField } from '../../../components/ui/search-field';
 import { SegmentedFilter } from '../../../components/ui/segmented-filter';
@@ -38,6 +39,7 @@ export function ParentPicker({ role, value, onChange, breeds, errors }: ParentPi
   const sex: Sex = role === 'sire' ? 'buck' : 'doe';
   const label = role === 'sire' ? 'Sire' : 'Dam';
   const [search, setSearch] = useState('');
+  const today = useFarmToday();
   const cards = usePedigreeCards({ search: search || undefined, sex, pageSize: 8 }, value.mode === 'animal' && !value.card);
   const idError = errors[`${role}Id`]?.[0];
   const papersError = (field: string) => errors[`${role}FromPapers.${field}`]?.[0];
@@ -62,7 +64,7 @@ export function ParentPicker({ role, value, onChange, breeds, errors }: ParentPi
               <p className="font-semibold">
                 {value.card.name || value.card.tattoo} {value.card.tattoo && <span className="font-normal">({value.card.tattoo})</span>}
               </p>
-              <p className="text-sm">{breedMakeupText(value.card.breedMakeup)} · born {value.card.birthDate ? formatDate(value.card.birthDate) : 'unknown'}</p>
+              <p className="text-sm">{breedMakeupText(value.card.breedMakeup)} · born {value.card.birthDate ? `${formatDate(value.card.birthDate)} (${ageWords(value.card.birthDate, today)})` : 'unknown'}</p>
               <p className="text-sm text-grey-700">{value.card.isOutside ? 'Outside animal, from papers' : (value.card.currentFarm?.name ?? value.card.breedingFarm?.name)}</p>
             </div>
             <Button variant="quiet" onClick={() => onChange({ mode: 'animal', card: null })} aria-label={`Choose another ${role}`}>
@@ -85,7 +87,12 @@ export function ParentPicker({ role, value, onChange, breeds, errors }: ParentPi
                       {card.name || card.tattoo} {card.tattoo && <span className="font-normal text-grey-700">({card.tattoo})</span>}
                     </span>
                     <span className="text-sm text-grey-700">
-                      {breedMakeupText(card.breedMakeup)} · {card.isOutside ? 'from papers' : (card.currentFarm?.name ?? 'no longer on a farm')}
+                      {[
+                        card.sex === 'doe' ? 'Doe' : card.sex === 'buck' ? 'Buck' : 'Sex unknown',
+                        card.birthDate ? ageWords(card.birthDate, today) : 'age unknown',
+                        breedMakeupText(card.breedMakeup),
+                        card.isOutside ? 'from papers' : (card.currentFarm?.name ?? 'no longer on a farm'),
+                      ].join(' · ')}
                     </span>
                   </button>
                 </li>

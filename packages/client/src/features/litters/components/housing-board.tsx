@@ -13,6 +13,7 @@ import { Button } from '../../../components/ui/button';
 import { Card } from '../../../components/ui/card';
 import { SelectField } from '../../../components/ui/select-field';
 import { TextField } from '../../../components/ui/text-field';
+import { TextLink } from '../../../components/ui/text-link';
 import { breedingStockQueryOptions } from '../../almanac';
 import { formatDate } from '../../../lib/days';
 import { animalName } from '../../../lib/names';
@@ -71,7 +72,7 @@ function UnitCard({ unit, today, canEdit }: { unit: HousingUnitDto; today: strin
           {unit.current.map((p) => (
             <li key={p.id} className="flex flex-wrap items-center justify-between gap-2">
               <span>
-                {p.animal ? animalName(p.animal) : p.litter ? `Litter of ${animalName(p.litter.dam)}` : ''} · since {formatDate(p.placedOn)}
+                {p.animal ? <TextLink to={`/herd/${p.animal.id}`}>{animalName(p.animal)}</TextLink> : p.litter ? <TextLink to={`/litters/${p.litter.id}`}>Litter of {animalName(p.litter.dam)}</TextLink> : ''} · since {formatDate(p.placedOn)}
               </span>
               {canEdit && (
                 <Button variant="quiet" className="px-2" onClick={() => end.mutate({ placementId: p.id, input: { endedOn: today } })}>

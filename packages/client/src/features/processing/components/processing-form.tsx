@@ -2,6 +2,7 @@ import { useState } from 'react';
 import { useForm } from 'react-hook-form';
 import { dressOut, processingRecordCreateSchema, usdaClass, weightInputToGrams, type ProcessingRecordCreateBody, type WeightUnit } from '@burrowline/shared';
 import { Button } from '../../../components/ui/button';
+import { ConfirmWarnings } from '../../../components/ui/confirm-warnings';
 import { SelectField, type SelectOption } from '../../../components/ui/select-field';
 import { TextField } from '../../../components/ui/text-field';
 import { sharedSchemaResolver } from '../../../lib/shared-schema-resolver';
@@ -65,7 +66,7 @@ export function ProcessingForm({ today, unit, animals, groups, birthDates }: Pro
   });
   const { errors } = form.formState;
   const [saved, setSaved] = useState<string | null>(null);
-  const { submit, failure } = useServerSubmit(form, record, {
+  const { submit, confirm, warnings, failure } = useServerSubmit(form, record, {
     fields: fieldOf,
     onSuccess: (r) => {
       setSaved(`Saved: dress-out ${percent(r.hotDressOutPercent)}, ${usdaClassLabels[r.usdaClass]}.`);
@@ -139,6 +140,7 @@ export function ProcessingForm({ today, unit, animals, groups, birthDates }: Pro
       )}
       <TextField label="Notes (optional)" error={errors.notes?.message} {...form.register('notes')} />
       {failure && <p role="alert" className="text-sm font-medium text-clay-deep">{failure}</p>}
+      <ConfirmWarnings warnings={warnings} onConfirm={confirm} isBusy={record.isPending} />
       {saved && <p role="status" className="text-sm font-medium text-moss-deep">{saved}</p>}
       <Button type="submit" isBusy={record.isPending}>
         Save the processing record
