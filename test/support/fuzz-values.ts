@@ -291,14 +291,12 @@ export function encodeAny(text: string): string {
 
 /** A query string's values as Express reads them: text, repeated keys for lists. */
 export function queryStringOf(value: unknown): string {
-  if (!value || typeof value !== 'object' || Array.isArray(value)) return `q=${encodeAny(String(value))}`;
+  // Objects go as JSON: one generated with its own `toString` key could not be made text otherwise.
+  const text = (one: unknown) => (one === null || one === undefined ? '' : typeof one === 'object' ? (JSON.stringify(one) ?? '') : String(one));
+  if (!value || typeof value !== 'object' || Array.isArray(value)) return `q=${encodeAny(text(value))}`;
   const parts: string[] = [];
   for (const [key, inner] of Object.entries(value as Record<string, unknown>)) {
-    const values = Array.isArray(inner) ? inner : [inner];
-    for (const one of values) {
-      const text = one === null || one === undefined ? '' : typeof one === 'object' ? JSON.stringify(one) : String(one);
-      parts.push(`${encodeAny(key)}=${encodeAny(text)}`);
-    }
+    for (const one of Array.isArray(inner) ? inner : [inner]) parts.push(`${encodeAny(key)}=${encodeAny(text(one))}`);
   }
   return parts.join('&');
 }
