@@ -24,7 +24,8 @@ import { ROOMY_SIGN_IN, testApp, type Agent } from '../support/test-app';
  * (found by asking the route, see route-schemas.ts) and from hostile values, its path ids swapped for another
  * co-op's, random or broken ones, sent as each kind of person. Whatever comes in, the API answers below 500,
  * and a refused request writes nothing. Each run takes a new seed, printed first;
- * `FUZZ_SEED=<seed>` replays a run and `FUZZ_ROWS=<regex>` (matched against "METHOD path target") one part of it.
+ * `FUZZ_SEED=<seed>` replays a run and `FUZZ_ROWS=<regex>` (matched against "METHOD path target") one part of it;
+ * `FUZZ_RUNS=<n>` sends more requests per row.
  */
 const MIN_REQUESTS = 10_000;
 const seed = process.env.FUZZ_SEED ? Number(process.env.FUZZ_SEED) : Math.floor(Math.random() * 2 ** 31);
@@ -54,8 +55,9 @@ interface FuzzRequest {
 
 const rowKey = (row: MatrixRow) => `${row.method} ${row.path} ${row.target}`;
 const rows = authorizationMatrix.filter((row) => !rowFilter || rowFilter.test(rowKey(row)));
-// Enough per row that a full run sends at least MIN_REQUESTS, however many rows the matrix grows to.
-const perRow = Math.ceil(MIN_REQUESTS / authorizationMatrix.length);
+// Enough per row that a full run sends at least MIN_REQUESTS, however many rows the matrix grows to;
+// `FUZZ_RUNS=<n>` asks for more, to dig deeper into a few rows.
+const perRow = Math.max(Math.ceil(MIN_REQUESTS / authorizationMatrix.length), Number(process.env.FUZZ_RUNS ?? 0));
 
 /** The row's own seed, from the run's seed and the row alone: a row replays the same without the others. */
 function seedOf(row: MatrixRow, index: number): number {
