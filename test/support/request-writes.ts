@@ -3,9 +3,10 @@ import type { IncomingMessage, ServerResponse } from 'node:http';
 import pg from 'pg';
 
 /**
- * Whether serving one request could have written a row: it committed a transaction, or sent a statement
- * outside one. A request that did neither (refused before the database, or whose transaction rolled back)
- * wrote nothing, so the fingerprint of the database need not be read after it. Every round trip goes
+ * Whether serving one request could have written a row: it committed a transaction that was given a
+ * transaction id (PostgreSQL gives one at the first write or row lock, and a read-only transaction never gets
+ * one), or it sent a statement outside a transaction. A request that did neither (refused before the database,
+ * a read, a transaction rolled back) wrote nothing, so the fingerprint of the database need not be read after it. Every round trip goes
  * through `pg.Client#query`, whichever pool sends it, and the request's async context says which request
  * sent it. The session store's own statements are left out (the session's expiry is its to write).
  */
@@ -33,7 +34,13 @@ function watchClientQueries(): void {
       const sql = typeof first === 'string' ? first : (first?.text ?? '');
       if (OPENS.test(sql)) inTransaction.add(this);
       else if (ENDS.test(sql)) {
-        if (COMMITS.test(sql) && inTransaction.has(this)) writes.mayHaveWritten = true;
+        if (COMMITS.test(sql) && inTransaction.has(this)) {
+          // Asked on the same connection just before the COMMIT, so its answer is in before the COMMIT's.
+          const asked = (original as (sql: string) => Promise<pg.QueryResult<{ xid: string | null }>>).call(this, 'SELECT pg_current_xact_id_if_assigned()::text AS xid');
+          asked.then((result) => {
+            if (result.rows[0]?.xid !== null) writes.mayHaveWritten = true;
+          }, () => (writes.mayHaveWritten = true));
+        }
         inTransaction.delete(this);
       } else if (!inTransaction.has(this) && !SESSION.test(sql)) writes.mayHaveWritten = true;
     }
