@@ -53,6 +53,22 @@ describe('bad herd input: clear field errors and nothing written', () => {
     expect(future.body.error.details.from[0]).toBe('Enter a date from 1990-01-01 to 2100-12-31');
   });
 
+  it('when a text in the body holds half of a UTF-16 surrogate pair, then the body is refused as 400 (not a 500) and nothing is written', async () => {
+    // Found by the fuzzing of every route: JSON may escape a lone surrogate, PostgreSQL's jsonb refuses it.
+    const { coop, agent, doe } = await setUp();
+    const before = await herdState(coop);
+    for (const body of [`{"name":"\\ud800","version":${doe.version}}`, `{"name":"Fern \\udfff Hill","version":${doe.version}}`, `{"\\ud83d":"x","version":${doe.version}}`]) {
+      const res = await agent.patch(`/api/animals/${doe.id}`).set('Content-Type', 'application/json').send(body);
+      expect(res.status, body).toBe(400);
+      expect(res.body.error.code, body).toBe('validation_failed');
+    }
+    expect(await herdState(coop)).toEqual(before);
+    // A whole pair is one character, and fine.
+    const paired = await agent.patch(`/api/animals/${doe.id}`).set('Content-Type', 'application/json').send(`{"name":"Fern \\ud83d\\udc07","version":${doe.version}}`);
+    expect(paired.status).toBe(200);
+    expect(paired.body.name).toBe('Fern 🐇');
+  });
+
   it('when a tattoo is already kept by the farm, then the tattoo field says so with a prompt, and nothing is written', async () => {
     const { coop, agent } = await setUp();
     const before = await herdState(coop);

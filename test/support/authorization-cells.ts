@@ -59,6 +59,94 @@ async function recordPrivateRows(person: TestPerson) {
   await temperatureAs(person, { value: 21, unit: 'C', place: 'Private barn' });
 }
 
+async function farmProfileBody(coop: TestCoop, farmId: string) {
+  const row = await asTenant(coop.id, (c) => c.query('SELECT * FROM farms WHERE id = $1', [farmId]));
+  const f = row.rows[0];
+  return {
+    name: f.name, location: `Checked ${Date.now()}`, timeZone: f.time_zone, weightUnit: f.weight_unit,
+    temperatureUnit: f.temperature_unit, breedsKept: f.breeds_kept, description: f.description, version: f.version,
+  };
+}
+
+/** A fresh object for membership targets, so one persona's allowed change never alters the next cell. */
+async function membershipTarget(coop: TestCoop, target: Target): Promise<{ applicationId?: string; userId?: string }> {
+  switch (target) {
+    case 'application':
+      return { applicationId: (await createTestApplication(coop)).id };
+    case 'freshMember':
+      return { userId: (await createTestMember(coop)).id };
+    case 'disabledMember': {
+      const person = await createTestMember(coop);
+      await asTenant(coop.id, (c) => c.query(`UPDATE users SET disabled_at = now(), disabled_reason = 'Matrix' WHERE id = $1`, [person.id]), { commit: true });
+      return { userId: person.id };
+    }
+    case 'awaitingMember':
+      return { userId: (await createAwaitingMember(coop)).id };
+    case 'invitee':
+      return { userId: (await createTestInvitee(coop)).id };
+    case 'coopAdmin':
+      return { userId: coop.admin.id };
+    default:
+      return {};
+  }
+}
+
+/**
+ * The ids a row's target names, made afresh in `coop` (`foreign` is another co-op, for rows that need one).
+ * The matrix and the fuzzing of every route share it.
+ */
+export async function matrixTargetIds(coop: TestCoop, foreign: TestCoop, target: Target) {
+  return { ...(await membershipTarget(coop, target)), ...(await herdTarget(coop, target)), ...(await almanacTarget(coop, target)), ...(await herdFilesTarget(coop, target)), ...(await loanTarget(coop, target)), ...(await ledgerTarget(coop, target, foreign)), ...(await notificationTarget(coop, target)), ...(await studTarget(coop, target)), ...(await mentorshipTarget(coop, target)), ...(await chatTarget(coop, target)), ...(await processingDayTarget(coop, target)), ...(await swapTarget(coop, target)) };
+}
+export type MatrixTargetIds = Awaited<ReturnType<typeof matrixTargetIds>> & { farmId: string };
+
+async function membershipBody(coop: TestCoop, foreign: TestCoop, body: Body | undefined, ids: { farmId: string; userId?: string }, persona: Persona): Promise<object | undefined> {
+  const userVersion = async () =>
+    ids.userId ? (await asTenant(coop.id, (c) => c.query('SELECT version FROM users WHERE id = $1', [ids.userId]))).rows[0].version : 0;
+  switch (body) {
+    case 'farmProfile':
+      return farmProfileBody(coop, ids.farmId);
+    case 'application':
+      return applicationBody();
+    case 'approval':
+      return {};
+    case 'rejection':
+      return { reason: 'Checked by the authorization matrix.' };
+    case 'withdrawal':
+      return { note: 'Checked by the authorization matrix.' };
+    case 'roleChange':
+      return { role: 'admin', version: await userVersion() };
+    case 'disable':
+      return { reason: 'Checked by the authorization matrix.', version: await userVersion() };
+    case 'enable':
+      return { version: await userVersion() };
+    case 'invitation': {
+      const tag = randomUUID().slice(0, 8);
+      return { name: `Matrix ${tag}`, email: `matrix-${tag}@example.test`, role: 'member', farm: { kind: 'existing', farmId: persona === 'otherCoop' ? foreign.farms[0]!.id : coop.farms[1]!.id } };
+    }
+    case 'rules': {
+      const ownCoop = persona === 'otherCoop' ? foreign.id : coop.id;
+      const version = (await asTenant(ownCoop, (c) => c.query('SELECT version FROM cooperatives WHERE id = $1', [ownCoop]))).rows[0].version;
+      return { rulesText: `Rules checked by the authorization matrix at ${Date.now()}.`, version };
+    }
+    default:
+      return undefined;
+  }
+}
+
+/** The valid body a row sends as `persona` (undefined when the row sends none); shared with the fuzzing of every route. */
+export async function matrixBody(
+  coop: TestCoop, foreign: TestCoop, body: Body | undefined, ids: MatrixTargetIds, persona: Persona,
+  /** Who the persona is, when the caller knows people the test co-op does not name (a farm-mate). */
+  person?: TestPerson | null,
+): Promise<object | undefined> {
+  const personaOf = person !== undefined ? person : persona === 'otherCoop' ? foreign.admin : persona === 'anonymous' ? null : coop[persona as keyof TestCoop] as TestPerson | undefined;
+  return (await membershipBody(coop, foreign, body, ids, persona)) ?? (await herdBody(coop, body, ids))
+    ?? (await almanacBody(coop, body, ids, personaOf?.coopId ?? coop.id, personaOf?.farmId ?? null)) ?? ledgerBody(coop, body, ids) ?? notificationBody(body) ?? studBody(coop, body, ids)
+    ?? (await mentorshipBody(body, ids, personaOf?.coopId ?? coop.id)) ?? chatBody(body, ids)
+    ?? processingDayBody(coop, body, ids) ?? swapBody(body, ids);
+}
+
 export function describeMatrixArea(area: MatrixArea) {
   // Some cells send applications and stage spreadsheets on one farm: rate limits and the farm's pile of
   // waiting files stay out of the way here (they have their own tests).
@@ -99,41 +187,7 @@ export function describeMatrixArea(area: MatrixArea) {
     return sharedSignedInAgent(person.email, TEST_PASSWORD, handle);
   }
 
-  async function farmProfileBody(farmId: string) {
-    const row = await asTenant(coop.id, (c) => c.query('SELECT * FROM farms WHERE id = $1', [farmId]));
-    const f = row.rows[0];
-    return {
-      name: f.name, location: `Checked ${Date.now()}`, timeZone: f.time_zone, weightUnit: f.weight_unit,
-      temperatureUnit: f.temperature_unit, breedsKept: f.breeds_kept, description: f.description, version: f.version,
-    };
-  }
-
-  /** A fresh object for membership targets, so one persona's allowed change never alters the next cell. */
-  async function membershipTarget(target: Target): Promise<{ applicationId?: string; userId?: string }> {
-    switch (target) {
-      case 'application':
-        return { applicationId: (await createTestApplication(coop)).id };
-      case 'freshMember':
-        return { userId: (await createTestMember(coop)).id };
-      case 'disabledMember': {
-        const person = await createTestMember(coop);
-        await asTenant(coop.id, (c) => c.query(`UPDATE users SET disabled_at = now(), disabled_reason = 'Matrix' WHERE id = $1`, [person.id]), { commit: true });
-        return { userId: person.id };
-      }
-      case 'awaitingMember':
-        return { userId: (await createAwaitingMember(coop)).id };
-      case 'invitee':
-        return { userId: (await createTestInvitee(coop)).id };
-      case 'coopAdmin':
-        return { userId: coop.admin.id };
-      default:
-        return {};
-    }
-  }
-
-  async function freshTarget(target: Target) {
-    return { ...(await membershipTarget(target)), ...(await herdTarget(coop, target)), ...(await almanacTarget(coop, target)), ...(await herdFilesTarget(coop, target)), ...(await loanTarget(coop, target)), ...(await ledgerTarget(coop, target, foreign)), ...(await notificationTarget(coop, target)), ...(await studTarget(coop, target)), ...(await mentorshipTarget(coop, target)), ...(await chatTarget(coop, target)), ...(await processingDayTarget(coop, target)), ...(await swapTarget(coop, target)) };
-  }
+  const freshTarget = (target: Target) => matrixTargetIds(coop, foreign, target);
   type TargetIds = Awaited<ReturnType<typeof freshTarget>>;
   const readTargets = new Map<Target, Promise<TargetIds>>();
 
@@ -156,7 +210,7 @@ export function describeMatrixArea(area: MatrixArea) {
   async function stateOf(ids: { farmId: string; applicationId?: string; userId?: string }, persona: Persona) {
     const ownCoop = persona === 'otherCoop' ? foreign.id : coop.id;
     return {
-      farmVersion: ids.farmId ? (await farmProfileBody(ids.farmId)).version : null,
+      farmVersion: ids.farmId ? (await farmProfileBody(coop, ids.farmId)).version : null,
       application: ids.applicationId
         ? (await asTenant(coop.id, (c) => c.query('SELECT status, version FROM applications WHERE id = $1', [ids.applicationId]))).rows[0]
         : null,
@@ -167,40 +221,6 @@ export function describeMatrixArea(area: MatrixArea) {
     };
   }
 
-  async function bodyFor(body: Body | undefined, ids: { farmId: string; userId?: string }, persona: Persona): Promise<object | undefined> {
-    const userVersion = async () =>
-      ids.userId ? (await asTenant(coop.id, (c) => c.query('SELECT version FROM users WHERE id = $1', [ids.userId]))).rows[0].version : 0;
-    switch (body) {
-      case 'farmProfile':
-        return farmProfileBody(ids.farmId);
-      case 'application':
-        return applicationBody();
-      case 'approval':
-        return {};
-      case 'rejection':
-        return { reason: 'Checked by the authorization matrix.' };
-      case 'withdrawal':
-        return { note: 'Checked by the authorization matrix.' };
-      case 'roleChange':
-        return { role: 'admin', version: await userVersion() };
-      case 'disable':
-        return { reason: 'Checked by the authorization matrix.', version: await userVersion() };
-      case 'enable':
-        return { version: await userVersion() };
-      case 'invitation': {
-        const tag = randomUUID().slice(0, 8);
-        return { name: `Matrix ${tag}`, email: `matrix-${tag}@example.test`, role: 'member', farm: { kind: 'existing', farmId: persona === 'otherCoop' ? foreign.farms[0]!.id : coop.farms[1]!.id } };
-      }
-      case 'rules': {
-        const ownCoop = persona === 'otherCoop' ? foreign.id : coop.id;
-        const version = (await asTenant(ownCoop, (c) => c.query('SELECT version FROM cooperatives WHERE id = $1', [ownCoop]))).rows[0].version;
-        return { rulesText: `Rules checked by the authorization matrix at ${Date.now()}.`, version };
-      }
-      default:
-        return undefined;
-    }
-  }
-
   describe('authorization matrix', () => {
     for (const row of authorizationMatrix.filter((r) => areaOf(r) === area)) {
       for (const [persona, status] of Object.entries(row.expect) as [Persona, number][]) {
@@ -209,11 +229,7 @@ export function describeMatrixArea(area: MatrixArea) {
           const farmId = row.target === 'farmA' ? coop.farms[0]!.id : row.target === 'farmB' ? coop.farms[1]!.id : '';
           const ids = { farmId, ...(await targetOf(row)) };
           const path = pathWithIds(row.path, { ...ids, coopSlug: coop.slug });
-          const personaOf = persona === 'otherCoop' ? foreign.admin : persona === 'anonymous' ? null : personOf(persona);
-          const body = (await bodyFor(row.body, ids, persona)) ?? (await herdBody(coop, row.body, ids))
-            ?? (await almanacBody(coop, row.body, ids, personaOf?.coopId ?? coop.id, personaOf?.farmId ?? null)) ?? ledgerBody(coop, row.body, ids) ?? notificationBody(row.body) ?? studBody(coop, row.body, ids)
-            ?? (await mentorshipBody(row.body, ids, personaOf?.coopId ?? coop.id)) ?? chatBody(row.body, ids)
-            ?? processingDayBody(coop, row.body, ids) ?? swapBody(row.body, ids);
+          const body = await matrixBody(coop, foreign, row.body, ids, persona, persona === 'otherCoop' ? foreign.admin : persona === 'anonymous' ? null : personOf(persona));
           const before = await stateOf(ids, persona);
           const herdBefore = await herdStateOf(coop.id, ids);
           const almanacBefore = await almanacStateOf(coop.id);

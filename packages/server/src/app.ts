@@ -10,6 +10,7 @@ import { csrfGuard } from './http/csrf';
 import { apiNotFound, errorHandler } from './http/error-handler';
 import { configurePassport } from './http/passport';
 import { createSessionMiddleware, enforceAbsoluteLifetime, sessionChecker } from './http/session';
+import { refuseMalformedText } from './http/well-formed-text';
 import { configureMailOutbox, startMailWorker } from './lib/mail-outbox';
 import { configureMailer } from './lib/mailer';
 import { configureStorage } from './lib/storage';
@@ -113,7 +114,7 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
   });
   // The card service's webhooks: signed raw bodies, no session or CSRF header, so before the JSON parser.
   api.use('/card-webhooks', cardWebhookRoutes(config));
-  api.use(express.json({ limit: '100kb' }));
+  api.use(express.json({ limit: '100kb' }), refuseMalformedText);
   api.use(session.middleware, enforceAbsoluteLifetime(config), passport.session(), attachAbility);
   api.use(csrfGuard(config.appUrl));
   api.use(authRoutes(config, passport));
