@@ -23,6 +23,16 @@ export function CycleBadge({ cycle, className, wrap = false }: { cycle: DoeCycle
   );
 }
 
+/** Past about two months a count of days says less than when: "waiting since Oct 2023". */
+const LONG_WAIT_DAYS = 60;
+
+function lateness(next: DoeNextAction, today: string): string {
+  if (next.daysLate > LONG_WAIT_DAYS) {
+    return `waiting since ${new Date(`${next.on}T00:00:00Z`).toLocaleDateString('en-US', { month: 'short', year: 'numeric', timeZone: 'UTC' })}`;
+  }
+  return `${next.daysLate} ${next.daysLate === 1 ? 'day' : 'days'} late (${relativeDay(next.on, today)})`;
+}
+
 /** The next job and its day: "Palpate · Thursday 18 Jun", or how late it is. */
 export function NextAction({ next, today, className }: { next: DoeNextAction | null; today: string; className?: string }) {
   if (!next) return <span className="text-grey-500">—</span>;
@@ -30,7 +40,7 @@ export function NextAction({ next, today, className }: { next: DoeNextAction | n
     <span className={cn('inline-flex flex-wrap items-baseline gap-x-1.5', className)}>
       <span className="font-semibold">{next.label}</span>
       <span className={next.daysLate > 0 ? 'font-semibold text-clay-deep' : 'text-grey-700'}>
-        {next.daysLate > 0 ? `${next.daysLate} ${next.daysLate === 1 ? 'day' : 'days'} late (${relativeDay(next.on, today)})` : relativeDay(next.on, today)}
+        {next.daysLate > 0 ? lateness(next, today) : relativeDay(next.on, today)}
       </span>
     </span>
   );
