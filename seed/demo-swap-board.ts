@@ -25,13 +25,17 @@ async function actorFor(coopId: string, farmKey: string): Promise<SessionUser> {
   return { id: user!.id, coopId, farmId: user!.farmId, mentorId: null, email: user!.email, name: user!.name, role: user!.role };
 }
 
-/** The farm's own grown animals of a sex that are at home and not offered at stud, best candidates first. */
+/**
+ * The farm's own grown animals of a sex that are at home and not offered at stud, best candidates first.
+ * The herd's story animals (a pedigree across farms, a litter preview with another farm's buck) stay put.
+ */
 async function candidatesOf(coopId: string, farmId: string, sex: 'doe' | 'buck', taken: Set<string>, grown = false): Promise<string[]> {
   const found = await withTenant({ coopId }, (tx) => rows<{ id: string }>(
     tx,
     `SELECT a.id FROM animals a
       WHERE a.owning_farm_id = $1 AND a.keeping_farm_id = $1 AND a.sex = $2 AND a.disposition = 'on_farm' AND a.deleted_at IS NULL
         AND a.lifecycle IN ('junior', 'breeding') AND NOT EXISTS (SELECT 1 FROM stud_offers o WHERE o.buck_id = a.id)
+        AND a.name NOT IN ('Tobin', 'Clementine', 'Willowmere', 'Ardent''s Bramwell', 'Larkin')
       ORDER BY (a.lifecycle = $3) DESC, a.birth_date DESC NULLS LAST, a.id`,
     [farmId, sex, grown ? 'breeding' : 'junior'],
   ));
