@@ -8,7 +8,8 @@ import { useMoreToTheRight } from './use-more-to-the-right';
 
 function SortableHeader<T>({ header }: { header: Header<T, unknown> }) {
   const label = flexRender(header.column.columnDef.header, header.getContext());
-  if (!header.column.getCanSort()) return <>{label}</>;
+  // The same height as a sort button's, so plain and sortable labels sit on one line.
+  if (!header.column.getCanSort()) return <span className="inline-flex min-h-11 items-center">{label}</span>;
   const sorted = header.column.getIsSorted();
   const Icon = sorted === 'asc' ? ArrowUp : sorted === 'desc' ? ArrowDown : ArrowUpDown;
   return (
