@@ -149,7 +149,7 @@ export function HerdTable({ animals, view, unit, isRefreshing, onSort, selection
                   canBeWeighed(a) ? (
                     // The label covers the card: a tap anywhere on it ticks the animal.
                     <label className="flex min-h-11 cursor-pointer items-center gap-3 after:absolute after:inset-0 after:rounded-2xl after:content-['']">
-                      <input type="checkbox" className={boxClass} checked={selection.chosen.has(a.id)} onChange={(e) => selection.onChange([a.id], e.target.checked)} />
+                      <input type="checkbox" className={`${boxClass} relative z-[1]`} checked={selection.chosen.has(a.id)} onChange={(e) => selection.onChange([a.id], e.target.checked)} />
                       {shownName(a)}
                     </label>
                   ) : (
