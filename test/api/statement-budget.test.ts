@@ -329,6 +329,23 @@ const endpoints: Endpoint[] = [
     over: { ownBudget: 8, why: 'the apprentice, the checklist, what waits, her figures, her skill marks, her hours by kind and week, her latest entries and their photos: one statement each' },
   },
   {
+    name: 'the weighing round of every growing animal',
+    over: { ownBudget: 10, why: 'the growing animals with their last weights, then the growing groups as the grow-out list reads them (groups, litters, events, animals, weigh-ins, processing)' },
+    async arrange(coop) {
+      await growingGroupAs(coop.member, { kindledDaysAgo: 70, heads: 4 });
+      const junior = await addAnimalAs(coop.member, { sex: 'buck', birthDate: daysAgo(70), lifecycle: 'junior' });
+      const counting = await countingAgentFor(coop.member.email, TEST_PASSWORD);
+      const weighed = await counting.agent.post('/api/weigh-ins').send({ animalId: junior.id, totalGrams: 1800, weighedOn: daysAgo(10) });
+      if (weighed.status !== 201) throw new Error(`weigh-in refused: ${weighed.status} ${JSON.stringify(weighed.body)}`);
+      const farm = coop.member.farmId;
+      return {
+        url: '/api/weighing-rounds/candidates?set=growing',
+        asker: coop.member,
+        growTo: grower(coop.id, 'animals', junior.id, { tattoo: `t.tattoo || '-' || left(md5(random()::text), 8)` }, `keeping_farm_id = $2 AND lifecycle = 'junior'`, [farm]),
+      };
+    },
+  },
+  {
     name: "the person's chat threads",
     async arrange(coop) {
       const { channel } = await chatArranged(coop);

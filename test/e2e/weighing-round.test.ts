@@ -73,4 +73,65 @@ describe('a weighing round on a phone', () => {
       await browser.close();
     }
   });
+
+  it('when a member ticks two animals on the Herd list and taps "Weigh these", then the round weighs just those two and saves their weights', async () => {
+    const coop = await createTestCoop();
+    const born = daysAgo(70);
+    const [fern, moss, reed] = await Promise.all(['Fern', 'Moss', 'Reed'].map((name) => addAnimalAs(coop.member, { name, sex: 'doe', birthDate: born, lifecycle: 'junior' })));
+
+    for (const width of [1280, 390]) {
+      const browser = await openBrowser({ width, height: 844 });
+      const errors = collectPageErrors(browser.page);
+      const { page } = browser;
+      try {
+        await app.signIn(page, coop.member.email);
+        await page.goto(`${app.url}/herd`);
+        if (width < 768) {
+          await page.getByRole('button', { name: 'Choose animals to weigh' }).click();
+          const cards = page.getByRole('list', { name: 'Animals of the herd' });
+          // The whole card is the target: a tap near its foot ticks the animal.
+          const fernCard = cards.getByRole('listitem').filter({ hasText: 'Fern' });
+          const box = (await fernCard.boundingBox())!;
+          await fernCard.click({ position: { x: box.width / 2, y: box.height - 12 } });
+          await cards.getByRole('checkbox', { name: 'Moss' }).check();
+          expect(await cards.getByRole('checkbox', { name: 'Fern' }).isChecked()).toBe(true);
+          expect(await sidewaysScroll(page)).toBe(0);
+        } else {
+          // A gloved finger's target: the box's label is 44 px each way.
+          await page.getByRole('checkbox', { name: 'Choose Fern' }).waitFor();
+          const target = (await page.locator('label', { has: page.getByRole('checkbox', { name: 'Choose Fern' }) }).boundingBox())!;
+          expect(Math.min(target.width, target.height)).toBeGreaterThanOrEqual(44);
+          await page.getByRole('checkbox', { name: 'Choose Fern' }).check();
+          await page.getByRole('checkbox', { name: 'Choose Moss' }).check();
+        }
+        const bar = page.getByRole('region', { name: 'Chosen animals' });
+        await bar.getByText('2 animals chosen').waitFor();
+        await bar.getByRole('link', { name: 'Weigh these' }).click();
+
+        await page.getByText('1 of 2').waitFor();
+        const weighed: string[] = [];
+        for (let i = 1; i <= 2; i++) {
+          await page.getByText(`${i} of 2`).waitFor();
+          weighed.push((await page.getByRole('heading', { level: 2 }).first().textContent())!.trim());
+          const pad = page.getByLabel('Number pad');
+          await pad.getByRole('button', { name: '4', exact: true }).click();
+          await page.getByRole('button', { name: 'Next', exact: true }).click();
+        }
+        expect(weighed.sort()).toEqual(['Fern', 'Moss']);
+        await page.getByRole('button', { name: 'Save 2 weights' }).click();
+        await page.getByText('Saved 2 weigh-ins').waitFor();
+        expect(errors).toEqual([]);
+      } finally {
+        await browser.close();
+      }
+    }
+
+    // Typed 4 lb each time; 4 lb = 1,814.37 g (1 lb = 453.59237 g, NIST Handbook 44, App. C).
+    const stored = await asTenant(coop.id, async (c) => (await c.query(
+      `SELECT animal_id, total_grams, round_id FROM weigh_ins WHERE coop_id = $1`, [coop.id])).rows);
+    expect(stored.filter((r) => r.animal_id === fern!.id).map((r) => r.total_grams)).toEqual([1814, 1814]);
+    expect(stored.filter((r) => r.animal_id === moss!.id).map((r) => r.total_grams)).toEqual([1814, 1814]);
+    expect(stored.some((r) => r.animal_id === reed!.id)).toBe(false);
+    expect(new Set(stored.map((r) => r.round_id)).size).toBe(2);
+  });
 });

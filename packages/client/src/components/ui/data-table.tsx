@@ -8,7 +8,8 @@ import { useMoreToTheRight } from './use-more-to-the-right';
 
 function SortableHeader<T>({ header }: { header: Header<T, unknown> }) {
   const label = flexRender(header.column.columnDef.header, header.getContext());
-  if (!header.column.getCanSort()) return <>{label}</>;
+  // The same height as a sort button's, so plain and sortable labels sit on one line.
+  if (!header.column.getCanSort()) return <span className="inline-flex min-h-11 items-center">{label}</span>;
   const sorted = header.column.getIsSorted();
   const Icon = sorted === 'asc' ? ArrowUp : sorted === 'desc' ? ArrowDown : ArrowUpDown;
   return (
@@ -45,13 +46,15 @@ interface DataTableProps<T> {
   caption: string;
   /** How one row reads as a card on a narrow screen. */
   renderCard: (row: Row<T>) => ReactNode;
+  /** Extra classes of a row's card (a chosen one stands out). */
+  cardClassName?: (row: Row<T>) => string;
   empty: ReactNode;
   /** Rows being refetched (filters changed): dim them rather than flash a spinner. */
   isRefreshing?: boolean;
 }
 
 /** A dense table on wide screens and a list of cards on phones, from one TanStack table. */
-export function DataTable<T>({ table, caption, renderCard, empty, isRefreshing = false }: DataTableProps<T>) {
+export function DataTable<T>({ table, caption, renderCard, cardClassName, empty, isRefreshing = false }: DataTableProps<T>) {
   const rows = table.getRowModel().rows;
   const scroller = useMoreToTheRight();
   if (rows.length === 0) return <div className="rounded-2xl border border-dashed border-grey-300 bg-white p-8 text-center text-grey-600">{empty}</div>;
@@ -105,7 +108,7 @@ export function DataTable<T>({ table, caption, renderCard, empty, isRefreshing =
       </div>
       <ul aria-label={caption} className="space-y-3 md:hidden">
         {rows.map((row) => (
-          <li key={row.id} className="relative rounded-2xl border border-grey-200 bg-white p-4 shadow-sm">
+          <li key={row.id} className={cn('relative rounded-2xl border border-grey-200 bg-white p-4 shadow-sm', cardClassName?.(row))}>
             {renderCard(row)}
           </li>
         ))}

@@ -69,7 +69,7 @@ function ChooseSet() {
           </ul>
         </div>
       )}
-      <p className="text-sm text-grey-600">A litter is weighed from its page, kit by kit.</p>
+      <p className="text-sm text-grey-600">A litter is weighed from its page, kit by kit; chosen animals from the Herd list ("Weigh these").</p>
     </Card>
   );
 }
