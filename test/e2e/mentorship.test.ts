@@ -1,8 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { formatWeight, gramsToWeightInput, type GrowOutGroupDto } from '@burrowline/shared';
+import { formatWeight, gramsToWeightInput, litterEventCreateSchema, type GrowOutGroupDto } from '@burrowline/shared';
+import { recordLitterEvent } from '../../packages/server/src/modules/litters/litters.service';
 import { farmToday } from '../support/almanac';
 import { browserTestApp, collectPageErrors, openBrowser, sidewaysScroll } from '../support/browser';
-import { createTestCoop, TEST_PASSWORD } from '../support/factories';
+import { createTestCoop, createTestMember, TEST_PASSWORD, type TestPerson } from '../support/factories';
+import { grownLitterAs } from '../support/grow-out';
+import { actorOf } from '../support/herd';
 import { testImage } from '../support/herd-files';
 import { growingGroupAs } from '../support/mentorship';
 
@@ -88,5 +91,32 @@ describe('journey 3: an apprentice logs, her mentor reviews and signs off', () =
       await phone.close();
       await desk.close();
     }
+  });
+
+  it('when an apprentice\'s litter count waits, then only her mentor is offered Accept and Return on the litter\'s page; a farm-mate and the admin see it unverified', async () => {
+    const coop = await createTestCoop();
+    const farmMate = await createTestMember(coop, { farmIndex: 0 });
+    const { litter } = await grownLitterAs(coop.member, 10, 7, 'Marigold');
+    await recordLitterEvent(actorOf(coop.apprentice), litter.id, litterEventCreateSchema.parse({ kind: 'lost', on: farmToday(), count: 1, deathCause: 'chilled' }));
+
+    async function reviewButtonsSeenBy(person: TestPerson): Promise<number> {
+      const browser = await openBrowser({ width: 390, height: 844 });
+      try {
+        const errors = collectPageErrors(browser.page);
+        await app.signIn(browser.page, person.email);
+        await browser.page.goto(`${app.url}/litters/${litter.id}`);
+        await browser.page.getByText('Unverified · waiting for review').waitFor();
+        // Who mentors whom arrives with its own request: wait for it to settle before counting the buttons.
+        await browser.page.waitForLoadState('networkidle');
+        const seen = await browser.page.getByRole('button', { name: 'Accept', exact: true }).count();
+        expect(errors).toEqual([]);
+        return seen;
+      } finally {
+        await browser.close();
+      }
+    }
+    expect(await reviewButtonsSeenBy(coop.member)).toBe(1);
+    expect(await reviewButtonsSeenBy(farmMate)).toBe(0);
+    expect(await reviewButtonsSeenBy(coop.admin)).toBe(0);
   });
 });
