@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { formatWeight, gramsToWeightInput, litterEventCreateSchema, type GrowOutGroupDto } from '@burrowline/shared';
 import { recordLitterEvent } from '../../packages/server/src/modules/litters/litters.service';
-import { farmToday } from '../support/almanac';
+import { breedingPair, daysAgo, farmToday, serviceAs } from '../support/almanac';
 import { browserTestApp, collectPageErrors, openBrowser, sidewaysScroll } from '../support/browser';
 import { createTestCoop, createTestMember, TEST_PASSWORD, type TestPerson } from '../support/factories';
 import { grownLitterAs } from '../support/grow-out';
@@ -118,5 +118,40 @@ describe('journey 3: an apprentice logs, her mentor reviews and signs off', () =
     expect(await reviewButtonsSeenBy(coop.member)).toBe(1);
     expect(await reviewButtonsSeenBy(farmMate)).toBe(0);
     expect(await reviewButtonsSeenBy(coop.admin)).toBe(0);
+  });
+
+  it('when the apprentice logs a palpation in three taps and a doe, then her mentor\'s queue shows it as a palpation, unverified, and accepting it closes the empty service', async () => {
+    const coop = await createTestCoop();
+    const { doe, buck } = await breedingPair(coop.member, { doe: 'Sorrel' });
+    const service = await serviceAs(coop.member, { doeId: doe.id, buckId: buck.id, servicedOn: daysAgo(12) });
+    const phone = await openBrowser({ width: 390, height: 844 });
+    const desk = await openBrowser({ width: 1280, height: 900 });
+    const errors = [...collectPageErrors(phone.page), ...collectPageErrors(desk.page)];
+    try {
+      await app.signIn(phone.page, coop.apprentice.email);
+      await phone.page.goto(`${app.url}/mentorship`);
+      await phone.page.getByRole('button', { name: 'Palpation', exact: true }).click();
+      await phone.page.getByLabel('About').selectOption(`animal:${doe.id}`);
+      await phone.page.getByRole('button', { name: 'Empty', exact: true }).click();
+      expect(await sidewaysScroll(phone.page)).toBeLessThanOrEqual(0);
+      await phone.page.getByRole('button', { name: 'Send for review' }).click();
+      await phone.page.getByText('Sent to your mentor for review.').waitFor();
+
+      await app.signIn(desk.page, coop.member.email);
+      await desk.page.goto(`${app.url}/mentorship/review`);
+      const card = desk.page.getByRole('article', { name: `Palpation on ${farmToday()}` });
+      await card.getByText('Palpation: empty (negative) (unverified until accepted)').waitFor();
+      await desk.page.goto(`${app.url}/almanac/services/${service.id}`);
+      await desk.page.getByText('Unverified: waiting for review').waitFor();
+      await desk.page.goto(`${app.url}/mentorship/review`);
+      await card.getByRole('button', { name: 'Accept', exact: true }).click();
+      await card.waitFor({ state: 'detached' });
+      const after = await desk.page.request.get(`${app.url}/api/services/${service.id}`);
+      expect(await after.json()).toMatchObject({ status: 'empty', palpations: [{ result: 'negative', reviewState: 'accepted' }] });
+      expect(errors).toEqual([]);
+    } finally {
+      await phone.close();
+      await desk.close();
+    }
   });
 });
