@@ -72,9 +72,10 @@ export type Target =
   // Swap Board: a farm-A doe listed as a draft, or open with farm B's offer waiting for the seller, or that offer accepted.
   | SwapTarget
   // Mentorship: a pending chore entry of farm A's apprentice (her mentor is farm A's member), one returned to
-  // her, the apprentice herself. The admin is of farm A but not her mentor.
+  // her, her pending palpation of a serviced doe of farm A, the apprentice herself. The admin is of farm A but not her mentor.
   | 'choreA'
   | 'returnedChoreA'
+  | 'palpationChoreA'
   | 'apprenticeA'
   // Co-op Chat: the channel with a message of farm A's member, a litter of farm A with its thread and a
   // message there, and a member of farm B the admin may mute.
@@ -479,6 +480,9 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'GET', path: '/api/mentorship/review', target: 'none', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200, farmMateNotMentor: 200 } },
   { method: 'POST', path: '/api/mentorship/review/accept-many', target: 'choreA', body: 'acceptMany', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 403, otherCoop: 404, farmMateNotMentor: 403 } },
   { method: 'POST', path: '/api/mentorship/review/:kind/:choreId', target: 'choreA', body: 'reviewAccept', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 403, otherCoop: 404, farmMateNotMentor: 403 } },
+  // A palpation chore is decided as its own kind; accepting it changes the doe's service.
+  { method: 'POST', path: '/api/mentorship/review/:kind/:choreId', target: 'palpationChoreA', body: 'reviewAccept', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 403, otherCoop: 404, farmMateNotMentor: 403 } },
+  { method: 'POST', path: '/api/mentorship/review/accept-many', target: 'palpationChoreA', body: 'acceptMany', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 403, otherCoop: 404, farmMateNotMentor: 403 } },
   { method: 'GET', path: '/api/mentorship/apprentices', target: 'none', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },
   { method: 'GET', path: '/api/mentorship/apprentices/:apprenticeId', target: 'apprenticeA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404, farmMateNotMentor: 403 } },
   { method: 'PUT', path: '/api/mentorship/apprentices/:apprenticeId/skills/:skillKey', target: 'apprenticeA', body: 'skillMark', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 403, otherCoop: 404, farmMateNotMentor: 403 } },

@@ -1,8 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { formatWeight, gramsToWeightInput, type GrowOutGroupDto } from '@burrowline/shared';
-import { farmToday } from '../support/almanac';
+import { formatWeight, gramsToWeightInput, litterEventCreateSchema, type GrowOutGroupDto } from '@burrowline/shared';
+import { recordLitterEvent } from '../../packages/server/src/modules/litters/litters.service';
+import { breedingPair, daysAgo, farmToday, serviceAs } from '../support/almanac';
 import { browserTestApp, collectPageErrors, openBrowser, sidewaysScroll } from '../support/browser';
-import { createTestCoop, TEST_PASSWORD } from '../support/factories';
+import { createTestCoop, createTestMember, TEST_PASSWORD, type TestPerson } from '../support/factories';
+import { grownLitterAs } from '../support/grow-out';
+import { actorOf } from '../support/herd';
 import { testImage } from '../support/herd-files';
 import { growingGroupAs } from '../support/mentorship';
 
@@ -83,6 +86,68 @@ describe('journey 3: an apprentice logs, her mentor reviews and signs off', () =
       expect(await sidewaysScroll(apprentice)).toBeLessThanOrEqual(0);
       await mentor.goto(`${app.url}/grow-out`);
       await mentor.getByText(group.name).first().waitFor();
+      expect(errors).toEqual([]);
+    } finally {
+      await phone.close();
+      await desk.close();
+    }
+  });
+
+  it('when an apprentice\'s litter count waits, then only her mentor is offered Accept and Return on the litter\'s page; a farm-mate and the admin see it unverified', async () => {
+    const coop = await createTestCoop();
+    const farmMate = await createTestMember(coop, { farmIndex: 0 });
+    const { litter } = await grownLitterAs(coop.member, 10, 7, 'Marigold');
+    await recordLitterEvent(actorOf(coop.apprentice), litter.id, litterEventCreateSchema.parse({ kind: 'lost', on: farmToday(), count: 1, deathCause: 'chilled' }));
+
+    async function reviewButtonsSeenBy(person: TestPerson): Promise<number> {
+      const browser = await openBrowser({ width: 390, height: 844 });
+      try {
+        const errors = collectPageErrors(browser.page);
+        await app.signIn(browser.page, person.email);
+        await browser.page.goto(`${app.url}/litters/${litter.id}`);
+        await browser.page.getByText('Unverified · waiting for review').waitFor();
+        // Who mentors whom arrives with its own request: wait for it to settle before counting the buttons.
+        await browser.page.waitForLoadState('networkidle');
+        const seen = await browser.page.getByRole('button', { name: 'Accept', exact: true }).count();
+        expect(errors).toEqual([]);
+        return seen;
+      } finally {
+        await browser.close();
+      }
+    }
+    expect(await reviewButtonsSeenBy(coop.member)).toBe(1);
+    expect(await reviewButtonsSeenBy(farmMate)).toBe(0);
+    expect(await reviewButtonsSeenBy(coop.admin)).toBe(0);
+  });
+
+  it('when the apprentice logs a palpation in three taps and a doe, then her mentor\'s queue shows it as a palpation, unverified, and accepting it closes the empty service', async () => {
+    const coop = await createTestCoop();
+    const { doe, buck } = await breedingPair(coop.member, { doe: 'Sorrel' });
+    const service = await serviceAs(coop.member, { doeId: doe.id, buckId: buck.id, servicedOn: daysAgo(12) });
+    const phone = await openBrowser({ width: 390, height: 844 });
+    const desk = await openBrowser({ width: 1280, height: 900 });
+    const errors = [...collectPageErrors(phone.page), ...collectPageErrors(desk.page)];
+    try {
+      await app.signIn(phone.page, coop.apprentice.email);
+      await phone.page.goto(`${app.url}/mentorship`);
+      await phone.page.getByRole('button', { name: 'Palpation', exact: true }).click();
+      await phone.page.getByLabel('About').selectOption(`animal:${doe.id}`);
+      await phone.page.getByRole('button', { name: 'Empty', exact: true }).click();
+      expect(await sidewaysScroll(phone.page)).toBeLessThanOrEqual(0);
+      await phone.page.getByRole('button', { name: 'Send for review' }).click();
+      await phone.page.getByText('Sent to your mentor for review.').waitFor();
+
+      await app.signIn(desk.page, coop.member.email);
+      await desk.page.goto(`${app.url}/mentorship/review`);
+      const card = desk.page.getByRole('article', { name: `Palpation on ${farmToday()}` });
+      await card.getByText('Palpation: empty (negative) (unverified until accepted)').waitFor();
+      await desk.page.goto(`${app.url}/almanac/services/${service.id}`);
+      await desk.page.getByText('Unverified: waiting for review').waitFor();
+      await desk.page.goto(`${app.url}/mentorship/review`);
+      await card.getByRole('button', { name: 'Accept', exact: true }).click();
+      await card.waitFor({ state: 'detached' });
+      const after = await desk.page.request.get(`${app.url}/api/services/${service.id}`);
+      expect(await after.json()).toMatchObject({ status: 'empty', palpations: [{ result: 'negative', reviewState: 'accepted' }] });
       expect(errors).toEqual([]);
     } finally {
       await phone.close();

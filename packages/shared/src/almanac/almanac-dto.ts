@@ -115,10 +115,12 @@ export type ServiceStatus = 'open' | 'kindled' | 'empty' | 'missed';
 export interface PalpationDto {
   id: string;
   palpatedOn: string;
-  result: 'positive' | 'negative';
+  result: 'positive' | 'negative' | 'unsure';
   notes: string;
   dayAfterService: number;
   recordedBy: PersonRefDto | null;
+  /** An apprentice's palpation is unverified (pending) until her mentor accepts it; only then it counts. */
+  reviewState: 'pending' | 'accepted';
 }
 
 export interface ServiceDto {

@@ -24,6 +24,8 @@ export interface ChoreEntryDto {
   /** The weight this chore recorded (in its weigh-in), counted once accepted. */
   weighing: { weighInId: string; totalGrams: number; headCount: number } | null;
   litterCount: { litterEventId: string; kind: 'lost' | 'culled' | 'weaned'; count: number } | null;
+  /** The palpation this chore recorded on the doe's open service, counted once accepted. */
+  palpation: { palpationId: string; serviceId: string; result: 'positive' | 'negative' | 'unsure' } | null;
   photos: ChorePhotoDto[];
   reviewState: ReviewState;
   reviewComment: string | null;
@@ -49,7 +51,7 @@ export interface ReviewItemDto {
   title: string;
   detail: string;
   version: number;
-  /** Only for chore entries. */
+  /** The chore entry itself, or the one that carries the palpation. */
   chore: ChoreEntryDto | null;
 }
 

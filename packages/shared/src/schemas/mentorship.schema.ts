@@ -30,6 +30,12 @@ const choreEntryFields = z.strictObject({
         cause: multiLine(200).optional(),
       })
       .optional(),
+    /** A palpation of the animal (a doe of the mentor's with an open service): it counts once accepted. */
+    palpation: z
+      .strictObject({
+        result: z.enum(['positive', 'negative', 'unsure'], { message: 'Did you feel kits? Choose positive, negative or not sure' }),
+      })
+      .optional(),
 });
 
 export const choreEntrySchema = choreEntryFields.superRefine((v, ctx) => {
@@ -39,6 +45,8 @@ export const choreEntrySchema = choreEntryFields.superRefine((v, ctx) => {
     if (v.weighing && v.animalId && v.weighing.headCount !== 1) ctx.addIssue({ code: 'custom', path: ['weighing', 'headCount'], message: 'One animal is one head' });
     if (v.litterCount && !v.litterId) ctx.addIssue({ code: 'custom', path: ['litterCount'], message: 'Choose the litter' });
     if (v.weighing && v.litterCount) ctx.addIssue({ code: 'custom', path: ['litterCount'], message: 'A weighing or a litter count, not both' });
+    if (v.palpation && !v.animalId) ctx.addIssue({ code: 'custom', path: ['palpation'], message: 'Choose the doe you palpated' });
+    if (v.palpation && (v.weighing || v.litterCount)) ctx.addIssue({ code: 'custom', path: ['palpation'], message: 'A palpation is an entry of its own' });
   });
 export type ChoreEntryInput = z.infer<typeof choreEntrySchema>;
 export type ChoreEntryBody = z.input<typeof choreEntrySchema>;
@@ -50,12 +58,13 @@ export const choreResubmitSchema = z.strictObject({
   notes: multiLine(2000).default(''),
   weighing: choreEntryFields.shape.weighing,
   litterCount: choreEntryFields.shape.litterCount,
+  palpation: choreEntryFields.shape.palpation,
   version: z.number().int().min(0),
 });
 export type ChoreResubmitInput = z.infer<typeof choreResubmitSchema>;
 export type ChoreResubmitBody = z.input<typeof choreResubmitSchema>;
 
-export const reviewItemKinds = ['chore', 'weigh-in', 'note', 'litter-event', 'task'] as const;
+export const reviewItemKinds = ['chore', 'palpation', 'weigh-in', 'note', 'litter-event', 'task'] as const;
 export type ReviewItemKind = (typeof reviewItemKinds)[number];
 
 export const reviewItemRefSchema = z.strictObject({ kind: z.enum(reviewItemKinds), id: z.uuid({ message: 'Not a valid id' }) });

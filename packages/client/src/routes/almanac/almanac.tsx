@@ -16,6 +16,7 @@ import { OverdueLoans } from '../../features/stud-share';
 import { MonthCalendar } from '../../features/almanac/components/month-calendar';
 import { OpenServices } from '../../features/almanac/components/open-services';
 import { useAlmanacRights } from '../../features/almanac/hooks/use-almanac-rights';
+import { useMyApprentices } from '../../features/mentorship';
 import { useSession } from '../../lib/session';
 import { useFarmToday } from '../../features/farms/hooks/use-farm-today';
 
@@ -35,6 +36,7 @@ function rangeOf(view: View, month: string, days: number): AgendaRange {
 export function AlmanacPage() {
   const me = useSession();
   const rights = useAlmanacRights();
+  const myApprentices = useMyApprentices();
   const [params, setParams] = useSearchParams();
   const view: View = params.get('view') === 'month' ? 'month' : params.get('view') === 'agenda' ? 'agenda' : defaultView();
   const month = params.get('month');
@@ -93,7 +95,7 @@ export function AlmanacPage() {
       {rights.isApprentice && <Alert tone="info">You see your mentor's Almanac. Tasks you tick off wait for your mentor's review.</Alert>}
       <OverdueLoans />
       {data && <AttentionList items={data.attention} />}
-      {data && data.pendingReview > 0 && rights.canReview && (
+      {data && data.pendingReview > 0 && rights.canReview && myApprentices.any && (
         <Alert tone="info">
           {data.pendingReview === 1 ? "One of your apprentice's ticks waits" : `${data.pendingReview} of your apprentice's ticks wait`} for your review (marked
           “waiting for review”).

@@ -78,8 +78,14 @@ export function ServiceDetailPage() {
           <ul className="space-y-1">
             {service.palpations.map((p) => (
               <li key={p.id}>
-                {formatDate(p.palpatedOn)} (day {p.dayAfterService}): <strong>{p.result === 'positive' ? 'positive' : 'empty'}</strong>
+                {formatDate(p.palpatedOn)} (day {p.dayAfterService}): <strong>{p.result === 'positive' ? 'positive' : p.result === 'negative' ? 'empty' : 'not sure'}</strong>
                 {p.notes ? ` — ${p.notes}` : ''}
+                {p.reviewState === 'pending' && (
+                  <>
+                    {' '}
+                    <Badge tone="straw">Unverified: waiting for review</Badge>
+                  </>
+                )}
               </li>
             ))}
           </ul>

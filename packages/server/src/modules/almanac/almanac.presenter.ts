@@ -59,6 +59,7 @@ export function presentPalpation(p: Palpation, servicedOn: string, names: Map<st
     notes: p.notes,
     dayAfterService: daysBetween(servicedOn, p.palpatedOn),
     recordedBy: person(p.recordedBy, names),
+    reviewState: p.reviewState === 'pending' ? 'pending' : 'accepted',
   };
 }
 

@@ -53,7 +53,7 @@ async function serviceFor(tx: Transaction, actor: SessionUser, serviceId: string
 async function serviceDetail(tx: Transaction, actor: SessionUser, service: ServiceRecord): Promise<ServiceDto> {
   const clock = await farmClockOf(tx, actor.coopId, service.farmId);
   const { settings } = await settingsOf(tx, service.farmId);
-  const palpations = await Palpation.findAll({ where: { serviceId: service.id }, order: [['palpatedOn', 'ASC'], ['createdAt', 'ASC']], transaction: tx });
+  const palpations = await Palpation.findAll({ where: { serviceId: service.id, reviewState: { [Op.ne]: 'returned' } }, order: [['palpatedOn', 'ASC'], ['createdAt', 'ASC']], transaction: tx });
   const tasks = await tasksOf(tx, { serviceId: service.id });
   const ctx = await presentContextOf(tx, actor.coopId, clock.today, {
     animalIds: [service.doeId, service.buckId, ...tasks.map((t) => t.animalId)],
@@ -202,7 +202,7 @@ export async function listServices(actor: SessionUser, q: ServiceListQuery): Pro
       attributes: {
         include: [
           [literal('count(*) OVER ()'), 'matching'],
-          [literal(`(SELECT p.result FROM palpations p WHERE p.service_id = "ServiceRecord".id ORDER BY p.palpated_on DESC, p.created_at DESC LIMIT 1)`), 'lastPalpation'],
+          [literal(`(SELECT p.result FROM palpations p WHERE p.service_id = "ServiceRecord".id AND p.review_state = 'accepted' AND p.result <> 'unsure' ORDER BY p.palpated_on DESC, p.created_at DESC LIMIT 1)`), 'lastPalpation'],
         ],
       },
       order: [['servicedOn', dir], ['createdAt', dir], ['id', dir]],
@@ -229,38 +229,112 @@ export async function getService(actor: SessionUser, serviceId: string): Promise
 }
 
 /**
- * Records a palpation of an open service: its palpation task is done. A negative one closes the
- * service as empty, skips its nest box and kindling tasks with the reason, and plans the rebreed under
- * the farm's settings (day 1 after by default).
+ * What a palpation that counts does to its open service: its palpation task is done. A negative one
+ * closes the service as empty, skips its nest box and kindling tasks with the reason, and plans the
+ * rebreed under the farm's settings (day 1 after by default). An unsure one settles nothing.
  */
+async function applyPalpationIn(tx: Transaction, actorId: string, service: ServiceRecord, palpatedOn: string, result: Palpation['result']): Promise<void> {
+  if (result === 'unsure') return;
+  const { settings } = await settingsOf(tx, service.farmId);
+  const tasks = await tasksOf(tx, { serviceId: service.id });
+  await markTasksDone(tx, tasks.filter((t) => t.kind === 'palpation').map((t) => t.id), palpatedOn, actorId);
+  if (result === 'negative') {
+    const plan = planAfterPalpation('negative', palpatedOn, settings);
+    await skipTasks(tx, tasks.filter((t) => plan.skipKinds.includes(t.kind)).map((t) => ({ id: t.id, reason: plan.skipReason! })));
+    await insertPlannedTasks(tx, { coopId: service.coopId, farmId: service.farmId, sourceId: service.id, serviceId: service.id, animalId: service.doeId }, plan.tasks);
+    service.set({ status: 'empty', closedOn: palpatedOn, closeReason: plan.skipReason });
+    await service.save({ transaction: tx });
+  }
+}
+
+/** Records a palpation of an open service by a member of the farm; it counts at once. */
 export async function recordPalpation(actor: SessionUser, serviceId: string, input: PalpationCreateInput): Promise<ServiceDto> {
   farmOf(actor);
   return withTenant(actor, async (tx) => {
     const service = await serviceFor(tx, actor, serviceId, 'update');
     if (service.status !== 'open') throw new AppError(ErrorCode.conflict, 409, `That service is closed (${service.status}); a palpation belongs to an open service`);
     const clock = await farmClockOf(tx, actor.coopId, service.farmId);
-    const { settings } = await settingsOf(tx, service.farmId);
     const checks = checkPalpationDate(service.servicedOn, input.palpatedOn, clock.today);
     refuseOrConfirm(toMessages(checks, 'error'), toMessages(checks, 'warning'), input.confirm);
 
-    const palpation = await Palpation.create(
+    await Palpation.create(
       { coopId: actor.coopId, farmId: service.farmId, serviceId, palpatedOn: input.palpatedOn, result: input.result, notes: input.notes, recordedBy: actor.id },
       { transaction: tx },
     );
-    const tasks = await tasksOf(tx, { serviceId });
-    await markTasksDone(tx, tasks.filter((t) => t.kind === 'palpation').map((t) => t.id), input.palpatedOn, actor.id);
-    if (input.result === 'negative') {
-      const plan = planAfterPalpation('negative', input.palpatedOn, settings);
-      await skipTasks(tx, tasks.filter((t) => plan.skipKinds.includes(t.kind)).map((t) => ({ id: t.id, reason: plan.skipReason! })));
-      await insertPlannedTasks(tx, { coopId: actor.coopId, farmId: service.farmId, sourceId: service.id, serviceId: service.id, animalId: service.doeId }, plan.tasks);
-      service.set({ status: 'empty', closedOn: input.palpatedOn, closeReason: plan.skipReason });
-      await service.save({ transaction: tx });
-    }
+    await applyPalpationIn(tx, actor.id, service, input.palpatedOn, input.result);
     await recordChanges({ coopId: actor.coopId, tableName: 'services', recordId: service.id, actorUserId: actor.id, changes: { palpation: [null, `${input.result} on ${input.palpatedOn}`] } }, tx);
-    void palpation;
     announceAlmanac(tx, [service.farmId]);
     return serviceDetail(tx, actor, service);
   });
+}
+
+/** A palpation as the mentor's queue and the apprentice's log show it. */
+export interface PalpationFacts {
+  id: string;
+  serviceId: string;
+  farmId: string;
+  doeId: string;
+  palpatedOn: string;
+  result: Palpation['result'];
+  reviewState: Palpation['reviewState'];
+  version: number;
+}
+
+/**
+ * An apprentice's palpation of a doe of her mentor's farm, inside the caller's transaction: it goes on the
+ * doe's open service pending, so it changes nothing (no task done, no service closed) until accepted.
+ */
+export async function recordPendingPalpationIn(
+  tx: Transaction, actor: SessionUser, input: { farmId: string; doeId: string; palpatedOn: string; result: Palpation['result']; notes: string },
+): Promise<string> {
+  const service = await ServiceRecord.findOne({ where: { coopId: actor.coopId, farmId: input.farmId, doeId: input.doeId, status: 'open' }, transaction: tx });
+  if (!service) throw AppError.validation({ palpation: ['That doe has no open service on your mentor\'s farm to palpate'] });
+  ensureCan(actor, 'read', 'Service', { farmId: service.farmId }, 'That service');
+  const clock = await farmClockOf(tx, actor.coopId, service.farmId);
+  const errors = toMessages(checkPalpationDate(service.servicedOn, input.palpatedOn, clock.today), 'error');
+  if (Object.keys(errors).length > 0) throw AppError.validation({ palpation: Object.values(errors).flat() });
+  const palpation = await Palpation.create(
+    {
+      coopId: actor.coopId, farmId: service.farmId, serviceId: service.id, palpatedOn: input.palpatedOn, result: input.result, notes: input.notes,
+      recordedBy: actor.id, reviewState: 'pending',
+    },
+    { transaction: tx },
+  );
+  announceAlmanac(tx, [service.farmId]);
+  return palpation.id;
+}
+
+export async function palpationFactsOf(tx: Transaction, coopId: string, ids: string[]): Promise<Map<string, PalpationFacts>> {
+  if (ids.length === 0) return new Map();
+  const rows = await Palpation.findAll({ where: { coopId, id: { [Op.in]: [...new Set(ids)] } }, transaction: tx });
+  const services = await ServiceRecord.findAll({ where: { id: { [Op.in]: rows.map((r) => r.serviceId) } }, attributes: ['id', 'doeId'], transaction: tx });
+  const doeOf = new Map(services.map((s) => [s.id, s.doeId]));
+  return new Map(rows.map((r) => [r.id, {
+    id: r.id, serviceId: r.serviceId, farmId: r.farmId, doeId: doeOf.get(r.serviceId)!, palpatedOn: r.palpatedOn, result: r.result, reviewState: r.reviewState, version: r.version,
+  }]));
+}
+
+/**
+ * The mentor's decision on a pending palpation, inside the caller's transaction (the caller has checked
+ * she is the apprentice's mentor). Accepted, it takes effect on its service in this same transaction;
+ * a service closed meanwhile (kindled, closed as missed) refuses it, to be returned instead.
+ */
+export async function reviewPalpationIn(tx: Transaction, actor: SessionUser, palpationId: string, input: { decision: 'accepted' | 'returned'; comment?: string }): Promise<void> {
+  const palpation = await Palpation.findOne({ where: { id: palpationId, coopId: actor.coopId }, transaction: tx, lock: tx.LOCK.UPDATE });
+  if (!palpation) throw AppError.notFound('That palpation');
+  if (palpation.reviewState !== 'pending') throw new AppError(ErrorCode.conflict, 409, 'That palpation was already reviewed');
+  if (input.decision === 'accepted') {
+    const service = await ServiceRecord.findOne({ where: { id: palpation.serviceId, coopId: actor.coopId }, transaction: tx, lock: tx.LOCK.UPDATE });
+    if (!service) throw AppError.notFound('That service');
+    if (service.status !== 'open') {
+      throw new AppError(ErrorCode.conflict, 409, `That service is closed (${service.status}) since; return the palpation instead`);
+    }
+    await applyPalpationIn(tx, actor.id, service, palpation.palpatedOn, palpation.result);
+    await recordChanges({ coopId: actor.coopId, tableName: 'services', recordId: service.id, actorUserId: actor.id, changes: { palpation: [null, `${palpation.result} on ${palpation.palpatedOn}`] } }, tx);
+  }
+  palpation.set({ reviewState: input.decision, reviewedBy: actor.id, reviewedAt: new Date(), reviewComment: input.comment || null, version: palpation.version + 1 });
+  await palpation.save({ transaction: tx });
+  announceAlmanac(tx, [palpation.farmId]);
 }
 
 /** Closes an open service with no kindling (she missed): its open tasks are skipped and the rebreed planned. */

@@ -59,7 +59,7 @@ const doeFactsSql = (byIds: boolean) => `
     WHERE s.doe_id = a.id AND s.farm_id = $2 AND s.deleted_at IS NULL ORDER BY s.serviced_on DESC, s.created_at DESC LIMIT 1
   ) sv ON true
   LEFT JOIN LATERAL (
-    SELECT p.palpated_on, p.result FROM palpations p WHERE p.service_id = sv.id ORDER BY p.palpated_on DESC, p.created_at DESC LIMIT 1
+    SELECT p.palpated_on, p.result FROM palpations p WHERE p.service_id = sv.id AND p.review_state = 'accepted' AND p.result <> 'unsure' ORDER BY p.palpated_on DESC, p.created_at DESC LIMIT 1
   ) pl ON true
   LEFT JOIN LATERAL (
     SELECT l.id, l.kindled_on, l.born_alive FROM litters l
@@ -204,7 +204,7 @@ export async function breedingRecord(actor: SessionUser, doeId: string): Promise
       FROM services s
       LEFT JOIN animals b ON b.id = s.buck_id
       LEFT JOIN LATERAL (
-        SELECT p.palpated_on, p.result FROM palpations p WHERE p.service_id = s.id ORDER BY p.palpated_on DESC, p.created_at DESC LIMIT 1
+        SELECT p.palpated_on, p.result FROM palpations p WHERE p.service_id = s.id AND p.review_state = 'accepted' AND p.result <> 'unsure' ORDER BY p.palpated_on DESC, p.created_at DESC LIMIT 1
       ) pl ON true
       WHERE s.coop_id = $1 AND s.farm_id = $2 AND s.doe_id = $3 AND s.deleted_at IS NULL
       ORDER BY s.serviced_on DESC, s.created_at DESC`, [actor.coopId, farmId, doeId]);

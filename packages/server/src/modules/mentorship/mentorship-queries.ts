@@ -65,6 +65,9 @@ export interface ChoreRow {
   litter_event_kind: 'lost' | 'culled' | 'weaned' | null;
   litter_event_count: number | null;
   litter_event_version: number | null;
+  palpation_id: string | null;
+  palpation_service_id: string | null;
+  palpation_result: 'positive' | 'negative' | 'unsure' | null;
   review_state: ReviewState;
   review_comment: string | null;
   reviewed_by: string | null;
@@ -79,6 +82,7 @@ const choreColumns = `c.id, c.coop_id, c.farm_id, c.apprentice_id, u.name AS app
   c.group_id, g.name AS group_label, c.notes,
   c.weigh_in_id, w.total_grams AS weigh_in_grams, w.head_count AS weigh_in_heads, w.version AS weigh_in_version,
   c.litter_event_id, e.kind AS litter_event_kind, e.kit_count AS litter_event_count, e.version AS litter_event_version,
+  c.palpation_id, p.service_id AS palpation_service_id, p.result AS palpation_result,
   c.review_state, c.review_comment, c.reviewed_by, r.name AS reviewer_name, c.submitted_at, c.version
   FROM chore_entries c
   JOIN users u ON u.id = c.apprentice_id
@@ -88,7 +92,8 @@ const choreColumns = `c.id, c.coop_id, c.farm_id, c.apprentice_id, u.name AS app
   LEFT JOIN animals d ON d.id = l.dam_id
   LEFT JOIN grow_out_groups g ON g.id = c.group_id
   LEFT JOIN weigh_ins w ON w.id = c.weigh_in_id
-  LEFT JOIN litter_events e ON e.id = c.litter_event_id`;
+  LEFT JOIN litter_events e ON e.id = c.litter_event_id
+  LEFT JOIN palpations p ON p.id = c.palpation_id`;
 
 export function choresWhere(tx: Transaction, where: string, bind: unknown[], tail = 'ORDER BY c.done_on DESC, c.submitted_at DESC, c.id'): Promise<ChoreRow[]> {
   return select<ChoreRow>(tx, `SELECT ${choreColumns} WHERE c.deleted_at IS NULL AND ${where} ${tail}`, bind);
@@ -115,13 +120,19 @@ export interface QueueRow {
 /**
  * Everything the given apprentices sent that waits for review, oldest first: their chore entries, and the
  * weigh-ins, notes, litter counts and task ticks they entered elsewhere (those a chore entry carries are
- * reviewed with the entry, so they are not listed twice).
+ * reviewed with the entry, so they are not listed twice). A palpation chore is listed as the palpation.
  */
 export function pendingOf(tx: Transaction, coopId: string, apprenticeIds: string[], filter: { kind?: ReviewItemKind; id?: string } = {}): Promise<QueueRow[]> {
   const parts: Record<ReviewItemKind, string> = {
     chore: `SELECT 'chore' AS kind, c.id, c.apprentice_id, c.farm_id, c.submitted_at, c.done_on::text AS on, c.kind AS title,
         concat(c.minutes, ' min', CASE WHEN c.notes <> '' THEN concat(' · ', left(c.notes, 120)) ELSE '' END) AS detail, c.version
-      FROM chore_entries c WHERE c.coop_id = $1 AND c.apprentice_id = ANY($2::uuid[]) AND c.review_state = 'pending' AND c.deleted_at IS NULL`,
+      FROM chore_entries c WHERE c.coop_id = $1 AND c.apprentice_id = ANY($2::uuid[]) AND c.review_state = 'pending' AND c.deleted_at IS NULL
+        AND c.palpation_id IS NULL`,
+    palpation: `SELECT 'palpation', p.id, c.apprentice_id, c.farm_id, c.submitted_at, p.palpated_on::text, 'Palpation',
+        concat(concat_ws(' ', d.tattoo, nullif(d.name, '')), ': ', CASE p.result WHEN 'negative' THEN 'empty (negative)' WHEN 'unsure' THEN 'not sure' ELSE 'kits felt (positive)' END,
+          ', served ', s.serviced_on::text), p.version
+      FROM chore_entries c JOIN palpations p ON p.id = c.palpation_id JOIN services s ON s.id = p.service_id LEFT JOIN animals d ON d.id = s.doe_id
+      WHERE c.coop_id = $1 AND c.apprentice_id = ANY($2::uuid[]) AND c.review_state = 'pending' AND c.deleted_at IS NULL AND p.review_state = 'pending'`,
     'weigh-in': `SELECT 'weigh-in', w.id, w.entered_by, w.farm_id, w.created_at, w.weighed_on::text, 'Weigh-in',
         concat(coalesce(CASE WHEN a.id IS NULL THEN NULL ELSE concat_ws(' ', a.tattoo, nullif(a.name, '')) END, g.name, w.group_label), ': ', w.total_grams, ' g', CASE WHEN w.head_count > 1 THEN concat(' for ', w.head_count, ' head') ELSE '' END), w.version
       FROM weigh_ins w LEFT JOIN animals a ON a.id = w.animal_id LEFT JOIN grow_out_groups g ON g.id = w.group_id

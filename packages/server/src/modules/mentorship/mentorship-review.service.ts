@@ -10,14 +10,15 @@ import { publish } from '../../lib/realtime';
 import type { SessionUser } from '../../lib/session-user';
 import { recordChanges } from '../audit/audit.service';
 import { reviewAnimalNoteIn, reviewWeighInIn, weighInFactsOf } from '../animals/weigh-ins.service';
+import { reviewPalpationIn } from '../almanac/breeding.service';
 import { reviewTaskIn } from '../almanac/tasks.service';
 import { reviewLitterEventIn } from '../litters/litters.service';
 import { notify } from '../notifications/notifications.service';
 import { announceMentorship, presentChores } from './mentorship.service';
-import { apprenticesOf, choreById, choresWhere, pendingOf, personOf, run, type QueueRow } from './mentorship-queries';
+import { apprenticesOf, choreById, choresWhere, pendingOf, personOf, run, select, type ChoreRow, type QueueRow } from './mentorship-queries';
 import { kindLabel, settingsOf } from './mentorship-settings';
 
-const kindNames: Record<ReviewItemKind, string> = { chore: 'chore entry', 'weigh-in': 'weigh-in', note: 'note', 'litter-event': 'litter count', task: 'task tick' };
+const kindNames: Record<ReviewItemKind, string> = { chore: 'chore entry', palpation: 'palpation', 'weigh-in': 'weigh-in', note: 'note', 'litter-event': 'litter count', task: 'task tick' };
 
 function refuseApprentice(actor: SessionUser) {
   if (actor.role === 'apprentice') throw new AppError(ErrorCode.forbidden, 403, 'Your mentor reviews your work');
@@ -35,8 +36,12 @@ export async function reviewQueue(actor: SessionUser, q: ReviewQueueQuery): Prom
     const ids = apprentices.map((a) => a.id).filter((id) => !q.apprenticeId || id === q.apprenticeId);
     const rows = ids.length > 0 ? await pendingOf(tx, actor.coopId, ids, { kind: q.kind }) : [];
     const settings = await settingsOf(tx, actor.coopId);
-    const choreRows = await choresWhere(tx, 'c.coop_id = $1 AND c.id = ANY($2::uuid[])', [actor.coopId, rows.filter((r) => r.kind === 'chore').map((r) => r.id)], '');
-    const chores = new Map((await presentChores(tx, actor.coopId, choreRows, settings)).map((c) => [c.id, c]));
+    const choreRows = await choresWhere(
+      tx, 'c.coop_id = $1 AND (c.id = ANY($2::uuid[]) OR c.palpation_id = ANY($3::uuid[]))',
+      [actor.coopId, rows.filter((r) => r.kind === 'chore').map((r) => r.id), rows.filter((r) => r.kind === 'palpation').map((r) => r.id)], '',
+    );
+    const presented = await presentChores(tx, actor.coopId, choreRows, settings);
+    const chores = new Map([...presented.map((c) => [c.id, c] as const), ...presented.filter((c) => c.palpation).map((c) => [c.palpation!.palpationId, c] as const)]);
     const names = new Map(apprentices.map((a) => [a.id, a.name]));
     const items: ReviewItemDto[] = rows.map((r) => ({
       kind: r.kind,
@@ -65,7 +70,7 @@ interface Decided {
 
 /**
  * Decides one item inside the transaction: the actor must be the apprentice's mentor. A chore entry's
- * weight or litter count is decided with it, so an accepted figure counts from this commit on.
+ * weight, litter count or palpation is decided with it, so an accepted figure counts from this commit on.
  */
 async function decideIn(tx: Transaction, actor: SessionUser, kind: ReviewItemKind, id: string, input: ReviewDecisionInput): Promise<Decided> {
   const [row] = await pendingAnyOf(tx, actor, kind, id);
@@ -84,25 +89,13 @@ async function decideIn(tx: Transaction, actor: SessionUser, kind: ReviewItemKin
   if (kind === 'chore') {
     const entry = (await choreById(tx, actor.coopId, id, true))!;
     if (entry.review_state !== 'pending') throw new AppError(ErrorCode.conflict, 409, 'That entry was already reviewed');
-    if (entry.weigh_in_id) {
-      const w = (await weighInFactsOf(tx, actor.coopId, [entry.weigh_in_id])).get(entry.weigh_in_id);
-      if (w?.reviewState === 'pending') await reviewWeighInIn(tx, actor, entry.weigh_in_id, { ...decision, version: w.version });
-      if (w?.groupId) {
-        const farmId = entry.farm_id;
-        tx.afterCommit(() => publish(rooms.farm(farmId), RealtimeEvent.growOutChanged, { farmId, groupId: w.groupId }));
-      }
-    }
-    if (entry.litter_event_id && entry.litter_event_version !== null) {
-      await reviewLitterEventIn(tx, actor, entry.litter_event_id, { ...decision, version: entry.litter_event_version });
-    }
-    await run(
-      tx,
-      `UPDATE chore_entries SET review_state = $3, reviewed_by = $4, reviewed_at = now(), review_comment = $5, version = version + 1, updated_at = now()
-        WHERE id = $1 AND coop_id = $2`,
-      [id, actor.coopId, input.decision, actor.id, input.comment || null],
-    );
-    await recordChanges({ coopId: actor.coopId, tableName: 'chore_entries', recordId: id, actorUserId: actor.id, changes: { reviewState: ['pending', input.decision] } }, tx);
+    await decideChoreIn(tx, actor, entry, input);
     title = kindLabel(await settingsOf(tx, actor.coopId), entry.kind);
+  } else if (kind === 'palpation') {
+    const [carrier] = await select<{ id: string }>(tx, 'SELECT id FROM chore_entries WHERE coop_id = $1 AND palpation_id = $2', [actor.coopId, id]);
+    const entry = (await choreById(tx, actor.coopId, carrier!.id, true))!;
+    if (entry.review_state !== 'pending') throw new AppError(ErrorCode.conflict, 409, 'That palpation was already reviewed');
+    await decideChoreIn(tx, actor, entry, input);
   } else if (kind === 'weigh-in') {
     const w = (await weighInFactsOf(tx, actor.coopId, [id])).get(id);
     await reviewWeighInIn(tx, actor, id, { ...decision, version: row.version });
@@ -121,13 +114,41 @@ async function decideIn(tx: Transaction, actor: SessionUser, kind: ReviewItemKin
   return { row, apprenticeId: apprentice.id, title };
 }
 
+/**
+ * A chore entry decided with the figure it carries (weight, litter count, palpation): accepted, the figure
+ * counts from this commit on; returned, it stays out and the apprentice corrects the entry.
+ */
+async function decideChoreIn(tx: Transaction, actor: SessionUser, entry: ChoreRow, input: ReviewDecisionInput) {
+  const decision = { decision: input.decision, comment: input.comment || undefined };
+  if (entry.weigh_in_id) {
+    const w = (await weighInFactsOf(tx, actor.coopId, [entry.weigh_in_id])).get(entry.weigh_in_id);
+    if (w?.reviewState === 'pending') await reviewWeighInIn(tx, actor, entry.weigh_in_id, { ...decision, version: w.version });
+    if (w?.groupId) {
+      const farmId = entry.farm_id;
+      tx.afterCommit(() => publish(rooms.farm(farmId), RealtimeEvent.growOutChanged, { farmId, groupId: w.groupId }));
+    }
+  }
+  if (entry.litter_event_id && entry.litter_event_version !== null) {
+    await reviewLitterEventIn(tx, actor, entry.litter_event_id, { ...decision, version: entry.litter_event_version });
+  }
+  if (entry.palpation_id) await reviewPalpationIn(tx, actor, entry.palpation_id, decision);
+  await run(
+    tx,
+    `UPDATE chore_entries SET review_state = $3, reviewed_by = $4, reviewed_at = now(), review_comment = $5, version = version + 1, updated_at = now()
+      WHERE id = $1 AND coop_id = $2`,
+    [entry.id, actor.coopId, input.decision, actor.id, input.comment || null],
+  );
+  await recordChanges({ coopId: actor.coopId, tableName: 'chore_entries', recordId: entry.id, actorUserId: actor.id, changes: { reviewState: ['pending', input.decision] } }, tx);
+}
+
 /** The pending item among all the co-op's apprentices' (whoever's it is; `decideIn` checks the mentor). */
 async function pendingAnyOf(tx: Transaction, actor: SessionUser, kind: ReviewItemKind, id: string): Promise<QueueRow[]> {
   const everyone = (await apprenticesOf(tx, actor.coopId, null)).map((a) => a.id);
   const rows = await pendingOf(tx, actor.coopId, everyone, { kind, id });
-  if (rows.length > 0 || kind !== 'chore') return rows;
-  // A chore entry already decided is a conflict, not a stranger.
-  const entry = await choreById(tx, actor.coopId, id);
+  if (rows.length > 0 || (kind !== 'chore' && kind !== 'palpation')) return rows;
+  // A chore entry (or the palpation it carries) already decided is a conflict, not a stranger.
+  const [carrier] = kind === 'palpation' ? await select<{ id: string }>(tx, 'SELECT id FROM chore_entries WHERE coop_id = $1 AND palpation_id = $2', [actor.coopId, id]) : [{ id }];
+  const entry = carrier ? await choreById(tx, actor.coopId, carrier.id) : null;
   if (entry && entry.review_state !== 'pending' && everyone.includes(entry.apprentice_id)) {
     const record = { coopId: actor.coopId, farmId: entry.farm_id, authorId: entry.apprentice_id, mentorId: entry.mentor_id };
     if (defineAbilityFor(actor).can('review', subjectOf('ChoreLog', record))) throw new AppError(ErrorCode.conflict, 409, 'That entry was already reviewed');

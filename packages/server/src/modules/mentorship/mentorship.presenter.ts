@@ -18,6 +18,9 @@ export function presentChore(row: ChoreRow, settings: Settings, photos: Map<stri
     notes: row.notes,
     weighing: row.weigh_in_id && row.weigh_in_grams !== null ? { weighInId: row.weigh_in_id, totalGrams: row.weigh_in_grams, headCount: row.weigh_in_heads ?? 1 } : null,
     litterCount: row.litter_event_id && row.litter_event_kind ? { litterEventId: row.litter_event_id, kind: row.litter_event_kind, count: row.litter_event_count ?? 0 } : null,
+    palpation: row.palpation_id && row.palpation_result && row.palpation_service_id
+      ? { palpationId: row.palpation_id, serviceId: row.palpation_service_id, result: row.palpation_result }
+      : null,
     photos: photoDtos,
     reviewState: row.review_state,
     reviewComment: row.review_comment,

@@ -12,6 +12,7 @@ import { publish } from '../../lib/realtime';
 import type { SessionUser } from '../../lib/session-user';
 import { animalAccess } from '../animals/animal-facts.service';
 import { createWeighInIn } from '../animals/weigh-ins.service';
+import { recordPendingPalpationIn } from '../almanac/breeding.service';
 import { ensureCan } from '../farms/farm-access';
 import { farmTodayOf } from '../farms/farm-clock';
 import { groupOfFarm } from '../grow-out/grow-out-facts.service';
@@ -65,10 +66,11 @@ async function checkTargets(tx: Transaction, actor: SessionUser, farmId: string,
 /** Writes the figure a chore carries into its own record (pending review); answers the record's ids. */
 async function recordFigures(
   tx: Transaction, actor: SessionUser, target: { animalId?: string | null; litterId?: string | null; groupId?: string | null }, doneOn: string, notes: string,
-  input: Pick<ChoreEntryInput, 'weighing' | 'litterCount'>,
-): Promise<{ weighInId: string | null; litterEventId: string | null }> {
+  input: Pick<ChoreEntryInput, 'weighing' | 'litterCount' | 'palpation'>,
+): Promise<{ weighInId: string | null; litterEventId: string | null; palpationId: string | null }> {
   let weighInId: string | null = null;
   let litterEventId: string | null = null;
+  let palpationId: string | null = null;
   const note = notes.slice(0, 500);
   if (input.weighing && target.animalId) {
     weighInId = randomUUID();
@@ -85,7 +87,12 @@ async function recordFigures(
   } else if (input.litterCount) {
     throw AppError.validation({ litterCount: ['Choose the litter'] });
   }
-  return { weighInId, litterEventId };
+  if (input.palpation && target.animalId) {
+    palpationId = await recordPendingPalpationIn(tx, actor, { farmId: actor.farmId!, doeId: target.animalId, palpatedOn: doneOn, result: input.palpation.result, notes: note });
+  } else if (input.palpation) {
+    throw AppError.validation({ palpation: ['Choose the doe you palpated'] });
+  }
+  return { weighInId, litterEventId, palpationId };
 }
 
 async function tellMentor(tx: Transaction, actor: SessionUser, entry: { id: string; kind: string; version: number; doneOn: string }, settings: Settings, again: boolean) {
@@ -109,8 +116,8 @@ async function tellMentor(tx: Transaction, actor: SessionUser, entry: { id: stri
 
 /**
  * The apprentice logs a chore on her mentor's farm: dated the farm's today unless she says, about the
- * mentor's animal, litter or group; a weight or a litter count goes into its own record, pending like the
- * entry, so it counts only once the mentor accepts it. The mentor is told.
+ * mentor's animal, litter or group; a weight, a litter count or a palpation goes into its own record, pending
+ * like the entry, so it counts only once the mentor accepts it. The mentor is told.
  */
 export async function logChore(actor: SessionUser, input: ChoreEntryInput): Promise<ChoreEntryDto> {
   const farmId = apprenticeFarmOf(actor);
@@ -132,10 +139,10 @@ export async function logChore(actor: SessionUser, input: ChoreEntryInput): Prom
     const id = input.id ?? randomUUID();
     await run(
       tx,
-      `INSERT INTO chore_entries (id, coop_id, farm_id, apprentice_id, kind, done_on, minutes, animal_id, litter_id, group_id, notes, weigh_in_id, litter_event_id, review_state)
-       VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10, $11, $12, $13, 'pending')`,
+      `INSERT INTO chore_entries (id, coop_id, farm_id, apprentice_id, kind, done_on, minutes, animal_id, litter_id, group_id, notes, weigh_in_id, litter_event_id, palpation_id, review_state)
+       VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9, $10, $11, $12, $13, $14, 'pending')`,
       [id, actor.coopId, farmId, actor.id, input.kind, doneOn, input.minutes, input.animalId ?? null, input.litterId ?? null, input.groupId ?? null, input.notes,
-        figures.weighInId, figures.litterEventId],
+        figures.weighInId, figures.litterEventId, figures.palpationId],
     );
     await tellMentor(tx, actor, { id, kind: input.kind, version: 0, doneOn }, settings, false);
     return (await presentChores(tx, actor.coopId, [(await choreById(tx, actor.coopId, id))!], settings))[0]!;
@@ -158,16 +165,17 @@ export async function resubmitChore(actor: SessionUser, choreId: string, input: 
     if (input.doneOn > today) throw AppError.validation({ doneOn: ['A chore cannot be dated after today on the farm'] });
     if (entry.weigh_in_id && !input.weighing) throw AppError.validation({ weighing: ['Enter the corrected weight'] });
     if (entry.litter_event_id && !input.litterCount) throw AppError.validation({ litterCount: ['Enter the corrected count'] });
+    if (entry.palpation_id && !input.palpation) throw AppError.validation({ palpation: ['Enter the palpation again'] });
     const figures = await recordFigures(
       tx, actor, { animalId: entry.animal_id, litterId: entry.litter_id, groupId: entry.group_id }, input.doneOn, input.notes,
-      { weighing: input.weighing, litterCount: input.litterCount },
+      { weighing: input.weighing, litterCount: input.litterCount, palpation: input.palpation },
     );
     await run(
       tx,
       `UPDATE chore_entries SET done_on = $3, minutes = $4, notes = $5, weigh_in_id = coalesce($6, weigh_in_id), litter_event_id = coalesce($7, litter_event_id),
-         review_state = 'pending', submitted_at = now(), version = version + 1, updated_at = now()
+         palpation_id = coalesce($8, palpation_id), review_state = 'pending', submitted_at = now(), version = version + 1, updated_at = now()
        WHERE id = $1 AND coop_id = $2`,
-      [choreId, actor.coopId, input.doneOn, input.minutes, input.notes, figures.weighInId, figures.litterEventId],
+      [choreId, actor.coopId, input.doneOn, input.minutes, input.notes, figures.weighInId, figures.litterEventId, figures.palpationId],
     );
     const settings = await settingsOf(tx, actor.coopId);
     await tellMentor(tx, actor, { id: choreId, kind: entry.kind, version: entry.version + 1, doneOn: input.doneOn }, settings, true);

@@ -10,6 +10,7 @@ import { useUpdateTask } from '../api/update-task';
 import { formatDate, formatWeekdayDay } from '../../../lib/days';
 import { errorText } from '../../../lib/form-errors';
 import type { ServerMutateOptions } from '../../../lib/use-server-submit';
+import { useMyApprentices } from '../../mentorship';
 import { useAlmanacRights } from '../hooks/use-almanac-rights';
 import { isOpen, taskStatus } from '../task-labels';
 import { TaskActionForm } from './task-action-form';
@@ -34,6 +35,7 @@ function sourceLink(task: AlmanacTaskDto): { to: string; label: string } | null 
 /** One task: tick it done, or (members) move it to another day or skip it with a reason. */
 export function TaskItem({ task, selected, onSelect, showDate = false, showSource = true }: TaskItemProps) {
   const rights = useAlmanacRights();
+  const myApprentices = useMyApprentices();
   const update = useUpdateTask();
   const review = useReviewTask();
   const [more, setMore] = useState(false);
@@ -104,7 +106,7 @@ export function TaskItem({ task, selected, onSelect, showDate = false, showSourc
               <RotateCcw className="size-5" aria-hidden="true" />
             </Button>
           )}
-          {task.completionReview === 'pending' && rights.canReview && (
+          {task.completionReview === 'pending' && rights.canReview && myApprentices.includes(task.doneBy?.id) && (
             <>
               <Button variant="secondary" className="px-3" isBusy={review.isPending} onClick={() => review.mutate({ taskId: task.id, input: { decision: 'accepted', version: task.version } })}>
                 Accept

@@ -5,6 +5,7 @@ import { Button } from '../../../components/ui/button';
 import { animalName } from '../../../lib/names';
 import { formatDate } from '../../../lib/days';
 import { errorText } from '../../../lib/form-errors';
+import { useMyApprentices } from '../../mentorship';
 import { useReviewLitterEvent } from '../api/review-litter-event';
 
 /** A loss names its cause from the list, then the breeder's words when they say more. */
@@ -28,9 +29,10 @@ function other(e: LitterEventDto): string | null {
   return `${e.kind === 'fostered_in' ? 'from' : 'to'} ${dam}${e.otherLitter.isOwnFarm ? '' : ` at ${e.otherLitter.farm.name}`}`;
 }
 
-/** Every dated change of the kit count, with who entered it and (an apprentice's) its review. */
+/** Every dated change of the kit count, with who entered it and (an apprentice's, for her mentor) its review. */
 export function LitterEventsList({ litter, canReview, unit }: { litter: LitterDto; canReview: boolean; unit: WeightUnit }) {
   const review = useReviewLitterEvent();
+  const myApprentices = useMyApprentices();
   if (litter.events.length === 0) return <p className="text-grey-600">No changes since the kindling.</p>;
   return (
     <>
@@ -56,7 +58,7 @@ export function LitterEventsList({ litter, canReview, unit }: { litter: LitterDt
               <span className="flex flex-wrap items-center gap-2">
                 {e.reviewState === 'pending' && <Badge tone="straw">Unverified · waiting for review</Badge>}
                 {e.reviewState === 'returned' && <Badge tone="clay">Returned{e.reviewComment ? `: ${e.reviewComment}` : ''}</Badge>}
-                {e.reviewState === 'pending' && canReview && (
+                {e.reviewState === 'pending' && canReview && myApprentices.includes(e.enteredBy?.id) && (
                   <>
                     <Button variant="secondary" className="px-3" onClick={() => review.mutate({ eventId: e.id, input: { decision: 'accepted', version: e.version } })}>
                       Accept

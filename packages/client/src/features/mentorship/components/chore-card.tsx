@@ -9,6 +9,8 @@ const stateBadge = {
   returned: <Badge tone="clay">Returned</Badge>,
 } as const;
 
+export const palpationLabels = { positive: 'kits felt (positive)', negative: 'empty (negative)', unsure: 'not sure' } as const;
+
 export const hoursText = (minutes: number) => `${(minutes / 60).toFixed(1)} h`;
 
 /** One chore entry as a card: what, when, how long, about what, the figure it carries, its photos and review. */
@@ -36,6 +38,12 @@ export function ChoreCard({ entry, showApprentice = false, children }: { entry: 
       {entry.litterCount && (
         <p className="font-semibold text-bark">
           {entry.litterCount.count} kit{entry.litterCount.count === 1 ? '' : 's'} {entry.litterCount.kind}
+          {entry.reviewState !== 'accepted' && <span className="font-normal text-grey-600"> (unverified until accepted)</span>}
+        </p>
+      )}
+      {entry.palpation && (
+        <p className="font-semibold text-bark">
+          Palpation: {palpationLabels[entry.palpation.result]}
           {entry.reviewState !== 'accepted' && <span className="font-normal text-grey-600"> (unverified until accepted)</span>}
         </p>
       )}

@@ -27,7 +27,15 @@ interface Values {
   litterKind: '' | 'lost' | 'culled' | 'weaned';
   litterCount: string;
   cause: string;
+  /** A palpation's result: it goes on the doe's open service once the mentor accepts it. */
+  palpation: '' | 'positive' | 'negative' | 'unsure';
 }
+
+const palpationChoices = [
+  { value: 'positive', label: 'Kits felt' },
+  { value: 'negative', label: 'Empty' },
+  { value: 'unsure', label: 'Not sure' },
+] as const;
 
 const quickMinutes = ['10', '15', '30', '60'];
 const whole = (v: string) => (v.trim() === '' ? undefined : Number(v));
@@ -70,14 +78,16 @@ export function LogChoreForm({ kinds, today, choices, onLogged }: { kinds: Chore
         notes: v.notes,
         weighing: v.major.trim() || v.minor.trim() ? { totalGrams: weightInputToGrams(v.major, v.minor, unit) ?? NaN, headCount: whole(v.heads) ?? 1 } : undefined,
         litterCount: v.litterKind ? { kind: v.litterKind, count: whole(v.litterCount), cause: v.cause || undefined } : undefined,
+        palpation: v.kind === 'palpation' && v.palpation ? { result: v.palpation } : undefined,
       } as ChoreEntryInput;
     }, (path) => {
       if (path.startsWith('weighing')) return 'major';
       if (path.startsWith('litterCount')) return 'litterCount';
+      if (path.startsWith('palpation')) return 'palpation';
       if (path === 'animalId' || path === 'litterId' || path === 'groupId') return 'target';
       return (['kind', 'minutes', 'doneOn', 'notes'] as const).find((f) => f === path) ?? null;
     }),
-    defaultValues: { kind: '', minutes: '15', doneOn: today, target: '', notes: '', major: '', minor: '', heads: '1', litterKind: '', litterCount: '', cause: '' },
+    defaultValues: { kind: '', minutes: '15', doneOn: today, target: '', notes: '', major: '', minor: '', heads: '1', litterKind: '', litterCount: '', cause: '', palpation: '' },
   });
   // The photos travel beside the body: the entry is created first, then they are uploaded to it.
   const withPhotos = { mutate: (body: ChoreEntryInput, opts?: Parameters<typeof log.mutate>[1]) => log.mutate({ ...body, photos }, opts), reset: log.reset, error: log.error };
@@ -85,9 +95,9 @@ export function LogChoreForm({ kinds, today, choices, onLogged }: { kinds: Chore
     form,
     withPhotos,
     {
-      fields: ['kind', 'minutes', 'doneOn', 'target', 'notes', 'major', 'litterCount'],
+      fields: ['kind', 'minutes', 'doneOn', 'target', 'notes', 'major', 'litterCount', 'palpation'],
       onSuccess: () => {
-        form.reset({ ...form.getValues(), kind: '', notes: '', major: '', minor: '', litterKind: '', litterCount: '', cause: '', target: '' });
+        form.reset({ ...form.getValues(), kind: '', notes: '', major: '', minor: '', litterKind: '', litterCount: '', cause: '', target: '', palpation: '' });
         setPhotos([]);
         onLogged?.();
       },
@@ -98,6 +108,8 @@ export function LogChoreForm({ kinds, today, choices, onLogged }: { kinds: Chore
   const target = form.watch('target');
   const litterKind = form.watch('litterKind');
   const weighs = kind === 'weighing';
+  const palpates = kind === 'palpation';
+  const palpation = form.watch('palpation');
   const counts = kind === 'weaning' || kind === 'nest-box-check' || litterKind !== '';
   const dangerous = kind === 'processing-station';
   const targetOptions = [
@@ -134,7 +146,7 @@ export function LogChoreForm({ kinds, today, choices, onLogged }: { kinds: Chore
 
       {dangerous && <Alert tone="warning" title="Processing stations">{dangerousSkillCaution}</Alert>}
 
-      <details className="space-y-4 rounded-xl border border-grey-200 p-4" open={weighs || counts || Boolean(target)}>
+      <details className="space-y-4 rounded-xl border border-grey-200 p-4" open={weighs || counts || palpates || Boolean(target)}>
         <summary className="min-h-11 cursor-pointer py-2 font-semibold text-moss-deep">Animal, litter or group, weight, notes, photos</summary>
         <div className="grid gap-4 sm:grid-cols-2">
           <SelectField label="About" options={targetOptions} error={errors.target?.message} {...form.register('target')} />
@@ -164,6 +176,20 @@ export function LogChoreForm({ kinds, today, choices, onLogged }: { kinds: Chore
             </>
           )}
         </div>
+        {palpates && (
+          <fieldset className="space-y-2">
+            <legend className="font-semibold text-bark">What did you feel?</legend>
+            <p className="text-grey-700">Choose the doe above (one of your mentor&apos;s with an open service). It counts once your mentor accepts it.</p>
+            <div className="flex flex-wrap gap-2">
+              {palpationChoices.map((c) => (
+                <Chip key={c.value} active={palpation === c.value} onClick={() => form.setValue('palpation', palpation === c.value ? '' : c.value)}>
+                  {c.label}
+                </Chip>
+              ))}
+            </div>
+            {errors.palpation && <p className="font-semibold text-clay-deep" role="alert">{errors.palpation.message}</p>}
+          </fieldset>
+        )}
         <TextAreaField label="Notes" rows={3} error={errors.notes?.message} {...form.register('notes')} />
         <label className="block space-y-1">
           <span className="font-semibold text-bark">Photos</span>

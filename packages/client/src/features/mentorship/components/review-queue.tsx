@@ -14,7 +14,7 @@ import { useAcceptMany, useDecide } from '../api/mentorship-mutations';
 import { useReviewQueue } from '../api/mentorship-queries';
 import { ChoreCard } from './chore-card';
 
-const kindLabels: Record<ReviewItemKind, string> = { chore: 'Chore', 'weigh-in': 'Weigh-in', note: 'Note', 'litter-event': 'Litter count', task: 'Task tick' };
+const kindLabels: Record<ReviewItemKind, string> = { chore: 'Chore', palpation: 'Palpation', 'weigh-in': 'Weigh-in', note: 'Note', 'litter-event': 'Litter count', task: 'Task tick' };
 
 function ReturnForm({ item, onDone }: { item: ReviewItemDto; onDone: () => void }) {
   const decide = useDecide(item.kind, item.id);
