@@ -172,6 +172,36 @@ describe('offers and the sale', () => {
     expect((await saleTransfersOf(coop.id, offered.body.id))[0]!.status).toBe('posted');
   });
 
+  it('when an offer on grow-out heads is accepted, then the heads leave the group in the sale; more heads than the group has left are refused and nothing is written', async () => {
+    const { group } = await growingGroupAs(coop.member, { kindledDaysAgo: 60, heads: 6, name: 'Sale pen' });
+    const headsNow = async () => ((await seller.get('/api/grow-out/groups?status=all').expect(200)).body.groups as { id: string; currentHeads: number; status: string }[])
+      .find((g) => g.id === group.id)!;
+    const fryers = (headCount: number) => listAs(coop.member, { kind: 'grow_out', title: `${headCount} fryers`, groupId: group.id, headCount, readyOn: inDays(14), priceCents: 2_000 * headCount });
+    const four = await fryers(4);
+    const alsoFour = await fryers(4);
+    const firstOffer = await offerAs(coop.otherFarmMember, four.id, { priceCents: 8_000 });
+    const secondOffer = await offerAs(coop.otherFarmMember, alsoFour.id, { priceCents: 8_000 });
+    await seller.post(`/api/swap-board/offers/${firstOffer.id}/accept`).send({ version: firstOffer.version, key: randomUUID() }).expect(200);
+    expect(await headsNow()).toMatchObject({ currentHeads: 2, status: 'growing' });
+
+    const before = await swapCounts(coop.id);
+    const refused = await seller.post(`/api/swap-board/offers/${secondOffer.id}/accept`).send({ version: secondOffer.version, key: randomUUID() });
+    expect(refused.status).toBe(409);
+    expect(refused.body.error.message).toBe('Sale pen has 2 heads left; 4 cannot leave it');
+    expect(await swapCounts(coop.id)).toEqual(before);
+    expect(await headsNow()).toMatchObject({ currentHeads: 2 });
+    // Processing counts the sold heads too: 3 of the 2 left are refused.
+    const batch = await seller.post('/api/processing-records').send({ groupId: group.id, processedOn: farmToday(), headCount: 3, liveGrams: 7_000, hotCarcassGrams: 3_900 });
+    expect(batch.status).toBe(400);
+    expect(batch.body.error.details.headCount).toEqual(['Sale pen has 2 heads left; 3 cannot be processed from it']);
+
+    // The last two heads sold: the group is done growing.
+    const lastTwo = await fryers(2);
+    const lastOffer = await offerAs(coop.otherFarmMember, lastTwo.id, { priceCents: 4_000 });
+    await seller.post(`/api/swap-board/offers/${lastOffer.id}/accept`).send({ version: lastOffer.version, key: randomUUID() }).expect(200);
+    expect(await headsNow()).toMatchObject({ currentHeads: 0, status: 'closed' });
+  });
+
   it('when a trade is accepted, then both sides\' animals move in the one transaction, each with its arrival quarantine', async () => {
     const { doe, listing } = await listedDoe(coop.member, { priceMode: 'trade', priceCents: null, title: 'Trade for a buck' });
     const theirBuck = await stockOf(coop.otherFarmMember, { sex: 'buck', name: 'Elder' });

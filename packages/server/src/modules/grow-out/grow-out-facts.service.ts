@@ -8,6 +8,7 @@ import { projectionOf } from './grow-out.presenter';
 import { groupBy } from '../../lib/group-by';
 
 export { groupHeadsOn } from './grow-out.presenter';
+export { removedHeadsOfGroups } from './grow-out-context';
 
 /*
  * Grow-out's published reads for other modules (feed, health, processing, performance), inside the

@@ -10,6 +10,7 @@ import { moveAnimalInTransaction } from '../animals/custody-moves.service';
 import { authorize, farmOf, hasMessages, mergeMessages, type FieldMessages } from '../farms/farm-access';
 import { farmTodayIn } from '../farms/farm-clock';
 import { farmDirectoryOf } from '../farms/farms.service';
+import { removeHeadsIn } from '../grow-out/grow-out.service';
 import { postPending, postTransfer, voidPending } from '../ledger/ledger.service';
 import { swapContextFor } from './swap-board-context';
 import { presentOffer, sideOf } from './swap-board.presenter';
@@ -219,6 +220,13 @@ export async function acceptOffer(actor: SessionUser, offerId: string, input: Sw
       throw AppError.conflict('Some animals can no longer change hands (sold elsewhere, treated, lent or in quarantine); nothing was moved', gone);
     }
 
+    // Grow-out heads leave their group in this transaction: refused (409) when the group has fewer left.
+    if (listing.kind === 'grow_out' && listing.group_id && listing.head_count) {
+      await removeHeadsIn(tx, actor, {
+        farmId: listing.farm_id, groupId: listing.group_id, removedOn: today, headCount: listing.head_count,
+        reason: `Sold on the Swap Board: ${listing.title}`, sourceType: 'swap_offer', sourceId: offer.id,
+      });
+    }
     await rows(
       tx,
       `UPDATE swap_offers SET state = 'accepted', accepted_on = $2, accept_key = $3, version = version + 1, updated_at = now() WHERE id = $1`,
