@@ -7,6 +7,7 @@ import { asTenant } from '../support/db';
 import { createTestCoop, TEST_PASSWORD, type TestCoop } from '../support/factories';
 import { growingGroupAs, treatmentAs } from '../support/health-yield';
 import { addAnimalAs, catalogueBreeds } from '../support/herd';
+import { binaryParser, pdfText } from '../support/herd-files';
 import { deliveredMailsTo, queuedMailTo } from '../support/mail';
 import { doeOf, offeredBuck, requestAs, acceptAs, custodyStep, thirdFarmMember } from '../support/stud-share';
 import {
@@ -211,6 +212,30 @@ describe('offers and the sale', () => {
     expect(await custodyOf(coop.id, theirBuck.id)).toMatchObject({ owning_farm_id: coop.member.farmId, keeping_farm_id: coop.member.farmId, breeding_farm_id: coop.otherFarmMember.farmId });
     expect(await quarantinesOf(coop.id, theirBuck.id)).toEqual([{ farm_id: coop.member.farmId, window_start: farmToday(), due_on: inDays(30) }]);
     expect(await saleTransfersOf(coop.id, offer.id)).toEqual([]);
+  });
+
+  it('when a doe is sold, then both farms download her pedigree certificate (the seller after she left), a third farm does not, and the seller still cannot open her record', async () => {
+    const sire = await addAnimalAs(coop.member, { sex: 'buck', name: 'Cobnut', birthDate: '2022-02-01' });
+    const { doe, listing } = await listedDoe(coop.member, { title: 'Sorrel, junior doe' }, { name: 'Sorrel', sireId: sire.id });
+    const offer = await offerAs(coop.otherFarmMember, listing.id, { priceCents: 5_000 });
+    await seller.post(`/api/swap-board/offers/${offer.id}/accept`).send({ version: offer.version, key: randomUUID() }).expect(200);
+    const sellerFarm = coop.farms.find((f) => f.id === coop.member.farmId)!.name;
+    const buyerFarm = coop.farms.find((f) => f.id === coop.otherFarmMember.farmId)!.name;
+    for (const agent of [seller, buyer, apprentice]) {
+      const res = await agent.get(`/api/pedigree-certificates/${doe.id}`).buffer(true).parse(binaryParser).expect(200);
+      expect(res.headers['content-type']).toBe('application/pdf');
+      const { text } = await pdfText(res.body as Buffer);
+      expect(text).toContain('Pedigree certificate');
+      expect(text).toContain('Sorrel');
+      expect(text).toContain(`Ear tattoo ${doe.tattoo}`);
+      expect(text).toContain('Cobnut');
+      expect(text).toContain(sellerFarm);
+      expect(text).toMatch(new RegExp(`Issued by ${buyerFarm}`));
+    }
+    expect((await seller.get(`/api/animals/${doe.id}`)).status).toBe(403);
+    const third = await thirdFarmMember(coop);
+    const outsider = await signedInAgent(third.email, TEST_PASSWORD, handle);
+    expect((await outsider.get(`/api/pedigree-certificates/${doe.id}`)).status).toBe(404);
   });
 
   it('when the hand-over fails, then the pending sale is voided and the animal goes back to the seller', async () => {

@@ -15,6 +15,7 @@ import { PageSpinner } from '../../components/ui/spinner';
 import { ChatThread } from '../../features/chat';
 import { useFarmToday } from '../../features/farms';
 import { pedigreeQueryOptions, PedigreeTree } from '../../features/herd';
+import { PedigreePdfLink } from '../../features/herd-files/components/download-links';
 import { useListingStep } from '../../features/swap-board/api/swap-actions';
 import { listingPageQueryOptions, useListingPage } from '../../features/swap-board/api/get-swap-board';
 import { AnimalFigures, priceText } from '../../features/swap-board/components/listing-card';
@@ -44,11 +45,12 @@ function Section({ title, children }: { title: string; children: ReactNode }) {
 }
 
 /** One listed animal: the figures a buyer reads first, and its pedigree picture (three generations). */
-function ListedAnimal({ animal }: { animal: SwapAnimalDto }) {
+function ListedAnimal({ animal, papers }: { animal: SwapAnimalDto; papers: boolean }) {
   const tree = useQuery(pedigreeQueryOptions(animal.card.id, 3));
   return (
     <Section title={animalName(animal.card)}>
       <AnimalFigures animal={animal} />
+      {papers && <PedigreePdfLink animalId={animal.card.id} />}
       <h3 className="pt-2 font-bold">Pedigree</h3>
       <div data-testid="pedigree-picture" className="min-w-0">
         {tree.data ? <PedigreeTree tree={tree.data} /> : tree.isError ? <Alert tone="error">{errorText(tree.error)}</Alert> : <p className="text-grey-600">Reading the pedigree…</p>}
@@ -81,6 +83,8 @@ export function ListingPage() {
   const page = useListingPage(listingId);
   if (!page.data) return page.isError ? <Alert tone="error">{errorText(page.error)}</Alert> : <PageSpinner />;
   const { listing, offers } = page.data;
+  // Both farms of the sale keep each animal's pedigree certificate, the seller after the animal left.
+  const papers = listing.state === 'sold' && (listing.mine || offers.some((o) => o.side === 'buyer' && ['accepted', 'collected'].includes(o.state)));
   return (
     <div className="space-y-6">
       <PageTitle>{listing.title}</PageTitle>
@@ -121,7 +125,7 @@ export function ListingPage() {
       )}
       <div className={`grid grid-cols-1 gap-6 [&>*]:min-w-0 ${listing.animals.length > 1 ? '2xl:grid-cols-2' : ''}`}>
         {listing.animals.map((a) => (
-          <ListedAnimal key={a.card.id} animal={a} />
+          <ListedAnimal key={a.card.id} animal={a} papers={papers} />
         ))}
       </div>
       {offers.length > 0 && (

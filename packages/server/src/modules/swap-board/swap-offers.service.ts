@@ -254,7 +254,7 @@ export async function acceptOffer(actor: SessionUser, offerId: string, input: Sw
       coopId: actor.coopId, farmIds: [other], kind: 'swap.answered', key: `swap-accepted:${offer.id}`,
       title: `${actor.name} accepts ${terms} for “${listing.title}”`, link: listingLink(listing.id),
       text: 'The animals are now in the buyer\'s herd with their pedigree, and their arrival quarantine is on the Almanac. '
-        + 'Each animal\'s pedigree certificate is on its page. The buyer confirms the collection on the listing; the sale is then posted to the Ledger.',
+        + 'Both farms download each animal\'s pedigree certificate from the sold listing. The buyer confirms the collection on the listing; the sale is then posted to the Ledger.',
     });
     return answer(tx, actor, offer.id);
   });
