@@ -7,7 +7,7 @@ import { asTenant } from '../support/db';
 import { createTestCoop, TEST_PASSWORD, type TestCoop } from '../support/factories';
 import { growingGroupAs, treatmentAs } from '../support/health-yield';
 import { addAnimalAs, catalogueBreeds } from '../support/herd';
-import { binaryParser, pdfText } from '../support/herd-files';
+import { binaryParser, pdfText, testImage } from '../support/herd-files';
 import { deliveredMailsTo, queuedMailTo } from '../support/mail';
 import { doeOf, offeredBuck, requestAs, acceptAs, custodyStep, thirdFarmMember } from '../support/stud-share';
 import {
@@ -109,6 +109,71 @@ describe('listing', () => {
     expect(cheap.body.items.map((l: SwapListingDto) => l.id)).not.toContain(unrelated.id);
     expect((await buyer.get('/api/swap-board/listings?maxCoi=0.1').expect(400)).body.error.details.mateWith).toBeDefined();
     expect((await buyer.get(`/api/swap-board/listings?mateWith=${sharedSire.id}`).expect(400)).body.error.details.mateWith[0]).toMatch(/your farm's animals/);
+  });
+});
+
+describe('editing a listing', () => {
+  it('when the seller edits an open listing, then its title, notes, price, terms, last day and photos change and the version moves on; a stale version is refused', async () => {
+    const { doe, listing } = await listedDoe(coop.member, { title: 'Willow, junior doe' });
+    const upload = await seller.post(`/api/animals/${doe.id}/photos`)
+      .attach('photos', await testImage('jpeg', { width: 40, height: 40 }), { filename: 'willow.jpg', contentType: 'image/jpeg' })
+      .attach('photos', await testImage('png', { width: 40, height: 40 }), { filename: 'willow-side.png', contentType: 'image/png' })
+      .expect(201);
+    const photoIds = (upload.body.photos as { id: string }[]).map((p) => p.id);
+    const body = {
+      version: listing.version, title: 'Willow, junior doe, price lowered', description: 'Now weaned her first litter.', priceMode: 'price',
+      priceCents: 5_500, collectPlace: 'Feed store car park, Fridays', validUntil: inDays(40), photoIds: [photoIds[1], photoIds[0]],
+    };
+    const edited = await seller.patch(`/api/swap-board/listings/${listing.id}`).send(body).expect(200);
+    expect(edited.body).toMatchObject({
+      title: 'Willow, junior doe, price lowered', description: 'Now weaned her first litter.', priceCents: 5_500, collectPlace: 'Feed store car park, Fridays',
+      validUntil: inDays(40), photoIds: [photoIds[1], photoIds[0]], version: listing.version + 1, state: 'open',
+    });
+    expect((await buyer.get(`/api/swap-board/listings/${listing.id}`).expect(200)).body.listing).toMatchObject({ title: 'Willow, junior doe, price lowered', priceCents: 5_500 });
+
+    const before = await swapCounts(coop.id);
+    const stale = await seller.patch(`/api/swap-board/listings/${listing.id}`).send({ ...body, title: 'Second editor' });
+    expect(stale.status).toBe(409);
+    expect(await swapCounts(coop.id)).toEqual(before);
+    // A photo of another animal, or a day past the longest listing, is refused field by field.
+    const other = await stockOf(coop.member);
+    const otherPhoto = await seller.post(`/api/animals/${other.id}/photos`)
+      .attach('photos', await testImage('jpeg', { width: 40, height: 40 }), { filename: 'other.jpg', contentType: 'image/jpeg' }).expect(201);
+    const beforeRefusal = await swapCounts(coop.id);
+    const refused = await seller.patch(`/api/swap-board/listings/${listing.id}`)
+      .send({ ...body, version: edited.body.version, photoIds: [otherPhoto.body.photos[0].id], validUntil: inDays(200) });
+    expect(refused.status).toBe(400);
+    expect(refused.body.error.details).toEqual({ 'photoIds.0': ['Pick a photo your farm took of a listed animal'], validUntil: ['Keep a listing up 120 days at most; list it again later'] });
+    expect(await swapCounts(coop.id)).toEqual(beforeRefusal);
+  });
+
+  it('when another farm, an apprentice or a late editor tries to edit, then a draft does not exist for another farm (404), an open listing is refused (403), and one under offer or sold is refused (409)', async () => {
+    const draft = await listAs(coop.member, { animalIds: [(await stockOf(coop.member)).id], publish: false, title: 'Draft doe' });
+    const terms = (version: number) => ({ version, title: 'Changed by someone', priceMode: 'offers', validUntil: inDays(10) });
+    const { listing } = await listedDoe(coop.member, { title: 'Open doe' });
+    const before = await swapCounts(coop.id);
+    expect((await buyer.patch(`/api/swap-board/listings/${draft.id}`).send(terms(draft.version))).status).toBe(404);
+    expect((await buyer.patch(`/api/swap-board/listings/${listing.id}`).send(terms(listing.version))).status).toBe(403);
+    expect((await apprentice.patch(`/api/swap-board/listings/${listing.id}`).send(terms(listing.version))).status).toBe(403);
+    expect(await swapCounts(coop.id)).toEqual(before);
+
+    const offer = await offerAs(coop.otherFarmMember, listing.id, { priceCents: 5_000 });
+    const underOffer = (await seller.get(`/api/swap-board/listings/${listing.id}`).expect(200)).body.listing as SwapListingDto;
+    const busy = await seller.patch(`/api/swap-board/listings/${listing.id}`).send(terms(underOffer.version));
+    expect(busy.status).toBe(409);
+    expect(busy.body.error.message).toMatch(/Offers are open on this listing/);
+    await seller.post(`/api/swap-board/offers/${offer.id}/accept`).send({ version: offer.version, key: randomUUID() }).expect(200);
+    const sold = (await seller.get(`/api/swap-board/listings/${listing.id}`).expect(200)).body.listing as SwapListingDto;
+    const late = await seller.patch(`/api/swap-board/listings/${listing.id}`).send(terms(sold.version));
+    expect(late.status).toBe(409);
+    expect(late.body.error.message).toBe('This listing is sold; it can no longer be changed');
+    expect((await seller.get(`/api/swap-board/listings/${listing.id}`).expect(200)).body.listing).toMatchObject({ title: 'Open doe', version: sold.version });
+  });
+
+  it('when the seller edits a draft, then it stays a draft with the new terms', async () => {
+    const draft = await listAs(coop.member, { animalIds: [(await stockOf(coop.member)).id], publish: false, title: 'Quiet draft' });
+    const edited = await seller.patch(`/api/swap-board/listings/${draft.id}`).send({ version: draft.version, title: 'Quiet draft, for trade', priceMode: 'trade', validUntil: inDays(15) }).expect(200);
+    expect(edited.body).toMatchObject({ state: 'draft', title: 'Quiet draft, for trade', priceMode: 'trade', priceCents: null, validUntil: inDays(15) });
   });
 });
 
