@@ -1,12 +1,11 @@
-import { Op, QueryTypes, type Transaction } from 'sequelize';
+import { Op, type Transaction } from 'sequelize';
 import { crossLabel, groupBirthDate } from '@burrowline/shared';
 import { animalFactsOf } from '../animals/animal-facts.service';
 import { groupWeighInsOf } from '../animals/group-weigh-ins.service';
 import { breedMapOf } from '../breeds/breeds.service';
 import { litterFactsOf, type LitterFacts } from '../litters/litter-facts.service';
-import { GrowOutGroup, GrowOutGroupLitter } from './grow-out-group.model';
+import { GrowOutGroup, GrowOutGroupLitter, type HeadsSold } from './grow-out-group.model';
 import { port } from '../../lib/port';
-import { database } from '../../db/sequelize';
 import { headsLeftOn, type GroupInfo } from './grow-out.presenter';
 
 /**
@@ -32,14 +31,9 @@ export interface ProcessedHeads {
   headCount: number;
 }
 
-/** Heads that left these groups alive (sold through the Swap Board), by day: they count like processed heads. */
-export async function removedHeadsOfGroups(tx: Transaction, coopId: string, groupIds: string[]): Promise<ProcessedHeads[]> {
-  if (groupIds.length === 0) return [];
-  const found = await database().query<{ group_id: string; removed_on: string; head_count: number }>(
-    'SELECT group_id, removed_on::text, head_count FROM grow_out_group_removals WHERE coop_id = $1 AND group_id = ANY($2::uuid[])',
-    { bind: [coopId, groupIds], type: QueryTypes.SELECT, transaction: tx },
-  );
-  return found.map((r) => ({ groupId: r.group_id, processedOn: r.removed_on, headCount: r.head_count }));
+/** The heads sold alive from a group, as processing's batches count. */
+export function soldHeadsOf(group: { id: string; headsSold?: HeadsSold[] | null }): ProcessedHeads[] {
+  return (group.headsSold ?? []).map((s) => ({ groupId: group.id, processedOn: s.soldOn, headCount: s.headCount }));
 }
 
 /** Heads of a group on a date (none before it was formed or after it closed). */
@@ -56,9 +50,7 @@ export async function contextOf(tx: Transaction, coopId: string, groups: GrowOut
   const parents = await animalFactsOf(tx, coopId, [...litters.values()].flatMap((l) => [l.damId, l.sireId]));
   const breeds = await breedMapOf(coopId, tx);
   const weighIns = await groupWeighInsOf(tx, coopId, groups.map((g) => g.id));
-  const processed = groups.length > 0
-    ? [...await processedHeadsOfGroups(tx, coopId, groups.map((g) => g.id)), ...await removedHeadsOfGroups(tx, coopId, groups.map((g) => g.id))]
-    : [];
+  const processed = groups.length > 0 ? await processedHeadsOfGroups(tx, coopId, groups.map((g) => g.id)) : [];
   const crossOf = (l: LitterFacts) => crossLabel(parents.get(l.sireId)?.lineBreedName, parents.get(l.damId)?.lineBreedName);
   const cache = new Map<string, GroupInfo>();
   const info = (group: GrowOutGroup): GroupInfo => {
@@ -75,7 +67,8 @@ export async function contextOf(tx: Transaction, coopId: string, groups: GrowOut
       birthDate: own.length > 0 ? groupBirthDate(own.map((m) => ({ kindledOn: m.litter.kindledOn, heads: m.heads }))) : group.formedOn,
       sizeClass, cross: main ? crossOf(main.litter) : crossLabel(null, null),
       accepted: all.filter((w) => w.reviewState === 'accepted'), all,
-      processed: processed.filter((p) => p.groupId === group.id).sort((a, b) => a.processedOn.localeCompare(b.processedOn)),
+      // Heads sold alive leave the group as processed ones do.
+      processed: [...processed.filter((p) => p.groupId === group.id), ...soldHeadsOf(group)].sort((a, b) => a.processedOn.localeCompare(b.processedOn)),
     };
     cache.set(group.id, result);
     return result;

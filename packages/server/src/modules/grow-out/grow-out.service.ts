@@ -297,29 +297,26 @@ async function closeEmptied(tx: Transaction, group: GrowOutGroup, closedOn: stri
 /**
  * Takes heads out of a growing group alive (a sale through the Swap Board), in the caller's transaction;
  * they count against the group like processed heads, and the group closes once emptied. Refused (409)
- * when the group is closed or has fewer heads on the day. One removal per source (the database refuses a second).
+ * when the group is closed or has fewer heads on the day. The same source again takes none.
  */
-export async function removeHeadsIn(
+export async function sellHeadsIn(
   tx: Transaction,
   actor: SessionUser,
-  input: { farmId: string; groupId: string; removedOn: string; headCount: number; reason: string; sourceType: string; sourceId: string },
+  input: { farmId: string; groupId: string; soldOn: string; headCount: number; sourceId: string },
 ): Promise<void> {
   // Processing takes a group's heads under the same lock: a sale and a batch never both take the last heads.
   await lockUntilCommit(tx, `processing:${input.farmId}`);
   const group = await GrowOutGroup.findOne({ where: { id: input.groupId, coopId: actor.coopId, farmId: input.farmId }, transaction: tx, lock: tx.LOCK.UPDATE });
   if (!group) throw AppError.conflict('That grow-out group is no longer on the farm');
-  const info = (await contextOf(tx, actor.coopId, [group])).info(group);
+  if (group.headsSold.some((s) => s.sourceId === input.sourceId)) return;
   if (group.status === 'closed') throw AppError.conflict(`${group.name} was closed on ${group.closedOn}; its heads can no longer be sold`);
-  const left = headsLeftOn(info, input.removedOn);
+  const left = headsLeftOn((await contextOf(tx, actor.coopId, [group])).info(group), input.soldOn);
   if (input.headCount > left) {
     throw AppError.conflict(`${group.name} has ${countOf(left, 'head')} left; ${input.headCount} cannot leave it`, { headCount: [`${group.name} has ${countOf(left, 'head')} left`] });
   }
-  await GrowOutGroup.sequelize!.query(
-    `INSERT INTO grow_out_group_removals (coop_id, farm_id, group_id, removed_on, head_count, reason, source_type, source_id, created_by)
-     VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9)`,
-    { bind: [actor.coopId, input.farmId, group.id, input.removedOn, input.headCount, input.reason, input.sourceType, input.sourceId, actor.id], transaction: tx },
-  );
-  if (left === input.headCount) await closeEmptied(tx, group, input.removedOn);
+  group.headsSold = [...group.headsSold, { soldOn: input.soldOn, headCount: input.headCount, sourceId: input.sourceId }];
+  await group.save({ transaction: tx });
+  if (left === input.headCount) await closeEmptied(tx, group, input.soldOn);
   announce(tx, group.farmId, group.id);
 }
 

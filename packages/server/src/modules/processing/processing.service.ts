@@ -19,7 +19,7 @@ import { recordChanges } from '../audit/audit.service';
 import { animalFactsOf, type AnimalFacts } from '../animals/animal-facts.service';
 import { applyStatusEvent } from '../animals/animal-status.service';
 import { closeEmptiedGroupIn } from '../grow-out/grow-out.service';
-import { groupHeadsOn, growOutFactsOfFarm, removedHeadsOfGroups, type GrowOutFacts } from '../grow-out/grow-out-facts.service';
+import { groupHeadsOn, growOutFactsOfFarm, type GrowOutFacts } from '../grow-out/grow-out-facts.service';
 import { namesOf } from '../users/users.service';
 import { presentProcessingMark, presentProcessingRecord, type ProcessingPresentContext } from './processing.presenter';
 import { ProcessingMark, ProcessingRecord } from './processing-record.model';
@@ -75,10 +75,10 @@ function birthOfGroup(group: GrowOutFacts): string | null {
  * Heads a group has left on a date: the head count of its latest accepted weigh-in by then (or the
  * heads it was formed with), less the heads processed since that weigh-in (on its day or after).
  */
-function headsLeft(group: GrowOutFacts, processed: ProcessingFacts[], on: string, sold: { groupId: string; processedOn: string; headCount: number }[] = []): number {
+function headsLeft(group: GrowOutFacts, processed: ProcessingFacts[], on: string): number {
   const formedHeads = group.litters.reduce((n, l) => n + l.heads, 0);
   // Every batch counts, even one dated after `on`: those heads are gone already (so do heads sold alive).
-  const batches = [...processed, ...sold].filter((p) => p.groupId === group.id).map((p) => ({ processedOn: p.processedOn < on ? p.processedOn : on, headCount: p.headCount }));
+  const batches = [...processed, ...group.sold].filter((p) => p.groupId === group.id).map((p) => ({ processedOn: p.processedOn < on ? p.processedOn : on, headCount: p.headCount }));
   return groupHeadsOn({ formedHeads, weighIns: group.weighIns, processed: batches }, on);
 }
 
@@ -167,7 +167,7 @@ export async function recordProcessingIn(tx: Transaction, actor: SessionUser, in
   const processed = await processingFactsOfFarm(tx, actor.coopId, farmId);
   let headsLeftAfter: number | null = null;
   if (subject.group) {
-    const left = headsLeft(subject.group, processed, input.processedOn, await removedHeadsOfGroups(tx, actor.coopId, [subject.group.id]));
+    const left = headsLeft(subject.group, processed, input.processedOn);
     headsLeftAfter = left - input.headCount;
     if (input.headCount > left) addMessage(errors, 'headCount', `${subject.group.name} has ${left} head${left === 1 ? '' : 's'} left; ${input.headCount} cannot be processed from it`);
   }

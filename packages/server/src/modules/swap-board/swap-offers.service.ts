@@ -10,7 +10,7 @@ import { moveAnimalInTransaction } from '../animals/custody-moves.service';
 import { authorize, farmOf, hasMessages, mergeMessages, type FieldMessages } from '../farms/farm-access';
 import { farmTodayIn } from '../farms/farm-clock';
 import { farmDirectoryOf } from '../farms/farms.service';
-import { removeHeadsIn } from '../grow-out/grow-out.service';
+import { sellHeadsIn } from '../grow-out/grow-out.service';
 import { postPending, postTransfer, voidPending } from '../ledger/ledger.service';
 import { swapContextFor } from './swap-board-context';
 import { presentOffer, sideOf } from './swap-board.presenter';
@@ -222,10 +222,7 @@ export async function acceptOffer(actor: SessionUser, offerId: string, input: Sw
 
     // Grow-out heads leave their group in this transaction: refused (409) when the group has fewer left.
     if (listing.kind === 'grow_out' && listing.group_id && listing.head_count) {
-      await removeHeadsIn(tx, actor, {
-        farmId: listing.farm_id, groupId: listing.group_id, removedOn: today, headCount: listing.head_count,
-        reason: `Sold on the Swap Board: ${listing.title}`, sourceType: 'swap_offer', sourceId: offer.id,
-      });
+      await sellHeadsIn(tx, actor, { farmId: listing.farm_id, groupId: listing.group_id, soldOn: today, headCount: listing.head_count, sourceId: offer.id });
     }
     await rows(
       tx,
