@@ -188,6 +188,7 @@ export type Body =
   | 'swapOffer'
   | 'swapListingVersion'
   | 'swapListingReason'
+  | 'swapListingEdit'
   | 'swapCounter'
   | 'swapAccept'
   | 'swapOfferVersion'
@@ -447,6 +448,9 @@ export const authorizationMatrix: MatrixRow[] = [
   { method: 'POST', path: '/api/swap-board/listings', target: 'none', body: 'swapWanted', expect: { anonymous: 401, apprentice: 403, member: 201, otherFarmMember: 201, admin: 201, otherCoop: 201 } },
   { method: 'GET', path: '/api/swap-board/listings/:swapListingId', target: 'swapOfferedA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 404 } },
   { method: 'GET', path: '/api/swap-board/listings/:swapListingId', target: 'swapDraftA', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'PATCH', path: '/api/swap-board/listings/:swapListingId', target: 'swapDraftA', body: 'swapListingEdit', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
+  { method: 'PATCH', path: '/api/swap-board/listings/:swapListingId', target: 'swapOpenA', body: 'swapListingEdit', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
+  { method: 'PATCH', path: '/api/swap-board/listings/:swapListingId', target: 'swapOfferedA', body: 'swapListingEdit', expect: { anonymous: 401, apprentice: 403, member: 409, otherFarmMember: 403, admin: 409, otherCoop: 404 } },
   { method: 'POST', path: '/api/swap-board/listings/:swapListingId/publish', target: 'swapDraftA', body: 'swapListingVersion', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 404, admin: 200, otherCoop: 404 } },
   { method: 'POST', path: '/api/swap-board/listings/:swapListingId/withdraw', target: 'swapOfferedA', body: 'swapListingReason', expect: { anonymous: 401, apprentice: 403, member: 200, otherFarmMember: 403, admin: 200, otherCoop: 404 } },
   { method: 'GET', path: '/api/swap-board/offers', target: 'none', expect: { anonymous: 401, apprentice: 200, member: 200, otherFarmMember: 200, admin: 200, otherCoop: 200 } },

@@ -7,6 +7,7 @@ import { asTenant } from '../support/db';
 import { createTestCoop, TEST_PASSWORD, type TestCoop } from '../support/factories';
 import { growingGroupAs, treatmentAs } from '../support/health-yield';
 import { addAnimalAs, catalogueBreeds } from '../support/herd';
+import { binaryParser, pdfText, testImage } from '../support/herd-files';
 import { deliveredMailsTo, queuedMailTo } from '../support/mail';
 import { doeOf, offeredBuck, requestAs, acceptAs, custodyStep, thirdFarmMember } from '../support/stud-share';
 import {
@@ -111,6 +112,71 @@ describe('listing', () => {
   });
 });
 
+describe('editing a listing', () => {
+  it('when the seller edits an open listing, then its title, notes, price, terms, last day and photos change and the version moves on; a stale version is refused', async () => {
+    const { doe, listing } = await listedDoe(coop.member, { title: 'Willow, junior doe' });
+    const upload = await seller.post(`/api/animals/${doe.id}/photos`)
+      .attach('photos', await testImage('jpeg', { width: 40, height: 40 }), { filename: 'willow.jpg', contentType: 'image/jpeg' })
+      .attach('photos', await testImage('png', { width: 40, height: 40 }), { filename: 'willow-side.png', contentType: 'image/png' })
+      .expect(201);
+    const photoIds = (upload.body.photos as { id: string }[]).map((p) => p.id);
+    const body = {
+      version: listing.version, title: 'Willow, junior doe, price lowered', description: 'Now weaned her first litter.', priceMode: 'price',
+      priceCents: 5_500, collectPlace: 'Feed store car park, Fridays', validUntil: inDays(40), photoIds: [photoIds[1], photoIds[0]],
+    };
+    const edited = await seller.patch(`/api/swap-board/listings/${listing.id}`).send(body).expect(200);
+    expect(edited.body).toMatchObject({
+      title: 'Willow, junior doe, price lowered', description: 'Now weaned her first litter.', priceCents: 5_500, collectPlace: 'Feed store car park, Fridays',
+      validUntil: inDays(40), photoIds: [photoIds[1], photoIds[0]], version: listing.version + 1, state: 'open',
+    });
+    expect((await buyer.get(`/api/swap-board/listings/${listing.id}`).expect(200)).body.listing).toMatchObject({ title: 'Willow, junior doe, price lowered', priceCents: 5_500 });
+
+    const before = await swapCounts(coop.id);
+    const stale = await seller.patch(`/api/swap-board/listings/${listing.id}`).send({ ...body, title: 'Second editor' });
+    expect(stale.status).toBe(409);
+    expect(await swapCounts(coop.id)).toEqual(before);
+    // A photo of another animal, or a day past the longest listing, is refused field by field.
+    const other = await stockOf(coop.member);
+    const otherPhoto = await seller.post(`/api/animals/${other.id}/photos`)
+      .attach('photos', await testImage('jpeg', { width: 40, height: 40 }), { filename: 'other.jpg', contentType: 'image/jpeg' }).expect(201);
+    const beforeRefusal = await swapCounts(coop.id);
+    const refused = await seller.patch(`/api/swap-board/listings/${listing.id}`)
+      .send({ ...body, version: edited.body.version, photoIds: [otherPhoto.body.photos[0].id], validUntil: inDays(200) });
+    expect(refused.status).toBe(400);
+    expect(refused.body.error.details).toEqual({ 'photoIds.0': ['Pick a photo your farm took of a listed animal'], validUntil: ['Keep a listing up 120 days at most; list it again later'] });
+    expect(await swapCounts(coop.id)).toEqual(beforeRefusal);
+  });
+
+  it('when another farm, an apprentice or a late editor tries to edit, then a draft does not exist for another farm (404), an open listing is refused (403), and one under offer or sold is refused (409)', async () => {
+    const draft = await listAs(coop.member, { animalIds: [(await stockOf(coop.member)).id], publish: false, title: 'Draft doe' });
+    const terms = (version: number) => ({ version, title: 'Changed by someone', priceMode: 'offers', validUntil: inDays(10) });
+    const { listing } = await listedDoe(coop.member, { title: 'Open doe' });
+    const before = await swapCounts(coop.id);
+    expect((await buyer.patch(`/api/swap-board/listings/${draft.id}`).send(terms(draft.version))).status).toBe(404);
+    expect((await buyer.patch(`/api/swap-board/listings/${listing.id}`).send(terms(listing.version))).status).toBe(403);
+    expect((await apprentice.patch(`/api/swap-board/listings/${listing.id}`).send(terms(listing.version))).status).toBe(403);
+    expect(await swapCounts(coop.id)).toEqual(before);
+
+    const offer = await offerAs(coop.otherFarmMember, listing.id, { priceCents: 5_000 });
+    const underOffer = (await seller.get(`/api/swap-board/listings/${listing.id}`).expect(200)).body.listing as SwapListingDto;
+    const busy = await seller.patch(`/api/swap-board/listings/${listing.id}`).send(terms(underOffer.version));
+    expect(busy.status).toBe(409);
+    expect(busy.body.error.message).toMatch(/Offers are open on this listing/);
+    await seller.post(`/api/swap-board/offers/${offer.id}/accept`).send({ version: offer.version, key: randomUUID() }).expect(200);
+    const sold = (await seller.get(`/api/swap-board/listings/${listing.id}`).expect(200)).body.listing as SwapListingDto;
+    const late = await seller.patch(`/api/swap-board/listings/${listing.id}`).send(terms(sold.version));
+    expect(late.status).toBe(409);
+    expect(late.body.error.message).toBe('This listing is sold; it can no longer be changed');
+    expect((await seller.get(`/api/swap-board/listings/${listing.id}`).expect(200)).body.listing).toMatchObject({ title: 'Open doe', version: sold.version });
+  });
+
+  it('when the seller edits a draft, then it stays a draft with the new terms', async () => {
+    const draft = await listAs(coop.member, { animalIds: [(await stockOf(coop.member)).id], publish: false, title: 'Quiet draft' });
+    const edited = await seller.patch(`/api/swap-board/listings/${draft.id}`).send({ version: draft.version, title: 'Quiet draft, for trade', priceMode: 'trade', validUntil: inDays(15) }).expect(200);
+    expect(edited.body).toMatchObject({ state: 'draft', title: 'Quiet draft, for trade', priceMode: 'trade', priceCents: null, validUntil: inDays(15) });
+  });
+});
+
 describe('offers and the sale', () => {
   it('when offers and counter-offers go both ways and the seller accepts, then the doe arrives at the buyer with her pedigree, weights and photos but not the seller\'s notes, quarantined, with the sale pending until collection', async () => {
     const sire = await addAnimalAs(coop.member, { sex: 'buck', name: 'Hazel', birthDate: '2022-01-01' });
@@ -172,6 +238,36 @@ describe('offers and the sale', () => {
     expect((await saleTransfersOf(coop.id, offered.body.id))[0]!.status).toBe('posted');
   });
 
+  it('when an offer on grow-out heads is accepted, then the heads leave the group in the sale; more heads than the group has left are refused and nothing is written', async () => {
+    const { group } = await growingGroupAs(coop.member, { kindledDaysAgo: 60, heads: 6, name: 'Sale pen' });
+    const headsNow = async () => ((await seller.get('/api/grow-out/groups?status=all').expect(200)).body.groups as { id: string; currentHeads: number; status: string }[])
+      .find((g) => g.id === group.id)!;
+    const fryers = (headCount: number) => listAs(coop.member, { kind: 'grow_out', title: `${headCount} fryers`, groupId: group.id, headCount, readyOn: inDays(14), priceCents: 2_000 * headCount });
+    const four = await fryers(4);
+    const alsoFour = await fryers(4);
+    const firstOffer = await offerAs(coop.otherFarmMember, four.id, { priceCents: 8_000 });
+    const secondOffer = await offerAs(coop.otherFarmMember, alsoFour.id, { priceCents: 8_000 });
+    await seller.post(`/api/swap-board/offers/${firstOffer.id}/accept`).send({ version: firstOffer.version, key: randomUUID() }).expect(200);
+    expect(await headsNow()).toMatchObject({ currentHeads: 2, status: 'growing' });
+
+    const before = await swapCounts(coop.id);
+    const refused = await seller.post(`/api/swap-board/offers/${secondOffer.id}/accept`).send({ version: secondOffer.version, key: randomUUID() });
+    expect(refused.status).toBe(409);
+    expect(refused.body.error.message).toBe('Sale pen has 2 heads left; 4 cannot leave it');
+    expect(await swapCounts(coop.id)).toEqual(before);
+    expect(await headsNow()).toMatchObject({ currentHeads: 2 });
+    // Processing counts the sold heads too: 3 of the 2 left are refused.
+    const batch = await seller.post('/api/processing-records').send({ groupId: group.id, processedOn: farmToday(), headCount: 3, liveGrams: 7_000, hotCarcassGrams: 3_900 });
+    expect(batch.status).toBe(400);
+    expect(batch.body.error.details.headCount).toEqual(['Sale pen has 2 heads left; 3 cannot be processed from it']);
+
+    // The last two heads sold: the group is done growing.
+    const lastTwo = await fryers(2);
+    const lastOffer = await offerAs(coop.otherFarmMember, lastTwo.id, { priceCents: 4_000 });
+    await seller.post(`/api/swap-board/offers/${lastOffer.id}/accept`).send({ version: lastOffer.version, key: randomUUID() }).expect(200);
+    expect(await headsNow()).toMatchObject({ currentHeads: 0, status: 'closed' });
+  });
+
   it('when a trade is accepted, then both sides\' animals move in the one transaction, each with its arrival quarantine', async () => {
     const { doe, listing } = await listedDoe(coop.member, { priceMode: 'trade', priceCents: null, title: 'Trade for a buck' });
     const theirBuck = await stockOf(coop.otherFarmMember, { sex: 'buck', name: 'Elder' });
@@ -181,6 +277,30 @@ describe('offers and the sale', () => {
     expect(await custodyOf(coop.id, theirBuck.id)).toMatchObject({ owning_farm_id: coop.member.farmId, keeping_farm_id: coop.member.farmId, breeding_farm_id: coop.otherFarmMember.farmId });
     expect(await quarantinesOf(coop.id, theirBuck.id)).toEqual([{ farm_id: coop.member.farmId, window_start: farmToday(), due_on: inDays(30) }]);
     expect(await saleTransfersOf(coop.id, offer.id)).toEqual([]);
+  });
+
+  it('when a doe is sold, then both farms download her pedigree certificate (the seller after she left), a third farm does not, and the seller still cannot open her record', async () => {
+    const sire = await addAnimalAs(coop.member, { sex: 'buck', name: 'Cobnut', birthDate: '2022-02-01' });
+    const { doe, listing } = await listedDoe(coop.member, { title: 'Sorrel, junior doe' }, { name: 'Sorrel', sireId: sire.id });
+    const offer = await offerAs(coop.otherFarmMember, listing.id, { priceCents: 5_000 });
+    await seller.post(`/api/swap-board/offers/${offer.id}/accept`).send({ version: offer.version, key: randomUUID() }).expect(200);
+    const sellerFarm = coop.farms.find((f) => f.id === coop.member.farmId)!.name;
+    const buyerFarm = coop.farms.find((f) => f.id === coop.otherFarmMember.farmId)!.name;
+    for (const agent of [seller, buyer, apprentice]) {
+      const res = await agent.get(`/api/pedigree-certificates/${doe.id}`).buffer(true).parse(binaryParser).expect(200);
+      expect(res.headers['content-type']).toBe('application/pdf');
+      const { text } = await pdfText(res.body as Buffer);
+      expect(text).toContain('Pedigree certificate');
+      expect(text).toContain('Sorrel');
+      expect(text).toContain(`Ear tattoo ${doe.tattoo}`);
+      expect(text).toContain('Cobnut');
+      expect(text).toContain(sellerFarm);
+      expect(text).toMatch(new RegExp(`Issued by ${buyerFarm}`));
+    }
+    expect((await seller.get(`/api/animals/${doe.id}`)).status).toBe(403);
+    const third = await thirdFarmMember(coop);
+    const outsider = await signedInAgent(third.email, TEST_PASSWORD, handle);
+    expect((await outsider.get(`/api/pedigree-certificates/${doe.id}`)).status).toBe(404);
   });
 
   it('when the hand-over fails, then the pending sale is voided and the animal goes back to the seller', async () => {

@@ -1,8 +1,10 @@
 import { describe, expect, it } from 'vitest';
+import { CSRF_HEADER } from '@burrowline/shared';
 import { browserTestApp, collectPageErrors, openBrowser, sidewaysScroll } from '../support/browser';
 import { asTenant } from '../support/db';
 import { createTestCoop, TEST_PASSWORD } from '../support/factories';
 import { addAnimalAs } from '../support/herd';
+import { testImage } from '../support/herd-files';
 
 const app = browserTestApp(TEST_PASSWORD);
 // Live updates arrive over the socket; give each a little room on a busy machine.
@@ -36,6 +38,21 @@ describe('Swap Board: a doe changes hands between two farms', () => {
       const listingUrl = him.page.url();
       await him.page.getByRole('heading', { name: 'Marigold, junior doe', level: 1 }).waitFor();
 
+      // 1b. He adds a photo of her to the herd, then edits the listing: a photo picked among hers and a new place to collect.
+      const uploaded = await him.page.request.post(`${app.url}/api/animals/${doe.id}/photos`, {
+        headers: { [CSRF_HEADER]: '1' },
+        multipart: { photos: { name: 'marigold.jpg', mimeType: 'image/jpeg', buffer: await testImage('jpeg', { width: 80, height: 60 }) } },
+      });
+      expect(uploaded.status()).toBe(201);
+      await him.page.reload();
+      await him.page.getByRole('button', { name: 'Edit the listing' }).click();
+      const editor = him.page.getByRole('form', { name: 'Edit the listing' });
+      await editor.getByRole('list', { name: 'Photos to show' }).getByRole('checkbox').check();
+      await editor.getByLabel('Where to collect (optional)').fill('Farm gate, Saturdays');
+      await editor.getByRole('button', { name: 'Save the changes' }).click();
+      await him.page.getByRole('img', { name: 'Photo 1 of Marigold, junior doe' }).waitFor();
+      await him.page.getByText('Collect at Farm gate, Saturdays').waitFor();
+
       // 2. She finds the card on the board, opens it, sees the pedigree picture and offers $60.
       await her.page.goto(`${app.url}/swap-board`);
       const card = her.page.getByTestId('listing-card').filter({ hasText: 'Marigold, junior doe' });
@@ -61,6 +78,15 @@ describe('Swap Board: a doe changes hands between two farms', () => {
       await her.page.getByTestId('offer-thread').getByText('Accepted, awaiting collection').waitFor(LIVE);
       await her.page.getByRole('button', { name: 'We collected them' }).click();
       await her.page.getByTestId('offer-thread').getByText('Collected').waitFor();
+
+      // 4b. He sold her, yet keeps her pedigree certificate from the sold listing.
+      await him.page.goto(listingUrl);
+      const papers = him.page.getByRole('link', { name: 'Pedigree PDF' });
+      await papers.waitFor();
+      expect(await papers.getAttribute('href')).toBe(`/api/pedigree-certificates/${doe.id}`);
+      const certificate = await him.page.request.get(`${app.url}/api/pedigree-certificates/${doe.id}`);
+      expect(certificate.status()).toBe(200);
+      expect(certificate.headers()['content-type']).toBe('application/pdf');
 
       // 5. Marigold is in her herd, and her pedigree picture still shows her sire and dam.
       await her.page.goto(`${app.url}/herd/${doe.id}`);

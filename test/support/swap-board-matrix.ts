@@ -8,10 +8,10 @@ import { actorOf } from './herd';
 import { inDays, listedDoe, offerAs } from './swap-board';
 
 /**
- * Swap Board targets of the matrix: a farm-A doe listed (a draft, or open with farm B's offer waiting for the
- * seller), and that offer accepted (waiting for the collection).
+ * Swap Board targets of the matrix: a farm-A doe listed (a draft, open with no offer, or open with farm B's
+ * offer waiting for the seller), and that offer accepted (waiting for the collection).
  */
-export const swapTargets = ['swapDraftA', 'swapOfferedA', 'swapAcceptedA'] as const;
+export const swapTargets = ['swapDraftA', 'swapOpenA', 'swapOfferedA', 'swapAcceptedA'] as const;
 export type SwapTarget = (typeof swapTargets)[number];
 
 export interface SwapIds {
@@ -26,7 +26,7 @@ export async function swapTarget(coop: TestCoop, target: string): Promise<SwapId
   if (!(swapTargets as readonly string[]).includes(target)) return {};
   connectDatabase(process.env.DATABASE_URL!);
   const { listing } = await listedDoe(coop.member, { publish: target !== 'swapDraftA', title: 'Matrix doe' });
-  if (target === 'swapDraftA') return { swapListingId: listing.id, swapListingVersion: listing.version };
+  if (target === 'swapDraftA' || target === 'swapOpenA') return { swapListingId: listing.id, swapListingVersion: listing.version };
   let offer = await offerAs(coop.otherFarmMember, listing.id, { priceCents: 2_500 });
   if (target === 'swapAcceptedA') offer = await acceptOffer(actorOf(coop.member), offer.id, swapAcceptSchema.parse({ version: offer.version, key: randomUUID() }));
   const [current] = (await asTenant(coop.id, (c) => c.query('SELECT version FROM swap_listings WHERE id = $1', [listing.id]))).rows;
@@ -41,6 +41,8 @@ export function swapBody(body: string | undefined, ids: SwapIds): object | undef
       return { listingId: ids.swapListingId, priceCents: 3_000, validUntil: inDays(5) };
     case 'swapListingVersion':
       return { version: ids.swapListingVersion };
+    case 'swapListingEdit':
+      return { version: ids.swapListingVersion, title: 'Matrix doe, price lowered', priceMode: 'price', priceCents: 5_000, validUntil: inDays(20) };
     case 'swapListingReason':
       return { version: ids.swapListingVersion, reason: 'Checked by the authorization matrix' };
     case 'swapCounter':

@@ -86,6 +86,29 @@ export const swapListingSchema = z
 export type SwapListingInput = z.infer<typeof swapListingSchema>;
 export type SwapListingBody = z.input<typeof swapListingSchema>;
 
+/**
+ * PATCH /api/swap-board/listings/:listingId: the seller edits a draft or open listing (what it offers
+ * stays: the animals, group and kind are listed anew). The version guards against a second editor.
+ */
+export const swapListingEditSchema = z
+  .strictObject({
+    version: z.number().int().min(0),
+    title: singleLine('The title', 3, 120),
+    description: multiLine(2000).default(''),
+    priceMode: z.enum(swapPriceModes, { error: 'Choose a price, trade or offers' }),
+    priceCents: cents.nullable().default(null),
+    collectPlace: singleLine('The place to collect', 0, 160).default(''),
+    validUntil: calendarDateSchema,
+    photoIds: z.array(recordId('A photo')).max(6, 'Pick at most 6 photos').default([]),
+  })
+  .superRefine((v, ctx) => {
+    if (v.priceMode === 'price' && v.priceCents === null) ctx.addIssue({ code: 'custom', path: ['priceCents'], message: 'Enter the price, or choose trade or offers' });
+    if (v.priceMode !== 'price' && v.priceCents !== null) ctx.addIssue({ code: 'custom', path: ['priceCents'], message: 'A price goes with "price" only' });
+    if (new Set(v.photoIds).size !== v.photoIds.length) ctx.addIssue({ code: 'custom', path: ['photoIds'], message: 'Pick each photo once' });
+  });
+export type SwapListingEditInput = z.infer<typeof swapListingEditSchema>;
+export type SwapListingEditBody = z.input<typeof swapListingEditSchema>;
+
 export const swapVersionSchema = z.strictObject({ version: z.number().int().min(0) });
 export type SwapVersionInput = z.infer<typeof swapVersionSchema>;
 

@@ -1,6 +1,6 @@
 import { useQuery } from '@tanstack/react-query';
 import { ArrowLeft } from 'lucide-react';
-import type { ReactNode } from 'react';
+import { useState, type ReactNode } from 'react';
 import type { LoaderFunctionArgs } from 'react-router-dom';
 import type { SwapAnimalDto } from '@burrowline/shared';
 import { queryClient } from '../../app/query-client';
@@ -15,9 +15,11 @@ import { PageSpinner } from '../../components/ui/spinner';
 import { ChatThread } from '../../features/chat';
 import { useFarmToday } from '../../features/farms';
 import { pedigreeQueryOptions, PedigreeTree } from '../../features/herd';
+import { PedigreePdfLink } from '../../features/herd-files/components/download-links';
 import { useListingStep } from '../../features/swap-board/api/swap-actions';
 import { listingPageQueryOptions, useListingPage } from '../../features/swap-board/api/get-swap-board';
 import { AnimalFigures, priceText } from '../../features/swap-board/components/listing-card';
+import { EditListingForm } from '../../features/swap-board/components/edit-listing-form';
 import { MeatCaution } from '../../features/swap-board/components/meat-caution';
 import { OfferForm } from '../../features/swap-board/components/offer-form';
 import { OfferThread } from '../../features/swap-board/components/offer-thread';
@@ -44,11 +46,12 @@ function Section({ title, children }: { title: string; children: ReactNode }) {
 }
 
 /** One listed animal: the figures a buyer reads first, and its pedigree picture (three generations). */
-function ListedAnimal({ animal }: { animal: SwapAnimalDto }) {
+function ListedAnimal({ animal, papers }: { animal: SwapAnimalDto; papers: boolean }) {
   const tree = useQuery(pedigreeQueryOptions(animal.card.id, 3));
   return (
     <Section title={animalName(animal.card)}>
       <AnimalFigures animal={animal} />
+      {papers && <PedigreePdfLink animalId={animal.card.id} />}
       <h3 className="pt-2 font-bold">Pedigree</h3>
       <div data-testid="pedigree-picture" className="min-w-0">
         {tree.data ? <PedigreeTree tree={tree.data} /> : tree.isError ? <Alert tone="error">{errorText(tree.error)}</Alert> : <p className="text-grey-600">Reading the pedigree…</p>}
@@ -58,13 +61,14 @@ function ListedAnimal({ animal }: { animal: SwapAnimalDto }) {
 }
 
 /** The seller's own steps: open a draft on the board, or take the listing off it. */
-function SellerActions({ listingId, version, state }: { listingId: string; version: number; state: string }) {
+function SellerActions({ listingId, version, state, onEdit }: { listingId: string; version: number; state: string; onEdit: () => void }) {
   const publish = useListingStep(listingId, 'publish');
   const withdraw = useListingStep(listingId, 'withdraw');
   const error = publish.error ?? withdraw.error;
   return (
     <div className="flex flex-wrap gap-2">
       {state === 'draft' && <Button isBusy={publish.isPending} onClick={() => publish.mutate({ version })}>Open it on the board</Button>}
+      {['draft', 'open'].includes(state) && <Button variant="secondary" onClick={onEdit}>Edit the listing</Button>}
       {['draft', 'open', 'under_offer'].includes(state) && (
         <Button variant="quiet" isBusy={withdraw.isPending} onClick={() => withdraw.mutate({ version, reason: '' })}>Withdraw the listing</Button>
       )}
@@ -79,8 +83,11 @@ export function ListingPage() {
   const money = useMoney();
   const today = useFarmToday();
   const page = useListingPage(listingId);
+  const [editing, setEditing] = useState(false);
   if (!page.data) return page.isError ? <Alert tone="error">{errorText(page.error)}</Alert> : <PageSpinner />;
   const { listing, offers } = page.data;
+  // Both farms of the sale keep each animal's pedigree certificate, the seller after the animal left.
+  const papers = listing.state === 'sold' && (listing.mine || offers.some((o) => o.side === 'buyer' && ['accepted', 'collected'].includes(o.state)));
   return (
     <div className="space-y-6">
       <PageTitle>{listing.title}</PageTitle>
@@ -91,8 +98,13 @@ export function ListingPage() {
       <PageHeader
         title={listing.title}
         lead={`${kindLabels[listing.kind]} · ${listing.farm.name}${listing.kind !== 'wanted' ? ` · ${priceText(listing, money)}` : ''}`}
-        actions={listing.mine ? <SellerActions listingId={listing.id} version={listing.version} state={listing.state} /> : undefined}
+        actions={listing.mine ? <SellerActions listingId={listing.id} version={listing.version} state={listing.state} onEdit={() => setEditing(true)} /> : undefined}
       />
+      {editing && listing.mine && ['draft', 'open'].includes(listing.state) && (
+        <Section title="Edit the listing">
+          <EditListingForm listing={listing} today={today} onDone={() => setEditing(false)} />
+        </Section>
+      )}
       <div className="flex flex-wrap items-center gap-2">
         <Badge tone={listing.state === 'open' ? 'moss' : 'neutral'}>{listingStateLabels[listing.state]}</Badge>
         <span className="text-grey-700">Listed until {listing.validUntil}</span>
@@ -121,7 +133,7 @@ export function ListingPage() {
       )}
       <div className={`grid grid-cols-1 gap-6 [&>*]:min-w-0 ${listing.animals.length > 1 ? '2xl:grid-cols-2' : ''}`}>
         {listing.animals.map((a) => (
-          <ListedAnimal key={a.card.id} animal={a} />
+          <ListedAnimal key={a.card.id} animal={a} papers={papers} />
         ))}
       </div>
       {offers.length > 0 && (

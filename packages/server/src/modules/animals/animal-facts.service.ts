@@ -179,6 +179,17 @@ export async function privateRecordFarmsOf(
   return privateRecordFarmsGiven(actor, animal, kind, custody);
 }
 
+/** Whether the farm sold the animal through the Swap Board (a transfer that kept its notes at home). */
+export async function soldThroughSwapBoard(tx: Transaction, animalId: string, farmId: string | null): Promise<boolean> {
+  if (!farmId) return false;
+  const found = await query<{ id: string }>(
+    tx,
+    `SELECT id FROM animal_custody_events WHERE animal_id = $1 AND from_farm_id = $2 AND kind = 'transferred' AND NOT notes_travel LIMIT 1`,
+    [animalId, farmId],
+  );
+  return found.length > 0;
+}
+
 /** What of an animal's custody history decides whose private records of it a viewer reads. */
 export interface CustodyOwnership { owningFarmId: string | null; fromFarmId: string | null; kind: string; notesTravel: boolean }
 

@@ -69,6 +69,18 @@ export function listHerdRecords(actor: SessionUser, q: AnimalListQuery): Promise
  * One animal's full record with its histories, for its own farm (and that farm's apprentices).
  * Another farm's animal answers 403: its pedigree card is open at /api/pedigree-cards/:id instead.
  */
+/**
+ * The animal as its pedigree certificate prints it, for a farm the caller already allowed to have the
+ * certificate (the owner, or the farm that sold it through the Swap Board); never sent as a record.
+ */
+export async function animalForCertificate(actor: SessionUser, animalId: string): Promise<AnimalDetailDto> {
+  return withTenant(actor, async (tx) => {
+    const row = await selectAnimalById(tx, actor.coopId, animalId, { weightsSeenBy: actor.farmId });
+    if (!row || row.is_outside) throw AppError.notFound('That animal');
+    return detailOf(tx, actor, await presentContextFor(actor, tx), animalId, row);
+  });
+}
+
 export async function getAnimal(actor: SessionUser, animalId: string): Promise<AnimalDetailDto> {
   return withTenant(actor, async (tx) => {
     const row = await selectAnimalById(tx, actor.coopId, animalId, { weightsSeenBy: actor.farmId });

@@ -4,7 +4,7 @@ import { animalFactsOf } from '../animals/animal-facts.service';
 import { groupWeighInsOf } from '../animals/group-weigh-ins.service';
 import { breedMapOf } from '../breeds/breeds.service';
 import { litterFactsOf, type LitterFacts } from '../litters/litter-facts.service';
-import { GrowOutGroup, GrowOutGroupLitter } from './grow-out-group.model';
+import { GrowOutGroup, GrowOutGroupLitter, type HeadsSold } from './grow-out-group.model';
 import { port } from '../../lib/port';
 import { headsLeftOn, type GroupInfo } from './grow-out.presenter';
 
@@ -29,6 +29,11 @@ export interface ProcessedHeads {
   groupId: string;
   processedOn: string;
   headCount: number;
+}
+
+/** The heads sold alive from a group, as processing's batches count. */
+export function soldHeadsOf(group: { id: string; headsSold?: HeadsSold[] | null }): ProcessedHeads[] {
+  return (group.headsSold ?? []).map((s) => ({ groupId: group.id, processedOn: s.soldOn, headCount: s.headCount }));
 }
 
 /** Heads of a group on a date (none before it was formed or after it closed). */
@@ -62,7 +67,8 @@ export async function contextOf(tx: Transaction, coopId: string, groups: GrowOut
       birthDate: own.length > 0 ? groupBirthDate(own.map((m) => ({ kindledOn: m.litter.kindledOn, heads: m.heads }))) : group.formedOn,
       sizeClass, cross: main ? crossOf(main.litter) : crossLabel(null, null),
       accepted: all.filter((w) => w.reviewState === 'accepted'), all,
-      processed: processed.filter((p) => p.groupId === group.id).sort((a, b) => a.processedOn.localeCompare(b.processedOn)),
+      // Heads sold alive leave the group as processed ones do.
+      processed: [...processed.filter((p) => p.groupId === group.id), ...soldHeadsOf(group)].sort((a, b) => a.processedOn.localeCompare(b.processedOn)),
     };
     cache.set(group.id, result);
     return result;

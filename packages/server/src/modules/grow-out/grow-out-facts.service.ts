@@ -3,7 +3,7 @@ import { addDays, daysBetween, gompertzWeight, readyBy, referenceCurve, type Rea
 import { acceptedGroupWeightsOf } from '../animals/group-weigh-ins.service';
 import { litterParentsOf } from '../litters/litter-facts.service';
 import { GrowOutGroup } from './grow-out-group.model';
-import { contextOf, groupFeedTotals, headsOn, membersOf } from './grow-out-context';
+import { contextOf, groupFeedTotals, headsOn, membersOf, soldHeadsOf } from './grow-out-context';
 import { projectionOf } from './grow-out.presenter';
 import { groupBy } from '../../lib/group-by';
 
@@ -20,6 +20,8 @@ export interface GrowOutFacts {
   litters: { litterId: string; heads: number; damId: string; sireId: string; kindledOn: string }[];
   /** Accepted group weigh-ins, oldest first. */
   weighIns: { weighedOn: string; totalGrams: number; headCount: number }[];
+  /** Heads sold alive, by day (they leave the group like processed heads). */
+  sold: { groupId: string; processedOn: string; headCount: number }[];
   /** Feed given to the group, including its allocated share of pen- and farm-wide feed (grams, cents). */
   feedGrams: number; feedCostCents: number;
 }
@@ -35,7 +37,7 @@ export async function growOutFactsOfFarm(
   // Plain rows and the litters' parents only: a farm's years of groups, read-only here.
   const groups = await GrowOutGroup.findAll({
     where: { coopId, farmId, ...(opts.groupIds ? { id: { [Op.in]: opts.groupIds } } : {}) },
-    attributes: ['id', 'farmId', 'name', 'formedOn', 'status', 'closedOn', 'targetGrams'],
+    attributes: ['id', 'farmId', 'name', 'formedOn', 'status', 'closedOn', 'targetGrams', 'headsSold'],
     order: [['formedOn', 'ASC'], ['createdAt', 'ASC']],
     transaction: tx,
     raw: true,
@@ -53,6 +55,7 @@ export async function growOutFactsOfFarm(
       return { litterId: m.litterId, heads: m.heads, damId: l.damId, sireId: l.sireId, kindledOn: l.kindledOn };
     }),
     weighIns: (weighInsByGroup.get(g.id) ?? []).map((w) => ({ weighedOn: w.weighedOn, totalGrams: w.totalGrams, headCount: w.headCount })),
+    sold: soldHeadsOf(g),
     feedGrams: feed.get(g.id)?.grams ?? 0,
     feedCostCents: feed.get(g.id)?.costCents ?? 0,
   }));

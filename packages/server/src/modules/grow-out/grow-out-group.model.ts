@@ -2,6 +2,13 @@ import { DataTypes, Model, type CreationOptional, type InferAttributes, type Inf
 
 export type GrowOutStatus = 'growing' | 'closed';
 
+export interface HeadsSold {
+  soldOn: string;
+  headCount: number;
+  /** What sold them (a Swap Board offer). */
+  sourceId: string;
+}
+
 /** Kits of one or more litters raised together after weaning toward a target live weight. */
 export class GrowOutGroup extends Model<InferAttributes<GrowOutGroup>, InferCreationAttributes<GrowOutGroup>> {
   declare id: CreationOptional<string>;
@@ -14,6 +21,8 @@ export class GrowOutGroup extends Model<InferAttributes<GrowOutGroup>, InferCrea
   declare status: CreationOptional<GrowOutStatus>;
   declare closedOn: string | null;
   declare notes: CreationOptional<string>;
+  /** Heads sold alive (the Swap Board), by day: they leave the group like processed heads. */
+  declare headsSold: CreationOptional<HeadsSold[]>;
   declare createdBy: string | null;
   declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
@@ -33,6 +42,7 @@ export class GrowOutGroup extends Model<InferAttributes<GrowOutGroup>, InferCrea
         status: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'growing' },
         closedOn: { type: DataTypes.DATEONLY, allowNull: true },
         notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
+        headsSold: { type: DataTypes.JSONB, allowNull: false, defaultValue: [] },
         createdBy: { type: DataTypes.UUID, allowNull: true },
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         createdAt: DataTypes.DATE,

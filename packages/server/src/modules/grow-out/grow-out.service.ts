@@ -281,13 +281,42 @@ export async function closeGroup(actor: SessionUser, groupId: string, input: Gro
  * not an edit by a person, so no version to match. Left growing if it was weighed after that day.
  */
 export async function closeEmptiedGroupIn(tx: Transaction, actor: SessionUser, groupId: string, closedOn: string): Promise<void> {
-  const group = await groupFor(tx, actor, groupId, true);
+  await closeEmptied(tx, await groupFor(tx, actor, groupId, true), closedOn);
+}
+
+async function closeEmptied(tx: Transaction, group: GrowOutGroup, closedOn: string): Promise<void> {
   if (group.status === 'closed' || closedOn < group.formedOn) return;
-  const lastWeighIn = (await groupWeighInsOf(tx, actor.coopId, [group.id])).at(-1);
+  const lastWeighIn = (await groupWeighInsOf(tx, group.coopId, [group.id])).at(-1);
   if (lastWeighIn && closedOn < lastWeighIn.weighedOn) return;
   group.status = 'closed';
   group.closedOn = closedOn;
   await group.save({ transaction: tx });
+  announce(tx, group.farmId, group.id);
+}
+
+/**
+ * Takes heads out of a growing group alive (a sale through the Swap Board), in the caller's transaction;
+ * they count against the group like processed heads, and the group closes once emptied. Refused (409)
+ * when the group is closed or has fewer heads on the day. The same source again takes none.
+ */
+export async function sellHeadsIn(
+  tx: Transaction,
+  actor: SessionUser,
+  input: { farmId: string; groupId: string; soldOn: string; headCount: number; sourceId: string },
+): Promise<void> {
+  // Processing takes a group's heads under the same lock: a sale and a batch never both take the last heads.
+  await lockUntilCommit(tx, `processing:${input.farmId}`);
+  const group = await GrowOutGroup.findOne({ where: { id: input.groupId, coopId: actor.coopId, farmId: input.farmId }, transaction: tx, lock: tx.LOCK.UPDATE });
+  if (!group) throw AppError.conflict('That grow-out group is no longer on the farm');
+  if (group.headsSold.some((s) => s.sourceId === input.sourceId)) return;
+  if (group.status === 'closed') throw AppError.conflict(`${group.name} was closed on ${group.closedOn}; its heads can no longer be sold`);
+  const left = headsLeftOn((await contextOf(tx, actor.coopId, [group])).info(group), input.soldOn);
+  if (input.headCount > left) {
+    throw AppError.conflict(`${group.name} has ${countOf(left, 'head')} left; ${input.headCount} cannot leave it`, { headCount: [`${group.name} has ${countOf(left, 'head')} left`] });
+  }
+  group.headsSold = [...group.headsSold, { soldOn: input.soldOn, headCount: input.headCount, sourceId: input.sourceId }];
+  await group.save({ transaction: tx });
+  if (left === input.headCount) await closeEmptied(tx, group, input.soldOn);
   announce(tx, group.farmId, group.id);
 }
 

@@ -9,8 +9,8 @@ import { lockUntilCommit } from '../../db/advisory-lock';
 import { withTenant } from '../../db/tenant';
 import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
-import { animalAccess } from '../animals/animal-facts.service';
-import { getAnimal, listHerd, listHerdRecords } from '../animals/animals.service';
+import { animalAccess, soldThroughSwapBoard } from '../animals/animal-facts.service';
+import { animalForCertificate, getAnimal, listHerd, listHerdRecords } from '../animals/animals.service';
 import { herdRecordsForImport, importSpreadsheet, lockHerdForImport } from '../animals/herd-import.service';
 import { getPedigreeTree } from '../animals/pedigree.service';
 import { recordAudit } from '../audit/audit.service';
@@ -276,21 +276,24 @@ export async function exportHerdCsv(actor: SessionUser, query: HerdExportQuery):
 }
 
 /**
- * A printable pedigree certificate (PDF) of an animal the viewer's farm owns (a borrower gets 403): its details, four
+ * A printable pedigree certificate (PDF) of an animal the viewer's farm owns or sold through the Swap Board
+ * (a borrower gets 403): its details, four
  * generations with each ancestor's tattoo, name, breed, colour and registration, its COI, who bred
  * it, the issuing farm and the date. An animal the viewer may not see answers 404.
  */
 export async function pedigreeCertificate(actor: SessionUser, animalId: string): Promise<{ fileName: string; body: Buffer }> {
   const context = await withTenant(actor, async (tx) => {
     const access = await animalAccess(actor, animalId, tx);
-    if (!access || !access.canRead) throw AppError.notFound('That animal');
-    if (!access.canReadPapers) throw new AppError(ErrorCode.forbidden, 403, 'Only the farm that owns the animal issues its pedigree certificate');
+    // Both farms of a Swap Board sale keep the animal's papers: the seller too, after it left.
+    const sold = Boolean(access) && !access!.canReadPapers && (await soldThroughSwapBoard(tx, animalId, actor.farmId));
+    if (!access || (!access.canRead && !sold)) throw AppError.notFound('That animal');
+    if (!access.canReadPapers && !sold) throw new AppError(ErrorCode.forbidden, 403, 'Only the farm that owns the animal issues its pedigree certificate');
     const farms = await farmDirectoryOf(actor.coopId, tx);
     const issuer = farms.get(access.owningFarmId ?? '') ?? (actor.farmId ? farms.get(actor.farmId) : undefined);
     const coop = await getCoop(actor.coopId, tx);
     return { access, issuer, coopName: coop?.name ?? '' };
   });
-  const animal = await getAnimal(actor, animalId);
+  const animal = await animalForCertificate(actor, animalId);
   const tree = await getPedigreeTree(actor, animalId, 4);
   const body = await renderCertificate({
     animal,

@@ -77,8 +77,8 @@ function birthOfGroup(group: GrowOutFacts): string | null {
  */
 function headsLeft(group: GrowOutFacts, processed: ProcessingFacts[], on: string): number {
   const formedHeads = group.litters.reduce((n, l) => n + l.heads, 0);
-  // Every batch counts, even one dated after `on`: those heads are gone already.
-  const batches = processed.filter((p) => p.groupId === group.id).map((p) => ({ processedOn: p.processedOn < on ? p.processedOn : on, headCount: p.headCount }));
+  // Every batch counts, even one dated after `on`: those heads are gone already (so do heads sold alive).
+  const batches = [...processed, ...group.sold].filter((p) => p.groupId === group.id).map((p) => ({ processedOn: p.processedOn < on ? p.processedOn : on, headCount: p.headCount }));
   return groupHeadsOn({ formedHeads, weighIns: group.weighIns, processed: batches }, on);
 }
 

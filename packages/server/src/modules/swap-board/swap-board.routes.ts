@@ -6,6 +6,7 @@
  * | GET    | /listings                          | swapListingQuerySchema   | SwapListingListDto              |
  * | POST   | /listings                          | swapListingSchema        | 201 SwapListingDto (200: same id)|
  * | GET    | /listings/:listingId               |                          | SwapListingPageDto              |
+ * | PATCH  | /listings/:listingId               | swapListingEditSchema    | SwapListingDto (409: stale, closed)|
  * | POST   | /listings/:listingId/publish       | swapVersionSchema        | SwapListingDto                  |
  * | POST   | /listings/:listingId/withdraw      | swapReasonSchema         | SwapListingDto                  |
  * | GET    | /summary                           |                          | SwapBoardSummaryDto             |
@@ -21,11 +22,11 @@
  */
 import { Router } from 'express';
 import {
-  swapAcceptSchema, swapCounterSchema, swapListingQuerySchema, swapListingSchema, swapOfferListQuerySchema, swapOfferSchema, swapReasonSchema,
+  swapAcceptSchema, swapCounterSchema, swapListingEditSchema, swapListingQuerySchema, swapListingSchema, swapOfferListQuerySchema, swapOfferSchema, swapReasonSchema,
   swapVersionSchema, uuidParamSchema,
 } from '@burrowline/shared';
 import { actorOf, requireUser } from '../../http/ability';
-import { createListing, getListingPage, listListings, publishListing, swapBoardSummary, withdrawListing } from './swap-listings.service';
+import { createListing, editListing, getListingPage, listListings, publishListing, swapBoardSummary, withdrawListing } from './swap-listings.service';
 import {
   acceptOffer, confirmCollection, counterOffer, declineOffer, getOffer, listOffers, makeOffer, reportHandOverFailed, withdrawOffer,
 } from './swap-offers.service';
@@ -45,6 +46,9 @@ export function swapBoardRoutes(): Router {
   });
   router.get('/listings/:listingId', async (req, res) => {
     res.json(await getListingPage(actorOf(req), listingId(req)));
+  });
+  router.patch('/listings/:listingId', async (req, res) => {
+    res.json(await editListing(actorOf(req), listingId(req), swapListingEditSchema.parse(req.body)));
   });
   router.post('/listings/:listingId/publish', async (req, res) => {
     res.json(await publishListing(actorOf(req), listingId(req), swapVersionSchema.parse(req.body)));

@@ -1,6 +1,6 @@
 import type { Transaction } from 'sequelize';
 import {
-  addDays, addMonths, daysBetween, defineAbilityFor, ErrorCode, MAX_LISTING_DAYS, subjectOf, type SwapBoardSummaryDto, type SwapListingDto,
+  addDays, addMonths, daysBetween, defineAbilityFor, ErrorCode, MAX_LISTING_DAYS, subjectOf, type SwapBoardSummaryDto, type SwapListingDto, type SwapListingEditInput,
   type SwapListingInput, type SwapListingListDto, type SwapListingPageDto, type SwapListingQuery, type SwapReasonInput, type SwapVersionInput,
 } from '@burrowline/shared';
 import { withTenant } from '../../db/tenant';
@@ -44,27 +44,37 @@ async function present(tx: Transaction, actor: SessionUser, listings: ListingRow
   return listings.map((l) => presentListing(l, ctx));
 }
 
-async function checkListing(tx: Transaction, actor: SessionUser, farmId: string, input: SwapListingInput, today: string): Promise<FieldMessages> {
+/** Photos of the listing must be the farm's own, of a listed animal, and not deleted. */
+async function photoRefusals(tx: Transaction, farmId: string, photoIds: string[], animalIds: string[]): Promise<FieldMessages> {
   const errors: FieldMessages = {};
-  if (input.validUntil < today) errors.validUntil = ['Choose a day from today on'];
-  else if (daysBetween(today, input.validUntil) > MAX_LISTING_DAYS) errors.validUntil = [`Keep a listing up ${MAX_LISTING_DAYS} days at most; list it again later`];
+  if (photoIds.length === 0) return errors;
+  const found = await rows<{ id: string }>(
+    tx,
+    'SELECT id FROM photos WHERE id = ANY($1::uuid[]) AND farm_id = $2 AND animal_id = ANY($3::uuid[]) AND deleted_at IS NULL',
+    [photoIds, farmId, animalIds],
+  );
+  const ok = new Set(found.map((p) => p.id));
+  photoIds.forEach((id, i) => {
+    if (!ok.has(id)) errors[`photoIds.${i}`] = ['Pick a photo your farm took of a listed animal'];
+  });
+  return errors;
+}
+
+function validUntilRefusals(validUntil: string, today: string): FieldMessages {
+  if (validUntil < today) return { validUntil: ['Choose a day from today on'] };
+  if (daysBetween(today, validUntil) > MAX_LISTING_DAYS) return { validUntil: [`Keep a listing up ${MAX_LISTING_DAYS} days at most; list it again later`] };
+  return {};
+}
+
+async function checkListing(tx: Transaction, actor: SessionUser, farmId: string, input: SwapListingInput, today: string): Promise<FieldMessages> {
+  const errors: FieldMessages = validUntilRefusals(input.validUntil, today);
   if (input.kind === 'breeding_stock') Object.assign(errors, await stockRefusals(tx, actor, farmId, input.animalIds, today, 'animalIds'));
   if (input.kind === 'grow_out' && input.groupId) {
     const group = await groupOfFarm(tx, actor.coopId, farmId, input.groupId);
     if (!group) errors.groupId = ['Choose one of your farm\'s grow-out groups'];
     else if (group.status !== 'growing') errors.groupId = [`${group.name} is closed; choose a growing group`];
   }
-  if (input.photoIds.length > 0) {
-    const found = await rows<{ id: string }>(
-      tx,
-      'SELECT id FROM photos WHERE id = ANY($1::uuid[]) AND farm_id = $2 AND animal_id = ANY($3::uuid[]) AND deleted_at IS NULL',
-      [input.photoIds, farmId, input.animalIds],
-    );
-    const ok = new Set(found.map((p) => p.id));
-    input.photoIds.forEach((id, i) => {
-      if (!ok.has(id)) errors[`photoIds.${i}`] = ['Pick a photo your farm took of a listed animal'];
-    });
-  }
+  Object.assign(errors, await photoRefusals(tx, farmId, input.photoIds, input.animalIds));
   if (input.wantedBreedId && !(await breedMapOf(actor.coopId, tx)).has(input.wantedBreedId)) errors.wantedBreedId = ['Choose a breed from the list'];
   return errors;
 }
@@ -124,6 +134,36 @@ export async function publishListing(actor: SessionUser, listingId: string, inpu
     await setListingState(tx, listing, 'open');
     await queueExpiry(tx, listing);
     return (await present(tx, actor, [(await listingById(tx, listing.id))!]))[0]!;
+  });
+}
+
+/**
+ * The seller edits a draft or open listing: title, notes, price and terms, last day and photos (of the
+ * listed animals). Refused (409) once offers are open or it closed, or when another edit came first.
+ */
+export async function editListing(actor: SessionUser, listingId: string, input: SwapListingEditInput): Promise<SwapListingDto> {
+  return withTenant(actor, async (tx) => {
+    const listing = await listingFor(tx, actor, listingId, 'update', true);
+    requireListingState(
+      listing, ['draft', 'open'],
+      listing.state === 'under_offer' ? 'Offers are open on this listing: answer them (or withdraw it) before changing its terms' : `This listing is ${listing.state}; it can no longer be changed`,
+    );
+    if (listing.version !== input.version) throw AppError.staleVersion();
+    const today = farmTodayIn(await farmDirectoryOf(actor.coopId, tx), listing.farm_id);
+    const errors = validUntilRefusals(input.validUntil, today);
+    Object.assign(errors, await photoRefusals(tx, listing.farm_id, input.photoIds, listing.animal_ids));
+    if (hasMessages(errors)) throw AppError.validation(errors);
+    await rows(
+      tx,
+      `UPDATE swap_listings SET title = $2, description = $3, price_mode = $4, price_cents = $5, collect_place = $6, valid_until = $7,
+         photo_ids = $8::uuid[], version = version + 1, updated_at = now() WHERE id = $1`,
+      [listing.id, input.title, input.description, input.priceMode, input.priceCents, input.collectPlace, input.validUntil, input.photoIds],
+    );
+    const edited = (await listingById(tx, listing.id))!;
+    // An earlier last day needs its own expiry run; the old one finds a later day and waits again.
+    if (edited.state === 'open' && edited.valid_until !== listing.valid_until) await queueExpiry(tx, edited);
+    announceListing(tx, edited, edited.state);
+    return (await present(tx, actor, [edited]))[0]!;
   });
 }
 

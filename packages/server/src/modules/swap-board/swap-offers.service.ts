@@ -10,6 +10,7 @@ import { moveAnimalInTransaction } from '../animals/custody-moves.service';
 import { authorize, farmOf, hasMessages, mergeMessages, type FieldMessages } from '../farms/farm-access';
 import { farmTodayIn } from '../farms/farm-clock';
 import { farmDirectoryOf } from '../farms/farms.service';
+import { sellHeadsIn } from '../grow-out/grow-out.service';
 import { postPending, postTransfer, voidPending } from '../ledger/ledger.service';
 import { swapContextFor } from './swap-board-context';
 import { presentOffer, sideOf } from './swap-board.presenter';
@@ -219,6 +220,10 @@ export async function acceptOffer(actor: SessionUser, offerId: string, input: Sw
       throw AppError.conflict('Some animals can no longer change hands (sold elsewhere, treated, lent or in quarantine); nothing was moved', gone);
     }
 
+    // Grow-out heads leave their group in this transaction: refused (409) when the group has fewer left.
+    if (listing.kind === 'grow_out' && listing.group_id && listing.head_count) {
+      await sellHeadsIn(tx, actor, { farmId: listing.farm_id, groupId: listing.group_id, soldOn: today, headCount: listing.head_count, sourceId: offer.id });
+    }
     await rows(
       tx,
       `UPDATE swap_offers SET state = 'accepted', accepted_on = $2, accept_key = $3, version = version + 1, updated_at = now() WHERE id = $1`,
@@ -246,7 +251,7 @@ export async function acceptOffer(actor: SessionUser, offerId: string, input: Sw
       coopId: actor.coopId, farmIds: [other], kind: 'swap.answered', key: `swap-accepted:${offer.id}`,
       title: `${actor.name} accepts ${terms} for “${listing.title}”`, link: listingLink(listing.id),
       text: 'The animals are now in the buyer\'s herd with their pedigree, and their arrival quarantine is on the Almanac. '
-        + 'Each animal\'s pedigree certificate is on its page. The buyer confirms the collection on the listing; the sale is then posted to the Ledger.',
+        + 'Both farms download each animal\'s pedigree certificate from the sold listing. The buyer confirms the collection on the listing; the sale is then posted to the Ledger.',
     });
     return answer(tx, actor, offer.id);
   });

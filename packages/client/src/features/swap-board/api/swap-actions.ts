@@ -1,6 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import type {
-  SwapAcceptInput, SwapCounterInput, SwapListingDto, SwapListingInput, SwapOfferDto, SwapOfferInput, SwapReasonInput, SwapVersionInput,
+  SwapAcceptInput, SwapCounterInput, SwapListingDto, SwapListingEditInput, SwapListingInput, SwapOfferDto, SwapOfferInput, SwapReasonInput, SwapVersionInput,
 } from '@burrowline/shared';
 import { apiFetch } from '../../../lib/api-client';
 import { swapBoardKeys } from './swap-board-keys';
@@ -15,6 +15,15 @@ export function useCreateListing() {
   const refresh = useRefreshAfter();
   return useMutation({
     mutationFn: (body: SwapListingInput) => apiFetch<SwapListingDto>('/api/swap-board/listings', { method: 'POST', body }),
+    onSuccess: refresh,
+  });
+}
+
+/** The seller's edit of a draft or open listing; the version refuses a second editor's stale form (409). */
+export function useEditListing(listingId: string) {
+  const refresh = useRefreshAfter();
+  return useMutation({
+    mutationFn: (body: SwapListingEditInput) => apiFetch<SwapListingDto>(`/api/swap-board/listings/${encodeURIComponent(listingId)}`, { method: 'PATCH', body }),
     onSuccess: refresh,
   });
 }

@@ -1,5 +1,5 @@
 import { useQuery } from '@tanstack/react-query';
-import { useRef } from 'react';
+import { useEffect, useRef } from 'react';
 import { useForm } from 'react-hook-form';
 import { useNavigate } from 'react-router-dom';
 import {
@@ -22,6 +22,7 @@ import { centsFromText } from '../../ledger';
 import { useCreateListing } from '../api/swap-actions';
 import { kindLabels, priceModeLabels } from '../swap-board-labels';
 import { MeatCaution } from './meat-caution';
+import { PhotoPicker, useAnimalsPhotos } from './photo-picker';
 
 interface ListingValues {
   kind: SwapListingKind;
@@ -32,6 +33,7 @@ interface ListingValues {
   collectPlace: string;
   validUntil: string;
   animalIds: string[];
+  photoIds: string[];
   groupId: string;
   headCount: string;
   readyOn: string;
@@ -45,6 +47,7 @@ interface ListingValues {
 const fieldOf = (path: string): keyof ListingValues | null => {
   if (path === 'priceCents') return 'price';
   if (path.startsWith('animalIds')) return 'animalIds';
+  if (path.startsWith('photoIds')) return 'photoIds';
   const top = path.split('.')[0]!;
   return ['kind', 'title', 'description', 'priceMode', 'collectPlace', 'validUntil', 'groupId', 'headCount', 'readyOn', 'wantedBreedId', 'wantedSex', 'wantedAge', 'wantedBy']
     .includes(top) ? (top as keyof ListingValues) : null;
@@ -72,7 +75,7 @@ export function ListingForm({ today, groups }: { today: string; groups: { id: st
       collectPlace: v.collectPlace,
       validUntil: v.validUntil,
       animalIds: v.kind === 'breeding_stock' ? v.animalIds : [],
-      photoIds: [],
+      photoIds: v.kind === 'breeding_stock' ? v.photoIds : [],
       shareWeights: true,
       groupId: v.kind === 'grow_out' && v.groupId ? v.groupId : null,
       headCount: v.kind === 'grow_out' && v.headCount ? Number(v.headCount) : null,
@@ -85,12 +88,20 @@ export function ListingForm({ today, groups }: { today: string; groups: { id: st
     }), fieldOf),
     defaultValues: {
       kind: 'breeding_stock', title: '', description: '', priceMode: 'price', price: '', collectPlace: '', validUntil: addDays(today, 30),
-      animalIds: [], groupId: '', headCount: '', readyOn: '', wantedBreedId: '', wantedSex: '', wantedAge: '', wantedBy: '', publish: true,
+      animalIds: [], photoIds: [], groupId: '', headCount: '', readyOn: '', wantedBreedId: '', wantedSex: '', wantedAge: '', wantedBy: '', publish: true,
     },
   });
   const { errors } = form.formState;
   const { submit, failure } = useServerSubmit(form, create, { fields: fieldOf, onSuccess: (listing) => navigate(`/swap-board/listings/${listing.id}`) });
-  const [kind, priceMode] = form.watch(['kind', 'priceMode']);
+  const [kind, priceMode, chosen] = form.watch(['kind', 'priceMode', 'animalIds']);
+  const { photos } = useAnimalsPhotos(chosen ?? []);
+  const pickable = photos.map((p) => p.id).join(',');
+  // Unticking an animal drops its photos from the listing.
+  useEffect(() => {
+    const keep = new Set(pickable.split(','));
+    const picked = form.getValues('photoIds');
+    if (picked.some((id) => !keep.has(id))) form.setValue('photoIds', picked.filter((id) => keep.has(id)));
+  }, [pickable, form]);
   return (
     <form noValidate onSubmit={submit} className="space-y-5" aria-label="New listing">
       <RadioGroup
@@ -116,6 +127,9 @@ export function ListingForm({ today, groups }: { today: string; groups: { id: st
           )}
           {errors.animalIds && <p className="text-sm font-medium text-clay-deep">{errors.animalIds.message ?? errors.animalIds.root?.message}</p>}
         </fieldset>
+      )}
+      {kind === 'breeding_stock' && (
+        <PhotoPicker animalIds={chosen ?? []} field={form.register('photoIds')} error={errors.photoIds?.message ?? errors.photoIds?.root?.message} />
       )}
       {kind === 'grow_out' && (
         <>
