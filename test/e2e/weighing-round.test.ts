@@ -98,9 +98,12 @@ describe('a weighing round on a phone', () => {
           expect(await sidewaysScroll(page)).toBe(0);
         } else {
           // A gloved finger's target: the box's label is 44 px each way.
-          await page.getByRole('checkbox', { name: 'Choose Fern' }).waitFor();
-          const target = (await page.locator('label', { has: page.getByRole('checkbox', { name: 'Choose Fern' }) }).boundingBox())!;
-          expect(Math.min(target.width, target.height)).toBeGreaterThanOrEqual(44);
+          // The list may draw again as its data settles: the box is measured once it stands still on the page.
+          const label = page.locator('label', { has: page.getByRole('checkbox', { name: 'Choose Fern' }) });
+          await expect.poll(async () => {
+            const target = await label.boundingBox();
+            return target ? Math.min(target.width, target.height) : 0;
+          }).toBeGreaterThanOrEqual(44);
           await page.getByRole('checkbox', { name: 'Choose Fern' }).check();
           await page.getByRole('checkbox', { name: 'Choose Moss' }).check();
         }
