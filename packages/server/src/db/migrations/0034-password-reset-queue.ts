@@ -1,6 +1,6 @@
 import type { MigrationFn } from '../migrator';
+import { createQueueSql, dropQueueSql } from '../job-queue-sql';
 
-const BOSS_SCHEMA = 'pgboss';
 const QUEUE = 'password-reset-requests';
 
 /**
@@ -9,17 +9,9 @@ const QUEUE = 'password-reset-requests';
  * few quick retries cover a passing database error, after which the person can simply ask again.
  */
 export const up: MigrationFn = async ({ context: { sql, appRole } }) => {
-  await sql(`
-    SELECT ${BOSS_SCHEMA}.create_queue('${QUEUE}', '{"policy":"standard","retryLimit":5,"retryDelay":5,"retryBackoff":true,"expireInSeconds":120}'::json)
-    WHERE NOT EXISTS (SELECT 1 FROM ${BOSS_SCHEMA}.queue WHERE name = '${QUEUE}');
-    GRANT SELECT, INSERT, UPDATE, DELETE ON ALL TABLES IN SCHEMA ${BOSS_SCHEMA} TO ${appRole};
-  `);
+  await sql(createQueueSql(QUEUE, { retryLimit: 5, retryDelay: 5, expireInSeconds: 120 }, appRole));
 };
 
 export const down: MigrationFn = async ({ context: { sql } }) => {
-  await sql(`
-    DELETE FROM ${BOSS_SCHEMA}.job WHERE name = '${QUEUE}';
-    DELETE FROM ${BOSS_SCHEMA}.archive WHERE name = '${QUEUE}';
-    SELECT ${BOSS_SCHEMA}.delete_queue('${QUEUE}') WHERE EXISTS (SELECT 1 FROM ${BOSS_SCHEMA}.queue WHERE name = '${QUEUE}');
-  `);
+  await sql(dropQueueSql(QUEUE));
 };
