@@ -95,7 +95,8 @@ async function captureHerdQuery(): Promise<void> {
     const [first, second] = args as [string | { text?: string; values?: unknown[]; name?: string }, unknown];
     const sql = typeof first === 'string' ? first : (first?.text ?? '');
     const bind = typeof first === 'string' ? (Array.isArray(second) ? second : []) : (first?.values ?? []);
-    if (/FROM animals a/.test(sql) && (!captured || sql.length > captured.sql.length)) {
+    // The list's own SELECT: the page with its figures (not the co-op's breeds and farms read beside it).
+    if (/WITH page AS MATERIALIZED/.test(sql) && (!captured || sql.length > captured.sql.length)) {
       captured = { sql, bind, ...(typeof first === 'object' && first?.name ? { name: first.name } : {}) };
     }
     return (send as (...a: unknown[]) => unknown).apply(this, args);

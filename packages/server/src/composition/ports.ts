@@ -10,8 +10,8 @@ import { groupsOfFarm } from '../modules/grow-out/grow-out-facts.service';
 import { kindlingDaysOfDams } from '../modules/litters/litter-facts.service';
 import { processedHeadsOf } from '../modules/processing/processing.service';
 import { sharedDaysOfFarm } from '../modules/almanac/shared-days';
-import { doeCyclesOf } from '../modules/almanac/doe-board.service';
-import { doeCyclesOfPage } from '../modules/animals/animals.service';
+import { doeCycleFactsColumn as doeCycleFactsColumnOfAlmanac, doeCycleOfFacts as doeCycleOfFactsOfAlmanac } from '../modules/almanac/doe-board.service';
+import { doeCycleFactsColumn, doeCycleOfFacts } from '../modules/animals/animals.service';
 import { processingDaysOfFarm, stationRefusal } from '../modules/processing-days/processing-days.service';
 import { stationRefusalFor } from '../modules/mentorship/mentorship-facts.service';
 import { chatPhotoReadable, photoPublishedTo } from '../modules/photos/photos.service';
@@ -52,7 +52,8 @@ export function plugModulePorts(): void {
   photoPublishedTo.plug(async (tx, actor, photoId) => (await isPhotoPublished(tx, actor, photoId)) || isPhotoListed(tx, actor, photoId));
   chatPhotoReadable.plug(mayReadChatPhoto);
   // The herd list shows each doe's place in her cycle, which the Almanac reads.
-  doeCyclesOfPage.plug(doeCyclesOf);
+  doeCycleFactsColumn.plug(doeCycleFactsColumnOfAlmanac);
+  doeCycleOfFacts.plug(doeCycleOfFactsOfAlmanac);
   // A dangerous station on a processing day's roster waits for the apprentice's sign-off when the co-op asks.
   stationRefusal.plug(stationRefusalFor);
   // Co-op Chat's threads beside subjects: who reads the subject reads its thread.

@@ -154,7 +154,7 @@ export function openTenantTransactionsWithFirstStatement(sequelize: Sequelize): 
     if (typeof coopId !== 'string' || !UUID.test(coopId) || !connection || (transaction as unknown as { parent?: Transaction }).parent) {
       return startTransaction(transaction, options);
     }
-    pendingOpening.set(connection, `START TRANSACTION; SELECT set_config('app.coop_id', '${coopId}', true); `);
+    pendingOpening.set(connection, `START TRANSACTION; SELECT set_config('app.coop_id', '${coopId}', true), set_config('plan_cache_mode', 'force_generic_plan', true); `);
     return undefined as never;
   };
 }

@@ -11,7 +11,7 @@ export const SESSION_COOKIE = 'burrowline.sid';
 /** A session's stored expiry is written again only once this share of the idle window has passed. */
 export const SESSION_TOUCH_SHARE = 0.1;
 
-/** Most sessions a store remembers between reading and touching them (requests that never finish are dropped). */
+/** Most sessions whose stored expiry a store remembers (the oldest is dropped first). */
 const REMEMBERED_SESSIONS = 10_000;
 
 function remember<V>(map: Map<string, V>, key: string, value: V): void {
@@ -55,11 +55,15 @@ function leanStore(PgStore: typeof connectPgSimple.PGStore, pool: pg.Pool, idleS
     }
 
     override touch(sid: string, sess: session.SessionData, callback?: (err?: unknown) => void): void {
+      // Kept after the request (not taken): requests of one session that overlap then write the expiry
+      // once between them, not once each.
       const stored = this.storedExpiry.get(sid);
-      this.storedExpiry.delete(sid);
       const next = sess.cookie?.expires ? new Date(sess.cookie.expires).getTime() : Number.NaN;
       if (stored !== undefined && next - stored < touchAfterMs) return callback?.();
-      super.touch(sid, sess, callback as () => void);
+      super.touch(sid, sess, (error?: unknown) => {
+        if (!error && Number.isFinite(next)) remember(this.storedExpiry, sid, next);
+        callback?.(error);
+      });
     }
 
     override set(sid: string, sess: session.SessionData, callback?: (err?: unknown) => void): void {

@@ -1,4 +1,3 @@
-import type { Transaction } from 'sequelize';
 import {
   breedingRecordFigures, compareByDue, daysBetween, defaultCycleSettings, doeCycleState, doeCycleStates, type BreedingRecordDto,
   type CycleSettings, type DoeBoardDto, type DoeBoardItemDto, type DoeBoardQuery, type DoeCycleFacts, type DoeCycleState, type KitDeathCause,
@@ -40,30 +39,29 @@ interface DoeFactsRow {
 }
 
 /**
- * Each doe the farm keeps (junior or breeding, on the farm), or the does among `ids`, with her latest
- * service of this farm and its latest palpation, and her latest litter of this farm with the kits that
- * went in and out (returned entries do not count, as on the litter's page). The farm's settings ride on
- * every row so they cost no statement of their own. `$1` the co-op, `$2` the farm.
+ * What her state is read from, for doe `a` on farm `farm` (an SQL parameter): her latest service of this farm
+ * and its latest palpation, her latest litter of this farm with the kits that went in and out (returned
+ * entries do not count, as on the litter's page). The farm's settings ride along so they cost no statement
+ * of their own. `factsColumns` reads what `factsJoins` (after `FROM animals a`) joins.
  */
-const doeFactsSql = (byIds: boolean) => `
-  SELECT a.id, a.name, a.tattoo, a.hutch, a.birth_date::text AS birth_date, br.doe_first_breeding_min_days AS first_breeding_days,
+const factsColumns = (farm: string) => `a.birth_date::text AS birth_date, br.doe_first_breeding_min_days AS first_breeding_days,
     sv.id AS service_id, sv.serviced_on::text AS serviced_on, sv.status AS service_status, sv.closed_on::text AS closed_on,
     pl.palpated_on::text AS palpated_on, pl.result AS palpation_result,
     lt.id AS litter_id, lt.kindled_on::text AS kindled_on, lt.born_alive,
     ev.kits_in, ev.kits_out, ev.weaned, ev.weaned_on::text AS weaned_on,
-    (SELECT s.settings FROM farm_cycle_settings s WHERE s.farm_id = $2) AS settings
-  FROM animals a
+    (SELECT s.settings FROM farm_cycle_settings s WHERE s.farm_id = ${farm}) AS settings`;
+const factsJoins = (farm: string) => `
   LEFT JOIN breeds br ON br.id = a.breed_id
   LEFT JOIN LATERAL (
     SELECT s.id, s.serviced_on, s.status, s.closed_on FROM services s
-    WHERE s.doe_id = a.id AND s.farm_id = $2 AND s.deleted_at IS NULL ORDER BY s.serviced_on DESC, s.created_at DESC LIMIT 1
+    WHERE s.doe_id = a.id AND s.farm_id = ${farm} AND s.deleted_at IS NULL ORDER BY s.serviced_on DESC, s.created_at DESC LIMIT 1
   ) sv ON true
   LEFT JOIN LATERAL (
     SELECT p.palpated_on, p.result FROM palpations p WHERE p.service_id = sv.id AND p.review_state = 'accepted' AND p.result <> 'unsure' ORDER BY p.palpated_on DESC, p.created_at DESC LIMIT 1
   ) pl ON true
   LEFT JOIN LATERAL (
     SELECT l.id, l.kindled_on, l.born_alive FROM litters l
-    WHERE l.dam_id = a.id AND l.farm_id = $2 AND l.deleted_at IS NULL ORDER BY l.kindled_on DESC, l.created_at DESC LIMIT 1
+    WHERE l.dam_id = a.id AND l.farm_id = ${farm} AND l.deleted_at IS NULL ORDER BY l.kindled_on DESC, l.created_at DESC LIMIT 1
   ) lt ON true
   LEFT JOIN LATERAL (
     SELECT COALESCE(sum(e.kit_count) FILTER (WHERE e.kind = 'fostered_in'), 0)::int AS kits_in,
@@ -71,10 +69,31 @@ const doeFactsSql = (byIds: boolean) => `
       COALESCE(sum(e.kit_count) FILTER (WHERE e.kind = 'weaned'), 0)::int AS weaned,
       max(e.occurred_on) FILTER (WHERE e.kind = 'weaned') AS weaned_on
     FROM litter_events e WHERE e.litter_id = lt.id AND e.deleted_at IS NULL AND e.review_state <> 'returned'
-  ) ev ON true
-  WHERE a.coop_id = $1 AND a.keeping_farm_id = $2 AND a.sex = 'doe' AND a.disposition = 'on_farm' AND a.deleted_at IS NULL
-    AND NOT a.is_outside AND a.lifecycle IN ('junior', 'breeding')
-    ${byIds ? 'AND a.id = ANY($3::uuid[])' : ''}`;
+  ) ev ON true`;
+
+/** The does a farm keeps and tracks through the cycle: junior or breeding, on the farm. */
+const trackedDoe = (farm: string) => `a.keeping_farm_id = ${farm} AND a.sex = 'doe' AND a.disposition = 'on_farm' AND a.deleted_at IS NULL
+    AND NOT a.is_outside AND a.lifecycle IN ('junior', 'breeding')`;
+
+/** Each doe the farm keeps, with her facts, in one statement. `$1` the co-op, `$2` the farm. */
+const doeFactsSql = `
+  SELECT a.id, a.name, a.tattoo, a.hutch, ${factsColumns('$2')}
+  FROM animals a ${factsJoins('$2')}
+  WHERE a.coop_id = $1 AND ${trackedDoe('$2')}`;
+
+/**
+ * The facts of animal `a` as one json value when it is a doe the farm `farm` (an SQL parameter) tracks, else
+ * null: a column for another module's list of animals (the herd list's "in her cycle"), read with `doeCycleOfFacts`.
+ */
+export function doeCycleFactsColumn(farm: string): string {
+  return `(CASE WHEN ${trackedDoe(farm)} THEN (SELECT to_json(f) FROM (SELECT ${factsColumns(farm)} FROM (SELECT 1) one ${factsJoins(farm)}) f) END)`;
+}
+
+/** Where a doe stands today, from what `doeCycleFactsColumn` read. */
+export function doeCycleOfFacts(facts: unknown, today: string): DoeCycleState {
+  const row = facts as DoeFactsRow;
+  return doeCycleState(factsOf(row), today, settingsOfRow(row));
+}
 
 function factsOf(row: DoeFactsRow): DoeCycleFacts {
   const onDoe = Math.max(0, (row.born_alive ?? 0) + (row.kits_in ?? 0) - (row.kits_out ?? 0));
@@ -101,14 +120,6 @@ function itemOf(row: DoeFactsRow, today: string, settings: CycleSettings): DoeBo
   };
 }
 
-/** Where each of these does stands today on the farm that keeps her (the herd list's column); others are absent. */
-export async function doeCyclesOf(tx: Transaction, coopId: string, farmId: string, doeIds: string[], today: string): Promise<Map<string, DoeCycleState>> {
-  if (doeIds.length === 0) return new Map();
-  const rows = await selectPrepared<DoeFactsRow>(tx, doeFactsSql(true), [coopId, farmId, doeIds]);
-  const settings = settingsOfRow(rows[0]);
-  return new Map(rows.map((row) => [row.id, doeCycleState(factsOf(row), today, settings)]));
-}
-
 const tattooOrder = (a: DoeBoardItemDto, b: DoeBoardItemDto) =>
   (a.tattoo ?? '').localeCompare(b.tattoo ?? '', 'en', { numeric: true, sensitivity: 'base' }) || a.id.localeCompare(b.id);
 const stateRank = new Map<string, number>(doeCycleStates.map((s, i) => [s, i]));
@@ -130,7 +141,7 @@ export async function doeBoard(actor: SessionUser, q: DoeBoardQuery): Promise<Do
   ensureCan(actor, 'read', 'Service', { farmId }, 'That doe board');
   return withTenant(actor, async (tx) => {
     const clock = await farmClockOf(tx, actor.coopId, farmId);
-    const rows = await selectPrepared<DoeFactsRow>(tx, doeFactsSql(false), [actor.coopId, farmId]);
+    const rows = await selectPrepared<DoeFactsRow>(tx, doeFactsSql, [actor.coopId, farmId]);
     const settings = settingsOfRow(rows[0]);
     const all = rows.map((row) => itemOf(row, clock.today, settings));
     const order = boardOrders[q.sort];

@@ -97,7 +97,7 @@ export type HerdListRow = Pick<
   AnimalRow,
   | 'id' | 'coop_id' | 'owning_farm_id' | 'keeping_farm_id' | 'tattoo' | 'name' | 'sex' | 'breed_id' | 'birth_date' | 'hutch'
   | 'lifecycle' | 'disposition' | 'coi' | 'makeup_breeds' | 'makeup_unknown' | 'purity' | 'latest_grams' | 'latest_weighed_on' | 'latest_review_state'
-> & { total: number };
+> & { total: number; cycle_facts?: unknown };
 
 const listColumns = `
   a.id, a.coop_id, a.owning_farm_id, a.keeping_farm_id, a.tattoo, a.name, a.sex, a.breed_id,
@@ -109,10 +109,12 @@ const listColumns = `
  * latest weight looked up by key: the figures are joined after paging, so the co-op's other rows are never
  * read. `full` reads whole records (the export), else only what the list shows.
  */
-async function selectPage<Row extends object>(tx: Transaction, pageSql: string, bind: unknown[], weightsSeenBy: string, full: boolean): Promise<Row[]> {
+async function selectPage<Row extends object>(
+  tx: Transaction, pageSql: string, bind: unknown[], weightsSeenBy: string, full: boolean, extraColumn?: string,
+): Promise<Row[]> {
   const viewer = `$${bind.length + 1}`;
   const sql = `WITH page AS MATERIALIZED (${pageSql})
-    SELECT ${full ? columns : listColumns}, page.total::int AS total,
+    SELECT ${full ? columns : listColumns}, page.total::int AS total,${extraColumn ? ` ${extraColumn} AS cycle_facts,` : ''}
       w.total_grams AS latest_grams, w.weighed_on::text AS latest_weighed_on, w.review_state AS latest_review_state
     FROM page JOIN animals a ON a.id = page.id
     LEFT JOIN LATERAL (SELECT fi.coi FROM animal_inbreeding fi WHERE fi.animal_id = a.id LIMIT 1) i ON true
@@ -124,8 +126,9 @@ async function selectPage<Row extends object>(tx: Transaction, pageSql: string, 
   return selectPrepared<Row>(tx, sql, [...bind, weightsSeenBy]);
 }
 
-export function selectHerdListPage(tx: Transaction, pageSql: string, bind: unknown[], weightsSeenBy: string): Promise<HerdListRow[]> {
-  return selectPage<HerdListRow>(tx, pageSql, bind, weightsSeenBy, false);
+/** The herd list's page; `cycleFactsColumn` (of animal `a`) is read as `cycle_facts`. */
+export function selectHerdListPage(tx: Transaction, pageSql: string, bind: unknown[], weightsSeenBy: string, cycleFactsColumn?: string): Promise<HerdListRow[]> {
+  return selectPage<HerdListRow>(tx, pageSql, bind, weightsSeenBy, false, cycleFactsColumn);
 }
 
 export function selectAnimalPage(tx: Transaction, pageSql: string, bind: unknown[], weightsSeenBy: string): Promise<(AnimalRow & { total: number })[]> {

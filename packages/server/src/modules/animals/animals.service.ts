@@ -13,10 +13,9 @@ import { presentAnimal, presentListItem, type PresentContext } from './animals.p
 
 /* The herd as its own screens read it: the farm's list and one animal's full record. */
 
-/** Where does stand in their cycle: the Almanac's reading (services, litters, the farm's settings), plugged in by the composition root. */
-export const doeCyclesOfPage = port<(tx: Transaction, coopId: string, farmId: string, doeIds: string[], today: string) => Promise<Map<string, DoeCycleState>>>(
-  'doe cycles of the herd list',
-);
+/** Where does stand in their cycle, which the Almanac reads (services, litters, the farm's settings): plugged in by the composition root. */
+export const doeCycleFactsColumn = port<(farmParam: string) => string>('doe cycle facts column of the herd list');
+export const doeCycleOfFacts = port<(facts: unknown, today: string) => DoeCycleState>('doe cycle of the herd list');
 
 /**
  * The actor's own herd (the animals their farm owns or keeps), filtered, sorted and paged in SQL; `present`
@@ -26,8 +25,7 @@ async function herdPage<Row extends HerdListRow, Item>(
   actor: SessionUser,
   q: AnimalListQuery,
   select: (tx: Transaction, pageSql: string, bind: unknown[], weightsSeenBy: string) => Promise<Row[]>,
-  present: (row: Row, ctx: PresentContext, cycles: Map<string, DoeCycleState>) => Item,
-  withCycles = false,
+  present: (row: Row, ctx: PresentContext) => Item,
 ): Promise<{ items: Item[]; total: number; page: number; pageSize: number }> {
   return withTenant(actor, async (tx) => {
     const farmId = actor.farmId;
@@ -46,18 +44,16 @@ async function herdPage<Row extends HerdListRow, Item>(
       if (can === undefined) readable.set(pair, (can = ctx.ability!.can('read', subjectOfRow(row))));
       return can;
     };
-    const shown = rows.filter(canRead);
-    // The does this farm keeps carry where they stand in their cycle: one statement for the page's does.
-    const does = withCycles ? shown.filter((r) => r.sex === 'doe' && r.keeping_farm_id === farmId && r.disposition === 'on_farm').map((r) => r.id) : [];
-    const cycles = does.length > 0 ? await doeCyclesOfPage(tx, actor.coopId, farmId, does, ctx.today) : new Map<string, DoeCycleState>();
-    const items = shown.map((row) => present(row, ctx, cycles));
+    const items = rows.filter(canRead).map((row) => present(row, ctx));
     return { items, total, page: q.page, pageSize: q.pageSize };
   });
 }
 
 /** The herd list: one page of the farm's animals, each with what the list shows. */
 export function listHerd(actor: SessionUser, q: AnimalListQuery): Promise<AnimalListDto> {
-  return herdPage(actor, q, selectHerdListPage, (row, ctx, cycles) => presentListItem(row, ctx, cycles.get(row.id) ?? null), true);
+  // The does this farm keeps carry where they stand in their cycle, read in the page's own statement.
+  const select = (tx: Transaction, pageSql: string, bind: unknown[], farmId: string) => selectHerdListPage(tx, pageSql, bind, farmId, doeCycleFactsColumn('$2'));
+  return herdPage(actor, q, select, (row, ctx) => presentListItem(row, ctx, row.cycle_facts ? doeCycleOfFacts(row.cycle_facts, ctx.today) : null));
 }
 
 /** Whole records of the herd list's animals, in its order (the export of the list). */
