@@ -57,6 +57,22 @@ describe('the session on each request', () => {
     expect(moved!).toBeGreaterThanOrEqual(asked + idleMs - 1000);
   });
 
+  it('when several requests of one session overlap after a good part of the idle window, then its expiry is written once between them', async () => {
+    const coop = await createTestCoop();
+    const idleMs = testApp().config.sessionIdleSeconds * 1000;
+    const counting = await countingAgentFor(coop.member.email, TEST_PASSWORD);
+    await appDb((c) =>
+      c.query(`UPDATE user_sessions SET expire = expire - make_interval(secs => $2) WHERE sess->'passport'->>'user' = $1`, [coop.member.id, (idleMs * 0.2) / 1000]),
+    );
+    const [aged] = await storedExpiry(coop.member.id);
+    const requests = await counting.countEach((agent) => Promise.all(Array.from({ length: 6 }, () => agent.get('/api/animals').expect(200))));
+    expect(requests).toHaveLength(6);
+    const writes = requests.flatMap((r) => r.statements.filter((sql) => /^\s*UPDATE "user_sessions" SET expire/.test(sql)));
+    expect(writes).toHaveLength(1);
+    const [moved] = await storedExpiry(coop.member.id);
+    expect(moved!).toBeGreaterThan(aged!);
+  });
+
   it('when the person is disabled between two requests, then the second is refused although the expiry was not written in between', async () => {
     const coop = await createTestCoop();
     const counting = await countingAgentFor(coop.member.email, TEST_PASSWORD);

@@ -57,6 +57,8 @@ export interface CountingAgent {
   agent: Agent;
   /** Sends one request and answers with it and the round trips it made to the database. */
   count(send: (agent: Agent) => PromiseLike<supertest.Response>): Promise<StatementCount & { res: supertest.Response }>;
+  /** Sends any number of requests (at once, if `send` likes) and answers with each one's round trips. */
+  countEach(send: (agent: Agent) => PromiseLike<unknown>): Promise<StatementCount[]>;
 }
 
 /**
@@ -84,6 +86,12 @@ export async function countingAgentFor(email: string, password: string, handle: 
       await new Promise((resolve) => setImmediate(resolve));
       if (logs.length !== 1) throw new Error(`expected one request, saw ${logs.length}`);
       return { res, ...classify(logs[0]!) };
+    },
+    async countEach(send) {
+      logs = [];
+      await send(agent);
+      await new Promise((resolve) => setImmediate(resolve));
+      return logs.map(classify);
     },
   };
 }

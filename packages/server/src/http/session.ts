@@ -30,7 +30,7 @@ type SessionRow = { sess: session.SessionData | string; expire_ms: number } & { 
 function leanStore(PgStore: typeof connectPgSimple.PGStore, pool: pg.Pool, idleSeconds: number) {
   const touchAfterMs = idleSeconds * 1000 * SESSION_TOUCH_SHARE;
   return class LeanPgStore extends PgStore {
-    /** The expiry each session had when this instance last read it. */
+    /** The latest expiry this instance read or wrote for each session (a stored expiry only ever moves on). */
     private readonly storedExpiry = new Map<string, number>();
 
     override get(sid: string, callback: (err: unknown, session?: session.SessionData | null) => void): void {
@@ -48,7 +48,8 @@ function leanStore(PgStore: typeof connectPgSimple.PGStore, pool: pg.Pool, idleS
         })
         .then(({ rows: [row] }) => {
           if (!row) return callback(null, null);
-          remember(this.storedExpiry, sid, row.expire_ms);
+          // What this instance wrote meanwhile may be later than what an overlapping request read: keep the later.
+          remember(this.storedExpiry, sid, Math.max(row.expire_ms, this.storedExpiry.get(sid) ?? 0));
           if (row.id) keepIdentityOfSession(sid, row as IdentityRow);
           callback(null, typeof row.sess === 'string' ? (JSON.parse(row.sess) as session.SessionData) : row.sess);
         }, callback);
@@ -60,8 +61,10 @@ function leanStore(PgStore: typeof connectPgSimple.PGStore, pool: pg.Pool, idleS
       const stored = this.storedExpiry.get(sid);
       const next = sess.cookie?.expires ? new Date(sess.cookie.expires).getTime() : Number.NaN;
       if (stored !== undefined && next - stored < touchAfterMs) return callback?.();
+      // Counted as written from now on, so a request of the session ending meanwhile does not write it again.
+      if (Number.isFinite(next)) remember(this.storedExpiry, sid, next);
       super.touch(sid, sess, (error?: unknown) => {
-        if (!error && Number.isFinite(next)) remember(this.storedExpiry, sid, next);
+        if (error) this.storedExpiry.delete(sid);
         callback?.(error);
       });
     }
