@@ -86,19 +86,18 @@ async function captureHerdQuery(): Promise<void> {
   const handle = createApp({ appUrl: url });
   server.on('request', handle.app);
   const cookie = await signIn(url);
-  // Taken where every statement goes out, on pg's client: as text and values, and with its name when
-  // the API sends it as a prepared statement (the bare endpoint then prepares it too).
-  let captured: { sql: string; bind: unknown[]; name?: string } | null = null;
+  // Taken where every statement goes out, on pg's client. The list's page is its transaction's first
+  // statement, so it travels with the opening as SQL `PREPARE` (once per connection) and `EXECUTE` with its
+  // values written in: the bare endpoint prepares it once per connection too and sends the same EXECUTE.
+  let captured: { prepare: string; execute: string } | null = null;
   const pg = (await import('pg')).default;
   const send = pg.Client.prototype.query;
   pg.Client.prototype.query = function capture(this: unknown, ...args: unknown[]) {
-    const [first, second] = args as [string | { text?: string; values?: unknown[]; name?: string }, unknown];
+    const [first] = args as [string | { text?: string }];
     const sql = typeof first === 'string' ? first : (first?.text ?? '');
-    const bind = typeof first === 'string' ? (Array.isArray(second) ? second : []) : (first?.values ?? []);
     // The list's own SELECT: the page with its figures (not the co-op's breeds and farms read beside it).
-    if (/WITH page AS MATERIALIZED/.test(sql) && (!captured || sql.length > captured.sql.length)) {
-      captured = { sql, bind, ...(typeof first === 'object' && first?.name ? { name: first.name } : {}) };
-    }
+    const prepared = /(PREPARE "(p_[^"]+)" AS [\s\S]*WITH page AS MATERIALIZED[\s\S]*)\n; (EXECUTE "\2"[\s\S]*)$/.exec(sql);
+    if (prepared && !captured) captured = { prepare: prepared[1]!, execute: prepared[3]! };
     return (send as (...a: unknown[]) => unknown).apply(this, args);
   } as typeof send;
   const res = await fetch(`${url}/api/animals`, { headers: { cookie } });
@@ -106,7 +105,7 @@ async function captureHerdQuery(): Promise<void> {
   pg.Client.prototype.query = send;
   server.closeAllConnections();
   await new Promise<void>((resolve) => server.close(() => resolve()));
-  if (!captured) throw new Error('the herd list sent no SELECT from animals');
+  if (!captured) throw new Error('the herd list sent no page SELECT as its first statement');
   fs.writeFileSync(queryFile, JSON.stringify({ ...(captured as object), coopId: coop!.coopId }));
   console.log(`herd list of the signed-in farm: ${body.items.length} rows of ${body.total} (status ${res.status})`);
 }
@@ -259,16 +258,19 @@ try {
   console.log(`  herd list: ${herdStatements.toFixed(1)} statements a request (session and transaction included)`);
 
   // Plans of the heavy queries, as the app role under the co-op's tenant.
-  const captured = JSON.parse(fs.readFileSync(queryFile, 'utf8')) as { sql: string; bind: unknown[] };
-  const explain = async (label: string, sql: string, bind: unknown[]) => {
+  const captured = JSON.parse(fs.readFileSync(queryFile, 'utf8')) as { prepare: string; execute: string };
+  const explain = async (label: string, sql: string, bind: unknown[], prepare?: string) => {
     const plan = await database().transaction(async (tx) => {
-      await database().query(`SELECT set_config('app.coop_id', $1, true)`, { bind: [coop!.coopId], transaction: tx });
+      await database().query(`SELECT set_config('app.coop_id', $1, true), set_config('plan_cache_mode', 'force_generic_plan', true)`, { bind: [coop!.coopId], transaction: tx });
+      const name = prepare ? /^PREPARE "([^"]+)"/.exec(prepare)![1]! : null;
+      const known = name ? await database().query('SELECT 1 FROM pg_prepared_statements WHERE name = $1', { bind: [name], transaction: tx, type: 'SELECT' as never }) : [];
+      if (prepare && (known as unknown[]).length === 0) await database().query(prepare, { transaction: tx });
       return database().query(`EXPLAIN (ANALYZE, BUFFERS) ${sql}`, { bind, transaction: tx, type: 'SELECT' as never });
     });
     console.log(`\n--- EXPLAIN (ANALYZE, BUFFERS): ${label}`);
     for (const row of plan as unknown as { 'QUERY PLAN': string }[]) console.log(row['QUERY PLAN']);
   };
-  await explain('herd list (the API\'s SELECT)', captured.sql, captured.bind);
+  await explain('herd list (the API\'s SELECT)', captured.execute, [], captured.prepare);
   await explain('the co-op\'s whole pedigree (read per comparison before the shared index)', 'SELECT id, sire_id, dam_id, breed_id FROM animals WHERE coop_id = $1 AND deleted_at IS NULL', [coop.coopId]);
   const slowest = psql(`SELECT round(mean_exec_time::numeric, 1) || ' ms  ' || calls || ' calls  ' || left(regexp_replace(query, '\\s+', ' ', 'g'), 160)
     FROM pg_stat_statements s JOIN pg_roles r ON r.oid = s.userid WHERE r.rolname = 'burrowline_app' ORDER BY mean_exec_time DESC LIMIT 8`);

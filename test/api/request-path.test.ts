@@ -1,6 +1,8 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { QueryTypes } from 'sequelize';
 import { database } from '../../packages/server/src/composition/database';
+import pg from 'pg';
+import { selectPrepared, selectRows } from '../../packages/server/src/db/prepared';
 import { withTenant } from '../../packages/server/src/db/tenant';
 import { SESSION_TOUCH_SHARE } from '../../packages/server/src/http/session';
 import { appDb, asTenant } from '../support/db';
@@ -141,4 +143,47 @@ describe('the tenant transaction', () => {
     const [row] = await asTenant(coop.id, async (c) => (await c.query<{ name: string }>('SELECT name FROM cooperatives WHERE id = $1', [coop.id])).rows);
     expect(row!.name).toBe(coop.name);
   });
+
+  it('when a prepared read is the first statement, then it travels with the opening and is prepared once per connection, the same rows as a plain read', async () => {
+    const coop = await createTestCoop();
+    const handle = testApp();
+    const sql = `SELECT id, name, current_setting('app.coop_id', true) AS coop FROM cooperatives WHERE id = $1 AND length(name) > $2`;
+    const sent: string[] = [];
+    const original = pg.Client.prototype.query;
+    pg.Client.prototype.query = function logged(this: pg.Client, ...args: unknown[]) {
+      if (typeof args[0] === 'string' && args[0].includes('length(name) >')) sent.push(args[0]);
+      return (original as (...a: unknown[]) => unknown).apply(this, args);
+    } as typeof original;
+    try {
+      for (let i = 0; i < 3 * handle.config.databasePoolMax; i++) {
+        const rows = await withTenant({ coopId: coop.id }, (tx) => selectPrepared<{ id: string; name: string; coop: string }>(tx, sql, [coop.id, 0]));
+        expect(rows).toEqual([{ id: coop.id, name: coop.name, coop: coop.id }]);
+      }
+    } finally {
+      pg.Client.prototype.query = original;
+    }
+    expect(sent.every((text) => /^\s*START TRANSACTION;/.test(text))).toBe(true);
+    const prepares = sent.filter((text) => /\bPREPARE "p_/.test(text));
+    expect(prepares.length).toBeGreaterThan(0);
+    expect(prepares.length).toBeLessThanOrEqual(handle.config.databasePoolMax);
+  });
+
+  it('when a prepared first statement fails after it was prepared, then the next runs of it on every connection still answer', async () => {
+    const coop = await createTestCoop();
+    const handle = testApp();
+    const sql = `SELECT 100 / $1::int AS share, current_setting('app.coop_id', true) AS coop`;
+    const run = (divisor: number) => withTenant({ coopId: coop.id }, (tx) => selectPrepared<{ share: number; coop: string }>(tx, sql, [divisor]));
+    for (let i = 0; i < handle.config.databasePoolMax; i++) await expect(run(0)).rejects.toThrow(/division by zero/);
+    for (let i = 0; i < 3 * handle.config.databasePoolMax; i++) {
+      expect(await run(4)).toEqual([{ share: 25, coop: coop.id }]);
+      // Also as a later statement of a transaction (the extended protocol's own prepared statement).
+      expect(
+        await withTenant({ coopId: coop.id }, async (tx) => {
+          await selectRows(tx, 'SELECT 1');
+          return selectPrepared<{ share: number }>(tx, sql, [5]);
+        }),
+      ).toEqual([{ share: 20, coop: coop.id }]);
+    }
+  });
 });
+

@@ -37,12 +37,8 @@ type Send = (...args: unknown[]) => unknown;
  * no simple shape; the opening then goes on its own.
  */
 export function inlineParameters(text: string, values: readonly unknown[], quote: (value: string) => string): string | null {
-  const literals: string[] = [];
-  for (const value of values) {
-    const prepared = textOf(value);
-    if (prepared === NOT_TEXT) return null;
-    literals.push(prepared === null ? 'NULL' : quote(prepared));
-  }
+  const literals = literalsOf(values, quote);
+  if (literals === null) return null;
   let out = '';
   let i = 0;
   while (i < text.length) {
@@ -108,6 +104,17 @@ function textOf(value: unknown): string | null | typeof NOT_TEXT {
   return typeof prepared === 'string' ? prepared : NOT_TEXT;
 }
 
+/** Values as SQL literals (`NULL` or quoted text, typed by where they stand); null when one has no text form (binary data). */
+export function literalsOf(values: readonly unknown[], quote: (value: string) => string): string[] | null {
+  const literals: string[] = [];
+  for (const value of values) {
+    const text = textOf(value);
+    if (text === NOT_TEXT) return null;
+    literals.push(text === null ? 'NULL' : quote(text));
+  }
+  return literals;
+}
+
 /** What the opened connection answers for the statement that followed the opening. */
 function ownResults(result: unknown): unknown {
   if (!Array.isArray(result)) return result;
@@ -154,6 +161,8 @@ export function openTenantTransactionsWithFirstStatement(sequelize: Sequelize): 
     if (typeof coopId !== 'string' || !UUID.test(coopId) || !connection || (transaction as unknown as { parent?: Transaction }).parent) {
       return startTransaction(transaction, options);
     }
+    // Generic plans for the transaction's prepared statements: their parameters are ids, so one plan serves
+    // every co-op, and planning each run (what the default does for most of our lists) costs more than it saves.
     pendingOpening.set(connection, `START TRANSACTION; SELECT set_config('app.coop_id', '${coopId}', true), set_config('plan_cache_mode', 'force_generic_plan', true); `);
     return undefined as never;
   };

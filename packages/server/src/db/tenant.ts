@@ -1,10 +1,13 @@
 import type { Transaction } from 'sequelize';
+import { knowDirectoryVersion } from './coop-directory';
 import { isLostConnection, isSerializationFailure, isUniqueViolation } from './database-errors';
 import { database } from './sequelize';
 import { tenantTransactionOptions } from './tenant-opening';
 
 export interface TenantActor {
   coopId: string;
+  /** The co-op's directory version as the request read it with its session, when it did. */
+  directoryVersion?: string;
 }
 
 /** Runs of one transaction at most: a clash with a concurrent commit settles on the second run. */
@@ -39,6 +42,7 @@ export async function withTenant<T>(actor: TenantActor, work: (tx: Transaction) 
     try {
       // The transaction opens with its first statement, the co-op set for it alone (see tenant-opening.ts).
       return await database().transaction(tenantTransactionOptions(actor.coopId), async (tx) => {
+        if (actor.directoryVersion) knowDirectoryVersion(tx, actor.coopId, actor.directoryVersion);
         const result = await work(tx);
         workFinished = true;
         return result;

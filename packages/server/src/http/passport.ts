@@ -30,6 +30,8 @@ export interface IdentityRow {
   role: Role;
   disabled_at: Date | null;
   sessions_valid_after: Date;
+  /** Read with the session only (see session.ts). */
+  directory_version?: string | null;
 }
 
 /** Identity look-ups run before the tenant is known: SECURITY DEFINER functions (see migration 0002). */
@@ -107,5 +109,6 @@ function toSessionUser(row: IdentityRow): SessionUser {
     email: row.email,
     name: row.name,
     role: row.role,
+    ...(row.directory_version ? { directoryVersion: row.directory_version } : {}),
   };
 }

@@ -38,7 +38,9 @@ function leanStore(PgStore: typeof connectPgSimple.PGStore, pool: pg.Pool, idleS
         .query<SessionRow>({
           // Named, so each connection plans it once: every request sends it.
           name: 'session-with-person',
-          text: `SELECT s.sess, extract(epoch FROM s.expire::timestamptz)::float8 * 1000 AS expire_ms, u.*
+          // With the person, the version of their co-op's breeds and farms (db/coop-directory.ts).
+          text: `SELECT s.sess, extract(epoch FROM s.expire::timestamptz)::float8 * 1000 AS expire_ms, u.*,
+               CASE WHEN u.id IS NOT NULL THEN coop_directory_version(u.coop_id) END AS directory_version
              FROM user_sessions s
              LEFT JOIN LATERAL auth_user_by_id(
                CASE WHEN s.sess->'passport'->>'user' ~* '^[0-9a-f-]{36}$' THEN (s.sess->'passport'->>'user')::uuid END

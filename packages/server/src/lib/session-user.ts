@@ -9,4 +9,6 @@ export interface SessionUser {
   email: string;
   name: string;
   role: Role;
+  /** The version of the co-op's breeds and farms read with the session: lets what an instance keeps of them serve the request. */
+  directoryVersion?: string;
 }
