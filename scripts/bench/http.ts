@@ -90,21 +90,32 @@ async function captureHerdQuery(): Promise<void> {
   // statement, so it travels with the opening as SQL `PREPARE` (once per connection) and `EXECUTE` with its
   // values written in: the bare endpoint prepares it once per connection too and sends the same EXECUTE.
   let captured: { prepare: string; execute: string } | null = null;
+  const pageSql = new Map<string, string>();
+  let execute: { name: string; text: string } | null = null;
   const pg = (await import('pg')).default;
   const send = pg.Client.prototype.query;
   pg.Client.prototype.query = function capture(this: unknown, ...args: unknown[]) {
-    const [first] = args as [string | { text?: string }];
-    const sql = typeof first === 'string' ? first : (first?.text ?? '');
+    const [first] = args as [string | { text?: string; name?: string }];
     // The list's own SELECT: the page with its figures (not the co-op's breeds and farms read beside it).
-    const prepared = /(PREPARE "(p_[^"]+)" AS [\s\S]*WITH page AS MATERIALIZED[\s\S]*)\n; (EXECUTE "\2"[\s\S]*)$/.exec(sql);
-    if (prepared && !captured) captured = { prepare: prepared[1]!, execute: prepared[3]! };
+    if (typeof first === 'object' && first?.name && first.text?.includes('WITH page AS MATERIALIZED')) pageSql.set(first.name, first.text);
+    if (typeof first === 'string') {
+      const inline = /PREPARE "(p_[^"]+)" AS ([\s\S]*WITH page AS MATERIALIZED[\s\S]*)\n; EXECUTE "\1"/.exec(first);
+      if (inline) pageSql.set(inline[1]!, inline[2]!);
+      const executed = /(EXECUTE "(p_[^"]+)"[\s\S]*)$/.exec(first);
+      if (executed && pageSql.has(executed[2]!)) execute = { name: executed[2]!, text: executed[1]! };
+    }
     return (send as (...a: unknown[]) => unknown).apply(this, args);
   } as typeof send;
+  // Twice: the first request reads the co-op's breeds and farms first; the second, with them kept, opens with the page.
+  await (await fetch(`${url}/api/animals`, { headers: { cookie } })).arrayBuffer();
   const res = await fetch(`${url}/api/animals`, { headers: { cookie } });
   const body = (await res.json()) as { items: unknown[]; total: number };
   pg.Client.prototype.query = send;
   server.closeAllConnections();
   await new Promise<void>((resolve) => server.close(() => resolve()));
+  const sent = execute as { name: string; text: string } | null;
+  const text = sent ? pageSql.get(sent.name) : undefined;
+  if (sent && text) captured = { prepare: `PREPARE "${sent.name}" AS ${text}`, execute: sent.text };
   if (!captured) throw new Error('the herd list sent no page SELECT as its first statement');
   fs.writeFileSync(queryFile, JSON.stringify({ ...(captured as object), coopId: coop!.coopId }));
   console.log(`herd list of the signed-in farm: ${body.items.length} rows of ${body.total} (status ${res.status})`);

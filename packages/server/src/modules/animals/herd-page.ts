@@ -93,16 +93,20 @@ export function herdPageSql(q: AnimalListQuery, coopId: string, farmId: string, 
   const orderBy = [key ? `sort_key ${dir}` : null, `tattoo_key ${dir}`, `id ${dir}`].filter(Boolean).join(', ');
   const limit = param(q.pageSize, '::bigint');
   const offset = param((q.page - 1) * q.pageSize, '::bigint');
-  // Every matching row is read for the sort anyway, so counting them there spares a statement.
-  const pageSql = `SELECT id, total, row_number() OVER () AS position FROM (
-      SELECT matching.*, count(*) OVER () AS total FROM (
-        ${branch('a.owning_farm_id = $2')}
+  const countSql = `SELECT ((SELECT count(*) FROM animals a WHERE a.owning_farm_id = $2 AND ${filters})
+    + (SELECT count(*) FROM animals a WHERE ${lentIn} AND ${filters}))::int AS total`;
+  // The page is read in the order of the sort's index, so a large herd costs no more than a small one but
+  // for its count, taken beside it (the count's parameters are the page's first ones).
+  // Each branch is cut to the rows up to the page's end in its own order (an index's, for the sorts kept on
+  // `animals`), so only those are merged and sorted.
+  const upToPageEnd = `ORDER BY ${orderBy} LIMIT ${limit} + ${offset}`;
+  const pageSql = `SELECT id, (${countSql}) AS total, row_number() OVER () AS position FROM (
+      SELECT matching.id FROM (
+        (${branch('a.owning_farm_id = $2')} ${upToPageEnd})
         UNION ALL
-        ${branch(lentIn)}
+        (${branch(lentIn)} ${upToPageEnd})
       ) matching
       ORDER BY ${orderBy} LIMIT ${limit} OFFSET ${offset}
     ) ordered`;
-  const countSql = `SELECT ((SELECT count(*) FROM animals a WHERE a.owning_farm_id = $2 AND ${filters})
-    + (SELECT count(*) FROM animals a WHERE ${lentIn} AND ${filters}))::int AS total`;
   return { pageSql, pageBind: bind, countSql, countBind };
 }
