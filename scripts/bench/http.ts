@@ -5,7 +5,7 @@
 // server and the database (which a busy machine changes far less than latency), the load average, the SQL
 // statements a request sends (pg_stat_statements), the other heavy reads at 10 connections and the
 // plans of the heavy queries. Prints figures; never a timed test.
-// Run: `npm run bench http` (or `npm run bench http -- --200k`). BENCH_PG_PORT (default 54380),
+// Run: `npm run bench http` (or `npm run bench http -- --200k`, `-- --5k`). BENCH_PG_PORT (default 54380; 5k 54381, 200k 54382),
 // BENCH_API_PORT / BENCH_BARE_PORT (default 0: any free port), BENCH_HTTP_SECONDS (8 a round), BENCH_HTTP_ROUNDS (3).
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
@@ -27,9 +27,10 @@ interface AutocannonResult {
 type Autocannon = (opts: Record<string, unknown>) => Promise<AutocannonResult>;
 const autocannon = createRequire(import.meta.url)('autocannon') as Autocannon;
 
-const big = process.argv.includes('--200k') || process.env.BENCH_HTTP_ANIMALS === '200000';
-const ANIMALS = big ? 200_000 : 50_000;
-const PG_PORT = Number(process.env.BENCH_PG_PORT ?? 54380);
+// `--200k` and `--5k` build (once) and load co-ops of those sizes, to show the herd list's cost follows the page, not the co-op.
+const ANIMALS = process.argv.includes('--200k') ? 200_000 : process.argv.includes('--5k') ? 5_000 : Number(process.env.BENCH_HTTP_ANIMALS ?? 50_000);
+// Each size in a cluster of its own, on a port of its own, so they can run side by side.
+const PG_PORT = Number(process.env.BENCH_PG_PORT ?? ({ 5000: 54381, 200000: 54382 } as Record<number, number>)[ANIMALS] ?? 54380);
 const API_PORT = Number(process.env.BENCH_API_PORT ?? 0);
 const BARE_PORT = Number(process.env.BENCH_BARE_PORT ?? 0);
 const SECONDS = Number(process.env.BENCH_HTTP_SECONDS ?? 8);
