@@ -21,22 +21,34 @@ export type AnimalRefRow<P extends string> = {
   [K in `${P}_name` | `${P}_tattoo` | `${P}_keeping_farm_id`]: string | null;
 } & { [K in `${P}_sex`]: Sex | null };
 
-/** The reference to animal `id` from the columns under `prefix` of `row`; farm names from the co-op's directory. */
-export function animalRefOf<P extends string>(
-  id: string,
-  row: AnimalRefRow<P>,
-  prefix: P,
-  farms: Map<string, { name: string }>,
-): AnimalRefDto {
+/** What a reference shows of an animal (the herd's facts of an animal have these too). */
+export interface AnimalRefFacts {
+  name: string;
+  tattoo: string | null;
+  sex: Sex;
+  keepingFarmId: string | null;
+}
+
+/** The reference to animal `id`; with no facts (deleted, or not the co-op's) it shows no name. */
+export function animalRef(id: string, animal: AnimalRefFacts | undefined, farms: Map<string, { name: string }>): AnimalRefDto {
+  const farm = animal?.keepingFarmId ? { id: animal.keepingFarmId, name: farms.get(animal.keepingFarmId)?.name ?? 'A former member farm' } : null;
+  return { id, name: animal?.name ?? '', tattoo: animal?.tattoo ?? null, sex: animal?.sex ?? 'doe', farm };
+}
+
+/** The facts under `prefix` of `row`; undefined when the statement found no live animal. */
+export function animalRefFactsOf<P extends string>(row: AnimalRefRow<P>, prefix: P): AnimalRefFacts | undefined {
   const r = row as Record<string, unknown>;
   const sex = r[`${prefix}_sex`] as Sex | null;
-  if (sex === null) return { id, name: '', tattoo: null, sex: 'doe', farm: null };
-  const keepingFarmId = r[`${prefix}_keeping_farm_id`] as string | null;
+  if (sex === null) return undefined;
   return {
-    id,
     name: (r[`${prefix}_name`] as string | null) ?? '',
     tattoo: r[`${prefix}_tattoo`] as string | null,
     sex,
-    farm: keepingFarmId ? { id: keepingFarmId, name: farms.get(keepingFarmId)?.name ?? 'A former member farm' } : null,
+    keepingFarmId: r[`${prefix}_keeping_farm_id`] as string | null,
   };
+}
+
+/** The reference to animal `id` from the columns under `prefix` of `row`; farm names from the co-op's directory. */
+export function animalRefOf<P extends string>(id: string, row: AnimalRefRow<P>, prefix: P, farms: Map<string, { name: string }>): AnimalRefDto {
+  return animalRef(id, animalRefFactsOf(row, prefix), farms);
 }
