@@ -76,9 +76,11 @@ const nursingIn = (l: LitterFacts, from: string, to: string, inGroups: KitsInGro
 const firstPage = feedBookQuerySchema.parse({});
 
 /**
- * A page of the book in one statement: every purchase with its stock left (newest first), the count of
- * the feed given, and the page of it, latest first, with the figures stored beside its rows and what its
- * labels name (the group, pen or doe fed, who entered it, and each share's group or litter and its dam).
+ * A page of the book in one statement and one row: every purchase with its stock left (newest first), the
+ * count of the feed given, and the page of it, latest first, with the figures stored beside its rows and
+ * what its labels name (the group, pen or doe fed, who entered it, and each share's group or litter and its
+ * dam). Labels are looked up by key for the page's rows only; as the request's first statement it is planned
+ * on each request, so it keeps to plain lookups the planner has no join order to search for.
  */
 const feedBookPageSql = `SELECT
     (SELECT count(*)::int FROM feed_uses c WHERE c.coop_id = $1 AND c.farm_id = $2 AND c.deleted_at IS NULL) AS "usesTotal",
@@ -88,41 +90,38 @@ const feedBookPageSql = `SELECT
         'gramsLeft', p.grams_left
       ) ORDER BY p.bought_on DESC, p.created_at DESC), '[]')
      FROM feed_purchases p WHERE p.coop_id = $1 AND p.farm_id = $2 AND p.deleted_at IS NULL) AS purchases,
-    u.*
-  FROM (SELECT 1) head LEFT JOIN LATERAL (
-    SELECT u.id, u.given_on::text AS "givenOn", u.from_on::text AS "fromOn", u.grams, u.feed_key AS "feedKey", u.purchase_id AS "purchaseId",
-      u.target, u.group_id AS "groupId", u.housing_unit_id AS "housingUnitId", u.doe_id AS "doeId", u.allocation, u.version, u.entered_by AS "enteredBy", u.note,
-      u.cost_cents::float8 AS "costCents", g.name AS "groupName", unit.name AS "unitName", doe.name AS "doeName", who.name AS "enteredByName",
-      row_number() OVER (ORDER BY u.given_on DESC, u.created_at DESC) AS position,
-      (SELECT coalesce(json_agg(json_build_object(
-          'groupId', s.group_id, 'litterId', s.litter_id, 'grams', s.grams, 'groupName', sg.name,
-          'litter', CASE WHEN l.id IS NULL THEN NULL ELSE json_build_object('damId', l.dam_id, 'kindledOn', l.kindled_on, 'damName', dam.name) END
-        ) ORDER BY s.id), '[]')
-       FROM feed_use_shares s
-       LEFT JOIN grow_out_groups sg ON sg.id = s.group_id AND sg.deleted_at IS NULL
-       LEFT JOIN litters l ON l.id = s.litter_id AND l.deleted_at IS NULL
-       LEFT JOIN animals dam ON dam.id = l.dam_id AND dam.deleted_at IS NULL
-       WHERE s.coop_id = u.coop_id AND s.feed_use_id = u.id) AS shares
-    FROM feed_uses u
-    LEFT JOIN grow_out_groups g ON g.id = u.group_id AND g.deleted_at IS NULL
-    LEFT JOIN housing_units unit ON unit.id = u.housing_unit_id
-    LEFT JOIN animals doe ON doe.id = u.doe_id AND doe.deleted_at IS NULL
-    LEFT JOIN users who ON who.id = u.entered_by
-    WHERE u.coop_id = $1 AND u.farm_id = $2 AND u.deleted_at IS NULL
-    ORDER BY u.given_on DESC, u.created_at DESC LIMIT $3 OFFSET $4
-  ) u ON true
-  ORDER BY u.position`;
+    (SELECT coalesce(json_agg(page ORDER BY page.position), '[]') FROM (
+      SELECT u.id, u.given_on AS "givenOn", u.from_on AS "fromOn", u.grams, u.feed_key AS "feedKey", u.purchase_id AS "purchaseId",
+        u.target, u.group_id AS "groupId", u.housing_unit_id AS "housingUnitId", u.doe_id AS "doeId", u.allocation, u.version,
+        u.entered_by AS "enteredBy", u.note, u.cost_cents AS "costCents",
+        row_number() OVER (ORDER BY u.given_on DESC, u.created_at DESC) AS position,
+        (SELECT g.name FROM grow_out_groups g WHERE g.id = u.group_id AND g.deleted_at IS NULL) AS "groupName",
+        (SELECT h.name FROM housing_units h WHERE h.id = u.housing_unit_id) AS "unitName",
+        (SELECT d.name FROM animals d WHERE d.id = u.doe_id AND d.deleted_at IS NULL) AS "doeName",
+        (SELECT who.name FROM users who WHERE who.id = u.entered_by) AS "enteredByName",
+        (SELECT coalesce(json_agg(json_build_object(
+            'groupId', s.group_id, 'litterId', s.litter_id, 'grams', s.grams,
+            'groupName', (SELECT sg.name FROM grow_out_groups sg WHERE sg.id = s.group_id AND sg.deleted_at IS NULL),
+            'litter', (SELECT json_build_object('damId', l.dam_id, 'kindledOn', l.kindled_on,
+                'damName', (SELECT dam.name FROM animals dam WHERE dam.id = l.dam_id AND dam.deleted_at IS NULL))
+              FROM litters l WHERE l.id = s.litter_id AND l.deleted_at IS NULL)
+          ) ORDER BY s.id), '[]')
+         FROM feed_use_shares s WHERE s.coop_id = u.coop_id AND s.feed_use_id = u.id) AS shares
+      FROM feed_uses u
+      WHERE u.coop_id = $1 AND u.farm_id = $2 AND u.deleted_at IS NULL
+      ORDER BY u.given_on DESC, u.created_at DESC LIMIT $3 OFFSET $4
+    ) page) AS uses`;
 
 type ShareRow = FeedBookShare & { groupName: string | null; litter: { damId: string; kindledOn: string; damName: string | null } | null };
 type UseRow = FeedBookPage['uses'][number] & {
-  groupName: string | null; unitName: string | null; doeName: string | null; enteredByName: string | null; position: string; shares: ShareRow[];
+  groupName: string | null; unitName: string | null; doeName: string | null; enteredByName: string | null; shares: ShareRow[];
 };
-type BookRow = { usesTotal: number; purchases: FeedBookPage['purchases'] } & ({ [K in keyof UseRow]: UseRow[K] | null });
+type BookRow = { usesTotal: number; purchases: FeedBookPage['purchases']; uses: UseRow[] };
 
 /** A page of the book, latest feed given first, with the labels of what it names (present only what is found). */
 async function feedBookPage(tx: Transaction, coopId: string, farmId: string, page: FeedBookQuery): Promise<{ book: FeedBookPage; labels: FeedBookLabels }> {
-  const rows = await selectPrepared<BookRow>(tx, feedBookPageSql, [coopId, farmId, page.pageSize, (page.page - 1) * page.pageSize]);
-  const uses = rows.filter((r): r is BookRow & UseRow => r.id !== null);
+  const [row] = await selectPrepared<BookRow>(tx, feedBookPageSql, [coopId, farmId, page.pageSize, (page.page - 1) * page.pageSize]);
+  const { uses } = row!;
   const labels: FeedBookLabels = { groups: new Map(), litters: new Map(), animals: new Map(), units: new Map(), names: new Map() };
   for (const u of uses) {
     if (u.groupId && u.groupName !== null) labels.groups.set(u.groupId, u.groupName);
@@ -139,12 +138,12 @@ async function feedBookPage(tx: Transaction, coopId: string, farmId: string, pag
   }
   return {
     book: {
-      purchases: rows[0]!.purchases,
+      purchases: row!.purchases,
       uses: uses.map((u) => ({
         id: u.id, givenOn: u.givenOn, fromOn: u.fromOn, grams: u.grams, feedKey: u.feedKey, purchaseId: u.purchaseId, target: u.target, groupId: u.groupId,
         housingUnitId: u.housingUnitId, doeId: u.doeId, allocation: u.allocation, version: u.version, enteredBy: u.enteredBy, note: u.note, costCents: u.costCents,
       })),
-      usesTotal: rows[0]!.usesTotal,
+      usesTotal: row!.usesTotal,
       sharesByUse: new Map(uses.map((u) => [u.id, u.shares.map((s) => ({ groupId: s.groupId, litterId: s.litterId, grams: s.grams }))])),
     },
     labels,
