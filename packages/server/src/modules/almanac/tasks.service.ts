@@ -117,10 +117,9 @@ function agendaSql(history: boolean): string {
         t.window_start::text AS "windowStart", t.window_end::text AS "windowEnd", t.age_days AS "ageDays", t.state,
         t.state_reason AS "stateReason", t.moved_from::text AS "movedFrom", t.done_on::text AS "doneOn", t.done_by AS "doneBy",
         t.completion_review AS "completionReview", t.review_comment AS "reviewComment", t.version,
-        ${animalRefColumnsSql('a', 'animal')}, u.name AS "doneByName"
+        ${animalRefColumnsSql('a', 'animal')}, (SELECT u.name FROM users u WHERE u.id = t.done_by) AS "doneByName"
       FROM almanac_tasks t
       ${animalRefJoinSql('a', 't.animal_id')}
-      LEFT JOIN users u ON u.id = t.done_by
       WHERE t.farm_id = $1 AND ((t.state IN ('open', 'moved') AND t.due_on <= $2::date)
         ${history ? "OR (t.state IN ('done', 'skipped') AND t.due_on BETWEEN $3::date AND $4::date)" : ''})
     ) t ON true`;
