@@ -79,8 +79,9 @@ const firstPage = feedBookQuerySchema.parse({});
  * A page of the book in one statement and one row: every purchase with its stock left (newest first), the
  * count of the feed given, and the page of it, latest first, with the figures stored beside its rows and
  * what its labels name (the group, pen or doe fed, who entered it, and each share's group or litter and its
- * dam). Labels are looked up by key for the page's rows only; as the request's first statement it is planned
- * on each request, so it keeps to plain lookups the planner has no join order to search for.
+ * dam). The page's ids are taken first, so labels are looked up by key for its rows only, however deep the
+ * page; as the request's first statement it is planned on each request, so it keeps to plain lookups the
+ * planner has no join order to search for.
  */
 const feedBookPageSql = `SELECT
     (SELECT count(*)::int FROM feed_uses c WHERE c.coop_id = $1 AND c.farm_id = $2 AND c.deleted_at IS NULL) AS "usesTotal",
@@ -93,8 +94,7 @@ const feedBookPageSql = `SELECT
     (SELECT coalesce(json_agg(page ORDER BY page.position), '[]') FROM (
       SELECT u.id, u.given_on AS "givenOn", u.from_on AS "fromOn", u.grams, u.feed_key AS "feedKey", u.purchase_id AS "purchaseId",
         u.target, u.group_id AS "groupId", u.housing_unit_id AS "housingUnitId", u.doe_id AS "doeId", u.allocation, u.version,
-        u.entered_by AS "enteredBy", u.note, u.cost_cents AS "costCents",
-        row_number() OVER (ORDER BY u.given_on DESC, u.created_at DESC) AS position,
+        u.entered_by AS "enteredBy", u.note, u.cost_cents AS "costCents", shown.position,
         (SELECT g.name FROM grow_out_groups g WHERE g.id = u.group_id AND g.deleted_at IS NULL) AS "groupName",
         (SELECT h.name FROM housing_units h WHERE h.id = u.housing_unit_id) AS "unitName",
         (SELECT d.name FROM animals d WHERE d.id = u.doe_id AND d.deleted_at IS NULL) AS "doeName",
@@ -107,9 +107,11 @@ const feedBookPageSql = `SELECT
               FROM litters l WHERE l.id = s.litter_id AND l.deleted_at IS NULL)
           ) ORDER BY s.id), '[]')
          FROM feed_use_shares s WHERE s.coop_id = u.coop_id AND s.feed_use_id = u.id) AS shares
-      FROM feed_uses u
-      WHERE u.coop_id = $1 AND u.farm_id = $2 AND u.deleted_at IS NULL
-      ORDER BY u.given_on DESC, u.created_at DESC LIMIT $3 OFFSET $4
+      FROM (
+        SELECT u.id, row_number() OVER (ORDER BY u.given_on DESC, u.created_at DESC) AS position FROM feed_uses u
+        WHERE u.coop_id = $1 AND u.farm_id = $2 AND u.deleted_at IS NULL
+        ORDER BY u.given_on DESC, u.created_at DESC LIMIT $3 OFFSET $4
+      ) shown JOIN feed_uses u ON u.id = shown.id
     ) page) AS uses`;
 
 type ShareRow = FeedBookShare & { groupName: string | null; litter: { damId: string; kindledOn: string; damName: string | null } | null };
