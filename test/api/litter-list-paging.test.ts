@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { LitterDto, LitterListDto } from '@burrowline/shared';
-import { almanacCounts, daysAgo, litterAs } from '../support/almanac';
+import { almanacCounts, daysAgo, farmToday, litterAs } from '../support/almanac';
 import { createTestCoop, TEST_PASSWORD, type TestCoop } from '../support/factories';
 import { ROOMY_SIGN_IN, signedInAgent, testApp, type Agent } from '../support/test-app';
 
@@ -107,5 +107,45 @@ describe('the litters list pages in the database', () => {
     }
     expect((await member.get('/api/litters').query({ limit: 5 })).status).toBe(400);
     expect(await almanacCounts(coop.id)).toEqual(before);
+  });
+});
+
+describe("the list's nursing and weaned states follow every entry on a litter", () => {
+  it('when kits are lost by an unreviewed entry, returned in review, then fostered away, then each litter shows where its kits are, filtered and counted alike', async () => {
+    const coop = await createTestCoop();
+    const member = await signedInAgent(coop.member.email, TEST_PASSWORD, handle);
+    const apprentice = await signedInAgent(coop.apprentice.email, TEST_PASSWORD, handle);
+    const { litter: giving } = await litterAs(coop.member, { servicedDaysAgo: 40, kindledDaysAgo: 9, bornAlive: 3, doe: 'Giving' });
+    const { litter: taking } = await litterAs(coop.member, { servicedDaysAgo: 38, kindledDaysAgo: 7, bornAlive: 5, doe: 'Taking' });
+    const shown = async () => {
+      const all = await list(member);
+      const nursing = await list(member, { status: 'nursing' });
+      const weanedOnes = await list(member, { status: 'weaned' });
+      return {
+        onDoe: Object.fromEntries(all.items.map((l) => [l.id === giving.id ? 'giving' : 'taking', `${l.onDoe} ${l.status}`])),
+        nursing: nursing.items.map((l) => l.id),
+        weaned: weanedOnes.items.map((l) => l.id),
+        counts: all.counts,
+      };
+    };
+
+    const loss = await apprentice.post(`/api/litters/${giving.id}/events`).send({ kind: 'lost', on: daysAgo(1), count: 3, cause: 'Found dead in the nest' });
+    expect(loss.status).toBe(201);
+    // An entry waiting for review counts (as unverified) until it is returned.
+    expect(await shown()).toEqual({
+      onDoe: { giving: '0 weaned', taking: '5 nursing' }, nursing: [taking.id], weaned: [giving.id], counts: { nursing: 1, weaned: 1, all: 2 },
+    });
+
+    const returned = await member.post(`/api/litter-events/${loss.body.events[0].id}/review`).send({ decision: 'returned', comment: 'They were asleep', version: 0 });
+    expect(returned.status).toBe(200);
+    expect(await shown()).toEqual({
+      onDoe: { giving: '3 nursing', taking: '5 nursing' }, nursing: [taking.id, giving.id], weaned: [], counts: { nursing: 2, weaned: 0, all: 2 },
+    });
+
+    const fostered = await member.post(`/api/litters/${giving.id}/fosterings`).send({ direction: 'out', otherLitterId: taking.id, on: farmToday(), count: 3 });
+    expect(fostered.status).toBe(201);
+    expect(await shown()).toEqual({
+      onDoe: { giving: '0 weaned', taking: '8 nursing' }, nursing: [taking.id], weaned: [giving.id], counts: { nursing: 1, weaned: 1, all: 2 },
+    });
   });
 });

@@ -406,6 +406,31 @@ const endpoints: Endpoint[] = [
       };
     },
   },
+  {
+    name: 'the nursing litters',
+    async arrange(coop) {
+      const { litter } = await litterAs(coop.member, { servicedDaysAgo: 40, kindledDaysAgo: 9, bornAlive: 7 });
+      return { url: '/api/litters?status=nursing&pageSize=10', asker: coop.member, growTo: litterGrower(coop.id, litter.id) };
+    },
+  },
+  {
+    name: "the Almanac agenda's open tasks of the week",
+    async arrange(coop) {
+      const taskId = await openTaskOf(coop);
+      return { url: '/api/almanac/tasks?days=7&include=open', asker: coop.member, growTo: taskGrower(coop.id, taskId) };
+    },
+  },
+  {
+    name: "the feed book's feed given to a grow-out group",
+    async arrange(coop) {
+      const { litter } = await litterAs(coop.member, { servicedDaysAgo: 80, kindledDaysAgo: 49, bornAlive: 7 });
+      const group = await groupAs(coop.member, { name: 'Fryers', formedOn: farmToday(), targetGrams: 2270, litters: [{ litterId: litter.id, heads: 7 }] });
+      await purchaseAs(coop.member, { boughtOn: daysAgo(30), productName: 'Grower', bagGrams: 25_000, bags: 100, priceCents: 100_000 });
+      await feedAs(coop.member, { givenOn: farmToday(), grams: 500, productName: 'Grower', target: 'group', groupId: group.id });
+      const useId = await onlyRowOf(coop.id, 'feed_uses');
+      return { url: '/api/feed?pageSize=10', asker: coop.member, growTo: grower(coop.id, 'feed_uses', useId) };
+    },
+  },
 ];
 
 /** A day with one booking of farm A's member (its copies make the many bookings). */

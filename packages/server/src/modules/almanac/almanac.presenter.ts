@@ -2,6 +2,7 @@ import {
   daysBetween, TASK_KIND_LABELS, taskTiming, type AlmanacTaskDto, type BreedingCheck, type PalpationDto, type ServiceDto, type ServiceListItemDto, type TreatmentDto, type TreatmentRoute,
 } from '@burrowline/shared';
 import { animalLabel, presentAnimalRef, type AnimalFacts } from '../animals/animal-facts.service';
+import { animalRef, type AnimalRefFacts } from '../../lib/animal-ref';
 import type { Palpation } from './palpation.model';
 import type { ServiceRecord } from './service-record.model';
 import type { AlmanacTask } from './task.model';
@@ -19,7 +20,17 @@ export interface AlmanacPresentContext {
 
 const person = (id: string | null, names: Map<string, string>) => (id ? { id, name: names.get(id) ?? 'Someone' } : null);
 
-export function presentTask(task: AlmanacTask, ctx: AlmanacPresentContext): AlmanacTaskDto {
+/** What of a task presenting reads (a model instance, or a plain row a list reads). */
+export type TaskFields = Pick<
+  AlmanacTask,
+  | 'id' | 'farmId' | 'kind' | 'key' | 'dueOn' | 'windowStart' | 'windowEnd' | 'anchor' | 'anchorDate' | 'ageDays' | 'state' | 'stateReason'
+  | 'movedFrom' | 'doneOn' | 'doneBy' | 'completionReview' | 'reviewComment' | 'serviceId' | 'litterId' | 'animalId' | 'version'
+>;
+
+/** What presenting a task needs besides it: only the animals' names, tattoos, sexes and keepers. */
+export type TaskPresentContext = Omit<AlmanacPresentContext, 'animals'> & { animals: Map<string, AnimalRefFacts> };
+
+export function presentTask(task: TaskFields, ctx: TaskPresentContext): AlmanacTaskDto {
   const { timing, daysLate } = taskTiming(task, ctx.today);
   const animal = task.animalId ? ctx.animals.get(task.animalId) : undefined;
   return {
@@ -46,7 +57,7 @@ export function presentTask(task: AlmanacTask, ctx: AlmanacPresentContext): Alma
     daysLate,
     serviceId: task.serviceId,
     litterId: task.litterId,
-    animal: task.animalId ? presentAnimalRef(task.animalId, ctx) : null,
+    animal: task.animalId ? animalRef(task.animalId, animal, ctx.farms) : null,
     version: task.version,
   };
 }

@@ -42,7 +42,9 @@ export async function insertPlannedTasks(tx: Transaction, source: TaskSource, pl
 }
 
 /** A stored task as the shared planning functions read it. */
-export function toTaskRecord(task: AlmanacTask): TaskRecord {
+export function toTaskRecord(
+  task: Pick<AlmanacTask, 'id' | 'sourceId' | 'kind' | 'key' | 'anchor' | 'anchorDate' | 'dueOn' | 'state' | 'windowStart' | 'windowEnd' | 'animalId'>,
+): TaskRecord {
   return {
     id: task.id,
     sourceId: task.sourceId,

@@ -1,11 +1,11 @@
-import { literal, Op, type Transaction, type WhereOptions } from 'sequelize';
+import { Op, type Transaction, type WhereOptions } from 'sequelize';
 import {
-  addDays, daysBetween, defineAbilityFor, ErrorCode, WEIGH_IN_REACH_DAYS, needsAttention, subjectOf, plannedTaskKinds, type AgendaDto, type AgendaQuery, type AlmanacSummaryDto,
+  addDays, daysBetween, defaultCycleSettings, defineAbilityFor, ErrorCode, WEIGH_IN_REACH_DAYS, needsAttention, subjectOf, plannedTaskKinds, type AgendaDto, type AgendaQuery, type AlmanacSummaryDto,
   type AlmanacTaskDto, type CycleSettings, type EntryReviewInput, type TaskAttention, type TaskBulkInput, type TaskUpdateInput, type SharedDaysDto
 } from '@burrowline/shared';
-import { accessibleWhere } from '../../db/scope';
-import { database } from '../../db/sequelize';
+import { selectPrepared } from '../../db/prepared';
 import { withTenant } from '../../db/tenant';
+import { animalRefColumnsSql, animalRefFactsOf, animalRefJoinSql, type AnimalRefFacts, type AnimalRefRow } from '../../lib/animal-ref';
 import type { SessionUser } from '../../lib/session-user';
 import { AppError } from '../../lib/app-error';
 import { recordChanges } from '../audit/audit.service';
@@ -15,15 +15,14 @@ import { mentorIdOf, namesOf } from '../users/users.service';
 import { ensureCan, farmOf } from '../farms/farm-access';
 import { announceAlmanac } from './almanac-events.service';
 import { farmClockOf, type FarmClock } from '../farms/farm-clock';
-import { presentTask, type AlmanacPresentContext } from './almanac.presenter';
-import { settingsOf } from './cycle-settings.service';
+import { presentTask, type AlmanacPresentContext, type TaskFields, type TaskPresentContext } from './almanac.presenter';
 import { AlmanacTask } from './task.model';
 import { toTaskRecord } from './task-writer.service';
 import { sharedDaysOfFarm } from './shared-days';
 
 const kindOrder = new Map<string, number>(plannedTaskKinds.map((kind, index) => [kind, index]));
 
-function byDue(a: AlmanacTask, b: AlmanacTask): number {
+function byDue(a: Pick<AlmanacTask, 'dueOn' | 'kind' | 'id'>, b: Pick<AlmanacTask, 'dueOn' | 'kind' | 'id'>): number {
   return a.dueOn.localeCompare(b.dueOn) || (kindOrder.get(a.kind) ?? 0) - (kindOrder.get(b.kind) ?? 0) || a.id.localeCompare(b.id);
 }
 
@@ -63,10 +62,19 @@ async function presentWithAttention(
   const all = lists.flat();
   const named = [...all, ...(attention?.tasks ?? [])];
   const ctx = await presentContextOf(tx, coopId, today, { animalIds: named.map((t) => t.animalId), userIds: all.map((t) => t.doneBy) });
-  const does = new Map([...ctx.animals.values()].map((a) => [a.id, { id: a.id, name: a.name, tattoo: a.tattoo }]));
+  return presentWithContext(lists, attention, ctx);
+}
+
+type AttentionInput<T> = { tasks: T[]; settings: CycleSettings } | null;
+
+/** The same, with the animals and people already read (the agenda reads them in its own statement). */
+function presentWithContext<T extends TaskFields & Parameters<typeof toTaskRecord>[0]>(
+  lists: T[][], attention: AttentionInput<T>, ctx: TaskPresentContext,
+): { lists: AlmanacTaskDto[][]; attention: TaskAttention[] } {
+  const does = new Map([...ctx.animals].map(([id, a]) => [id, { id, name: a.name, tattoo: a.tattoo }]));
   return {
     lists: lists.map((tasks) => [...tasks].sort(byDue).map((t) => presentTask(t, ctx))),
-    attention: attention ? needsAttention(attention.tasks.map(toTaskRecord), today, attention.settings, does) : [],
+    attention: attention ? needsAttention(attention.tasks.map(toTaskRecord), ctx.today, attention.settings, does) : [],
   };
 }
 
@@ -91,39 +99,57 @@ export async function openTasksOfAnimal(tx: Transaction, animalId: string, kinds
 
 const OPEN_STATES = ['open', 'moved'];
 
+/** A task of the agenda with the animal it names and who did it, as the agenda's statement reads it. */
+type AgendaTaskRow = TaskFields & Pick<AlmanacTask, 'sourceId'> & AnimalRefRow<'animal'> & { doneByName: string | null };
+type AgendaRow = { pendingReview: number; settings: Partial<CycleSettings> | null } & ({ [K in keyof AgendaTaskRow]: AgendaTaskRow[K] | null });
+
+/**
+ * The agenda's one statement: the farm's open tasks due by `$2`, with `history` its done and skipped ones
+ * due in [`$3`, `$4`] too, each with the animal it names and who did it, beside the count of ticks waiting
+ * for review and the farm's cycle settings (on every row, and alone when there is no task).
+ */
+function agendaSql(history: boolean): string {
+  return `SELECT (SELECT count(*)::int FROM almanac_tasks r WHERE r.farm_id = $1 AND r.completion_review = 'pending') AS "pendingReview",
+      (SELECT s.settings FROM farm_cycle_settings s WHERE s.farm_id = $1) AS settings, t.*
+    FROM (SELECT 1) head LEFT JOIN LATERAL (
+      SELECT t.id, t.farm_id AS "farmId", t.kind, t.key, t.anchor, t.anchor_date::text AS "anchorDate", t.source_id AS "sourceId",
+        t.service_id AS "serviceId", t.litter_id AS "litterId", t.animal_id AS "animalId", t.due_on::text AS "dueOn",
+        t.window_start::text AS "windowStart", t.window_end::text AS "windowEnd", t.age_days AS "ageDays", t.state,
+        t.state_reason AS "stateReason", t.moved_from::text AS "movedFrom", t.done_on::text AS "doneOn", t.done_by AS "doneBy",
+        t.completion_review AS "completionReview", t.review_comment AS "reviewComment", t.version,
+        ${animalRefColumnsSql('a', 'animal')}, (SELECT u.name FROM users u WHERE u.id = t.done_by) AS "doneByName"
+      FROM almanac_tasks t
+      ${animalRefJoinSql('a', 't.animal_id')}
+      WHERE t.farm_id = $1 AND ((t.state IN ('open', 'moved') AND t.due_on <= $2::date)
+        ${history ? "OR (t.state IN ('done', 'skipped') AND t.due_on BETWEEN $3::date AND $4::date)" : ''})
+    ) t ON true`;
+}
+
 /**
  * What the agenda and the week's cards show, in one read: the farm's tasks in [from, to] (open ones, or
  * every state with `include: 'all'`), its open tasks already late, and those due by today (what needs
- * attention), with the count of ticks waiting for review beside each row.
+ * attention), with the count of ticks waiting for review beside each row, presented on the farm's today.
+ * The farm's rows only: the caller checked the actor may read its tasks.
  */
-async function agendaOf(tx: Transaction, actor: SessionUser, farmId: string, from: string, to: string, today: string, include: 'open' | 'all') {
-  const scope = accessibleWhere(defineAbilityFor(actor), 'read', 'AlmanacTask');
+async function agendaOf(tx: Transaction, coopId: string, farmId: string, from: string, to: string, today: string, include: 'open' | 'all') {
   const openUntil = to > today ? to : today;
-  const tasks = await AlmanacTask.findAll({
-    where: {
-      [Op.and]: [scope, { farmId }, {
-        [Op.or]: [
-          { state: { [Op.in]: OPEN_STATES }, dueOn: { [Op.lte]: openUntil } },
-          ...(include === 'all' ? [{ state: { [Op.in]: ['done', 'skipped'] }, dueOn: { [Op.between]: [from, to] } }] : []),
-        ],
-      }],
-    },
-    attributes: {
-      include: [[literal(`(SELECT count(*)::int FROM almanac_tasks review WHERE review.farm_id = ${database().escape(farmId)} AND review.completion_review = 'pending')`), 'pendingReview']],
-    },
-    transaction: tx,
-  });
-  const open = (t: AlmanacTask) => OPEN_STATES.includes(t.state);
-  const pendingReview = tasks.length > 0
-    ? Number((tasks[0]!.dataValues as unknown as { pendingReview: number }).pendingReview)
-    : await AlmanacTask.count({ where: { farmId, completionReview: 'pending' }, transaction: tx });
-  const { settings } = await settingsOf(tx, farmId);
-  return {
-    inRange: tasks.filter((t) => t.dueOn >= from && t.dueOn <= to),
-    overdue: tasks.filter((t) => open(t) && t.dueOn < from),
-    attention: { tasks: tasks.filter((t) => open(t) && t.dueOn <= today), settings },
-    pendingReview,
-  };
+  const history = include === 'all';
+  const rows = await selectPrepared<AgendaRow>(tx, agendaSql(history), history ? [farmId, openUntil, from, to] : [farmId, openUntil]);
+  const tasks = rows.filter((r): r is AgendaRow & AgendaTaskRow => r.id !== null);
+  const settings: CycleSettings = { ...defaultCycleSettings(), ...(rows[0]!.settings ?? {}) };
+  const animals = new Map<string, AnimalRefFacts>();
+  const names = new Map<string, string>();
+  for (const t of tasks) {
+    const animal = animalRefFactsOf(t, 'animal');
+    if (t.animalId && animal) animals.set(t.animalId, animal);
+    if (t.doneBy && t.doneByName !== null) names.set(t.doneBy, t.doneByName);
+  }
+  const open = (t: AgendaTaskRow) => OPEN_STATES.includes(t.state);
+  const inRange = tasks.filter((t) => t.dueOn >= from && t.dueOn <= to);
+  const overdue = tasks.filter((t) => open(t) && t.dueOn < from);
+  const ctx = { animals, farms: await farmDirectoryOf(coopId, tx), names, today };
+  const presented = presentWithContext([inRange, overdue], { tasks: tasks.filter((t) => open(t) && t.dueOn <= today), settings }, ctx);
+  return { tasks: presented.lists[0]!, overdue: presented.lists[1]!, attention: presented.attention, pendingReview: rows[0]!.pendingReview };
 }
 
 /**
@@ -138,21 +164,17 @@ export async function listAgenda(actor: SessionUser, q: AgendaQuery): Promise<Ag
     const clock = await farmClockOf(tx, actor.coopId, farmId);
     const from = q.from ?? clock.today;
     const to = q.to ?? addDays(from, (q.days ?? 14) - 1);
-    const agenda = await agendaOf(tx, actor, farmId, from, to, clock.today, q.include);
-    const { pendingReview } = agenda;
-    const presented = await presentWithAttention(tx, actor.coopId, [agenda.inRange, agenda.overdue], agenda.attention, clock.today);
-    const [tasks, late] = presented.lists;
-    const { attention } = presented;
+    const agenda = await agendaOf(tx, actor.coopId, farmId, from, to, clock.today, q.include);
     return {
       farm: { id: farmId, name: clock.name },
       timeZone: clock.timeZone,
       today: clock.today,
       from,
       to,
-      tasks: tasks!,
-      overdue: late!,
-      attention,
-      pendingReview,
+      tasks: agenda.tasks,
+      overdue: agenda.overdue,
+      attention: agenda.attention,
+      pendingReview: agenda.pendingReview,
     };
   });
 }
@@ -180,20 +202,16 @@ export async function almanacSummary(actor: SessionUser): Promise<AlmanacSummary
   return withTenant(actor, async (tx) => {
     const clock = await farmClockOf(tx, actor.coopId, farmId);
     const weekEnd = addDays(clock.today, 6);
-    const agenda = await agendaOf(tx, actor, farmId, clock.today, weekEnd, clock.today, 'open');
-    const { pendingReview } = agenda;
-    const both = await presentWithAttention(tx, actor.coopId, [agenda.inRange, agenda.overdue], agenda.attention, clock.today);
-    const [presented, late] = both.lists;
-    const { attention } = both;
+    const agenda = await agendaOf(tx, actor.coopId, farmId, clock.today, weekEnd, clock.today, 'open');
     return {
       farm: { id: farmId, name: clock.name },
       today: clock.today,
       weekEnd,
-      dueToday: presented!.filter((t) => t.dueOn === clock.today),
-      thisWeek: presented!.filter((t) => t.dueOn > clock.today),
-      overdue: late!,
-      attention,
-      pendingReview,
+      dueToday: agenda.tasks.filter((t) => t.dueOn === clock.today),
+      thisWeek: agenda.tasks.filter((t) => t.dueOn > clock.today),
+      overdue: agenda.overdue,
+      attention: agenda.attention,
+      pendingReview: agenda.pendingReview,
     };
   });
 }

@@ -1,26 +1,31 @@
 import { centsPerKg, type FeedBookQuery, type FeedOverviewDto, type FeedUseDto } from '@burrowline/shared';
-import type { AnimalFacts } from '../animals/animal-facts.service';
-import type { LitterFacts } from '../litters/litter-facts.service';
 import { feedKeyOf } from '@burrowline/shared';
 import type { FeedPurchase, FeedUse } from './feed.model';
+
+/** A share of feed given: to a grow-out group or a nursing litter. */
+export interface FeedBookShare { groupId: string | null; litterId: string | null; grams: number }
 
 /** One page of a farm's feed book as read, with the figures stored beside its rows. */
 export interface FeedBookPage {
   /** Every purchase, newest first, with its stock left. */
-  purchases: FeedPurchase[];
+  purchases: Pick<FeedPurchase, 'id' | 'boughtOn' | 'productName' | 'bagGrams' | 'bags' | 'priceCents' | 'crudeProteinPercent' | 'note' | 'version' | 'gramsLeft'>[];
   /** The page's feed given, latest first, each with its cost (null when the book cannot cover it). */
   uses: (Pick<FeedUse, 'id' | 'givenOn' | 'fromOn' | 'grams' | 'feedKey' | 'purchaseId' | 'target' | 'groupId' | 'housingUnitId' | 'doeId' | 'allocation' | 'version' | 'enteredBy' | 'note'> & { costCents: number | null })[];
   usesTotal: number;
-  sharesByUse: Map<string, { groupId: string | null; litterId: string | null; grams: number }[]>;
+  sharesByUse: Map<string, FeedBookShare[]>;
+}
+
+/** What the page's labels name, by id: only what was found (the rest reads "A group", "A doe"…). */
+export interface FeedBookLabels {
+  groups: Map<string, string>;
+  litters: Map<string, { damId: string; kindledOn: string }>;
+  animals: Map<string, { name: string }>;
+  units: Map<string, string>;
+  names: Map<string, string>;
 }
 
 /** What the service loads for the feed book besides its page. */
-export interface FeedOverviewSources {
-  groups: Map<string, string>;
-  litters: Map<string, LitterFacts>;
-  animals: Map<string, AnimalFacts>;
-  units: Map<string, string>;
-  names: Map<string, string>;
+export interface FeedOverviewSources extends FeedBookLabels {
   canSeeMoney: boolean;
   canEdit: boolean;
 }

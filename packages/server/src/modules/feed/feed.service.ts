@@ -11,13 +11,12 @@ import { animalFactsOf } from '../animals/animal-facts.service';
 import { addMessage, canSeeMoney, ensureCan, farmOf } from '../farms/farm-access';
 import { farmTodayOf } from '../farms/farm-clock';
 import { farmDirectoryOf } from '../farms/farms.service';
-import { groupNamesOf, groupOfFarm, groupsPresentDuring, kitsInGroupsByLitter } from '../grow-out/grow-out-facts.service';
+import { groupOfFarm, groupsPresentDuring, kitsInGroupsByLitter } from '../grow-out/grow-out-facts.service';
 import {
-  farmLitterFactsOf, housingUnitNamesOf, housingUnitOfFarm, litterFactsOf, placementsDuring, type LitterFacts,
+  farmLitterFactsOf, housingUnitOfFarm, placementsDuring, type LitterFacts,
 } from '../litters/litter-facts.service';
-import { namesOf } from '../users/users.service';
 import { FeedPurchase, FeedUse, FeedUseShare } from './feed.model';
-import { presentFeedOverview, type FeedBookPage } from './feed.presenter';
+import { presentFeedOverview, type FeedBookLabels, type FeedBookPage, type FeedBookShare } from './feed.presenter';
 import { feedLedgerOf, feedTotalsByLitter, refreshFeedBook } from './feed-totals.service';
 import { selectPrepared } from '../../db/prepared';
 import { lockUntilCommit } from '../../db/advisory-lock';
@@ -76,46 +75,87 @@ const nursingIn = (l: LitterFacts, from: string, to: string, inGroups: KitsInGro
 /** The first page, as a change answers with it (the screen goes back to the latest entries). */
 const firstPage = feedBookQuerySchema.parse({});
 
-/** A page of the book, latest feed given first, read with the figures stored beside its rows. */
-async function feedBookPage(tx: Transaction, coopId: string, farmId: string, page: FeedBookQuery): Promise<FeedBookPage> {
-  const purchases = await FeedPurchase.findAll({ where: { coopId, farmId }, order: [['boughtOn', 'DESC'], ['createdAt', 'DESC']], transaction: tx });
-  // The page's shares ride along with each entry, in the order they were written.
-  const pageSql = `SELECT u.id, u.given_on::text AS "givenOn", u.from_on::text AS "fromOn", u.grams, u.feed_key AS "feedKey", u.purchase_id AS "purchaseId",
-      u.target, u.group_id AS "groupId", u.housing_unit_id AS "housingUnitId", u.doe_id AS "doeId", u.allocation, u.version, u.entered_by AS "enteredBy", u.note,
-      u.cost_cents AS "costCents", count(*) OVER () AS total,
-      (SELECT coalesce(json_agg(json_build_object('groupId', s.group_id, 'litterId', s.litter_id, 'grams', s.grams) ORDER BY s.id), '[]')
-       FROM feed_use_shares s WHERE s.coop_id = u.coop_id AND s.feed_use_id = u.id) AS shares
-    FROM feed_uses u WHERE u.coop_id = $1 AND u.farm_id = $2 AND u.deleted_at IS NULL
-    ORDER BY u.given_on DESC, u.created_at DESC LIMIT $3 OFFSET $4`;
-  type Shares = FeedBookPage['sharesByUse'] extends Map<string, infer S> ? S : never;
-  const rows = await selectPrepared<FeedBookPage['uses'][number] & { costCents: string | null; total: string; shares: Shares }>(
-    tx, pageSql, [coopId, farmId, page.pageSize, (page.page - 1) * page.pageSize],
-  );
-  // Each row carries the count of all; a page past the end has none to carry it.
-  const usesTotal = rows.length > 0 ? Number(rows[0]!.total)
-    : page.page === 1 ? 0 : await FeedUse.count({ where: { coopId, farmId }, transaction: tx });
+/**
+ * A page of the book in one statement and one row: every purchase with its stock left (newest first), the
+ * count of the feed given, and the page of it, latest first, with the figures stored beside its rows and
+ * what its labels name (the group, pen or doe fed, who entered it, and each share's group or litter and its
+ * dam). The page's ids are taken first, so labels are looked up by key for its rows only, however deep the
+ * page; as the request's first statement it is planned on each request, so it keeps to plain lookups the
+ * planner has no join order to search for.
+ */
+const feedBookPageSql = `SELECT
+    (SELECT count(*)::int FROM feed_uses c WHERE c.coop_id = $1 AND c.farm_id = $2 AND c.deleted_at IS NULL) AS "usesTotal",
+    (SELECT coalesce(json_agg(json_build_object(
+        'id', p.id, 'boughtOn', p.bought_on, 'productName', p.product_name, 'bagGrams', p.bag_grams, 'bags', p.bags,
+        'priceCents', p.price_cents, 'crudeProteinPercent', p.crude_protein_percent, 'note', p.note, 'version', p.version,
+        'gramsLeft', p.grams_left
+      ) ORDER BY p.bought_on DESC, p.created_at DESC), '[]')
+     FROM feed_purchases p WHERE p.coop_id = $1 AND p.farm_id = $2 AND p.deleted_at IS NULL) AS purchases,
+    (SELECT coalesce(json_agg(page ORDER BY page.position), '[]') FROM (
+      SELECT u.id, u.given_on AS "givenOn", u.from_on AS "fromOn", u.grams, u.feed_key AS "feedKey", u.purchase_id AS "purchaseId",
+        u.target, u.group_id AS "groupId", u.housing_unit_id AS "housingUnitId", u.doe_id AS "doeId", u.allocation, u.version,
+        u.entered_by AS "enteredBy", u.note, u.cost_cents AS "costCents", shown.position,
+        (SELECT g.name FROM grow_out_groups g WHERE g.id = u.group_id AND g.deleted_at IS NULL) AS "groupName",
+        (SELECT h.name FROM housing_units h WHERE h.id = u.housing_unit_id) AS "unitName",
+        (SELECT d.name FROM animals d WHERE d.id = u.doe_id AND d.deleted_at IS NULL) AS "doeName",
+        (SELECT who.name FROM users who WHERE who.id = u.entered_by) AS "enteredByName",
+        (SELECT coalesce(json_agg(json_build_object(
+            'groupId', s.group_id, 'litterId', s.litter_id, 'grams', s.grams,
+            'groupName', (SELECT sg.name FROM grow_out_groups sg WHERE sg.id = s.group_id AND sg.deleted_at IS NULL),
+            'litter', (SELECT json_build_object('damId', l.dam_id, 'kindledOn', l.kindled_on,
+                'damName', (SELECT dam.name FROM animals dam WHERE dam.id = l.dam_id AND dam.deleted_at IS NULL))
+              FROM litters l WHERE l.id = s.litter_id AND l.deleted_at IS NULL)
+          ) ORDER BY s.id), '[]')
+         FROM feed_use_shares s WHERE s.coop_id = u.coop_id AND s.feed_use_id = u.id) AS shares
+      FROM (
+        SELECT u.id, row_number() OVER (ORDER BY u.given_on DESC, u.created_at DESC) AS position FROM feed_uses u
+        WHERE u.coop_id = $1 AND u.farm_id = $2 AND u.deleted_at IS NULL
+        ORDER BY u.given_on DESC, u.created_at DESC LIMIT $3 OFFSET $4
+      ) shown JOIN feed_uses u ON u.id = shown.id
+    ) page) AS uses`;
+
+type ShareRow = FeedBookShare & { groupName: string | null; litter: { damId: string; kindledOn: string; damName: string | null } | null };
+type UseRow = FeedBookPage['uses'][number] & {
+  groupName: string | null; unitName: string | null; doeName: string | null; enteredByName: string | null; shares: ShareRow[];
+};
+type BookRow = { usesTotal: number; purchases: FeedBookPage['purchases']; uses: UseRow[] };
+
+/** A page of the book, latest feed given first, with the labels of what it names (present only what is found). */
+async function feedBookPage(tx: Transaction, coopId: string, farmId: string, page: FeedBookQuery): Promise<{ book: FeedBookPage; labels: FeedBookLabels }> {
+  const [row] = await selectPrepared<BookRow>(tx, feedBookPageSql, [coopId, farmId, page.pageSize, (page.page - 1) * page.pageSize]);
+  const { uses } = row!;
+  const labels: FeedBookLabels = { groups: new Map(), litters: new Map(), animals: new Map(), units: new Map(), names: new Map() };
+  for (const u of uses) {
+    if (u.groupId && u.groupName !== null) labels.groups.set(u.groupId, u.groupName);
+    if (u.housingUnitId && u.unitName !== null) labels.units.set(u.housingUnitId, u.unitName);
+    if (u.doeId && u.doeName !== null) labels.animals.set(u.doeId, { name: u.doeName });
+    if (u.enteredByName !== null) labels.names.set(u.enteredBy, u.enteredByName);
+    for (const s of u.shares) {
+      if (s.groupId && s.groupName !== null) labels.groups.set(s.groupId, s.groupName);
+      if (s.litterId && s.litter) {
+        labels.litters.set(s.litterId, { damId: s.litter.damId, kindledOn: s.litter.kindledOn });
+        if (s.litter.damName !== null) labels.animals.set(s.litter.damId, { name: s.litter.damName });
+      }
+    }
+  }
   return {
-    purchases,
-    uses: rows.map(({ total: _total, shares: _shares, costCents, ...u }) => ({ ...u, costCents: costCents === null ? null : Number(costCents) })),
-    usesTotal,
-    sharesByUse: new Map(rows.map((r) => [r.id, r.shares])),
+    book: {
+      purchases: row!.purchases,
+      uses: uses.map((u) => ({
+        id: u.id, givenOn: u.givenOn, fromOn: u.fromOn, grams: u.grams, feedKey: u.feedKey, purchaseId: u.purchaseId, target: u.target, groupId: u.groupId,
+        housingUnitId: u.housingUnitId, doeId: u.doeId, allocation: u.allocation, version: u.version, enteredBy: u.enteredBy, note: u.note, costCents: u.costCents,
+      })),
+      usesTotal: row!.usesTotal,
+      sharesByUse: new Map(uses.map((u) => [u.id, u.shares.map((s) => ({ groupId: s.groupId, litterId: s.litterId, grams: s.grams }))])),
+    },
+    labels,
   };
 }
 
 async function presentOverview(tx: Transaction, actor: SessionUser, farmId: string, page: FeedBookQuery = firstPage): Promise<FeedOverviewDto> {
-  const book = await feedBookPage(tx, actor.coopId, farmId, page);
-  const money = canSeeMoney(actor, farmId);
-  // Labels are looked up for the page's entries only.
-  const shown = book.uses;
-  const shownShares = [...book.sharesByUse.values()].flat();
-  const present = (ids: (string | null | undefined)[]) => ids.filter((x): x is string => Boolean(x));
-  const groups = await groupNamesOf(tx, actor.coopId, present([...shown.map((u) => u.groupId), ...shownShares.map((s) => s.groupId)]));
-  const litters = await litterFactsOf(tx, actor.coopId, present(shownShares.map((s) => s.litterId)));
-  const animals = await animalFactsOf(tx, actor.coopId, [...shown.map((u) => u.doeId), ...[...litters.values()].map((l) => l.damId)].filter((x): x is string => Boolean(x)));
-  const units = await housingUnitNamesOf(tx, actor.coopId, shown.map((u) => u.housingUnitId).filter((x): x is string => Boolean(x)));
-  const names = await namesOf(shown.map((u) => u.enteredBy), tx);
+  const { book, labels } = await feedBookPage(tx, actor.coopId, farmId, page);
   return presentFeedOverview(book, page, {
-    groups, litters, animals, units, names, canSeeMoney: money,
+    ...labels, canSeeMoney: canSeeMoney(actor, farmId),
     canEdit: defineAbilityFor(actor).can('create', subjectOf('FeedRecord', { coopId: actor.coopId, farmId })),
   });
 }

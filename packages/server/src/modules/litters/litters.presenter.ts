@@ -5,13 +5,16 @@ import {
 import type { Litter } from './litter.model';
 import type { LitterEvent } from './litter-event.model';
 
+/** What of an entry the kit-count rules read (a model instance, or a plain row a list reads). */
+export type CountedEvent = Pick<LitterEvent, 'id' | 'kind' | 'occurredOn' | 'kitCount' | 'cause' | 'otherLitterId' | 'reviewState' | 'deletedAt'>;
+
 /** Events that count toward the kit count: accepted, and an apprentice's still waiting (shown as unverified); returned ones do not. */
-export function countingEvents(events: LitterEvent[]): LitterEvent[] {
+export function countingEvents<E extends CountedEvent>(events: E[]): E[] {
   return events.filter((e) => e.reviewState !== 'returned' && !e.deletedAt);
 }
 
 /** The litter as the shared kit-count rules read it. */
-export function recordOf(litter: Pick<Litter, 'id' | 'kindledOn' | 'bornAlive' | 'bornDead'>, events: LitterEvent[]): LitterRecord {
+export function recordOf(litter: Pick<Litter, 'id' | 'kindledOn' | 'bornAlive' | 'bornDead'>, events: CountedEvent[]): LitterRecord {
   return {
     id: litter.id,
     kindledOn: litter.kindledOn,
@@ -105,7 +108,7 @@ export function presentEvent(e: LitterEvent, ctx: LitterPresentContext): LitterE
 export function presentLitterListItem(
   litter: Pick<Litter, 'id' | 'farmId' | 'damId' | 'sireId' | 'serviceId' | 'kindledOn' | 'bornAlive' | 'bornDead'>,
   summary: LitterSummary,
-  ctx: LitterPresentContext,
+  ctx: Pick<LitterPresentContext, 'animal' | 'today'>,
   serviceId = litter.serviceId,
 ): LitterListItemDto {
   return {

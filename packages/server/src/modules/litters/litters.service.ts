@@ -21,11 +21,13 @@ import { insertPlannedTasks, markTasksDone, skipTasks } from '../almanac/task-wr
 import { animalFactsOf, animalsBornOf } from '../animals/animal-facts.service';
 import { createAnimal } from '../animals/animal-edits.service';
 import { breedMapOf } from '../breeds/breeds.service';
+import { farmDirectoryOf } from '../farms/farms.service';
+import { animalRefColumnsSql, animalRefJoinSql, animalRefOf, type AnimalRefRow } from '../../lib/animal-ref';
 import { recordChanges } from '../audit/audit.service';
 import { currentHousingOfLitter } from './housing.service';
 import { LitterEvent } from './litter-event.model';
 import { Litter } from './litter.model';
-import { countingEvents, presentLitter, presentLitterListItem, recordOf, summaryOf, type LitterPresentContext } from './litters.presenter';
+import { countingEvents, presentLitter, presentLitterListItem, recordOf, summaryOf, type CountedEvent, type LitterPresentContext } from './litters.presenter';
 import { mentorIdOf } from '../users/users.service';
 
 /** Fostering is done between litters of about the same age: kindled within this many days of each other (common practice). */
@@ -348,47 +350,48 @@ export async function getLitter(actor: SessionUser, litterId: string): Promise<L
   return withTenant(actor, async (tx) => litterDetail(tx, actor, await litterFor(tx, actor, litterId)));
 }
 
-/**
- * Kits still with the doe of litter `alias`, in SQL: born alive, plus fostered in, less every kit that left,
- * counting the entries that are not returned (the presenter's rule). Looked up per litter by its index.
- */
 const litterOrder: Record<LitterListQuery['sort'], string[]> = {
   kindledOn: ['kindled_on', 'created_at', 'id'],
   bornAlive: ['born_alive', 'kindled_on', 'created_at', 'id'],
 };
 
-type LitterListRow = Pick<Litter, 'id' | 'farmId' | 'serviceId' | 'damId' | 'sireId' | 'kindledOn' | 'bornAlive' | 'bornDead'>;
+type LitterListRow = Pick<Litter, 'id' | 'farmId' | 'serviceId' | 'damId' | 'sireId' | 'kindledOn' | 'bornAlive' | 'bornDead'>
+  & AnimalRefRow<'dam'> & AnimalRefRow<'sire'> & { events: CountedEvent[] };
 type LitterCounts = LitterListDto['counts'];
 
 /**
- * The farm's litters with the kits each still has on the doe (born alive, fostered in and out, lost, culled
- * and weaned, unless returned in review), each state's count, and one page of them in the chosen order:
- * one statement. Every litter of the farm (of one dam) is counted anyway, so the page is taken from the same
- * rows; the page then joins the litters' own columns. With no row on the page the counts come alone.
+ * The farm's litters (of one dam) counted by state, and one page of them in the chosen order with what the
+ * page presents: its dams and sires, and each litter's entries that count toward its kits (the summary's
+ * figures), in one statement. The state comes from the kits each litter keeps on its doe (kept by the
+ * database as its entries change), so the count reads the litters alone and the page is taken by the index
+ * of its sort. With no row on the page the counts come alone.
  */
 function litterPageSql(q: LitterListQuery): string {
   const dir = q.dir === 'desc' ? 'DESC' : 'ASC';
-  const order = litterOrder[q.sort].map((column) => `${column} ${dir}`).join(', ');
-  const status = q.status === 'all' ? 'true' : q.status === 'nursing' ? 'on_doe > 0' : 'on_doe <= 0';
-  return `WITH farm_litters AS MATERIALIZED (
-      SELECT l.id, l.kindled_on, l.born_alive, l.created_at, l.born_alive + COALESCE(ev.delta, 0) AS on_doe
-      FROM litters l
-      LEFT JOIN LATERAL (
-        SELECT sum(CASE e.kind WHEN 'fostered_in' THEN e.kit_count ELSE -e.kit_count END) AS delta FROM litter_events e
-        WHERE e.litter_id = l.id AND e.deleted_at IS NULL AND e.review_state <> 'returned'
-      ) ev ON true
-      WHERE l.farm_id = $1 AND l.deleted_at IS NULL AND ($2::uuid IS NULL OR l.dam_id = $2)
-    ), counts AS (
-      SELECT count(*) FILTER (WHERE on_doe > 0)::int AS nursing, count(*) FILTER (WHERE on_doe <= 0)::int AS weaned, count(*)::int AS "all"
-      FROM farm_litters
-    ), page AS (
-      SELECT id, row_number() OVER (ORDER BY ${order}) AS position FROM farm_litters WHERE ${status}
+  const order = litterOrder[q.sort].map((column) => `l.${column} ${dir}`).join(', ');
+  const status = q.status === 'all' ? '' : q.status === 'nursing' ? 'AND l.kits_on_doe > 0' : 'AND l.kits_on_doe <= 0';
+  const farmLitters = `l.farm_id = $1 AND l.deleted_at IS NULL AND ($2::uuid IS NULL OR l.dam_id = $2)`;
+  return `WITH counts AS (
+      SELECT count(*) FILTER (WHERE l.kits_on_doe > 0)::int AS nursing, count(*) FILTER (WHERE l.kits_on_doe <= 0)::int AS weaned,
+        count(*)::int AS "all"
+      FROM litters l WHERE ${farmLitters}
+    ), page AS MATERIALIZED (
+      SELECT l.id, l.farm_id, l.service_id, l.dam_id, l.sire_id, l.kindled_on, l.born_alive, l.born_dead, row_number() OVER (ORDER BY ${order}) AS position
+      FROM litters l WHERE ${farmLitters} ${status}
       ORDER BY ${order} LIMIT $3::bigint OFFSET $4::bigint
     )
-    SELECT counts.nursing, counts.weaned, counts."all", l.id, l.farm_id AS "farmId", l.service_id AS "serviceId", l.dam_id AS "damId",
-      l.sire_id AS "sireId", l.kindled_on::text AS "kindledOn", l.born_alive AS "bornAlive", l.born_dead AS "bornDead"
-    FROM counts LEFT JOIN (page JOIN litters l ON l.id = page.id) ON true
-    ORDER BY page.position`;
+    SELECT counts.nursing, counts.weaned, counts."all", p.id, p.farm_id AS "farmId", p.service_id AS "serviceId", p.dam_id AS "damId",
+      p.sire_id AS "sireId", p.kindled_on::text AS "kindledOn", p.born_alive AS "bornAlive", p.born_dead AS "bornDead",
+      ${animalRefColumnsSql('dam', 'dam')}, ${animalRefColumnsSql('sire', 'sire')},
+      (SELECT COALESCE(json_agg(json_build_object(
+          'id', e.id, 'kind', e.kind, 'occurredOn', e.occurred_on, 'kitCount', e.kit_count, 'cause', e.cause,
+          'otherLitterId', e.other_litter_id, 'reviewState', e.review_state, 'deletedAt', NULL
+        ) ORDER BY e.occurred_on, e.created_at), '[]')
+        FROM litter_events e WHERE e.litter_id = p.id AND e.deleted_at IS NULL AND e.review_state <> 'returned') AS events
+    FROM counts LEFT JOIN page p ON true
+    ${animalRefJoinSql('dam', 'p.dam_id')}
+    ${animalRefJoinSql('sire', 'p.sire_id')}
+    ORDER BY p.position`;
 }
 
 /** The farm's litters, filtered, sorted and paged in SQL, with the kits still on the doe and each state's count. */
@@ -403,9 +406,12 @@ export async function listLitters(actor: SessionUser, q: LitterListQuery): Promi
     const counts = { nursing, weaned, all };
     const litters = rows.filter((r): r is typeof r & LitterListRow => r.id !== null);
     const clock = await farmClockOf(tx, actor.coopId, farmId);
-    const events = await eventsOf(tx, litters.map((l) => l.id));
-    const ctx = await presentContextForLitters(tx, actor, clock.today, litters, []);
-    const items = litters.map((l) => presentLitterListItem(l, summaryOf(recordOf(l, events.filter((e) => e.litterId === l.id))), ctx));
+    const farms = await farmDirectoryOf(actor.coopId, tx);
+    const items = litters.map((l) => {
+      const refs = new Map([[l.damId, animalRefOf(l.damId, l, 'dam', farms)], [l.sireId, animalRefOf(l.sireId, l, 'sire', farms)]]);
+      const ctx = { animal: (id: string) => refs.get(id)!, today: clock.today };
+      return presentLitterListItem(l, summaryOf(recordOf(l, l.events)), ctx);
+    });
     return { items, total: counts[q.status], page: q.page, pageSize: q.pageSize, counts };
   });
 }
