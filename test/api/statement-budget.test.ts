@@ -146,7 +146,6 @@ const endpoints: Endpoint[] = [
   },
   {
     name: 'the Almanac tasks',
-    over: { ownBudget: 6, why: 'as the week (the clock, the tasks with the count waiting for review, the settings, the animals, the breeds), and who completed the tasks' },
     async arrange(coop) {
       const taskId = await openTaskOf(coop);
       return { url: '/api/almanac/tasks?days=62', asker: coop.member, growTo: taskGrower(coop.id, taskId) };
@@ -172,7 +171,7 @@ const endpoints: Endpoint[] = [
   },
   {
     name: 'the grow-out groups',
-    over: { ownBudget: 9, why: 'the groups, their litters, the litters’ events, animals, weigh-ins, processing, the settings (breeds and farms come in one)' },
+    over: { ownBudget: 8, why: 'the groups, their litters, the litters’ events, animals, weigh-ins, processing, the settings (breeds and farms come in one)' },
     async arrange(coop) {
       const { litter } = await litterAs(coop.member, { servicedDaysAgo: 80, kindledDaysAgo: 49, bornAlive: 7 });
       const group = await groupAs(coop.member, { name: 'Fryers', formedOn: farmToday(), targetGrams: 2270, litters: [{ litterId: litter.id, heads: 7 }] });
@@ -250,7 +249,6 @@ const endpoints: Endpoint[] = [
   },
   {
     name: 'the Stud Share finder',
-    over: { ownBudget: 7, why: 'the offers, the farms, breeds and animals they present, the kept pedigree\'s version, the get\'s records, the farms\' places (and, when the page names shared ancestors, their cards: one more)' },
     async arrange(coop) {
       const { card } = await offeredBuck(coop);
       const doe = await doeOf(coop.otherFarmMember);
@@ -261,7 +259,6 @@ const endpoints: Endpoint[] = [
   },
   {
     name: 'the stud requests',
-    over: { ownBudget: 6, why: 'the page with its total, the steps of its requests, the farms, breeds and animals they present, the co-op\'s quarantine rule (and, once hand-overs are recorded, who recorded them: one more)' },
     async arrange(coop) {
       const { card } = await offeredBuck(coop);
       const loan = await requestAs(coop.otherFarmMember, card.offerId, [(await doeOf(coop.otherFarmMember)).id]);
@@ -274,7 +271,6 @@ const endpoints: Endpoint[] = [
   },
   {
     name: 'the Swap Board',
-    over: { ownBudget: 6, why: 'the page with its total, the farms, breeds and listed animals it presents, the kept pedigree\'s version (completeness and COI), the sellers\' latest weights' },
     async arrange(coop) {
       const { listing } = await listedDoe(coop.member);
       return { url: '/api/swap-board/listings?pageSize=10', asker: coop.otherFarmMember, growTo: grower(coop.id, 'swap_listings', listing.id) };
@@ -282,7 +278,7 @@ const endpoints: Endpoint[] = [
   },
   {
     name: 'a Swap Board listing with its offers',
-    over: { ownBudget: 8, why: 'the listing, its offers and their thread, the farms, breeds and animals (listed and in trade) they present, the kept pedigree\'s version, the seller\'s latest weights' },
+    over: { ownBudget: 6, why: 'the listing, its offers and their thread, the farms, breeds and animals (listed and in trade) they present, the kept pedigree\'s version, the seller\'s latest weights' },
     async arrange(coop) {
       const { listing } = await listedDoe(coop.member);
       const offer = await offerAs(coop.otherFarmMember, listing.id);
@@ -330,7 +326,7 @@ const endpoints: Endpoint[] = [
   },
   {
     name: 'the weighing round of every growing animal',
-    over: { ownBudget: 10, why: 'the growing animals with their last weights, then the growing groups as the grow-out list reads them (groups, litters, events, animals, weigh-ins, processing)' },
+    over: { ownBudget: 9, why: 'the growing animals with their last weights, then the growing groups as the grow-out list reads them (groups, litters, events, animals, weigh-ins, processing)' },
     async arrange(coop) {
       await growingGroupAs(coop.member, { kindledDaysAgo: 70, heads: 4 });
       const junior = await addAnimalAs(coop.member, { sex: 'buck', birthDate: daysAgo(70), lifecycle: 'junior' });
