@@ -185,5 +185,37 @@ describe('the tenant transaction', () => {
       ).toEqual([{ share: 20, coop: coop.id }]);
     }
   });
+
+  it('when a list is read in one statement, then the opening, the read and the COMMIT go in one round trip; a statement after it opens anew, with the co-op set', async () => {
+    const coop = await createTestCoop();
+    testApp();
+    const counting = await countingAgentFor(coop.member.email, TEST_PASSWORD);
+    await counting.agent.get('/api/animals').expect(200);
+    const { res, statements } = await counting.count((agent) => agent.get('/api/animals'));
+    expect(res.status).toBe(200);
+    expect(statements).toHaveLength(2);
+    expect(statements[1]).toMatch(/^\s*START TRANSACTION;[\s\S]*\n; COMMIT$/);
+
+    const sql = `SELECT current_setting('app.coop_id', true) AS coop, $1::int AS n`;
+    const [first, second] = await withTenant({ coopId: coop.id }, async (tx) => [
+      await selectPrepared<{ coop: string; n: number }>(tx, sql, [1], { onlyStatement: true }),
+      await selectRows<{ coop: string; n: number }>(tx, sql, [2]),
+    ]);
+    expect(first).toEqual([{ coop: coop.id, n: 1 }]);
+    expect(second).toEqual([{ coop: coop.id, n: 2 }]);
+    // And the pooled connections carry nothing on.
+    const [outside] = await database().query<{ coop: string | null }>(`SELECT current_setting('app.coop_id', true) AS coop`, { type: QueryTypes.SELECT });
+    expect(outside!.coop ?? '').toBe('');
+  });
+
+  it('when the one-statement read fails, then the transaction rolls back as any other and the connection serves the next', async () => {
+    const coop = await createTestCoop();
+    const handle = testApp();
+    const sql = `SELECT 100 / $1::int AS share`;
+    for (let i = 0; i < handle.config.databasePoolMax; i++) {
+      await expect(withTenant({ coopId: coop.id }, (tx) => selectPrepared(tx, sql, [0], { onlyStatement: true }))).rejects.toThrow(/division by zero/);
+      expect(await withTenant({ coopId: coop.id }, (tx) => selectPrepared(tx, sql, [4], { onlyStatement: true }))).toEqual([{ share: 25 }]);
+    }
+  });
 });
 

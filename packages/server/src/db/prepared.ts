@@ -1,7 +1,7 @@
 import { createHash } from 'node:crypto';
 import type pg from 'pg';
 import type { Transaction } from 'sequelize';
-import { literalsOf, openingPendingOn } from './tenant-opening';
+import { endWithNextStatement, literalsOf, openingPendingOn } from './tenant-opening';
 
 /*
  * Reads straight on the transaction's pg connection, for the hot paths every request takes: no model
@@ -50,11 +50,23 @@ async function settleUncertain(tx: Transaction, client: pg.Client, name: string,
  * values always travel as parameters. As a transaction's first statement it travels with the opening in one
  * round trip, as SQL `PREPARE` (once per connection) and `EXECUTE` with its values written in.
  */
-export async function selectPrepared<T extends object>(tx: Transaction, sql: string, bind: unknown[] = []): Promise<T[]> {
+export async function selectPrepared<T extends object>(
+  tx: Transaction,
+  sql: string,
+  bind: unknown[] = [],
+  opts: {
+    /**
+     * The read is all its transaction sends (a list read in one statement): as the first statement it then
+     * ends the transaction in the same round trip, instead of a COMMIT of its own (see tenant-opening.ts).
+     */
+    onlyStatement?: boolean;
+  } = {},
+): Promise<T[]> {
   const client = connectionOf(tx);
   const name = `p_${createHash('sha1').update(sql).digest('base64url')}`;
   await settleUncertain(tx, client, name, sql);
   if (openingPendingOn(client)) {
+    if (opts.onlyStatement) endWithNextStatement(client);
     const literals = literalsOf(bind, (value) => client.escapeLiteral(value));
     if (literals === null) return selectRows<T>(tx, sql, bind);
     const quoted = `"${name}"`;

@@ -115,10 +115,23 @@ export function literalsOf(values: readonly unknown[], quote: (value: string) =>
   return literals;
 }
 
-/** What the opened connection answers for the statement that followed the opening. */
-function ownResults(result: unknown): unknown {
+/**
+ * A read that is its transaction's only statement may end it in the same round trip: the opening, the read
+ * and `COMMIT` go together (`endWithNextStatement`), and the transaction's own COMMIT or ROLLBACK is then
+ * answered without one. Should another statement follow after all, the transaction opens anew for it.
+ */
+const endWithNext = new WeakSet<object>();
+const endedOpening = new WeakMap<object, string>();
+
+/** Asks that the connection's pending opening, if any, travel with the next statement and end with it (reads only). */
+export function endWithNextStatement(connection: object): void {
+  if (pendingOpening.has(connection)) endWithNext.add(connection);
+}
+
+/** What the opened connection answers for the statement that followed the opening (without a COMMIT sent after it). */
+function ownResults(result: unknown, ended: boolean): unknown {
   if (!Array.isArray(result)) return result;
-  const own = result.slice(2);
+  const own = result.slice(2, ended ? -1 : undefined);
   return own.length === 1 ? own[0] : own;
 }
 
@@ -126,11 +139,23 @@ function sendOpeningFirst(client: pg.Client): void {
   // Looked up on each call, so instrumentation of pg's client (the tests' statement counter) sees each round trip.
   const send: Send = (...args) => (Object.getPrototypeOf(client) as { query: Send }).query.apply(client, args);
   (client as unknown as { query: Send }).query = (...args: unknown[]) => {
+    const [text, second, third] = args;
+    const callback = (typeof second === 'function' ? second : third) as Callback | undefined;
+    const ended = endedOpening.get(client);
+    if (ended !== undefined) {
+      endedOpening.delete(client);
+      if (typeof text === 'string' && /^\s*(COMMIT|ROLLBACK)\s*;?\s*$/i.test(text) && typeof callback === 'function') {
+        // Already committed with its one statement: there is nothing left to end.
+        process.nextTick(callback, null, { command: text.trim().replace(/;$/, '').toUpperCase(), rowCount: null, rows: [], fields: [] });
+        return undefined;
+      }
+      pendingOpening.set(client, ended);
+    }
     const opening = pendingOpening.get(client);
     if (opening === undefined) return send(...args);
     pendingOpening.delete(client);
-    const [text, second, third] = args;
-    const callback = (typeof second === 'function' ? second : third) as Callback | undefined;
+    const ending = endWithNext.has(client);
+    endWithNext.delete(client);
     const values = (typeof second === 'function' ? [] : (second ?? [])) as unknown[];
     if (typeof text !== 'string' || typeof callback !== 'function') {
       // Not the shape Sequelize sends: open on its own first.
@@ -142,7 +167,12 @@ function sendOpeningFirst(client: pg.Client): void {
       return undefined;
     }
     const inline = values.length === 0 ? text : inlineParameters(text, values, (v) => client.escapeLiteral(v));
-    if (inline !== null) return send(opening + inline, (error: Error | null, result: unknown) => callback(error, error ? result : ownResults(result)));
+    if (inline !== null) {
+      return send(ending ? `${opening}${inline}\n; COMMIT` : opening + inline, (error: Error | null, result: unknown) => {
+        if (!error && ending) endedOpening.set(client, opening);
+        callback(error, error ? result : ownResults(result, ending));
+      });
+    }
     return send(opening, (error: Error | null) => (error ? callback(error) : send(text, values, callback)));
   };
 }

@@ -141,7 +141,7 @@ export async function doeBoard(actor: SessionUser, q: DoeBoardQuery): Promise<Do
   ensureCan(actor, 'read', 'Service', { farmId }, 'That doe board');
   return withTenant(actor, async (tx) => {
     const clock = await farmClockOf(tx, actor.coopId, farmId);
-    const rows = await selectPrepared<DoeFactsRow>(tx, doeFactsSql, [actor.coopId, farmId]);
+    const rows = await selectPrepared<DoeFactsRow>(tx, doeFactsSql, [actor.coopId, farmId], { onlyStatement: true });
     const settings = settingsOfRow(rows[0]);
     const all = rows.map((row) => itemOf(row, clock.today, settings));
     const order = boardOrders[q.sort];

@@ -134,7 +134,7 @@ function agendaSql(history: boolean): string {
 async function agendaOf(tx: Transaction, coopId: string, farmId: string, from: string, to: string, today: string, include: 'open' | 'all') {
   const openUntil = to > today ? to : today;
   const history = include === 'all';
-  const rows = await selectPrepared<AgendaRow>(tx, agendaSql(history), history ? [farmId, openUntil, from, to] : [farmId, openUntil]);
+  const rows = await selectPrepared<AgendaRow>(tx, agendaSql(history), history ? [farmId, openUntil, from, to] : [farmId, openUntil], { onlyStatement: true });
   const tasks = rows.filter((r): r is AgendaRow & AgendaTaskRow => r.id !== null);
   const settings: CycleSettings = { ...defaultCycleSettings(), ...(rows[0]!.settings ?? {}) };
   const animals = new Map<string, AnimalRefFacts>();

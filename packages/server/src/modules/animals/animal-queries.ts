@@ -123,7 +123,8 @@ async function selectPage<Row extends object>(
     ) m ON true
     ${latestWeight(viewer)}
     ORDER BY page.position`;
-  return selectPrepared<Row>(tx, sql, [...bind, weightsSeenBy]);
+  // The page is all its list reads (a page past the end reads its count after: it then opens again).
+  return selectPrepared<Row>(tx, sql, [...bind, weightsSeenBy], { onlyStatement: true });
 }
 
 /** The herd list's page; `cycleFactsColumn` (of animal `a`) is read as `cycle_facts`. */

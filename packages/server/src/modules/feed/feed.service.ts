@@ -122,7 +122,7 @@ type BookRow = { usesTotal: number; purchases: FeedBookPage['purchases']; uses: 
 
 /** A page of the book, latest feed given first, with the labels of what it names (present only what is found). */
 async function feedBookPage(tx: Transaction, coopId: string, farmId: string, page: FeedBookQuery): Promise<{ book: FeedBookPage; labels: FeedBookLabels }> {
-  const [row] = await selectPrepared<BookRow>(tx, feedBookPageSql, [coopId, farmId, page.pageSize, (page.page - 1) * page.pageSize]);
+  const [row] = await selectPrepared<BookRow>(tx, feedBookPageSql, [coopId, farmId, page.pageSize, (page.page - 1) * page.pageSize], { onlyStatement: true });
   const { uses } = row!;
   const labels: FeedBookLabels = { groups: new Map(), litters: new Map(), animals: new Map(), units: new Map(), names: new Map() };
   for (const u of uses) {

@@ -399,14 +399,14 @@ export async function listLitters(actor: SessionUser, q: LitterListQuery): Promi
   const farmId = farmOf(actor);
   ensureCan(actor, 'read', 'Litter', { farmId }, 'Those litters');
   return withTenant(actor, async (tx) => {
+    const clock = await farmClockOf(tx, actor.coopId, farmId);
+    const farms = await farmDirectoryOf(actor.coopId, tx);
     const rows = await selectPrepared<LitterCounts & { [K in keyof LitterListRow]: LitterListRow[K] | null }>(
-      tx, litterPageSql(q), [farmId, q.damId ?? null, q.pageSize, (q.page - 1) * q.pageSize],
+      tx, litterPageSql(q), [farmId, q.damId ?? null, q.pageSize, (q.page - 1) * q.pageSize], { onlyStatement: true },
     );
     const { nursing, weaned, all } = rows[0]!;
     const counts = { nursing, weaned, all };
     const litters = rows.filter((r): r is typeof r & LitterListRow => r.id !== null);
-    const clock = await farmClockOf(tx, actor.coopId, farmId);
-    const farms = await farmDirectoryOf(actor.coopId, tx);
     const items = litters.map((l) => {
       const refs = new Map([[l.damId, animalRefOf(l.damId, l, 'dam', farms)], [l.sireId, animalRefOf(l.sireId, l, 'sire', farms)]]);
       const ctx = { animal: (id: string) => refs.get(id)!, today: clock.today };
