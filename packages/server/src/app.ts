@@ -74,6 +74,9 @@ export function createApp(overrides: Partial<Config> = {}): AppHandle {
 
   const app = express();
   app.disable('x-powered-by');
+  // Answers of the API are never cached (no-store below), so hashing each body for an ETag is work for nothing;
+  // the client's files carry their own (express.static).
+  app.set('etag', false);
   app.set('trust proxy', config.trustProxyHops);
   app.use(
     helmet({
