@@ -77,8 +77,16 @@ if (!coop || !(await coopExists(coop))) {
 }
 console.log(`co-op: ${Object.entries(coop.counts).map(([k, v]) => `${k} ${v.toLocaleString('en-US')}`).join(', ')}`);
 
-// The herd list's SELECT as the API sends it, captured from one request of an in-process app.
-async function captureHerdQuery(): Promise<void> {
+interface CapturedRead { prepare: string; execute: string }
+
+/**
+ * The SELECT a one-statement read sends, captured from an in-process app: each is its transaction's first
+ * statement, so it travels with the opening as SQL `PREPARE` (once per connection) and `EXECUTE` with its
+ * values written in. Taken where every statement goes out, on pg's client, from the second request of each
+ * route (the first also reads the co-op's breeds and farms, which are then kept). The bare endpoint prepares
+ * the herd list's once per connection too and sends the same EXECUTE; every one is explained below.
+ */
+async function captureReads(routes: string[]): Promise<Map<string, CapturedRead>> {
   const http = await import('node:http');
   const { createApp } = await import('../../packages/server/src/app');
   const server = http.createServer();
@@ -87,39 +95,38 @@ async function captureHerdQuery(): Promise<void> {
   const handle = createApp({ appUrl: url });
   server.on('request', handle.app);
   const cookie = await signIn(url);
-  // Taken where every statement goes out, on pg's client. The list's page is its transaction's first
-  // statement, so it travels with the opening as SQL `PREPARE` (once per connection) and `EXECUTE` with its
-  // values written in: the bare endpoint prepares it once per connection too and sends the same EXECUTE.
-  let captured: { prepare: string; execute: string } | null = null;
-  const pageSql = new Map<string, string>();
-  let execute: { name: string; text: string } | null = null;
+  const named = new Map<string, string>();
+  let firstExecute: { name: string; text: string } | null = null;
   const pg = (await import('pg')).default;
   const send = pg.Client.prototype.query;
   pg.Client.prototype.query = function capture(this: unknown, ...args: unknown[]) {
     const [first] = args as [string | { text?: string; name?: string }];
-    // The list's own SELECT: the page with its figures (not the co-op's breeds and farms read beside it).
-    if (typeof first === 'object' && first?.name && first.text?.includes('WITH page AS MATERIALIZED')) pageSql.set(first.name, first.text);
+    if (typeof first === 'object' && first?.name && first.text) named.set(first.name, first.text);
     if (typeof first === 'string') {
-      const inline = /PREPARE "(p_[^"]+)" AS ([\s\S]*WITH page AS MATERIALIZED[\s\S]*)\n; EXECUTE "\1"/.exec(first);
-      if (inline) pageSql.set(inline[1]!, inline[2]!);
-      const executed = /(EXECUTE "(p_[^"]+)"[\s\S]*)$/.exec(first);
-      if (executed && pageSql.has(executed[2]!)) execute = { name: executed[2]!, text: executed[1]! };
+      const inline = /PREPARE "(p_[^"]+)" AS ([\s\S]*?)\n; EXECUTE "\1"/.exec(first);
+      if (inline) named.set(inline[1]!, inline[2]!);
+      const executed = /^\s*START TRANSACTION;[\s\S]*?(EXECUTE "(p_[^"]+)"(?:\((?:'(?:[^']|'')*'|[^'()])*\))?)/.exec(first);
+      if (executed && !firstExecute) firstExecute = { name: executed[2]!, text: executed[1]! };
     }
     return (send as (...a: unknown[]) => unknown).apply(this, args);
   } as typeof send;
-  // Twice: the first request reads the co-op's breeds and farms first; the second, with them kept, opens with the page.
-  await (await fetch(`${url}/api/animals`, { headers: { cookie } })).arrayBuffer();
-  const res = await fetch(`${url}/api/animals`, { headers: { cookie } });
-  const body = (await res.json()) as { items: unknown[]; total: number };
-  pg.Client.prototype.query = send;
-  server.closeAllConnections();
-  await new Promise<void>((resolve) => server.close(() => resolve()));
-  const sent = execute as { name: string; text: string } | null;
-  const text = sent ? pageSql.get(sent.name) : undefined;
-  if (sent && text) captured = { prepare: `PREPARE "${sent.name}" AS ${text}`, execute: sent.text };
-  if (!captured) throw new Error('the herd list sent no page SELECT as its first statement');
-  fs.writeFileSync(queryFile, JSON.stringify({ ...(captured as object), coopId: coop!.coopId }));
-  console.log(`herd list of the signed-in farm: ${body.items.length} rows of ${body.total} (status ${res.status})`);
+  const captured = new Map<string, CapturedRead>();
+  try {
+    for (const route of routes) {
+      await (await fetch(`${url}${route}`, { headers: { cookie } })).arrayBuffer();
+      firstExecute = null;
+      const res = await fetch(`${url}${route}`, { headers: { cookie } });
+      await res.arrayBuffer();
+      const sent = firstExecute as { name: string; text: string } | null;
+      const sql = sent ? named.get(sent.name) : undefined;
+      if (res.ok && sent && sql) captured.set(route, { prepare: `PREPARE "${sent.name}" AS ${sql}`, execute: sent.text });
+    }
+  } finally {
+    pg.Client.prototype.query = send;
+    server.closeAllConnections();
+    await new Promise<void>((resolve) => server.close(() => resolve()));
+  }
+  return captured;
 }
 
 async function signIn(url: string): Promise<string> {
@@ -204,7 +211,18 @@ async function statementsPerRequest(send: () => Promise<Response>, n = 20): Prom
   return calls / n;
 }
 
-await captureHerdQuery();
+const explainedRoutes: [string, string][] = [
+  ['herd list', '/api/animals'],
+  ['litters list', '/api/litters'],
+  ['Almanac agenda (next 7 days)', '/api/almanac/tasks?days=7&include=open'],
+  ['feed book', '/api/feed'],
+  ['doe board', '/api/almanac/doe-board'],
+];
+const capturedReads = await captureReads(explainedRoutes.map(([, route]) => route));
+const herdRead = capturedReads.get('/api/animals');
+if (!herdRead) throw new Error('the herd list sent no page SELECT as its first statement');
+fs.writeFileSync(queryFile, JSON.stringify({ ...herdRead, coopId: coop.coopId }));
+console.log(`captured the one-statement reads of: ${explainedRoutes.filter(([, r]) => capturedReads.has(r)).map(([label]) => label).join(', ')}`);
 const apiServer = await startChild('api-server.ts', [String(API_PORT)]);
 const bareServer = await startChild('bare-server.ts', [String(BARE_PORT), queryFile]);
 const apiUrl = `http://127.0.0.1:${apiServer.port}`;
@@ -245,6 +263,8 @@ try {
     ['litters list', '/api/litters', { headers }],
     ['performance tables (all years)', '/api/performance?period=all', { headers }],
     ['Almanac agenda (next 7 days)', '/api/almanac/tasks?days=7&include=open', { headers }],
+    ['feed book (first page)', '/api/feed', { headers }],
+    ['doe board', '/api/almanac/doe-board', { headers }],
   ];
   console.log('');
   console.log('other reads, 10 connections:');
@@ -270,7 +290,6 @@ try {
   console.log(`  herd list: ${herdStatements.toFixed(1)} statements a request (session and transaction included)`);
 
   // Plans of the heavy queries, as the app role under the co-op's tenant.
-  const captured = JSON.parse(fs.readFileSync(queryFile, 'utf8')) as { prepare: string; execute: string };
   const explain = async (label: string, sql: string, bind: unknown[], prepare?: string) => {
     const plan = await database().transaction(async (tx) => {
       await database().query(`SELECT set_config('app.coop_id', $1, true), set_config('plan_cache_mode', 'force_generic_plan', true)`, { bind: [coop!.coopId], transaction: tx });
@@ -282,7 +301,10 @@ try {
     console.log(`\n--- EXPLAIN (ANALYZE, BUFFERS): ${label}`);
     for (const row of plan as unknown as { 'QUERY PLAN': string }[]) console.log(row['QUERY PLAN']);
   };
-  await explain('herd list (the API\'s SELECT)', captured.execute, [], captured.prepare);
+  for (const [label, route] of explainedRoutes) {
+    const read = capturedReads.get(route);
+    if (read) await explain(`${label} (the API's SELECT)`, read.execute, [], read.prepare);
+  }
   await explain('the co-op\'s whole pedigree (read per comparison before the shared index)', 'SELECT id, sire_id, dam_id, breed_id FROM animals WHERE coop_id = $1 AND deleted_at IS NULL', [coop.coopId]);
   const slowest = psql(`SELECT round(mean_exec_time::numeric, 1) || ' ms  ' || calls || ' calls  ' || left(regexp_replace(query, '\\s+', ' ', 'g'), 160)
     FROM pg_stat_statements s JOIN pg_roles r ON r.oid = s.userid WHERE r.rolname = 'burrowline_app' ORDER BY mean_exec_time DESC LIMIT 8`);
