@@ -127,6 +127,17 @@ describe('two app instances on one database', { timeout: 120_000 }, () => {
     expect(outsiderHeard).not.toContain(RealtimeEvent.studLoanChanged);
   });
 
+  it("when an admin adds a breed through A, then B, which keeps the co-op's breeds in memory, lists it on the next request", async () => {
+    const onB = as(b, await signIn(b, coop.member));
+    const before = await onB.get('/api/breeds');
+    expect(before.status).toBe(200);
+    expect(before.body.breeds.map((x: { name: string }) => x.name)).not.toContain('Ridgeway Cross');
+    const added = await as(a, await signIn(a, coop.admin)).post('/api/breeds').send({ name: 'Ridgeway Cross', sizeClass: 'medium', source: "The co-op's own records (common practice)" });
+    expect(added.status).toBe(201);
+    const after = await onB.get('/api/breeds');
+    expect(after.body.breeds.map((x: { name: string }) => x.name)).toContain('Ridgeway Cross');
+  });
+
   it('when a photo is uploaded through A, then B serves the same bytes from the object store, only to those who may see it', async () => {
     const memberCookie = await signIn(a, coop.member);
     const animal = await as(a, memberCookie).post('/api/animals').send({ tattoo: `IN-${Date.now() % 100000}`, sex: 'doe', birthDate: '2023-01-10', confirm: true });
