@@ -199,6 +199,17 @@ async function load(url: string, connections: number, init: { method?: string; b
   return { p50: result.latency.p50, p99: result.latency.p99, rps: result.requests.total / result.duration, bad, requests: result.requests.total };
 }
 
+/** The median time of `n` requests sent one after another on one connection. */
+async function medianAlone(url: string, init: RequestInit, n = 15): Promise<number> {
+  const times: number[] = [];
+  for (let i = 0; i < n; i++) {
+    const t = performance.now();
+    await (await fetch(url, init)).arrayBuffer();
+    times.push(performance.now() - t);
+  }
+  return times.sort((x, y) => x - y)[Math.floor(n / 2)]!;
+}
+
 /** SQL statements per request: pg_stat_statements around `n` sequential requests of the API. */
 async function statementsPerRequest(send: () => Promise<Response>, n = 20): Promise<number> {
   await send();
@@ -253,6 +264,11 @@ try {
     console.log(`  bare  p50 ${ms(avg(bare, 'p50'))}  p99 ${ms(avg(bare, 'p99'))}  ${avg(bare, 'rps').toFixed(1).padStart(6)} req/s;  ${cpu(bare)}`);
     const cpuRatio = (avg(bare, 'nodeMs') + avg(bare, 'databaseMs')) / (avg(api, 'nodeMs') + avg(api, 'databaseMs'));
     console.log(`  API / bare throughput ${(avg(api, 'rps') / avg(bare, 'rps')).toFixed(2)}; by CPU a request (what a quiet machine would give) ${cpuRatio.toFixed(2)}`);
+    if (connections === 10) {
+      // One connection, one request after another: what a co-op's size changes of one answer.
+      const alone = await medianAlone(`${apiUrl}/api/animals`, { headers });
+      console.log(`  API 1 connection: median ${ms(alone)} (compare the co-ops of 5,000, 50,000 and 200,000 animals: \`--5k\`, \`--200k\`)`);
+    }
   }
 
   // The other heavy reads, at 10 connections.
@@ -276,15 +292,9 @@ try {
     const statements = await statementsPerRequest(() => fetch(`${apiUrl}${route}`, init as RequestInit), 10);
     // One connection, one request after another: the cost of one answer (and a figure even when none
     // of the loaded requests finished within a round).
-    const alone: number[] = [];
-    for (let i = 0; i < 7; i++) {
-      const t = performance.now();
-      await (await fetch(`${apiUrl}${route}`, init as RequestInit)).arrayBuffer();
-      alone.push(performance.now() - t);
-    }
-    alone.sort((x, y) => x - y);
+    const alone = await medianAlone(`${apiUrl}${route}`, init as RequestInit);
     console.log(`  ${label.padEnd(34)} p50 ${ms(r.p50)}  p99 ${ms(r.p99)}  ${r.rps.toFixed(1).padStart(6)} req/s${r.bad ? ` (${r.bad} failed)` : ''};  `
-      + `1 connection: median ${ms(alone[3]!)};  ${statements.toFixed(1)} statements a request;  CPU a request: server ${r.nodeMs.toFixed(1)} ms + database ${r.databaseMs.toFixed(1)} ms`);
+      + `1 connection: median ${ms(alone)};  ${statements.toFixed(1)} statements a request;  CPU a request: server ${r.nodeMs.toFixed(1)} ms + database ${r.databaseMs.toFixed(1)} ms`);
   }
   const herdStatements = await statementsPerRequest(() => fetch(`${apiUrl}/api/animals`, { headers }));
   console.log(`  herd list: ${herdStatements.toFixed(1)} statements a request (session and transaction included)`);
