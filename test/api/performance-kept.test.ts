@@ -168,4 +168,15 @@ describe('performance tables read in one statement and kept between changes', ()
     expect(afterWeighIn.groups[0]!.gainGrams).not.toBe(afterLitter.groups[0]!.gainGrams);
     expect(tablesOf(afterWeighIn)).toEqual(await tablesFromPublishedReads(fx.coop, 'all'));
   });
+
+  it('when several screens ask at once after a change, then each gets the changed figures', async () => {
+    await asTenant(fx.coop.id, (client) => client.query(`UPDATE animals SET name = 'Juniper Rose' WHERE id = $1`, [fx.doe]), { commit: true });
+    const answers = await Promise.all([1, 2, 3].map(() => fx.counting.agent.get('/api/performance?period=all')));
+    const expected = await tablesFromPublishedReads(fx.coop, 'all');
+    for (const res of answers) {
+      expect(res.status).toBe(200);
+      expect(doeRow(res.body as PerformanceDto).animal.name).toBe('Juniper Rose');
+      expect(tablesOf(res.body as PerformanceDto)).toEqual(expected);
+    }
+  });
 });

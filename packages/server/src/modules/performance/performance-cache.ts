@@ -25,18 +25,39 @@ export async function performanceVersionOf(tx: Transaction, coopId: string): Pro
   return row?.version ?? '0';
 }
 
-/** The kept tables for `key` when they were read under `version`; else undefined. */
-export function keptTables(key: string, version: string): PerformanceTables | undefined {
+/**
+ * The tables for `key` as of `version`: the kept ones when they were read under it, else worked out by
+ * `work` and kept. Requests that ask for the same while it is being worked out wait for that answer
+ * instead of working it out again each (after a change, every open screen asks at once); should that
+ * work fail, each works it out on its own.
+ */
+export function keptOrWorkedOut(key: string, version: string, work: () => Promise<PerformanceTables>): Promise<PerformanceTables> {
   const entry = kept.get(key);
-  if (!entry || entry.version !== version) return undefined;
-  kept.delete(key);
-  kept.set(key, entry);
-  return entry.tables;
+  if (entry && entry.version === version) {
+    kept.delete(key);
+    kept.set(key, entry);
+    return Promise.resolve(entry.tables);
+  }
+  const runKey = `${key}|${version}`;
+  const running = working.get(runKey);
+  if (running) return running.catch(() => work());
+  const answer = work().then((tables) => {
+    keep(key, version, tables);
+    return tables;
+  });
+  working.set(runKey, answer);
+  const done = () => working.delete(runKey);
+  answer.then(done, done);
+  return answer;
 }
 
-export function keepTables(key: string, version: string, tables: PerformanceTables): PerformanceTables {
+const working = new Map<string, Promise<PerformanceTables>>();
+
+function keep(key: string, version: string, tables: PerformanceTables): void {
+  // An answer worked out under an older counter than the one kept (a slower request) is not kept.
+  const current = kept.get(key);
+  if (current && BigInt(current.version) > BigInt(version)) return;
   kept.delete(key);
   kept.set(key, { version, tables });
   while (kept.size > MAX_KEPT) kept.delete(kept.keys().next().value!);
-  return tables;
 }

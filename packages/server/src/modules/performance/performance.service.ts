@@ -9,7 +9,7 @@ import { ensureCan, farmOf } from '../farms/farm-access';
 import { farmClockOf } from '../farms/farm-clock';
 import { settingsOf } from '../almanac/cycle-settings.service';
 import { animalFactsOf } from '../animals/animal-facts.service';
-import { keepTables, keptTables, performanceVersionOf } from './performance-cache';
+import { keptOrWorkedOut, performanceVersionOf } from './performance-cache';
 import { performanceSourcesOf } from './performance-sources';
 import { presentPerformance } from './performance.presenter';
 
@@ -31,7 +31,7 @@ export async function farmPerformance(actor: SessionUser, q: PerformanceQuery): 
     // Worked out again only when a record the tables rest on changed since they were kept (or the day turned).
     const version = await performanceVersionOf(tx, actor.coopId);
     const key = `${farmId}|${period?.from ?? ''}|${period?.to ?? ''}|${clock.today}`;
-    const tables = keptTables(key, version) ?? keepTables(key, version, await tablesOf(tx, actor.coopId, farmId, clock.today, period));
+    const tables = await keptOrWorkedOut(key, version, () => tablesOf(tx, actor.coopId, farmId, clock.today, period));
     return presentPerformance(tables, { farmId, today: clock.today, periodChoice: q.period, showsMoney });
   });
 }
