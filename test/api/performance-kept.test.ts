@@ -10,7 +10,7 @@ import { growOutFactsOfFarm } from '../../packages/server/src/modules/grow-out/g
 import { litterFactsOfFarm } from '../../packages/server/src/modules/litters/litters.service';
 import { processingFactsOfFarm } from '../../packages/server/src/modules/processing/processing.service';
 import { daysAgo, fosteringAs, kindlingAs, palpationAs, serviceAs } from '../support/almanac';
-import { asTenant } from '../support/db';
+import { asTenant, ownerDb } from '../support/db';
 import { createTestCoop, TEST_PASSWORD, type TestCoop } from '../support/factories';
 import { actorOf, addAnimalAs, catalogueBreeds } from '../support/herd';
 import { countingAgentFor, type CountingAgent } from '../support/statement-counter';
@@ -178,5 +178,19 @@ describe('performance tables read in one statement and kept between changes', ()
       expect(doeRow(res.body as PerformanceDto).animal.name).toBe('Juniper Rose');
       expect(tablesOf(res.body as PerformanceDto)).toEqual(expected);
     }
+  });
+
+  it('when a data migration changes a record as the owner with no tenant set, then it may still alter the table after, and the next read shows the change', async () => {
+    const before = doeRow((await read('all')).res.body as PerformanceDto);
+    await ownerDb(async (client) => {
+      await client.query('BEGIN');
+      await client.query('ALTER TABLE litters NO FORCE ROW LEVEL SECURITY');
+      await client.query('UPDATE litters SET born_alive = born_alive + 2 WHERE id = $1', [fx.litter]);
+      await client.query('ALTER TABLE litters FORCE ROW LEVEL SECURITY');
+      await client.query('COMMIT');
+    });
+    const after = (await read('all')).res.body as PerformanceDto;
+    expect(doeRow(after).averageBornAlive).toBeCloseTo(before.averageBornAlive! + 1, 10);
+    expect(tablesOf(after)).toEqual(await tablesFromPublishedReads(fx.coop, 'all'));
   });
 });
