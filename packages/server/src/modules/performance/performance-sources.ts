@@ -30,12 +30,21 @@ interface SourceRows {
   feed: Json[][];
   groups: Json[][];
   members: Json[][];
+  member_litters: Json[][];
   weigh_ins: Json[][];
   processing: Json[][];
 }
 
 // Each array is a table's rows as positional arrays (smaller than objects); the mapping below names them.
-const sourcesSql = `SELECT
+// The groups' litters, weigh-ins and feed shares are looked up by the ids of the farm's groups and feed
+// entries (`= ANY (ARRAY(...))`, one index scan each, as an IN list would), never joined row by row: a
+// nested loop over a misestimated outer side (fresh rows, old statistics) would read them once per group.
+const sourcesSql = `WITH farm_groups AS MATERIALIZED (
+    SELECT g.id, g.name, g.formed_on, g.status, g.closed_on, g.target_grams, g.created_at FROM grow_out_groups g
+    WHERE g.coop_id = $1 AND g.farm_id = $2 AND g.deleted_at IS NULL),
+  members AS MATERIALIZED (
+    SELECT m.group_id, m.litter_id, m.heads FROM grow_out_group_litters m WHERE m.group_id = ANY (ARRAY(SELECT id FROM farm_groups)))
+  SELECT
   (SELECT coalesce(json_agg(json_build_array(s.id, s.doe_id, s.buck_id, s.serviced_on, s.status, s.closed_on, s.litter_id)
       ORDER BY s.serviced_on, s.created_at), '[]')
     FROM services s WHERE s.coop_id = $1 AND s.farm_id = $2 AND s.deleted_at IS NULL) AS services,
@@ -47,20 +56,19 @@ const sourcesSql = `SELECT
     FROM litter_events e WHERE e.coop_id = $1 AND e.farm_id = $2 AND e.deleted_at IS NULL) AS events,
   (SELECT coalesce(json_agg(json_build_array(f.group_id, f.litter_id, f.grams, f.cost_cents)), '[]') FROM (
       SELECT sh.group_id, sh.litter_id, sum(sh.grams) AS grams, coalesce(sum(sh.cost_cents), 0) AS cost_cents
-      FROM feed_use_shares sh JOIN feed_uses u ON u.coop_id = sh.coop_id AND u.id = sh.feed_use_id
-      WHERE u.coop_id = $1 AND u.farm_id = $2 AND u.deleted_at IS NULL
+      FROM feed_use_shares sh
+      WHERE sh.coop_id = $1 AND sh.feed_use_id = ANY (ARRAY(
+        SELECT u.id FROM feed_uses u WHERE u.coop_id = $1 AND u.farm_id = $2 AND u.deleted_at IS NULL))
       GROUP BY sh.group_id, sh.litter_id) f) AS feed,
   (SELECT coalesce(json_agg(json_build_array(g.id, g.name, g.formed_on, g.status, g.closed_on, g.target_grams)
-      ORDER BY g.formed_on, g.created_at), '[]')
-    FROM grow_out_groups g WHERE g.coop_id = $1 AND g.farm_id = $2 AND g.deleted_at IS NULL) AS groups,
-  (SELECT coalesce(json_agg(json_build_array(m.group_id, m.litter_id, m.heads, l.kindled_on)), '[]')
-    FROM grow_out_groups g JOIN grow_out_group_litters m ON m.group_id = g.id
-    JOIN litters l ON l.id = m.litter_id AND l.coop_id = $1 AND l.deleted_at IS NULL
-    WHERE g.coop_id = $1 AND g.farm_id = $2 AND g.deleted_at IS NULL) AS members,
+      ORDER BY g.formed_on, g.created_at), '[]') FROM farm_groups g) AS groups,
+  (SELECT coalesce(json_agg(json_build_array(m.group_id, m.litter_id, m.heads)), '[]') FROM members m) AS members,
+  (SELECT coalesce(json_agg(json_build_array(l.id, l.kindled_on)), '[]')
+    FROM litters l WHERE l.id = ANY (ARRAY(SELECT litter_id FROM members)) AND l.coop_id = $1 AND l.deleted_at IS NULL) AS member_litters,
   (SELECT coalesce(json_agg(json_build_array(w.group_id, w.weighed_on, w.total_grams, w.head_count)
       ORDER BY w.weighed_on, w.created_at), '[]')
-    FROM grow_out_groups g JOIN weigh_ins w ON w.group_id = g.id AND w.coop_id = $1 AND w.review_state = 'accepted' AND w.deleted_at IS NULL
-    WHERE g.coop_id = $1 AND g.farm_id = $2 AND g.deleted_at IS NULL) AS weigh_ins,
+    FROM weigh_ins w WHERE w.group_id = ANY (ARRAY(SELECT id FROM farm_groups)) AND w.coop_id = $1
+      AND w.review_state = 'accepted' AND w.deleted_at IS NULL) AS weigh_ins,
   (SELECT coalesce(json_agg(json_build_array(p.id, p.processed_on, p.animal_id, p.group_id, p.head_count, p.live_grams, p.hot_carcass_grams)
       ORDER BY p.processed_on, p.created_at), '[]')
     FROM processing_records p WHERE p.coop_id = $1 AND p.farm_id = $2 AND p.deleted_at IS NULL) AS processing`;
@@ -98,12 +106,14 @@ export async function performanceSourcesOf(
     if (groupId) byGroup.set(str(groupId), total);
     else if (litterId) doeLitterFeed.set(str(litterId), total);
   }
-  const members = groupBy(r.members, (m) => str(m[0]!));
+  // A group's litters with their kindling (a removed litter is left out of its group).
+  const kindledOn = new Map(r.member_litters.map(([id, on]) => [str(id!), str(on!)]));
+  const members = groupBy(r.members.filter((m) => kindledOn.has(str(m[1]!))), (m) => str(m[0]!));
   const weighIns = groupBy(r.weigh_ins, (w) => str(w[0]!));
   const groups: PerformanceGroupInput[] = r.groups.map(([id, name, formedOn, status, closedOn, targetGrams]) => ({
     id: str(id!), name: str(name!), formedOn: str(formedOn!), status: str(status!) as PerformanceGroupInput['status'], closedOn: optStr(closedOn!),
     targetGrams: num(targetGrams!),
-    litters: (members.get(str(id!)) ?? []).map((m) => ({ litterId: str(m[1]!), heads: num(m[2]!), kindledOn: str(m[3]!) })),
+    litters: (members.get(str(id!)) ?? []).map((m) => ({ litterId: str(m[1]!), heads: num(m[2]!), kindledOn: kindledOn.get(str(m[1]!))! })),
     weighIns: (weighIns.get(str(id!)) ?? []).map((w) => ({ weighedOn: str(w[1]!), totalGrams: num(w[2]!), headCount: num(w[3]!) })),
     feedGrams: byGroup.get(str(id!))?.grams ?? 0,
     feedCostCents: byGroup.get(str(id!))?.costCents ?? 0,
