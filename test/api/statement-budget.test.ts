@@ -180,7 +180,6 @@ const endpoints: Endpoint[] = [
   },
   {
     name: 'the performance tables',
-    over: { ownBudget: 9, why: 'one bulk read per table the figures use (services, litters, events, feed, groups, processing...)' },
     async arrange(coop) {
       const { litter } = await litterAs(coop.member, { servicedDaysAgo: 60, kindledDaysAgo: 29, bornAlive: 7 });
       return { url: '/api/performance', asker: coop.member, growTo: litterGrower(coop.id, litter.id) };

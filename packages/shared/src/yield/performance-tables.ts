@@ -263,7 +263,11 @@ export function performanceTables(input: PerformanceInput): PerformanceTables {
   if (!input.groups) missing.push('groups');
   if (!input.doeLitterFeed) missing.push('doeLitterFeed');
   if (!input.processing) missing.push('processing');
-  const firstRecord = [...input.services.map((s) => s.servicedOn), ...input.litters.map((l) => l.kindledOn)].sort()[0] ?? input.today;
+  // The earliest record: a plain loop, not a sort of every date.
+  let earliest: string | undefined;
+  for (const s of input.services) if (earliest === undefined || s.servicedOn < earliest) earliest = s.servicedOn;
+  for (const l of input.litters) if (earliest === undefined || l.kindledOn < earliest) earliest = l.kindledOn;
+  const firstRecord = earliest ?? input.today;
   const period = input.period ?? { from: firstRecord < input.today ? firstRecord : input.today, to: input.today };
 
   const animals = new Map(input.animals.map((a) => [a.id, a]));

@@ -81,6 +81,7 @@ export interface DoePerformance {
 const mean = (values: number[]) => (values.length > 0 ? values.reduce((s, v) => s + v, 0) / values.length : null);
 const inPeriod = (date: string, p: PerformancePeriod) => date >= p.from && date <= p.to;
 const byDate = <T>(date: (x: T) => string) => (a: T, b: T) => (date(a) < date(b) ? -1 : date(a) > date(b) ? 1 : 0);
+const byKindledOn = (a: { kindledOn: string }, b: { kindledOn: string }) => (a.kindledOn < b.kindledOn ? -1 : a.kindledOn > b.kindledOn ? 1 : 0);
 
 /** Services missed one after another at the end of the record (open services are passed over). */
 export function missedInARow(services: ReadonlyArray<ServiceRecord>): { count: number; dates: string[] } {
@@ -99,17 +100,27 @@ export function doePerformance(
   summaryOf: SummaryOf = litterSummary,
 ): DoePerformance {
   if (period.to < period.from) throw new RangeError('The period ends before it starts');
-  const starts = [...records.services.map((s) => s.servicedOn), ...records.litters.map((l) => l.kindledOn)].sort();
-  const from = starts[0] && starts[0] > period.from ? starts[0] : period.from;
+  // Plain loops over her records (a farm's tables call this for every doe): the earliest record, and
+  // the services in the period with their outcomes.
+  let first: string | undefined;
+  for (const s of records.services) if (first === undefined || s.servicedOn < first) first = s.servicedOn;
+  for (const l of records.litters) if (first === undefined || l.kindledOn < first) first = l.kindledOn;
+  const from = first && first > period.from ? first : period.from;
   const days = Math.max(daysBetween(from, period.to) + 1, 0);
   const years = days / 365.25;
   const rate = (n: number) => (years > 0 ? n / years : null);
 
-  const services = records.services.filter((s) => inPeriod(s.servicedOn, period));
-  const kindled = services.filter((s) => s.outcome === 'kindled').length;
-  const missed = services.filter((s) => s.outcome === 'missed').length;
+  let servicesInPeriod = 0;
+  let kindled = 0;
+  let missed = 0;
+  for (const s of records.services) {
+    if (!inPeriod(s.servicedOn, period)) continue;
+    servicesInPeriod++;
+    if (s.outcome === 'kindled') kindled++;
+    else if (s.outcome === 'missed') missed++;
+  }
 
-  const allLitters = [...records.litters].sort(byDate((l) => l.kindledOn));
+  const allLitters = [...records.litters].sort(byKindledOn);
   const litters = allLitters.filter((l) => inPeriod(l.kindledOn, period));
   const summaries = litters.map((l) => ({ ...summaryOf(l), kindledOn: l.kindledOn, weaningWeightGrams: l.weaningWeightGrams ?? null }));
   const intervals: number[] = [];
@@ -126,7 +137,7 @@ export function doePerformance(
 
   return {
     from, to: period.to, days, years,
-    services: services.length, kindled, missed,
+    services: servicesInPeriod, kindled, missed,
     conceptionRate: kindled + missed > 0 ? kindled / (kindled + missed) : null,
     litters: litters.length,
     littersPerYear: rate(litters.length),

@@ -432,6 +432,14 @@ export async function serviceOutcomesOfFarm(tx: Transaction, coopId: string, far
     where: { coopId, farmId }, attributes: ['id', 'doeId', 'buckId', 'servicedOn', 'status', 'closedOn', 'litterId'],
     order: [['servicedOn', 'ASC'], ['createdAt', 'ASC']], raw: true, transaction: tx,
   });
+  return serviceOutcomeFactsOf(rows, today, settings);
+}
+
+/** A service row with the columns its outcome is worked out from. */
+export type ServiceOutcomeRow = Pick<ServiceRecord, 'id' | 'doeId' | 'buckId' | 'servicedOn' | 'status' | 'closedOn' | 'litterId'>;
+
+/** How each service turned out, from rows a caller read in a statement of its own (the performance tables). */
+export function serviceOutcomeFactsOf(rows: ServiceOutcomeRow[], today: string, settings: CycleSettings): ServiceOutcomeFacts[] {
   return rows.map((r) => ({
     id: r.id,
     doeId: r.doeId,

@@ -522,8 +522,20 @@ export async function litterFactsOfFarm(tx: Transaction, coopId: string, farmId:
     where: { coopId, farmId }, attributes: ['id', 'litterId', 'kind', 'occurredOn', 'kitCount', 'cause', 'otherLitterId', 'reviewState', 'weaningWeightGrams'],
     order: [['occurredOn', 'ASC'], ['createdAt', 'ASC']], raw: true, transaction: tx,
   });
+  return litterPerformanceFactsOf(litters, events);
+}
+
+/** A litter row and an event row with the columns the performance facts read (deleted ones left out). */
+export type LitterFactsRow = Pick<Litter, 'id' | 'farmId' | 'serviceId' | 'damId' | 'sireId' | 'kindledOn' | 'bornAlive' | 'bornDead'>;
+export type LitterEventFactsRow = Pick<LitterEvent, 'id' | 'litterId' | 'kind' | 'occurredOn' | 'kitCount' | 'cause' | 'otherLitterId' | 'reviewState' | 'weaningWeightGrams'>;
+
+/**
+ * The performance facts of litters from their rows and their events' rows (each in date order), for a
+ * caller that reads them in a statement of its own (the performance tables read all their sources in one).
+ */
+export function litterPerformanceFactsOf(litters: LitterFactsRow[], events: LitterEventFactsRow[]): LitterPerformanceFacts[] {
   const byLitter = new Map<string, LitterEvent[]>();
-  for (const e of events) {
+  for (const e of events as LitterEvent[]) {
     const list = byLitter.get(e.litterId);
     if (list) list.push(e);
     else byLitter.set(e.litterId, [e]);

@@ -1,27 +1,126 @@
 import type { Transaction } from 'sequelize';
-import type { PerformanceGroupInput, PerformanceProcessingInput } from '@burrowline/shared';
-import { feedTotalsOfFarm } from '../feed/feed-totals.service';
-import { growOutFactsOfFarm } from '../grow-out/grow-out-facts.service';
-import { processingFactsOfFarm } from '../processing/processing.service';
+import type { CycleSettings, PerformanceGroupInput, PerformanceProcessingInput } from '@burrowline/shared';
+import { selectPrepared } from '../../db/prepared';
+import { groupBy } from '../../lib/group-by';
+import { serviceOutcomeFactsOf, type ServiceOutcomeFacts } from '../almanac/breeding.service';
+import { litterPerformanceFactsOf, type LitterPerformanceFacts } from '../litters/litters.service';
 
 /**
- * The grow-out, feed and processing records the performance tables read, through the services of
- * those domains (each reads its tables once, whatever the number of does). A source that is not
- * available answers null: its figures are left out, and the screen says which.
+ * The farm's records the performance tables read — services, litters and their events, grow-out groups
+ * with their litters and accepted weigh-ins, the feed book's stored shares, processing — in one
+ * statement that answers each table as one JSON array (parsed natively, no per-row work in the driver).
+ * It reads what each module's published facts read (`serviceOutcomesOfFarm`, `litterFactsOfFarm`,
+ * `growOutFactsOfFarm`, `feedTotalsOfFarm`, `processingFactsOfFarm`), with the same filters and order;
+ * `test/api/performance-kept.test.ts` holds the two to the same answer. The outcome of a service and a
+ * litter's record are still worked out by their modules' own functions.
  */
 export interface PerformanceSources {
-  groups: PerformanceGroupInput[] | null;
-  doeLitterFeed: Map<string, { grams: number; costCents: number }> | null;
-  processing: PerformanceProcessingInput[] | null;
+  services: ServiceOutcomeFacts[];
+  litters: LitterPerformanceFacts[];
+  groups: PerformanceGroupInput[];
+  doeLitterFeed: Map<string, { grams: number; costCents: number }>;
+  processing: PerformanceProcessingInput[];
 }
 
-export async function performanceSourcesOf(tx: Transaction, coopId: string, farmId: string): Promise<PerformanceSources> {
-  // The feed book is read and costed once for both the groups and the does with their litters.
-  const feed = await feedTotalsOfFarm(tx, coopId, farmId);
-  const groups = (await growOutFactsOfFarm(tx, coopId, farmId, { withFeed: false })).map((g) => ({
-    ...g, feedGrams: feed.byGroup.get(g.id)?.grams ?? 0, feedCostCents: feed.byGroup.get(g.id)?.costCents ?? 0,
+type Json = string | number | null;
+interface SourceRows {
+  services: Json[][];
+  litters: Json[][];
+  events: Json[][];
+  feed: Json[][];
+  groups: Json[][];
+  members: Json[][];
+  member_litters: Json[][];
+  weigh_ins: Json[][];
+  processing: Json[][];
+}
+
+// Each array is a table's rows as positional arrays (smaller than objects); the mapping below names them.
+// The groups' litters, weigh-ins and feed shares are looked up by the ids of the farm's groups and feed
+// entries (`= ANY (ARRAY(...))`, one index scan each, as an IN list would), never joined row by row: a
+// nested loop over a misestimated outer side (fresh rows, old statistics) would read them once per group.
+const sourcesSql = `WITH farm_groups AS MATERIALIZED (
+    SELECT g.id, g.name, g.formed_on, g.status, g.closed_on, g.target_grams, g.created_at FROM grow_out_groups g
+    WHERE g.coop_id = $1 AND g.farm_id = $2 AND g.deleted_at IS NULL),
+  members AS MATERIALIZED (
+    SELECT m.group_id, m.litter_id, m.heads FROM grow_out_group_litters m WHERE m.group_id = ANY (ARRAY(SELECT id FROM farm_groups)))
+  SELECT
+  (SELECT coalesce(json_agg(json_build_array(s.id, s.doe_id, s.buck_id, s.serviced_on, s.status, s.closed_on, s.litter_id)
+      ORDER BY s.serviced_on, s.created_at), '[]')
+    FROM services s WHERE s.coop_id = $1 AND s.farm_id = $2 AND s.deleted_at IS NULL) AS services,
+  (SELECT coalesce(json_agg(json_build_array(l.id, l.service_id, l.dam_id, l.sire_id, l.kindled_on, l.born_alive, l.born_dead)
+      ORDER BY l.kindled_on, l.created_at), '[]')
+    FROM litters l WHERE l.coop_id = $1 AND l.farm_id = $2 AND l.deleted_at IS NULL) AS litters,
+  (SELECT coalesce(json_agg(json_build_array(e.id, e.litter_id, e.kind, e.occurred_on, e.kit_count, e.cause, e.other_litter_id,
+      e.review_state, e.weaning_weight_grams) ORDER BY e.occurred_on, e.created_at), '[]')
+    FROM litter_events e WHERE e.coop_id = $1 AND e.farm_id = $2 AND e.deleted_at IS NULL) AS events,
+  (SELECT coalesce(json_agg(json_build_array(f.group_id, f.litter_id, f.grams, f.cost_cents)), '[]') FROM (
+      SELECT sh.group_id, sh.litter_id, sum(sh.grams) AS grams, coalesce(sum(sh.cost_cents), 0) AS cost_cents
+      FROM feed_use_shares sh
+      WHERE sh.coop_id = $1 AND sh.feed_use_id = ANY (ARRAY(
+        SELECT u.id FROM feed_uses u WHERE u.coop_id = $1 AND u.farm_id = $2 AND u.deleted_at IS NULL))
+      GROUP BY sh.group_id, sh.litter_id) f) AS feed,
+  (SELECT coalesce(json_agg(json_build_array(g.id, g.name, g.formed_on, g.status, g.closed_on, g.target_grams)
+      ORDER BY g.formed_on, g.created_at), '[]') FROM farm_groups g) AS groups,
+  (SELECT coalesce(json_agg(json_build_array(m.group_id, m.litter_id, m.heads)), '[]') FROM members m) AS members,
+  (SELECT coalesce(json_agg(json_build_array(l.id, l.kindled_on)), '[]')
+    FROM litters l WHERE l.id = ANY (ARRAY(SELECT litter_id FROM members)) AND l.coop_id = $1 AND l.deleted_at IS NULL) AS member_litters,
+  (SELECT coalesce(json_agg(json_build_array(w.group_id, w.weighed_on, w.total_grams, w.head_count)
+      ORDER BY w.weighed_on, w.created_at), '[]')
+    FROM weigh_ins w WHERE w.group_id = ANY (ARRAY(SELECT id FROM farm_groups)) AND w.coop_id = $1
+      AND w.review_state = 'accepted' AND w.deleted_at IS NULL) AS weigh_ins,
+  (SELECT coalesce(json_agg(json_build_array(p.id, p.processed_on, p.animal_id, p.group_id, p.head_count, p.live_grams, p.hot_carcass_grams)
+      ORDER BY p.processed_on, p.created_at), '[]')
+    FROM processing_records p WHERE p.coop_id = $1 AND p.farm_id = $2 AND p.deleted_at IS NULL) AS processing`;
+
+const str = (v: Json) => v as string;
+const optStr = (v: Json) => v as string | null;
+const num = (v: Json) => Number(v);
+
+export async function performanceSourcesOf(
+  tx: Transaction, coopId: string, farmId: string, clock: { today: string; settings: CycleSettings },
+): Promise<PerformanceSources> {
+  const [rows] = await selectPrepared<SourceRows>(tx, sourcesSql, [coopId, farmId]);
+  const r = rows!;
+  const services = serviceOutcomeFactsOf(
+    r.services.map((s) => ({
+      id: str(s[0]!), doeId: str(s[1]!), buckId: str(s[2]!), servicedOn: str(s[3]!), status: str(s[4]!) as ServiceOutcomeFacts['status'],
+      closedOn: optStr(s[5]!), litterId: optStr(s[6]!),
+    })),
+    clock.today, clock.settings,
+  );
+  const litters = litterPerformanceFactsOf(
+    r.litters.map((l) => ({
+      id: str(l[0]!), farmId, serviceId: str(l[1]!), damId: str(l[2]!), sireId: str(l[3]!), kindledOn: str(l[4]!), bornAlive: num(l[5]!), bornDead: num(l[6]!),
+    })),
+    r.events.map((e) => ({
+      id: str(e[0]!), litterId: str(e[1]!), kind: str(e[2]!) as never, occurredOn: str(e[3]!), kitCount: num(e[4]!), cause: optStr(e[5]!),
+      otherLitterId: optStr(e[6]!), reviewState: str(e[7]!) as never, weaningWeightGrams: e[8] === null ? null : num(e[8]!),
+    })),
+  );
+  // The feed book's stored shares, added up per group and per nursing litter.
+  const byGroup = new Map<string, { grams: number; costCents: number }>();
+  const doeLitterFeed = new Map<string, { grams: number; costCents: number }>();
+  for (const [groupId, litterId, grams, costCents] of r.feed) {
+    const total = { grams: num(grams!), costCents: num(costCents!) };
+    if (groupId) byGroup.set(str(groupId), total);
+    else if (litterId) doeLitterFeed.set(str(litterId), total);
+  }
+  // A group's litters with their kindling (a removed litter is left out of its group).
+  const kindledOn = new Map(r.member_litters.map(([id, on]) => [str(id!), str(on!)]));
+  const members = groupBy(r.members.filter((m) => kindledOn.has(str(m[1]!))), (m) => str(m[0]!));
+  const weighIns = groupBy(r.weigh_ins, (w) => str(w[0]!));
+  const groups: PerformanceGroupInput[] = r.groups.map(([id, name, formedOn, status, closedOn, targetGrams]) => ({
+    id: str(id!), name: str(name!), formedOn: str(formedOn!), status: str(status!) as PerformanceGroupInput['status'], closedOn: optStr(closedOn!),
+    targetGrams: num(targetGrams!),
+    litters: (members.get(str(id!)) ?? []).map((m) => ({ litterId: str(m[1]!), heads: num(m[2]!), kindledOn: kindledOn.get(str(m[1]!))! })),
+    weighIns: (weighIns.get(str(id!)) ?? []).map((w) => ({ weighedOn: str(w[1]!), totalGrams: num(w[2]!), headCount: num(w[3]!) })),
+    feedGrams: byGroup.get(str(id!))?.grams ?? 0,
+    feedCostCents: byGroup.get(str(id!))?.costCents ?? 0,
   }));
-  const doeLitterFeed = feed.byLitter;
-  const processing = await processingFactsOfFarm(tx, coopId, farmId);
-  return { groups, doeLitterFeed, processing };
+  const processing: PerformanceProcessingInput[] = r.processing.map((p) => ({
+    id: str(p[0]!), processedOn: str(p[1]!), animalId: optStr(p[2]!), groupId: optStr(p[3]!), headCount: num(p[4]!),
+    liveGrams: num(p[5]!), hotCarcassGrams: num(p[6]!),
+  }));
+  return { services, litters, groups, doeLitterFeed, processing };
 }
