@@ -42,6 +42,11 @@ async function settleUncertain(tx: Transaction, client: pg.Client, name: string,
   uncertain.delete(name);
 }
 
+/** The name a text is prepared under (its hash: one name per text, never two texts under one name). */
+export function preparedNameOf(sql: string): string {
+  return `p_${createHash('sha1').update(sql).digest('base64url')}`;
+}
+
 /**
  * `selectRows` as a named prepared statement: PostgreSQL parses and plans it once per connection (one generic
  * plan, see tenant-opening.ts) instead of on every request, which for the list queries costs more than
@@ -63,7 +68,7 @@ export async function selectPrepared<T extends object>(
   } = {},
 ): Promise<T[]> {
   const client = connectionOf(tx);
-  const name = `p_${createHash('sha1').update(sql).digest('base64url')}`;
+  const name = preparedNameOf(sql);
   await settleUncertain(tx, client, name, sql);
   if (openingPendingOn(client)) {
     if (opts.onlyStatement) endWithNextStatement(client);

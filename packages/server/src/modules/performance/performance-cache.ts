@@ -19,9 +19,11 @@ const kept = new Map<string, Kept>();
 /** Answers kept at most; the least recently used one is dropped beyond. */
 const MAX_KEPT = 64;
 
+export const COUNTER_SQL = 'SELECT version::text AS version FROM performance_versions WHERE coop_id = $1';
+
 /** The co-op's counter, in the caller's transaction (0 before any change was counted). */
 export async function performanceVersionOf(tx: Transaction, coopId: string): Promise<string> {
-  const [row] = await selectPrepared<{ version: string }>(tx, 'SELECT version::text AS version FROM performance_versions WHERE coop_id = $1', [coopId]);
+  const [row] = await selectPrepared<{ version: string }>(tx, COUNTER_SQL, [coopId]);
   return row?.version ?? '0';
 }
 
