@@ -188,6 +188,8 @@ export function openTenantTransactionsWithFirstStatement(sequelize: Sequelize): 
   queryInterface.startTransaction = async (transaction: Transaction, options) => {
     const coopId = (transaction as unknown as { options: Record<string, unknown>; parent?: Transaction }).options[TENANT_OPTION];
     const connection = (transaction as unknown as { connection?: object }).connection;
+    // A new transaction on the connection: nothing of an earlier one's ended opening carries over.
+    if (connection && !(transaction as unknown as { parent?: Transaction }).parent) endedOpening.delete(connection);
     if (typeof coopId !== 'string' || !UUID.test(coopId) || !connection || (transaction as unknown as { parent?: Transaction }).parent) {
       return startTransaction(transaction, options);
     }
