@@ -86,13 +86,3 @@ export function forgetCoopDirectory(tx: Transaction, coopId: string): void {
   changedIn.add(tx);
   kept.delete(coopId);
 }
-
-/** Something worked out from a directory once (a map by id), for as long as that directory is kept. */
-export function derivedFrom<T>(memo: WeakMap<CoopDirectory, T>, directory: CoopDirectory, derive: (directory: CoopDirectory) => T): T {
-  let value = memo.get(directory);
-  if (value === undefined) {
-    value = derive(directory);
-    memo.set(directory, value);
-  }
-  return value;
-}

@@ -1,5 +1,6 @@
 import type { Transaction } from 'sequelize';
-import { defineAbilityFor, subjectOf, type AnimalRefDto, type FarmRefDto, type Disposition, type Lifecycle, type Sex } from '@burrowline/shared';
+import { defineAbilityFor, subjectOf, type AnimalRefDto, type Disposition, type Lifecycle, type Sex } from '@burrowline/shared';
+import { animalRef } from '../../lib/animal-ref';
 import type { SessionUser } from '../../lib/session-user';
 import { presentContextFor } from './animal-context';
 import { Animal } from './animal.model';
@@ -226,7 +227,5 @@ export function animalLabel(animal: Pick<AnimalFacts, 'name' | 'tattoo'> | undef
 
 /** The short reference to an animal other modules' screens show: name, tattoo, sex and the farm keeping it. */
 export function presentAnimalRef(id: string, ctx: { animals: Map<string, AnimalFacts>; farms: Map<string, { id: string; name: string }> }): AnimalRefDto {
-  const a = ctx.animals.get(id);
-  const farm: FarmRefDto | null = a?.keepingFarmId ? { id: a.keepingFarmId, name: ctx.farms.get(a.keepingFarmId)?.name ?? 'A former member farm' } : null;
-  return { id, name: a?.name ?? '', tattoo: a?.tattoo ?? null, sex: a?.sex ?? 'doe', farm };
+  return animalRef(id, ctx.animals.get(id), ctx.farms);
 }
