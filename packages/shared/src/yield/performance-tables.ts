@@ -225,7 +225,7 @@ interface GroupFigures {
   live: number;
 }
 
-function groupFigures(g: PerformanceGroupInput, records: PerformanceProcessingInput[], crossOfLitter: (id: string) => CrossLabel): GroupFigures {
+function groupFigures(g: PerformanceGroupInput, records: PerformanceProcessingInput[], cross: CrossLabel | null): GroupFigures {
   const heads = sum(g.litters, (l) => l.heads);
   const weighIns = g.weighIns.filter((w) => w.headCount > 0 && w.totalGrams > 0).sort((a, b) => byString(a.weighedOn, b.weighedOn));
   const adg = weighIns.length >= 2 ? gainSummary(weighIns).gramsPerDay : null;
@@ -250,9 +250,8 @@ function groupFigures(g: PerformanceGroupInput, records: PerformanceProcessingIn
       feedConversion = g.feedGrams > 0 ? fc.ratio : null;
     }
   }
-  const keys = new Map(g.litters.map((l) => [crossOfLitter(l.litterId).key, crossOfLitter(l.litterId)]));
   return {
-    input: g, heads, cross: keys.size === 1 ? [...keys.values()][0]! : null, adg, ageAtTargetDays, endGramsPerHead,
+    input: g, heads, cross, adg, ageAtTargetDays, endGramsPerHead,
     atMarket: Boolean(reached) || records.length > 0, gain, feedConversion, hotCarcass, live,
   };
 }
@@ -306,11 +305,29 @@ export function performanceTables(input: PerformanceInput): PerformanceTables {
     }
   }
 
-  // Groups.
-  const groupFigs = groupsInput.map((g) => groupFigures(g, recordsByGroup.get(g.id) ?? [], crossOfLitter));
-  const groupsInPeriod = groupFigs.filter((f) => inPeriod(f.input.formedOn, period));
-  const groupsOfLitter = new Map<string, { fig: GroupFigures; heads: number }[]>();
-  for (const fig of groupFigs) for (const l of fig.input.litters) push(groupsOfLitter, l.litterId, { fig, heads: l.heads });
+  // Groups: a group's figures are worked out when a table asks for them (a period's tables need the
+  // groups formed in it and those its litters grew in, not five years of groups).
+  const crossOfGroup = (g: PerformanceGroupInput): CrossLabel | null => {
+    let only: CrossLabel | null = null;
+    for (const l of g.litters) {
+      const c = crossOfLitter(l.litterId);
+      if (only && only.key !== c.key) return null;
+      only = c;
+    }
+    return only;
+  };
+  const figures = new Map<string, GroupFigures>();
+  const figuresOf = (g: PerformanceGroupInput): GroupFigures => {
+    let f = figures.get(g.id);
+    if (!f) {
+      f = groupFigures(g, recordsByGroup.get(g.id) ?? [], crossOfGroup(g));
+      figures.set(g.id, f);
+    }
+    return f;
+  };
+  const groupsInPeriod = groupsInput.filter((g) => inPeriod(g.formedOn, period)).map(figuresOf);
+  const groupsOfLitter = new Map<string, { group: PerformanceGroupInput; heads: number }[]>();
+  for (const g of groupsInput) for (const l of g.litters) push(groupsOfLitter, l.litterId, { group: g, heads: l.heads });
 
   // Per doe and per buck: records by animal.
   const servicesByDoe = new Map<string, PerformanceServiceInput[]>();
@@ -341,7 +358,12 @@ export function performanceTables(input: PerformanceInput): PerformanceTables {
 
   const groupGain = (ls: PerformanceLitterInput[]) => {
     const seen = new Map<string, GroupFigures>();
-    for (const l of ls) for (const { fig } of groupsOfLitter.get(l.id) ?? []) if (fig.adg !== null) seen.set(fig.input.id, fig);
+    for (const l of ls) {
+      for (const { group } of groupsOfLitter.get(l.id) ?? []) {
+        const fig = figuresOf(group);
+        if (fig.adg !== null) seen.set(group.id, fig);
+      }
+    }
     return [...seen.values()];
   };
 
@@ -371,7 +393,7 @@ export function performanceTables(input: PerformanceInput): PerformanceTables {
         let young = 0;
         for (const l of inP) {
           const doeFeed = input.doeLitterFeed.get(l.id);
-          const placed = groupsOfLitter.get(l.id) ?? [];
+          const placed = (groupsOfLitter.get(l.id) ?? []).map(({ group, heads }) => ({ fig: figuresOf(group), heads }));
           if (!doeFeed || placed.length === 0 || !placed.every(({ fig }) => fig.atMarket && fig.endGramsPerHead !== null && fig.heads > 0)) continue;
           feed += doeFeed.grams + sum(placed, ({ fig, heads }) => (fig.input.feedGrams * heads) / fig.heads);
           young += sum(placed, ({ fig, heads }) => fig.endGramsPerHead! * heads);
@@ -440,10 +462,12 @@ export function performanceTables(input: PerformanceInput): PerformanceTables {
     if (f.feedConversion !== null) values.feedConversion = f.feedConversion;
     units.push({ key: f.cross.key, kind: 'group', values });
   }
-  for (const f of groupFigs) {
-    if (!f.cross) continue;
-    for (const r of recordsByGroup.get(f.input.id) ?? []) {
-      if (inPeriod(r.processedOn, period) && r.liveGrams > 0) units.push({ key: f.cross.key, kind: 'processing', values: { dressOutPercent: dressOutPercent(r.hotCarcassGrams, r.liveGrams) } });
+  for (const g of groupsInput) {
+    const records = recordsByGroup.get(g.id);
+    const cross = records ? crossOfGroup(g) : null;
+    if (!records || !cross) continue;
+    for (const r of records) {
+      if (inPeriod(r.processedOn, period) && r.liveGrams > 0) units.push({ key: cross.key, kind: 'processing', values: { dressOutPercent: dressOutPercent(r.hotCarcassGrams, r.liveGrams) } });
     }
   }
   for (const u of dressOutUnits) units.push({ ...u, kind: 'processing' });
