@@ -279,7 +279,6 @@ export async function buildCoop(opts: { animals: number; slug: string; password:
       },
     };
   });
-  await database().query('ANALYZE');
   built.builtInSeconds = Math.round((Date.now() - started) / 1000);
   return built;
 
