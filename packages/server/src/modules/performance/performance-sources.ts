@@ -1,5 +1,5 @@
 import type { Transaction } from 'sequelize';
-import type { CycleSettings, PerformanceGroupInput, PerformanceProcessingInput } from '@burrowline/shared';
+import type { CycleSettings, PerformanceGroupInput, PerformancePeriod, PerformanceProcessingInput } from '@burrowline/shared';
 import { selectPrepared } from '../../db/prepared';
 import { groupBy } from '../../lib/group-by';
 import { serviceOutcomeFactsOf, type ServiceOutcomeFacts } from '../almanac/breeding.service';
@@ -39,9 +39,35 @@ interface SourceRows {
 // The groups' litters, weigh-ins and feed shares are looked up by the ids of the farm's groups and feed
 // entries (`= ANY (ARRAY(...))`, one index scan each, as an IN list would), never joined row by row: a
 // nested loop over a misestimated outer side (fresh rows, old statistics) would read them once per group.
-const sourcesSql = `WITH farm_groups AS MATERIALIZED (
+//
+// Over a period ($3 to $4) only what its tables can name is read: of the grow-out groups those formed in
+// it, processed in it, or grown from a litter kindled in it (with all their weigh-ins and processing, which
+// their figures rest on); processing records of single animals in it; feed of those groups and of the
+// litters kindled in it. Services, litters and their entries are read whole: a doe's figures look back
+// past the period's start (her first record, the litter before, the services missed in a row).
+function sourcesSql(overPeriod: boolean): string {
+  const farmGroups = overPeriod
+    ? `AND (g.formed_on BETWEEN $3 AND $4
+        OR g.id IN (SELECT p.group_id FROM processing_records p WHERE p.coop_id = $1 AND p.farm_id = $2 AND p.deleted_at IS NULL
+                    AND p.group_id IS NOT NULL AND p.processed_on BETWEEN $3 AND $4)
+        OR g.id IN (SELECT m.group_id FROM grow_out_group_litters m WHERE m.litter_id = ANY (ARRAY(SELECT id FROM period_litters))))`
+    : '';
+  const periodLitters = overPeriod
+    ? `period_litters AS MATERIALIZED (
+    SELECT l.id FROM litters l WHERE l.coop_id = $1 AND l.farm_id = $2 AND l.deleted_at IS NULL AND l.kindled_on BETWEEN $3 AND $4),
+  `
+    : '';
+  const feedShares = overPeriod
+    ? `FROM feed_use_shares sh JOIN feed_uses u ON u.id = sh.feed_use_id
+      WHERE sh.coop_id = $1 AND u.coop_id = $1 AND u.farm_id = $2 AND u.deleted_at IS NULL
+        AND (sh.group_id = ANY (ARRAY(SELECT id FROM farm_groups)) OR sh.litter_id = ANY (ARRAY(SELECT id FROM period_litters)))`
+    : `FROM feed_use_shares sh
+      WHERE sh.coop_id = $1 AND sh.feed_use_id = ANY (ARRAY(
+        SELECT u.id FROM feed_uses u WHERE u.coop_id = $1 AND u.farm_id = $2 AND u.deleted_at IS NULL))`;
+  const processing = overPeriod ? 'AND (p.processed_on BETWEEN $3 AND $4 OR p.group_id = ANY (ARRAY(SELECT id FROM farm_groups)))' : '';
+  return `WITH ${periodLitters}farm_groups AS MATERIALIZED (
     SELECT g.id, g.name, g.formed_on, g.status, g.closed_on, g.target_grams, g.created_at FROM grow_out_groups g
-    WHERE g.coop_id = $1 AND g.farm_id = $2 AND g.deleted_at IS NULL),
+    WHERE g.coop_id = $1 AND g.farm_id = $2 AND g.deleted_at IS NULL ${farmGroups}),
   members AS MATERIALIZED (
     SELECT m.group_id, m.litter_id, m.heads FROM grow_out_group_litters m WHERE m.group_id = ANY (ARRAY(SELECT id FROM farm_groups)))
   SELECT
@@ -56,9 +82,7 @@ const sourcesSql = `WITH farm_groups AS MATERIALIZED (
     FROM litter_events e WHERE e.coop_id = $1 AND e.farm_id = $2 AND e.deleted_at IS NULL) AS events,
   (SELECT coalesce(json_agg(json_build_array(f.group_id, f.litter_id, f.grams, f.cost_cents)), '[]') FROM (
       SELECT sh.group_id, sh.litter_id, sum(sh.grams) AS grams, coalesce(sum(sh.cost_cents), 0) AS cost_cents
-      FROM feed_use_shares sh
-      WHERE sh.coop_id = $1 AND sh.feed_use_id = ANY (ARRAY(
-        SELECT u.id FROM feed_uses u WHERE u.coop_id = $1 AND u.farm_id = $2 AND u.deleted_at IS NULL))
+      ${feedShares}
       GROUP BY sh.group_id, sh.litter_id) f) AS feed,
   (SELECT coalesce(json_agg(json_build_array(g.id, g.name, g.formed_on, g.status, g.closed_on, g.target_grams)
       ORDER BY g.formed_on, g.created_at), '[]') FROM farm_groups g) AS groups,
@@ -71,16 +95,23 @@ const sourcesSql = `WITH farm_groups AS MATERIALIZED (
       AND w.review_state = 'accepted' AND w.deleted_at IS NULL) AS weigh_ins,
   (SELECT coalesce(json_agg(json_build_array(p.id, p.processed_on, p.animal_id, p.group_id, p.head_count, p.live_grams, p.hot_carcass_grams)
       ORDER BY p.processed_on, p.created_at), '[]')
-    FROM processing_records p WHERE p.coop_id = $1 AND p.farm_id = $2 AND p.deleted_at IS NULL) AS processing`;
+    FROM processing_records p WHERE p.coop_id = $1 AND p.farm_id = $2 AND p.deleted_at IS NULL ${processing}) AS processing`;
+}
+const allRecordsSql = sourcesSql(false);
+const periodSql = sourcesSql(true);
 
 const str = (v: Json) => v as string;
 const optStr = (v: Json) => v as string | null;
 const num = (v: Json) => Number(v);
 
+/** The farm's records for its tables over `period` (null: every record). */
 export async function performanceSourcesOf(
-  tx: Transaction, coopId: string, farmId: string, clock: { today: string; settings: CycleSettings },
+  tx: Transaction, coopId: string, farmId: string, clock: { today: string; settings: CycleSettings; period: PerformancePeriod | null },
 ): Promise<PerformanceSources> {
-  const [rows] = await selectPrepared<SourceRows>(tx, sourcesSql, [coopId, farmId]);
+  const { period } = clock;
+  const [rows] = period
+    ? await selectPrepared<SourceRows>(tx, periodSql, [coopId, farmId, period.from, period.to])
+    : await selectPrepared<SourceRows>(tx, allRecordsSql, [coopId, farmId]);
   const r = rows!;
   const services = serviceOutcomeFactsOf(
     r.services.map((s) => ({

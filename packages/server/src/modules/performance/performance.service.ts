@@ -39,7 +39,7 @@ export async function farmPerformance(actor: SessionUser, q: PerformanceQuery): 
 /** The tables worked out from the farm's records: its settings, its records in one statement, the animals they name. */
 async function tablesOf(tx: Transaction, coopId: string, farmId: string, today: string, period: PerformancePeriod | null): Promise<PerformanceTables> {
   const { settings } = await settingsOf(tx, farmId);
-  const { services, litters, groups, doeLitterFeed, processing } = await performanceSourcesOf(tx, coopId, farmId, { today, settings });
+  const { services, litters, groups, doeLitterFeed, processing } = await performanceSourcesOf(tx, coopId, farmId, { today, settings, period });
   const processedIds = processing.filter((r) => r.animalId && !r.groupId).map((r) => r.animalId!);
   const ids = new Set<string>(processedIds);
   for (const s of services) ids.add(s.doeId).add(s.buckId);
