@@ -22,18 +22,19 @@ export interface PerformanceSources {
   processing: PerformanceProcessingInput[];
 }
 
-type Json = string | number | null;
-interface SourceRows {
-  services: Json[][];
-  litters: Json[][];
-  events: Json[][];
-  feed: Json[][];
-  groups: Json[][];
-  members: Json[][];
-  member_litters: Json[][];
-  weigh_ins: Json[][];
-  processing: Json[][];
-}
+/** Each table packed as text (see `packed`): one string a table. */
+type SourceRows = Record<'services' | 'litters' | 'events' | 'feed' | 'groups' | 'members' | 'member_litters' | 'weigh_ins' | 'processing', string>;
+
+/**
+ * A table's rows packed into one text: the fields of a row joined by U+001F, the rows by U+001E, a text
+ * field written as a JSON string (JSON escapes both separators), SQL NULL as an empty field. Building this
+ * costs PostgreSQL about half of a JSON array a row (no per-value type look-up), and it is unpacked with
+ * two splits.
+ */
+const packed = (fields: string[], from: string, orderBy?: string) =>
+  `(SELECT coalesce(string_agg(concat_ws(chr(31), ${fields.map((f) => `coalesce((${f})::text, '')`).join(', ')}), chr(30)${orderBy ? ` ORDER BY ${orderBy}` : ''}), '') ${from})`;
+
+const unpack = (text: string): string[][] => (text === '' ? [] : text.split('\u001e').map((row) => row.split('\u001f')));
 
 // Each array is a table's rows as positional arrays (smaller than objects); the mapping below names them.
 // The groups' litters, weigh-ins and feed shares are looked up by the ids of the farm's groups and feed
@@ -71,38 +72,32 @@ function sourcesSql(overPeriod: boolean): string {
   members AS MATERIALIZED (
     SELECT m.group_id, m.litter_id, m.heads FROM grow_out_group_litters m WHERE m.group_id = ANY (ARRAY(SELECT id FROM farm_groups)))
   SELECT
-  (SELECT coalesce(json_agg(json_build_array(s.id, s.doe_id, s.buck_id, s.serviced_on, s.status, s.closed_on, s.litter_id)
-      ORDER BY s.serviced_on, s.created_at), '[]')
-    FROM services s WHERE s.coop_id = $1 AND s.farm_id = $2 AND s.deleted_at IS NULL) AS services,
-  (SELECT coalesce(json_agg(json_build_array(l.id, l.service_id, l.dam_id, l.sire_id, l.kindled_on, l.born_alive, l.born_dead)
-      ORDER BY l.kindled_on, l.created_at), '[]')
-    FROM litters l WHERE l.coop_id = $1 AND l.farm_id = $2 AND l.deleted_at IS NULL) AS litters,
-  (SELECT coalesce(json_agg(json_build_array(e.id, e.litter_id, e.kind, e.occurred_on, e.kit_count, e.cause, e.other_litter_id,
-      e.review_state, e.weaning_weight_grams) ORDER BY e.occurred_on, e.created_at), '[]')
-    FROM litter_events e WHERE e.coop_id = $1 AND e.farm_id = $2 AND e.deleted_at IS NULL) AS events,
-  (SELECT coalesce(json_agg(json_build_array(f.group_id, f.litter_id, f.grams, f.cost_cents)), '[]') FROM (
+  ${packed(['s.id', 's.doe_id', 's.buck_id', 's.serviced_on', 's.status', 's.closed_on', 's.litter_id'],
+    'FROM services s WHERE s.coop_id = $1 AND s.farm_id = $2 AND s.deleted_at IS NULL', 's.serviced_on, s.created_at')} AS services,
+  ${packed(['l.id', 'l.service_id', 'l.dam_id', 'l.sire_id', 'l.kindled_on', 'l.born_alive', 'l.born_dead'],
+    'FROM litters l WHERE l.coop_id = $1 AND l.farm_id = $2 AND l.deleted_at IS NULL', 'l.kindled_on, l.created_at')} AS litters,
+  ${packed(['e.id', 'e.litter_id', 'e.kind', 'e.occurred_on', 'e.kit_count', 'to_json(e.cause)', 'e.other_litter_id', 'e.review_state', 'e.weaning_weight_grams'],
+    'FROM litter_events e WHERE e.coop_id = $1 AND e.farm_id = $2 AND e.deleted_at IS NULL', 'e.occurred_on, e.created_at')} AS events,
+  ${packed(['f.group_id', 'f.litter_id', 'f.grams', 'f.cost_cents'], `FROM (
       SELECT sh.group_id, sh.litter_id, sum(sh.grams) AS grams, coalesce(sum(sh.cost_cents), 0) AS cost_cents
       ${feedShares}
-      GROUP BY sh.group_id, sh.litter_id) f) AS feed,
-  (SELECT coalesce(json_agg(json_build_array(g.id, g.name, g.formed_on, g.status, g.closed_on, g.target_grams)
-      ORDER BY g.formed_on, g.created_at), '[]') FROM farm_groups g) AS groups,
-  (SELECT coalesce(json_agg(json_build_array(m.group_id, m.litter_id, m.heads)), '[]') FROM members m) AS members,
-  (SELECT coalesce(json_agg(json_build_array(l.id, l.kindled_on)), '[]')
-    FROM litters l WHERE l.id = ANY (ARRAY(SELECT litter_id FROM members)) AND l.coop_id = $1 AND l.deleted_at IS NULL) AS member_litters,
-  (SELECT coalesce(json_agg(json_build_array(w.group_id, w.weighed_on, w.total_grams, w.head_count)
-      ORDER BY w.weighed_on, w.created_at), '[]')
-    FROM weigh_ins w WHERE w.group_id = ANY (ARRAY(SELECT id FROM farm_groups)) AND w.coop_id = $1
-      AND w.review_state = 'accepted' AND w.deleted_at IS NULL) AS weigh_ins,
-  (SELECT coalesce(json_agg(json_build_array(p.id, p.processed_on, p.animal_id, p.group_id, p.head_count, p.live_grams, p.hot_carcass_grams)
-      ORDER BY p.processed_on, p.created_at), '[]')
-    FROM processing_records p WHERE p.coop_id = $1 AND p.farm_id = $2 AND p.deleted_at IS NULL ${processing}) AS processing`;
+      GROUP BY sh.group_id, sh.litter_id) f`)} AS feed,
+  ${packed(['g.id', 'to_json(g.name)', 'g.formed_on', 'g.status', 'g.closed_on', 'g.target_grams'], 'FROM farm_groups g', 'g.formed_on, g.created_at')} AS groups,
+  ${packed(['m.group_id', 'm.litter_id', 'm.heads'], 'FROM members m')} AS members,
+  ${packed(['l.id', 'l.kindled_on'], 'FROM litters l WHERE l.id = ANY (ARRAY(SELECT litter_id FROM members)) AND l.coop_id = $1 AND l.deleted_at IS NULL')} AS member_litters,
+  ${packed(['w.group_id', 'w.weighed_on', 'w.total_grams', 'w.head_count'],
+    `FROM weigh_ins w WHERE w.group_id = ANY (ARRAY(SELECT id FROM farm_groups)) AND w.coop_id = $1
+      AND w.review_state = 'accepted' AND w.deleted_at IS NULL`, 'w.weighed_on, w.created_at')} AS weigh_ins,
+  ${packed(['p.id', 'p.processed_on', 'p.animal_id', 'p.group_id', 'p.head_count', 'p.live_grams', 'p.hot_carcass_grams'],
+    `FROM processing_records p WHERE p.coop_id = $1 AND p.farm_id = $2 AND p.deleted_at IS NULL ${processing}`, 'p.processed_on, p.created_at')} AS processing`;
 }
 const allRecordsSql = sourcesSql(false);
 const periodSql = sourcesSql(true);
 
-const str = (v: Json) => v as string;
-const optStr = (v: Json) => v as string | null;
-const num = (v: Json) => Number(v);
+const str = (v: string | undefined) => v!;
+const optStr = (v: string | undefined) => (v ? v : null);
+const num = (v: string | undefined) => Number(v);
+const text = (v: string | undefined) => (v ? (JSON.parse(v) as string) : null);
 
 /** The farm's records for its tables over `period` (null: every record). */
 export async function performanceSourcesOf(
@@ -112,7 +107,7 @@ export async function performanceSourcesOf(
   const [rows] = period
     ? await selectPrepared<SourceRows>(tx, periodSql, [coopId, farmId, period.from, period.to])
     : await selectPrepared<SourceRows>(tx, allRecordsSql, [coopId, farmId]);
-  const r = rows!;
+  const r = Object.fromEntries(Object.entries(rows!).map(([table, packedRows]) => [table, unpack(packedRows)])) as Record<keyof SourceRows, string[][]>;
   const services = serviceOutcomeFactsOf(
     r.services.map((s) => ({
       id: str(s[0]!), doeId: str(s[1]!), buckId: str(s[2]!), servicedOn: str(s[3]!), status: str(s[4]!) as ServiceOutcomeFacts['status'],
@@ -125,8 +120,8 @@ export async function performanceSourcesOf(
       id: str(l[0]!), farmId, serviceId: str(l[1]!), damId: str(l[2]!), sireId: str(l[3]!), kindledOn: str(l[4]!), bornAlive: num(l[5]!), bornDead: num(l[6]!),
     })),
     r.events.map((e) => ({
-      id: str(e[0]!), litterId: str(e[1]!), kind: str(e[2]!) as never, occurredOn: str(e[3]!), kitCount: num(e[4]!), cause: optStr(e[5]!),
-      otherLitterId: optStr(e[6]!), reviewState: str(e[7]!) as never, weaningWeightGrams: e[8] === null ? null : num(e[8]!),
+      id: str(e[0]!), litterId: str(e[1]!), kind: str(e[2]!) as never, occurredOn: str(e[3]!), kitCount: num(e[4]!), cause: text(e[5]),
+      otherLitterId: optStr(e[6]!), reviewState: str(e[7]!) as never, weaningWeightGrams: e[8] ? num(e[8]) : null,
     })),
   );
   // The feed book's stored shares, added up per group and per nursing litter.
@@ -142,7 +137,7 @@ export async function performanceSourcesOf(
   const members = groupBy(r.members.filter((m) => kindledOn.has(str(m[1]!))), (m) => str(m[0]!));
   const weighIns = groupBy(r.weigh_ins, (w) => str(w[0]!));
   const groups: PerformanceGroupInput[] = r.groups.map(([id, name, formedOn, status, closedOn, targetGrams]) => ({
-    id: str(id!), name: str(name!), formedOn: str(formedOn!), status: str(status!) as PerformanceGroupInput['status'], closedOn: optStr(closedOn!),
+    id: str(id!), name: text(name)!, formedOn: str(formedOn!), status: str(status!) as PerformanceGroupInput['status'], closedOn: optStr(closedOn!),
     targetGrams: num(targetGrams!),
     litters: (members.get(str(id!)) ?? []).map((m) => ({ litterId: str(m[1]!), heads: num(m[2]!), kindledOn: kindledOn.get(str(m[1]!))! })),
     weighIns: (weighIns.get(str(id!)) ?? []).map((w) => ({ weighedOn: str(w[1]!), totalGrams: num(w[2]!), headCount: num(w[3]!) })),
