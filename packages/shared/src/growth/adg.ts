@@ -61,14 +61,18 @@ export interface GainSummary {
  * period between weigh-ins. Several weigh-ins on one day are averaged per head.
  */
 export function gainSummary(weighIns: ReadonlyArray<WeighInPoint>): GainSummary {
-  const byDay = new Map<string, { grams: number; heads: number }>();
+  // In date order, so one day's weigh-ins are next to each other.
+  const totals: { on: string; grams: number; heads: number }[] = [];
   for (const w of sortedWeighIns(weighIns)) {
-    const day = byDay.get(w.weighedOn) ?? { grams: 0, heads: 0 };
-    day.grams += w.totalGrams;
-    day.heads += w.headCount;
-    byDay.set(w.weighedOn, day);
+    const day = totals[totals.length - 1];
+    if (day && day.on === w.weighedOn) {
+      day.grams += w.totalGrams;
+      day.heads += w.headCount;
+    } else {
+      totals.push({ on: w.weighedOn, grams: w.totalGrams, heads: w.headCount });
+    }
   }
-  const days = [...byDay.entries()].map(([on, d]) => ({ on, perHead: d.grams / d.heads }));
+  const days = totals.map((d) => ({ on: d.on, perHead: d.grams / d.heads }));
   const periods: GainSummary['periods'] = [];
   for (let i = 1; i < days.length; i++) {
     const a = days[i - 1]!;

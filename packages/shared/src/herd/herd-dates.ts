@@ -72,14 +72,23 @@ const daysInMonth = (y: number, m: number) => (m === 2 ? ((y % 4 === 0 && y % 10
 
 /** A real calendar date as YYYY-MM-DD (checked by arithmetic: it runs for every record a table reads). */
 export function isIsoDate(value: string): boolean {
+  if (validDates.has(value)) return true;
   const match = isoDate.exec(value);
   if (!match) return false;
   const y = Number(match[1]);
   const m = Number(match[2]);
   const d = Number(match[3]);
   // Years under 100 were never valid here (Date.UTC reads them as 19xx).
-  return y >= 100 && m >= 1 && m <= 12 && d >= 1 && d <= daysInMonth(y, m);
+  const valid = y >= 100 && m >= 1 && m <= 12 && d >= 1 && d <= daysInMonth(y, m);
+  if (valid) {
+    if (validDates.size >= CACHED_DATES) validDates.clear();
+    validDates.add(value);
+  }
+  return valid;
 }
+
+/** Dates found valid (records check the same few thousand dates over and over). */
+const validDates = new Set<string>();
 
 /**
  * The dates a record may carry: the co-op's oldest stock was born long after 1990, and a date past 2100

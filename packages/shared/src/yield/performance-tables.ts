@@ -6,7 +6,7 @@ import { crossLabel, type CrossLabel } from './cross-label';
 import { dressOutPercent } from './dress-out';
 import { doeLitterFeedConversion, groupFeedConversion } from './feed-conversion';
 import { feedCostPerWeight } from './feed-cost';
-import { buckPerformance, doePerformance, type DoePerformance, type PerformancePeriod, type ServiceOutcome } from './performance';
+import { buckPerformance, doePerformance, type DoePerformance, type PerformanceLitter, type PerformancePeriod, type ServiceOutcome } from './performance';
 import { keepCullSuggestions, type KeepCullSuggestion } from './suggestions';
 
 /**
@@ -256,6 +256,32 @@ function groupFigures(g: PerformanceGroupInput, records: PerformanceProcessingIn
   };
 }
 
+/*
+ * A litter's summary depends on its record alone, so it is kept by the record object for as long as the
+ * caller keeps that object: a server that hands the same litters again after a change elsewhere (the
+ * sources it has not read anew) has them summarized already. Records are read here, never changed.
+ */
+const performanceLitters = new WeakMap<PerformanceLitterInput, PerformanceLitter>();
+const summaries = new WeakMap<LitterRecord, LitterSummary>();
+
+function performanceLitterOf(l: PerformanceLitterInput): PerformanceLitter {
+  let p = performanceLitters.get(l);
+  if (!p) {
+    p = { ...l.record, weaningWeightGrams: l.weaningWeightGrams };
+    performanceLitters.set(l, p);
+  }
+  return p;
+}
+
+function summaryOfLitter(record: LitterRecord): LitterSummary {
+  let s = summaries.get(record);
+  if (!s) {
+    s = litterSummary(record);
+    summaries.set(record, s);
+  }
+  return s;
+}
+
 /** Every performance table of a farm, over the period (default: all records). */
 export function performanceTables(input: PerformanceInput): PerformanceTables {
   const missing: PerformanceSource[] = [];
@@ -281,7 +307,12 @@ export function performanceTables(input: PerformanceInput): PerformanceTables {
     }
     return c;
   };
-  const litterByBirth = new Map(input.litters.map((l) => [`${l.sireId}|${l.damId}|${l.kindledOn}`, l.id]));
+  // Built only when an animal was processed on its own (most farms process by group).
+  let litterByBirth: Map<string, string> | undefined;
+  const litterBornOf = (a: { sireId: string; damId: string; birthDate: string }) => {
+    litterByBirth ??= new Map(input.litters.map((l) => [`${l.sireId}|${l.damId}|${l.kindledOn}`, l.id]));
+    return litterByBirth.get(`${a.sireId}|${a.damId}|${a.birthDate}`);
+  };
 
   // Processing: by group, and carcasses by litter (group records pro rata by heads).
   const groupsInput = input.groups ?? [];
@@ -297,7 +328,7 @@ export function performanceTables(input: PerformanceInput): PerformanceTables {
       for (const l of group.litters) push(carcassesByLitter, l.litterId, { processedOn: r.processedOn, carcassGrams: (r.hotCarcassGrams * l.heads) / heads });
     } else if (r.animalId) {
       const a = input.processedAnimals?.get(r.animalId);
-      const litterId = a?.sireId && a.damId && a.birthDate ? litterByBirth.get(`${a.sireId}|${a.damId}|${a.birthDate}`) : undefined;
+      const litterId = a?.sireId && a.damId && a.birthDate ? litterBornOf({ sireId: a.sireId, damId: a.damId, birthDate: a.birthDate }) : undefined;
       if (litterId) {
         push(carcassesByLitter, litterId, { processedOn: r.processedOn, carcassGrams: r.hotCarcassGrams });
         if (inPeriod(r.processedOn, period) && r.liveGrams > 0) dressOutUnits.push({ key: crossOfLitter(litterId).key, values: { dressOutPercent: dressOutPercent(r.hotCarcassGrams, r.liveGrams) } });
@@ -336,17 +367,9 @@ export function performanceTables(input: PerformanceInput): PerformanceTables {
     push(servicesByDoe, s.doeId, s);
     push(servicesByBuck, s.buckId, s);
   }
-  // Each litter is checked and summarized once, for its doe and its buck alike.
-  const performanceLitters = new Map(input.litters.map((l) => [l.id, { ...l.record, weaningWeightGrams: l.weaningWeightGrams }]));
-  const summaries = new WeakMap<LitterRecord, LitterSummary>();
-  const summaryOf = (record: LitterRecord) => {
-    let s = summaries.get(record);
-    if (!s) {
-      s = litterSummary(record);
-      summaries.set(record, s);
-    }
-    return s;
-  };
+  // Each litter is checked and summarized once, for its doe and its buck alike (and, when the caller hands
+  // the same litter objects again, once across calls: see `summaries`).
+  const performanceLitters = new Map(input.litters.map((l) => [l.id, performanceLitterOf(l)]));
   const littersByDam = new Map<string, PerformanceLitterInput[]>();
   const littersBySire = new Map<string, PerformanceLitterInput[]>();
   for (const l of input.litters) {
@@ -376,9 +399,9 @@ export function performanceTables(input: PerformanceInput): PerformanceTables {
     if (!active(services, own)) continue;
     const carcasses = input.processing ? own.flatMap((l) => carcassesByLitter.get(l.id) ?? []) : undefined;
     const perf: DoePerformance = doePerformance(
-      { services: services.map((s) => ({ servicedOn: s.servicedOn, outcome: s.outcome })), litters: own.map((l) => performanceLitters.get(l.id)!), carcasses },
+      { services, litters: own.map((l) => performanceLitters.get(l.id)!), carcasses },
       period,
-      summaryOf,
+      summaryOfLitter,
     );
     const inP = own.filter((l) => inPeriod(l.kindledOn, period));
     let toWeaning: number | null = null;
@@ -434,7 +457,7 @@ export function performanceTables(input: PerformanceInput): PerformanceTables {
     const services = servicesByBuck.get(buckId) ?? [];
     const sired = littersBySire.get(buckId) ?? [];
     if (!active(services, sired)) continue;
-    const perf = buckPerformance({ services: services.map((s) => ({ servicedOn: s.servicedOn, outcome: s.outcome })), litters: sired.map((l) => performanceLitters.get(l.id)!) }, period, summaryOf);
+    const perf = buckPerformance({ services, litters: sired.map((l) => performanceLitters.get(l.id)!) }, period, summaryOfLitter);
     const gains = groupGain(sired.filter((l) => inPeriod(l.kindledOn, period)));
     bucks.push({
       animal: refOf(animals.get(buckId), buckId),

@@ -94,6 +94,18 @@ export function missedInARow(services: ReadonlyArray<ServiceRecord>): { count: n
 /** Litter summaries already worked out (the farm's tables summarize each litter once for its doe and its buck). */
 export type SummaryOf = (litter: LitterRecord) => LitterSummary;
 
+type DatedSummary = DoePerformance['litterSummaries'][number];
+/** A litter's summary with its kindling and weaning weight, made once per litter object (its record is never changed). */
+const datedSummaries = new WeakMap<PerformanceLitter, DatedSummary>();
+function datedSummaryOf(l: PerformanceLitter, summaryOf: SummaryOf): DatedSummary {
+  let s = datedSummaries.get(l);
+  if (!s) {
+    s = { ...summaryOf(l), kindledOn: l.kindledOn, weaningWeightGrams: l.weaningWeightGrams ?? null };
+    datedSummaries.set(l, s);
+  }
+  return s;
+}
+
 export function doePerformance(
   records: { services: ReadonlyArray<ServiceRecord>; litters: ReadonlyArray<PerformanceLitter>; carcasses?: ReadonlyArray<{ processedOn: string; carcassGrams: number }> },
   period: PerformancePeriod,
@@ -122,7 +134,7 @@ export function doePerformance(
 
   const allLitters = [...records.litters].sort(byKindledOn);
   const litters = allLitters.filter((l) => inPeriod(l.kindledOn, period));
-  const summaries = litters.map((l) => ({ ...summaryOf(l), kindledOn: l.kindledOn, weaningWeightGrams: l.weaningWeightGrams ?? null }));
+  const summaries = litters.map((l) => datedSummaryOf(l, summaryOf));
   const intervals: number[] = [];
   for (let i = 1; i < allLitters.length; i++) {
     if (inPeriod(allLitters[i]!.kindledOn, period)) intervals.push(daysBetween(allLitters[i - 1]!.kindledOn, allLitters[i]!.kindledOn));

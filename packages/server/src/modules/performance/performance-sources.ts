@@ -1,3 +1,4 @@
+import { createHash } from 'node:crypto';
 import type { Transaction } from 'sequelize';
 import type { CycleSettings, PerformanceGroupInput, PerformancePeriod, PerformanceProcessingInput } from '@burrowline/shared';
 import { selectPrepared } from '../../db/prepared';
@@ -99,6 +100,34 @@ const optStr = (v: string | undefined) => (v ? v : null);
 const num = (v: string | undefined) => Number(v);
 const text = (v: string | undefined) => (v ? (JSON.parse(v) as string) : null);
 
+/**
+ * What was last unpacked for a farm and kind of period, by a digest of the packed text it came from. After
+ * a change (most often to one table) a part whose text is the same is not unpacked again and keeps its
+ * objects, so what `performanceTables` keeps by object (a litter's summary) is reused too. Least recently
+ * used farms are dropped beyond the bound.
+ */
+const lastUnpacked = new Map<string, Map<string, { digest: string; value: unknown }>>();
+const UNPACKED_FARMS = 16;
+
+function unpackedFor(key: string): Map<string, { digest: string; value: unknown }> {
+  const parts = lastUnpacked.get(key) ?? new Map<string, { digest: string; value: unknown }>();
+  lastUnpacked.delete(key);
+  lastUnpacked.set(key, parts);
+  while (lastUnpacked.size > UNPACKED_FARMS) lastUnpacked.delete(lastUnpacked.keys().next().value!);
+  return parts;
+}
+
+function reused<T>(parts: Map<string, { digest: string; value: unknown }>, part: string, texts: string[], make: () => T): T {
+  const hash = createHash('sha1');
+  for (const t of texts) hash.update(t).update('\u0000');
+  const digest = hash.digest('base64');
+  const last = parts.get(part);
+  if (last?.digest === digest) return last.value as T;
+  const value = make();
+  parts.set(part, { digest, value });
+  return value;
+}
+
 /** The farm's records for its tables over `period` (null: every record). */
 export async function performanceSourcesOf(
   tx: Transaction, coopId: string, farmId: string, clock: { today: string; settings: CycleSettings; period: PerformancePeriod | null },
@@ -107,46 +136,52 @@ export async function performanceSourcesOf(
   const [rows] = period
     ? await selectPrepared<SourceRows>(tx, periodSql, [coopId, farmId, period.from, period.to])
     : await selectPrepared<SourceRows>(tx, allRecordsSql, [coopId, farmId]);
-  const r = Object.fromEntries(Object.entries(rows!).map(([table, packedRows]) => [table, unpack(packedRows)])) as Record<keyof SourceRows, string[][]>;
-  const services = serviceOutcomeFactsOf(
-    r.services.map((s) => ({
-      id: str(s[0]!), doeId: str(s[1]!), buckId: str(s[2]!), servicedOn: str(s[3]!), status: str(s[4]!) as ServiceOutcomeFacts['status'],
-      closedOn: optStr(s[5]!), litterId: optStr(s[6]!),
+  const t = rows!;
+  const parts = unpackedFor(`${coopId}|${farmId}|${period ? 'period' : 'all'}`);
+  const services = reused(parts, 'services', [t.services, clock.today, JSON.stringify(clock.settings)], () => serviceOutcomeFactsOf(
+    unpack(t.services).map((s) => ({
+      id: str(s[0]), doeId: str(s[1]), buckId: str(s[2]), servicedOn: str(s[3]), status: str(s[4]) as ServiceOutcomeFacts['status'],
+      closedOn: optStr(s[5]), litterId: optStr(s[6]),
     })),
     clock.today, clock.settings,
-  );
-  const litters = litterPerformanceFactsOf(
-    r.litters.map((l) => ({
-      id: str(l[0]!), farmId, serviceId: str(l[1]!), damId: str(l[2]!), sireId: str(l[3]!), kindledOn: str(l[4]!), bornAlive: num(l[5]!), bornDead: num(l[6]!),
+  ));
+  const litters = reused(parts, 'litters', [t.litters, t.events], () => litterPerformanceFactsOf(
+    unpack(t.litters).map((l) => ({
+      id: str(l[0]), farmId, serviceId: str(l[1]), damId: str(l[2]), sireId: str(l[3]), kindledOn: str(l[4]), bornAlive: num(l[5]), bornDead: num(l[6]),
     })),
-    r.events.map((e) => ({
-      id: str(e[0]!), litterId: str(e[1]!), kind: str(e[2]!) as never, occurredOn: str(e[3]!), kitCount: num(e[4]!), cause: text(e[5]),
-      otherLitterId: optStr(e[6]!), reviewState: str(e[7]!) as never, weaningWeightGrams: e[8] ? num(e[8]) : null,
+    unpack(t.events).map((e) => ({
+      id: str(e[0]), litterId: str(e[1]), kind: str(e[2]) as never, occurredOn: str(e[3]), kitCount: num(e[4]), cause: text(e[5]),
+      otherLitterId: optStr(e[6]), reviewState: str(e[7]) as never, weaningWeightGrams: e[8] ? num(e[8]) : null,
     })),
-  );
+  ));
   // The feed book's stored shares, added up per group and per nursing litter.
-  const byGroup = new Map<string, { grams: number; costCents: number }>();
-  const doeLitterFeed = new Map<string, { grams: number; costCents: number }>();
-  for (const [groupId, litterId, grams, costCents] of r.feed) {
-    const total = { grams: num(grams!), costCents: num(costCents!) };
-    if (groupId) byGroup.set(str(groupId), total);
-    else if (litterId) doeLitterFeed.set(str(litterId), total);
-  }
-  // A group's litters with their kindling (a removed litter is left out of its group).
-  const kindledOn = new Map(r.member_litters.map(([id, on]) => [str(id!), str(on!)]));
-  const members = groupBy(r.members.filter((m) => kindledOn.has(str(m[1]!))), (m) => str(m[0]!));
-  const weighIns = groupBy(r.weigh_ins, (w) => str(w[0]!));
-  const groups: PerformanceGroupInput[] = r.groups.map(([id, name, formedOn, status, closedOn, targetGrams]) => ({
-    id: str(id!), name: text(name)!, formedOn: str(formedOn!), status: str(status!) as PerformanceGroupInput['status'], closedOn: optStr(closedOn!),
-    targetGrams: num(targetGrams!),
-    litters: (members.get(str(id!)) ?? []).map((m) => ({ litterId: str(m[1]!), heads: num(m[2]!), kindledOn: kindledOn.get(str(m[1]!))! })),
-    weighIns: (weighIns.get(str(id!)) ?? []).map((w) => ({ weighedOn: str(w[1]!), totalGrams: num(w[2]!), headCount: num(w[3]!) })),
-    feedGrams: byGroup.get(str(id!))?.grams ?? 0,
-    feedCostCents: byGroup.get(str(id!))?.costCents ?? 0,
-  }));
-  const processing: PerformanceProcessingInput[] = r.processing.map((p) => ({
-    id: str(p[0]!), processedOn: str(p[1]!), animalId: optStr(p[2]!), groupId: optStr(p[3]!), headCount: num(p[4]!),
-    liveGrams: num(p[5]!), hotCarcassGrams: num(p[6]!),
-  }));
-  return { services, litters, groups, doeLitterFeed, processing };
+  const feed = reused(parts, 'feed', [t.feed], () => {
+    const byGroup = new Map<string, { grams: number; costCents: number }>();
+    const byLitter = new Map<string, { grams: number; costCents: number }>();
+    for (const [groupId, litterId, grams, costCents] of unpack(t.feed)) {
+      const total = { grams: num(grams), costCents: num(costCents) };
+      if (groupId) byGroup.set(groupId, total);
+      else if (litterId) byLitter.set(litterId, total);
+    }
+    return { byGroup, byLitter };
+  });
+  const groups = reused(parts, 'groups', [t.groups, t.members, t.member_litters, t.weigh_ins, t.feed], (): PerformanceGroupInput[] => {
+    // A group's litters with their kindling (a removed litter is left out of its group).
+    const kindledOn = new Map(unpack(t.member_litters).map(([id, on]) => [str(id), str(on)]));
+    const members = groupBy(unpack(t.members).filter((m) => kindledOn.has(str(m[1]))), (m) => str(m[0]));
+    const weighIns = groupBy(unpack(t.weigh_ins), (w) => str(w[0]));
+    return unpack(t.groups).map(([id, name, formedOn, status, closedOn, targetGrams]) => ({
+      id: str(id), name: text(name)!, formedOn: str(formedOn), status: str(status) as PerformanceGroupInput['status'], closedOn: optStr(closedOn),
+      targetGrams: num(targetGrams),
+      litters: (members.get(str(id)) ?? []).map((m) => ({ litterId: str(m[1]), heads: num(m[2]), kindledOn: kindledOn.get(str(m[1]))! })),
+      weighIns: (weighIns.get(str(id)) ?? []).map((w) => ({ weighedOn: str(w[1]), totalGrams: num(w[2]), headCount: num(w[3]) })),
+      feedGrams: feed.byGroup.get(str(id))?.grams ?? 0,
+      feedCostCents: feed.byGroup.get(str(id))?.costCents ?? 0,
+    }));
+  });
+  const processing = reused(parts, 'processing', [t.processing], (): PerformanceProcessingInput[] => unpack(t.processing).map((p) => ({
+    id: str(p[0]), processedOn: str(p[1]), animalId: optStr(p[2]), groupId: optStr(p[3]), headCount: num(p[4]),
+    liveGrams: num(p[5]), hotCarcassGrams: num(p[6]),
+  })));
+  return { services, litters, groups, doeLitterFeed: feed.byLitter, processing };
 }
