@@ -259,6 +259,17 @@ async function loadFarm(): Promise<{ coopId: string; farmId: string }> {
 const t0 = performance.now();
 const { coopId, farmId } = await loadFarm();
 console.log(`  loaded into PostgreSQL in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
+// Statistics as a farm that grew over five years has them (autovacuum would catch up within a minute; the
+// app role owns no table, so this needs the owner's URL). Without, a co-op just loaded among hundreds of
+// test co-ops looks like a handful of rows to the planner.
+if (process.env.DATABASE_OWNER_URL) {
+  const pg = (await import('pg')).default;
+  const owner = new pg.Client(process.env.DATABASE_OWNER_URL);
+  await owner.connect();
+  await owner.query('ANALYZE');
+  await owner.end();
+  console.log('  analyzed (as the owner)');
+}
 
 const server = http.createServer();
 await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', resolve));
