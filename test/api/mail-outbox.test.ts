@@ -28,7 +28,7 @@ const DEMO_COOP = 'larkspur-hollow';
 
 const server = ownServer({
   cluster: 'pg-mail-outbox',
-  pgPort: 54362,
+  pgPort: 25462,
   appPort: 3962,
   env: {
     SESSION_SECRET: 'mail-outbox-secret-mail-outbox-secret-0123',

@@ -16,7 +16,7 @@ import { ownServer, waitUntil } from '../support/own-server';
 const DEMO = { email: 'member@demo.test', password: 'burrowline-demo' };
 const server = ownServer({
   cluster: 'pg-reliability',
-  pgPort: 54361,
+  pgPort: 25461,
   appPort: 3961,
   env: {
     SESSION_SECRET: 'reliability-secret-reliability-secret-0123',

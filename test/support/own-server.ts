@@ -30,6 +30,11 @@ export async function stopChild(child: ChildProcess | null, signal: NodeJS.Signa
 
 export interface OwnServerOptions {
   cluster: string;
+  /**
+   * Below 32768: these clusters start while the suite runs, and a port in Linux's range for outgoing
+   * connections (32768–60999) may at that moment be the local end of one of the suite's own connections
+   * ("address already in use").
+   */
   pgPort: number;
   appPort: number;
   /** Settings of this server beyond the database, port and URL (session secret, SMTP, …). */
