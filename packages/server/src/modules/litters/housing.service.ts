@@ -198,12 +198,14 @@ export async function moveAnimalIntoHutchIn(
 export async function placeByWrittenHutchIn(tx: Transaction, coopId: string, animalIds: string[]): Promise<void> {
   if (animalIds.length === 0) return;
   const run = (sql: string) => HousingUnit.sequelize!.query(sql, { bind: [coopId, animalIds], transaction: tx });
-  const written = `FROM animals a WHERE a.coop_id = $1 AND a.id = ANY($2::uuid[]) AND btrim(a.hutch) <> '' AND a.keeping_farm_id IS NOT NULL AND a.disposition = 'on_farm'`;
   const sameName = `u.farm_id = a.keeping_farm_id AND lower(u.name) = lower(left(btrim(a.hutch), 40)) AND u.deleted_at IS NULL`;
+  // One hutch a name whatever its case, spelled as the first animal loaded wrote it.
   await run(`INSERT INTO housing_units (coop_id, farm_id, name, kind, notes)
     SELECT DISTINCT ON (a.keeping_farm_id, lower(left(btrim(a.hutch), 40))) a.coop_id, a.keeping_farm_id, left(btrim(a.hutch), 40), 'hutch', ''
-    ${written} AND NOT EXISTS (SELECT 1 FROM housing_units u WHERE ${sameName})
-    ORDER BY a.keeping_farm_id, lower(left(btrim(a.hutch), 40))`);
+    FROM unnest($2::uuid[]) WITH ORDINALITY AS loaded (id, n) JOIN animals a ON a.id = loaded.id
+    WHERE a.coop_id = $1 AND btrim(a.hutch) <> '' AND a.keeping_farm_id IS NOT NULL AND a.disposition = 'on_farm'
+      AND NOT EXISTS (SELECT 1 FROM housing_units u WHERE ${sameName})
+    ORDER BY a.keeping_farm_id, lower(left(btrim(a.hutch), 40)), loaded.n`);
   // A hutch written over another (an import's update) moves the animal: its placement elsewhere ends today.
   await run(`UPDATE housing_placements p SET ended_on = GREATEST(p.placed_on, (now() AT TIME ZONE f.time_zone)::date)
     FROM animals a JOIN farms f ON f.id = a.keeping_farm_id, housing_units u
