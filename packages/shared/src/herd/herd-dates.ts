@@ -16,6 +16,8 @@ function parts(date: string): [number, number, number] {
 const CACHED_DATES = 50_000;
 const msOfDate = new Map<string, number>();
 const dateOfMs = new Map<number, string>();
+/** Dates `isIsoDate` found valid (records check the same few thousand dates over and over). */
+const validDates = new Set<string>();
 
 function toUtcMs(date: string): number {
   let ms = msOfDate.get(date);
@@ -86,9 +88,6 @@ export function isIsoDate(value: string): boolean {
   }
   return valid;
 }
-
-/** Dates found valid (records check the same few thousand dates over and over). */
-const validDates = new Set<string>();
 
 /**
  * The dates a record may carry: the co-op's oldest stock was born long after 1990, and a date past 2100

@@ -9,10 +9,10 @@ import { litterPerformanceFactsOf, type LitterPerformanceFacts } from '../litter
 /**
  * The farm's records the performance tables read — services, litters and their events, grow-out groups
  * with their litters and accepted weigh-ins, the feed book's stored shares, processing — in one
- * statement that answers each table as one JSON array (parsed natively, no per-row work in the driver).
- * It reads what each module's published facts read (`serviceOutcomesOfFarm`, `litterFactsOfFarm`,
- * `growOutFactsOfFarm`, `feedTotalsOfFarm`, `processingFactsOfFarm`), with the same filters and order;
- * `test/api/performance-kept.test.ts` holds the two to the same answer. The outcome of a service and a
+ * statement that answers each table as one packed text (see `packed`). It reads what each module's
+ * published facts read (`serviceOutcomesOfFarm`, `litterFactsOfFarm`, `growOutFactsOfFarm`,
+ * `feedTotalsOfFarm`, `processingFactsOfFarm`), with the same filters and order, over a period only the part
+ * its tables can name; `test/api/performance-kept.test.ts` holds the tables to the same answer. The outcome of a service and a
  * litter's record are still worked out by their modules' own functions.
  */
 export interface PerformanceSources {
@@ -37,10 +37,10 @@ const packed = (fields: string[], from: string, orderBy?: string) =>
 
 const unpack = (text: string): string[][] => (text === '' ? [] : text.split('\u001e').map((row) => row.split('\u001f')));
 
-// Each array is a table's rows as positional arrays (smaller than objects); the mapping below names them.
-// The groups' litters, weigh-ins and feed shares are looked up by the ids of the farm's groups and feed
-// entries (`= ANY (ARRAY(...))`, one index scan each, as an IN list would), never joined row by row: a
-// nested loop over a misestimated outer side (fresh rows, old statistics) would read them once per group.
+// Each table's rows are positional (smaller than named fields); the mapping below names them. The groups'
+// litters, weigh-ins and feed shares are looked up by the ids of the farm's groups and feed entries
+// (`= ANY (ARRAY(...))`, one index scan each, as an IN list would), never joined row by row: a nested loop
+// over a misestimated outer side (fresh rows, old statistics) would read them once per group.
 //
 // Over a period ($3 to $4) only what its tables can name is read: of the grow-out groups those formed in
 // it, processed in it, or grown from a litter kindled in it (with all their weigh-ins and processing, which
